@@ -1,0 +1,52 @@
+using System.CommandLine;
+using System.Globalization;
+using NetAdjust.Adjustment;
+using NetAdjust.IO;
+using NetAdjust.IO.Project;
+using NetAdjust.IO.Results;
+
+namespace NetAdjust.Cli.Commands;
+
+/// <summary><c>netadjust adjust FILE [--json PATH] [--report PATH] [--date YYYY-MM-DD]</c>.</summary>
+internal static class AdjustCommand
+{
+    public static Command Create(CliConsole console)
+    {
+        var file = new Argument<string>("FILE") { Description = "The project file (YAML)." };
+        var json = new Option<string?>("--json") { Description = "Write the result as JSON to this path.", HelpName = "PATH" };
+        var report = new Option<string?>("--report") { Description = "Write the text report to this path instead of standard output.", HelpName = "PATH" };
+        var date = new Option<string?>("--date")
+        {
+            Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
+            HelpName = "YYYY-MM-DD",
+        };
+        var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
+        {
+            file, json, report, date,
+        };
+        cmd.SetAction(parse => CommandRunner.Guard(console, () =>
+        {
+            string path = parse.GetValue(file)!;
+            string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
+            var runDate = ParseDate(parse.GetValue(date));
+            var project = ProjectReader.Read(path);
+            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
+
+            var result = Adjuster.Adjust(project.Network, project.Options);
+            var context = new ReportContext(path, runDate, project.Units);
+            string text = TextReportWriter.Write(result, context);
+            if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
+            if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
+            else console.Out.Write(text);
+            return ExitCodes.Success;
+        }));
+        return cmd;
+    }
+
+    internal static DateOnly ParseDate(string? text)
+    {
+        if (text is null) return DateOnly.FromDateTime(DateTime.UtcNow);
+        return DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
+            ? d : throw new InvalidInputException($"--date '{text}' is not a date in the form YYYY-MM-DD");
+    }
+}

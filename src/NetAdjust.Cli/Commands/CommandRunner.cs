@@ -1,0 +1,30 @@
+using NetAdjust.IO;
+
+namespace NetAdjust.Cli.Commands;
+
+/// <summary>Maps NetAdjust's domain errors to messages and exit codes, so no stack trace reaches the user.</summary>
+internal static class CommandRunner
+{
+    public static int Guard(CliConsole console, Func<int> body)
+    {
+        try
+        {
+            return body();
+        }
+        catch (OutputException e)
+        {
+            console.Error.WriteLine($"error: {e.Message}");
+            return ExitCodes.OutputFailed;
+        }
+        catch (InvalidInputException e)
+        {
+            console.Error.WriteLine($"error: {e.Message}");
+            return ExitCodes.InvalidInput;
+        }
+        catch (AdjustmentFailedException e)
+        {
+            console.Error.WriteLine($"error: adjustment failed: {e.Message}");
+            return ExitCodes.AdjustmentFailed;
+        }
+    }
+}

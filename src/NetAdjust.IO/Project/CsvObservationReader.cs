@@ -1,0 +1,79 @@
+using NetAdjust.Network;
+using NetAdjust.Units;
+
+namespace NetAdjust.IO.Project;
+
+/// <summary>
+/// Reads bulk observations from a CSV file named in a project. The first non-comment line is a header naming
+/// the columns (any order): <c>kind</c> and <c>value</c> are required; <c>at</c>, <c>from</c>, <c>to</c>,
+/// <c>sd</c>, <c>length</c>, <c>set</c> as the kinds need them. Lines starting with <c>#</c> and blank lines
+/// are skipped. Fields are separated by commas and are not quoted (ids cannot hold commas).
+/// </summary>
+internal static class CsvObservationReader
+{
+    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set"];
+
+    public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
+        IReadOnlyDictionary<ObservationKind, double> defaults)
+    {
+        var result = new List<Observation>();
+        string[] lines = text.Split('\n');
+        Dictionary<string, int>? col = null;
+        for (int i = 0; i < lines.Length; i++)
+        {
+            int lineNo = i + 1;
+            string line = lines[i].TrimEnd('\r');
+            if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
+            string[] f = line.Split(',').Select(s => s.Trim()).ToArray();
+            if (col is null)
+            {
+                col = new Dictionary<string, int>(StringComparer.Ordinal);
+                for (int k = 0; k < f.Length; k++)
+                {
+                    if (!Columns.Contains(f[k])) throw new ProjectFileException(file, lineNo, "header", $"unknown column '{f[k]}' (expected some of: {string.Join(", ", Columns)})");
+                    if (!col.TryAdd(f[k], k)) throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
+                }
+                foreach (var need in new[] { "kind", "value" })
+                    if (!col.ContainsKey(need)) throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
+                continue;
+            }
+            if (f.Length != col.Count) throw new ProjectFileException(file, lineNo, "", $"expected {col.Count} fields as in the header, found {f.Length}");
+            string Get(string name) => col.TryGetValue(name, out int k) ? f[k] : "";
+            string kindText = Get("kind");
+            var kind = ObservationKinds.All.Cast<ObservationKind?>().FirstOrDefault(k => k!.Value.Name() == kindText)
+                ?? throw new ProjectFileException(file, lineNo, kindText, $"unknown observation kind (expected one of: {string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");
+            string at = Get("at"), from = Get("from"), to = Get("to"), value = Get("value");
+            string Need(string name, string v) => v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, kindText, $"the '{name}' field is empty");
+            string item = kind switch
+            {
+                ObservationKind.Angle => $"angle at {at} from {from} to {to}",
+                ObservationKind.Direction => $"direction {at}→{to}",
+                _ => $"{kind.Name().Replace('_', ' ')} {from}→{to}",
+            };
+            double sd;
+            string sdText = Get("sd");
+            if (sdText.Length > 0)
+            {
+                sd = ProjectReader.ParseSd(sdText, kind, units, out string? err);
+                if (err is not null) throw new ProjectFileException(file, lineNo, item, err);
+            }
+            else if (!defaults.TryGetValue(kind, out sd))
+                throw new ProjectFileException(file, lineNo, item, $"no standard deviation: fill the 'sd' column or give default_sd.{kind.Name()} in the project file");
+            Angle A() { var r = angles.Parse(value); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item, r.Error!); }
+            Length L(string v) { var r = lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item, r.Error!); }
+            string source = $"{file}:{lineNo}";
+            Observation o = kind switch
+            {
+                ObservationKind.Distance => new DistanceObservation(Need("from", from), Need("to", to), L(Need("value", value))) { StandardDeviation = sd, Source = source },
+                ObservationKind.Azimuth => new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd, Source = source },
+                ObservationKind.Angle => new AngleObservation(Need("at", at), Need("from", from), Need("to", to), A()) { StandardDeviation = sd, Source = source },
+                ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
+                    $"{Need("at", at)}/{file}#{(Get("set").Length > 0 ? Get("set") : "1")}") { StandardDeviation = sd, Source = source },
+                _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
+                    Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
+            };
+            result.Add(o);
+        }
+        return result;
+    }
+}

@@ -1,0 +1,36 @@
+namespace NetAdjust.IO.Project;
+
+/// <summary>
+/// A project file (YAML or CSV) is invalid. The message reads <c>file:line: item: what is wrong</c>.
+/// </summary>
+public sealed class ProjectFileException : InvalidInputException
+{
+    /// <summary>Creates the exception.</summary>
+    /// <param name="file">The file, as the user named it.</param>
+    /// <param name="line">The 1-based line, or 0 when the whole file is concerned.</param>
+    /// <param name="item">The point, observation or key concerned (may be empty).</param>
+    /// <param name="problem">What is wrong, in the surveyor's terms.</param>
+    public ProjectFileException(string file, int line, string item, string problem)
+        : base(Compose(file, line, item, problem))
+    {
+        File = file; Line = line; Item = item; Problem = problem;
+    }
+
+    /// <summary>The file concerned.</summary>
+    public string File { get; }
+
+    /// <summary>The 1-based line (0 for the whole file).</summary>
+    public int Line { get; }
+
+    /// <summary>The item concerned (point id, observation, key).</summary>
+    public string Item { get; }
+
+    /// <summary>What is wrong.</summary>
+    public string Problem { get; }
+
+    private static string Compose(string file, int line, string item, string problem)
+    {
+        string where = line > 0 ? $"{file}:{line}" : file;
+        return string.IsNullOrEmpty(item) ? $"{where}: {problem}" : $"{where}: {item}: {problem}";
+    }
+}

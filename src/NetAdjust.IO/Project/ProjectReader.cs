@@ -1,0 +1,372 @@
+using System.Globalization;
+using NetAdjust.Adjustment;
+using NetAdjust.Network;
+using NetAdjust.Units;
+using YamlDotNet.Core;
+using YamlDotNet.RepresentationModel;
+
+namespace NetAdjust.IO.Project;
+
+/// <summary>
+/// Reads a NetAdjust project file (YAML, format described in docs/input-format.md) and the CSV observation
+/// files it names. Every error names the file, the line and the item concerned.
+/// </summary>
+public static class ProjectReader
+{
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files"];
+
+    /// <summary>Reads a project file from disk.</summary>
+    /// <param name="path">Path of the YAML project file.</param>
+    /// <returns>The project.</returns>
+    /// <exception cref="ProjectFileException">When a file is missing or invalid.</exception>
+    /// <exception cref="InvalidInputException">When the network as a whole is inconsistent.</exception>
+    public static SurveyProject Read(string path)
+    {
+        string full = Path.GetFullPath(path);
+        if (!File.Exists(full)) throw new ProjectFileException(path, 0, "", "the project file does not exist");
+        string text;
+        try { text = File.ReadAllText(full); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        { throw new ProjectFileException(path, 0, "", $"the project file cannot be read ({e.Message})"); }
+        return Parse(text, path, Path.GetDirectoryName(full)!, p => File.ReadAllText(p));
+    }
+
+    /// <summary>Parses project text. CSV files it names are read through <paramref name="readFile"/>.</summary>
+    /// <param name="text">The YAML text.</param>
+    /// <param name="displayName">The file name used in messages.</param>
+    /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
+    /// <param name="readFile">Reads a file given its full path.</param>
+    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string, string> readFile)
+    {
+        var ctx = new Context(displayName);
+        YamlMappingNode root;
+        try
+        {
+            var stream = new YamlStream();
+            stream.Load(new StringReader(text));
+            if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
+                throw new ProjectFileException(displayName, 1, "", "the project file must be a YAML mapping with keys such as 'points' and 'setups'");
+            root = m;
+        }
+        catch (YamlException e)
+        {
+            throw new ProjectFileException(displayName, (int)e.Start.Line, "", "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
+        }
+
+        ctx.CheckKeys(root, TopKeys, "the project");
+        string name = ctx.OptionalString(root, "project") ?? Path.GetFileNameWithoutExtension(displayName);
+        var units = ReadUnits(ctx, root);
+        var lengths = new LengthPattern(units.Length, 4);
+        var angles = new AnglePattern(units.Angle, 4);
+        var options = ReadOptions(ctx, root, units);
+        var defaults = ReadDefaults(ctx, root, units);
+
+        var points = new List<Point>();
+        if (ctx.Child(root, "points") is YamlNode pts)
+            foreach (var node in ctx.Sequence(pts, "points"))
+                points.Add(ReadPoint(ctx, node, lengths));
+
+        var observations = new List<Observation>();
+        var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
+        if (ctx.Child(root, "setups") is YamlNode setups)
+            foreach (var node in ctx.Sequence(setups, "setups"))
+                ReadSetup(ctx, node, lengths, angles, units, defaults, setsPerStation, observations);
+        if (ctx.Child(root, "levelling") is YamlNode lev)
+            foreach (var node in ctx.Sequence(lev, "levelling"))
+                observations.Add(ReadLevelling(ctx, node, lengths, units, defaults));
+
+        var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
+        if (ctx.Child(root, "files") is YamlNode files)
+        {
+            foreach (var node in ctx.Sequence(files, "files"))
+            {
+                string rel = ctx.Scalar(node, "a CSV file path");
+                string full = Path.GetFullPath(Path.Combine(baseDirectory, rel));
+                string csv;
+                try { csv = readFile(full); }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
+                inputs.Add(full);
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults));
+            }
+        }
+
+        var network = new SurveyNetwork(name, points, observations);
+        return new SurveyProject(network, units, options, inputs);
+    }
+
+    internal static int Line(YamlNode node) => (int)node.Start.Line;
+
+    private static string FirstLine(string s) => s.Split('\n')[0].Trim();
+
+    private static ProjectUnits ReadUnits(Context ctx, YamlMappingNode root)
+    {
+        if (ctx.Child(root, "units") is not YamlNode node) return ProjectUnits.Default;
+        var m = ctx.Mapping(node, "units");
+        ctx.CheckKeys(m, ["length", "angle", "angle_sd"], "units");
+        var length = ProjectUnits.Default.Length;
+        if (ctx.Child(m, "length") is YamlNode ln)
+        {
+            string s = ctx.Scalar(ln, "units.length");
+            length = s is "m" or "ft" or "usft" ? LengthUnit.FromSymbol(s)! : throw ctx.Error(ln, "units.length", $"'{s}' is not a length unit here: use m, ft (international foot) or usft (US survey foot)");
+        }
+        var angle = ProjectUnits.Default.Angle;
+        if (ctx.Child(m, "angle") is YamlNode an)
+        {
+            string s = ctx.Scalar(an, "units.angle");
+            angle = s switch
+            {
+                "dms" => AngleFormat.Dms,
+                "deg" => AngleFormat.Degrees,
+                "gon" => AngleFormat.Gons,
+                _ => throw ctx.Error(an, "units.angle", $"'{s}' is not an angle format: use dms, deg or gon"),
+            };
+        }
+        var sd = angle == AngleFormat.Gons ? AngleSdUnit.Milligon : AngleSdUnit.Arcsecond;
+        if (ctx.Child(m, "angle_sd") is YamlNode sn)
+        {
+            string s = ctx.Scalar(sn, "units.angle_sd");
+            sd = s switch
+            {
+                "arcsec" => AngleSdUnit.Arcsecond,
+                "mgon" => AngleSdUnit.Milligon,
+                _ => throw ctx.Error(sn, "units.angle_sd", $"'{s}' is not a unit for angular standard deviations: use arcsec or mgon"),
+            };
+        }
+        return new ProjectUnits(length, angle, sd);
+    }
+
+    private static AdjustmentOptions ReadOptions(Context ctx, YamlMappingNode root, ProjectUnits units)
+    {
+        var o = AdjustmentOptions.Default;
+        if (ctx.Child(root, "adjustment") is not YamlNode node) return o;
+        var m = ctx.Mapping(node, "adjustment");
+        ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor"], "adjustment");
+        if (ctx.Child(m, "max_iterations") is YamlNode it)
+        {
+            double v = ctx.Number(it, "adjustment.max_iterations");
+            if (v != Math.Floor(v) || v < 1 || v > 1000) throw ctx.Error(it, "adjustment.max_iterations", "must be a whole number from 1 to 1000");
+            o = o with { MaxIterations = (int)v };
+        }
+        if (ctx.Child(m, "tolerance") is YamlNode tol)
+        {
+            double v = ctx.Number(tol, "adjustment.tolerance");
+            if (!(v > 0)) throw ctx.Error(tol, "adjustment.tolerance", "must be positive");
+            o = o with { LengthTolerance = Length.From(v, units.Length).Metres };
+        }
+        if (ctx.Child(m, "alpha") is YamlNode al)
+        {
+            double v = ctx.Number(al, "adjustment.alpha");
+            if (!(v > 0 && v < 1)) throw ctx.Error(al, "adjustment.alpha", "the significance level must be between 0 and 1 (e.g. 0.05)");
+            o = o with { GlobalTestAlpha = v };
+        }
+        if (ctx.Child(m, "variance_factor") is YamlNode vf)
+        {
+            double v = ctx.Number(vf, "adjustment.variance_factor");
+            if (!(v > 0)) throw ctx.Error(vf, "adjustment.variance_factor", "the a-priori variance factor must be positive");
+            o = o with { AprioriVarianceFactor = v };
+        }
+        return o;
+    }
+
+    private static Dictionary<ObservationKind, double> ReadDefaults(Context ctx, YamlMappingNode root, ProjectUnits units)
+    {
+        var d = new Dictionary<ObservationKind, double>();
+        if (ctx.Child(root, "default_sd") is not YamlNode node) return d;
+        var m = ctx.Mapping(node, "default_sd");
+        ctx.CheckKeys(m, ObservationKinds.All.Select(k => k.Name()).ToArray(), "default_sd");
+        foreach (var kind in ObservationKinds.All)
+            if (ctx.Child(m, kind.Name()) is YamlNode v)
+                d[kind] = ReadSd(ctx, v, kind, units, "default_sd." + kind.Name());
+        return d;
+    }
+
+    /// <summary>Reads a standard deviation in the project's units: a length (unit suffix allowed) or an angle in angle_sd units.</summary>
+    internal static double ParseSd(string text, ObservationKind kind, ProjectUnits units, out string? error)
+    {
+        error = null;
+        if (kind.IsAngular())
+        {
+            if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double a) || !double.IsFinite(a))
+            { error = $"'{text}' is not a standard deviation in {units.AngleSd.Symbol()}"; return 0; }
+            if (!(a > 0)) { error = "a standard deviation must be positive"; return 0; }
+            return a * units.AngleSd.RadiansPerUnit();
+        }
+        var r = new LengthPattern(units.Length, 4).Parse(text);
+        if (!r.Success) { error = r.Error; return 0; }
+        if (!(r.Value.Metres > 0)) { error = "a standard deviation must be positive"; return 0; }
+        return r.Value.Metres;
+    }
+
+    private static double ReadSd(Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, string item)
+    {
+        double v = ParseSd(ctx.Scalar(node, item), kind, units, out string? err);
+        return err is null ? v : throw ctx.Error(node, item, err);
+    }
+
+    private static Point ReadPoint(Context ctx, YamlNode node, LengthPattern lengths)
+    {
+        var m = ctx.Mapping(node, "a point");
+        string id = ctx.RequiredString(m, "id", "a point");
+        string item = "point " + id;
+        ctx.CheckKeys(m, ["id", "e", "n", "h", "fix", "sd_e", "sd_n", "sd_h"], item);
+        double? Len(string key)
+        {
+            if (ctx.Child(m, key) is not YamlNode v) return null;
+            var r = lengths.Parse(ctx.Scalar(v, $"{item} {key}"));
+            return r.Success ? r.Value.Metres : throw ctx.Error(v, item, $"{key}: {r.Error}");
+        }
+        var fix = Fixity.None;
+        if (ctx.Child(m, "fix") is YamlNode f)
+        {
+            string s = ctx.Scalar(f, item);
+            foreach (char c in s)
+            {
+                fix |= c switch
+                {
+                    'e' => Fixity.E,
+                    'n' => Fixity.N,
+                    'h' => Fixity.H,
+                    _ => throw ctx.Error(f, item, $"fix '{s}' must list the held components with the letters e, n, h (e.g. 'en' or 'h')"),
+                };
+            }
+        }
+        var p = new Point(id)
+        {
+            E = Len("e"), N = Len("n"), H = Len("h"), Fixed = fix,
+            SdE = Len("sd_e"), SdN = Len("sd_n"), SdH = Len("sd_h"),
+            Source = $"{ctx.File}:{Line(node)}",
+        };
+        return p;
+    }
+
+    private static void ReadSetup(Context ctx, YamlNode node, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
+        Dictionary<ObservationKind, double> defaults, Dictionary<string, int> setsPerStation, List<Observation> output)
+    {
+        var m = ctx.Mapping(node, "a setup");
+        string at = ctx.RequiredString(m, "at", "a setup");
+        string item = "setup at " + at;
+        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths"], item);
+
+        if (ctx.Child(m, "directions") is YamlNode dirs)
+        {
+            int k = setsPerStation.TryGetValue(at, out int c) ? c + 1 : 1;
+            setsPerStation[at] = k;
+            string setId = $"{at}/{k}";
+            foreach (var dn in ctx.Sequence(dirs, item + " directions"))
+            {
+                var (to, value, sd, src) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd"], item);
+                output.Add(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
+                { StandardDeviation = sd, Source = src });
+            }
+        }
+        if (ctx.Child(m, "distances") is YamlNode dists)
+            foreach (var dn in ctx.Sequence(dists, item + " distances"))
+            {
+                var (to, value, sd, src) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd"], item);
+                output.Add(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src });
+            }
+        if (ctx.Child(m, "azimuths") is YamlNode azs)
+            foreach (var an in ctx.Sequence(azs, item + " azimuths"))
+            {
+                var (to, value, sd, src) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item);
+                output.Add(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src });
+            }
+        if (ctx.Child(m, "angles") is YamlNode angs)
+            foreach (var an in ctx.Sequence(angs, item + " angles"))
+            {
+                var (to, value, sd, src) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd"], item);
+                string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
+                output.Add(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src });
+            }
+    }
+
+    private static (string To, string Value, double Sd, string Source) ReadSighting(Context ctx, YamlNode node, ObservationKind kind,
+        ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem)
+    {
+        var m = ctx.Mapping(node, $"a {kind.Name()} in the {setupItem}");
+        string to = ctx.RequiredString(m, "to", $"a {kind.Name()} in the {setupItem}");
+        string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
+        ctx.CheckKeys(m, keys, item);
+        string value = ctx.RequiredString(m, "value", item);
+        double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
+            : defaults.TryGetValue(kind, out double d) ? d
+            : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
+        return (to, value, sd, $"{ctx.File}:{Line(node)}");
+    }
+
+    private static Observation ReadLevelling(Context ctx, YamlNode node, LengthPattern lengths, ProjectUnits units, Dictionary<ObservationKind, double> defaults)
+    {
+        var m = ctx.Mapping(node, "a levelling section");
+        string from = ctx.RequiredString(m, "from", "a levelling section");
+        string to = ctx.RequiredString(m, "to", "a levelling section");
+        string item = $"height difference {from}→{to}";
+        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd"], item);
+        var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
+        Length? len = null;
+        if (ctx.Child(m, "length") is YamlNode ln)
+        {
+            var l = ctx.ParseLength(ln, lengths, ctx.Scalar(ln, item), item + " length");
+            if (!(l.Metres > 0)) throw ctx.Error(ln, item, "the section length must be positive");
+            len = l;
+        }
+        double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
+            : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
+            : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
+        return new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
+    }
+
+    /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>
+    private sealed class Context(string file)
+    {
+        public string File { get; } = file;
+
+        public ProjectFileException Error(YamlNode node, string item, string problem) => new(File, Line(node), item, problem);
+
+        public YamlNode? Child(YamlMappingNode m, string key) =>
+            m.Children.TryGetValue(new YamlScalarNode(key), out var v) && !(v is YamlScalarNode s && s.Value is null or "" && s.Style == ScalarStyle.Plain) ? v : null;
+
+        public YamlMappingNode Mapping(YamlNode node, string what) =>
+            node as YamlMappingNode ?? throw Error(node, "", $"expected {what} written as a mapping (key: value)");
+
+        public IEnumerable<YamlNode> Sequence(YamlNode node, string what) =>
+            node as YamlSequenceNode ?? throw Error(node, what, "expected a list (items starting with '-')");
+
+        public string Scalar(YamlNode node, string item) =>
+            node is YamlScalarNode s && s.Value is not null ? s.Value : throw Error(node, item, "expected a single value here");
+
+        public string? OptionalString(YamlMappingNode m, string key) => Child(m, key) is YamlNode n ? Scalar(n, key) : null;
+
+        public string RequiredString(YamlMappingNode m, string key, string item) =>
+            Child(m, key) is YamlNode n ? Scalar(n, item) : throw Error(m, item, $"'{key}' is missing");
+
+        public double Number(YamlNode node, string item)
+        {
+            string s = Scalar(node, item);
+            return double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && double.IsFinite(v)
+                ? v : throw Error(node, item, $"'{s}' is not a number");
+        }
+
+        public Angle ParseAngle(YamlNode node, AnglePattern p, string text, string item)
+        {
+            var r = p.Parse(text);
+            return r.Success ? r.Value : throw Error(node, item, r.Error!);
+        }
+
+        public Length ParseLength(YamlNode node, LengthPattern p, string text, string item)
+        {
+            var r = p.Parse(text);
+            return r.Success ? r.Value : throw Error(node, item, r.Error!);
+        }
+
+        public void CheckKeys(YamlMappingNode m, string[] allowed, string item)
+        {
+            foreach (var (k, _) in m.Children)
+            {
+                string key = (k as YamlScalarNode)?.Value ?? "";
+                if (!allowed.Contains(key))
+                    throw Error(k, item, $"unknown key '{key}' (expected one of: {string.Join(", ", allowed)})");
+            }
+        }
+    }
+}

@@ -1,0 +1,115 @@
+using System.Globalization;
+using System.Text;
+using NetAdjust.Adjustment;
+using NetAdjust.IO.Project;
+using NetAdjust.Network;
+using NetAdjust.Units;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// Writes the plain-text adjustment report in the project's units, at most 100 columns wide.
+/// Deterministic and culture-invariant: the same result and context give the same text.
+/// </summary>
+public static class TextReportWriter
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>The caution printed at the end of every report.</summary>
+    public const string Caution =
+        "CAUTION: these results depend on the stochastic model (the standard deviations given or derived for the\n" +
+        "observations) and on the data. A passed test does not prove the absence of errors. Whether the work\n" +
+        "complies with a survey standard or contract is for the licensed surveyor in charge to judge under\n" +
+        "local regulations, before any result is used for stake-out, boundaries or construction.";
+
+    /// <summary>Renders the report.</summary>
+    /// <param name="r">The result.</param>
+    /// <param name="c">Run details and units.</param>
+    public static string Write(AdjustmentResult r, ReportContext c)
+    {
+        var u = c.Units;
+        var len = new LengthPattern(u.Length, u.Length == LengthUnit.Metre ? 4 : 4);
+        var sdLen = new LengthPattern(u.Length, 4);
+        var ang = new AnglePattern(u.Angle, u.Angle switch { AngleFormat.Dms => 1, AngleFormat.Degrees => 5, _ => 5 });
+        double radPerSdUnit = u.AngleSd.RadiansPerUnit();
+        string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
+
+        var sb = new StringBuilder();
+        void Line(string s = "") => sb.Append(s).Append('\n');
+
+        Line("NetAdjust least-squares adjustment report");
+        Line(new string('=', 42));
+        Line($"Project   : {r.Network.Name}");
+        Line($"Input     : {c.InputName}");
+        Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        Line($"Units     : lengths {u.Length.Name} ({lu}), angles {AngleName(u.Angle)}, angular sd and residuals {au}");
+        Line($"Solver    : {r.SolverName}");
+        Line();
+
+        var s = r.Statistics;
+        var g = s.GlobalTest;
+        Line("SUMMARY");
+        Line($"  Observations (n)              {s.Observations,8}");
+        Line($"  Unknowns (u)                  {s.Unknowns,8}");
+        Line($"  Degrees of freedom (r)        {s.DegreesOfFreedom,8}");
+        Line($"  vTPv                          {F(s.Vtpv, 4),12}");
+        Line($"  A-priori variance factor      {F(s.AprioriVarianceFactor, 4),12}");
+        Line($"  A-posteriori variance factor  {(s.VarianceFactor is double vf ? F(vf, 4) : "n/a"),12}");
+        Line($"  Std. deviation of unit weight {(s.Sigma0 is double s0 ? F(s0, 4) : "n/a"),12}");
+        Line($"  Iterations                    {s.Iterations,8}");
+        if (g.Passed is bool passed)
+            Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {F(g.Lower!.Value, 3)} <= {F(g.Statistic, 3)} <= {F(g.Upper!.Value, 3)} ? {(passed ? "PASSED" : "FAILED")}");
+        else
+            Line("  Global test: not possible (no redundancy)");
+        Line();
+
+        Line($"ADJUSTED COORDINATES ({lu}; standard deviations at the a-priori variance factor)");
+        Line($"  {"Point",-12} {"Easting",14} {"Northing",14} {"Height",11} {"sd E",8} {"sd N",8} {"sd H",8}  Held");
+        foreach (var p in r.Points)
+        {
+            string E(double? v, LengthPattern pat, int w) => v is double x ? pat.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
+            string held = JsonResultWriter.FixityText(p.Input.Fixed);
+            string weighted = (p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : "");
+            string role = held + (weighted.Length > 0 ? $" w:{weighted}" : "");
+            Line($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} {E(p.SdE, sdLen, 8)} {E(p.SdN, sdLen, 8)} {E(p.SdH, sdLen, 8)}  {role}".TrimEnd());
+        }
+        Line();
+
+        Line($"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {AngleName(u.Angle)}, angular sd {au})");
+        Line($"  {"#",4} {"Kind",-9} {"At",-8} {"From",-8} {"To",-8} {"Observed",14} {"Adjusted",14} {"Residual",9} {"sd",7}");
+        foreach (var o in r.Observations)
+        {
+            var i = o.Input;
+            bool angular = i.Kind.IsAngular();
+            string Val(double si) => angular ? ang.Format(Angle.FromRadians(si)) : len.Format(Length.FromMetres(si));
+            string Small(double si) => angular ? F(si / radPerSdUnit, 2) : sdLen.Format(Length.FromMetres(si));
+            Line($"  {o.Index + 1,4} {ShortKind(i.Kind),-9} {Clip(i.At ?? "", 8),-8} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 8),-8} {Clip(i.To, 8),-8} " +
+                 $"{Val(i.Value),14} {Val(o.Adjusted),14} {Small(o.Residual),9} {Small(i.StandardDeviation),7}");
+        }
+        Line();
+
+        if (r.Orientations.Count > 0)
+        {
+            Line($"ORIENTATION UNKNOWNS (one per direction set; azimuth of the circle zero, sd in {au})");
+            Line($"  {"Set",-20} {"Station",-10} {"Orientation",14} {"sd",8}");
+            foreach (var o in r.Orientations)
+                Line($"  {Clip(o.SetId, 20),-20} {Clip(o.Station, 10),-10} {ang.Format(Angle.FromRadians(o.Orientation)),14} {F(o.Sd / radPerSdUnit, 2),8}");
+            Line();
+        }
+
+        Line(Caution);
+        return sb.ToString();
+    }
+
+    private static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);
+
+    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
+
+    private static string AngleName(AngleFormat f) => f switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
+
+    private static string ShortKind(ObservationKind k) => k switch
+    {
+        ObservationKind.HeightDifference => "height",
+        _ => k.Name(),
+    };
+}

@@ -1,0 +1,56 @@
+using System.Text;
+
+namespace NetAdjust.IO;
+
+/// <summary>An output file could not be written; nothing was left behind.</summary>
+public sealed class OutputException : NetAdjustException
+{
+    /// <summary>Creates the exception.</summary>
+    /// <param name="message">What failed and where.</param>
+    /// <param name="inner">The cause.</param>
+    public OutputException(string message, Exception? inner = null) : base(message, inner) { }
+}
+
+/// <summary>
+/// Writes output files safely: refuses to overwrite an input, writes to a temporary file in the target folder,
+/// then renames it into place, so a failure never leaves a partial file or spoils an earlier one.
+/// </summary>
+public static class SafeFileWriter
+{
+    /// <summary>Checks that none of the outputs is an input or named twice; call before any work is done.</summary>
+    /// <param name="outputs">Output paths as the user gave them.</param>
+    /// <param name="inputs">Full paths of the inputs.</param>
+    /// <exception cref="OutputException">When an output would overwrite an input or two outputs coincide.</exception>
+    public static void CheckPlan(IEnumerable<string> outputs, IEnumerable<string> inputs)
+    {
+        var ins = new HashSet<string>(inputs.Select(Path.GetFullPath), StringComparer.Ordinal);
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var o in outputs)
+        {
+            string full = Path.GetFullPath(o);
+            if (ins.Contains(full)) throw new OutputException($"{o}: refusing to overwrite an input file; choose another output path");
+            if (!seen.Add(full)) throw new OutputException($"{o}: named for two outputs; choose distinct paths");
+        }
+    }
+
+    /// <summary>Writes text (UTF-8, no byte-order mark) to a file through a temporary file and a rename.</summary>
+    /// <param name="path">The target path.</param>
+    /// <param name="text">The content.</param>
+    /// <exception cref="OutputException">When the file cannot be written; no partial file remains.</exception>
+    public static void WriteText(string path, string text)
+    {
+        string full = Path.GetFullPath(path);
+        string dir = Path.GetDirectoryName(full) ?? ".";
+        string tmp = Path.Combine(dir, "." + Path.GetFileName(full) + "." + Guid.NewGuid().ToString("N")[..8] + ".tmp");
+        try
+        {
+            File.WriteAllText(tmp, text, new UTF8Encoding(false));
+            File.Move(tmp, full, overwrite: true);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
+        {
+            try { if (File.Exists(tmp)) File.Delete(tmp); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+            throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
+        }
+    }
+}

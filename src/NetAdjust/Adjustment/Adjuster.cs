@@ -1,0 +1,255 @@
+using NetAdjust.Geometry;
+using NetAdjust.LinearAlgebra;
+using NetAdjust.Network;
+using NetAdjust.Statistics;
+
+namespace NetAdjust.Adjustment;
+
+/// <summary>
+/// Adjusts a network by parametric (Gauss-Markov) least squares with Gauss-Newton iterations:
+/// at each iteration the observation equations are linearised at the current parameters, N Δx = AᵀP l is solved
+/// (l = observed − computed), and the parameters updated, until every correction is below the tolerances.
+/// </summary>
+public static class Adjuster
+{
+    /// <summary>Adjusts a network.</summary>
+    /// <param name="network">The network (validated on construction).</param>
+    /// <param name="options">Options; null for <see cref="AdjustmentOptions.Default"/>.</param>
+    /// <returns>The result.</returns>
+    /// <exception cref="InvalidInputException">When free points lack approximate coordinates or options are invalid.</exception>
+    /// <exception cref="DatumDefectException">When the observations and control leave unknowns undetermined.</exception>
+    /// <exception cref="NoConvergenceException">When the iteration limit is reached.</exception>
+    public static AdjustmentResult Adjust(SurveyNetwork network, AdjustmentOptions? options = null)
+    {
+        options ??= AdjustmentOptions.Default;
+        options.Validate();
+        var solver = options.Solver ?? new DenseNormalEquationsSolver();
+
+        var (index, state) = Setup(network);
+        var control = ControlRows(network, index);
+        int n = network.Observations.Count + control.Count;
+        int u = index.Count;
+
+        var diagonal = new double[n];
+        for (int i = 0; i < network.Observations.Count; i++)
+            diagonal[i] = options.AprioriVarianceFactor / Sq(network.Observations[i].StandardDeviation);
+        for (int k = 0; k < control.Count; k++)
+            diagonal[network.Observations.Count + k] = options.AprioriVarianceFactor / Sq(control[k].Sd);
+        var weights = WeightMatrix.Diagonal(diagonal);
+
+        int iterations = 0;
+        if (u > 0)
+        {
+            bool converged = false;
+            double[] lastDx = [];
+            while (!converged)
+            {
+                if (iterations == options.MaxIterations)
+                    throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
+                iterations++;
+                var (rows, l) = Linearise(network, index, state, control);
+                var factor = Factorize(solver, u, rows, weights, index);
+                var pl = weights.Multiply(l);
+                var rhs = new double[u];
+                for (int i = 0; i < rows.Length; i++)
+                {
+                    var r = rows[i];
+                    for (int k = 0; k < r.Columns.Length; k++) rhs[r.Columns[k]] += r.Values[k] * pl[i]; // AᵀP l
+                }
+                lastDx = factor.Solve(rhs);
+                converged = true;
+                for (int j = 0; j < u; j++)
+                {
+                    if (!double.IsFinite(lastDx[j]))
+                        throw new NoConvergenceException($"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a finite number.");
+                    state.Add(index.Unknowns[j], lastDx[j]);
+                    double tol = index.Unknowns[j].Parameter == Parameter.Orientation ? options.AngleTolerance : options.LengthTolerance;
+                    if (Math.Abs(lastDx[j]) >= tol) converged = false;
+                }
+            }
+        }
+
+        // Final linearisation at the solution: residuals, covariance.
+        var (finalRows, finalL) = Linearise(network, index, state, control);
+        INormalFactor? finalFactor = u > 0 ? Factorize(solver, u, finalRows, weights, index) : null;
+        double vtpv = weights.Quadratic(finalL); // v = −l at the solution
+        int dof = n - u;
+        var stats = new AdjustmentStatistics(n, u, dof, vtpv, options.AprioriVarianceFactor, iterations,
+            GlobalTest.Compute(vtpv, options.AprioriVarianceFactor, dof, options.GlobalTestAlpha));
+
+        double s0 = options.AprioriVarianceFactor;
+        var points = network.Points.Select(p => AdjustedPointOf(p, index, state, finalFactor, s0)).ToArray();
+        var observations = new AdjustedObservation[network.Observations.Count];
+        for (int i = 0; i < observations.Length; i++)
+        {
+            var o = network.Observations[i];
+            double v = -finalL[i];
+            double adjusted = o.Value + v;
+            if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
+            double qll = finalFactor is null ? 0 : Quadratic(finalRows[i], finalFactor);
+            observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i);
+        }
+        var orientations = network.Observations.OfType<DirectionObservation>()
+            .Select(d => (d.SetId, d.Station)).Distinct()
+            .Select(s =>
+            {
+                int j = index.IndexOf(s.SetId, Parameter.Orientation);
+                double sd = finalFactor is null ? 0 : Math.Sqrt(Math.Max(0, s0 * finalFactor.InverseEntry(j, j)));
+                return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)), sd);
+            }).ToArray();
+
+        return new AdjustmentResult(network, options, index, finalFactor, points, observations, orientations, stats,
+            solver.Name, finalRows, weights);
+    }
+
+    private static double Sq(double x) => x * x;
+
+    /// <summary>a Qxx aᵀ for one design row.</summary>
+    internal static double Quadratic(SparseRow a, INormalFactor f)
+    {
+        double s = 0;
+        for (int p = 0; p < a.Columns.Length; p++)
+            for (int q = 0; q < a.Columns.Length; q++)
+                s += a.Values[p] * a.Values[q] * f.InverseEntry(a.Columns[p], a.Columns[q]);
+        return s;
+    }
+
+    private static INormalFactor Factorize(INormalEquationsSolver solver, int u, IReadOnlyList<SparseRow> rows, WeightMatrix weights, UnknownIndex index)
+    {
+        try
+        {
+            return solver.Factorize(u, rows, weights);
+        }
+        catch (SingularNormalMatrixException e)
+        {
+            var what = index.Unknowns[e.Column];
+            throw new DatumDefectException(
+                $"The datum is not defined: the observations and control do not determine the {what.Describe()}. " +
+                "Hold or weight more control (a point's position, a height, an azimuth), or add observations that connect it to the rest of the network.",
+                [what.Describe()]);
+        }
+    }
+
+    private static string NoConvergenceMessage(AdjustmentOptions options, UnknownIndex index, double[] dx)
+    {
+        var worst = Enumerable.Range(0, dx.Length)
+            .Where(j => index.Unknowns[j].Parameter != Parameter.Orientation)
+            .OrderByDescending(j => Math.Abs(dx[j])).Take(3)
+            .Select(j => $"{index.Unknowns[j].Describe()} ({dx[j].ToString("G4", System.Globalization.CultureInfo.InvariantCulture)} m)");
+        return $"The adjustment did not converge in {options.MaxIterations} iterations. Largest last corrections: {string.Join(", ", worst)}. " +
+               "Check the approximate coordinates of those points and the observations that reach them.";
+    }
+
+    private sealed record ControlRow(string PointId, Parameter Parameter, double Given, double Sd);
+
+    private static List<ControlRow> ControlRows(SurveyNetwork network, UnknownIndex index)
+    {
+        var rows = new List<ControlRow>();
+        foreach (var p in network.Points)
+        {
+            if (p.SdE is double se && index.IndexOf(p.Id, Parameter.E) >= 0) rows.Add(new(p.Id, Parameter.E, p.E!.Value, se));
+            if (p.SdN is double sn && index.IndexOf(p.Id, Parameter.N) >= 0) rows.Add(new(p.Id, Parameter.N, p.N!.Value, sn));
+            if (p.SdH is double sh && index.IndexOf(p.Id, Parameter.H) >= 0) rows.Add(new(p.Id, Parameter.H, p.H!.Value, sh));
+        }
+        return rows;
+    }
+
+    /// <summary>Rows of A and misclosures l = observed − computed at the current state.</summary>
+    private static (SparseRow[] Rows, double[] L) Linearise(SurveyNetwork network, UnknownIndex index, ParameterState state, List<ControlRow> control)
+    {
+        int m = network.Observations.Count;
+        var rows = new SparseRow[m + control.Count];
+        var l = new double[rows.Length];
+        for (int i = 0; i < m; i++)
+        {
+            var o = network.Observations[i];
+            var eq = ObservationModels.Evaluate(o, state);
+            l[i] = -ObservationModels.Difference(o.Kind, eq.Value, o.Value);
+            var cols = new List<int>(eq.Partials.Length);
+            var vals = new List<double>(eq.Partials.Length);
+            foreach (var p in eq.Partials)
+            {
+                int j = index.IndexOf(p.Owner, p.Parameter);
+                if (j < 0) continue;
+                int at = cols.IndexOf(j);
+                if (at >= 0) vals[at] += p.Derivative;
+                else { cols.Add(j); vals.Add(p.Derivative); }
+            }
+            rows[i] = new SparseRow(cols.ToArray(), vals.ToArray());
+        }
+        for (int k = 0; k < control.Count; k++)
+        {
+            var c = control[k];
+            int j = index.IndexOf(c.PointId, c.Parameter);
+            state.TryGet(c.PointId, c.Parameter, out double current);
+            rows[m + k] = new SparseRow([j], [1.0]);
+            l[m + k] = c.Given - current;
+        }
+        return (rows, l);
+    }
+
+    private static (UnknownIndex, ParameterState) Setup(SurveyNetwork network)
+    {
+        var plane = new HashSet<string>(StringComparer.Ordinal);
+        var height = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var o in network.Observations)
+            foreach (var id in o.Points)
+                (ObservationModels.IsHorizontal(o.Kind) ? plane : height).Add(id);
+
+        var index = new UnknownIndex();
+        var e = new Dictionary<string, double>(StringComparer.Ordinal);
+        var nn = new Dictionary<string, double>(StringComparer.Ordinal);
+        var h = new Dictionary<string, double>(StringComparer.Ordinal);
+        var missing = new List<string>();
+        foreach (var p in network.Points)
+        {
+            if (plane.Contains(p.Id))
+            {
+                if (p.E is null || p.N is null) missing.Add(p.Source is null ? p.Id : $"{p.Id} ({p.Source})");
+                e[p.Id] = p.E ?? 0; nn[p.Id] = p.N ?? 0;
+                if (!p.IsFixed(Fixity.E)) index.Add(new Unknown(p.Id, Parameter.E));
+                if (!p.IsFixed(Fixity.N)) index.Add(new Unknown(p.Id, Parameter.N));
+            }
+            if (height.Contains(p.Id))
+            {
+                h[p.Id] = p.H ?? 0; // height differences are linear: any start value converges in one step
+                if (!p.IsFixed(Fixity.H)) index.Add(new Unknown(p.Id, Parameter.H));
+            }
+        }
+        if (missing.Count > 0)
+            throw new InvalidInputException(
+                "These points take part in horizontal observations but have no approximate easting and northing: " +
+                string.Join(", ", missing) + ". Give approximate coordinates (a few metres off is enough).");
+
+        // Orientation unknowns: start from the mean of (azimuth − reading) over the set, taken circularly.
+        var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
+        foreach (var set in network.Observations.OfType<DirectionObservation>().GroupBy(d => d.SetId))
+        {
+            double first = double.NaN, sum = 0;
+            int count = 0;
+            foreach (var d in set)
+            {
+                var az = PlaneGeometry.Azimuth(d.Station, new PlanePoint(e[d.Station], nn[d.Station]), d.Target, new PlanePoint(e[d.Target], nn[d.Target])).Value;
+                double w = az - d.Reading.Radians;
+                if (count == 0) first = w;
+                sum += Units.Angle.ReduceSigned(w - first);
+                count++;
+            }
+            orientation[set.Key] = first + (sum / count);
+            index.Add(new Unknown(set.Key, Parameter.Orientation));
+        }
+        return (index, new ParameterState(e, nn, h, orientation));
+    }
+
+    private static AdjustedPoint AdjustedPointOf(Point p, UnknownIndex index, ParameterState state, INormalFactor? f, double s0)
+    {
+        double? Value(Parameter par, double? given) => state.TryGet(p.Id, par, out double v) ? v : given;
+        int ie = index.IndexOf(p.Id, Parameter.E), inn = index.IndexOf(p.Id, Parameter.N), ih = index.IndexOf(p.Id, Parameter.H);
+        double? Sd(int i, bool inAdjustment) => i >= 0 && f is not null ? Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(i, i))) : inAdjustment ? 0.0 : null;
+        bool inPlane = state.TryGet(p.Id, Parameter.E, out _);
+        bool inHeight = state.TryGet(p.Id, Parameter.H, out _);
+        double? cov = ie >= 0 && inn >= 0 && f is not null ? s0 * f.InverseEntry(ie, inn) : inPlane ? 0.0 : null;
+        return new AdjustedPoint(p, Value(Parameter.E, p.E), Value(Parameter.N, p.N), Value(Parameter.H, p.H),
+            Sd(ie, inPlane), Sd(inn, inPlane), Sd(ih, inHeight), cov);
+    }
+}

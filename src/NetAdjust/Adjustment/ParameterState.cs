@@ -1,0 +1,45 @@
+using NetAdjust.Geometry;
+
+namespace NetAdjust.Adjustment;
+
+/// <summary>
+/// Current values of all parameters during the iterations: coordinates of every point (held or free) and
+/// orientation of every direction set.
+/// </summary>
+public sealed class ParameterState
+{
+    private readonly Dictionary<string, double> _e, _n, _h, _orientation;
+
+    internal ParameterState(Dictionary<string, double> e, Dictionary<string, double> n, Dictionary<string, double> h, Dictionary<string, double> orientation)
+    {
+        _e = e; _n = n; _h = h; _orientation = orientation;
+    }
+
+    /// <summary>The plane coordinates of a point (m).</summary>
+    /// <param name="id">The point id.</param>
+    public PlanePoint Plane(string id) => new(_e[id], _n[id]);
+
+    /// <summary>The height of a point (m).</summary>
+    /// <param name="id">The point id.</param>
+    public double Height(string id) => _h[id];
+
+    /// <summary>The orientation of a direction set (rad).</summary>
+    /// <param name="setId">The set id.</param>
+    public double Orientation(string setId) => _orientation[setId];
+
+    /// <summary>The value of one parameter.</summary>
+    /// <param name="u">The unknown.</param>
+    public double Get(Unknown u) => Map(u.Parameter)[u.Owner];
+
+    internal void Add(Unknown u, double delta) => Map(u.Parameter)[u.Owner] += delta;
+
+    internal bool TryGet(string owner, Parameter p, out double v) => Map(p).TryGetValue(owner, out v);
+
+    private Dictionary<string, double> Map(Parameter p) => p switch
+    {
+        Parameter.E => _e,
+        Parameter.N => _n,
+        Parameter.H => _h,
+        _ => _orientation,
+    };
+}

@@ -1,0 +1,126 @@
+namespace NetAdjust.Geometry;
+
+/// <summary>
+/// The value of an observation equation and its partial derivatives with respect to the coordinates of the
+/// points involved (and, for directions, the orientation unknown). Angles in radians, lengths in metres.
+/// </summary>
+/// <param name="Value">The computed observation value.</param>
+/// <param name="Partials">The partial derivatives, each with the parameter it belongs to.</param>
+public readonly record struct EquationValue(double Value, Partial[] Partials);
+
+/// <summary>Which parameter a partial derivative belongs to.</summary>
+public enum Parameter
+{
+    /// <summary>Easting of a point.</summary>
+    E,
+
+    /// <summary>Northing of a point.</summary>
+    N,
+
+    /// <summary>Height of a point.</summary>
+    H,
+
+    /// <summary>The orientation unknown of a direction set.</summary>
+    Orientation,
+}
+
+/// <summary>One partial derivative: ∂f/∂(parameter of owner).</summary>
+/// <param name="Owner">The point id, or the set id for an orientation.</param>
+/// <param name="Parameter">Which parameter.</param>
+/// <param name="Derivative">The value of the derivative (SI units).</param>
+public readonly record struct Partial(string Owner, Parameter Parameter, double Derivative);
+
+/// <summary>A point's plane coordinates in metres.</summary>
+/// <param name="E">Easting.</param>
+/// <param name="N">Northing.</param>
+public readonly record struct PlanePoint(double E, double N);
+
+/// <summary>
+/// Plane observation equations as small pure functions (grid coordinates, azimuth clockwise from north,
+/// computed as atan2(ΔE, ΔN)). Each returns the value and the partial derivatives.
+/// </summary>
+public static class PlaneGeometry
+{
+    /// <summary>Horizontal distance d = √(ΔE² + ΔN²) and its derivatives.</summary>
+    /// <param name="fromId">Id of the from point.</param>
+    /// <param name="from">Coordinates of the from point.</param>
+    /// <param name="toId">Id of the to point.</param>
+    /// <param name="to">Coordinates of the to point.</param>
+    public static EquationValue Distance(string fromId, PlanePoint from, string toId, PlanePoint to)
+    {
+        double de = to.E - from.E, dn = to.N - from.N;
+        double d = Math.Sqrt((de * de) + (dn * dn));
+        double se = de / d, sn = dn / d;
+        return new EquationValue(d,
+        [
+            new(fromId, Parameter.E, -se), new(fromId, Parameter.N, -sn),
+            new(toId, Parameter.E, se), new(toId, Parameter.N, sn),
+        ]);
+    }
+
+    /// <summary>Grid azimuth t = atan2(ΔE, ΔN) in [0, 2π) and its derivatives ∂t/∂E_to = ΔN/d², ∂t/∂N_to = −ΔE/d².</summary>
+    /// <param name="fromId">Id of the from point.</param>
+    /// <param name="from">Coordinates of the from point.</param>
+    /// <param name="toId">Id of the to point.</param>
+    /// <param name="to">Coordinates of the to point.</param>
+    public static EquationValue Azimuth(string fromId, PlanePoint from, string toId, PlanePoint to)
+    {
+        double de = to.E - from.E, dn = to.N - from.N;
+        double d2 = (de * de) + (dn * dn);
+        double t = Math.Atan2(de, dn);
+        if (t < 0) t += 2 * Math.PI;
+        double ge = dn / d2, gn = -de / d2;
+        return new EquationValue(t,
+        [
+            new(fromId, Parameter.E, -ge), new(fromId, Parameter.N, -gn),
+            new(toId, Parameter.E, ge), new(toId, Parameter.N, gn),
+        ]);
+    }
+
+    /// <summary>Horizontal direction r = t(station→target) − ω, with ω the set's orientation unknown.</summary>
+    /// <param name="stationId">Id of the station.</param>
+    /// <param name="station">Coordinates of the station.</param>
+    /// <param name="targetId">Id of the target.</param>
+    /// <param name="target">Coordinates of the target.</param>
+    /// <param name="setId">Id of the direction set.</param>
+    /// <param name="orientation">Current value of the orientation unknown (radians).</param>
+    public static EquationValue Direction(string stationId, PlanePoint station, string targetId, PlanePoint target, string setId, double orientation)
+    {
+        var az = Azimuth(stationId, station, targetId, target);
+        var partials = new Partial[az.Partials.Length + 1];
+        az.Partials.CopyTo(partials, 0);
+        partials[^1] = new Partial(setId, Parameter.Orientation, -1.0);
+        return new EquationValue(az.Value - orientation, partials);
+    }
+
+    /// <summary>Horizontal angle α = t(at→foresight) − t(at→backsight), clockwise, in [0, 2π).</summary>
+    /// <param name="atId">Id of the station.</param>
+    /// <param name="at">Coordinates of the station.</param>
+    /// <param name="backId">Id of the backsight.</param>
+    /// <param name="back">Coordinates of the backsight.</param>
+    /// <param name="foreId">Id of the foresight.</param>
+    /// <param name="fore">Coordinates of the foresight.</param>
+    public static EquationValue Angle(string atId, PlanePoint at, string backId, PlanePoint back, string foreId, PlanePoint fore)
+    {
+        var tf = Azimuth(atId, at, foreId, fore);
+        var tb = Azimuth(atId, at, backId, back);
+        double a = tf.Value - tb.Value;
+        if (a < 0) a += 2 * Math.PI;
+        // ∂α = ∂t_f − ∂t_b; the station's derivatives combine both.
+        return new EquationValue(a,
+        [
+            new(atId, Parameter.E, tf.Partials[0].Derivative - tb.Partials[0].Derivative),
+            new(atId, Parameter.N, tf.Partials[1].Derivative - tb.Partials[1].Derivative),
+            new(backId, Parameter.E, -tb.Partials[2].Derivative), new(backId, Parameter.N, -tb.Partials[3].Derivative),
+            new(foreId, Parameter.E, tf.Partials[2].Derivative), new(foreId, Parameter.N, tf.Partials[3].Derivative),
+        ]);
+    }
+
+    /// <summary>Height difference Δh = H_to − H_from.</summary>
+    /// <param name="fromId">Id of the from point.</param>
+    /// <param name="hFrom">Height of the from point (m).</param>
+    /// <param name="toId">Id of the to point.</param>
+    /// <param name="hTo">Height of the to point (m).</param>
+    public static EquationValue HeightDifference(string fromId, double hFrom, string toId, double hTo) =>
+        new(hTo - hFrom, [new(fromId, Parameter.H, -1.0), new(toId, Parameter.H, 1.0)]);
+}

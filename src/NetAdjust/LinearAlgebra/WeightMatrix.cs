@@ -1,0 +1,119 @@
+namespace NetAdjust.LinearAlgebra;
+
+/// <summary>
+/// One block of a block-diagonal weight matrix: the rows it covers and its dense symmetric positive-definite
+/// matrix (row-major, k×k for k rows). A diagonal weight is a block of one row.
+/// </summary>
+/// <param name="Rows">The observation rows the block covers, distinct.</param>
+/// <param name="Matrix">The block of P, row-major, Rows.Length² entries, symmetric.</param>
+public sealed record WeightBlock(int[] Rows, double[] Matrix)
+{
+    /// <summary>The number of rows in the block.</summary>
+    public int Size => Rows.Length;
+
+    /// <summary>P_block(a, b).</summary>
+    /// <param name="a">Position in <see cref="Rows"/>.</param>
+    /// <param name="b">Position in <see cref="Rows"/>.</param>
+    public double this[int a, int b] => Matrix[(a * Rows.Length) + b];
+}
+
+/// <summary>
+/// The weight matrix P of the observations: block diagonal, each row in exactly one block. Diagonal weights
+/// (uncorrelated observations) are the common case; correlated groups (e.g. the directions of one setup that
+/// share its centering error) are full blocks. Immutable.
+/// </summary>
+public sealed class WeightMatrix
+{
+    private readonly WeightBlock[] _blocks;
+    private readonly int[] _blockOfRow;
+    private readonly int[] _positionInBlock;
+
+    private WeightMatrix(int rowCount, WeightBlock[] blocks)
+    {
+        RowCount = rowCount;
+        _blocks = blocks;
+        _blockOfRow = Enumerable.Repeat(-1, rowCount).ToArray();
+        _positionInBlock = new int[rowCount];
+        for (int b = 0; b < blocks.Length; b++)
+        {
+            var blk = blocks[b];
+            if (blk.Matrix.Length != blk.Size * blk.Size) throw new ArgumentException($"weight block {b} has {blk.Matrix.Length} entries for {blk.Size} rows");
+            for (int k = 0; k < blk.Size; k++)
+            {
+                int row = blk.Rows[k];
+                if (row < 0 || row >= rowCount) throw new ArgumentException($"weight block {b} names row {row}, outside 0..{rowCount - 1}");
+                if (_blockOfRow[row] >= 0) throw new ArgumentException($"row {row} is in two weight blocks");
+                _blockOfRow[row] = b;
+                _positionInBlock[row] = k;
+            }
+        }
+        for (int i = 0; i < rowCount; i++)
+            if (_blockOfRow[i] < 0) throw new ArgumentException($"row {i} has no weight");
+        IsDiagonal = blocks.All(b => b.Size == 1);
+    }
+
+    /// <summary>A diagonal weight matrix.</summary>
+    /// <param name="weights">The positive weights, one per row.</param>
+    public static WeightMatrix Diagonal(ReadOnlySpan<double> weights)
+    {
+        var blocks = new WeightBlock[weights.Length];
+        for (int i = 0; i < weights.Length; i++)
+        {
+            if (!(weights[i] > 0) || !double.IsFinite(weights[i])) throw new ArgumentOutOfRangeException(nameof(weights), $"weight {i} must be positive and finite");
+            blocks[i] = new WeightBlock([i], [weights[i]]);
+        }
+        return new WeightMatrix(weights.Length, blocks);
+    }
+
+    /// <summary>A block-diagonal weight matrix.</summary>
+    /// <param name="rowCount">The number of rows.</param>
+    /// <param name="blocks">The blocks; every row in exactly one.</param>
+    /// <exception cref="ArgumentException">When the blocks do not cover each row exactly once.</exception>
+    public static WeightMatrix FromBlocks(int rowCount, IEnumerable<WeightBlock> blocks) => new(rowCount, blocks.ToArray());
+
+    /// <summary>The number of rows.</summary>
+    public int RowCount { get; }
+
+    /// <summary>True when every block has one row.</summary>
+    public bool IsDiagonal { get; }
+
+    /// <summary>The blocks.</summary>
+    public IReadOnlyList<WeightBlock> Blocks => _blocks;
+
+    /// <summary>The block that holds a row and the row's position in it.</summary>
+    /// <param name="row">The row.</param>
+    public (WeightBlock Block, int Position) BlockOf(int row) => (_blocks[_blockOfRow[row]], _positionInBlock[row]);
+
+    /// <summary>P_ii.</summary>
+    /// <param name="row">The row.</param>
+    public double DiagonalEntry(int row)
+    {
+        var (b, k) = BlockOf(row);
+        return b[k, k];
+    }
+
+    /// <summary>y = P v.</summary>
+    /// <param name="v">A vector of <see cref="RowCount"/> entries.</param>
+    public double[] Multiply(ReadOnlySpan<double> v)
+    {
+        var y = new double[RowCount];
+        foreach (var b in _blocks)
+            for (int a = 0; a < b.Size; a++)
+            {
+                double s = 0;
+                for (int c = 0; c < b.Size; c++) s += b[a, c] * v[b.Rows[c]];
+                y[b.Rows[a]] = s;
+            }
+        return y;
+    }
+
+    /// <summary>vᵀ P v.</summary>
+    /// <param name="v">A vector of <see cref="RowCount"/> entries.</param>
+    public double Quadratic(ReadOnlySpan<double> v)
+    {
+        var pv = Multiply(v);
+        double s = 0;
+        for (int i = 0; i < RowCount; i++) s += v[i] * pv[i];
+        return s;
+    }
+}

@@ -1,0 +1,191 @@
+using NetAdjust.Units;
+
+namespace NetAdjust.Network;
+
+/// <summary>The kinds of observation. The JSON and report names are given by <see cref="ObservationKinds.Name"/>.</summary>
+public enum ObservationKind
+{
+    /// <summary>Horizontal distance.</summary>
+    Distance,
+
+    /// <summary>Horizontal direction: a circle reading in a set with its own orientation unknown.</summary>
+    Direction,
+
+    /// <summary>Horizontal angle at a station, clockwise from backsight to foresight.</summary>
+    Angle,
+
+    /// <summary>Grid azimuth, clockwise from grid north.</summary>
+    Azimuth,
+
+    /// <summary>Height difference H(to) − H(from), e.g. from levelling.</summary>
+    HeightDifference,
+}
+
+/// <summary>Names and properties of observation kinds.</summary>
+public static class ObservationKinds
+{
+    /// <summary>The snake_case name used in files and JSON (e.g. <c>height_difference</c>).</summary>
+    /// <param name="kind">The kind.</param>
+    public static string Name(this ObservationKind kind) => kind switch
+    {
+        ObservationKind.Distance => "distance",
+        ObservationKind.Direction => "direction",
+        ObservationKind.Angle => "angle",
+        ObservationKind.Azimuth => "azimuth",
+        ObservationKind.HeightDifference => "height_difference",
+        _ => throw new ArgumentOutOfRangeException(nameof(kind)),
+    };
+
+    /// <summary>True for kinds whose values are angles (radians internally).</summary>
+    /// <param name="kind">The kind.</param>
+    public static bool IsAngular(this ObservationKind kind) =>
+        kind is ObservationKind.Direction or ObservationKind.Angle or ObservationKind.Azimuth;
+
+    /// <summary>All kinds in documentation order.</summary>
+    public static IReadOnlyList<ObservationKind> All { get; } = Enum.GetValues<ObservationKind>();
+}
+
+/// <summary>
+/// One measured quantity with its a-priori standard deviation. Values and standard deviations are SI:
+/// metres for lengths, radians for angles.
+/// </summary>
+public abstract record Observation
+{
+    /// <summary>The kind.</summary>
+    public abstract ObservationKind Kind { get; }
+
+    /// <summary>The measured value in SI units (metres or radians).</summary>
+    public abstract double Value { get; }
+
+    /// <summary>The station (instrument point) for angles and directions; null for other kinds.</summary>
+    public virtual string? At => null;
+
+    /// <summary>The from point (backsight for an angle; the station for a direction).</summary>
+    public abstract string From { get; }
+
+    /// <summary>The to point (foresight for an angle; the target for a direction).</summary>
+    public abstract string To { get; }
+
+    /// <summary>A-priori standard deviation in SI units (metres or radians); must be positive.</summary>
+    public required double StandardDeviation { get; init; }
+
+    /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
+    public string? Source { get; init; }
+
+    /// <summary>All points the observation involves, without repeats.</summary>
+    public IEnumerable<string> Points => new[] { At, From, To }.OfType<string>().Distinct(StringComparer.Ordinal);
+
+    /// <summary>A short description for messages, e.g. <c>distance T1→T2 (site.yaml:41)</c>.</summary>
+    public string Describe()
+    {
+        string what = Kind == ObservationKind.Angle ? $"angle at {At} from {From} to {To}" : $"{Kind.Name().Replace('_', ' ')} {From}→{To}";
+        return Source is null ? what : $"{what} ({Source})";
+    }
+}
+
+/// <summary>A horizontal distance between two points.</summary>
+/// <param name="From">Instrument point.</param>
+/// <param name="To">Target point.</param>
+/// <param name="Distance">The measured horizontal distance.</param>
+public sealed record DistanceObservation(string From, string To, Length Distance) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.Distance;
+
+    /// <inheritdoc />
+    public override double Value => Distance.Metres;
+
+    /// <inheritdoc />
+    public override string From { get; } = From;
+
+    /// <inheritdoc />
+    public override string To { get; } = To;
+}
+
+/// <summary>
+/// A horizontal direction (circle reading) from a station to a target, belonging to a set that shares one
+/// orientation unknown. Reading = azimuth − orientation.
+/// </summary>
+/// <param name="Station">The instrument point.</param>
+/// <param name="Target">The target point.</param>
+/// <param name="Reading">The circle reading.</param>
+/// <param name="SetId">The set's id, unique in the network; all directions of a set share its orientation unknown.</param>
+public sealed record DirectionObservation(string Station, string Target, Angle Reading, string SetId) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.Direction;
+
+    /// <inheritdoc />
+    public override double Value => Reading.Radians;
+
+    /// <inheritdoc />
+    public override string? At => Station;
+
+    /// <inheritdoc />
+    public override string From => Station;
+
+    /// <inheritdoc />
+    public override string To => Target;
+}
+
+/// <summary>A horizontal angle at a station, measured clockwise from the backsight to the foresight.</summary>
+/// <param name="Station">The instrument point.</param>
+/// <param name="Backsight">The backsight point.</param>
+/// <param name="Foresight">The foresight point.</param>
+/// <param name="Measured">The measured angle.</param>
+public sealed record AngleObservation(string Station, string Backsight, string Foresight, Angle Measured) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.Angle;
+
+    /// <inheritdoc />
+    public override double Value => Measured.Radians;
+
+    /// <inheritdoc />
+    public override string? At => Station;
+
+    /// <inheritdoc />
+    public override string From => Backsight;
+
+    /// <inheritdoc />
+    public override string To => Foresight;
+}
+
+/// <summary>A grid azimuth from one point to another, clockwise from grid north.</summary>
+/// <param name="From">The from point.</param>
+/// <param name="To">The to point.</param>
+/// <param name="Azimuth">The azimuth.</param>
+public sealed record AzimuthObservation(string From, string To, Angle Azimuth) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.Azimuth;
+
+    /// <inheritdoc />
+    public override double Value => Azimuth.Radians;
+
+    /// <inheritdoc />
+    public override string From { get; } = From;
+
+    /// <inheritdoc />
+    public override string To { get; } = To;
+}
+
+/// <summary>A height difference H(to) − H(from), e.g. one levelling section.</summary>
+/// <param name="From">The back point.</param>
+/// <param name="To">The forward point.</param>
+/// <param name="Difference">The measured height difference H(to) − H(from).</param>
+/// <param name="LineLength">The levelled length of the section, for weighting; null when not given.</param>
+public sealed record HeightDifferenceObservation(string From, string To, Length Difference, Length? LineLength = null) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.HeightDifference;
+
+    /// <inheritdoc />
+    public override double Value => Difference.Metres;
+
+    /// <inheritdoc />
+    public override string From { get; } = From;
+
+    /// <inheritdoc />
+    public override string To { get; } = To;
+}

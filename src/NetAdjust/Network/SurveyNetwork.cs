@@ -1,0 +1,87 @@
+namespace NetAdjust.Network;
+
+/// <summary>
+/// An immutable survey network: points and observations, checked for consistency on construction
+/// (unique ids, known points, positive standard deviations, fixed components with values).
+/// </summary>
+public sealed class SurveyNetwork
+{
+    private readonly Dictionary<string, int> _index;
+
+    /// <summary>Creates and validates a network.</summary>
+    /// <param name="name">A title for reports (e.g. the project name).</param>
+    /// <param name="points">The points, in input order (the order of every listing).</param>
+    /// <param name="observations">The observations, in input order.</param>
+    /// <exception cref="InvalidInputException">Listing every problem found, each with its source.</exception>
+    public SurveyNetwork(string name, IEnumerable<Point> points, IEnumerable<Observation> observations)
+    {
+        Name = name;
+        Points = points.ToArray();
+        Observations = observations.ToArray();
+        _index = new Dictionary<string, int>(StringComparer.Ordinal);
+        var problems = new List<string>();
+        for (int i = 0; i < Points.Count; i++)
+        {
+            var p = Points[i];
+            string at = p.Source is null ? "" : $"{p.Source}: ";
+            if (string.IsNullOrWhiteSpace(p.Id)) { problems.Add($"{at}a point has an empty id"); continue; }
+            if (!_index.TryAdd(p.Id, i)) problems.Add($"{at}point {p.Id} is defined twice");
+            if (p.IsFixed(Fixity.E) && p.E is null) problems.Add($"{at}point {p.Id} holds its easting fixed but gives no easting");
+            if (p.IsFixed(Fixity.N) && p.N is null) problems.Add($"{at}point {p.Id} holds its northing fixed but gives no northing");
+            if (p.IsFixed(Fixity.H) && p.H is null) problems.Add($"{at}point {p.Id} holds its height fixed but gives no height");
+            CheckWeighted(p, p.SdE, p.E, Fixity.E, "easting", at, problems);
+            CheckWeighted(p, p.SdN, p.N, Fixity.N, "northing", at, problems);
+            CheckWeighted(p, p.SdH, p.H, Fixity.H, "height", at, problems);
+        }
+        var sets = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var o in Observations)
+        {
+            foreach (var id in o.Points)
+                if (!_index.ContainsKey(id)) problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
+            if (o.From == o.To || (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
+                problems.Add($"{o.Describe()}: an observation needs distinct points");
+            if (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation))
+                problems.Add($"{o.Describe()}: the standard deviation must be positive");
+            if (!double.IsFinite(o.Value)) problems.Add($"{o.Describe()}: the value is not a finite number");
+            if (o.Kind == ObservationKind.Distance && !(o.Value > 0)) problems.Add($"{o.Describe()}: a distance must be positive");
+            if (o is DirectionObservation d)
+            {
+                if (sets.TryGetValue(d.SetId, out var st) && st != d.Station)
+                    problems.Add($"{o.Describe()}: direction set {d.SetId} already belongs to station {st}");
+                else sets[d.SetId] = d.Station;
+            }
+        }
+        if (problems.Count > 0)
+            throw new InvalidInputException("The network is not valid:" + Environment.NewLine + "  " + string.Join(Environment.NewLine + "  ", problems));
+    }
+
+    private static void CheckWeighted(Point p, double? sd, double? value, Fixity c, string name, string at, List<string> problems)
+    {
+        if (sd is null) return;
+        if (!(sd > 0) || !double.IsFinite(sd.Value)) problems.Add($"{at}point {p.Id}: the standard deviation of its {name} must be positive");
+        if (value is null) problems.Add($"{at}point {p.Id} weights its {name} but gives no {name}");
+        if (p.IsFixed(c)) problems.Add($"{at}point {p.Id} both fixes and weights its {name}: choose one");
+    }
+
+    /// <summary>A title for reports.</summary>
+    public string Name { get; }
+
+    /// <summary>The points, in input order.</summary>
+    public IReadOnlyList<Point> Points { get; }
+
+    /// <summary>The observations, in input order.</summary>
+    public IReadOnlyList<Observation> Observations { get; }
+
+    /// <summary>The position of a point in <see cref="Points"/>.</summary>
+    /// <param name="id">The point id.</param>
+    /// <exception cref="KeyNotFoundException">When no point has that id.</exception>
+    public int IndexOf(string id) => _index[id];
+
+    /// <summary>The point with the given id.</summary>
+    /// <param name="id">The point id.</param>
+    public Point this[string id] => Points[_index[id]];
+
+    /// <summary>True when a point with the given id exists.</summary>
+    /// <param name="id">The point id.</param>
+    public bool Contains(string id) => _index.ContainsKey(id);
+}
