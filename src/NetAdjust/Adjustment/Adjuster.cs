@@ -10,7 +10,7 @@ namespace NetAdjust.Adjustment;
 /// at each iteration the observation equations are linearised at the current parameters, N Δx = AᵀP l is solved
 /// (l = observed − computed), and the parameters updated, until every correction is below the tolerances.
 /// </summary>
-public static class Adjuster
+public static partial class Adjuster
 {
     /// <summary>Adjusts a network.</summary>
     /// <param name="network">The network (validated on construction).</param>
@@ -23,12 +23,12 @@ public static class Adjuster
     {
         options ??= AdjustmentOptions.Default;
         options.Validate();
-        var solver = options.Solver ?? new DenseNormalEquationsSolver();
 
         var (index, state) = Setup(network);
         var control = ControlRows(network, index);
         int n = network.Observations.Count + control.Count;
         int u = index.Count;
+        var solver = SolverChoice.For(options, network, index);
 
         var diagonal = new double[n];
         for (int i = 0; i < network.Observations.Count; i++)

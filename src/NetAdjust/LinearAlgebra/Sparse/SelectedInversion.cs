@@ -50,44 +50,41 @@ internal static class SelectedInversion
                 }
             if (mu == 0) continue;
 
-            // Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
-            var Y = new double[mu * k];
+            // Yᵀ (k×mu, row-major) with Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
+            var Yt = new double[k * mu];
             for (int a = 0; a < mu; a++)
             {
                 var la = L.AsSpan((int)(off + ((long)(k + a) * k)), k);
                 for (int c = 0; c < k; c++)
-                    Y[(a * k) + c] = DenseKernels.Dot(la[c..], T.AsSpan((c * k) + c, k - c), k - c);
+                    Yt[(c * mu) + a] = DenseKernels.Dot(la[c..], T.AsSpan((c * k) + c, k - c), k - c);
             }
 
-            // Z_RR gathered from the ancestors' blocks.
+            // Z_RR gathered from the ancestors' blocks (symmetric, full).
             var zrr = GatherZrr(sym, Z, r0 + k, mu);
 
-            // Z_RJ = −Z_RR Y.
-            void RowsOfZrj(int lo, int hi)
+            // Z_RJ = −Z_RR Y, kept transposed: Zt(c, a) = −Σ_b Y(b, c) Z_RR(a, b).
+            var Zt = new double[k * mu];
+            void Rows(int lo, int hi)
             {
                 for (int a = lo; a < hi; a++)
                 {
-                    var za = Z.AsSpan((int)(off + ((long)(k + a) * k)), k);
-                    za.Clear();
-                    for (int b = 0; b < mu; b++)
-                        DenseKernels.SubtractScaled(za, Y.AsSpan(b * k, k), zrr[(a * mu) + b], k);
+                    var za = zrr.AsSpan(a * mu, mu);
+                    for (int c = 0; c < k; c++) Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za, mu);
                 }
             }
-            if ((double)mu * mu * k < 4e5 || Environment.ProcessorCount == 1) RowsOfZrj(0, mu);
+            if ((double)mu * mu * k < 4e5 || Environment.ProcessorCount == 1) Rows(0, mu);
             else
             {
                 int parts = Math.Min(Environment.ProcessorCount * 4, mu);
-                Parallel.For(0, parts, p => RowsOfZrj((int)((long)mu * p / parts), (int)((long)mu * (p + 1) / parts)));
+                Parallel.For(0, parts, p => Rows((int)((long)mu * p / parts), (int)((long)mu * (p + 1) / parts)));
             }
-
-            // Z_JJ −= Yᵀ Z_RJ.
             for (int a = 0; a < mu; a++)
-            {
-                var ya = Y.AsSpan(a * k, k);
-                var za = Z.AsSpan((int)(off + ((long)(k + a) * k)), k);
-                for (int c = 0; c < k; c++)
-                    DenseKernels.SubtractScaled(Z.AsSpan((int)(off + ((long)c * k)), k), za, ya[c], k);
-            }
+                for (int c = 0; c < k; c++) Z[off + ((long)(k + a) * k) + c] = Zt[(c * mu) + a];
+
+            // Z_JJ −= Yᵀ Z_RJ: (c, d) −= Σ_a Y(a, c) Z_RJ(a, d).
+            for (int c = 0; c < k; c++)
+                for (int d = 0; d < k; d++)
+                    Z[off + ((long)c * k) + d] -= DenseKernels.Dot(Yt.AsSpan(c * mu, mu), Zt.AsSpan(d * mu, mu), mu);
         }
         return Z;
     }

@@ -31,7 +31,7 @@ public enum SparseOrdering
 public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
 {
     /// <summary>Above this many unknowns the automatic choice does not try minimum degree when nested dissection is available.</summary>
-    public const int MinimumDegreeLimit = 30_000;
+    public const int MinimumDegreeLimit = 10_000;
 
     private DesignPattern? _pattern;
     private SymbolicCholesky? _symbolic;
