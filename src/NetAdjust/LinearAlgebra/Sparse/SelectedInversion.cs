@@ -51,7 +51,7 @@ internal static class SelectedInversion
             if (mu == 0) continue;
 
             // Yᵀ (k×mu, row-major) with Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
-            var Yt = new double[k * mu];
+            var Yt = System.Buffers.ArrayPool<double>.Shared.Rent(k * mu);
             for (int a = 0; a < mu; a++)
             {
                 var la = L.AsSpan((int)(off + ((long)(k + a) * k)), k);
@@ -63,7 +63,7 @@ internal static class SelectedInversion
             var zrr = GatherZrr(sym, Z, r0 + k, mu);
 
             // Z_RJ = −Z_RR Y, kept transposed: Zt(c, a) = −Σ_b Y(b, c) Z_RR(a, b).
-            var Zt = new double[k * mu];
+            var Zt = System.Buffers.ArrayPool<double>.Shared.Rent(k * mu);
             void Rows(int lo, int hi)
             {
                 for (int a = lo; a < hi; a++)
@@ -85,6 +85,9 @@ internal static class SelectedInversion
             for (int c = 0; c < k; c++)
                 for (int d = 0; d < k; d++)
                     Z[off + ((long)c * k) + d] -= DenseKernels.Dot(Yt.AsSpan(c * mu, mu), Zt.AsSpan(d * mu, mu), mu);
+            System.Buffers.ArrayPool<double>.Shared.Return(Yt);
+            System.Buffers.ArrayPool<double>.Shared.Return(Zt);
+            System.Buffers.ArrayPool<double>.Shared.Return(zrr);
         }
         return Z;
     }
@@ -92,7 +95,7 @@ internal static class SelectedInversion
     /// <summary>The dense symmetric Z_RR for the sorted rows R = SnRows[rStart .. rStart + mu).</summary>
     private static double[] GatherZrr(SymbolicCholesky sym, double[] Z, int rStart, int mu)
     {
-        var zrr = new double[mu * mu];
+        var zrr = System.Buffers.ArrayPool<double>.Shared.Rent(mu * mu);
         var rows = sym.SnRows;
         int b0 = 0;
         while (b0 < mu)
