@@ -14,7 +14,7 @@ namespace NetAdjust.Benchmarks;
 public static class PhaseTimer
 {
     /// <summary>Runs and prints the timings.</summary>
-    /// <param name="args">kind (plane|levels), point count, optional ordering (auto|nd|md).</param>
+    /// <param name="args">kind (plane|levels), point count, optional ordering (auto|nd|md) or <c>adjust-only</c>.</param>
     public static void Run(string[] args)
     {
         var kind = args.Length > 1 && args[1] == "levels" ? SyntheticNetworkKind.Levels : SyntheticNetworkKind.Plane;
@@ -23,6 +23,16 @@ public static class PhaseTimer
         var sw = Stopwatch.StartNew();
         var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(kind, points, Seed: 1));
         Console.WriteLine($"generate: {sw.Elapsed.TotalSeconds:F2} s; {network.Points.Count} points, {network.Observations.Count} observations");
+        if (args.Length > 3 && args[3] == "adjust-only")
+        {
+            GC.Collect();
+            long before = Process.GetCurrentProcess().PeakWorkingSet64;
+            sw.Restart();
+            var r = Adjuster.Adjust(network, AdjustmentOptions.Default);
+            Console.WriteLine($"full adjustment: {sw.Elapsed.TotalSeconds:F2} s, {r.Statistics.Iterations} iterations, solver: {r.SolverName}; " +
+                              $"peak working set {Process.GetCurrentProcess().PeakWorkingSet64 / 1048576} MiB (after generating: {before / 1048576} MiB)");
+            return;
+        }
 
         var prepared = SyntheticProblem.Linearise(network);
         int u = prepared.Unknowns;

@@ -13,6 +13,7 @@ public static class Program
     public static void Main(string[] args)
     {
         if (args.Length > 0 && args[0] == "phases") { PhaseTimer.Run(args); return; }
+        if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }

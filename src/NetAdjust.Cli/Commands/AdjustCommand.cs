@@ -20,9 +20,10 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var quiet = new Option<bool>("--quiet") { Description = "Print no progress on standard error (progress is shown only for runs longer than a second)." };
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date,
+            file, json, report, date, quiet,
         };
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
@@ -32,7 +33,8 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
 
-            var result = Adjuster.Adjust(project.Network, project.Options);
+            var options = parse.GetValue(quiet) ? project.Options : project.Options with { Progress = new ProgressPrinter(console.Error) };
+            var result = Adjuster.Adjust(project.Network, options);
             var context = new ReportContext(path, runDate, project.Units);
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));

@@ -47,6 +47,7 @@ public static partial class Adjuster
                 if (iterations == options.MaxIterations)
                     throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
                 iterations++;
+                options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {iterations}", null));
                 var (rows, l) = Linearise(network, index, state, control);
                 var factor = Factorize(solver, u, rows, weights, index);
                 var pl = weights.Multiply(l);
@@ -70,6 +71,7 @@ public static partial class Adjuster
         }
 
         // Final linearisation at the solution: residuals, covariance.
+        options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
         var (finalRows, finalL) = Linearise(network, index, state, control);
         INormalFactor? finalFactor = u > 0 ? Factorize(solver, u, finalRows, weights, index) : null;
         double vtpv = weights.Quadratic(finalL); // v = −l at the solution
@@ -82,6 +84,7 @@ public static partial class Adjuster
         var observations = new AdjustedObservation[network.Observations.Count];
         for (int i = 0; i < observations.Length; i++)
         {
+            if (options.Progress is not null && i % 65536 == 0) options.Progress.Report(new AdjustmentProgress("statistics of the observations", 100.0 * i / observations.Length));
             var o = network.Observations[i];
             double v = -finalL[i];
             double adjusted = o.Value + v;

@@ -24,6 +24,9 @@ public sealed record AdjustmentOptions
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
 
+    /// <summary>Receives progress reports (phase and percent) during the adjustment; null for none. Called on the adjusting thread.</summary>
+    public IProgress<AdjustmentProgress>? Progress { get; init; }
+
     /// <summary>Checks the options.</summary>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>
     public void Validate()
