@@ -14,6 +14,7 @@ public static class Program
     {
         if (args.Length > 0 && args[0] == "phases") { PhaseTimer.Run(args); return; }
         if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
+        if (args.Length > 0 && args[0] == "crossover") { Crossover.Run(); return; }
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }

@@ -24,7 +24,7 @@ public sealed class SimulateCommandTests : IDisposable
         var adjust = CliTests.Run("adjust", yaml, "--date", "2026-12-01", "--quiet");
         Assert.True(adjust.Code == ExitCodes.Success, adjust.Err);
         Assert.Equal("", adjust.Err);
-        // 400 points exceed the dense limit of 300 unknowns: the sparse engine ran and the report says so.
+        // 400 points exceed the dense limit of 200 unknowns: the sparse engine ran and the report says so.
         Assert.Contains("sparse supernodal Cholesky", adjust.Out);
 
         // Same seed, same files.

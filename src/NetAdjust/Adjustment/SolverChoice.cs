@@ -12,7 +12,7 @@ namespace NetAdjust.Adjustment;
 internal static class SolverChoice
 {
     /// <summary>The largest number of unknowns solved densely by default.</summary>
-    public const int DenseUnknownLimit = 300;
+    public const int DenseUnknownLimit = 200;
 
     /// <summary>The solver for an adjustment.</summary>
     public static INormalEquationsSolver For(AdjustmentOptions options, SurveyNetwork network, UnknownIndex index)

@@ -69,6 +69,49 @@ public static class GeometricNestedDissection
         return perm;
     }
 
+    /// <summary>
+    /// A minimum vertex cover of the edges cut between the two halves (König's theorem: from a maximum matching of
+    /// the bipartite cut graph, cover = (A \ Z) ∪ (B ∩ Z) with Z reached from unmatched A vertices by alternating
+    /// paths). Any cover of the cut edges separates the halves. Kuhn's augmenting paths; the boundaries are small.
+    /// </summary>
+    private static List<int> MinimumCutCover(List<int> a, List<int> b, int[] gStart, int[] adj, int[] side)
+    {
+        var matchOfB = new Dictionary<int, int>();
+        var matchOfA = new Dictionary<int, int>();
+        var visited = new HashSet<int>();
+        bool Augment(int u)
+        {
+            for (int p = gStart[u]; p < gStart[u + 1]; p++)
+            {
+                int v = adj[p];
+                if (side[v] != 2 || !visited.Add(v)) continue;
+                if (!matchOfB.TryGetValue(v, out int w) || Augment(w)) { matchOfB[v] = u; matchOfA[u] = v; return true; }
+            }
+            return false;
+        }
+        foreach (int u in a) { visited.Clear(); Augment(u); }
+
+        // Z: alternating reachability from unmatched vertices of A.
+        var zA = new HashSet<int>();
+        var zB = new HashSet<int>();
+        var queue = new Queue<int>();
+        foreach (int u in a) if (!matchOfA.ContainsKey(u)) { zA.Add(u); queue.Enqueue(u); }
+        while (queue.Count > 0)
+        {
+            int u = queue.Dequeue();
+            for (int p = gStart[u]; p < gStart[u + 1]; p++)
+            {
+                int v = adj[p];
+                if (side[v] != 2 || !zB.Add(v)) continue;
+                if (matchOfB.TryGetValue(v, out int w) && zA.Add(w)) queue.Enqueue(w);
+            }
+        }
+        var cover = new List<int>();
+        foreach (int u in a) if (!zA.Contains(u)) cover.Add(u);
+        foreach (int v in b) if (zB.Contains(v)) cover.Add(v);
+        return cover;
+    }
+
     private static void Dissect(int[] part, double[] x, double[] y, int[] gStart, int[] adj, int[] weight, int[] side, List<int> order)
     {
         if (part.Length <= LeafGroups) { order.AddRange(part); return; }
@@ -104,6 +147,10 @@ public static class GeometricNestedDissection
             }
         }
         var sep = w1 <= w2 ? sep1 : sep2;
+        var cover = MinimumCutCover(sep1, sep2, gStart, adj, side);
+        int wc = 0;
+        foreach (int k in cover) wc += weight[k];
+        if (wc < Math.Min(w1, w2)) sep = cover;
         foreach (int k in sep) side[k] = 3;
         var a = sorted.Where(k => side[k] == 1).ToArray();
         var b = sorted.Where(k => side[k] == 2).ToArray();
