@@ -20,22 +20,25 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date,
         };
+        exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
             string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
             var runDate = ParseDate(parse.GetValue(date));
             var project = ProjectReader.Read(path);
-            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
+            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
             var result = Adjuster.Adjust(project.Network, project.Options);
-            var context = new ReportContext(path, runDate, project.Units);
+            var context = new ReportContext(path, runDate, project.Units) { Crs = project.Crs };
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
+            exchange.Write(parse, result, context);
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
             else console.Out.Write(text);
             return ExitCodes.Success;

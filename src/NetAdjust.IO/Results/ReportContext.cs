@@ -6,4 +6,8 @@ namespace NetAdjust.IO.Results;
 /// <param name="InputName">The project file as the user named it.</param>
 /// <param name="RunDate">The stated run date (the only date in any output; fix it for reproducible reports).</param>
 /// <param name="Units">The units of the text report.</param>
-public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUnits Units);
+public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUnits Units)
+{
+    /// <summary>The project's coordinate reference system (<c>EPSG:code</c>), or null for local coordinates.</summary>
+    public string? Crs { get; init; }
+}
