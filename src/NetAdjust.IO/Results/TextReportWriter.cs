@@ -44,6 +44,7 @@ public static class TextReportWriter
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
         Line($"Units     : lengths {u.Length.Name} ({lu}), angles {AngleName(u.Angle)}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
+        TextReportSections.Datum(sb, r, c);
         Line();
 
         var s = r.Statistics;
@@ -61,6 +62,7 @@ public static class TextReportWriter
             Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {F(g.Lower!.Value, 3)} <= {F(g.Statistic, 3)} <= {F(g.Upper!.Value, 3)} ? {(passed ? "PASSED" : "FAILED")}");
         else
             Line("  Global test: not possible (no redundancy)");
+        TextReportSections.WorstResiduals(sb, r, 5);
         Line();
 
         Line($"ADJUSTED COORDINATES ({lu}; standard deviations at the a-priori variance factor)");
@@ -74,6 +76,7 @@ public static class TextReportWriter
             Line($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} {E(p.SdE, sdLen, 8)} {E(p.SdN, sdLen, 8)} {E(p.SdH, sdLen, 8)}  {role}".TrimEnd());
         }
         Line();
+        TextReportSections.Ellipses(sb, r, c);
 
         Line($"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {AngleName(u.Angle)}, angular sd {au})");
         Line($"  {"#",4} {"Kind",-9} {"At",-8} {"From",-8} {"To",-8} {"Observed",14} {"Adjusted",14} {"Residual",9} {"sd",7}");

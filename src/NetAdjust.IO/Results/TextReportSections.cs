@@ -1,0 +1,85 @@
+using System.Text;
+using NetAdjust.Adjustment;
+using NetAdjust.Network;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// Sections of the text report kept apart from <see cref="TextReportWriter"/>: the datum line, the largest
+/// standardised residuals and the error-ellipse table. Every line stays within 100 columns.
+/// </summary>
+internal static class TextReportSections
+{
+    /// <summary>The report's maximum line width in characters.</summary>
+    public const int MaxWidth = 100;
+
+    /// <summary>The datum: which points are held or weighted, and in which components; wrapped to the width.</summary>
+    public static void Datum(StringBuilder sb, AdjustmentResult r, ReportContext c)
+    {
+        var held = r.Points.Where(p => p.Input.Fixed != Fixity.None).Select(p => $"{p.Id} ({JsonResultWriter.FixityText(p.Input.Fixed)})").ToList();
+        var weighted = r.Points.Where(p => p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.SdH.HasValue)
+            .Select(p => $"{p.Id} ({(p.Input.SdE.HasValue ? "e" : "")}{(p.Input.SdN.HasValue ? "n" : "")}{(p.Input.SdH.HasValue ? "h" : "")})").ToList();
+        Wrapped(sb, "Datum     : ", "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) +
+                                    "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted)));
+        Wrapped(sb, "Grid      : ", c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs);
+    }
+
+    /// <summary>The observations with the largest |w| (when the result has standardised residuals).</summary>
+    public static void WorstResiduals(StringBuilder sb, AdjustmentResult r, int count)
+    {
+        var w = ReportFigures.StandardisedResiduals(r);
+        var worst = HtmlReportWriter.Worst(r, w, count);
+        if (worst.Count == 0)
+        {
+            sb.Append("  Largest standardised residuals: not available in this result\n");
+            return;
+        }
+        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical, 2)).Append("):\n");
+        foreach (var (o, wi) in worst)
+        {
+            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical ? "FAILS" : "passes")}  {o.Input.Describe()}";
+            sb.Append(Clip(line, MaxWidth)).Append('\n');
+        }
+    }
+
+    /// <summary>The standard error ellipses of the points that are not held in plan.</summary>
+    public static void Ellipses(StringBuilder sb, AdjustmentResult r, ReportContext c)
+    {
+        var u = new ReportUnits(c.Units);
+        var rows = r.Points.Where(p => ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p))
+            .Select(p => (p, ReportFigures.Ellipse(p))).Where(t => t.Item2 is not null).ToList();
+        if (rows.Count == 0) return;
+        sb.Append("STANDARD ERROR ELLIPSES (1 sigma, a-priori variance factor; axes in ").Append(u.LengthSymbol)
+          .Append(", azimuth of a from grid north)\n");
+        sb.Append($"  {"Point",-12} {"a",10} {"b",10} {"Azimuth of a",14}  Role\n");
+        foreach (var (p, el) in rows)
+        {
+            var e = el!.Value;
+            sb.Append($"  {Clip(p.Id, 12),-12} {u.SmallLength(e.SemiMajor),10} {u.SmallLength(e.SemiMinor),10} {u.Azimuth(e.Azimuth),14}  {LandXmlWriter.RoleText(ReportFigures.Role(p))}\n");
+        }
+        sb.Append('\n');
+    }
+
+    /// <summary>Writes label + text, wrapping at spaces so no line passes <see cref="MaxWidth"/>; continuation lines are indented.</summary>
+    internal static void Wrapped(StringBuilder sb, string label, string text)
+    {
+        string indent = new(' ', label.Length);
+        var line = new StringBuilder(label);
+        bool empty = true;
+        foreach (string word in text.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (!empty && line.Length + 1 + word.Length > MaxWidth)
+            {
+                sb.Append(line).Append('\n');
+                line.Clear().Append(indent);
+                empty = true;
+            }
+            if (!empty) line.Append(' ');
+            line.Append(word);
+            empty = false;
+        }
+        sb.Append(Clip(line.ToString(), MaxWidth)).Append('\n');
+    }
+
+    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
+}
