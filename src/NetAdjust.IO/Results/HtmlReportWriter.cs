@@ -209,7 +209,7 @@ public static class HtmlReportWriter
               .Append("\" stroke=\"#111111\" stroke-dasharray=\"5 4\"/>\n");
         sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y1)).Append("\" x2=\"").Append(N(x1)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
         sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(x0)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
-        for (double t = -lim; t <= lim + 1e-9; t += 1)
+        for (double t = Math.Ceiling(-lim); t <= Math.Floor(lim) + 1e-9; t += 1)
             sb.Append("<text x=\"").Append(N(X(t))).Append("\" y=\"").Append(N(y1 + 16)).Append("\" text-anchor=\"middle\">").Append(F(t, 0)).Append("</text>\n");
         for (double d = 0; d <= yMax + 1e-9; d += 0.1)
             sb.Append("<text x=\"").Append(N(x0 - 6)).Append("\" y=\"").Append(N(Y(d) + 4)).Append("\" text-anchor=\"end\">").Append(F(d, 1)).Append("</text>\n");

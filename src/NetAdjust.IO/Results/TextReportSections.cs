@@ -49,8 +49,8 @@ internal static class TextReportSections
         var rows = r.Points.Where(p => ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p))
             .Select(p => (p, ReportFigures.Ellipse(p))).Where(t => t.Item2 is not null).ToList();
         if (rows.Count == 0) return;
-        sb.Append("STANDARD ERROR ELLIPSES (1 sigma, a-priori variance factor; axes in ").Append(u.LengthSymbol)
-          .Append(", azimuth of a from grid north)\n");
+        sb.Append("STANDARD ERROR ELLIPSES (1 sigma, a-priori variance factor; a, b in ").Append(u.LengthSymbol)
+          .Append("; azimuth from grid north)\n");
         sb.Append($"  {"Point",-12} {"a",10} {"b",10} {"Azimuth of a",14}  Role\n");
         foreach (var (p, el) in rows)
         {
