@@ -112,4 +112,19 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.True(img.LuminanceVariance() > 50);
         Assert.True(img.CountNear(NetworkPlotWriter.EllipseColour, 12) > 6 * 20, "the plot's ellipses are not visible in the report");
     }
+
+    [ChromiumFact]
+    public void PrintingStartsEachSectionOnANewPage()
+    {
+        string page = WriteDemoReport();
+        string pdf = Path.Combine(_dir, "report.pdf");
+        Chromium.Open(page, "--no-pdf-header-footer", "--print-to-pdf=" + pdf);
+        Assert.True(File.Exists(pdf), "no PDF written");
+        string raw = System.Text.Encoding.Latin1.GetString(File.ReadAllBytes(pdf));
+        int pages = Regex.Matches(raw, @"/Type\s*/Page(?![a-zA-Z])").Count;
+        int sections = Regex.Matches(File.ReadAllText(page), "<section id=").Count;
+        Assert.Equal(7, sections);
+        // Without the print stylesheet's page breaks the demo report prints on about three A4 pages.
+        Assert.True(pages >= sections, $"{pages} printed pages for {sections} sections");
+    }
 }
