@@ -188,3 +188,53 @@ public class GeoJsonTests
         }
     }
 }
+
+public class EdgeCaseWriterTests
+{
+    private const string LevelsOnly = """
+        project: Millrace levels (invented)
+        default_sd: {height_difference: 1 mm}
+        points:
+          - {id: BM1, h: 20.000, fix: h}
+          - {id: BM2}
+          - {id: BM3}
+        levelling:
+          - {from: BM1, to: BM2, dh: 1.2500}
+          - {from: BM2, to: BM3, dh: -0.4012}
+          - {from: BM3, to: BM1, dh: -0.8479}
+        """;
+
+    private static (AdjustmentResult, ReportContext) Load(string yaml)
+    {
+        var project = NetAdjust.IO.Project.ProjectReader.Parse(yaml, "t.yaml", "/nonexistent", _ => throw new IOException());
+        return (Adjuster.Adjust(project.Network, project.Options), new ReportContext("t.yaml", TestProjects.RunDate, project.Units) { Crs = project.Crs });
+    }
+
+    [Fact]
+    public void LevellingOnlyNetworkGivesEmptyPlanOutputsAndSaysSo()
+    {
+        var (r, c) = Load(LevelsOnly);
+        Assert.Contains("nothing to plot", NetworkPlotWriter.WriteDocument(r, c));
+        var root = XDocument.Parse(LandXmlWriter.Write(r, c)).Root!;
+        Assert.Empty(root.Element(XName.Get("CgPoints", LandXmlWriter.Namespace))!.Elements());
+        using var geo = JsonDocument.Parse(GeoJsonWriter.Write(r, c));
+        Assert.Equal(0, geo.RootElement.GetProperty("features").GetArrayLength());
+        string csv = CoordinateCsvWriter.Write(r, c);
+        Assert.Equal(4, csv.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // header + 3 benchmarks
+        string html = HtmlReportWriter.Write(r, c);
+        Assert.DoesNotContain("class=\"ellipse\"", html);
+        Assert.Contains("<td class=\"id\">BM3</td>", html);
+    }
+
+    [Fact]
+    public void UsSurveyFeetAreDeclaredAsSuch()
+    {
+        var (r, c) = Load(TestProjects.Ashgrove.Replace("length: ft", "length: usft"));
+        var imp = XDocument.Parse(LandXmlWriter.Write(r, c)).Root!.Element(XName.Get("Units", LandXmlWriter.Namespace))!.Elements().Single();
+        Assert.Equal("USSurveyFoot", (string?)imp.Attribute("linearUnit"));
+        Assert.StartsWith("id,easting_usft,", CoordinateCsvWriter.Write(r, c));
+        // 1000 usft held: 1000 × 1200/3937 m (24 FR 5348, 1959) written back as 1000 usft.
+        Assert.Contains("\n\"A,1\",1000.000000,1000.000000,", CoordinateCsvWriter.Write(r, c));
+        Assert.Equal(1000 * 1200.0 / 3937.0, r.Points[0].E!.Value, 1e-9);
+    }
+}
