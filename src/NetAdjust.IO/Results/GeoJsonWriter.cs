@@ -81,7 +81,7 @@ public static class GeoJsonWriter
                 j.WriteStartObject("properties");
                 j.WriteString("feature", "point");
                 j.WriteString("id", p.Id);
-                j.WriteString("role", LandXmlWriter.RoleText(ReportFigures.Role(p)));
+                j.WriteString("role", ReportFigures.RoleText(ReportFigures.Role(p)));
                 NumOrNull(j, "sd_e", p.SdE * k);
                 NumOrNull(j, "sd_n", p.SdN * k);
                 NumOrNull(j, "sd_h", p.SdH * k);

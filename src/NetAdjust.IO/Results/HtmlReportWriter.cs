@@ -68,7 +68,7 @@ public static class HtmlReportWriter
         Tr(sb, "Standard deviation of unit weight σ̂0", s.Sigma0 is double s0 ? F(s0, 4) : "n/a");
         Tr(sb, "Iterations", s.Iterations.ToString(Inv));
         sb.Append("</tbody>\n</table>\n");
-        var worst = Worst(r, w, 5);
+        var worst = ReportFigures.Worst(r, w, 5);
         if (worst.Count > 0)
         {
             sb.Append("<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
@@ -84,7 +84,7 @@ public static class HtmlReportWriter
 
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
-          .Append(NetworkPlotWriter.Render(r, c, w, standalone: false))
+          .Append(NetworkPlotWriter.Render(r, c, w))
           .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at the a-priori variance factor, magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
           .Append("</figcaption>\n</figure>\n</section>\n");
@@ -107,7 +107,7 @@ public static class HtmlReportWriter
         foreach (var p in r.Points)
         {
             var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(p) : null;
-            string role = ReportFigures.HasPlan(p) ? LandXmlWriter.RoleText(ReportFigures.Role(p)) : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
+            string role = ReportFigures.HasPlan(p) ? ReportFigures.RoleText(ReportFigures.Role(p)) : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
             sb.Append("<tr><td class=\"id\">").Append(E(p.Id)).Append("</td><td>").Append(role).Append("</td>");
             foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(p.SdE), u.SmallLength(p.SdN), u.SmallLength(p.SdH),
                                       u.SmallLength(el?.SemiMajor), u.SmallLength(el?.SemiMinor), el is PointEllipse e ? u.Azimuth(e.Azimuth) : "-" })
@@ -151,16 +151,6 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n</section>\n");
         sb.Append("<footer>Report written by NetAdjust on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
         return sb.ToString();
-    }
-
-    /// <summary>The observations with the largest |w|, largest first (ties by input order).</summary>
-    internal static List<(AdjustedObservation Observation, double W)> Worst(AdjustmentResult r, IReadOnlyList<double?>? w, int count)
-    {
-        if (w is null) return [];
-        return r.Observations.Where(o => o.Index < w.Count && w[o.Index] is double x && double.IsFinite(x))
-            .Select(o => (o, w[o.Index]!.Value))
-            .OrderByDescending(t => Math.Abs(t.Item2)).ThenBy(t => t.o.Index)
-            .Take(count).ToList();
     }
 
     /// <summary>

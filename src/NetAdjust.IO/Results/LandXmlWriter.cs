@@ -101,7 +101,7 @@ public static class LandXmlWriter
                 var role = ReportFigures.Role(p);
                 w.WriteStartElement("CgPoint", Namespace);
                 w.WriteAttributeString("name", p.Id);
-                w.WriteAttributeString("desc", RoleText(role));
+                w.WriteAttributeString("desc", ReportFigures.RoleText(role));
                 w.WriteAttributeString("role", role == PointRole.New ? "calculated" : "control point");
                 if (p.SdN is double sn) w.WriteAttributeString("northingStdError", L(sn));
                 if (p.SdE is double se) w.WriteAttributeString("eastingStdError", L(se));
@@ -118,11 +118,4 @@ public static class LandXmlWriter
         }
         return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
     }
-
-    internal static string RoleText(PointRole role) => role switch
-    {
-        PointRole.Fixed => "fixed control",
-        PointRole.Weighted => "weighted control",
-        _ => "new point",
-    };
 }

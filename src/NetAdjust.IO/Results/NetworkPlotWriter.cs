@@ -33,10 +33,10 @@ public static class NetworkPlotWriter
     /// <param name="result">The result.</param>
     /// <param name="context">Run details (units of the scale bars).</param>
     public static string WriteDocument(AdjustmentResult result, ReportContext context) =>
-        "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + Render(result, context, ReportFigures.StandardisedResiduals(result), standalone: true);
+        "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + Render(result, context, ReportFigures.StandardisedResiduals(result));
 
     /// <summary>Renders the plot as an <c>svg</c> element for embedding in HTML.</summary>
-    internal static string Render(AdjustmentResult result, ReportContext context, IReadOnlyList<double?>? w, bool standalone)
+    internal static string Render(AdjustmentResult result, ReportContext context, IReadOnlyList<double?>? w)
     {
         var units = new ReportUnits(context.Units);
         var pts = result.Points.Where(ReportFigures.HasPlan).ToList();
@@ -172,7 +172,6 @@ public static class NetworkPlotWriter
             sb.Append("<text x=\"").Append(N(lx)).Append("\" y=\"").Append(N(ly + 14)).Append("\" font-size=\"11\">and is not plotted.</text>\n");
         }
         sb.Append("</g>\n");
-        _ = standalone;
         sb.Append("</svg>\n");
         return sb.ToString();
     }

@@ -63,6 +63,28 @@ internal static class ReportFigures
     /// <param name="p">The point.</param>
     public static bool HasPlan(AdjustedPoint p) => p.E is double e && p.N is double n && double.IsFinite(e) && double.IsFinite(n);
 
+    /// <summary>The role in words, as printed in reports and exchange files.</summary>
+    /// <param name="role">The role.</param>
+    public static string RoleText(PointRole role) => role switch
+    {
+        PointRole.Fixed => "fixed control",
+        PointRole.Weighted => "weighted control",
+        _ => "new point",
+    };
+
+    /// <summary>The observations with the largest |w|, largest first (ties by input order); empty without w-values.</summary>
+    /// <param name="r">The result.</param>
+    /// <param name="w">Standardised residuals by observation index, or null.</param>
+    /// <param name="count">How many to return at most.</param>
+    public static List<(AdjustedObservation Observation, double W)> Worst(AdjustmentResult r, IReadOnlyList<double?>? w, int count)
+    {
+        if (w is null) return [];
+        return r.Observations.Where(o => o.Index < w.Count && w[o.Index] is double x && double.IsFinite(x))
+            .Select(o => (o, w[o.Index]!.Value))
+            .OrderByDescending(t => Math.Abs(t.Item2)).ThenBy(t => t.o.Index)
+            .Take(count).ToList();
+    }
+
     /// <summary>The point's role in the plan network: fixed control, weighted control or new point.</summary>
     /// <param name="p">The point.</param>
     public static PointRole Role(AdjustedPoint p) =>

@@ -9,14 +9,13 @@ namespace NetAdjust.IO.Results;
 internal sealed class ReportUnits
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
-    private readonly LengthPattern _len, _sd;
+    private readonly LengthPattern _len;
     private readonly AnglePattern _ang;
 
     public ReportUnits(ProjectUnits units)
     {
         Units = units;
         _len = new LengthPattern(units.Length, 4);
-        _sd = new LengthPattern(units.Length, 4);
         _ang = new AnglePattern(units.Angle, units.Angle == AngleFormat.Dms ? 1 : 5);
     }
 
@@ -35,7 +34,7 @@ internal sealed class ReportUnits
     public string Length(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
 
     /// <summary>A standard deviation or residual length, or "-" when absent.</summary>
-    public string SmallLength(double? metres) => metres is double m && double.IsFinite(m) ? _sd.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+    public string SmallLength(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
 
     /// <summary>An angle value in the project's angle format.</summary>
     public string AngleValue(double radians) => _ang.Format(Angle.FromRadians(radians));

@@ -28,7 +28,7 @@ internal static class TextReportSections
     public static void WorstResiduals(StringBuilder sb, AdjustmentResult r, int count)
     {
         var w = ReportFigures.StandardisedResiduals(r);
-        var worst = HtmlReportWriter.Worst(r, w, count);
+        var worst = ReportFigures.Worst(r, w, count);
         if (worst.Count == 0)
         {
             sb.Append("  Largest standardised residuals: not available in this result\n");
@@ -55,7 +55,7 @@ internal static class TextReportSections
         foreach (var (p, el) in rows)
         {
             var e = el!.Value;
-            sb.Append($"  {Clip(p.Id, 12),-12} {u.SmallLength(e.SemiMajor),10} {u.SmallLength(e.SemiMinor),10} {u.Azimuth(e.Azimuth),14}  {LandXmlWriter.RoleText(ReportFigures.Role(p))}\n");
+            sb.Append($"  {Clip(p.Id, 12),-12} {u.SmallLength(e.SemiMajor),10} {u.SmallLength(e.SemiMinor),10} {u.Azimuth(e.Azimuth),14}  {ReportFigures.RoleText(ReportFigures.Role(p))}\n");
         }
         sb.Append('\n');
     }
