@@ -41,6 +41,7 @@ public static class HtmlReportWriter
         Dl(sb, "Input", c.InputName);
         Dl(sb, "Run date", c.RunDate.ToString("yyyy-MM-dd", Inv));
         Dl(sb, "Units", $"lengths {c.Units.Length.Name} ({u.LengthSymbol}); angles {u.AngleName}; angular sd and residuals {u.SmallAngleSymbol}");
+        Dl(sb, "Datum", TextReportSections.DatumText(r));
         Dl(sb, "Coordinates", c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
         Dl(sb, "Solver", r.SolverName);
         sb.Append("</dl>\n</header>\n");

@@ -16,12 +16,17 @@ internal static class TextReportSections
     /// <summary>The datum: which points are held or weighted, and in which components; wrapped to the width.</summary>
     public static void Datum(StringBuilder sb, AdjustmentResult r, ReportContext c)
     {
+        Wrapped(sb, "Datum     : ", DatumText(r));
+        Wrapped(sb, "Grid      : ", c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs);
+    }
+
+    /// <summary>"held A (en), B (h); weighted C (en)" for the points that define the datum.</summary>
+    public static string DatumText(AdjustmentResult r)
+    {
         var held = r.Points.Where(p => p.Input.Fixed != Fixity.None).Select(p => $"{p.Id} ({JsonResultWriter.FixityText(p.Input.Fixed)})").ToList();
         var weighted = r.Points.Where(p => p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.SdH.HasValue)
             .Select(p => $"{p.Id} ({(p.Input.SdE.HasValue ? "e" : "")}{(p.Input.SdN.HasValue ? "n" : "")}{(p.Input.SdH.HasValue ? "h" : "")})").ToList();
-        Wrapped(sb, "Datum     : ", "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) +
-                                    "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted)));
-        Wrapped(sb, "Grid      : ", c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs);
+        return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 
     /// <summary>The observations with the largest |w| (when the result has standardised residuals).</summary>
