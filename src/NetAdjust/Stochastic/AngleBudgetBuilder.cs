@@ -8,7 +8,7 @@ namespace NetAdjust.Stochastic;
 /// <item>instrument centering: an offset e of the instrument (σ_i per axis) changes β by e·(n_b/D_b − n_f/D_f),
 /// n the unit normals of the sights; by the law of propagation of variances
 /// σ = σ_i·√(D_b² + D_f² − 2 D_b D_f cos β)/(D_b D_f) = σ_i·D₃/(D_b D_f), D₃ the distance between the targets.
-/// The same geometry is given by Ghilani (2010), <i>Adjustment Computations</i>, 5th ed., §6 "instrument centering
+/// The same geometry is given by Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., ch. 6 "instrument centering
 /// errors" (from memory), who writes σ_i/√2 because his σ_i is the radial (two-dimensional) centering error;</item>
 /// <item>target centering: σ_tb/D_b and σ_tf/D_f, independent.</item>
 /// </list>

@@ -7,7 +7,7 @@ namespace NetAdjust.Stochastic;
 /// standard deviation of a direction observed once in both faces, i.e. the mean of two face readings; one face
 /// alone is therefore √2 worse, and n sets are a redundant measurement (E/√n);</item>
 /// <item>instrument centering σ_i/D and target centering σ_t/D (radians): a centering offset across the line of sight
-/// of σ (per axis) turns the direction by σ/D. Ghilani (2010), <i>Adjustment Computations</i>, §6 (from memory).</item>
+/// of σ (per axis) turns the direction by σ/D. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., ch. 6 (from memory).</item>
 /// </list>
 /// </summary>
 public static class DirectionBudgetBuilder

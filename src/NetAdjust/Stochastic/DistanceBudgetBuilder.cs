@@ -5,7 +5,7 @@ namespace NetAdjust.Stochastic;
 /// σ_D = √(a² + (b·D)² + σ_i² + σ_t²), with a the EDM constant part, b the proportional part (ppm × 10⁻⁶),
 /// D the distance, σ_i and σ_t the instrument and target centering errors (per axis: the component along the line).
 /// Each term is an independent error and they combine as an error of a sum. Source: the usual distance budget,
-/// e.g. Ghilani (2010), <i>Adjustment Computations</i>, 5th ed., §6 "errors in distance measurement" (from memory).
+/// e.g. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., ch. 6 "errors in distance measurement" (from memory).
 /// </summary>
 public static class DistanceBudgetBuilder
 {

@@ -5,7 +5,7 @@ namespace NetAdjust.Stochastic;
 /// <summary>
 /// The elementary rules of error propagation for independent random errors, and the general law of propagation
 /// of variances. Each rule is the law Σy = J Σx Jᵀ applied to a simple function; see docs/methods.md
-/// ("Error propagation") and e.g. Ghilani (2010), <i>Adjustment Computations</i>, 5th ed., chapter 6 (from memory),
+/// ("Error propagation") and e.g. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., Wiley, chapter 6 (from memory),
 /// or Koch (1999), <i>Parameter Estimation and Hypothesis Testing in Linear Models</i>, §2.2.
 /// </summary>
 public static class ErrorPropagation
