@@ -315,7 +315,7 @@ public static partial class ProjectReader
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
             : fromSpec ? 1.0 // replaced by the budget's total in FinishSetup
             : defaults.TryGetValue(kind, out double d) ? d
-            : throw ctx.Error(node, item, $"no standard deviation: give 'sd', an 'instrument' for the setup, or a default under default_sd.{kind.Name()}");
+            : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
         return (to, value, sd, $"{ctx.File}:{Line(node)}", fromSpec, target);
     }
 
@@ -339,7 +339,7 @@ public static partial class ProjectReader
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
             : budget is not null ? budget.Total
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
-            : throw ctx.Error(node, item, "no standard deviation: give 'sd', a 'level', or a default under default_sd.height_difference");
+            : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
         var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
         return budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o;
     }
