@@ -73,6 +73,18 @@ public class BudgetCommandTests
     }
 
     [Theory]
+    [InlineData("distance")]
+    [InlineData("direction")]
+    [InlineData("angle")]
+    [InlineData("level")]
+    public void Help_is_available_for_every_budget_kind(string kind)
+    {
+        var (code, output, _) = Run("budget", kind, "--help");
+        Assert.Equal(0, code);
+        Assert.Contains("--units", output);
+    }
+
+    [Theory]
     [InlineData(new[] { "budget", "distance", "--length", "100", "--edm", "3 mm + x ppm" }, "'x' in '3 mm + x ppm' is not a number of ppm")]
     [InlineData(new[] { "budget", "angle", "--direction-sd", "-5" }, "--direction-sd must be positive")]
     [InlineData(new[] { "budget", "distance", "--length", "100", "--edm", "3 mm", "--target-centering", "-2 mm" }, "--target-centering must be zero or positive")]
