@@ -21,6 +21,15 @@ public static partial class ProjectReader
         public Dictionary<string, Point> Points { get; } = new(StringComparer.Ordinal);
 
         public Dictionary<string, int> SetupsPerStation { get; } = new(StringComparer.Ordinal);
+
+        /// <summary>The budget of a height difference from a named level (for CSV rows); throws InvalidInputException.</summary>
+        public ErrorBudget BudgetOfLevel(string id, Length? length, int? setups, int? runs)
+        {
+            var level = Levels.TryGetValue(id, out var spec) ? spec : throw new InvalidInputException($"level '{id}' is not defined under 'levels'");
+            if (level.ReadingSd is not null && setups is null) throw new InvalidInputException($"level {id} is specified per reading: give the section's number of setups");
+            var procedure = new LevellingProcedure(setups ?? 1, runs ?? (level.SdPerKm is not null ? 2 : 1));
+            return HeightDifferenceBudgetBuilder.Build(level, length?.Metres, procedure);
+        }
     }
 
     /// <summary>The instrument, default target and procedure of one setup; Instrument null when the setup names none.</summary>
@@ -235,10 +244,8 @@ public static partial class ProjectReader
             return null;
         }
         string id = ctx.Scalar(ln, item + " level");
-        var level = s.Levels.TryGetValue(id, out var spec) ? spec : throw ctx.Error(ln, item, $"level '{id}' is not defined under 'levels'");
-        if (level.ReadingSd is not null && setups is null) throw ctx.Error(m, item, $"level {id} is specified per reading: give the section's number of 'setups'");
+        if (!s.Levels.ContainsKey(id)) throw ctx.Error(ln, item, $"level '{id}' is not defined under 'levels'");
         // Runs meaned: default 2 for the per-km model (the ISO 17123-2 figure is for a double run), 1 per reading.
-        var procedure = new LevellingProcedure(setups ?? 1, runs ?? (level.SdPerKm is not null ? 2 : 1));
-        return Wrap(ctx, m, item, () => HeightDifferenceBudgetBuilder.Build(level, length?.Metres, procedure));
+        return Wrap(ctx, m, item, () => s.BudgetOfLevel(id, length, setups, runs));
     }
 }

@@ -88,7 +88,7 @@ public static partial class ProjectReader
                 catch (Exception e) when (e is IOException or UnauthorizedAccessException)
                 { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults));
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
             }
         }
 

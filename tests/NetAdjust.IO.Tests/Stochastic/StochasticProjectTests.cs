@@ -105,6 +105,23 @@ public class StochasticProjectTests
         Assert.Equal(0.005, o[3].StandardDeviation, 15);
     }
 
+    [Fact]
+    public void Csv_height_differences_may_name_a_level()
+    {
+        string csv = "kind,from,to,value,length,level,setups,runs\nheight_difference,A,D,1.0,250,ISO,,\nheight_difference,A,D,1.0,,DIGI,5,1\n";
+        var p = ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => f.EndsWith("lev.csv") ? csv : throw new IOException("no"));
+        var o = p.Network.Observations;
+        Assert.Equal(0.0007 * Math.Sqrt(0.25), o[0].StandardDeviation, 15);
+        Assert.Equal(Math.Sqrt(10) * Math.Sqrt((0.0003 * 0.0003) + (0.00005 * 0.00005)), o[1].StandardDeviation, 15);
+        var bad = csv.Replace(",DIGI,5,1", ",DIGI,,1");
+        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => bad));
+        Assert.Contains("lev.csv:3", e.Message);
+        Assert.Contains("number of setups", e.Message);
+        var unknown = csv.Replace(",ISO,", ",NOPE,");
+        e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => unknown));
+        Assert.Contains("level 'NOPE' is not defined", e.Message);
+    }
+
     [Theory]
     [InlineData("  - {id: TS2, direction_sd: 5, edm: 3 mm + x ppm}", "test.yaml:", "'x' in '3 mm + x ppm' is not a number of ppm")]
     [InlineData("  - {id: TS2, direction_sd: -5}", "instrument TS2", "direction_sd must be positive")]
@@ -146,8 +163,10 @@ public class StochasticProjectTests
     {
         string dir = DataDirectory();
         var p = ProjectReader.Read(Path.Combine(dir, "brackenmoor.yaml"));
-        Assert.All(p.Network.Observations.Where(o => o.Kind is ObservationKind.Direction or ObservationKind.Distance or ObservationKind.Angle),
-            o => Assert.NotNull(o.Budget));
+        Assert.All(p.Network.Observations, o => Assert.NotNull(o.Budget));
+        // The level loop (CSV) uses level DL10, 1.0 mm per km double run: section BMK1-BMK2 of 420 m.
+        var first = p.Network.Observations.OfType<HeightDifferenceObservation>().First();
+        Assert.Equal(0.001 * Math.Sqrt(0.42), first.StandardDeviation, 15);
         foreach (var options in new[] { p.Options, p.Options with { WeightModel = SetupCenteringWeightModel.Instance } })
         {
             var r = Adjuster.Adjust(p.Network, options);
