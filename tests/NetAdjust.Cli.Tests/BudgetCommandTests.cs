@@ -99,3 +99,34 @@ public class BudgetCommandTests
         Assert.Contains(message, err);
     }
 }
+
+public class AdjustBudgetReportTests
+{
+    private static string Demo()
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "NetAdjust.sln"))) dir = dir.Parent;
+        return Path.Combine(dir!.FullName, "data", "brackenmoor.yaml");
+    }
+
+    [Fact]
+    public void Demo_report_shows_the_budget_summary_and_on_request_each_observation()
+    {
+        var o = new StringWriter { NewLine = "\n" };
+        int code = Program.Run(["adjust", Demo(), "--date", "2026-12-01", "--budgets"], new CliConsole(o, new StringWriter()));
+        Assert.Equal(0, code);
+        string text = o.ToString();
+        Assert.Contains("ERROR BUDGETS", text);
+        Assert.Contains("ERROR BUDGET PER OBSERVATION", text);
+        // Distance 4 of the demo (BK01→S1, 189.9390 m): 2 mm + 2 ppm, 1 mm + 1 mm centering:
+        // √(2² + 0.379878² + 1² + 1²) mm = 2.4788 mm.
+        Assert.Contains("     4 total 0.0025 = edm_constant 0.0020, edm_proportional 0.0004, instrument_centering 0.0010,", text);
+        var budgetPart = text[text.IndexOf("ERROR BUDGETS", StringComparison.Ordinal)..text.IndexOf("CAUTION", StringComparison.Ordinal)];
+        Assert.All(budgetPart.Split('\n'), l => Assert.True(l.Length <= 100, l));
+
+        var plain = new StringWriter { NewLine = "\n" };
+        Program.Run(["adjust", Demo(), "--date", "2026-12-01"], new CliConsole(plain, new StringWriter()));
+        Assert.Contains("ERROR BUDGETS", plain.ToString());
+        Assert.DoesNotContain("ERROR BUDGET PER OBSERVATION", plain.ToString());
+    }
+}

@@ -41,9 +41,9 @@ internal static class BudgetOutput
         var sdLen = new LengthPattern(u.Length, 4);
         double radPerUnit = u.AngleSd.RadiansPerUnit();
         void Line(string s = "") => sb.Append(s).Append('\n');
-        Line($"ERROR BUDGETS (a-priori sd from instrument, target and procedure specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
+        Line($"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
         Line($"  Weights: {r.Options.WeightModel?.Description ?? "independent observations (diagonal weights)"}");
-        Line("  Per group: root-mean-square of each contribution over the group, and its share of the mean variance.");
+        Line("  Per group: root-mean-square of each contribution, and its share of the group's mean variance.");
         foreach (var kind in ObservationKinds.All)
         {
             var group = withBudget.Where(o => o.Kind == kind).ToList();
@@ -62,6 +62,25 @@ internal static class BudgetOutput
                 Line($"    {name,-24} {Fmt(Math.Sqrt(v)),10} {(meanVar > 0 ? 100 * v / meanVar : 0).ToString("F1", Inv),7} %");
             }
             Line($"    {"total",-24} {Fmt(Math.Sqrt(meanVar)),10} {100.0.ToString("F1", Inv),7} %");
+        }
+        Line();
+        if (!c.ObservationBudgets) return;
+        Line($"ERROR BUDGET PER OBSERVATION (# as in OBSERVATIONS; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
+        foreach (var ao in r.Observations)
+        {
+            var o = ao.Input;
+            if (o.Budget is null) continue;
+            string Fmt(double si) => o.Kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
+            // Wrapped to the report's 100 columns: "   12 total 2.18 = name value, name value, ..."
+            var line = new StringBuilder($"  {ao.Index + 1,4} total {Fmt(o.StandardDeviation)} =");
+            var items = o.Budget.Contributions.Select(x => $"{x.Name} {Fmt(x.Value)}").ToList();
+            for (int k = 0; k < items.Count; k++)
+            {
+                string piece = " " + items[k] + (k < items.Count - 1 ? "," : "");
+                if (line.Length + piece.Length > 100) { Line(line.ToString()); line.Clear().Append(new string(' ', 7)); }
+                line.Append(piece);
+            }
+            Line(line.ToString());
         }
         Line();
     }
