@@ -25,6 +25,7 @@ public static class Program
         var root = new RootCommand("NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal networks, level networks).");
         root.Subcommands.Add(AdjustCommand.Create(console));
         root.Subcommands.Add(CheckCommand.Create(console));
+        root.Subcommands.Add(BudgetCommand.Create(console));
         var parse = root.Parse(args);
         var config = new InvocationConfiguration { Output = console.Out, Error = console.Error, EnableDefaultExceptionHandler = false };
         try
