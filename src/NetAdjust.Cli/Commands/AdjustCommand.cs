@@ -20,10 +20,11 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date,
+            file, json, report, date, budgets,
         };
         exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
@@ -35,7 +36,7 @@ internal static class AdjustCommand
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
             var result = Adjuster.Adjust(project.Network, project.Options);
-            var context = new ReportContext(path, runDate, project.Units) { Crs = project.Crs };
+            var context = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
             exchange.Write(parse, result, context);
