@@ -123,7 +123,7 @@ public sealed class HtmlReportBrowserTests : IDisposable
         string raw = System.Text.Encoding.Latin1.GetString(File.ReadAllBytes(pdf));
         int pages = Regex.Matches(raw, @"/Type\s*/Page(?![a-zA-Z])").Count;
         int sections = Regex.Matches(File.ReadAllText(page), "<section id=").Count;
-        Assert.Equal(7, sections);
+        Assert.True(sections >= 7, $"{sections} sections");
         // Without the print stylesheet's page breaks the demo report prints on about three A4 pages.
         Assert.True(pages >= sections, $"{pages} printed pages for {sections} sections");
     }
