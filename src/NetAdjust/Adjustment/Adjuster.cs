@@ -35,7 +35,9 @@ public static class Adjuster
             diagonal[i] = options.AprioriVarianceFactor / Sq(network.Observations[i].StandardDeviation);
         for (int k = 0; k < control.Count; k++)
             diagonal[network.Observations.Count + k] = options.AprioriVarianceFactor / Sq(control[k].Sd);
-        var weights = WeightMatrix.Diagonal(diagonal);
+        var excluded = Enumerable.Range(0, network.Observations.Count).Where(i => network.Observations[i].Excluded).ToArray();
+        var weights = WeightMatrix.Diagonal(diagonal).Excluding(excluded);
+        n -= excluded.Length; // set-aside observations carry no weight and add no redundancy
 
         int iterations = 0;
         if (u > 0)

@@ -72,6 +72,18 @@ public abstract record Observation
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
 
+    /// <summary>
+    /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but
+    /// is still reported, with its misclosure against the adjusted coordinates. Nothing is deleted from the data.
+    /// </summary>
+    public bool Excluded { get; init; }
+
+    /// <summary>
+    /// The factor (≥ 1 normally; any positive value) by which the user re-weighted this observation's standard
+    /// deviation; <see cref="StandardDeviation"/> already includes it. 1 when not re-weighted. For reports only.
+    /// </summary>
+    public double SdFactor { get; init; } = 1.0;
+
     /// <summary>All points the observation involves, without repeats.</summary>
     public IEnumerable<string> Points => new[] { At, From, To }.OfType<string>().Distinct(StringComparer.Ordinal);
 
