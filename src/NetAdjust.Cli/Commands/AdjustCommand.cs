@@ -20,10 +20,12 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var stats = new StatisticsCliOptions();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date,
         };
+        stats.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
@@ -32,8 +34,7 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
 
-            var result = Adjuster.Adjust(project.Network, project.Options);
-            var context = new ReportContext(path, runDate, project.Units);
+            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units));
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);

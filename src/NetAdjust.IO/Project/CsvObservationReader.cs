@@ -11,7 +11,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 internal static class CsvObservationReader
 {
-    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set"];
+    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set", "exclude", "sd_factor"];
 
     public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
         IReadOnlyDictionary<ObservationKind, double> defaults)
@@ -72,7 +72,7 @@ internal static class CsvObservationReader
                 _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
                     Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
             };
-            result.Add(o);
+            result.Add(ObservationMarks.Apply(o, Get("exclude"), Get("sd_factor"), file, lineNo, item));
         }
         return result;
     }

@@ -13,7 +13,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "statistics"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -59,6 +59,7 @@ public static class ProjectReader
         var lengths = new LengthPattern(units.Length, 4);
         var angles = new AnglePattern(units.Angle, 4);
         var options = ReadOptions(ctx, root, units);
+        options = options with { Analysis = StatisticsSection.Read(root, displayName) };
         var defaults = ReadDefaults(ctx, root, units);
 
         var points = new List<Point>();
@@ -92,6 +93,7 @@ public static class ProjectReader
         }
 
         var network = new SurveyNetwork(name, points, observations);
+        StatisticsSection.CheckPairs(root, displayName, network);
         return new SurveyProject(network, units, options, inputs);
     }
 
@@ -256,28 +258,28 @@ public static class ProjectReader
             foreach (var dn in ctx.Sequence(dirs, item + " directions"))
             {
                 var (to, value, sd, src) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd"], item);
-                output.Add(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
-                { StandardDeviation = sd, Source = src });
+                output.Add(ObservationMarks.Apply(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
+                { StandardDeviation = sd, Source = src }, dn, ctx.File));
             }
         }
         if (ctx.Child(m, "distances") is YamlNode dists)
             foreach (var dn in ctx.Sequence(dists, item + " distances"))
             {
                 var (to, value, sd, src) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd"], item);
-                output.Add(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src });
+                output.Add(ObservationMarks.Apply(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src }, dn, ctx.File));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
             foreach (var an in ctx.Sequence(azs, item + " azimuths"))
             {
                 var (to, value, sd, src) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item);
-                output.Add(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src });
+                output.Add(ObservationMarks.Apply(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src }, an, ctx.File));
             }
         if (ctx.Child(m, "angles") is YamlNode angs)
             foreach (var an in ctx.Sequence(angs, item + " angles"))
             {
                 var (to, value, sd, src) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd"], item);
                 string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
-                output.Add(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src });
+                output.Add(ObservationMarks.Apply(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src }, an, ctx.File));
             }
     }
 
@@ -287,7 +289,7 @@ public static class ProjectReader
         var m = ctx.Mapping(node, $"a {kind.Name()} in the {setupItem}");
         string to = ctx.RequiredString(m, "to", $"a {kind.Name()} in the {setupItem}");
         string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
-        ctx.CheckKeys(m, keys, item);
+        ctx.CheckKeys(m, [.. keys, .. ObservationMarks.Keys], item);
         string value = ctx.RequiredString(m, "value", item);
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
             : defaults.TryGetValue(kind, out double d) ? d
@@ -301,7 +303,7 @@ public static class ProjectReader
         string from = ctx.RequiredString(m, "from", "a levelling section");
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
-        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd"], item);
+        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", .. ObservationMarks.Keys], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
@@ -313,7 +315,7 @@ public static class ProjectReader
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
             : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
-        return new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
+        return ObservationMarks.Apply(new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" }, node, ctx.File);
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>

@@ -97,6 +97,7 @@ public static class TextReportWriter
             Line();
         }
 
+        StatisticsReport.Append(sb, r, c);
         Line(Caution);
         return sb.ToString();
     }

@@ -147,7 +147,9 @@ public static class VarianceComponents
                 aPart = Math.Sqrt(ca.Theta);
                 bPart = Math.Sqrt(cb.Theta) * 1e6;
             }
-            if (r < 1) note = (note is null ? "" : note + "; ") + $"the group's redundancy is only {r.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}: the estimate is weak";
+            if (r < 1) note = (note is null ? "" : note + "; ") + (r > 1e-6
+                ? $"the group's redundancy is only {r.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}: the estimate is weak"
+                : "the group has no redundancy: its variance factor cannot be estimated");
             groups.Add(new VarianceComponent(kind, members.Length, r, vf, Math.Sqrt(vf), same * Math.Sqrt(vf), aPart, bPart, note));
         }
         return new VarianceComponentEstimate(groups, it, converged, result);
