@@ -17,9 +17,11 @@ internal static class SimulatedNetworks
     public sealed record Truth(Dictionary<string, (double E, double N)> Plane, Dictionary<string, double> Height);
 
     /// <summary>A small horizontal network: control A, B; free points P1..Pk placed by the generator.</summary>
-    public static (SurveyNetwork Network, Truth Truth) Horizontal(int seed, int freePoints, double noise = 1.0, bool allPairs = true, double pairProbability = 1.0)
+    public static (SurveyNetwork Network, Truth Truth) Horizontal(int seed, int freePoints, double noise = 1.0, bool allPairs = true,
+        double pairProbability = 1.0, int? noiseSeed = null, double? distanceNoise = null, Func<double, double>? distanceTrueSd = null)
     {
         var rnd = new Random(seed);
+        var noiseRnd = noiseSeed is int ns ? new Random(ns) : rnd;
         var plane = new Dictionary<string, (double E, double N)>(StringComparer.Ordinal)
         {
             ["A"] = (1000.0, 2000.0),
@@ -42,7 +44,7 @@ internal static class SimulatedNetworks
             points.Add(new Point(id) { E = plane[id].E + 0.05, N = plane[id].N - 0.04 });
 
         var obs = new List<Observation>();
-        double Gauss() => Normal.Sample(rnd, 0, 1);
+        double Gauss() => Normal.Sample(noiseRnd, 0, 1);
         foreach (var at in ids)
         {
             double orientation = rnd.NextDouble() * 2 * Math.PI;
@@ -57,7 +59,8 @@ internal static class SimulatedNetworks
                 if (string.CompareOrdinal(at, to) < 0 && !(at == "A" && to == "B"))
                 {
                     double d = Math.Sqrt(Math.Pow(plane[to].E - plane[at].E, 2) + Math.Pow(plane[to].N - plane[at].N, 2));
-                    obs.Add(new DistanceObservation(at, to, Length.FromMetres(d + (noise * DistanceSd * Gauss()))) { StandardDeviation = DistanceSd });
+                    double trueSd = distanceTrueSd?.Invoke(d) ?? ((distanceNoise ?? noise) * DistanceSd);
+                    obs.Add(new DistanceObservation(at, to, Length.FromMetres(d + (trueSd * Gauss()))) { StandardDeviation = DistanceSd });
                 }
             }
         }
