@@ -80,7 +80,9 @@ internal sealed class StatisticsCliOptions
         }
         else result = Adjuster.Adjust(project.Network, options);
 
-        if (robust is RobustMethod m) context = context with { Robust = RobustEstimation.Run(result.Network, m, options) };
+        // The robust run sees the data as given (it is a second opinion beside the hunt); the variance components use
+        // the network after the hunt, so that set-aside blunders do not inflate their group's factor.
+        if (robust is RobustMethod m) context = context with { Robust = RobustEstimation.Run(project.Network, m, options) };
         if (parse.GetValue(_components)) context = context with { Components = VarianceComponents.Estimate(result.Network, options) };
         return (result, context);
     }
