@@ -106,7 +106,9 @@ public static class ResultAnalysis
             if (excluded || !weighted[row])
             {
                 // Standardised misclosure of a set-aside row: the w it would get if put back (diagonal weight).
-                double denom = Math.Sqrt((sd * sd) + (s0sq * AQA(rows[row], rows[row])));
+                // a Qxx aᵀ by a solve: a set-aside row's unknowns need not share any weighted row
+                double aqa = hasFactor ? rows[row].Dot(result.Solve(Dense(rows[row], result.Unknowns.Count))) : 0;
+                double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
                 double? wx = denom > 0 ? v[row] / denom : null;
                 return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null, ObservationFlag.Excluded);
             }
@@ -190,6 +192,13 @@ public static class ResultAnalysis
             if (s > best) { best = s; at = ap.Id; }
         }
         return (best, at);
+    }
+
+    private static double[] Dense(SparseRow a, int size)
+    {
+        var x = new double[size];
+        for (int p = 0; p < a.Columns.Length; p++) x[a.Columns[p]] += a.Values[p];
+        return x;
     }
 
     private static Dictionary<string, (int E, int N, int H)> PointColumns(AdjustmentResult result)
