@@ -44,7 +44,7 @@ internal static class StatisticsReport
         Line($"  Sum of redundancy numbers {F(a.RedundancySum, 3)} (degrees of freedom {r.Statistics.DegreesOfFreedom})");
         Line($"  Residuals and MDB in {lu} or {au}; ext. rel. = largest point shift ({lu}) from an undetected MDB" +
              (a.ExternalReliabilityComputed ? "" : " (not computed)"));
-        Line($"  {"#",4} {"Kind",-9} {"At",-6} {"From",-6} {"To",-6} {"Residual",9} {"r",5} {"w",7} {"tau",7} {"MDB",9} {"Ext.rel.",8} Flag");
+        Line($"  {"#",4} {"Kind",-9} {"At",-6} {"From",-6} {"To",-6} {"Residual",9} {"r",5} {"w",6} {"tau",6} {"MDB",8} {"Ext.rel.",8} Flag");
         int rejected = 0, uncontrolled = 0, weak = 0, excluded = 0;
         foreach (var o in r.Observations)
         {
@@ -67,12 +67,16 @@ internal static class StatisticsReport
             };
             if (i.SdFactor != 1.0) flag += (flag.Length > 0 ? " " : "") + $"sd x{i.SdFactor.ToString("0.###", Inv)}";
             Line($"  {o.Index + 1,4} {Kind(i.Kind),-9} {Clip(i.At ?? "", 6),-6} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {Clip(i.To, 6),-6} " +
-                 $"{Small(i, o.Residual, 9)} {Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2, 5)} {Num(t.W, 2, 7)} {Num(t.Tau, 2, 7)} " +
-                 $"{Small(i, t.Mdb, 9)} {Len(t.ExternalReliability, 8)} {flag}");
+                 $"{Small(i, o.Residual, 9)} {Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2, 5)} {Num(t.W, 2, 6)} {Num(t.Tau, 2, 6)} " +
+                 $"{Small(i, t.Mdb, 8)} {Len(t.ExternalReliability, 8)} {flag}");
         }
         Line($"  Rejected: {rejected}; uncontrolled (r < {F(a.Options.UncontrolledRedundancy, 2)}): {uncontrolled}; " +
              $"weakly controlled (r < {F(a.Options.WeakRedundancy, 2)}): {weak}; set aside: {excluded}");
-        if (excluded > 0) Line("  Set-aside observations carry no weight; their residual is the misclosure against the adjusted coordinates and w its standardised value.");
+        if (excluded > 0)
+        {
+            Line("  Set-aside observations carry no weight: their residual is the misclosure against the adjusted");
+            Line("  coordinates, and w its standardised value.");
+        }
         Line();
 
         if (a.Control.Count > 0)
@@ -88,7 +92,8 @@ internal static class StatisticsReport
         string level = (a.Options.ConfidenceLevel * 100).ToString("0.#", Inv) + "%";
         if (a.Points.Any(p => p.Ellipse is not null || p.SdHeight is not null))
         {
-            Line($"ERROR ELLIPSES ({lu}; azimuth of the semi-major axis in {azUnit} from north; {Basis()})");
+            Line($"ERROR ELLIPSES ({lu}; azimuth of the semi-major axis in {azUnit} from north)");
+            Line($"  {char.ToUpperInvariant(Basis()[0])}{Basis()[1..]}");
             Line($"  Confidence scale for {level}: {F(a.EllipseScale, 4)} " +
                  (a.Basis == VarianceFactorBasis.Known ? "(sqrt of chi-square, 2 dof)" : $"(sqrt(2 F(2, {r.Statistics.DegreesOfFreedom})))") +
                  $"; heights {F(a.IntervalScale, 4)}");
@@ -110,23 +115,27 @@ internal static class StatisticsReport
             foreach (var rel in a.Relative)
                 Line($"  {Clip(rel.From, 8),-8} {Clip(rel.To, 8),-8} {Len(rel.Ellipse.A, 8)} {Len(rel.Ellipse.B, 8)} {Az(rel.Ellipse.Azimuth, 8)} " +
                      $"{Len(rel.Confidence.A, 8)} {Len(rel.Distance, 11)} {Len(rel.SdDistance, 8)} {(double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact"),9} " +
-                     $"{(rel.SdAzimuth / radPerSd).ToString("F2", Inv),7}{(rel.Observed ? "" : "  (listed)")}");
+                     $"{(rel.SdAzimuth / radPerSd).ToString("F2", Inv),7}{(rel.Observed ? "" : " *")}");
+            if (a.Relative.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
             Line();
         }
 
         if (c.Hunt is BlunderHunt h)
         {
             Line("BLUNDER HUNT (iterative data snooping: one observation set aside per round)");
-            Line($"  {"Round",5} {"r",5} {"Var.factor",10} {"Global",7} {"Worst observation",-40} {"Statistic",9} {"Critical",8}  Action");
+            Line($"  {"Round",5} {"r",5} {"Var.factor",10} {"Global",7} {"Worst observation",-34} {"Statistic",9} {"Critical",8}  Action");
             foreach (var round in h.Rounds)
             {
                 string worst = round.WorstIndex is int wi ? $"#{wi + 1} {r.Network.Observations[wi].Describe()}" : "-";
                 Line($"  {round.Round,5} {round.DegreesOfFreedom,5} {Num(round.VarianceFactor, 4, 10)} {(round.GlobalTestPassed is bool g ? (g ? "passed" : "FAILED") : "n/a"),7} " +
-                     $"{Clip(worst, 40),-40} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
+                     $"{Clip(worst, 34),-34} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
             }
             Line($"  Stopped: {h.StopReason}.");
             if (h.SetAside.Count > 0)
-                Line("  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with 'sd_factor') in the project file, or re-measure.");
+            {
+                Line("  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
+                Line("  'sd_factor') in the project file, or re-measure.");
+            }
             Line();
         }
 
@@ -134,7 +143,7 @@ internal static class StatisticsReport
         {
             Line($"ROBUST ESTIMATION ({(rb.Method == RobustMethod.Huber ? "Huber" : "Danish method")}, c = {F(rb.Tuning, 2)}; " +
                  $"{rb.Iterations} re-weightings, {(rb.Converged ? "converged" : "NOT converged")})");
-            Line("  Observations down-weighted (weight factor below 1), with the robust standardised residual |v|/(sd sqrt(r)):");
+            Line("  Observations down-weighted (weight factor below 1), with |u| = |v|/(sd sqrt(r)):");
             int shown = 0;
             for (int i = 0; i < rb.WeightFactors.Count; i++)
             {
@@ -146,13 +155,13 @@ internal static class StatisticsReport
             }
             if (shown == 0) Line("  none");
             Line($"  Suspected blunders (|u| above {F(a.WCritical, 2)}): {(rb.Suspected.Count == 0 ? "none" : string.Join(", ", rb.Suspected.Select(i => "#" + (i + 1))))}");
-            Line("  The robust solution only locates suspects: exclude or re-measure them and run the ordinary adjustment.");
+            Line("  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
             Line();
         }
 
         if (c.Components is VarianceComponentEstimate vc)
         {
-            Line($"VARIANCE COMPONENTS PER OBSERVATION GROUP (Foerstner's iterative estimator; {vc.Iterations} iterations, {(vc.Converged ? "converged" : "NOT converged")})");
+            Line($"VARIANCE COMPONENTS PER OBSERVATION GROUP (Foerstner; {vc.Iterations} iterations, {(vc.Converged ? "converged" : "NOT converged")})");
             Line($"  {"Group",-18} {"n",5} {"Redund.",8} {"Var.factor",10} {"sd scale",9}  Implied specification");
             foreach (var g in vc.Groups)
             {
@@ -161,7 +170,7 @@ internal static class StatisticsReport
                     : g.ScaledSd is double sd && double.IsFinite(sd) ? (g.Kind.IsAngular() ? $"sd {(sd / radPerSd).ToString("0.00", Inv)} {au}" : $"sd {Length.FromMetres(sd).In(u.Length).ToString("0.0000", Inv)} {lu}")
                     : double.IsFinite(g.SdScale) ? $"given sd x {g.SdScale.ToString("0.000", Inv)}" : "not estimable";
                 Line($"  {Kind(g.Kind),-18} {g.Count,5} {Num(g.Redundancy, 2, 8)} {Num(g.VarianceFactor, 3, 10)} {Num(g.SdScale, 3, 9)}  {spec}");
-                if (g.Note is not null) Line($"    note: {g.Note}");
+                if (g.Note is not null) foreach (var part in Wrap("note: " + g.Note, 94)) Line("    " + part);
             }
             Line("  A variance factor of 1 means the group's given standard deviations fit its residuals.");
             Line();
@@ -169,6 +178,18 @@ internal static class StatisticsReport
     }
 
     private static string F(double v, int d) => v.ToString("F" + d, Inv);
+
+    private static IEnumerable<string> Wrap(string text, int width)
+    {
+        var line = new StringBuilder();
+        foreach (var word in text.Split(' '))
+        {
+            if (line.Length > 0 && line.Length + 1 + word.Length > width) { yield return line.ToString(); line.Clear().Append("  "); }
+            if (line.Length > 0 && line.ToString() != "  ") line.Append(' ');
+            line.Append(word);
+        }
+        if (line.Length > 0) yield return line.ToString();
+    }
 
     private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
 

@@ -64,7 +64,13 @@ public static class DataSnooping
             bool canGo = fails && setAside.Count < maxRounds && st.DegreesOfFreedom > 1;
             rounds.Add(new SnoopingRound(rounds.Count + 1, st.DegreesOfFreedom, st.VarianceFactor, st.GlobalTest.Passed,
                 worst, worst is null ? null : worstStat, crit, canGo));
-            if (!fails) { reason = worst is null ? "no observation can be tested" : "no observation fails the test"; break; }
+            if (!fails)
+            {
+                reason = worst is null ? "no observation can be tested"
+                    : double.IsNaN(crit) ? "the tau test needs at least 2 degrees of freedom"
+                    : "no observation fails the test";
+                break;
+            }
             if (setAside.Count >= maxRounds) { reason = $"the round limit ({maxRounds}) was reached with an observation still failing"; break; }
             if (st.DegreesOfFreedom <= 1) { reason = "setting aside another observation would leave no redundancy"; break; }
 
