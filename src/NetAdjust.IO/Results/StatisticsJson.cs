@@ -92,6 +92,20 @@ internal static class StatisticsJson
         }
         w.WriteEndArray();
 
+        w.WriteStartArray("relative_heights");
+        foreach (var rh in a.RelativeHeights)
+        {
+            w.WriteStartObject();
+            w.WriteString("from", rh.From);
+            w.WriteString("to", rh.To);
+            w.WriteNumber("dh", rh.Difference);
+            w.WriteNumber("sd_dh", rh.SdDifference);
+            w.WriteNumber("dh95", rh.Confidence);
+            w.WriteBoolean("observed", rh.Observed);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
         w.WriteStartArray("control_tests");
         foreach (var c in a.Control)
         {

@@ -120,6 +120,16 @@ internal static class StatisticsReport
             Line();
         }
 
+        if (a.RelativeHeights.Count > 0)
+        {
+            Line($"RELATIVE HEIGHT PRECISION ({lu}; standard deviation of the height difference and its {level} half-width)");
+            Line($"  {"From",-10} {"To",-10} {"dH",11} {"sd dH",9} {"dH " + level,9}");
+            foreach (var rh in a.RelativeHeights)
+                Line($"  {Clip(rh.From, 10),-10} {Clip(rh.To, 10),-10} {Len(rh.Difference, 11)} {Len(rh.SdDifference, 9)} {Len(rh.Confidence, 9)}{(rh.Observed ? "" : " *")}");
+            if (a.RelativeHeights.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
+            Line();
+        }
+
         if (c.Hunt is BlunderHunt h)
         {
             Line("BLUNDER HUNT (iterative data snooping: one observation set aside per round)");

@@ -83,6 +83,15 @@ public sealed record RelativePrecision(string From, string To, ErrorEllipse Elli
     public double Ratio => SdDistance > 0 ? Distance / SdDistance : double.PositiveInfinity;
 }
 
+/// <summary>The relative precision of the heights of two points: the standard deviation of H(to) − H(from).</summary>
+/// <param name="From">First point.</param>
+/// <param name="To">Second point.</param>
+/// <param name="Difference">Adjusted height difference H(to) − H(from) (m).</param>
+/// <param name="SdDifference">Its standard deviation (m).</param>
+/// <param name="Confidence">Half-width of its confidence interval (m).</param>
+/// <param name="Observed">True when the pair is joined by a height difference; false when listed by the user.</param>
+public sealed record RelativeHeightPrecision(string From, string To, double Difference, double SdDifference, double Confidence, bool Observed);
+
 /// <summary>
 /// The statistics of one adjustment (see docs/methods.md): observation tests and reliability, absolute and relative
 /// precision. Immutable. Obtain it from <see cref="Adjustment.AdjustmentResult.Analysis"/> or <see cref="ResultAnalysis.Analyse"/>.
@@ -127,6 +136,9 @@ public sealed record NetworkAnalysis
 
     /// <summary>Relative precision of observed pairs (first appearance order) then user-listed pairs.</summary>
     public required IReadOnlyList<RelativePrecision> Relative { get; init; }
+
+    /// <summary>Relative height precision of pairs joined by a height difference (first appearance order) then user-listed pairs with heights.</summary>
+    public IReadOnlyList<RelativeHeightPrecision> RelativeHeights { get; init; } = [];
 
     /// <summary>Σ rᵢ over all weighted rows (equals the degrees of freedom up to rounding).</summary>
     public required double RedundancySum { get; init; }

@@ -158,6 +158,7 @@ public static class ResultAnalysis
         double Qs(int i, int j) => i >= 0 && j >= 0 ? Q(i, j) : 0.0;
 
         var relative = Relative(result, options, vf, kEllipse, pointCols, Q);
+        var relativeHeights = RelativeHeights(result, options, vf, kInterval, pointCols, Q);
 
         double sumR = 0;
         for (int i = 0; i < m; i++) if (weighted[i]) sumR += red[i];
@@ -165,7 +166,8 @@ public static class ResultAnalysis
         {
             Options = options, Basis = basis, VarianceFactor = vf, WCritical = wCrit, Delta0 = delta0, TauCritical = tauCrit,
             EllipseScale = kEllipse, IntervalScale = kInterval, ExternalReliabilityComputed = external,
-            Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RedundancySum = sumR,
+            Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RelativeHeights = relativeHeights,
+            RedundancySum = sumR,
         };
     }
 
@@ -311,6 +313,58 @@ public static class ResultAnalysis
             list.Add(new RelativePrecision(from, to, ell, ell.Scaled(k), d, sdD, sdAz, observed));
         }
         return list;
+    }
+
+    private static List<RelativeHeightPrecision> RelativeHeights(AdjustmentResult result, AnalysisOptions options, double vf, double k,
+        Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
+    {
+        var pairs = new List<(string From, string To, bool Observed)>();
+        var seen = new HashSet<(string, string)>();
+        void Add(string a, string b, bool observed)
+        {
+            var key = string.CompareOrdinal(a, b) < 0 ? (a, b) : (b, a);
+            if (a != b && seen.Add(key)) pairs.Add((a, b, observed));
+        }
+        if (options.RelativeForObservedPairs)
+            foreach (var o in result.Network.Observations)
+                if (o.Kind == ObservationKind.HeightDifference) Add(o.From, o.To, true);
+        foreach (var (a, b) in options.RelativePairs) Add(a, b, false);
+
+        // Pairs joined by a weighted height-difference row have their Qxx entry on the pattern of N.
+        var onPattern = new HashSet<(int, int)>();
+        foreach (var blk in result.Weights.Blocks)
+        {
+            var hs = new List<int>();
+            for (int a = 0; a < blk.Size; a++)
+            {
+                if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
+                hs.AddRange(result.DesignRows[blk.Rows[a]].Columns.Where(c => result.Unknowns.Unknowns[c].Parameter == Parameter.H));
+            }
+            foreach (int x in hs) foreach (int y in hs) onPattern.Add((x, y));
+        }
+        var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
+        var list = new List<RelativeHeightPrecision>();
+        foreach (var (from, to, observed) in pairs)
+        {
+            var pa = byId[from]; var pb = byId[to];
+            if (pa.H is null || pb.H is null || pa.SdH is null || pb.SdH is null) continue;
+            int ia = cols[from].H, ib = cols[to].H;
+            if (ia < 0 && ib < 0) continue;
+            double cross = 0;
+            if (ia >= 0 && ib >= 0)
+                cross = onPattern.Contains((ia, ib)) ? q(ia, ib) : result.Solve(UnitVector(ib, result.Unknowns.Count))[ia];
+            double var = vf * ((ia >= 0 ? q(ia, ia) : 0) + (ib >= 0 ? q(ib, ib) : 0) - (2 * cross));
+            double sd = Math.Sqrt(Math.Max(0, var));
+            list.Add(new RelativeHeightPrecision(from, to, pb.H.Value - pa.H.Value, sd, k * sd, observed));
+        }
+        return list;
+    }
+
+    private static double[] UnitVector(int i, int size)
+    {
+        var e = new double[size];
+        e[i] = 1;
+        return e;
     }
 
     private static double[,] Invert(double[,] a)

@@ -69,3 +69,31 @@ public class CovarianceAccessTests
         Assert.Equal(ObservationFlag.Excluded, again.Analysis.Observations[ex].Flag);
     }
 }
+
+public class RelativeHeightTests
+{
+    [Fact]
+    public void RelativeHeightPrecisionMatchesTheFullCovariance()
+    {
+        // σ²(H_b − H_a) = C_aa + C_bb − 2 C_ab (propagation of variances; Mikhail & Ackermann 1976), against the full
+        // Qxx from MathNet's dense inverse, for observed pairs and for a listed pair computed by solves.
+        var (net, _) = SimulatedNetworks.Levelling(5, 7, 2);
+        var options = AdjustmentOptions.Default with { Analysis = AnalysisOptions.Default with { RelativePairs = [("BM1", "BM6")] } };
+        var res = Adjuster.Adjust(net, options);
+        int m = res.DesignRows.Count, u = res.Unknowns.Count;
+        var A = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(m, u);
+        for (int i = 0; i < m; i++)
+            for (int k = 0; k < res.DesignRows[i].Columns.Length; k++) A[i, res.DesignRows[i].Columns[k]] = res.DesignRows[i].Values[k];
+        var P = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Diagonal(m, m, i => res.Weights.DiagonalEntry(i));
+        var Qxx = (A.Transpose() * P * A).Inverse();
+        Assert.Contains(res.Analysis.RelativeHeights, r => !r.Observed && r.From == "BM1" && r.To == "BM6");
+        Assert.Equal(net.Observations.Select(o => (o.From, o.To)).Distinct().Count() + 1, res.Analysis.RelativeHeights.Count);
+        foreach (var rh in res.Analysis.RelativeHeights)
+        {
+            int a = res.Unknowns.IndexOf(rh.From, Parameter.H), b = res.Unknowns.IndexOf(rh.To, Parameter.H);
+            double C(int i, int j) => i < 0 || j < 0 ? 0 : Qxx[i, j];
+            Assert.Equal(Math.Sqrt(C(a, a) + C(b, b) - (2 * C(a, b))), rh.SdDifference, 12);
+            Assert.Equal(1.959964 * rh.SdDifference, rh.Confidence, 6); // REFERENCES.md §5: z(0.975) = 1.959964
+        }
+    }
+}
