@@ -20,10 +20,11 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var stats = new StatisticsCliOptions();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date,
+            file, json, report, date, budgets,
         };
         stats.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
@@ -34,7 +35,7 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
 
-            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units));
+            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) });
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);

@@ -8,6 +8,9 @@ namespace NetAdjust.IO.Results;
 /// <param name="Units">The units of the text report.</param>
 public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUnits Units)
 {
+    /// <summary>When true, the text report lists every observation's error budget, not only the summary per group.</summary>
+    public bool ObservationBudgets { get; init; }
+
     /// <summary>The blunder hunt that produced the result, when one was run (its log is reported).</summary>
     public NetAdjust.Statistics.BlunderHunt? Hunt { get; init; }
 

@@ -36,7 +36,7 @@ public static class Adjuster
         for (int k = 0; k < control.Count; k++)
             diagonal[network.Observations.Count + k] = options.AprioriVarianceFactor / Sq(control[k].Sd);
         var excluded = Enumerable.Range(0, network.Observations.Count).Where(i => network.Observations[i].Excluded).ToArray();
-        var weights = WeightMatrix.Diagonal(diagonal).Excluding(excluded);
+        var weights = (options.WeightModel?.Build(network, diagonal, options.AprioriVarianceFactor) ?? WeightMatrix.Diagonal(diagonal)).Excluding(excluded);
         n -= excluded.Length; // set-aside observations carry no weight and add no redundancy
 
         int iterations = 0;

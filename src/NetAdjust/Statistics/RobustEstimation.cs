@@ -56,7 +56,7 @@ public static class RobustEstimation
         bool converged = false;
         while (true)
         {
-            var obs = network.Observations.Select((o, i) => f[i] == 1.0 ? o : o with { StandardDeviation = o.StandardDeviation / Math.Sqrt(f[i]) }).ToArray();
+            var obs = network.Observations.Select((o, i) => f[i] == 1.0 ? o : Reweighting.WithSd(o, o.StandardDeviation / Math.Sqrt(f[i]))).ToArray();
             result = Adjuster.Adjust(new SurveyNetwork(network.Name, network.Points, obs), quick);
             if (converged || it >= maxIterations) break;
             it++;

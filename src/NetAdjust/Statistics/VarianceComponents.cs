@@ -102,7 +102,7 @@ public static class VarianceComponents
         while (true)
         {
             var s2 = Variances();
-            var net = new SurveyNetwork(network.Name, network.Points, obs.Select((o, i) => o with { StandardDeviation = Math.Sqrt(s2[i]) }));
+            var net = new SurveyNetwork(network.Name, network.Points, obs.Select((o, i) => Reweighting.WithSd(o, Math.Sqrt(s2[i]))));
             result = Adjuster.Adjust(net, quick);
             if (converged || it >= maxIterations) break;
             it++;
