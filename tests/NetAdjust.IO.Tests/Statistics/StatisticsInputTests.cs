@@ -42,6 +42,33 @@ public class StatisticsInputTests
     }
 
     [Fact]
+    public void SdFactorScalesAnErrorBudgetWithTheStandardDeviation()
+    {
+        // The budget's root-sum-square (error of a sum, docs/methods.md) must stay equal to the σ used.
+        var p = Parse(Head.Replace("points:", """
+            instruments:
+              - {id: TSX, direction_sd: 3, zenith_sd: 3, edm: 2 mm + 2 ppm, centering: 1.0 mm, height: 1.5 mm}
+            points:
+            """) + """
+
+            setups:
+              - at: A
+                instrument: TSX
+                distances:
+                  - {to: B, value: 100.001}
+                  - {to: C, value: 94.340, sd_factor: 3}
+            """);
+        var plain = p.Network.Observations[0];
+        var scaled = p.Network.Observations[1];
+        Assert.NotNull(scaled.Budget);
+        Assert.Equal(scaled.StandardDeviation, scaled.Budget!.Total, 15);
+        double rss = Math.Sqrt(scaled.Budget.Contributions.Sum(c => c.Value * c.Value));
+        Assert.Equal(scaled.StandardDeviation, rss, 15);
+        Assert.Equal(3.0, scaled.SdFactor);
+        Assert.True(scaled.StandardDeviation > 2.9 * plain.StandardDeviation); // about 3× (distances differ by 6 m)
+    }
+
+    [Fact]
     public void ExcludeAndSdFactorAreReadFromCsv()
     {
         var p = Parse(Head + "\nfiles: [obs.csv]\n", """
