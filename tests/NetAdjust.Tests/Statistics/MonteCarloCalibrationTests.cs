@@ -35,6 +35,15 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
         var wSum = new double[nObs]; var wSq = new double[nObs];
         var xSum = new double[q]; var xx = new double[q, q];
         var truthVec = free.SelectMany(id => new[] { truth.Plane[id].E, truth.Plane[id].N }).ToArray();
+        var insideKnown = new int[free.Length]; var insideEstimated = new int[free.Length];
+        var estimatedOptions = options.Analysis with { VarianceFactor = VarianceFactorBasis.Estimated };
+        static bool Inside(ErrorEllipse e, double de, double dn)
+        {
+            // coordinates of the error along the major axis (unit vector (sin θ, cos θ) in E, N) and across it
+            double along = (de * Math.Sin(e.Azimuth)) + (dn * Math.Cos(e.Azimuth));
+            double across = (de * Math.Cos(e.Azimuth)) - (dn * Math.Sin(e.Azimuth));
+            return Math.Pow(along / e.A, 2) + Math.Pow(across / e.B, 2) <= 1;
+        }
         for (int k = 0; k < Realisations; k++)
         {
             var (net, _) = SimulatedNetworks.Horizontal(2026, 3, noise: 1.0, noiseSeed: 10_000 + k);
@@ -44,6 +53,14 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
             var a = res.Analysis;
             for (int i = 0; i < nObs; i++) { double w = a.Observations[i].W!.Value; wSum[i] += w; wSq[i] += w * w; }
             var x = free.SelectMany(id => { var p = res.Points.Single(pp => pp.Id == id); return new[] { p.E!.Value, p.N!.Value }; }).ToArray();
+            var est = ResultAnalysis.Analyse(res, estimatedOptions);
+            for (int f = 0; f < free.Length; f++)
+            {
+                int pi = res.Network.IndexOf(free[f]);
+                double de = x[2 * f] - truthVec[2 * f], dn = x[(2 * f) + 1] - truthVec[(2 * f) + 1];
+                if (Inside(a.Points[pi].Confidence!.Value, de, dn)) insideKnown[f]++;
+                if (Inside(est.Points[pi].Confidence!.Value, de, dn)) insideEstimated[f]++;
+            }
             for (int j = 0; j < q; j++)
             {
                 double dj = x[j] - truthVec[j];
@@ -68,6 +85,17 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
             double sd = Math.Sqrt((wSq[i] - (n * mean * mean)) / (n - 1));
             Assert.InRange(mean, -4.5 / Math.Sqrt(n), 4.5 / Math.Sqrt(n));
             Assert.InRange(sd - 1, -4.5 / Math.Sqrt(2 * n), 4.5 / Math.Sqrt(2 * n));
+        }
+
+        // 95% confidence ellipses contain the true point in 95% of realisations, both with the χ² scale 2.4477 and
+        // σ0² (variance factor known) and with the F scale √(2F(0.95; 2, r)) and σ̂0² (estimated; exact for a linear
+        // model): Hoover 1984; REFERENCES.md §5. Binomial sd √(0.95·0.05/N).
+        double cover = 4.5 * Math.Sqrt(0.95 * 0.05 / n);
+        for (int f = 0; f < free.Length; f++)
+        {
+            output.WriteLine($"{free[f]}: 95% ellipse coverage known {insideKnown[f] / n:F4}, estimated {insideEstimated[f] / n:F4}");
+            Assert.InRange(insideKnown[f] / n - 0.95, -cover, cover);
+            Assert.InRange(insideEstimated[f] / n - 0.95, -cover, cover);
         }
 
         // Coordinates: unbiased (sd of the mean √(c_jj/N)), and the empirical covariance about the truth matches
