@@ -102,6 +102,12 @@ internal static class StatisticsReport
             {
                 if (p.Ellipse is null && p.SdHeight is null) continue;
                 var e = p.Ellipse; var k = p.Confidence;
+                var input = r.Network[p.Id];
+                if ((e is null || input.IsFixed(Fixity.EN)) && (p.SdHeight is null || input.IsFixed(Fixity.H)))
+                {
+                    Line($"  {Clip(p.Id, 12),-12} {"held",9}");
+                    continue;
+                }
                 Line($"  {Clip(p.Id, 12),-12} {Len(e?.A, 9)} {Len(e?.B, 9)} {(e is ErrorEllipse ee ? Az(ee.Azimuth, 8) : "-".PadLeft(8))} " +
                      $"{Len(k?.A, 9)} {Len(k?.B, 9)} {Len(p.SdHeight, 9)} {Len(p.HeightConfidence, 9)}");
             }
