@@ -21,10 +21,12 @@ internal static class AdjustCommand
             HelpName = "YYYY-MM-DD",
         };
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
+        var stats = new StatisticsCliOptions();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date, budgets,
         };
+        stats.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
@@ -33,8 +35,7 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
 
-            var result = Adjuster.Adjust(project.Network, project.Options);
-            var context = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) };
+            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) });
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);

@@ -99,6 +99,7 @@ public static class TextReportWriter
             Line();
         }
 
+        StatisticsReport.Append(sb, r, c);
         Line(Caution);
         return sb.ToString();
     }
