@@ -21,11 +21,13 @@ internal static class AdjustCommand
             HelpName = "YYYY-MM-DD",
         };
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
+        var stats = new StatisticsCliOptions();
         var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date, budgets,
         };
+        stats.AddTo(cmd);
         exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
@@ -35,8 +37,7 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
-            var result = Adjuster.Adjust(project.Network, project.Options);
-            var context = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
+            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs });
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
             exchange.Write(parse, result, context);

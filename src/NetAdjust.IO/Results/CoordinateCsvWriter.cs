@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.IO.Results;
 
@@ -34,12 +35,12 @@ public static class CoordinateCsvWriter
         foreach (var p in result.Points)
         {
             string L(double? metres) => metres is double m && double.IsFinite(m) ? (m / unit.MetresPerUnit).ToString("F" + LengthDecimals, Inv) : "";
-            var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(p);
+            var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(result, p);
             sb.Append(Field(p.Id)).Append(',')
               .Append(L(p.E)).Append(',').Append(L(p.N)).Append(',').Append(L(p.H)).Append(',')
               .Append(L(p.SdE)).Append(',').Append(L(p.SdN)).Append(',').Append(L(p.SdH)).Append(',')
-              .Append(L(el?.SemiMajor)).Append(',').Append(L(el?.SemiMinor)).Append(',')
-              .Append(el is PointEllipse e ? (e.Azimuth * 180.0 / Math.PI).ToString("F" + AzimuthDecimals, Inv) : "").Append(',')
+              .Append(L(el?.A)).Append(',').Append(L(el?.B)).Append(',')
+              .Append(el is ErrorEllipse e ? (e.Azimuth * 180.0 / Math.PI).ToString("F" + AzimuthDecimals, Inv) : "").Append(',')
               .Append(JsonResultWriter.FixityText(p.Input.Fixed)).Append(',')
               .Append((p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : ""))
               .Append('\n');

@@ -2,6 +2,7 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
 using NetAdjust.Network;
 using NetAdjust.Units;
 
@@ -67,7 +68,7 @@ public static class GeoJsonWriter
             {
                 if (!ReportFigures.HasPlan(p)) continue;
                 plan[p.Id] = p;
-                var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(p);
+                var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(result, p);
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
                 j.WriteString("id", "point:" + p.Id);
@@ -85,9 +86,9 @@ public static class GeoJsonWriter
                 NumOrNull(j, "sd_e", p.SdE * k);
                 NumOrNull(j, "sd_n", p.SdN * k);
                 NumOrNull(j, "sd_h", p.SdH * k);
-                NumOrNull(j, "ellipse_a", el?.SemiMajor * k);
-                NumOrNull(j, "ellipse_b", el?.SemiMinor * k);
-                NumOrNull(j, "ellipse_azimuth_deg", el is PointEllipse e1 ? Math.Round(e1.Azimuth * 180 / Math.PI, 4) : null);
+                NumOrNull(j, "ellipse_a", el?.A * k);
+                NumOrNull(j, "ellipse_b", el?.B * k);
+                NumOrNull(j, "ellipse_azimuth_deg", el is ErrorEllipse e1 ? Math.Round(e1.Azimuth * 180 / Math.PI, 4) : null);
                 j.WriteEndObject();
                 j.WriteEndObject();
             }
@@ -124,14 +125,14 @@ public static class GeoJsonWriter
                 j.WriteNumber("residual", Math.Round(o.Residual * rk, ang ? 3 : 6));
                 j.WriteNumber("sd", Math.Round(i.StandardDeviation * rk, ang ? 3 : 6));
                 NumOrNull(j, "w", wi is double x ? Math.Round(x, 3) : null);
-                if (wi is double x2) j.WriteBoolean("w_test_failed", Math.Abs(x2) > ReportFigures.WCritical); else j.WriteNull("w_test_failed");
+                if (wi is double x2) j.WriteBoolean("w_test_failed", Math.Abs(x2) > ReportFigures.WCritical(result)); else j.WriteNull("w_test_failed");
                 j.WriteEndObject();
                 j.WriteEndObject();
             }
 
             foreach (var p in result.Points)
             {
-                if (!ReportFigures.HasPlan(p) || ReportFigures.IsPlanFixed(p) || ReportFigures.Ellipse(p) is not PointEllipse el) continue;
+                if (!ReportFigures.HasPlan(p) || ReportFigures.IsPlanFixed(p) || ReportFigures.Ellipse(result, p) is not ErrorEllipse el) continue;
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
                 j.WriteString("id", "ellipse:" + p.Id);
@@ -152,8 +153,8 @@ public static class GeoJsonWriter
                 j.WriteString("feature", "ellipse");
                 j.WriteString("id", p.Id);
                 j.WriteString("level", "standard (1 sigma)");
-                Num(j, "a", el.SemiMajor * k);
-                Num(j, "b", el.SemiMinor * k);
+                Num(j, "a", el.A * k);
+                Num(j, "b", el.B * k);
                 j.WriteNumber("azimuth_deg", Math.Round(el.Azimuth * 180 / Math.PI, 4));
                 j.WriteEndObject();
                 j.WriteEndObject();
@@ -169,14 +170,14 @@ public static class GeoJsonWriter
     /// parameter t is centre + a cos t · u + b sin t · v, with u the unit vector at the azimuth of a and v at the
     /// azimuth of a − 90° (so that increasing t turns counter-clockwise).
     /// </summary>
-    internal static IEnumerable<(double E, double N)> EllipseRing(double e0, double n0, PointEllipse el, int vertices)
+    internal static IEnumerable<(double E, double N)> EllipseRing(double e0, double n0, ErrorEllipse el, int vertices)
     {
         double ue = Math.Sin(el.Azimuth), un = Math.Cos(el.Azimuth);
         double ve = -un, vn = ue;
         for (int i = 0; i <= vertices; i++)
         {
             double t = 2 * Math.PI * (i % vertices) / vertices;
-            double c = Math.Cos(t) * el.SemiMajor, s = Math.Sin(t) * el.SemiMinor;
+            double c = Math.Cos(t) * el.A, s = Math.Sin(t) * el.B;
             yield return (e0 + (c * ue) + (s * ve), n0 + (c * un) + (s * vn));
         }
     }

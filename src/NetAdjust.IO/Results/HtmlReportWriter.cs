@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Net;
 using System.Text;
 using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
 using NetAdjust.Network;
 
 namespace NetAdjust.IO.Results;
@@ -74,9 +75,9 @@ public static class HtmlReportWriter
         {
             sb.Append("<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
             foreach (var (o, wi) in worst)
-                sb.Append("<tr").Append(Math.Abs(wi) > ReportFigures.WCritical ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
+                sb.Append("<tr").Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
                   .Append(E(o.Input.Describe())).Append("</td><td class=\"num\">").Append(F(wi, 2)).Append("</td><td>")
-                  .Append(Math.Abs(wi) > ReportFigures.WCritical ? "fails" : "passes").Append("</td></tr>\n");
+                  .Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? "fails" : "passes").Append("</td></tr>\n");
             sb.Append("</tbody>\n</table>\n");
         }
         else
@@ -94,8 +95,8 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"residuals\">\n<h2>Standardised residuals</h2>\n");
         var ws = w?.Where(x => x is double d && double.IsFinite(d)).Select(x => x!.Value).ToList();
         if (ws is { Count: > 0 })
-            sb.Append("<figure>\n").Append(Histogram(ws)).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
-              .Append(F(ReportFigures.WCritical, 2)).Append(", the critical value of the w-test (α0 = 0.001).</figcaption>\n</figure>\n");
+            sb.Append("<figure>\n").Append(Histogram(ws, ReportFigures.WCritical(r))).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
+              .Append(F(ReportFigures.WCritical(r), 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
         else
             sb.Append("<p class=\"note\">No standardised residuals are available in this result: the histogram is left out.</p>\n");
         sb.Append("</section>\n");
@@ -107,11 +108,11 @@ public static class HtmlReportWriter
           .Append("<th class=\"num\">sd E</th><th class=\"num\">sd N</th><th class=\"num\">sd H</th><th class=\"num\">a</th><th class=\"num\">b</th><th class=\"num\">Azimuth of a</th></tr></thead>\n<tbody>\n");
         foreach (var p in r.Points)
         {
-            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(p) : null;
+            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(r, p) : null;
             string role = ReportFigures.HasPlan(p) ? ReportFigures.RoleText(ReportFigures.Role(p)) : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
             sb.Append("<tr><td class=\"id\">").Append(E(p.Id)).Append("</td><td>").Append(role).Append("</td>");
             foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(p.SdE), u.SmallLength(p.SdN), u.SmallLength(p.SdH),
-                                      u.SmallLength(el?.SemiMajor), u.SmallLength(el?.SemiMinor), el is PointEllipse e ? u.Azimuth(e.Azimuth) : "-" })
+                                      u.SmallLength(el?.A), u.SmallLength(el?.B), el is ErrorEllipse e ? u.Azimuth(e.Azimuth) : "-" })
                 sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
             sb.Append("</tr>\n");
         }
@@ -121,22 +122,23 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"observations\">\n<h2>Observations</h2>\n<p>Residual v = adjusted − observed. Lengths in ").Append(u.LengthSymbol)
           .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
           .Append("<table>\n<thead><tr><th class=\"num\">#</th><th>Kind</th><th>At</th><th>From</th><th>To</th><th class=\"num\">Observed</th><th class=\"num\">Adjusted</th>")
-          .Append("<th class=\"num\">Residual</th><th class=\"num\">sd</th><th class=\"num\">w</th><th>Source</th></tr></thead>\n<tbody>\n");
+          .Append("<th class=\"num\">Residual</th><th class=\"num\">sd</th><th class=\"num\">w</th><th>Flag</th><th>Source</th></tr></thead>\n<tbody>\n");
         foreach (var o in r.Observations)
         {
             var i = o.Input;
             double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical;
+            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(r);
             sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(i.Kind.Name().Replace('_', ' ')))
               .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
               .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
             foreach (var v in new[] { u.ObservationValue(i.Kind, i.Value), u.ObservationValue(i.Kind, o.Adjusted), u.ObservationSmall(i.Kind, o.Residual),
                                       u.ObservationSmall(i.Kind, i.StandardDeviation), wi is double wv ? F(wv, 2) + (failed ? " ✗" : "") : "-" })
                 sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
-            sb.Append("<td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
+            string flag = o.Index < r.Analysis.Observations.Count ? r.Analysis.Observations[o.Index].Flag.Name() ?? "" : "";
+            sb.Append("<td>").Append(E(flag)).Append("</td><td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
-        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(ReportFigures.WCritical, 2)).Append(").</p>\n");
+        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(ReportFigures.WCritical(r), 2)).Append(").</p>\n");
         sb.Append("</section>\n");
 
         var budgets = new StringBuilder();
@@ -163,7 +165,7 @@ public static class HtmlReportWriter
     /// An SVG histogram of w as a density (bar area = share of observations) with the standard normal density
     /// φ(x) = exp(−x²/2)/√(2π) drawn over it, and the critical values of the w-test marked.
     /// </summary>
-    internal static string Histogram(IReadOnlyList<double> w)
+    internal static string Histogram(IReadOnlyList<double> w, double critical)
     {
         const double width = 720, height = 320, x0 = 56, x1 = 700, y0 = 20, y1 = 280, bin = 0.5;
         double lim = Math.Max(4.0, Math.Ceiling(w.Max(Math.Abs) / bin) * bin);
@@ -200,7 +202,7 @@ public static class HtmlReportWriter
             curve.Append(i == 0 ? "" : " ").Append(N(X(v))).Append(',').Append(N(Y(phi)));
         }
         sb.Append("<polyline class=\"normal-curve\" points=\"").Append(curve).Append("\" fill=\"none\" stroke=\"").Append(NetworkPlotWriter.FailColour).Append("\" stroke-width=\"2\"/>\n");
-        foreach (double c in new[] { -ReportFigures.WCritical, ReportFigures.WCritical })
+        foreach (double c in new[] { -critical, critical })
             sb.Append("<line class=\"critical\" x1=\"").Append(N(X(c))).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(X(c))).Append("\" y2=\"").Append(N(y1))
               .Append("\" stroke=\"#111111\" stroke-dasharray=\"5 4\"/>\n");
         sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y1)).Append("\" x2=\"").Append(N(x1)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");

@@ -80,6 +80,7 @@ public static class JsonResultWriter
             NumberOrNull(w, "sd_n", p.SdN);
             NumberOrNull(w, "sd_h", p.SdH);
             NumberOrNull(w, "cov_en", p.CovEN);
+            StatisticsJson.WritePoint(w, r, p);
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -104,6 +105,7 @@ public static class JsonResultWriter
             BudgetOutput.WriteComponents(w, i, k);
             w.WriteNumber("sd_adjusted", o.SdAdjusted * k);
             if (i.Source is not null) w.WriteString("source", i.Source);
+            StatisticsJson.WriteObservation(w, r, o);
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -119,6 +121,7 @@ public static class JsonResultWriter
             w.WriteEndObject();
         }
         w.WriteEndArray();
+        StatisticsJson.WriteSections(w, r, context);
     }
 
     internal static string FixityText(Fixity f) =>

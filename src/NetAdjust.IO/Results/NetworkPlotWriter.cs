@@ -66,9 +66,9 @@ public static class NetworkPlotWriter
 
         // Ellipse magnification: a "nice" factor (1, 2, 5 × 10^k) making the largest ellipse about 40 px long.
         var ellipses = pts.Where(p => !ReportFigures.IsPlanFixed(p))
-            .Select(p => (Point: p, El: ReportFigures.Ellipse(p)))
+            .Select(p => (Point: p, El: ReportFigures.Ellipse(result, p)))
             .Where(t => t.El is not null).Select(t => (t.Point, El: t.El!.Value)).ToList();
-        double aMax = ellipses.Count > 0 ? ellipses.Max(t => t.El.SemiMajor) : 0;
+        double aMax = ellipses.Count > 0 ? ellipses.Max(t => t.El.A) : 0;
         double mag = aMax > 0 ? NiceDown(40.0 / (aMax * scale)) : 1.0;
         if (mag < 1) mag = 1;
 
@@ -81,7 +81,7 @@ public static class NetworkPlotWriter
             var i = o.Input;
             var segs = i.Kind == ObservationKind.Angle ? new[] { (i.At!, i.From), (i.At!, i.To) } : new[] { (i.From, i.To) };
             double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical;
+            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(result);
             foreach (var (a, b) in segs)
             {
                 if (!planIds.TryGetValue(a, out var pa) || !planIds.TryGetValue(b, out var pb)) continue;
@@ -104,9 +104,9 @@ public static class NetworkPlotWriter
             double x = X(p.E!.Value), y = Y(p.N!.Value);
             double rot = (el.Azimuth * 180 / Math.PI) - 90;
             sb.Append("<ellipse class=\"ellipse\" data-point=\"").Append(E(p.Id)).Append("\" cx=\"").Append(N(x)).Append("\" cy=\"").Append(N(y))
-              .Append("\" rx=\"").Append(N(el.SemiMajor * mag * scale)).Append("\" ry=\"").Append(N(el.SemiMinor * mag * scale))
+              .Append("\" rx=\"").Append(N(el.A * mag * scale)).Append("\" ry=\"").Append(N(el.B * mag * scale))
               .Append("\" transform=\"rotate(").Append(N(rot)).Append(' ').Append(N(x)).Append(' ').Append(N(y)).Append(")\"><title>")
-              .Append(E($"{p.Id}: a = {units.SmallLength(el.SemiMajor)} {units.LengthSymbol}, b = {units.SmallLength(el.SemiMinor)} {units.LengthSymbol}, azimuth of a {units.Azimuth(el.Azimuth)}"))
+              .Append(E($"{p.Id}: a = {units.SmallLength(el.A)} {units.LengthSymbol}, b = {units.SmallLength(el.B)} {units.LengthSymbol}, azimuth of a {units.Azimuth(el.Azimuth)}"))
               .Append("</title></ellipse>\n");
         }
         sb.Append("</g>\n");
@@ -144,7 +144,7 @@ public static class NetworkPlotWriter
         Row($"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" stroke=\"{LineColour}\" stroke-width=\"1.2\"/>", "observation");
         if (w is not null)
             Row($"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" stroke=\"{FailColour}\" stroke-width=\"3\" stroke-dasharray=\"8 4\"/>",
-                $"fails the w-test (|w| > {ReportFigures.WCritical.ToString("F2", Inv)})");
+                $"fails the w-test (|w| > {ReportFigures.WCritical(result).ToString("F2", Inv)})");
         else
             Row("", "w-test: not available");
         Row($"<ellipse cx=\"{N(lx + 9)}\" cy=\"{N(ly + 26)}\" rx=\"9\" ry=\"5\" fill=\"none\" stroke=\"{EllipseColour}\" stroke-width=\"1.8\"/>", "standard error ellipse (1σ)");

@@ -1,59 +1,35 @@
 using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.IO.Results;
 
-/// <summary>The standard (1σ) absolute error ellipse of one point, in SI units.</summary>
-/// <param name="SemiMajor">Semi-major axis a, m.</param>
-/// <param name="SemiMinor">Semi-minor axis b, m (0 ≤ b ≤ a).</param>
-/// <param name="Azimuth">Azimuth of the semi-major axis, clockwise from grid north, rad in [0, π).</param>
-internal readonly record struct PointEllipse(double SemiMajor, double SemiMinor, double Azimuth);
-
 /// <summary>
-/// The figures the writers take from a result beyond its coordinates: error ellipses and standardised residuals.
+/// What the report and exchange writers take from a result beyond its coordinates, all from the shared statistics
+/// (<see cref="AdjustmentResult.Analysis"/>), so that every output shows the same numbers: the error ellipses, the
+/// standardised residuals w and the w-test critical value; plus the roles of the points.
 /// </summary>
-/// <remarks>
-/// TO BE REPLACED ON MERGE: the statistics work (issue 4) adds shared public types for error ellipses and
-/// per-observation w-values to the result. When it lands in main, <see cref="Ellipse"/> and
-/// <see cref="StandardisedResiduals"/> must delegate to those types, so that every report shows the same numbers.
-/// </remarks>
 internal static class ReportFigures
 {
     /// <summary>
-    /// The standard error ellipse from the point's covariance matrix [σE² σEN; σEN σN²] (eigenvalues of a
-    /// symmetric 2×2 matrix in closed form): a² , b² = (σE² + σN²)/2 ± √(((σN² − σE²)/2)² + σEN²), and the azimuth
-    /// of a is θ = ½ atan2(2σEN, σN² − σE²) (Mikhail &amp; Ackermann 1976, error ellipses; from memory: the
-    /// tests check it against an independent eigen-decomposition). Null when the point has no plan position or
-    /// no adjusted plan coordinates.
-    /// </summary>
-    /// <param name="p">The adjusted point.</param>
-    public static PointEllipse? Ellipse(AdjustedPoint p)
-    {
-        if (p.SdE is not double se || p.SdN is not double sn || p.E is null || p.N is null) return null;
-        double cov = p.CovEN ?? 0.0;
-        double qe = se * se, qn = sn * sn;
-        double mean = 0.5 * (qe + qn);
-        double half = 0.5 * (qn - qe);
-        double root = Math.Sqrt((half * half) + (cov * cov));
-        double a2 = mean + root, b2 = Math.Max(0.0, mean - root);
-        double az = 0.5 * Math.Atan2(2 * cov, qn - qe);
-        if (az < 0) az += Math.PI;
-        if (az >= Math.PI) az -= Math.PI;
-        return new PointEllipse(Math.Sqrt(a2), Math.Sqrt(b2), az);
-    }
-
-    /// <summary>
-    /// Standardised residuals w per observation (in result order), or null when the result carries none.
-    /// The foundation result has none yet: reports then leave out the histogram and the highlighting.
+    /// The point's standard error ellipse from the statistics (at the variance factor the analysis uses, the a-priori
+    /// σ0² unless the project asks for the estimated one); null when the point has no plan position or is held in plan.
     /// </summary>
     /// <param name="r">The result.</param>
-    public static IReadOnlyList<double?>? StandardisedResiduals(AdjustmentResult r)
-    {
-        _ = r;
-        return null;
-    }
+    /// <param name="p">One of its points.</param>
+    public static ErrorEllipse? Ellipse(AdjustmentResult r, AdjustedPoint p) =>
+        !HasPlan(p) || IsPlanFixed(p) ? null : r.Analysis.Points[r.Network.IndexOf(p.Id)].Ellipse;
 
-    /// <summary>The critical value of the w-test used for highlighting: 3.29, α0 = 0.001 two-sided (Baarda 1968).</summary>
-    public const double WCritical = 3.29;
+    /// <summary>
+    /// Standardised residuals w per observation (in result order) from the statistics; null for observations that
+    /// cannot be tested (uncontrolled) and for those set aside (their w is a misclosure, not a residual).
+    /// </summary>
+    /// <param name="r">The result.</param>
+    public static IReadOnlyList<double?> StandardisedResiduals(AdjustmentResult r) =>
+        r.Analysis.Observations.Select(t => t.Flag == ObservationFlag.Excluded ? null : t.W).ToList();
+
+    /// <summary>The critical value of the w-test, z(1 − α0/2) (Baarda 1968; 3.29 for α0 = 0.001).</summary>
+    /// <param name="r">The result.</param>
+    public static double WCritical(AdjustmentResult r) => r.Analysis.WCritical;
 
     /// <summary>True when the point is held fixed in both plan coordinates.</summary>
     /// <param name="p">The point.</param>

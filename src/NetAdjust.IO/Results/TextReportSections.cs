@@ -5,8 +5,8 @@ using NetAdjust.Network;
 namespace NetAdjust.IO.Results;
 
 /// <summary>
-/// Sections of the text report kept apart from <see cref="TextReportWriter"/>: the datum line, the largest
-/// standardised residuals and the error-ellipse table. Every line stays within 100 columns.
+/// Sections of the text report kept apart from <see cref="TextReportWriter"/>: the datum line and the largest
+/// standardised residuals in the summary. Every line stays within 100 columns.
 /// </summary>
 internal static class TextReportSections
 {
@@ -39,30 +39,12 @@ internal static class TextReportSections
             sb.Append("  Largest standardised residuals: not available in this result\n");
             return;
         }
-        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical, 2)).Append("):\n");
+        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical(r), 2)).Append("):\n");
         foreach (var (o, wi) in worst)
         {
-            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical ? "FAILS" : "passes")}  {o.Input.Describe()}";
+            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical(r) ? "FAILS" : "passes")}  {o.Input.Describe()}";
             sb.Append(Clip(line, MaxWidth)).Append('\n');
         }
-    }
-
-    /// <summary>The standard error ellipses of the points that are not held in plan.</summary>
-    public static void Ellipses(StringBuilder sb, AdjustmentResult r, ReportContext c)
-    {
-        var u = new ReportUnits(c.Units);
-        var rows = r.Points.Where(p => ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p))
-            .Select(p => (p, ReportFigures.Ellipse(p))).Where(t => t.Item2 is not null).ToList();
-        if (rows.Count == 0) return;
-        sb.Append("STANDARD ERROR ELLIPSES (1 sigma, a-priori variance factor; a, b in ").Append(u.LengthSymbol)
-          .Append("; azimuth from grid north)\n");
-        sb.Append($"  {"Point",-12} {"a",10} {"b",10} {"Azimuth of a",14}  Role\n");
-        foreach (var (p, el) in rows)
-        {
-            var e = el!.Value;
-            sb.Append($"  {Clip(p.Id, 12),-12} {u.SmallLength(e.SemiMajor),10} {u.SmallLength(e.SemiMinor),10} {u.Azimuth(e.Azimuth),14}  {ReportFigures.RoleText(ReportFigures.Role(p))}\n");
-        }
-        sb.Append('\n');
     }
 
     /// <summary>Writes label + text, wrapping at spaces so no line passes <see cref="MaxWidth"/>; continuation lines are indented.</summary>

@@ -76,7 +76,6 @@ public static class TextReportWriter
             Line($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} {E(p.SdE, sdLen, 8)} {E(p.SdN, sdLen, 8)} {E(p.SdH, sdLen, 8)}  {role}".TrimEnd());
         }
         Line();
-        TextReportSections.Ellipses(sb, r, c);
 
         Line($"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {AngleName(u.Angle)}, angular sd {au})");
         Line($"  {"#",4} {"Kind",-9} {"At",-8} {"From",-8} {"To",-8} {"Observed",14} {"Adjusted",14} {"Residual",9} {"sd",7}");
@@ -102,6 +101,7 @@ public static class TextReportWriter
             Line();
         }
 
+        StatisticsReport.Append(sb, r, c);
         Line(Caution);
         return sb.ToString();
     }

@@ -43,8 +43,9 @@ public class CoordinateCsvTests
             }
             Check($"easting_{u}", p.E); Check($"northing_{u}", p.N); Check($"height_{u}", p.H);
             Check($"sd_e_{u}", p.SdE); Check($"sd_n_{u}", p.SdN); Check($"sd_h_{u}", p.SdH);
-            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(p) : null;
-            Check($"ellipse_a_{u}", el?.SemiMajor); Check($"ellipse_b_{u}", el?.SemiMinor);
+            // The ellipse columns carry the statistics' ellipse (the shared NetAdjust.Statistics.ErrorEllipse).
+            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? r.Analysis.Points[row - 1].Ellipse : null;
+            Check($"ellipse_a_{u}", el?.A); Check($"ellipse_b_{u}", el?.B);
             string az = fields["ellipse_azimuth_deg"];
             if (el is null) Assert.Equal("", az);
             else Assert.Equal(el.Value.Azimuth * 180 / Math.PI, double.Parse(az, CultureInfo.InvariantCulture), tolA);
@@ -180,9 +181,9 @@ public class GeoJsonTests
             for (int i = 0; i + 1 < ring.Count; i++) area += (ring[i].E * ring[i + 1].N) - (ring[i + 1].E * ring[i].N);
             area *= 0.5;
             var p = r.Points.Single(x => x.Id == f.GetProperty("properties").GetProperty("id").GetString());
-            var el = ReportFigures.Ellipse(p)!.Value;
+            var el = ReportFigures.Ellipse(r, p)!.Value;
             double n = GeoJsonWriter.EllipseVertices, t = 2 * Math.PI / n;
-            double expected = Math.PI * el.SemiMajor * el.SemiMinor * Math.Sin(t) / t;
+            double expected = Math.PI * el.A * el.B * Math.Sin(t) / t;
             Assert.True(area > 0, "ring must be counter-clockwise");
             Assert.Equal(expected, area, expected * 2e-3); // coordinates are rounded to 1 µm
         }
