@@ -58,7 +58,7 @@ public static class GeoJsonWriter
             j.WriteString("coordinates", context.Crs is null ? "local" : context.Crs);
             j.WriteString("axis_order", "easting, northing, height");
             j.WriteString("length_unit", unit.Symbol);
-            j.WriteString("ellipses", "standard (1 sigma) absolute error ellipses at true size, at the a-priori variance factor");
+            j.WriteString("ellipses", "standard (1 sigma) absolute error ellipses at true size, at " + ReportFigures.EllipseBasis(result));
             j.WriteString("residual_units", "m for lengths, arcsec for angles");
             j.WriteEndObject();
 

@@ -87,7 +87,7 @@ public static class HtmlReportWriter
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
           .Append(NetworkPlotWriter.Render(r, c, w))
-          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at the a-priori variance factor, magnified as stated in the legend.")
+          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append(", magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
           .Append("</figcaption>\n</figure>\n</section>\n");
 
@@ -103,7 +103,7 @@ public static class HtmlReportWriter
 
         // Coordinates.
         sb.Append("<section id=\"coordinates\">\n<h2>Adjusted coordinates</h2>\n<p>Lengths in ").Append(u.LengthSymbol)
-          .Append("; standard deviations and standard (1σ) error ellipses at the a-priori variance factor; azimuth of the semi-major axis from grid north.</p>\n")
+          .Append("; standard deviations at the a-priori variance factor; standard (1σ) error ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append("; azimuth of the semi-major axis from grid north.</p>\n")
           .Append("<table>\n<thead><tr><th>Point</th><th>Role</th><th class=\"num\">Easting</th><th class=\"num\">Northing</th><th class=\"num\">Height</th>")
           .Append("<th class=\"num\">sd E</th><th class=\"num\">sd N</th><th class=\"num\">sd H</th><th class=\"num\">a</th><th class=\"num\">b</th><th class=\"num\">Azimuth of a</th></tr></thead>\n<tbody>\n");
         foreach (var p in r.Points)
