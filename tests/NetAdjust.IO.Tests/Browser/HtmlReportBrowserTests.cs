@@ -127,4 +127,26 @@ public sealed class HtmlReportBrowserTests : IDisposable
         // Without the print stylesheet's page breaks the demo report prints on about three A4 pages.
         Assert.True(pages >= sections, $"{pages} printed pages for {sections} sections");
     }
+
+    [ChromiumFact]
+    public void BlunderDemoHighlightsTheObservationsFailingTheWTest()
+    {
+        // data/harrowfield-blunder.yaml (invented demo) carries a simulated blunder: the statistics reject it.
+        var project = NetAdjust.IO.Project.ProjectReader.Read(Path.Combine(TestProjects.RepoRoot, "data", "harrowfield-blunder.yaml"));
+        var r = NetAdjust.Adjustment.Adjuster.Adjust(project.Network, project.Options);
+        var c = new ReportContext("data/harrowfield-blunder.yaml", TestProjects.RunDate, project.Units);
+        var failing = r.Analysis.Observations.Where(t => t.WPassed == false && t.Flag != NetAdjust.Statistics.ObservationFlag.Excluded)
+            .Select(t => (t.Index + 1).ToString(System.Globalization.CultureInfo.InvariantCulture)).ToList();
+        Assert.NotEmpty(failing);
+        string path = Path.Combine(_dir, "blunder.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(r, c));
+        var run = Chromium.Open(path, "--dump-dom");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        var observations = Regex.Match(dom, "<section id=\"observations\">.*?</section>", RegexOptions.Singleline).Value;
+        Assert.Equal(failing, Regex.Matches(observations, "<tr class=\"fail\"><td class=\"num\">(\\d+)</td>").Select(m => m.Groups[1].Value));
+        var highlighted = Regex.Matches(dom, "<line class=\"obs obs-fail\"[^>]*><title>#(\\d+) ").Select(m => m.Groups[1].Value).Distinct().ToList();
+        Assert.Equal(failing, highlighted);
+        Assert.Contains("class=\"histogram\"", dom);
+    }
 }
