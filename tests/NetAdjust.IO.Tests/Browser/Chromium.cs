@@ -17,8 +17,9 @@ internal static class Chromium
 
     private static string? Find()
     {
+        // NETADJUST_CHROMIUM names the browser to use; a path that does not exist means "no browser" (to check the skip rule).
         string? env = Environment.GetEnvironmentVariable("NETADJUST_CHROMIUM");
-        if (!string.IsNullOrEmpty(env) && File.Exists(env)) return env;
+        if (!string.IsNullOrEmpty(env)) return File.Exists(env) ? env : null;
         foreach (var dir in (Environment.GetEnvironmentVariable("PATH") ?? "").Split(Path.PathSeparator).Append("/usr/bin"))
             foreach (var name in new[] { "chromium", "chromium-browser" })
             {
