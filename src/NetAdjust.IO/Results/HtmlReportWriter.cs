@@ -81,7 +81,7 @@ public static class HtmlReportWriter
             sb.Append("</tbody>\n</table>\n");
         }
         else
-            sb.Append("<p class=\"note\">Standardised residuals (w-test) are not available in this result.</p>\n");
+            sb.Append("<p class=\"note\">No observation can be tested (no redundancy, or none controlled): there are no standardised residuals.</p>\n");
         sb.Append("</section>\n");
 
         // Plot.
@@ -98,7 +98,7 @@ public static class HtmlReportWriter
             sb.Append("<figure>\n").Append(Histogram(ws, ReportFigures.WCritical(r))).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
               .Append(F(ReportFigures.WCritical(r), 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
         else
-            sb.Append("<p class=\"note\">No standardised residuals are available in this result: the histogram is left out.</p>\n");
+            sb.Append("<p class=\"note\">No standardised residuals are available (no observation can be tested): the histogram is left out.</p>\n");
         sb.Append("</section>\n");
 
         // Coordinates.

@@ -36,7 +36,7 @@ internal static class TextReportSections
         var worst = ReportFigures.Worst(r, w, count);
         if (worst.Count == 0)
         {
-            sb.Append("  Largest standardised residuals: not available in this result\n");
+            sb.Append("  Largest standardised residuals: none (no observation can be tested)\n");
             return;
         }
         sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical(r), 2)).Append("):\n");
