@@ -156,6 +156,14 @@ public static class HtmlReportWriter
             sb.Append("</tbody>\n</table>\n</section>\n");
         }
 
+        var statistics = new StringBuilder();
+        StatisticsReport.Append(statistics, r, c);
+        if (statistics.ToString().Trim().Length > 0)
+            sb.Append("<section id=\"statistics\">\n<h2>Tests, reliability and precision</h2>\n")
+              .Append("<p>The statistics sections of the text report: tests of the observations (redundancy numbers, w, tau, MDB, external reliability), ")
+              .Append("tests of weighted control, standard and 95% error ellipses, relative precision, and the blunder hunt, robust estimation and variance components when run.</p>\n")
+              .Append("<pre class=\"budget\">").Append(E(statistics.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+
         sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n</section>\n");
         sb.Append("<footer>Report written by NetAdjust on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
         return sb.ToString();
