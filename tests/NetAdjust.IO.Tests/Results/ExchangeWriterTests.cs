@@ -123,6 +123,7 @@ public class LandXmlTests
         var root = XDocument.Parse(LandXmlWriter.Write(r, c)).Root!;
         var imp = Assert.Single(root.Element(Ns + "Units")!.Elements());
         Assert.Equal(Ns + "Imperial", imp.Name);
+        // LandXML-1.2.xsd imperial linear units include "foot" and "USSurveyFoot" (from memory of the schema's enumeration).
         Assert.Equal("foot", (string?)imp.Attribute("linearUnit"));
         var cs = root.Element(Ns + "CoordinateSystem")!;
         Assert.Equal("27700", (string?)cs.Attribute("epsgCode"));
