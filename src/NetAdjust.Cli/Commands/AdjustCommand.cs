@@ -20,24 +20,29 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress on standard error (progress is shown only for runs longer than a second)." };
+        var stats = new StatisticsCliOptions();
+        var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date, quiet,
+            file, json, report, date, budgets, quiet,
         };
+        stats.AddTo(cmd);
+        exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
             string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
             var runDate = ParseDate(parse.GetValue(date));
             var project = ProjectReader.Read(path);
-            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
+            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
-            var options = parse.GetValue(quiet) ? project.Options : project.Options with { Progress = new ProgressPrinter(console.Error) };
-            var result = Adjuster.Adjust(project.Network, options);
-            var context = new ReportContext(path, runDate, project.Units);
+            if (!parse.GetValue(quiet)) project = project with { Options = project.Options with { Progress = new ProgressPrinter(console.Error) } };
+            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs });
             string text = TextReportWriter.Write(result, context);
             if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
+            exchange.Write(parse, result, context);
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
             else console.Out.Write(text);
             return ExitCodes.Success;

@@ -80,6 +80,7 @@ public static class JsonResultWriter
             NumberOrNull(w, "sd_n", p.SdN);
             NumberOrNull(w, "sd_h", p.SdH);
             NumberOrNull(w, "cov_en", p.CovEN);
+            StatisticsJson.WritePoint(w, r, p);
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -101,8 +102,10 @@ public static class JsonResultWriter
             w.WriteNumber("adjusted", ang ? Angle.FromRadians(o.Adjusted).Degrees : o.Adjusted);
             w.WriteNumber("residual", o.Residual * k);
             w.WriteNumber("sd", i.StandardDeviation * k);
+            BudgetOutput.WriteComponents(w, i, k);
             w.WriteNumber("sd_adjusted", o.SdAdjusted * k);
             if (i.Source is not null) w.WriteString("source", i.Source);
+            StatisticsJson.WriteObservation(w, r, o);
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -118,6 +121,7 @@ public static class JsonResultWriter
             w.WriteEndObject();
         }
         w.WriteEndArray();
+        StatisticsJson.WriteSections(w, r, context);
     }
 
     internal static string FixityText(Fixity f) =>

@@ -21,8 +21,17 @@ public sealed record AdjustmentOptions
     /// <summary>Significance level α of the two-tailed global test, in (0, 1). Default 0.05.</summary>
     public double GlobalTestAlpha { get; init; } = 0.05;
 
+    /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <see cref="AdjustmentResult.Analysis"/>.</summary>
+    public Statistics.AnalysisOptions Analysis { get; init; } = Statistics.AnalysisOptions.Default;
+
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
+
+    /// <summary>
+    /// Builds the weight matrix; null for diagonal weights σ0²/σᵢ². <see cref="Stochastic.SetupCenteringWeightModel"/>
+    /// correlates the observations of one setup through the instrument's centering error.
+    /// </summary>
+    public IWeightModel? WeightModel { get; init; }
 
     /// <summary>Receives progress reports (phase and percent) during the adjustment; null for none. Called on the adjusting thread.</summary>
     public IProgress<AdjustmentProgress>? Progress { get; init; }
@@ -36,5 +45,6 @@ public sealed record AdjustmentOptions
         if (!(AngleTolerance > 0)) throw new InvalidInputException("the convergence tolerance for angles must be positive");
         if (!(AprioriVarianceFactor > 0)) throw new InvalidInputException("the a-priori variance factor must be positive");
         if (!(GlobalTestAlpha > 0 && GlobalTestAlpha < 1)) throw new InvalidInputException("the significance level of the global test must be between 0 and 1");
+        (Analysis ?? throw new InvalidInputException("the statistics options must not be null")).Validate();
     }
 }
