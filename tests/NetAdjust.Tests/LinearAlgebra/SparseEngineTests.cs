@@ -217,7 +217,7 @@ public class SparseEngineTests
         }
     }
 
-    /// <summary>Coordinates, point sd and covariance, orientation sd, adjusted-observation sd, and Qxx on the pattern agree.</summary>
+    /// <summary>Coordinates, point sd and covariance, orientation sd, adjusted-observation sd, redundancy numbers, w-values, MDB, relative precision and Qxx on the pattern agree.</summary>
     internal static void AssertAgree(AdjustmentResult dense, AdjustmentResult sparse)
     {
         const double rel = 1e-9;
@@ -241,6 +241,19 @@ public class SparseEngineTests
             Close(dense.Observations[i].SdAdjusted, sparse.Observations[i].SdAdjusted, 1e-6, $"sd of adjusted observation {i}");
         for (int i = 0; i < dense.Orientations.Count; i++)
             Close(dense.Orientations[i].Sd, sparse.Orientations[i].Sd, 1e-9, $"orientation sd {i}");
+        // Statistics from Qxx on the pattern: redundancy numbers, w-values, MDB, absolute and relative ellipses.
+        var da = NetAdjust.Statistics.ResultAnalysis.Analyse(dense);
+        var sa = NetAdjust.Statistics.ResultAnalysis.Analyse(sparse);
+        Assert.Equal(da.Observations.Count, sa.Observations.Count);
+        for (int i = 0; i < da.Observations.Count; i++)
+        {
+            Close(da.Observations[i].Redundancy, sa.Observations[i].Redundancy, 1e-3, $"redundancy number {i}");
+            Close(da.Observations[i].W, sa.Observations[i].W, 1e-3, $"w-value {i}");
+            Close(da.Observations[i].Mdb, sa.Observations[i].Mdb, 1e-6, $"MDB {i}");
+        }
+        Assert.Equal(da.Relative.Count, sa.Relative.Count);
+        for (int i = 0; i < da.Relative.Count; i++)
+            Close(da.Relative[i].SdDistance, sa.Relative[i].SdDistance, 1e-6, $"relative sd {da.Relative[i].From}-{da.Relative[i].To}");
         // every Qxx entry between unknowns of one design row
         foreach (var row in sparse.DesignRows)
             foreach (int i in row.Columns)
