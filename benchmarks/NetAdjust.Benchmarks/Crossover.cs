@@ -12,6 +12,16 @@ namespace NetAdjust.Benchmarks;
 /// </summary>
 public static class Crossover
 {
+    /// <summary>One cold dense adjustment of a plane network of the given size, timed (for sizes past BenchmarkDotNet's in-process limit).</summary>
+    /// <param name="points">The number of points.</param>
+    public static void DenseOnce(int points)
+    {
+        var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, points, Seed: 1));
+        var sw = Stopwatch.StartNew();
+        Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
+        Console.WriteLine($"dense adjustment of {points} points: {sw.Elapsed.TotalSeconds:F1} s");
+    }
+
     /// <summary>Prints one line per network size.</summary>
     public static void Run()
     {

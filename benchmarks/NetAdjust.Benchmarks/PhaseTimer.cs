@@ -29,7 +29,10 @@ public static class PhaseTimer
             long before = Process.GetCurrentProcess().PeakWorkingSet64;
             sw.Restart();
             var r = Adjuster.Adjust(network, AdjustmentOptions.Default);
-            Console.WriteLine($"full adjustment: {sw.Elapsed.TotalSeconds:F2} s, {r.Statistics.Iterations} iterations, solver: {r.SolverName}; " +
+            double tAdjust = sw.Elapsed.TotalSeconds;
+            var analysis = NetAdjust.Statistics.ResultAnalysis.Analyse(r);
+            Console.WriteLine($"adjustment {tAdjust:F2} s; with statistics ({analysis.Observations.Count} tests, {analysis.Points.Count} ellipses, {analysis.Relative.Count} relative) " +
+                              $"{sw.Elapsed.TotalSeconds:F2} s, {r.Statistics.Iterations} iterations, solver: {r.SolverName}; " +
                               $"peak working set {Process.GetCurrentProcess().PeakWorkingSet64 / 1048576} MiB (after generating: {before / 1048576} MiB)");
             return;
         }

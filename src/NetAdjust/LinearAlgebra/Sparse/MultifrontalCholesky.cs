@@ -20,6 +20,7 @@ internal static class MultifrontalCholesky
     private const double ParallelWork = 4e5; // flops above which a front's loops run in parallel
 
     /// <summary>Factorises; returns the supernodal values of L and the scale S.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static (double[] L, double[] Scale) Factorize(SymbolicCholesky sym, double[] lowerValues)
     {
         int n = sym.Size;
@@ -74,6 +75,7 @@ internal static class MultifrontalCholesky
         return (L, scale);
     }
 
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void ExtendAddChildren(SymbolicCholesky sym, int s, double[]?[] updates, int[] relpos, double[] L, long off, int k,
         double[]? U, int mu, int[] rowMap, ArrayPool<double> pool)
     {
@@ -112,6 +114,7 @@ internal static class MultifrontalCholesky
     }
 
     /// <summary>L₁₁ L₁₁ᵀ = F₁₁ in place (rows 0..k−1 of the block, row length k): row-oriented Cholesky.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void FactorPivotBlock(SymbolicCholesky sym, double[] L, long off, int k, int f)
     {
         var ls = L.AsSpan();
@@ -131,6 +134,7 @@ internal static class MultifrontalCholesky
     }
 
     /// <summary>L₂₁ = F₂₁ L₁₁⁻ᵀ, row by row (each row solves x L₁₁ᵀ = f by forward substitution).</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void SolveOffDiagonal(double[] L, long off, int k, int m)
     {
         int rows = m - k;
@@ -155,6 +159,7 @@ internal static class MultifrontalCholesky
     }
 
     /// <summary>U −= L₂₁ L₂₁ᵀ (lower triangle).</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void DenseUpdate(double[] L, long off, int k, double[] U, int mu)
     {
         double work = (double)mu * mu * k;

@@ -46,6 +46,7 @@ public sealed class NormalMatrixAssembly
     /// <param name="weights">The block-diagonal P.</param>
     /// <returns>Values aligned with the lower pattern of C (diagonal first in each column).</returns>
     /// <exception cref="InvalidOperationException">When the rows or blocks reach outside the analysed pattern.</exception>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public double[] Assemble(IReadOnlyList<SparseRow> rows, WeightMatrix weights)
     {
         var lower = _symbolic.LowerC;

@@ -8,6 +8,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 internal static class SupernodalTriangularSolve
 {
     /// <summary>x = L \ x.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void Forward(SymbolicCholesky sym, double[] L, Span<double> x)
     {
         for (int s = 0; s < sym.SupernodeCount; s++)
@@ -27,6 +28,7 @@ internal static class SupernodalTriangularSolve
     }
 
     /// <summary>x = Lᵀ \ x.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void Backward(SymbolicCholesky sym, double[] L, Span<double> x)
     {
         for (int s = sym.SupernodeCount - 1; s >= 0; s--)
