@@ -21,6 +21,9 @@ public sealed record AdjustmentOptions
     /// <summary>Significance level α of the two-tailed global test, in (0, 1). Default 0.05.</summary>
     public double GlobalTestAlpha { get; init; } = 0.05;
 
+    /// <summary>How the datum is defined: by the control (default), by minimal constraints, or by inner constraints (free network).</summary>
+    public DatumDefinition Datum { get; init; } = DatumDefinition.ByControl;
+
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
 
