@@ -20,9 +20,13 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var sequence = new Option<bool>("--sequence")
+        {
+            Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
+        };
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date,
+            file, json, report, date, sequence,
         };
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
@@ -32,10 +36,20 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
 
-            var result = Adjuster.Adjust(project.Network, project.Options);
             var context = new ReportContext(path, runDate, project.Units);
-            string text = TextReportWriter.Write(result, context);
-            if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
+            string text;
+            if (parse.GetValue(sequence))
+            {
+                var seq = AdjustmentSequence.Run(project.Network, project.Options);
+                text = SequenceReportWriter.Write(seq, context);
+                if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, SequenceJsonWriter.Write(seq, context));
+            }
+            else
+            {
+                var result = Adjuster.Adjust(project.Network, project.Options);
+                text = TextReportWriter.Write(result, context);
+                if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
+            }
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
             else console.Out.Write(text);
             return ExitCodes.Success;

@@ -11,9 +11,9 @@ namespace NetAdjust.IO.Project;
 /// Reads a NetAdjust project file (YAML, format described in docs/input-format.md) and the CSV observation
 /// files it names. Every error names the file, the line and the item concerned.
 /// </summary>
-public static class ProjectReader
+public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "datum"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -59,6 +59,7 @@ public static class ProjectReader
         var lengths = new LengthPattern(units.Length, 4);
         var angles = new AnglePattern(units.Angle, 4);
         var options = ReadOptions(ctx, root, units);
+        options = options with { Datum = ReadDatum(ctx, root) };
         var defaults = ReadDefaults(ctx, root, units);
 
         var points = new List<Point>();

@@ -44,6 +44,7 @@ public static class TextReportWriter
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
         Line($"Units     : lengths {u.Length.Name} ({lu}), angles {AngleName(u.Angle)}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
+        Line($"Datum     : {r.Options.Datum.Describe()}");
         Line();
 
         var s = r.Statistics;

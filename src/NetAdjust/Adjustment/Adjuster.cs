@@ -101,7 +101,7 @@ public static class Adjuster
                 return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)), sd);
             }).ToArray();
 
-        return new AdjustmentResult(network, options, index, finalFactor, points, observations, orientations, stats,
+        return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points, observations, orientations, stats,
             solver.Name, finalRows, weights);
     }
 

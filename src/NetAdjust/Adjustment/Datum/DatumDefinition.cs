@@ -41,6 +41,12 @@ public sealed record DatumDefinition
     /// <summary>Minimal constraints: the point whose height is held; null for the first point with a held or weighted height.</summary>
     public string? HoldHeight { get; init; }
 
+    /// <summary>
+    /// Minimal constraints, as resolved by the adjustment: control points that no observation places but a single
+    /// sight line (reference objects), held in position together with <see cref="HoldPoint"/>; null when none.
+    /// </summary>
+    public IReadOnlyList<string>? ReferenceObjects { get; init; }
+
     /// <summary>Inner constraints: the points over which the trace is minimised; null for all points.</summary>
     public IReadOnlyList<string>? InnerPoints { get; init; }
 
@@ -62,7 +68,8 @@ public sealed record DatumDefinition
         DatumMode.Control => "control points (fixed and weighted as given)",
         DatumMode.MinimalConstraints =>
             "minimal constraints" + (HoldPoint is null ? "" : $": position of {HoldPoint}") +
-            (AzimuthTo is null ? "" : $", azimuth to {AzimuthTo}") + (HoldHeight is null ? "" : $", height of {HoldHeight}"),
+            (ReferenceObjects is { Count: > 0 } ro ? $" and of the reference object(s) {string.Join(", ", ro)}"
+                : AzimuthTo is null ? "" : $", azimuth to {AzimuthTo}") + (HoldHeight is null ? "" : $", height of {HoldHeight}"),
         _ => InnerPoints is null
             ? "free network, inner constraints over all points"
             : $"free network, inner constraints over {string.Join(", ", InnerPoints)}",

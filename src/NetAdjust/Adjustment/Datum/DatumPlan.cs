@@ -20,6 +20,7 @@ internal sealed class DatumPlan
     private readonly int[] _held = [];
     private readonly string? _p0, _p1, _hp;
     private readonly HashSet<string>? _subset;
+    private readonly HashSet<string> _heldPoints = [];
     private readonly List<string> _planePoints, _heightPoints;
     private readonly Dictionary<string, double> _e0, _n0, _h0;
 
@@ -36,59 +37,14 @@ internal sealed class DatumPlan
     public int ConditionCount => _defects.Count;
 
     private DatumPlan(SurveyNetwork network, DatumDefinition definition, UnknownIndex index, ParameterState state,
-        List<string> planePoints, List<string> heightPoints, Dictionary<string, double> e0, Dictionary<string, double> n0, Dictionary<string, double> h0)
+        List<string> planePoints, List<string> heightPoints, Dictionary<string, double> e0, Dictionary<string, double> n0, Dictionary<string, double> h0,
+        Selection sel)
     {
         _network = network; Definition = definition; Index = index; State = state;
         _planePoints = planePoints; _heightPoints = heightPoints; _e0 = e0; _n0 = n0; _h0 = h0;
         if (UsesControl) return;
-
-        bool azimuth = network.Observations.Any(o => o.Kind == ObservationKind.Azimuth);
-        bool distance = network.Observations.Any(o => o.Kind == ObservationKind.Distance);
-        if (planePoints.Count > 0)
-        {
-            _defects.Add(Defect.East);
-            _defects.Add(Defect.North);
-            if (!azimuth) _defects.Add(Defect.Rotation);
-            if (!distance) _defects.Add(Defect.Scale);
-        }
-        if (heightPoints.Count > 0) _defects.Add(Defect.Height);
-
-        bool IsPlaneControl(string id) => network[id] is var p && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue);
-        bool IsHeightControl(string id) => network[id] is var p && (p.IsFixed(Fixity.H) || p.SdH.HasValue);
-        bool minimal = definition.Mode == DatumMode.MinimalConstraints;
-        string Check(string id, List<string> among, string role) =>
-            among.Contains(id) ? id : throw new InvalidInputException(
-                $"datum: {role} {id} is not a point of the {(among == heightPoints ? "level" : "plane")} network (no observation of that kind reaches it)");
-
-        if (planePoints.Count > 0)
-        {
-            _p0 = minimal && definition.HoldPoint is string hp0 ? Check(hp0, planePoints, "the held point")
-                : (minimal ? planePoints.FirstOrDefault(IsPlaneControl) : null) ?? planePoints[0];
-            bool needSecond = _defects.Contains(Defect.Rotation) || _defects.Contains(Defect.Scale);
-            if (minimal && definition.AzimuthTo is string at)
-            {
-                if (!needSecond)
-                    throw new InvalidInputException($"datum: azimuth_to {at}: the observed azimuths and distances already fix the orientation and scale, so no azimuth may be held as well");
-                _p1 = Check(at, planePoints, "the azimuth point");
-                if (_p1 == _p0) throw new InvalidInputException($"datum: azimuth_to must name a point other than the held point {_p0}");
-            }
-            else if (needSecond)
-            {
-                var candidates = planePoints.Where(id => id != _p0).ToList();
-                var control = candidates.Where(IsPlaneControl).ToList();
-                if (minimal && control.Count > 0) candidates = control;
-                _p1 = candidates.OrderByDescending(id => Sq(e0[id] - e0[_p0!]) + Sq(n0[id] - n0[_p0!])).First();
-            }
-        }
-        if (heightPoints.Count > 0)
-            _hp = minimal && definition.HoldHeight is string hh ? Check(hh, heightPoints, "the held height point")
-                : (minimal ? heightPoints.FirstOrDefault(IsHeightControl) : null) ?? heightPoints[0];
-        if (definition.Mode == DatumMode.InnerConstraints && definition.InnerPoints is { } subset)
-        {
-            foreach (var id in subset)
-                if (!network.Contains(id)) throw new InvalidInputException($"datum: inner-constraint point {id} is not defined in the points list");
-            _subset = new HashSet<string>(subset, StringComparer.Ordinal);
-        }
+        _defects = sel.Defects;
+        (_p0, _p1, _hp, _subset, FullHold, _heldPoints) = (sel.P0, sel.P1, sel.Hp, sel.Subset, sel.FullHold, sel.HeldPoints);
 
         // Held unknowns of the internal solve: the translation at p0, rotation and scale at p1, height at hp.
         var held = new List<int>();
@@ -116,6 +72,114 @@ internal sealed class DatumPlan
 
     private static double Sq(double x) => x * x;
 
+    /// <summary>The datum points chosen before the unknowns are numbered.</summary>
+    private sealed record Selection(List<Defect> Defects, string? P0, string? P1, string? Hp, HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints);
+
+    /// <summary>
+    /// True when minimal constraints hold p0 and p1 in full: p1 is a reference object that the observations place
+    /// only on a sight line (no distance reaches it, and it is seen from one station only), so holding the azimuth
+    /// alone would leave its distance undetermined. Holding both is then the minimal constraint.
+    /// </summary>
+    public bool FullHold { get; }
+
+    private static Selection Select(SurveyNetwork network, DatumDefinition definition, List<string> planePoints, List<string> heightPoints,
+        Dictionary<string, double> e0, Dictionary<string, double> n0)
+    {
+        var defects = new List<Defect>();
+        var heldPoints = new HashSet<string>(StringComparer.Ordinal);
+        if (definition.Mode == DatumMode.Control) return new Selection(defects, null, null, null, null, false, heldPoints);
+        bool azimuth = network.Observations.Any(o => o.Kind == ObservationKind.Azimuth);
+        bool distance = network.Observations.Any(o => o.Kind == ObservationKind.Distance);
+        if (planePoints.Count > 0)
+        {
+            defects.Add(Defect.East);
+            defects.Add(Defect.North);
+            if (!azimuth) defects.Add(Defect.Rotation);
+            if (!distance) defects.Add(Defect.Scale);
+        }
+        if (heightPoints.Count > 0) defects.Add(Defect.Height);
+
+        bool IsPlaneControl(string id) => network[id] is var p && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue);
+        bool IsHeightControl(string id) => network[id] is var p && (p.IsFixed(Fixity.H) || p.SdH.HasValue);
+        bool minimal = definition.Mode == DatumMode.MinimalConstraints;
+        string Check(string id, List<string> among, string role) =>
+            among.Contains(id) ? id : throw new InvalidInputException(
+                $"datum: {role} {id} is not a point of the {(among == heightPoints ? "level" : "plane")} network (no observation of that kind reaches it)");
+
+        string? p0 = null, p1 = null, hp = null;
+        HashSet<string>? subset = null;
+        bool fullHold = false;
+        if (planePoints.Count > 0)
+        {
+            var placed = planePoints.Where(id => IsPlaced(network, id)).ToList();
+            p0 = minimal && definition.HoldPoint is string hp0 ? Check(hp0, planePoints, "the held point")
+                : (minimal ? placed.FirstOrDefault(IsPlaneControl) ?? planePoints.FirstOrDefault(IsPlaneControl) : null) ?? placed.FirstOrDefault() ?? planePoints[0];
+            bool needSecond = defects.Contains(Defect.Rotation) || defects.Contains(Defect.Scale);
+            if (minimal && definition.AzimuthTo is string at)
+            {
+                if (!needSecond)
+                    throw new InvalidInputException($"datum: azimuth_to {at}: the observed azimuths and distances already fix the orientation and scale, so no azimuth may be held as well");
+                p1 = Check(at, planePoints, "the azimuth point");
+                if (p1 == p0) throw new InvalidInputException($"datum: azimuth_to must name a point other than the held point {p0}");
+            }
+            else if (needSecond)
+            {
+                var candidates = planePoints.Where(id => id != p0).ToList();
+                var control = candidates.Where(IsPlaneControl).ToList();
+                if (minimal && control.Count > 0) candidates = control;
+                // Prefer points the observations place; among those, the farthest.
+                p1 = candidates.OrderByDescending(id => IsPlaced(network, id)).ThenByDescending(id => Sq(e0[id] - e0[p0]) + Sq(n0[id] - n0[p0])).First();
+            }
+            // Control points that no observation places but a sight line (reference objects) are held in full, with p0.
+            var objects = planePoints.Where(id => IsPlaneControl(id) && !IsPlaced(network, id) && id != p0).ToList();
+            if (minimal && p1 is not null && !IsPlaced(network, p1) && !objects.Contains(p1)) objects.Insert(0, p1);
+            fullHold = minimal && needSecond && objects.Count > 0;
+            if (fullHold)
+            {
+                if (definition.AzimuthTo is null) p1 = objects[0];
+                heldPoints.Add(p0);
+                heldPoints.UnionWith(objects);
+                defects.RemoveAll(d => d != Defect.Height);
+            }
+            else if (definition.Mode == DatumMode.InnerConstraints && planePoints.FirstOrDefault(id => !IsPlaced(network, id)) is string loose)
+            {
+                throw new DatumDefectException(
+                    $"The datum is not defined: in a free network point {loose} is placed by no observation but a single sight line " +
+                    "(no distance reaches it and it is seen from one station only), so its distance is undetermined once the control is set aside. " +
+                    "Use minimal constraints (datum: {mode: minimal}), which hold it as a reference object, or add observations to it.",
+                    [$"position of {loose}"]);
+            }
+        }
+        if (heightPoints.Count > 0)
+            hp = minimal && definition.HoldHeight is string hh ? Check(hh, heightPoints, "the held height point")
+                : (minimal ? heightPoints.FirstOrDefault(IsHeightControl) : null) ?? heightPoints[0];
+        if (definition.Mode == DatumMode.InnerConstraints && definition.InnerPoints is { } list)
+        {
+            foreach (var id in list)
+                if (!network.Contains(id)) throw new InvalidInputException($"datum: inner-constraint point {id} is not defined in the points list");
+            subset = new HashSet<string>(list, StringComparer.Ordinal);
+        }
+        return new Selection(defects, p0, p1, hp, subset, fullHold, heldPoints);
+    }
+
+    /// <summary>
+    /// Whether the observations alone can place a plane point (a structural test, not a proof): a distance reaches it,
+    /// or rays from two stations, or it is a station with at least two sightings or angles.
+    /// </summary>
+    internal static bool IsPlaced(SurveyNetwork network, string id)
+    {
+        int count = 0;
+        var rayStations = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var o in network.Observations)
+        {
+            if (!ObservationModels.IsHorizontal(o.Kind) || !o.Points.Contains(id)) continue;
+            if (o.Kind == ObservationKind.Distance) count += 2;
+            else if (o.At == id) count++;
+            else rayStations.Add(o.At ?? (o.From == id ? o.To : o.From));
+        }
+        return count + rayStations.Count >= 2;
+    }
+
     /// <summary>Checks the datum, computes approximate values and numbers the unknowns.</summary>
     /// <exception cref="DatumDefectException">When the datum is not defined.</exception>
     /// <exception cref="InvalidInputException">When a point cannot be given approximate coordinates, or the datum names unknown points.</exception>
@@ -140,20 +204,22 @@ internal sealed class DatumPlan
         ApproximateCoordinates.Heights(network, height, h);
 
         bool control = definition.Mode == DatumMode.Control;
+        var planePoints = network.Points.Select(p => p.Id).Where(plane.Contains).ToList();
+        var heightPoints = network.Points.Select(p => p.Id).Where(height.Contains).ToList();
+        var sel = Select(network, definition, planePoints, heightPoints, e, nn);
         var index = new UnknownIndex();
-        var planePoints = new List<string>();
-        var heightPoints = new List<string>();
         foreach (var p in network.Points)
         {
+            bool heldInFull = sel.HeldPoints.Contains(p.Id);
             if (plane.Contains(p.Id))
             {
-                planePoints.Add(p.Id);
-                if (!control || !p.IsFixed(Fixity.E)) index.Add(new Unknown(p.Id, Parameter.E));
-                if (!control || !p.IsFixed(Fixity.N)) index.Add(new Unknown(p.Id, Parameter.N));
+                if (heldInFull && (p.E is null || p.N is null))
+                    throw new InvalidInputException($"datum: point {p.Id} is held for the minimal constraints but has no given easting and northing");
+                if (!heldInFull && (!control || !p.IsFixed(Fixity.E))) index.Add(new Unknown(p.Id, Parameter.E));
+                if (!heldInFull && (!control || !p.IsFixed(Fixity.N))) index.Add(new Unknown(p.Id, Parameter.N));
             }
             if (height.Contains(p.Id))
             {
-                heightPoints.Add(p.Id);
                 if (!control || !p.IsFixed(Fixity.H)) index.Add(new Unknown(p.Id, Parameter.H));
             }
         }
@@ -178,7 +244,7 @@ internal sealed class DatumPlan
         var state = new ParameterState(e, nn, h, orientation);
         return new DatumPlan(network, definition, index, state, planePoints, heightPoints,
             new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string, double>(nn, StringComparer.Ordinal),
-            new Dictionary<string, double>(h, StringComparer.Ordinal));
+            new Dictionary<string, double>(h, StringComparer.Ordinal), sel);
     }
 
     /// <summary>
@@ -365,14 +431,26 @@ internal sealed class DatumPlan
         return c;
     }
 
+    /// <summary>The datum as applied, with the points chosen by default filled in.</summary>
+    public DatumDefinition Resolved => Definition.Mode switch
+    {
+        DatumMode.MinimalConstraints => Definition with
+        {
+            HoldPoint = _p0, AzimuthTo = _defects.Contains(Defect.Rotation) || _defects.Contains(Defect.Scale) || FullHold ? _p1 : null, HoldHeight = _hp,
+            ReferenceObjects = FullHold ? _heldPoints.Where(id => id != _p0).ToList() : null,
+        },
+        _ => Definition,
+    };
+
     /// <summary>A description of the datum actually applied, naming the points chosen.</summary>
     public string Describe() => Definition.Mode switch
     {
         DatumMode.Control => Definition.Describe(),
         DatumMode.MinimalConstraints => "minimal constraints: " + string.Join(", ", new[]
         {
-            _p0 is null ? null : $"position of {_p0} held",
-            _p1 is null ? null : $"{(_defects.Contains(Defect.Rotation) ? "azimuth" : "")}{(_defects.Contains(Defect.Rotation) && _defects.Contains(Defect.Scale) ? " and " : "")}{(_defects.Contains(Defect.Scale) ? "distance" : "")} {_p0}→{_p1} held",
+            FullHold ? $"{string.Join(", ", _heldPoints)} held in position (reference objects placed by a sight line only are held with {_p0})" : null,
+            _p0 is null || FullHold ? null : $"position of {_p0} held",
+            _p1 is null || FullHold ? null : $"{(_defects.Contains(Defect.Rotation) ? "azimuth" : "")}{(_defects.Contains(Defect.Rotation) && _defects.Contains(Defect.Scale) ? " and " : "")}{(_defects.Contains(Defect.Scale) ? "distance" : "")} {_p0}→{_p1} held",
             _hp is null ? null : $"height of {_hp} held",
         }.OfType<string>()),
         _ => Definition.Describe(),
