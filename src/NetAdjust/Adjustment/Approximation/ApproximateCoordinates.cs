@@ -55,41 +55,18 @@ internal static class ApproximateCoordinates
 
         var sets = network.Observations.OfType<DirectionObservation>().GroupBy(d => d.SetId, StringComparer.Ordinal)
             .ToDictionary(g => g.Key, g => g.ToList(), StringComparer.Ordinal);
-        var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
-
-        while (true)
+        // Unambiguous constructions first; two-solution cases that nothing decides only as a last resort.
+        foreach (bool ties in new[] { false, true })
         {
-            OrientSets(sets, known, orientation);
-            bool progress = false;
-            foreach (var id in order)
-            {
-                if (known.ContainsKey(id)) continue;
-                var located = Locate(network, id, known, orientation, sets, allowTie: false);
-                if (located is PlanePoint p)
-                {
-                    known[id] = p;
-                    OrientSets(sets, known, orientation);
-                    progress = true;
-                }
-            }
-            if (progress) continue;
-            // Nothing unambiguous left: accept the first ambiguous two-solution case (deterministic choice).
-            foreach (var id in order)
-            {
-                if (known.ContainsKey(id)) continue;
-                if (Locate(network, id, known, orientation, sets, allowTie: true) is PlanePoint p)
-                {
-                    known[id] = p;
-                    progress = true;
-                    break;
-                }
-            }
-            if (!progress) break;
+            Propagate(network, order, known, sets, ties);
+            LocalFrames(network, order, known, sets, ties);
         }
 
         var missing = order.Where(id => !known.ContainsKey(id)).ToList();
         if (missing.Count > 0)
         {
+            var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
+            OrientSets(sets, known, orientation);
             var lines = missing.Select(id => Explain(network, id, known, orientation, sets));
             throw new InvalidInputException(
                 "Approximate coordinates cannot be computed for these points from the observations and the points with coordinates:" +
@@ -135,6 +112,97 @@ internal static class ApproximateCoordinates
             if (!h.ContainsKey(id)) { h[id] = 0; queue.Enqueue(id); Spread(); }
     }
 
+    /// <summary>
+    /// Points the control cannot reach directly (e.g. no direction set sees a located point): the part is built in
+    /// a local frame from one of them, then carried onto the located points by a plane similarity transformation
+    /// fitted to the (at least two) points common to both; rigid when distances are observed.
+    /// </summary>
+    private static void LocalFrames(SurveyNetwork network, List<string> order, Dictionary<string, PlanePoint> known,
+        Dictionary<string, List<DirectionObservation>> sets, bool ties)
+    {
+        bool distances = network.Observations.Any(o => o.Kind == ObservationKind.Distance);
+        var tried = new HashSet<string>(StringComparer.Ordinal);
+        while (order.FirstOrDefault(id => !known.ContainsKey(id) && !tried.Contains(id)) is string start)
+        {
+            tried.Add(start);
+            var local = new Dictionary<string, PlanePoint>(StringComparer.Ordinal);
+            Seed(network, [start], local);
+            Propagate(network, order, local, sets, ties);
+            var common = local.Keys.Where(known.ContainsKey).ToList();
+            if (common.Count < 2 || local.Keys.All(known.ContainsKey)) continue;
+            var map = Similarity(common.Select(id => local[id]).ToList(), common.Select(id => known[id]).ToList(), rigid: distances);
+            foreach (var (id, p) in local)
+                if (!known.ContainsKey(id)) known[id] = map(p);
+            Propagate(network, order, known, sets, ties);
+        }
+    }
+
+    /// <summary>Locates every point it can from <paramref name="known"/>, in rounds, until nothing more can be reached.</summary>
+    private static void Propagate(SurveyNetwork network, List<string> order, Dictionary<string, PlanePoint> known,
+        Dictionary<string, List<DirectionObservation>> sets, bool ties)
+    {
+        var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
+        while (true)
+        {
+            OrientSets(sets, known, orientation);
+            bool progress = false;
+            foreach (var id in order)
+            {
+                if (known.ContainsKey(id)) continue;
+                if (Locate(network, id, known, orientation, sets, allowTie: false) is PlanePoint p)
+                {
+                    known[id] = p;
+                    OrientSets(sets, known, orientation);
+                    progress = true;
+                }
+            }
+            if (progress) continue;
+            if (!ties) return;
+            // Nothing unambiguous left: accept the first ambiguous two-solution case (deterministic choice).
+            foreach (var id in order)
+            {
+                if (known.ContainsKey(id)) continue;
+                if (Locate(network, id, known, orientation, sets, allowTie: true) is PlanePoint p)
+                {
+                    known[id] = p;
+                    progress = true;
+                    break;
+                }
+            }
+            if (!progress) return;
+        }
+    }
+
+    /// <summary>
+    /// The plane similarity (Helmert) transformation y = c·x + t in complex form (z = E + iN), fitted by least
+    /// squares to point pairs; with <paramref name="rigid"/> the scale is set to 1. One pair gives a translation.
+    /// </summary>
+    private static Func<PlanePoint, PlanePoint> Similarity(List<PlanePoint> from, List<PlanePoint> to, bool rigid)
+    {
+        double fe = from.Average(p => p.E), fn = from.Average(p => p.N), te = to.Average(p => p.E), tn = to.Average(p => p.N);
+        double cr = 1, ci = 0;
+        if (from.Count >= 2)
+        {
+            // c = Σ conj(x')·y' / Σ |x'|²
+            double sr = 0, si = 0, ss = 0;
+            for (int k = 0; k < from.Count; k++)
+            {
+                double xe = from[k].E - fe, xn = from[k].N - fn, ye = to[k].E - te, yn = to[k].N - tn;
+                sr += (xe * ye) + (xn * yn);
+                si += (xe * yn) - (xn * ye);
+                ss += (xe * xe) + (xn * xn);
+            }
+            if (ss > 0) { cr = sr / ss; ci = si / ss; }
+            double m = Math.Sqrt((cr * cr) + (ci * ci));
+            if (rigid && m > 0) { cr /= m; ci /= m; }
+        }
+        return p =>
+        {
+            double xe = p.E - fe, xn = p.N - fn;
+            return new PlanePoint(te + (cr * xe) - (ci * xn), tn + (ci * xe) + (cr * xn));
+        };
+    }
+
     private static List<(string To, double Dh)> Edge(Dictionary<string, List<(string, double)>> edges, string id)
     {
         if (!edges.TryGetValue(id, out var list)) edges[id] = list = [];
@@ -142,7 +210,7 @@ internal static class ApproximateCoordinates
     }
 
     /// <summary>A local frame for a network without any coordinates: the first point at (0, 0), a neighbour north of it.</summary>
-    private static void Seed(SurveyNetwork network, List<string> order, Dictionary<string, PlanePoint> known)
+    private static void Seed(SurveyNetwork network, IReadOnlyList<string> order, Dictionary<string, PlanePoint> known)
     {
         string first = order[0];
         known[first] = new PlanePoint(0, 0);
