@@ -41,6 +41,15 @@ w("  angle_sd: arcsec # arcsec | mgon")
 w("adjustment:")
 w("  alpha: 0.05")
 w("  max_iterations: 20")
+w("  centering: independent   # independent | correlated (one covariance block per setup)")
+w("# Instrument and target specifications: every direction, angle and distance of a setup that names an")
+w("# instrument is weighted from them (docs/input-format.md, 'Instruments, targets and procedures').")
+w("instruments:")
+w("  - {id: TS3, direction_sd: 3, zenith_sd: 3, edm: 2 mm + 2 ppm, centering: 1.0 mm, height: 1.5 mm}  # ISO 17123-3 sd, arcsec")
+w("targets:")
+w("  - {id: TRIBRACH, centering: 1.0 mm, height: 1.5 mm}   # prism in a tribrach on a tripod")
+w("levels:")
+w("  - {id: DL10, sd_per_km: 1.0 mm}   # ISO 17123-2 sd of 1 km double-run levelling (used by the CSV level loop)")
 w("default_sd:")
 w(f"  direction: {SIG_DIR}")
 w("  angle: 2.8")
@@ -59,6 +68,10 @@ w("setups:")
 for i, st in enumerate(loop):
     back = loop[i - 1]; fore = loop[(i + 1) % len(loop)]
     w(f"  - at: {st}")
+    w("    instrument: TS3")
+    w("    target: TRIBRACH")
+    w("    sets: 2")
+    w("    faces: both")
     if st == "S3":  # this crew booked angles at S3
         a = (az(st, fore) - az(st, back)) + random.gauss(0, 2.8 / 206264.806)
         w("    angles:")
@@ -72,16 +85,16 @@ for i, st in enumerate(loop):
             w(f"      - {{to: {t}, value: {dms(r)}}}")
     d = dist(st, fore)
     w("    distances:")
-    w(f"      - {{to: {fore}, value: {d + random.gauss(0, sig_dist(d)):.4f}, sd: {sig_dist(d):.4f}}}")
+    w(f"      - {{to: {fore}, value: {d + random.gauss(0, sig_dist(d)):.4f}}}")
 w("files:")
 w("  - brackenmoor-levels.csv")
 open("../brackenmoor.yaml", "w").write("\n".join(lines) + "\n")
 
 heights = {"BMK1": 84.2170, "BMK2": 86.0412, "BMK3": 91.3385, "BMK4": 88.9027, "BMK5": 85.1164}
 sections = [("BMK1", "BMK2", 420.0), ("BMK2", "BMK3", 515.0), ("BMK3", "BMK4", 380.0), ("BMK4", "BMK5", 610.0), ("BMK5", "BMK1", 455.0)]
-out = ["# Level loop at Brackenmoor (invented), double-run levelling, sd = 1.0 mm/sqrt(km) x sqrt(length)",
-       "kind,from,to,value,length,sd"]
+out = ["# Level loop at Brackenmoor (invented), double-run levelling with level DL10: sd = 1.0 mm/sqrt(km) x sqrt(length)",
+       "kind,from,to,value,length,level"]
 for a, b, L in sections:
     sd = 0.0010 * math.sqrt(L / 1000)
-    out.append(f"height_difference,{a},{b},{heights[b] - heights[a] + random.gauss(0, sd):.5f},{L:.0f},{sd:.5f}")
+    out.append(f"height_difference,{a},{b},{heights[b] - heights[a] + random.gauss(0, sd):.5f},{L:.0f},DL10")
 open("../brackenmoor-levels.csv", "w").write("\n".join(out) + "\n")

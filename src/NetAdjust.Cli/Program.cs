@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.CommandLine.Help;
 using NetAdjust.Cli.Commands;
 
 namespace NetAdjust.Cli;
@@ -22,9 +23,16 @@ public static class Program
     /// <returns>The exit code.</returns>
     public static int Run(string[] args, CliConsole console)
     {
-        var root = new RootCommand("NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal networks, level networks).");
+        // A plain command named "netadjust" as the root, so help shows the tool's name however it was started
+        // (dotnet run, the packed tool, or a test host); it gets the help and version options a RootCommand has.
+        var root = new Command("netadjust", "NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal networks, level networks).")
+        {
+            new HelpOption { Recursive = true },
+            new VersionOption(),
+        };
         root.Subcommands.Add(AdjustCommand.Create(console));
         root.Subcommands.Add(CheckCommand.Create(console));
+        root.Subcommands.Add(BudgetCommand.Create(console));
         var parse = root.Parse(args);
         var config = new InvocationConfiguration { Output = console.Out, Error = console.Error, EnableDefaultExceptionHandler = false };
         try

@@ -133,7 +133,8 @@ public sealed class CliTests : IDisposable
     {
         // σ far too optimistic for the demo's observations: the global test fails, exit code still 0.
         string f = Path.Combine(_tmp, "tight.yaml");
-        File.WriteAllText(f, File.ReadAllText(Demo).Replace("direction: 2.0", "direction: 0.05").Replace("angle: 2.8", "angle: 0.07").Replace("  - brackenmoor-levels.csv\n", ""));
+        File.WriteAllText(f, File.ReadAllText(Demo).Replace("direction: 2.0", "direction: 0.05").Replace("angle: 2.8", "angle: 0.07")
+            .Replace("direction_sd: 3,", "direction_sd: 0.05,").Replace("edm: 2 mm + 2 ppm", "edm: 0.05 mm").Replace("centering: 1.0 mm", "centering: 0 mm").Replace("  - brackenmoor-levels.csv\n", ""));
         var (code, stdout, stderr) = Run("adjust", f, "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("FAILED", stdout);

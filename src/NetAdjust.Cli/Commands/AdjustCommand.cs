@@ -24,9 +24,10 @@ internal static class AdjustCommand
         {
             Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
         };
+        var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date, sequence,
+            file, json, report, date, budgets, sequence,
         };
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
@@ -36,7 +37,7 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
 
-            var context = new ReportContext(path, runDate, project.Units);
+            var context = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) };
             string text;
             if (parse.GetValue(sequence))
             {

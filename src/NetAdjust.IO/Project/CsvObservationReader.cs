@@ -11,10 +11,13 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 internal static class CsvObservationReader
 {
-    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set"];
+    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs"];
+
+    /// <summary>Budget of a height difference from a named level: (level id, section length, setups, runs) → budget; throws <see cref="InvalidInputException"/>.</summary>
+    internal delegate NetAdjust.Stochastic.ErrorBudget LevelBudget(string level, Length? length, int? setups, int? runs);
 
     public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
-        IReadOnlyDictionary<ObservationKind, double> defaults)
+        IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null)
     {
         var result = new List<Observation>();
         string[] lines = text.Split('\n');
@@ -52,7 +55,30 @@ internal static class CsvObservationReader
             };
             double sd;
             string sdText = Get("sd");
-            if (sdText.Length > 0)
+            NetAdjust.Stochastic.ErrorBudget? budget = null;
+            string levelText = Get("level");
+            if (kind != ObservationKind.HeightDifference && (levelText.Length > 0 || Get("setups").Length > 0 || Get("runs").Length > 0))
+                throw new ProjectFileException(file, lineNo, item, "the 'level', 'setups' and 'runs' fields are for height differences only");
+            if (sdText.Length == 0 && levelText.Length > 0)
+            {
+                int? Count(string name, int max)
+                {
+                    string t = Get(name);
+                    if (t.Length == 0) return null;
+                    return int.TryParse(t, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int n) && n >= 1 && n <= max
+                        ? n : throw new ProjectFileException(file, lineNo, item, $"'{name}' must be a whole number from 1 to {max}");
+                }
+                Length? len = null;
+                if (Get("length").Length > 0)
+                {
+                    var lr = lengths.Parse(Get("length"));
+                    len = lr.Success ? lr.Value : throw new ProjectFileException(file, lineNo, item, lr.Error!);
+                }
+                try { budget = (levelBudget ?? throw new InvalidInputException($"level '{levelText}' is not defined under 'levels'"))(levelText, len, Count("setups", 100000), Count("runs", 100)); }
+                catch (InvalidInputException e) when (e is not ProjectFileException) { throw new ProjectFileException(file, lineNo, item, e.Message); }
+                sd = budget.Total;
+            }
+            else if (sdText.Length > 0)
             {
                 sd = ProjectReader.ParseSd(sdText, kind, units, out string? err);
                 if (err is not null) throw new ProjectFileException(file, lineNo, item, err);
@@ -72,7 +98,7 @@ internal static class CsvObservationReader
                 _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
                     Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
             };
-            result.Add(o);
+            result.Add(budget is null ? o : o.WithBudget(budget));
         }
         return result;
     }

@@ -13,7 +13,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "datum"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "datum"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -67,14 +67,16 @@ public static partial class ProjectReader
             foreach (var node in ctx.Sequence(pts, "points"))
                 points.Add(ReadPoint(ctx, node, lengths));
 
+        var specs = ReadSpecifications(ctx, root, units, points);
+        PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
             foreach (var node in ctx.Sequence(setups, "setups"))
-                ReadSetup(ctx, node, lengths, angles, units, defaults, setsPerStation, observations);
+                ReadSetup(ctx, node, lengths, angles, units, defaults, setsPerStation, observations, specs);
         if (ctx.Child(root, "levelling") is YamlNode lev)
             foreach (var node in ctx.Sequence(lev, "levelling"))
-                observations.Add(ReadLevelling(ctx, node, lengths, units, defaults));
+                observations.Add(ReadLevelling(ctx, node, lengths, units, defaults, specs));
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
         if (ctx.Child(root, "files") is YamlNode files)
@@ -88,7 +90,7 @@ public static partial class ProjectReader
                 catch (Exception e) when (e is IOException or UnauthorizedAccessException)
                 { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults));
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
             }
         }
 
@@ -142,7 +144,17 @@ public static partial class ProjectReader
         var o = AdjustmentOptions.Default;
         if (ctx.Child(root, "adjustment") is not YamlNode node) return o;
         var m = ctx.Mapping(node, "adjustment");
-        ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor"], "adjustment");
+        ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering"], "adjustment");
+        if (ctx.Child(m, "centering") is YamlNode cn)
+        {
+            string t = ctx.Scalar(cn, "adjustment.centering");
+            o = t switch
+            {
+                "independent" => o with { WeightModel = null },
+                "correlated" => o with { WeightModel = NetAdjust.Stochastic.SetupCenteringWeightModel.Instance },
+                _ => throw ctx.Error(cn, "adjustment.centering", $"'{t}' must be 'independent' (diagonal weights) or 'correlated' (one covariance block per setup)"),
+            };
+        }
         if (ctx.Child(m, "max_iterations") is YamlNode it)
         {
             double v = ctx.Number(it, "adjustment.max_iterations");
@@ -242,12 +254,14 @@ public static partial class ProjectReader
     }
 
     private static void ReadSetup(Context ctx, YamlNode node, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
-        Dictionary<ObservationKind, double> defaults, Dictionary<string, int> setsPerStation, List<Observation> output)
+        Dictionary<ObservationKind, double> defaults, Dictionary<string, int> setsPerStation, List<Observation> setupOutput, StochasticInputs specs)
     {
         var m = ctx.Mapping(node, "a setup");
         string at = ctx.RequiredString(m, "at", "a setup");
         string item = "setup at " + at;
-        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths"], item);
+        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets", "faces"], item);
+        var spec = ReadSetupSpec(ctx, m, item, specs);
+        var output = new List<Pending>();
 
         if (ctx.Child(m, "directions") is YamlNode dirs)
         {
@@ -256,53 +270,65 @@ public static partial class ProjectReader
             string setId = $"{at}/{k}";
             foreach (var dn in ctx.Sequence(dirs, item + " directions"))
             {
-                var (to, value, sd, src) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd"], item);
-                output.Add(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
-                { StandardDeviation = sd, Source = src });
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                output.Add(new(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
+                { StandardDeviation = sd, Source = src }, budget, target, dn, $"direction to {to} in the {item}"));
             }
         }
         if (ctx.Child(m, "distances") is YamlNode dists)
             foreach (var dn in ctx.Sequence(dists, item + " distances"))
             {
-                var (to, value, sd, src) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd"], item);
-                output.Add(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src });
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                output.Add(new(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src },
+                    budget, target, dn, $"distance to {to} in the {item}"));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
             foreach (var an in ctx.Sequence(azs, item + " azimuths"))
             {
-                var (to, value, sd, src) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item);
-                output.Add(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src });
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item, spec, specs);
+                output.Add(new(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src },
+                    budget, target, an, $"azimuth to {to} in the {item}"));
             }
         if (ctx.Child(m, "angles") is YamlNode angs)
             foreach (var an in ctx.Sequence(angs, item + " angles"))
             {
-                var (to, value, sd, src) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd"], item);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd", "target"], item, spec, specs);
                 string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
-                output.Add(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src });
+                output.Add(new(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src },
+                    budget, target, an, $"angle from {from} to {to} in the {item}"));
             }
+        FinishSetup(ctx, at, spec, output, specs, setupOutput);
     }
 
-    private static (string To, string Value, double Sd, string Source) ReadSighting(Context ctx, YamlNode node, ObservationKind kind,
-        ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem)
+    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, NetAdjust.Stochastic.TargetSpecification? Target) ReadSighting(
+        Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem,
+        SetupSpec spec, StochasticInputs specs)
     {
         var m = ctx.Mapping(node, $"a {kind.Name()} in the {setupItem}");
         string to = ctx.RequiredString(m, "to", $"a {kind.Name()} in the {setupItem}");
         string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
         ctx.CheckKeys(m, keys, item);
         string value = ctx.RequiredString(m, "value", item);
+        var target = TargetOf(ctx, m, item, specs);
+        if (target is not null && spec.Instrument is null)
+            throw ctx.Error(m, item, "'target' is used to weight observations from an instrument specification: name the setup's 'instrument' too");
+        // Precedence: explicit sd, then the setup's instrument specification (not for azimuths), then default_sd.
+        bool fromSpec = spec.Instrument is not null && kind != ObservationKind.Azimuth && ctx.Child(m, "sd") is null;
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
+            : fromSpec ? 1.0 // replaced by the budget's total in FinishSetup
             : defaults.TryGetValue(kind, out double d) ? d
             : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
-        return (to, value, sd, $"{ctx.File}:{Line(node)}");
+        return (to, value, sd, $"{ctx.File}:{Line(node)}", fromSpec, target);
     }
 
-    private static Observation ReadLevelling(Context ctx, YamlNode node, LengthPattern lengths, ProjectUnits units, Dictionary<ObservationKind, double> defaults)
+    private static Observation ReadLevelling(Context ctx, YamlNode node, LengthPattern lengths, ProjectUnits units, Dictionary<ObservationKind, double> defaults,
+        StochasticInputs specs)
     {
         var m = ctx.Mapping(node, "a levelling section");
         string from = ctx.RequiredString(m, "from", "a levelling section");
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
-        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd"], item);
+        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", "level", "setups", "runs"], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
@@ -311,10 +337,13 @@ public static partial class ProjectReader
             if (!(l.Metres > 0)) throw ctx.Error(ln, item, "the section length must be positive");
             len = l;
         }
+        var budget = LevellingBudget(ctx, m, item, len, specs);
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
+            : budget is not null ? budget.Total
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
             : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
-        return new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
+        var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
+        return budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o;
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>

@@ -102,6 +102,7 @@ public static class JsonResultWriter
             w.WriteNumber("adjusted", ang ? Angle.FromRadians(o.Adjusted).Degrees : o.Adjusted);
             w.WriteNumber("residual", o.Residual * k);
             w.WriteNumber("sd", i.StandardDeviation * k);
+            BudgetOutput.WriteComponents(w, i, k);
             w.WriteNumber("sd_adjusted", o.SdAdjusted * k);
             if (i.Source is not null) w.WriteString("source", i.Source);
             w.WriteEndObject();

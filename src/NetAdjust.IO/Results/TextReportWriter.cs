@@ -89,6 +89,8 @@ public static class TextReportWriter
         }
         Line();
 
+        BudgetOutput.AppendSummary(sb, r, c);
+
         if (r.Orientations.Count > 0)
         {
             Line($"ORIENTATION UNKNOWNS (one per direction set; azimuth of the circle zero, sd in {au})");

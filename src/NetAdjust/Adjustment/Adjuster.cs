@@ -36,7 +36,7 @@ public static class Adjuster
             diagonal[i] = options.AprioriVarianceFactor / Sq(network.Observations[i].StandardDeviation);
         for (int k = 0; k < control.Count; k++)
             diagonal[network.Observations.Count + k] = options.AprioriVarianceFactor / Sq(control[k].Sd);
-        var weights = WeightMatrix.Diagonal(diagonal);
+        var weights = options.WeightModel?.Build(network, diagonal, options.AprioriVarianceFactor) ?? WeightMatrix.Diagonal(diagonal);
 
         int iterations = 0;
         if (u > 0)

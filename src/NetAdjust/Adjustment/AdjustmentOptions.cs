@@ -27,6 +27,12 @@ public sealed record AdjustmentOptions
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
 
+    /// <summary>
+    /// Builds the weight matrix; null for diagonal weights σ0²/σᵢ². <see cref="Stochastic.SetupCenteringWeightModel"/>
+    /// correlates the observations of one setup through the instrument's centering error.
+    /// </summary>
+    public IWeightModel? WeightModel { get; init; }
+
     /// <summary>Checks the options.</summary>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>
     public void Validate()

@@ -72,6 +72,27 @@ public abstract record Observation
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
 
+    /// <summary>
+    /// The error budget behind <see cref="StandardDeviation"/> when it was derived from instrument, target and
+    /// procedure specifications (its total equals the standard deviation); null when the standard deviation was
+    /// given directly. Set both with <see cref="WithBudget"/>.
+    /// </summary>
+    public Stochastic.ErrorBudget? Budget { get; init; }
+
+    /// <summary>
+    /// The instrument setup the observation was made at (unique in the network), or null. Observations of one
+    /// setup share the instrument's centering error, which the correlated weight model uses.
+    /// </summary>
+    public string? SetupId { get; init; }
+
+    /// <summary>A copy with the given budget and its total as the standard deviation.</summary>
+    /// <param name="budget">The budget (SI units of the observation: metres or radians).</param>
+    public Observation WithBudget(Stochastic.ErrorBudget budget)
+    {
+        ArgumentNullException.ThrowIfNull(budget);
+        return this with { Budget = budget, StandardDeviation = budget.Total };
+    }
+
     /// <summary>All points the observation involves, without repeats.</summary>
     public IEnumerable<string> Points => new[] { At, From, To }.OfType<string>().Distinct(StringComparer.Ordinal);
 

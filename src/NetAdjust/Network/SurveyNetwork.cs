@@ -42,6 +42,8 @@ public sealed class SurveyNetwork
                 problems.Add($"{o.Describe()}: an observation needs distinct points");
             if (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation))
                 problems.Add($"{o.Describe()}: the standard deviation must be positive");
+            else if (o.Budget is not null && Math.Abs(o.Budget.Total - o.StandardDeviation) > 1e-12 * o.StandardDeviation)
+                problems.Add($"{o.Describe()}: the standard deviation differs from the total of its error budget");
             if (!double.IsFinite(o.Value)) problems.Add($"{o.Describe()}: the value is not a finite number");
             if (o.Kind == ObservationKind.Distance && !(o.Value > 0)) problems.Add($"{o.Describe()}: a distance must be positive");
             if (o is DirectionObservation d)

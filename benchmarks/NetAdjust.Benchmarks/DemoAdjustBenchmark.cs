@@ -1,0 +1,31 @@
+using BenchmarkDotNet.Attributes;
+using NetAdjust.Adjustment;
+using NetAdjust.IO.Project;
+
+namespace NetAdjust.Benchmarks;
+
+/// <summary>Reads and adjusts the demo project end to end (small-network baseline).</summary>
+[MemoryDiagnoser]
+public class DemoAdjustBenchmark
+{
+    private string _path = "";
+    private SurveyProject? _project;
+
+    /// <summary>Locates the demo project.</summary>
+    [GlobalSetup]
+    public void Setup()
+    {
+        var d = new DirectoryInfo(AppContext.BaseDirectory);
+        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
+        _path = Path.Combine(d!.FullName, "data", "brackenmoor.yaml");
+        _project = ProjectReader.Read(_path);
+    }
+
+    /// <summary>Parsing the project file and its CSV.</summary>
+    [Benchmark]
+    public SurveyProject Read() => ProjectReader.Read(_path);
+
+    /// <summary>The adjustment alone.</summary>
+    [Benchmark]
+    public AdjustmentResult Adjust() => Adjuster.Adjust(_project!.Network, _project.Options);
+}
