@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
 using NetAdjust.Units;
@@ -215,13 +216,14 @@ internal static class ApproximateCoordinates
         string first = order[0];
         known[first] = new PlanePoint(0, 0);
         // A neighbour at its observed distance (100 m if none), on the observed azimuth (north if none).
-        var dist = network.Observations.OfType<DistanceObservation>().FirstOrDefault(d => d.From == first || d.To == first);
+        var mine = ObservationsOf(network, first);
+        var dist = mine.OfType<DistanceObservation>().FirstOrDefault();
         string? other = dist is null ? null : dist.From == first ? dist.To : dist.From;
-        other ??= network.Observations.Where(o => ObservationModels.IsHorizontal(o.Kind) && o.Points.Contains(first))
+        other ??= mine.Where(o => ObservationModels.IsHorizontal(o.Kind))
             .SelectMany(o => o.Points).FirstOrDefault(p => p != first);
         if (other is null) return;
         double d = dist?.Value ?? 100.0;
-        var az = network.Observations.OfType<AzimuthObservation>().FirstOrDefault(a => (a.From == first && a.To == other) || (a.To == first && a.From == other));
+        var az = mine.OfType<AzimuthObservation>().FirstOrDefault(a => (a.From == first && a.To == other) || (a.To == first && a.From == other));
         double t = az is null ? 0 : az.From == first ? az.Value : az.Value + Math.PI;
         known[other] = new PlanePoint(d * Math.Sin(t), d * Math.Cos(t));
     }
@@ -256,7 +258,7 @@ internal static class ApproximateCoordinates
         var rays = new List<Ray>();
         var spans = new List<Span>();
         var cuts = new List<Cut>();
-        foreach (var o in network.Observations)
+        foreach (var o in ObservationsOf(network, id))
         {
             switch (o)
             {
@@ -281,7 +283,8 @@ internal static class ApproximateCoordinates
             }
         }
         // Direction sets at the point: every located target against the set's first located target.
-        foreach (var dirs in sets.Values.Where(s => s[0].Station == id))
+        foreach (var dirs in ObservationsOf(network, id).OfType<DirectionObservation>().Where(d => d.Station == id)
+                     .Select(d => d.SetId).Distinct(StringComparer.Ordinal).Select(k => sets[k]))
         {
             var located = dirs.Where(d => known.ContainsKey(d.Target)).ToList();
             for (int k = 1; k < located.Count; k++)
@@ -302,6 +305,22 @@ internal static class ApproximateCoordinates
     }
 
     private static double Sq(double v) => v * v;
+
+    private static readonly ConditionalWeakTable<SurveyNetwork, Dictionary<string, List<Observation>>> ByPoint = new();
+
+    /// <summary>The observations that involve a point, in input order (indexed once per network).</summary>
+    internal static List<Observation> ObservationsOf(SurveyNetwork network, string id) =>
+        ByPoint.GetValue(network, static n =>
+        {
+            var map = new Dictionary<string, List<Observation>>(StringComparer.Ordinal);
+            foreach (var o in n.Observations)
+                foreach (var p in o.Points)
+                {
+                    if (!map.TryGetValue(p, out var list)) map[p] = list = [];
+                    list.Add(o);
+                }
+            return map;
+        }).GetValueOrDefault(id) ?? [];
 
     private static PlanePoint? Locate(SurveyNetwork network, string id, Dictionary<string, PlanePoint> known,
         Dictionary<string, double> orientation, Dictionary<string, List<DirectionObservation>> sets, bool allowTie)
@@ -448,7 +467,7 @@ internal static class ApproximateCoordinates
         var (rays, spans, cuts) = Gather(network, id, known, orientation, sets);
         var p = network[id];
         string name = p.Source is null ? id : $"{id} ({p.Source})";
-        int all = network.Observations.Count(o => o.Points.Contains(id));
+        int all = ObservationsOf(network, id).Count;
         string Count(int k, string what) => k == 1 ? $"1 {what}" : $"{k} {what}s";
         return $"{name}: from located points it has {Count(spans.Count, "distance")}, {Count(rays.Count, "oriented direction or azimuth")} " +
                $"and {Count(cuts.Count, "angle at the point")} ({Count(all, "observation")} in all); " +

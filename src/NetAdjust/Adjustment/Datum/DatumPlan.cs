@@ -170,9 +170,9 @@ internal sealed class DatumPlan
     {
         int count = 0;
         var rayStations = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var o in network.Observations)
+        foreach (var o in ApproximateCoordinates.ObservationsOf(network, id))
         {
-            if (!ObservationModels.IsHorizontal(o.Kind) || !o.Points.Contains(id)) continue;
+            if (!ObservationModels.IsHorizontal(o.Kind)) continue;
             if (o.Kind == ObservationKind.Distance) count += 2;
             else if (o.At == id) count++;
             else rayStations.Add(o.At ?? (o.From == id ? o.To : o.From));
