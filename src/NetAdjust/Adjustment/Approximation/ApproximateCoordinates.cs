@@ -142,35 +142,72 @@ internal static class ApproximateCoordinates
     private static void Propagate(SurveyNetwork network, List<string> order, Dictionary<string, PlanePoint> known,
         Dictionary<string, List<DirectionObservation>> sets, bool ties)
     {
+        // Breadth-first rounds: each round locates every point it can from the points located before it, so a point
+        // is reached by the shortest chain of constructions and errors do not pile up along one long chain.
+        // Only points next to those located in the last round (or seen in the same direction set) are re-examined.
         var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
+        var rank = new Dictionary<string, int>(order.Count, StringComparer.Ordinal);
+        for (int k = 0; k < order.Count; k++) rank[order[k]] = k;
+        var candidates = new HashSet<string>(order.Where(id => !known.ContainsKey(id)), StringComparer.Ordinal);
+        var fresh = known.Keys.ToList();
+        var parents = new Dictionary<string, string?>(StringComparer.Ordinal);
+        var generation = known.Keys.ToDictionary(k => k, _ => 0, StringComparer.Ordinal);
+        int round = 0;
+        int Gen(string id) => generation.GetValueOrDefault(id, int.MaxValue);
         while (true)
         {
-            OrientSets(sets, known, orientation);
-            bool progress = false;
-            foreach (var id in order)
+            round++;
+            OrientSets(sets, known, orientation, fresh);
+            var found = new List<(string Id, PlanePoint P)>();
+            var pending = candidates.Where(c => !known.ContainsKey(c)).OrderBy(c => rank.GetValueOrDefault(c, int.MaxValue)).ToList();
+            // The strongest constructions first: a round uses resection only when no polar point or intersection is
+            // possible anywhere, and two-solution constructions only when no resection is.
+            // Level −1: polar points only from a station their own sets see back (a point whose sets see none of its
+            // polar stations waits a round, when a better one may be located).
+            for (int level = -1; level < 3 && found.Count == 0; level++)
+                foreach (var id in pending)
+                    if (Locate(network, id, known, orientation, sets, allowTie: false, out var parent, level, Gen) is PlanePoint p) { found.Add((id, p)); parents[id] = parent; }
+            if (found.Count == 0 && ties)
             {
-                if (known.ContainsKey(id)) continue;
-                if (Locate(network, id, known, orientation, sets, allowTie: false) is PlanePoint p)
+                // Nothing unambiguous left: accept the first ambiguous two-solution case (deterministic choice).
+                foreach (var id in order)
                 {
-                    known[id] = p;
-                    OrientSets(sets, known, orientation);
-                    progress = true;
+                    if (known.ContainsKey(id)) continue;
+                    if (Locate(network, id, known, orientation, sets, allowTie: true, out _, 2) is PlanePoint p) { found.Add((id, p)); break; }
                 }
             }
-            if (progress) continue;
-            if (!ties) return;
-            // Nothing unambiguous left: accept the first ambiguous two-solution case (deterministic choice).
-            foreach (var id in order)
-            {
-                if (known.ContainsKey(id)) continue;
-                if (Locate(network, id, known, orientation, sets, allowTie: true) is PlanePoint p)
+            if (found.Count == 0) return;
+            candidates.Clear();
+            fresh = found.Select(f => f.Id).ToList();
+            // Sets at the new stations are oriented from the points located before this round (the chain that
+            // located the station), not from points of the same round: those carry independent errors of the same
+            // size, and orienting on them would double the error at every round.
+            // A polar point's sets are oriented on the station that located it, when they see it: the new set then
+            // inherits that station's orientation error instead of adding an independent one.
+            foreach (var (id, p) in found)
+                foreach (var setId in SetsOf(sets, id).Where(k => sets[k][0].Station == id))
                 {
-                    known[id] = p;
-                    progress = true;
-                    break;
+                    var dirs = sets[setId];
+                    string? parent = parents.GetValueOrDefault(id);
+                    if (parent is not null && dirs.Any(d => d.Target == parent))
+                        OrientOne(setId, dirs, p, known, orientation, t => t == parent);
+                    else
+                    {
+                        int oldest = dirs.Where(d => known.ContainsKey(d.Target)).Select(d => generation[d.Target]).DefaultIfEmpty(-1).Min();
+                        OrientOne(setId, dirs, p, known, orientation, t => generation.TryGetValue(t, out int g) && g == oldest);
+                    }
+                }
+            foreach (var (id, _) in found) generation[id] = round;
+            foreach (var (id, p) in found)
+            {
+                known[id] = p;
+                foreach (var o in ObservationsOf(network, id))
+                {
+                    candidates.UnionWith(o.Points);
+                    if (o is DirectionObservation d) candidates.UnionWith(sets[d.SetId].Select(x => x.Target).Append(d.Station));
                 }
             }
-            if (!progress) return;
+            if (ties) candidates.UnionWith(order.Where(id => !known.ContainsKey(id))); // ambiguous cases may unlock anything
         }
     }
 
@@ -228,24 +265,57 @@ internal static class ApproximateCoordinates
         known[other] = new PlanePoint(d * Math.Sin(t), d * Math.Cos(t));
     }
 
-    private static void OrientSets(Dictionary<string, List<DirectionObservation>> sets, Dictionary<string, PlanePoint> known, Dictionary<string, double> orientation)
+    /// <summary>Orients the not yet oriented sets at located stations that see a newly located point (or are new themselves).</summary>
+    private static void OrientSets(Dictionary<string, List<DirectionObservation>> sets, Dictionary<string, PlanePoint> known,
+        Dictionary<string, double> orientation, IEnumerable<string>? fresh = null)
     {
-        foreach (var (setId, dirs) in sets)
+        var touched = fresh is null ? sets.Keys.ToHashSet(StringComparer.Ordinal) : new HashSet<string>(StringComparer.Ordinal);
+        if (fresh is not null)
+            foreach (var id in fresh)
+                foreach (var k in SetsOf(sets, id)) touched.Add(k);
+        foreach (var setId in touched.OrderBy(k => k, StringComparer.Ordinal))
         {
+            var dirs = sets[setId];
+            // Oriented once, from the targets located first (the shortest chains): later targets carry the larger
+            // errors of longer chains and would feed them back into the orientation.
             if (orientation.ContainsKey(setId) || !known.TryGetValue(dirs[0].Station, out var st)) continue;
-            double first = double.NaN, sum = 0;
-            int count = 0;
-            foreach (var d in dirs)
-            {
-                if (!known.TryGetValue(d.Target, out var tp)) continue;
-                double w = Az(st, tp) - d.Reading.Radians;
-                if (count == 0) first = w;
-                sum += Angle.ReduceSigned(w - first);
-                count++;
-            }
-            if (count > 0) orientation[setId] = first + (sum / count);
+            if (!orientation.ContainsKey(setId))            OrientOne(setId, dirs, st, known, orientation);
         }
     }
+
+    /// <summary>Orients one set at a station at <paramref name="st"/> from its located targets (circular mean of azimuth − reading).</summary>
+    private static void OrientOne(string setId, List<DirectionObservation> dirs, PlanePoint st, Dictionary<string, PlanePoint> known,
+        Dictionary<string, double> orientation, Func<string, bool>? use = null)
+    {
+        if (orientation.ContainsKey(setId)) return;
+        double first = double.NaN, sum = 0;
+        int count = 0;
+        foreach (var d in dirs)
+        {
+            if (!known.TryGetValue(d.Target, out var tp) || (use is not null && !use(d.Target))) continue;
+            double w = Az(st, tp) - d.Reading.Radians;
+            if (count == 0) first = w;
+            sum += Angle.ReduceSigned(w - first);
+            count++;
+        }
+        if (count > 0) orientation[setId] = first + (sum / count);
+    }
+
+    private static readonly ConditionalWeakTable<Dictionary<string, List<DirectionObservation>>, Dictionary<string, List<string>>> SetsByPoint = new();
+
+    /// <summary>The ids of the direction sets a point is the station or a target of.</summary>
+    private static List<string> SetsOf(Dictionary<string, List<DirectionObservation>> sets, string id) =>
+        SetsByPoint.GetValue(sets, static all =>
+        {
+            var map = new Dictionary<string, List<string>>(StringComparer.Ordinal);
+            foreach (var (k, dirs) in all)
+                foreach (var p in dirs.Select(d => d.Target).Append(dirs[0].Station).Distinct(StringComparer.Ordinal))
+                {
+                    if (!map.TryGetValue(p, out var list)) map[p] = list = [];
+                    list.Add(k);
+                }
+            return map;
+        }).GetValueOrDefault(id) ?? [];
 
     private static double Az(PlanePoint a, PlanePoint b) => Angle.Reduce0To2Pi(Math.Atan2(b.E - a.E, b.N - a.N));
 
@@ -323,14 +393,25 @@ internal static class ApproximateCoordinates
         }).GetValueOrDefault(id) ?? [];
 
     private static PlanePoint? Locate(SurveyNetwork network, string id, Dictionary<string, PlanePoint> known,
-        Dictionary<string, double> orientation, Dictionary<string, List<DirectionObservation>> sets, bool allowTie)
+        Dictionary<string, double> orientation, Dictionary<string, List<DirectionObservation>> sets, bool allowTie, out string? parent, int level = 2,
+        Func<string, int>? generation = null)
     {
+        parent = null;
         var (rays, spans, cuts) = Gather(network, id, known, orientation, sets);
 
-        // Polar: a ray and a distance from the same station.
+        // Polar: a ray and a distance from the same station; from the station reached by the shortest chain.
+        // Prefer a station that the point's own direction sets see back, so that they can be oriented on it.
+        if (generation is not null)
+        {
+            var seen = ObservationsOf(network, id).OfType<DirectionObservation>().Where(d => d.Station == id).Select(d => d.Target).ToHashSet(StringComparer.Ordinal);
+            rays = rays.OrderBy(r => seen.Contains(r.Origin) ? 0 : 1).ThenBy(r => generation(r.Origin)).ToList();
+            if (level < 0 && seen.Count > 0) rays = rays.Where(r => seen.Contains(r.Origin)).ToList();
+        }
         foreach (var r in rays)
             foreach (var d in spans.Where(d => d.Origin == r.Origin))
-                return new PlanePoint(r.At.E + (d.Distance * Math.Sin(r.Azimuth)), r.At.N + (d.Distance * Math.Cos(r.Azimuth)));
+            {
+                parent = r.Origin;
+                return new PlanePoint(r.At.E + (d.Distance * Math.Sin(r.Azimuth)), r.At.N + (d.Distance * Math.Cos(r.Azimuth))); }
 
         // Intersection: the best-conditioned pair of rays from different stations.
         PlanePoint? best = null;
@@ -341,10 +422,12 @@ internal static class ApproximateCoordinates
                 if (rays[a].Origin == rays[b].Origin) continue;
                 if (Intersect(rays[a], rays[b]) is (PlanePoint p, double sin) && sin > bestSin) { best = p; bestSin = sin; }
             }
-        if (best is not null) return best;
+        if (best is not null)        if (best is not null || level <= 0) return best;
 
         // Resection from angles at the point.
         if (Resect(cuts) is PlanePoint res && Misfit(res, [], [], cuts) < 1e6 * Math.Max(1, cuts.Count)) return res;
+
+        if (level == 1) return null;
 
         // Two-solution constructions: ray–distance, distance–distance.
         var candidates = new List<(PlanePoint, PlanePoint)>();

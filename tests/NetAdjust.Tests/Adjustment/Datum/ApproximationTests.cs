@@ -138,6 +138,20 @@ public class ApproximationTests
         Assert.Equal(43.75, h["L3"], 12);
     }
 
+    [Theory]
+    [InlineData(30, 1)]     // control side by side in a corner
+    [InlineData(30, 899)]   // control in opposite corners: the network is built in a local frame and fitted on both
+    public void LongChainsOfConstructionsStayWithinMetresOnALargeNetwork(int side, int last)
+    {
+        // 900 points over 6 km, 2" directions: each point is located by the shortest chain from the control, and
+        // direction sets are oriented on the station that located their station, so errors grow like a random walk
+        // (about a metre here), not geometrically. Bound 5 m: common practice is that a few metres still converge.
+        var sim = DatumNetworks.Grid(5, side, DatumNetworks.TwoHeld(last, levelling: false), approx: null);
+        var (e, n) = Run(sim.Network);
+        double worst = sim.Truth.Max(t => Math.Max(Math.Abs(e[t.Key] - t.Value.E), Math.Abs(n[t.Key] - t.Value.N)));
+        Assert.True(worst < 5, $"worst approximation error {worst:F2} m");
+    }
+
     [Property(MaxTest = 12)]
     public void AutomaticApproximationsGiveTheSameAdjustmentAsTheTruthAsStart(PositiveInt seed)
     {

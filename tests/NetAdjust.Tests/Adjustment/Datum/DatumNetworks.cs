@@ -28,7 +28,7 @@ internal static class DatumNetworks
         var truth = new List<(string Id, double E, double N, double H)>();
         for (int i = 0; i < side; i++)
             for (int j = 0; j < side; j++)
-                truth.Add(($"Q{i}{j}", 3000 + (i * 200) + (rng.NextDouble() * 60), 7000 + (j * 200) + (rng.NextDouble() * 60), 50 + (rng.NextDouble() * 20)));
+                truth.Add((side <= 10 ? $"Q{i}{j}" : $"Q{i}_{j}", 3000 + (i * 200) + (rng.NextDouble() * 60), 7000 + (j * 200) + (rng.NextDouble() * 60), 50 + (rng.NextDouble() * 20)));
         var points = new List<Point>();
         for (int k = 0; k < truth.Count; k++)
         {
