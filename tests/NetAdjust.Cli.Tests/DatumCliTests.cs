@@ -99,6 +99,23 @@ public sealed class DatumCliTests : IDisposable
     }
 
     [Fact]
+    public void TheControlCheckDemoFlagsTheDisturbedMark()
+    {
+        // data/harrowgate-control.yaml: HV03 was moved 5 cm in the simulation (data/tools/simulate_control_check.py).
+        string json = Path.Combine(_tmp, "hv.json");
+        var (code, stdout, stderr) = CliTests.Run("adjust", Path.Combine(CliTests.RepoRoot(), "data", "harrowgate-control.yaml"),
+            "--sequence", "--json", json, "--date", "2026-12-01");
+        Assert.True(code == ExitCodes.Success, stderr);
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var root = doc.RootElement;
+        Assert.False(root.GetProperty("constraint_test").GetProperty("passed").GetBoolean());
+        Assert.True(root.GetProperty("solutions")[0].GetProperty("statistics").GetProperty("global_test").GetProperty("passed").GetBoolean());
+        var worst = root.GetProperty("control_discrepancies").EnumerateArray().OrderByDescending(d => d.GetProperty("max_abs_w").GetDouble()).First();
+        Assert.Equal("HV03", worst.GetProperty("id").GetString());
+        Assert.StartsWith("  HV03 ", stdout.Split('\n').Single(l => l.EndsWith("<- largest", StringComparison.Ordinal)));
+    }
+
+    [Fact]
     public void TheDemoWithoutApproximateCoordinatesAdjusts()
     {
         // Equality with the given approximations is tested in NetAdjust.IO.Tests (same stochastic model).
