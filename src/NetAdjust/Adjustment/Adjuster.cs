@@ -81,7 +81,7 @@ public static class Adjuster
             GlobalTest.Compute(vtpv, options.AprioriVarianceFactor, dof, options.GlobalTestAlpha));
 
         double s0 = options.AprioriVarianceFactor;
-        var points = network.Points.Select(p => AdjustedPointOf(p, index, state, finalFactor, s0)).ToArray();
+        var points = network.Points.Select(p => AdjustedPointOf(plan.AsUsed(p), index, state, finalFactor, s0)).ToArray();
         var observations = new AdjustedObservation[network.Observations.Count];
         for (int i = 0; i < observations.Length; i++)
         {

@@ -116,7 +116,7 @@ public static class AdjustmentSequence
         var discrepancies = new List<ControlDiscrepancy>();
         foreach (var p in minimal.Points)
         {
-            var pt = p.Input;
+            var pt = network[p.Id]; // as given: the minimal solution reports its points without control
             bool ce = pt.IsFixed(Fixity.E) || pt.SdE.HasValue, cn = pt.IsFixed(Fixity.N) || pt.SdN.HasValue, ch = pt.IsFixed(Fixity.H) || pt.SdH.HasValue;
             if (!ce && !cn && !ch) continue;
             (double?, double?) One(bool controlled, double? given, double? adjusted, Parameter par, double? givenSd)

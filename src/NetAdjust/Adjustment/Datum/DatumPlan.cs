@@ -431,6 +431,15 @@ internal sealed class DatumPlan
         return c;
     }
 
+    /// <summary>
+    /// The point as this adjustment used it: with minimal or inner constraints the control is set aside, so the point
+    /// is reported neither fixed nor weighted (except reference objects held in position).
+    /// </summary>
+    public Point AsUsed(Point p) => UsesControl ? p : p with
+    {
+        Fixed = _heldPoints.Contains(p.Id) ? Fixity.EN : Fixity.None, SdE = null, SdN = null, SdH = null,
+    };
+
     /// <summary>The datum as applied, with the points chosen by default filled in.</summary>
     public DatumDefinition Resolved => Definition.Mode switch
     {
