@@ -25,32 +25,43 @@ internal static class AdjustCommand
             Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
         };
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
+        var stats = new StatisticsCliOptions();
+        var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date, budgets, sequence,
         };
+        stats.AddTo(cmd);
+        exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
             string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
             var runDate = ParseDate(parse.GetValue(date));
             var project = ProjectReader.Read(path);
-            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
+            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
-            var context = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) };
+            var context0 = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
             string text;
+            AdjustmentResult result;
+            ReportContext context;
             if (parse.GetValue(sequence))
             {
+                // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply to it.
+                var clash = parse.Tokens.Select(t => t.Value).FirstOrDefault(t => t is "--snoop" or "--robust" or "--components");
+                if (clash is not null) throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
+                (result, context) = (seq.Constrained, context0);
                 text = SequenceReportWriter.Write(seq, context);
                 if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, SequenceJsonWriter.Write(seq, context));
             }
             else
             {
-                var result = Adjuster.Adjust(project.Network, project.Options);
+                (result, context) = stats.Run(parse, project, context0);
                 text = TextReportWriter.Write(result, context);
                 if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
             }
+            exchange.Write(parse, result, context);
             if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
             else console.Out.Write(text);
             return ExitCodes.Success;

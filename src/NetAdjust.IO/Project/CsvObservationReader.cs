@@ -11,7 +11,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 internal static class CsvObservationReader
 {
-    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs"];
+    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor"];
 
     /// <summary>Budget of a height difference from a named level: (level id, section length, setups, runs) → budget; throws <see cref="InvalidInputException"/>.</summary>
     internal delegate NetAdjust.Stochastic.ErrorBudget LevelBudget(string level, Length? length, int? setups, int? runs);
@@ -98,7 +98,7 @@ internal static class CsvObservationReader
                 _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
                     Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
             };
-            result.Add(budget is null ? o : o.WithBudget(budget));
+            result.Add(ObservationMarks.Apply(budget is null ? o : o.WithBudget(budget), Get("exclude"), Get("sd_factor"), file, lineNo, item));
         }
         return result;
     }

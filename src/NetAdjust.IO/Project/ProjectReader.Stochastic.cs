@@ -192,7 +192,7 @@ public static partial class ProjectReader
     {
         if (spec.Instrument is not TotalStationSpecification ts)
         {
-            output.AddRange(pending.Select(p => p.Observation));
+            output.AddRange(pending.Select(p => ObservationMarks.Apply(p.Observation, p.Node, ctx.File)));
             return;
         }
         int k = s.SetupsPerStation.TryGetValue(at, out int c) ? c + 1 : 1;
@@ -228,7 +228,7 @@ public static partial class ProjectReader
                     _ => o,
                 });
             }
-            output.Add(o);
+            output.Add(ObservationMarks.Apply(o, p.Node, ctx.File)); // re-weighting marks scale the budget too
         }
     }
 

@@ -13,7 +13,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "datum"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs", "datum"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -59,6 +59,7 @@ public static partial class ProjectReader
         var lengths = new LengthPattern(units.Length, 4);
         var angles = new AnglePattern(units.Angle, 4);
         var options = ReadOptions(ctx, root, units);
+        options = options with { Analysis = StatisticsSection.Read(root, displayName) };
         options = options with { Datum = ReadDatum(ctx, root) };
         var defaults = ReadDefaults(ctx, root, units);
 
@@ -95,10 +96,23 @@ public static partial class ProjectReader
         }
 
         var network = new SurveyNetwork(name, points, observations);
-        return new SurveyProject(network, units, options, inputs);
+        StatisticsSection.CheckPairs(root, displayName, network);
+        return new SurveyProject(network, units, options, inputs) { Crs = ReadCrs(ctx, root) };
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;
+
+    /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g. <c>EPSG:27700</c>).</summary>
+    private static string? ReadCrs(Context ctx, YamlMappingNode root)
+    {
+        if (ctx.Child(root, "crs") is not YamlNode node) return null;
+        string s = ctx.Scalar(node, "crs").Trim();
+        const string prefix = "EPSG:";
+        string code = s.StartsWith(prefix, StringComparison.OrdinalIgnoreCase) ? s[prefix.Length..] : "";
+        if (code.Length is < 4 or > 6 || !code.All(char.IsAsciiDigit))
+            throw ctx.Error(node, "crs", $"'{s}' is not a coordinate reference system: write EPSG: and its code, e.g. EPSG:27700");
+        return prefix + code;
+    }
 
     private static string FirstLine(string s) => s.Split('\n')[0].Trim();
 
@@ -307,7 +321,7 @@ public static partial class ProjectReader
         var m = ctx.Mapping(node, $"a {kind.Name()} in the {setupItem}");
         string to = ctx.RequiredString(m, "to", $"a {kind.Name()} in the {setupItem}");
         string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
-        ctx.CheckKeys(m, keys, item);
+        ctx.CheckKeys(m, [.. keys, .. ObservationMarks.Keys], item);
         string value = ctx.RequiredString(m, "value", item);
         var target = TargetOf(ctx, m, item, specs);
         if (target is not null && spec.Instrument is null)
@@ -328,7 +342,7 @@ public static partial class ProjectReader
         string from = ctx.RequiredString(m, "from", "a levelling section");
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
-        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", "level", "setups", "runs"], item);
+        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", "level", "setups", "runs", .. ObservationMarks.Keys], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
@@ -343,7 +357,7 @@ public static partial class ProjectReader
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
             : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
         var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
-        return budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o;
+        return ObservationMarks.Apply(budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o, node, ctx.File);
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>

@@ -81,6 +81,7 @@ public static class JsonResultWriter
             NumberOrNull(w, "sd_n", p.SdN);
             NumberOrNull(w, "sd_h", p.SdH);
             NumberOrNull(w, "cov_en", p.CovEN);
+            StatisticsJson.WritePoint(w, r, p);
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -105,6 +106,7 @@ public static class JsonResultWriter
             BudgetOutput.WriteComponents(w, i, k);
             w.WriteNumber("sd_adjusted", o.SdAdjusted * k);
             if (i.Source is not null) w.WriteString("source", i.Source);
+            StatisticsJson.WriteObservation(w, r, o);
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -120,6 +122,7 @@ public static class JsonResultWriter
             w.WriteEndObject();
         }
         w.WriteEndArray();
+        StatisticsJson.WriteSections(w, r, context);
     }
 
     internal static string FixityText(Fixity f) =>

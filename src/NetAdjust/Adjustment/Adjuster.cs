@@ -36,7 +36,9 @@ public static class Adjuster
             diagonal[i] = options.AprioriVarianceFactor / Sq(network.Observations[i].StandardDeviation);
         for (int k = 0; k < control.Count; k++)
             diagonal[network.Observations.Count + k] = options.AprioriVarianceFactor / Sq(control[k].Sd);
-        var weights = options.WeightModel?.Build(network, diagonal, options.AprioriVarianceFactor) ?? WeightMatrix.Diagonal(diagonal);
+        var excluded = Enumerable.Range(0, network.Observations.Count).Where(i => network.Observations[i].Excluded).ToArray();
+        var weights = (options.WeightModel?.Build(network, diagonal, options.AprioriVarianceFactor) ?? WeightMatrix.Diagonal(diagonal)).Excluding(excluded);
+        n -= excluded.Length; // set-aside observations carry no weight and add no redundancy
 
         int iterations = 0;
         if (u > 0)
@@ -89,7 +91,7 @@ public static class Adjuster
             double v = -finalL[i];
             double adjusted = o.Value + v;
             if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
-            double qll = finalFactor is null ? 0 : Quadratic(finalRows[i], finalFactor);
+            double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) : Quadratic(finalRows[i], finalFactor);
             observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i);
         }
         var orientations = network.Observations.OfType<DirectionObservation>()
@@ -115,6 +117,14 @@ public static class Adjuster
             for (int q = 0; q < a.Columns.Length; q++)
                 s += a.Values[p] * a.Values[q] * f.InverseEntry(a.Columns[p], a.Columns[q]);
         return s;
+    }
+
+    /// <summary>a Qxx aᵀ by one solve, for a row whose unknowns need not lie on the pattern of N (a set-aside observation).</summary>
+    internal static double QuadraticBySolve(SparseRow a, INormalFactor f)
+    {
+        var rhs = new double[f.Size];
+        for (int p = 0; p < a.Columns.Length; p++) rhs[a.Columns[p]] += a.Values[p];
+        return a.Dot(f.Solve(rhs)); // a (N⁻¹ aᵀ)
     }
 
     private static string NoConvergenceMessage(AdjustmentOptions options, UnknownIndex index, double[] dx)

@@ -24,6 +24,9 @@ public sealed record AdjustmentOptions
     /// <summary>How the datum is defined: by the control (default), by minimal constraints, or by inner constraints (free network).</summary>
     public DatumDefinition Datum { get; init; } = DatumDefinition.ByControl;
 
+    /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <see cref="AdjustmentResult.Analysis"/>.</summary>
+    public Statistics.AnalysisOptions Analysis { get; init; } = Statistics.AnalysisOptions.Default;
+
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
 
@@ -42,5 +45,6 @@ public sealed record AdjustmentOptions
         if (!(AngleTolerance > 0)) throw new InvalidInputException("the convergence tolerance for angles must be positive");
         if (!(AprioriVarianceFactor > 0)) throw new InvalidInputException("the a-priori variance factor must be positive");
         if (!(GlobalTestAlpha > 0 && GlobalTestAlpha < 1)) throw new InvalidInputException("the significance level of the global test must be between 0 and 1");
+        (Analysis ?? throw new InvalidInputException("the statistics options must not be null")).Validate();
     }
 }

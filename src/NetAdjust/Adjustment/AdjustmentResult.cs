@@ -72,7 +72,24 @@ public sealed class AdjustmentResult
         Network = network; Options = options; Unknowns = unknowns; _factor = factor;
         Points = points; Observations = observations; Orientations = orientations; Statistics = statistics;
         SolverName = solverName; DesignRows = designRows; Weights = weights;
+        _analysis = new Lazy<NetworkAnalysis>(() => ResultAnalysis.Analyse(this, options.Analysis));
     }
+
+    private readonly Lazy<NetworkAnalysis> _analysis;
+
+    /// <summary>
+    /// The post-adjustment statistics (redundancy numbers, w and tau tests, MDB, external reliability, absolute and
+    /// relative ellipses) with <see cref="AdjustmentOptions.Analysis"/>; computed on first use, then kept.
+    /// </summary>
+    public NetworkAnalysis Analysis => _analysis.Value;
+
+    /// <summary>True when the adjustment has unknowns, so that <see cref="Cofactor"/> and <see cref="Solve"/> can be used.</summary>
+    public bool HasFactor => _factor is not null;
+
+    /// <summary>Solves N x = b with the factor of the normal matrix N at the solution, i.e. x = Qxx b.</summary>
+    /// <param name="rhs">b, one entry per unknown.</param>
+    /// <returns>x = Qxx b.</returns>
+    public double[] Solve(ReadOnlySpan<double> rhs) => _factor is null ? throw new InvalidOperationException("There are no unknowns.") : _factor.Solve(rhs);
 
     /// <summary>The network adjusted.</summary>
     public SurveyNetwork Network { get; }

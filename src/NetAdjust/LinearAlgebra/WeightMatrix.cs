@@ -71,6 +71,67 @@ public sealed class WeightMatrix
     /// <exception cref="ArgumentException">When the blocks do not cover each row exactly once.</exception>
     public static WeightMatrix FromBlocks(int rowCount, IEnumerable<WeightBlock> blocks) => new(rowCount, blocks.ToArray());
 
+    /// <summary>
+    /// The weight matrix with some rows set aside: those rows get weight zero (they stay in the matrix so row numbers
+    /// keep their meaning) and the other rows of their blocks get the weight of the remaining observations alone,
+    /// (Σ_kept)⁻¹ = P_kk − P_ke P_ee⁻¹ P_ek (the Schur complement). Diagonal blocks simply lose the excluded rows' weight.
+    /// </summary>
+    /// <param name="rows">Rows to set aside (duplicates allowed).</param>
+    /// <returns>A new matrix; this one when <paramref name="rows"/> is empty.</returns>
+    public WeightMatrix Excluding(IReadOnlyCollection<int> rows)
+    {
+        if (rows.Count == 0) return this;
+        var drop = new HashSet<int>(rows);
+        var blocks = new WeightBlock[_blocks.Length];
+        for (int b = 0; b < _blocks.Length; b++)
+        {
+            var blk = _blocks[b];
+            var e = Enumerable.Range(0, blk.Size).Where(k => drop.Contains(blk.Rows[k])).ToArray();
+            if (e.Length == 0) { blocks[b] = blk; continue; }
+            var keep = Enumerable.Range(0, blk.Size).Where(k => !drop.Contains(blk.Rows[k])).ToArray();
+            var m = new double[blk.Size * blk.Size];
+            if (keep.Length > 0)
+            {
+                // P_ee⁻¹ by Gauss-Jordan on the small excluded sub-block (symmetric positive definite).
+                int ne = e.Length;
+                var pee = new double[ne * ne];
+                for (int i = 0; i < ne; i++) for (int j = 0; j < ne; j++) pee[(i * ne) + j] = blk[e[i], e[j]];
+                var inv = SmallInverse(pee, ne);
+                foreach (int i in keep)
+                    foreach (int j in keep)
+                    {
+                        double s = blk[i, j];
+                        for (int x = 0; x < ne; x++)
+                            for (int y = 0; y < ne; y++) s -= blk[i, e[x]] * inv[(x * ne) + y] * blk[e[y], j];
+                        m[(i * blk.Size) + j] = s;
+                    }
+            }
+            blocks[b] = new WeightBlock(blk.Rows, m);
+        }
+        return new WeightMatrix(RowCount, blocks);
+    }
+
+    private static double[] SmallInverse(double[] a, int n)
+    {
+        var m = (double[])a.Clone();
+        var inv = new double[n * n];
+        for (int i = 0; i < n; i++) inv[(i * n) + i] = 1;
+        for (int c = 0; c < n; c++)
+        {
+            double piv = m[(c * n) + c];
+            if (!(Math.Abs(piv) > 0)) throw new ArgumentException("a weight block is singular");
+            for (int j = 0; j < n; j++) { m[(c * n) + j] /= piv; inv[(c * n) + j] /= piv; }
+            for (int r = 0; r < n; r++)
+            {
+                if (r == c) continue;
+                double f = m[(r * n) + c];
+                if (f == 0) continue;
+                for (int j = 0; j < n; j++) { m[(r * n) + j] -= f * m[(c * n) + j]; inv[(r * n) + j] -= f * inv[(c * n) + j]; }
+            }
+        }
+        return inv;
+    }
+
     /// <summary>The number of rows.</summary>
     public int RowCount { get; }
 

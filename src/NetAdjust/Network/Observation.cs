@@ -73,6 +73,18 @@ public abstract record Observation
     public string? Source { get; init; }
 
     /// <summary>
+    /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but
+    /// is still reported, with its misclosure against the adjusted coordinates. Nothing is deleted from the data.
+    /// </summary>
+    public bool Excluded { get; init; }
+
+    /// <summary>
+    /// The factor (≥ 1 normally; any positive value) by which the user re-weighted this observation's standard
+    /// deviation; <see cref="StandardDeviation"/> already includes it. 1 when not re-weighted. For reports only.
+    /// </summary>
+    public double SdFactor { get; init; } = 1.0;
+
+    /// <summary>
     /// The error budget behind <see cref="StandardDeviation"/> when it was derived from instrument, target and
     /// procedure specifications (its total equals the standard deviation); null when the standard deviation was
     /// given directly. Set both with <see cref="WithBudget"/>.

@@ -1,0 +1,89 @@
+using System.CommandLine;
+using NetAdjust.Adjustment;
+using NetAdjust.IO.Project;
+using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
+
+namespace NetAdjust.Cli.Commands;
+
+/// <summary>
+/// The statistics options of <c>adjust</c>: <c>--snoop</c>, <c>--snoop-limit N</c>, <c>--robust huber|danish</c>,
+/// <c>--components</c>, <c>--variance-factor known|estimated</c>.
+/// </summary>
+internal sealed class StatisticsCliOptions
+{
+    private readonly Option<bool> _snoop = new("--snoop")
+    {
+        Description = "Hunt for blunders by iterative data snooping: set aside the worst failing observation and re-adjust, round by round. The report logs each round.",
+    };
+
+    private readonly Option<int> _limit = new("--snoop-limit")
+    {
+        Description = "Largest number of observations the blunder hunt may set aside (default 10).",
+        HelpName = "N",
+        DefaultValueFactory = _ => 10,
+    };
+
+    private readonly Option<string?> _robust = new("--robust")
+    {
+        Description = "Also run a robust re-weighted adjustment to locate several blunders at once: huber or danish. The main result stays the ordinary adjustment.",
+        HelpName = "huber|danish",
+    };
+
+    private readonly Option<bool> _components = new("--components")
+    {
+        Description = "Estimate a variance factor per observation group (variance component estimation) and report the specification each group implies.",
+    };
+
+    private readonly Option<string?> _basis = new("--variance-factor")
+    {
+        Description = "Take the a-priori variance factor as known (w-test, chi-square ellipse scale) or estimated (tau test, F scale); overrides the project file.",
+        HelpName = "known|estimated",
+    };
+
+    public void AddTo(Command cmd)
+    {
+        cmd.Options.Add(_snoop);
+        cmd.Options.Add(_limit);
+        cmd.Options.Add(_robust);
+        cmd.Options.Add(_components);
+        cmd.Options.Add(_basis);
+    }
+
+    /// <summary>Adjusts the project with the chosen statistics and returns the result to report and the context carrying the extra sections.</summary>
+    public (AdjustmentResult, ReportContext) Run(ParseResult parse, SurveyProject project, ReportContext context)
+    {
+        var options = project.Options;
+        switch (parse.GetValue(_basis))
+        {
+            case null: break;
+            case "known": options = options with { Analysis = options.Analysis with { VarianceFactor = VarianceFactorBasis.Known } }; break;
+            case "estimated": options = options with { Analysis = options.Analysis with { VarianceFactor = VarianceFactorBasis.Estimated } }; break;
+            case var other: throw new InvalidInputException($"--variance-factor '{other}' must be 'known' or 'estimated'");
+        }
+        RobustMethod? robust = parse.GetValue(_robust) switch
+        {
+            null => null,
+            "huber" => RobustMethod.Huber,
+            "danish" => RobustMethod.Danish,
+            var other => throw new InvalidInputException($"--robust '{other}' must be 'huber' or 'danish'"),
+        };
+        int limit = parse.GetValue(_limit);
+        if (limit < 1) throw new InvalidInputException($"--snoop-limit {limit} must be at least 1");
+
+        AdjustmentResult result;
+        if (parse.GetValue(_snoop))
+        {
+            var hunt = DataSnooping.Run(project.Network, options, limit);
+            result = hunt.Final;
+            context = context with { Hunt = hunt };
+        }
+        else result = Adjuster.Adjust(project.Network, options);
+
+        // The robust run sees the data as given (it is a second opinion beside the hunt); the variance components use
+        // the network after the hunt, so that set-aside blunders do not inflate their group's factor.
+        if (robust is RobustMethod m) context = context with { Robust = RobustEstimation.Run(project.Network, m, options) };
+        if (parse.GetValue(_components)) context = context with { Components = VarianceComponents.Estimate(result.Network, options) };
+        return (result, context);
+    }
+}

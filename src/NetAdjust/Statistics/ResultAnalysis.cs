@@ -1,0 +1,394 @@
+using NetAdjust.Adjustment;
+using NetAdjust.Geometry;
+using NetAdjust.LinearAlgebra;
+using NetAdjust.Network;
+
+namespace NetAdjust.Statistics;
+
+/// <summary>
+/// Computes the statistics of an adjustment result (docs/methods.md): redundancy numbers, w and tau tests, minimal
+/// detectable biases, external reliability, absolute and relative error ellipses.
+/// </summary>
+/// <remarks>
+/// Access pattern (kept so that a sparse factor with a selected inverse suffices): entries of Qxx are asked only for
+/// unknowns that share a design row or a weight block, or that belong to one point. Everything else (external
+/// reliability, relative ellipses of pairs not joined by an observation) is computed by solves with the factor.
+/// </remarks>
+public static class ResultAnalysis
+{
+    /// <summary>Analyses a result.</summary>
+    /// <param name="result">The adjustment result.</param>
+    /// <param name="options">The options; null for <see cref="AnalysisOptions.Default"/>.</param>
+    /// <returns>The analysis.</returns>
+    /// <exception cref="InvalidInputException">When an option is out of range or a listed pair names an unknown point.</exception>
+    public static NetworkAnalysis Analyse(AdjustmentResult result, AnalysisOptions? options = null)
+    {
+        options ??= AnalysisOptions.Default;
+        options.Validate();
+        var st = result.Statistics;
+        int dof = st.DegreesOfFreedom;
+        double s0sq = st.AprioriVarianceFactor;
+        var basis = options.VarianceFactor == VarianceFactorBasis.Estimated && dof > 0 && st.VarianceFactor > 0
+            ? VarianceFactorBasis.Estimated : VarianceFactorBasis.Known;
+        double vf = basis == VarianceFactorBasis.Estimated ? st.VarianceFactor!.Value : s0sq;
+        double wCrit = CriticalValues.WTest(options.WTestAlpha);
+        double delta0 = CriticalValues.NonCentrality(options.WTestAlpha, options.TypeIIError);
+        double? tauCrit = CriticalValues.Tau(dof, st.Observations, options.TauAlpha, options.TauAdjustment);
+        double? sigmaHat = st.Sigma0 is double sh && sh > 0 ? sh : null;
+
+        var rows = result.DesignRows;
+        var weights = result.Weights;
+        int m = rows.Count, nObs = result.Observations.Count;
+        var control = ControlComponents(result);
+        if (nObs + control.Count != m)
+            throw new InvalidOperationException($"the result has {m} design rows for {nObs} observations and {control.Count} control components");
+        var v = new double[m];
+        for (int i = 0; i < nObs; i++) v[i] = result.Observations[i].Residual;
+        for (int k = 0; k < control.Count; k++) v[nObs + k] = control[k].Residual;
+
+        bool hasFactor = result.HasFactor;
+        double Q(int i, int j) => hasFactor ? result.Cofactor(i, j) : 0.0;
+        double AQA(SparseRow a, SparseRow b)
+        {
+            double s = 0;
+            for (int p = 0; p < a.Columns.Length; p++)
+                for (int q = 0; q < b.Columns.Length; q++)
+                    s += a.Values[p] * b.Values[q] * Q(a.Columns[p], b.Columns[q]);
+            return s;
+        }
+
+        var red = new double[m];
+        var pqp = new double[m];   // (P Qvv P)ᵢᵢ
+        var pv = new double[m];    // (P v)ᵢ
+        var weighted = new bool[m];
+        foreach (var blk in weights.Blocks)
+        {
+            var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)).ToArray();
+            int k = kept.Length;
+            if (k == 0) continue;
+            var pk = new double[k, k];
+            var qvv = new double[k, k];
+            for (int a = 0; a < k; a++)
+                for (int b = 0; b < k; b++) pk[a, b] = blk[kept[a], kept[b]];
+            var pinv = Invert(pk);
+            for (int a = 0; a < k; a++)
+                for (int b = 0; b <= a; b++)
+                {
+                    // Qvv = P⁻¹ − A Qxx Aᵀ on this block (Qxx entries of unknowns sharing one weight block only)
+                    double q = pinv[a, b] - AQA(rows[blk.Rows[kept[a]]], rows[blk.Rows[kept[b]]]);
+                    qvv[a, b] = q; qvv[b, a] = q;
+                }
+            for (int a = 0; a < k; a++)
+            {
+                int row = blk.Rows[kept[a]];
+                weighted[row] = true;
+                double r = 0, s = 0, y = 0;
+                for (int b = 0; b < k; b++)
+                {
+                    r += qvv[a, b] * pk[b, a];                         // (Qvv P)ᵢᵢ
+                    y += pk[a, b] * v[blk.Rows[kept[b]]];              // (P v)ᵢ
+                    for (int c = 0; c < k; c++) s += pk[a, b] * qvv[b, c] * pk[c, a]; // (P Qvv P)ᵢᵢ
+                }
+                red[row] = r; pqp[row] = s; pv[row] = y;
+            }
+        }
+
+        bool external = hasFactor && options.ExternalReliability switch
+        {
+            ExternalReliabilityMode.Always => true,
+            ExternalReliabilityMode.Never => false,
+            _ => result.Unknowns.Count <= options.ExternalReliabilityUnknownLimit,
+        };
+        var pointCols = PointColumns(result);
+
+        ObservationTest TestRow(int row, int index, bool excluded, double sd)
+        {
+            if (excluded || !weighted[row])
+            {
+                // Standardised misclosure of a set-aside row: the w it would get if put back (diagonal weight).
+                // a Qxx aᵀ by a solve: a set-aside row's unknowns need not share any weighted row
+                double aqa = hasFactor ? rows[row].Dot(result.Solve(Dense(rows[row], result.Unknowns.Count))) : 0;
+                double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
+                double? wx = denom > 0 ? v[row] / denom : null;
+                return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null, ObservationFlag.Excluded);
+            }
+            double ri = Math.Clamp(red[row], 0, 1);
+            if (ri < options.UncontrolledRedundancy || !(pqp[row] > 0))
+                return new ObservationTest(index, ri, null, null, null, null, null, null, null, null, ObservationFlag.Uncontrolled);
+            double w = pv[row] / (Math.Sqrt(s0sq) * Math.Sqrt(pqp[row]));
+            double? tau = sigmaHat is double s ? pv[row] / (s * Math.Sqrt(pqp[row])) : null;
+            double mdb = delta0 * Math.Sqrt(s0sq) / Math.Sqrt(pqp[row]);
+            double bnr = delta0 * Math.Sqrt(Math.Max(0, 1 - ri) / ri);
+            bool wPassed = Math.Abs(w) <= wCrit;
+            bool? tauPassed = tau is double t && tauCrit is double tc ? Math.Abs(t) <= tc : null;
+            bool rejected = basis == VarianceFactorBasis.Known ? !wPassed : tauPassed == false;
+            var flag = rejected ? ObservationFlag.Rejected : ri < options.WeakRedundancy ? ObservationFlag.Weak : ObservationFlag.None;
+            double? ext = null; string? extPoint = null;
+            if (external) (ext, extPoint) = ExternalShift(result, rows, weights, row, mdb, pointCols);
+            return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag);
+        }
+
+        var obsTests = new ObservationTest[nObs];
+        for (int i = 0; i < nObs; i++)
+        {
+            var o = result.Observations[i].Input;
+            obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation);
+        }
+        var controlTests = new ControlTest[control.Count];
+        for (int k = 0; k < control.Count; k++)
+            controlTests[k] = new ControlTest(control[k].PointId, control[k].Component, control[k].Residual, TestRow(nObs + k, k, false, control[k].Sd));
+
+        double kEllipse = CriticalValues.Ellipse(options.ConfidenceLevel, basis, Math.Max(1, dof));
+        double kInterval = CriticalValues.Interval(options.ConfidenceLevel, basis, Math.Max(1, dof));
+        var points = new PointPrecision[result.Points.Count];
+        for (int p = 0; p < points.Length; p++)
+        {
+            var ap = result.Points[p];
+            var (ie, inn, ih) = pointCols[ap.Id];
+            ErrorEllipse? ell = null, conf = null;
+            if (ap.SdE is not null && ap.SdN is not null)
+            {
+                var e = ErrorEllipse.FromCovariance(vf * Qs(ie, ie), vf * Qs(inn, inn), vf * Qs(ie, inn));
+                ell = e; conf = e.Scaled(kEllipse);
+            }
+            double? sdh = ih >= 0 ? Math.Sqrt(Math.Max(0, vf * Q(ih, ih))) : ap.SdH is not null ? 0.0 : null;
+            points[p] = new PointPrecision(ap.Id, ell, conf, sdh, sdh * kInterval);
+        }
+
+        double Qs(int i, int j) => i >= 0 && j >= 0 ? Q(i, j) : 0.0;
+
+        var relative = Relative(result, options, vf, kEllipse, pointCols, Q);
+        var relativeHeights = RelativeHeights(result, options, vf, kInterval, pointCols, Q);
+
+        double sumR = 0;
+        for (int i = 0; i < m; i++) if (weighted[i]) sumR += red[i];
+        return new NetworkAnalysis
+        {
+            Options = options, Basis = basis, VarianceFactor = vf, WCritical = wCrit, Delta0 = delta0, TauCritical = tauCrit,
+            EllipseScale = kEllipse, IntervalScale = kInterval, ExternalReliabilityComputed = external,
+            Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RelativeHeights = relativeHeights,
+            RedundancySum = sumR,
+        };
+    }
+
+    /// <summary>∇x = Qxx Aᵀ P eᵢ ∇ᵢ by one solve; the largest point shift (horizontal or height) and its point.</summary>
+    private static (double?, string?) ExternalShift(AdjustmentResult result, IReadOnlyList<SparseRow> rows, WeightMatrix weights, int row,
+        double bias, Dictionary<string, (int E, int N, int H)> pointCols)
+    {
+        var rhs = new double[result.Unknowns.Count];
+        var (blk, pos) = weights.BlockOf(row);
+        for (int b = 0; b < blk.Size; b++)
+        {
+            double pki = blk[b, pos];
+            if (pki == 0) continue;
+            var a = rows[blk.Rows[b]];
+            for (int c = 0; c < a.Columns.Length; c++) rhs[a.Columns[c]] += a.Values[c] * pki * bias; // Aᵀ P eᵢ ∇ᵢ
+        }
+        var dx = result.Solve(rhs); // ∇x = N⁻¹ Aᵀ P eᵢ ∇ᵢ
+        double best = 0; string? at = null;
+        foreach (var ap in result.Points)
+        {
+            var (ie, inn, ih) = pointCols[ap.Id];
+            double de = ie >= 0 ? dx[ie] : 0, dn = inn >= 0 ? dx[inn] : 0, dh = ih >= 0 ? dx[ih] : 0;
+            double s = Math.Max(Math.Sqrt((de * de) + (dn * dn)), Math.Abs(dh));
+            if (s > best) { best = s; at = ap.Id; }
+        }
+        return (best, at);
+    }
+
+    private static double[] Dense(SparseRow a, int size)
+    {
+        var x = new double[size];
+        for (int p = 0; p < a.Columns.Length; p++) x[a.Columns[p]] += a.Values[p];
+        return x;
+    }
+
+    private static Dictionary<string, (int E, int N, int H)> PointColumns(AdjustmentResult result)
+    {
+        var d = new Dictionary<string, (int, int, int)>(StringComparer.Ordinal);
+        foreach (var p in result.Points)
+            d[p.Id] = (result.Unknowns.IndexOf(p.Id, Parameter.E), result.Unknowns.IndexOf(p.Id, Parameter.N), result.Unknowns.IndexOf(p.Id, Parameter.H));
+        return d;
+    }
+
+    private sealed record ControlComponent(string PointId, string Component, double Residual, double Sd);
+
+    /// <summary>The weighted-control rows in the adjuster's order (each point in input order: E, N, H when weighted and free).</summary>
+    private static List<ControlComponent> ControlComponents(AdjustmentResult result)
+    {
+        var list = new List<ControlComponent>();
+        foreach (var ap in result.Points)
+        {
+            var p = ap.Input;
+            if (p.SdE is double se && result.Unknowns.IndexOf(p.Id, Parameter.E) >= 0) list.Add(new(p.Id, "e", ap.E!.Value - p.E!.Value, se));
+            if (p.SdN is double sn && result.Unknowns.IndexOf(p.Id, Parameter.N) >= 0) list.Add(new(p.Id, "n", ap.N!.Value - p.N!.Value, sn));
+            if (p.SdH is double sv && result.Unknowns.IndexOf(p.Id, Parameter.H) >= 0) list.Add(new(p.Id, "h", ap.H!.Value - p.H!.Value, sv));
+        }
+        return list;
+    }
+
+    private static List<RelativePrecision> Relative(AdjustmentResult result, AnalysisOptions options, double vf, double k,
+        Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
+    {
+        var network = result.Network;
+        var pairs = new List<(string From, string To, bool Observed)>();
+        var seen = new HashSet<(string, string)>();
+        void Add(string a, string b, bool observed)
+        {
+            var key = string.CompareOrdinal(a, b) < 0 ? (a, b) : (b, a);
+            if (a != b && seen.Add(key)) pairs.Add((a, b, observed));
+        }
+        if (options.RelativeForObservedPairs)
+            foreach (var o in network.Observations)
+            {
+                if (!ObservationModels.IsHorizontal(o.Kind)) continue;
+                if (o.Kind == ObservationKind.Angle) { Add(o.At!, o.From, true); Add(o.At!, o.To, true); }
+                else Add(o.From, o.To, true);
+            }
+        foreach (var (a, b) in options.RelativePairs)
+        {
+            foreach (var id in new[] { a, b })
+                if (!network.Contains(id)) throw new InvalidInputException($"the relative-precision pair {a}–{b} names point {id}, which is not in the network");
+            Add(a, b, false);
+        }
+
+        // Pairs of points whose unknowns meet in one weighted design row or weight block: their Qxx block lies on the
+        // pattern of N. Other pairs are computed by solves.
+        var onPattern = new HashSet<(string, string)>();
+        foreach (var blk in result.Weights.Blocks)
+        {
+            var owners = new SortedSet<string>(StringComparer.Ordinal);
+            for (int a = 0; a < blk.Size; a++)
+            {
+                if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
+                foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
+                    if (result.Unknowns.Unknowns[c].Parameter != Parameter.Orientation) owners.Add(result.Unknowns.Unknowns[c].Owner);
+            }
+            foreach (var x in owners) foreach (var y in owners) onPattern.Add((x, y));
+        }
+
+        var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
+        var list = new List<RelativePrecision>();
+        foreach (var (from, to, observed) in pairs)
+        {
+            var pa = byId[from]; var pb = byId[to];
+            if (pa.E is null || pa.N is null || pb.E is null || pb.N is null || pa.SdE is null || pb.SdE is null) continue;
+            var ca = cols[from]; var cb = cols[to];
+            int[] ia = [ca.E, ca.N], ib = [cb.E, cb.N];
+            if (ia.All(c => c < 0) && ib.All(c => c < 0)) continue; // both held: nothing to report
+            double Own(int i, int j) => i >= 0 && j >= 0 ? q(i, j) : 0.0;
+            var cross = new double[2, 2]; // Qxx(from-component, to-component)
+            if (onPattern.Contains((from, to)))
+            {
+                for (int s = 0; s < 2; s++) for (int t = 0; t < 2; t++) cross[s, t] = Own(ia[s], ib[t]);
+            }
+            else if (result.HasFactor)
+            {
+                for (int t = 0; t < 2; t++)
+                {
+                    if (ib[t] < 0 || ia.All(c => c < 0)) continue;
+                    var e = new double[result.Unknowns.Count];
+                    e[ib[t]] = 1;
+                    var col = result.Solve(e); // column ib[t] of Qxx = N⁻¹ e
+                    for (int s = 0; s < 2; s++) cross[s, t] = ia[s] >= 0 ? col[ia[s]] : 0;
+                }
+            }
+            // D = Q_bb + Q_aa − Q_ab − Q_ba for Δ = to − from
+            double dee = Own(ib[0], ib[0]) + Own(ia[0], ia[0]) - (2 * cross[0, 0]);
+            double dnn = Own(ib[1], ib[1]) + Own(ia[1], ia[1]) - (2 * cross[1, 1]);
+            double den = Own(ib[0], ib[1]) + Own(ia[0], ia[1]) - cross[0, 1] - cross[1, 0];
+            dee *= vf; dnn *= vf; den *= vf;
+            var ell = ErrorEllipse.FromCovariance(dee, dnn, den);
+            double de = pb.E.Value - pa.E.Value, dn = pb.N.Value - pa.N.Value;
+            double d = Math.Sqrt((de * de) + (dn * dn));
+            double sdD = 0, sdAz = 0;
+            if (d > 0)
+            {
+                double ue = de / d, un = dn / d;
+                sdD = Math.Sqrt(Math.Max(0, (ue * ue * dee) + (un * un * dnn) + (2 * ue * un * den)));
+                // azimuth = atan2(ΔE, ΔN): gradient (ΔN, −ΔE)/d²
+                double te = un, tn = -ue;
+                sdAz = Math.Sqrt(Math.Max(0, (te * te * dee) + (tn * tn * dnn) + (2 * te * tn * den))) / d;
+            }
+            list.Add(new RelativePrecision(from, to, ell, ell.Scaled(k), d, sdD, sdAz, observed));
+        }
+        return list;
+    }
+
+    private static List<RelativeHeightPrecision> RelativeHeights(AdjustmentResult result, AnalysisOptions options, double vf, double k,
+        Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
+    {
+        var pairs = new List<(string From, string To, bool Observed)>();
+        var seen = new HashSet<(string, string)>();
+        void Add(string a, string b, bool observed)
+        {
+            var key = string.CompareOrdinal(a, b) < 0 ? (a, b) : (b, a);
+            if (a != b && seen.Add(key)) pairs.Add((a, b, observed));
+        }
+        if (options.RelativeForObservedPairs)
+            foreach (var o in result.Network.Observations)
+                if (o.Kind == ObservationKind.HeightDifference) Add(o.From, o.To, true);
+        foreach (var (a, b) in options.RelativePairs) Add(a, b, false);
+
+        // Pairs joined by a weighted height-difference row have their Qxx entry on the pattern of N.
+        var onPattern = new HashSet<(int, int)>();
+        foreach (var blk in result.Weights.Blocks)
+        {
+            var hs = new List<int>();
+            for (int a = 0; a < blk.Size; a++)
+            {
+                if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
+                hs.AddRange(result.DesignRows[blk.Rows[a]].Columns.Where(c => result.Unknowns.Unknowns[c].Parameter == Parameter.H));
+            }
+            foreach (int x in hs) foreach (int y in hs) onPattern.Add((x, y));
+        }
+        var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
+        var list = new List<RelativeHeightPrecision>();
+        foreach (var (from, to, observed) in pairs)
+        {
+            var pa = byId[from]; var pb = byId[to];
+            if (pa.H is null || pb.H is null || pa.SdH is null || pb.SdH is null) continue;
+            int ia = cols[from].H, ib = cols[to].H;
+            if (ia < 0 && ib < 0) continue;
+            double cross = 0;
+            if (ia >= 0 && ib >= 0)
+                cross = onPattern.Contains((ia, ib)) ? q(ia, ib) : result.Solve(UnitVector(ib, result.Unknowns.Count))[ia];
+            double var = vf * ((ia >= 0 ? q(ia, ia) : 0) + (ib >= 0 ? q(ib, ib) : 0) - (2 * cross));
+            double sd = Math.Sqrt(Math.Max(0, var));
+            list.Add(new RelativeHeightPrecision(from, to, pb.H.Value - pa.H.Value, sd, k * sd, observed));
+        }
+        return list;
+    }
+
+    private static double[] UnitVector(int i, int size)
+    {
+        var e = new double[size];
+        e[i] = 1;
+        return e;
+    }
+
+    private static double[,] Invert(double[,] a)
+    {
+        int n = a.GetLength(0);
+        var m = (double[,])a.Clone();
+        var inv = new double[n, n];
+        for (int i = 0; i < n; i++) inv[i, i] = 1;
+        for (int c = 0; c < n; c++)
+        {
+            int p = c;
+            for (int r = c + 1; r < n; r++) if (Math.Abs(m[r, c]) > Math.Abs(m[p, c])) p = r;
+            if (m[p, c] == 0) throw new InvalidOperationException("a weight block is singular");
+            if (p != c)
+                for (int j = 0; j < n; j++) { (m[p, j], m[c, j]) = (m[c, j], m[p, j]); (inv[p, j], inv[c, j]) = (inv[c, j], inv[p, j]); }
+            double piv = m[c, c];
+            for (int j = 0; j < n; j++) { m[c, j] /= piv; inv[c, j] /= piv; }
+            for (int r = 0; r < n; r++)
+            {
+                if (r == c || m[r, c] == 0) continue;
+                double f = m[r, c];
+                for (int j = 0; j < n; j++) { m[r, j] -= f * m[c, j]; inv[r, j] -= f * inv[c, j]; }
+            }
+        }
+        return inv;
+    }
+}
