@@ -63,8 +63,8 @@ public class InnerConstraintTests
     {
         // Three ways to fix the same datum defect: held coordinates (point 0 in E, N, H and point 8 in E: plain
         // solve, no S-transformation), explicit minimal constraints (position + azimuth, held as conditions) and
-        // inner constraints. Residuals, vᵀPv and standard deviations of adjusted observations do not depend on
-        // the datum (Koch 1999, §3.4; common practice in free-network adjustment).
+        // inner constraints. Residuals, vᵀPv, standard deviations of adjusted observations, redundancy numbers and
+        // w-values do not depend on the datum (Koch 1999, §3.4; common practice in free-network adjustment).
         bool lev = seed.Get % 2 == 0;
         var net = Net(seed.Get, lev);
         var held = Adjuster.Adjust(net, Tight);
@@ -80,7 +80,14 @@ public class InnerConstraintTests
                 var b = other.Observations[i];
                 Assert.True(Math.Abs(a.Residual - b.Residual) <= 1e-9, $"residual {i}: {a.Residual} vs {b.Residual}");
                 Assert.True(Math.Abs(a.SdAdjusted - b.SdAdjusted) <= 1e-9 * a.Input.StandardDeviation, $"sd {i}: {a.SdAdjusted} vs {b.SdAdjusted}");
+                // Redundancy numbers rᵢ = (Qvv P)ᵢᵢ and w-values (Baarda 1968) depend on A Qxx Aᵀ only: datum invariant.
+                var ta = held.Analysis.Observations[i];
+                var tb = other.Analysis.Observations[i];
+                Assert.True(Math.Abs(ta.Redundancy - tb.Redundancy) <= 1e-9, $"r {i}: {ta.Redundancy} vs {tb.Redundancy}");
+                // w is v/σ: the iterations stop at 1e−10 m, i.e. ~1e−8 σ for these distances, so w agrees to 1e−6 (not 1e−9).
+                if (ta.W is double wa) Assert.True(Math.Abs(wa - tb.W!.Value) <= 1e-6, $"w {i}: {wa} vs {tb.W}");
             }
+            Assert.Equal(held.Analysis.RedundancySum, other.Analysis.RedundancySum, 9);
         }
     }
 
@@ -145,5 +152,17 @@ public class InnerConstraintTests
         // The held point has no variance in that datum.
         int e0 = minimal.Unknowns.IndexOf("Q00", NetAdjust.Geometry.Parameter.E);
         Assert.True(Math.Abs(minimal.Cofactor(e0, e0)) < 1e-12);
+    }
+
+    [Fact]
+    public void WeightedControlIsSetAsideInAFreeNetworkAndTheAnalysisStillRuns()
+    {
+        var net = Net(25, levelling: false, control: new Dictionary<int, Fixity> { [0] = Fixity.EN, [8] = Fixity.None });
+        var weighted = new NetAdjust.Network.SurveyNetwork(net.Name,
+            net.Points.Select((p, k) => k == 8 ? p with { SdE = 0.01, SdN = 0.01 } : p), net.Observations);
+        var free = Adjuster.Adjust(weighted, Tight with { Datum = DatumDefinition.Free() });
+        Assert.Equal(free.Observations.Count, free.DesignRows.Count);      // no control rows
+        Assert.Empty(free.Analysis.Control);
+        Assert.Equal(free.Statistics.DegreesOfFreedom, free.Analysis.RedundancySum, 9);
     }
 }
