@@ -45,13 +45,14 @@ public static class SequenceJsonWriter
             w.WriteStartObject("chi_square");
             w.WriteNumber("statistic", t.ChiSquare);
             Num(w, "critical", t.ChiSquareCritical);
-            Bool(w, "passed", t.Passed);
+            Bool(w, "passed", t.PassedChiSquare);
             w.WriteEndObject();
             w.WriteStartObject("f");
             Num(w, "statistic", t.F);
             Num(w, "critical", t.FCritical);
             Bool(w, "passed", t.PassedF);
             w.WriteEndObject();
+            w.WriteString("decided_by", t.SigmaEstimated ? "f" : "chi_square");
             Bool(w, "passed", t.Passed);
             w.WriteEndObject();
 
@@ -140,11 +141,12 @@ public static class SequenceReportWriter
         Line($"TEST OF THE ADDED CONSTRAINTS (does the control fit the observations? alpha {F(t.Alpha, 3)}, one-tailed)");
         Line($"  Added constraints                 {t.AddedConstraints,8}");
         Line($"  Increase of vTPv                  {F(t.VtpvIncrease, 4),12}");
-        if (t.Passed is bool ok)
+        if (t.PassedChiSquare is bool ok)
         {
-            Line($"  Chi-square (sigma0 known)         {F(t.ChiSquare, 3)} <= {F(t.ChiSquareCritical!.Value, 3)} ? {(ok ? "PASSED" : "FAILED")}");
+            string chi = t.SigmaEstimated ? "" : "  (decides)", fd = t.SigmaEstimated ? "  (decides)" : "";
+            Line($"  Chi-square (sigma0 known)         {F(t.ChiSquare, 3)} <= {F(t.ChiSquareCritical!.Value, 3)} ? {(ok ? "PASSED" : "FAILED")}{chi}");
             if (t.PassedF is bool okF)
-                Line($"  F (sigma0 from step 1)            {F(t.F!.Value, 3)} <= {F(t.FCritical!.Value, 3)} ? {(okF ? "PASSED" : "FAILED")}");
+                Line($"  F (sigma0 from step 1)            {F(t.F!.Value, 3)} <= {F(t.FCritical!.Value, 3)} ? {(okF ? "PASSED" : "FAILED")}{fd}");
         }
         else Line("  Not possible: the control adds no constraint beyond the minimum.");
         Line();

@@ -18,11 +18,18 @@ namespace NetAdjust.Adjustment;
 /// <param name="ChiSquareCritical">χ²(1 − α; Δr); null when Δr = 0.</param>
 /// <param name="F">The F statistic; null when Δr = 0 or r_m = 0.</param>
 /// <param name="FCritical">F(1 − α; Δr, r_m); null with <paramref name="F"/>.</param>
+/// <param name="SigmaEstimated">True when the variance factor is taken as estimated (statistics option): the F test decides.</param>
 public sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, double ChiSquare, double? ChiSquareCritical,
-    double? F, double? FCritical)
+    double? F, double? FCritical, bool SigmaEstimated = false)
 {
-    /// <summary>True when the control fits (χ² test, σ0 known), false when not, null when there is nothing to test.</summary>
-    public bool? Passed => ChiSquareCritical is double c ? ChiSquare <= c : null;
+    /// <summary>The χ² decision (σ0 known): true when the control fits, null when there is nothing to test.</summary>
+    public bool? PassedChiSquare => ChiSquareCritical is double c ? ChiSquare <= c : null;
+
+    /// <summary>
+    /// True when the control fits, false when not, null when there is nothing to test: the χ² test when σ0 is
+    /// known (default), the F test when it is taken as estimated.
+    /// </summary>
+    public bool? Passed => SigmaEstimated ? PassedF : PassedChiSquare;
 
     /// <summary>The same decision by the F test (σ0 estimated from the minimally-constrained solution); null when not possible.</summary>
     public bool? PassedF => F is double f && FCritical is double c ? f <= c : null;
@@ -107,11 +114,12 @@ public static class AdjustmentSequence
         int dr = sc.DegreesOfFreedom - sm.DegreesOfFreedom;
         double inc = sc.Vtpv - sm.Vtpv;
         double alpha = options.GlobalTestAlpha;
+        bool estimated = options.Analysis.VarianceFactor == Statistics.VarianceFactorBasis.Estimated;
         var test = dr <= 0
-            ? new ConstraintTest(alpha, Math.Max(dr, 0), inc, inc / s2, null, null, null)
+            ? new ConstraintTest(alpha, Math.Max(dr, 0), inc, inc / s2, null, null, null, estimated)
             : new ConstraintTest(alpha, dr, inc, inc / s2, ChiSquared.InvCDF(dr, 1 - alpha),
                 sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? inc / dr / (sm.Vtpv / sm.DegreesOfFreedom) : null,
-                sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? FisherSnedecor.InvCDF(dr, sm.DegreesOfFreedom, 1 - alpha) : null);
+                sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? FisherSnedecor.InvCDF(dr, sm.DegreesOfFreedom, 1 - alpha) : null, estimated);
 
         var discrepancies = new List<ControlDiscrepancy>();
         foreach (var p in minimal.Points)

@@ -106,4 +106,15 @@ public class SequenceTests
         var inner = AdjustmentSequence.Run(net, Tight);
         Assert.Equal(inner.Test.VtpvIncrease, s.Test.VtpvIncrease, 6);
     }
+
+    [Fact]
+    public void WithAnEstimatedVarianceFactorTheFTestDecides()
+    {
+        var sim = DatumNetworks.Grid(46, 4, Five, disturb: (12, 0.03, 0.04));
+        var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = NetAdjust.Statistics.VarianceFactorBasis.Estimated } };
+        var s = AdjustmentSequence.Run(sim.Network, options);
+        Assert.True(s.Test.SigmaEstimated);
+        Assert.Equal(s.Test.PassedF, s.Test.Passed);
+        Assert.False(s.Test.Passed);
+    }
 }
