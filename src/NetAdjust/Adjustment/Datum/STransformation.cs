@@ -37,7 +37,11 @@ public static class STransformation
         return s * cofactor * s.Transpose();
     }
 
-    /// <summary>The full cofactor matrix Qxx of a result (u×u; dense, for analysis of small networks).</summary>
+    /// <summary>
+    /// The full cofactor matrix Qxx of a result (u×u; dense, for analysis of small networks). Needs a solver whose
+    /// factor gives every entry of N⁻¹ (the dense solver does); a sparse factor may give only the entries on the
+    /// pattern of N.
+    /// </summary>
     /// <param name="result">The result.</param>
     public static Matrix<double> Cofactor(AdjustmentResult result)
     {
