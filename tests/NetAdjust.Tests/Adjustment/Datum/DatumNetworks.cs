@@ -20,8 +20,9 @@ internal static class DatumNetworks
     /// <param name="azimuth">Add one observed azimuth (removes the rotation defect).</param>
     /// <param name="disturb">A control point whose given coordinates are moved (dE, dN) from the truth.</param>
     /// <param name="noise">Scale of the observation noise (0 for exact observations).</param>
+    /// <param name="distances">Include the distances (without them, and without an azimuth, scale is a defect too).</param>
     public static Sim Grid(int seed, int side, IReadOnlyDictionary<int, Fixity> control, double? approx = 0.05, bool levelling = false,
-        bool azimuth = false, (int Index, double DE, double DN)? disturb = null, double noise = 1.0)
+        bool azimuth = false, (int Index, double DE, double DN)? disturb = null, double noise = 1.0, bool distances = true)
     {
         var rng = new Random(seed);
         double Gauss() => Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble());
@@ -59,7 +60,8 @@ internal static class DatumNetworks
                 {
                     double dist = Math.Sqrt(Math.Pow(t.E - st.E, 2) + Math.Pow(t.N - st.N, 2));
                     double sd = 0.002 + (2e-6 * dist);
-                    obs.Add(new DistanceObservation(st.Id, t.Id, Length.FromMetres(dist + (noise * Gauss() * sd))) { StandardDeviation = sd });
+                    double dd = dist + (noise * Gauss() * sd);
+                    if (distances) obs.Add(new DistanceObservation(st.Id, t.Id, Length.FromMetres(dd)) { StandardDeviation = sd });
                     if (levelling)
                         obs.Add(new HeightDifferenceObservation(st.Id, t.Id, Length.FromMetres(t.H - st.H + (noise * Gauss() * 0.001))) { StandardDeviation = 0.001 });
                 }

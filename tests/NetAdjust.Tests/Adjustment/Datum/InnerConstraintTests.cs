@@ -169,4 +169,33 @@ public class InnerConstraintTests
         Assert.Empty(free.Analysis.Control);
         Assert.Equal(free.Statistics.DegreesOfFreedom, free.Analysis.RedundancySum, 9);
     }
+
+    [Theory]
+    [InlineData(26, true)]
+    [InlineData(27, false)]
+    public void ADirectionOnlyNetworkHasAScaleDefectThatMinimalAndInnerConstraintsBothFix(int seed, bool azimuth)
+    {
+        // No distance: scale joins the datum defect (with an azimuth: translation and scale; without: also rotation).
+        // Held control for the same defect: point 0 in E and N, point 8 in E (and N when rotation is a defect too).
+        var control = new Dictionary<int, Fixity> { [0] = Fixity.EN, [8] = azimuth ? Fixity.E : Fixity.EN };
+        var net = DatumNetworks.Grid(seed, 3, control, azimuth: azimuth, distances: false).Network;
+        var held = Adjuster.Adjust(net, Tight);
+        var minimal = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q22") });
+        var free = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Free() });
+        int defect = azimuth ? 3 : 4;
+        Assert.Equal(free.Statistics.Observations - free.Statistics.Unknowns + defect, free.Statistics.DegreesOfFreedom);
+        foreach (var other in new[] { minimal, free })
+        {
+            Assert.Equal(held.Statistics.DegreesOfFreedom, other.Statistics.DegreesOfFreedom);
+            Assert.True(Math.Abs(held.Statistics.Vtpv - other.Statistics.Vtpv) <= 1e-9 * held.Statistics.Vtpv);
+        }
+        // Minimal constraints hold the distance Q00–Q22 at its value from the given coordinates.
+        var p0 = minimal.Points.Single(p => p.Id == "Q00");
+        var p1 = minimal.Points.Single(p => p.Id == "Q22");
+        var g0 = net["Q00"];
+        var g1 = net["Q22"];
+        Assert.Equal(Math.Sqrt(Math.Pow(g1.E!.Value - g0.E!.Value, 2) + Math.Pow(g1.N!.Value - g0.N!.Value, 2)),
+            Math.Sqrt(Math.Pow(p1.E!.Value - p0.E!.Value, 2) + Math.Pow(p1.N!.Value - p0.N!.Value, 2)), 8);
+        AssertCofactorsEqual(Bordered(Normal(free), STransformation.InnerConstraints(free, STransformation.NullSpace(free))), free.Cofactor, 1e-9, "Q scale-free");
+    }
 }
