@@ -15,13 +15,12 @@ internal sealed class DatumPlan
 {
     private enum Defect { East, North, Rotation, Scale, Height }
 
-    private readonly SurveyNetwork _network;
     private readonly List<Defect> _defects = [];
     private readonly int[] _held = [];
     private readonly string? _p0, _p1, _hp;
     private readonly HashSet<string>? _subset;
     private readonly HashSet<string> _heldPoints = [];
-    private readonly List<string> _planePoints, _heightPoints;
+    private readonly List<string> _planePoints;
     private readonly Dictionary<string, double> _e0, _n0, _h0;
 
     public DatumDefinition Definition { get; }
@@ -40,8 +39,8 @@ internal sealed class DatumPlan
         List<string> planePoints, List<string> heightPoints, Dictionary<string, double> e0, Dictionary<string, double> n0, Dictionary<string, double> h0,
         Selection sel)
     {
-        _network = network; Definition = definition; Index = index; State = state;
-        _planePoints = planePoints; _heightPoints = heightPoints; _e0 = e0; _n0 = n0; _h0 = h0;
+        Definition = definition; Index = index; State = state;
+        _planePoints = planePoints; _e0 = e0; _n0 = n0; _h0 = h0;
         if (UsesControl) return;
         _defects = sel.Defects;
         (_p0, _p1, _hp, _subset, FullHold, _heldPoints) = (sel.P0, sel.P1, sel.Hp, sel.Subset, sel.FullHold, sel.HeldPoints);
