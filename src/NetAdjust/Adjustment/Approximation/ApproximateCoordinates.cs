@@ -44,6 +44,19 @@ internal static class ApproximateCoordinates
     /// <exception cref="InvalidInputException">Naming each point that cannot be reached and what it lacks.</exception>
     public static void Plane(SurveyNetwork network, IReadOnlyCollection<string> plane, Dictionary<string, double> e, Dictionary<string, double> n, bool seedWhenNothingKnown)
     {
+        // Observations set aside (e.g. by the blunder hunt) are used only for points nothing else reaches.
+        if (network.Observations.Any(o => o.Excluded))
+        {
+            var kept = new SurveyNetwork(network.Name, network.Points, network.Observations.Where(o => !o.Excluded));
+            var keptPlane = plane.Where(id => ObservationsOf(kept, id).Count > 0).ToHashSet(StringComparer.Ordinal);
+            Plane(kept, keptPlane, e, n, seedWhenNothingKnown, throwWhenMissing: false);
+        }
+        Plane(network, plane, e, n, seedWhenNothingKnown, throwWhenMissing: true);
+    }
+
+    private static void Plane(SurveyNetwork network, IReadOnlyCollection<string> plane, Dictionary<string, double> e, Dictionary<string, double> n,
+        bool seedWhenNothingKnown, bool throwWhenMissing)
+    {
         var known = new Dictionary<string, PlanePoint>(StringComparer.Ordinal);
         foreach (var id in plane)
             if (e.TryGetValue(id, out double x) && n.TryGetValue(id, out double y)) known[id] = new PlanePoint(x, y);
@@ -64,7 +77,7 @@ internal static class ApproximateCoordinates
         }
 
         var missing = order.Where(id => !known.ContainsKey(id)).ToList();
-        if (missing.Count > 0)
+        if (missing.Count > 0 && throwWhenMissing)
         {
             var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
             OrientSets(sets, known, orientation);
@@ -93,7 +106,8 @@ internal static class ApproximateCoordinates
     public static void Heights(SurveyNetwork network, IReadOnlyCollection<string> height, Dictionary<string, double> h)
     {
         var edges = new Dictionary<string, List<(string To, double Dh)>>(StringComparer.Ordinal);
-        foreach (var o in network.Observations.OfType<HeightDifferenceObservation>())
+        // Set-aside observations last, so that they are used only where nothing else reaches.
+        foreach (var o in network.Observations.OfType<HeightDifferenceObservation>().OrderBy(x => x.Excluded))
         {
             Edge(edges, o.From).Add((o.To, o.Value));
             Edge(edges, o.To).Add((o.From, -o.Value));
@@ -121,7 +135,7 @@ internal static class ApproximateCoordinates
     private static void LocalFrames(SurveyNetwork network, List<string> order, Dictionary<string, PlanePoint> known,
         Dictionary<string, List<DirectionObservation>> sets, bool ties)
     {
-        bool distances = network.Observations.Any(o => o.Kind == ObservationKind.Distance);
+        bool distances = network.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
         var tried = new HashSet<string>(StringComparer.Ordinal);
         while (order.FirstOrDefault(id => !known.ContainsKey(id) && !tried.Contains(id)) is string start)
         {

@@ -29,8 +29,10 @@ internal static class DatumDiagnosis
             while (parent[x] != x) x = parent[x] = parent[parent[x]];
             return x;
         }
-        var obs = network.Observations.Where(o => ObservationModels.IsHorizontal(o.Kind) == plane).ToList();
-        foreach (var o in obs)
+        // Set-aside observations carry no weight: they neither join parts nor fix scale or orientation.
+        var all = network.Observations.Where(o => ObservationModels.IsHorizontal(o.Kind) == plane).ToList();
+        var obs = all.Where(o => !o.Excluded).ToList();
+        foreach (var o in all)
             foreach (var id in o.Points) parent.TryAdd(id, id);
         foreach (var o in obs)
         {

@@ -87,8 +87,8 @@ internal sealed class DatumPlan
         var defects = new List<Defect>();
         var heldPoints = new HashSet<string>(StringComparer.Ordinal);
         if (definition.Mode == DatumMode.Control) return new Selection(defects, null, null, null, null, false, heldPoints);
-        bool azimuth = network.Observations.Any(o => o.Kind == ObservationKind.Azimuth);
-        bool distance = network.Observations.Any(o => o.Kind == ObservationKind.Distance);
+        bool azimuth = network.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded);
+        bool distance = network.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
         if (planePoints.Count > 0)
         {
             defects.Add(Defect.East);
@@ -171,7 +171,7 @@ internal sealed class DatumPlan
         var rayStations = new HashSet<string>(StringComparer.Ordinal);
         foreach (var o in ApproximateCoordinates.ObservationsOf(network, id))
         {
-            if (!ObservationModels.IsHorizontal(o.Kind)) continue;
+            if (!ObservationModels.IsHorizontal(o.Kind) || o.Excluded) continue;
             if (o.Kind == ObservationKind.Distance) count += 2;
             else if (o.At == id) count++;
             else rayStations.Add(o.At ?? (o.From == id ? o.To : o.From));

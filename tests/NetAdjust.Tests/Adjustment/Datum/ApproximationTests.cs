@@ -121,6 +121,24 @@ public class ApproximationTests
     }
 
     [Fact]
+    public void ObservationsSetAsideAreNotUsedWhereOthersReach()
+    {
+        // A distance with a 100 m blunder, set aside (as the blunder hunt does), comes first in the input.
+        var p = (E: 1180.0, N: 2250.0);
+        var pts = new[] { Held("A"), Held("B"), new Point("P") };
+        double d = Dist(1000, 2000, p.E, p.N);
+        var obs = new Observation[]
+        {
+            new DistanceObservation("A", "P", Length.FromMetres(d + 100)) { StandardDeviation = 0.002, Excluded = true },
+            Dir("A", (1000, 2000), "B", (1400, 2100), 0.3, "A/1"), Dir("A", (1000, 2000), "P", p, 0.3, "A/1"),
+            new DistanceObservation("A", "P", Length.FromMetres(d)) { StandardDeviation = 0.002 },
+        };
+        var (e, n) = Run(new SurveyNetwork("aside", pts, obs));
+        Assert.Equal(p.E, e["P"], 6);
+        Assert.Equal(p.N, n["P"], 6);
+    }
+
+    [Fact]
     public void HeightsFollowTheLevellingFromTheBenchmark()
     {
         var pts = new[] { new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"), new Point("L3") };
