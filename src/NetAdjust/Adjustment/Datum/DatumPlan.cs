@@ -255,21 +255,30 @@ internal sealed class DatumPlan
         int u = Index.Count;
         if (ConditionCount == 0) return FactorizeOrExplain(solver, u, rows, weights, j => j);
 
-        var reduced = Enumerable.Repeat(0, u).ToArray();
-        foreach (int j in _held) reduced[j] = -1;
-        var back = new List<int>();
-        for (int j = 0; j < u; j++) if (reduced[j] >= 0) { reduced[j] = back.Count; back.Add(j); }
-        var reducedRows = new SparseRow[rows.Count];
-        for (int i = 0; i < rows.Count; i++)
+        // The held unknowns enter as direct observations e_jᵀx (weight w_j of the order of N_jj): M = N + E W Eᵀ is
+        // positive definite, has the pattern of N (diagonal entries only are added) and the same unknowns, so any
+        // solver — including one that orders by the unknowns' positions — factorises it. For a consistent right-hand
+        // side M⁻¹b is exactly the minimal-constraint solution (x_K = 0), and M⁻¹ = Q_m + H_K W⁻¹ H_Kᵀ with
+        // H_K = G (E_KᵀG)⁻¹ (DatumFactor removes that term).
+        int d = ConditionCount, m0 = rows.Count;
+        var diag = new double[u];
+        for (int i = 0; i < m0; i++)
         {
+            double p = weights.DiagonalEntry(i);
             var r = rows[i];
-            var cols = new List<int>(r.Columns.Length);
-            var vals = new List<double>(r.Columns.Length);
-            for (int k = 0; k < r.Columns.Length; k++)
-                if (reduced[r.Columns[k]] >= 0) { cols.Add(reduced[r.Columns[k]]); vals.Add(r.Values[k]); }
-            reducedRows[i] = new SparseRow(cols.ToArray(), vals.ToArray());
+            for (int k = 0; k < r.Columns.Length; k++) diag[r.Columns[k]] += p * r.Values[k] * r.Values[k];
         }
-        var inner = FactorizeOrExplain(solver, back.Count, reducedRows, weights, j => back[j]);
+        var allRows = new List<SparseRow>(rows);
+        var blocks = weights.Blocks.ToList();
+        var w = new double[d];
+        for (int k = 0; k < d; k++)
+        {
+            int jk = _held[k];
+            w[k] = diag[jk] > 0 && double.IsFinite(diag[jk]) ? diag[jk] : 1.0;
+            allRows.Add(new SparseRow([jk], [1.0]));
+            blocks.Add(new WeightBlock([m0 + k], [w[k]]));
+        }
+        var inner = FactorizeOrExplain(solver, u, allRows, WeightMatrix.FromBlocks(m0 + d, blocks), j => j);
         var (g, b) = Bases();
         var btg = new double[ConditionCount, ConditionCount];
         for (int k = 0; k < ConditionCount; k++)
@@ -281,7 +290,9 @@ internal sealed class DatumPlan
                 "The datum is not defined: the points chosen for the inner constraints (" + string.Join(", ", Definition.InnerPoints ?? []) +
                 ") do not fix the position, orientation and scale of the network. Choose at least two points of the plane network " +
                 "and one of the level network, or use all points.", ["inner-constraint points"]);
-        return new DatumFactor(inner, reduced, g, b, m.Inverse().ToArray());
+        // E_KᵀG: the rows of G at the held unknowns (regular by the choice of K).
+        var gk = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(d, d, (k, l) => g[l][_held[k]]);
+        return new DatumFactor(inner, g, b, m.Inverse().ToArray(), gk.Inverse().ToArray(), w);
     }
 
     private INormalFactor FactorizeOrExplain(INormalEquationsSolver solver, int size, IReadOnlyList<SparseRow> rows, WeightMatrix weights, Func<int, int> toFull)
