@@ -185,6 +185,13 @@ public static class Adjuster
         return (rows, l);
     }
 
+    /// <summary>Unknowns and start values with the datum by the control (datum check and approximate coordinates included).</summary>
+    private static (UnknownIndex, ParameterState) Setup(SurveyNetwork network)
+    {
+        var plan = DatumPlan.Create(network, DatumDefinition.ByControl);
+        return (plan.Index, plan.State);
+    }
+
     private static AdjustedPoint AdjustedPointOf(Point p, UnknownIndex index, ParameterState state, INormalFactor? f, double s0)
     {
         double? Value(Parameter par, double? given) => state.TryGet(p.Id, par, out double v) ? v : given;

@@ -132,7 +132,9 @@ public static class AdjustmentSequence
                 if (!controlled || given is null || adjusted is null) return (null, null);
                 int j = minimal.Unknowns.IndexOf(pt.Id, par);
                 double q = j >= 0 ? minimal.Cofactor(j, j) : 0;
-                return (given - adjusted, Math.Sqrt(Math.Max(0, (s2 * q) + (givenSd is double g ? g * g : 0))));
+                double sd = Math.Sqrt(Math.Max(0, (s2 * q) + (givenSd is double g ? g * g : 0)));
+                // A component held by the minimal constraints has zero variance up to rounding (~1e−10 m): no standardised value.
+                return (given - adjusted, sd < HeldSd ? 0 : sd);
             }
             var (de, sde) = One(ce, pt.E, p.E, Parameter.E, pt.SdE);
             var (dn, sdn) = One(cn, pt.N, p.N, Parameter.N, pt.SdN);
@@ -153,6 +155,9 @@ public static class AdjustmentSequence
         }
         return new SequenceResult(minimal, constrained, minimal.Options.Datum.Describe(), test, discrepancies, shifts);
     }
+
+    /// <summary>Standard deviations below this (m) are those of components held by the minimal constraints: zero.</summary>
+    private const double HeldSd = 1e-8;
 
     /// <summary>Inner constraints over the control points when they can fix the datum, otherwise over all points.</summary>
     internal static DatumDefinition DefaultMinimal(SurveyNetwork network)
