@@ -30,7 +30,12 @@ internal static class StatisticsReport
         string Num(double? v, int d, int w) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv).PadLeft(w) : "-".PadLeft(w);
         bool gons = u.Angle == AngleFormat.Gons;
         string azUnit = gons ? "gon" : "deg";
-        string Az(double rad, int w) => (gons ? rad * 200 / Math.PI : rad * 180 / Math.PI).ToString("F2", Inv).PadLeft(w);
+        string Az(double rad, int w)
+        {
+            // [0, half turn) also after rounding: 179.997° prints as 0.00, never as 180.00
+            double half = gons ? 200 : 180, x = Math.Round(rad * half / Math.PI, 2, MidpointRounding.AwayFromZero);
+            return (x >= half ? x - half : x).ToString("F2", Inv).PadLeft(w);
+        }
         string Basis() => a.Basis == VarianceFactorBasis.Known
             ? $"variance factor known (a priori {F(a.VarianceFactor, 4)})"
             : $"variance factor estimated ({F(a.VarianceFactor, 4)})";
@@ -41,7 +46,7 @@ internal static class StatisticsReport
              $"MDB for power {F(1 - a.Options.TypeIIError, 2)}: delta0 {F(a.Delta0, 3)}");
         Line($"  Tau test: overall alpha {F(a.Options.TauAlpha, 3)}, {(a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "Sidak" : "Bonferroni")} " +
              $"split over {r.Statistics.Observations} observations, critical value {(a.TauCritical is double tc ? F(tc, 3) : "n/a (r < 2)")}");
-        Line($"  Sum of redundancy numbers {F(a.RedundancySum, 3)} (degrees of freedom {r.Statistics.DegreesOfFreedom})");
+        Line($"  Sum of redundancy numbers {F(Math.Round(a.RedundancySum, 3) + 0.0, 3)} (degrees of freedom {r.Statistics.DegreesOfFreedom})");
         Line($"  Residuals and MDB in {lu} or {au}; ext. rel. = largest point shift ({lu}) from an undetected MDB" +
              (a.ExternalReliabilityComputed ? "" : " (not computed)"));
         Line($"  {"#",4} {"Kind",-9} {"At",-6} {"From",-6} {"To",-6} {"Residual",9} {"r",5} {"w",6} {"tau",6} {"MDB",8} {"Ext.rel.",8} Flag");

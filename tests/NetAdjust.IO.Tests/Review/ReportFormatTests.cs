@@ -1,0 +1,68 @@
+using NetAdjust.Adjustment;
+using NetAdjust.IO.Project;
+using NetAdjust.IO.Results;
+
+namespace NetAdjust.IO.Tests.Review;
+
+/// <summary>Regression tests for the text report found in review.</summary>
+public class ReportFormatTests
+{
+    private static string Report(string yaml)
+    {
+        var p = ProjectReader.Parse(yaml, "r.yaml", Path.GetTempPath(), File.ReadAllText);
+        var r = Adjuster.Adjust(p.Network, p.Options);
+        return TextReportWriter.Write(r, new ReportContext("r.yaml", new DateOnly(2026, 12, 1), p.Units));
+    }
+
+    [Theory]
+    [InlineData("dms", "3", "359-59-50", "180.00")]
+    [InlineData("gon", "1", "399.9970", "200.00")]
+    public void AnEllipseAzimuthJustBelowAHalfTurnPrintsAsZero(string angle, string azimuthSd, string azimuth, string forbidden)
+    {
+        // Convention (docs/methods.md, GLOSSARY): the azimuth of the semi-major axis is in [0°, 180°) ([0, 200) gon).
+        // A point fixed by a distance (3 mm) and an azimuth (3", or 1 mgon) 10" (3 mgon) west of north, 100 m away, has
+        // its major axis along the line, at 179.997° (199.997 gon): rounded to two decimals it must print 0.00, not the
+        // out-of-range 180.00 (200.00).
+        string yaml = $$"""
+            units: {length: m, angle: {{angle}}}
+            default_sd: {distance: 3 mm, azimuth: {{azimuthSd}}}
+            points:
+              - {id: A, e: 1000, n: 1000, fix: en}
+              - {id: B, e: 999.9, n: 1100}
+            setups:
+              - at: A
+                distances:
+                  - {to: B, value: 100.001}
+                azimuths:
+                  - {to: B, value: {{azimuth}}}
+            """;
+        var lines = Report(yaml).Split('\n');
+        string ellipse = lines.SkipWhile(l => !l.StartsWith("ERROR ELLIPSES", StringComparison.Ordinal)).First(l => l.StartsWith("  B ", StringComparison.Ordinal));
+        string relative = lines.SkipWhile(l => !l.StartsWith("RELATIVE ERROR ELLIPSES", StringComparison.Ordinal)).First(l => l.StartsWith("  A ", StringComparison.Ordinal));
+        foreach (var line in new[] { ellipse, relative })
+        {
+            Assert.DoesNotContain(forbidden, line);
+            Assert.Contains(" 0.00 ", line);
+        }
+    }
+
+    [Fact]
+    public void TheRedundancySumOfANetworkWithoutRedundancyIsNotPrintedNegative()
+    {
+        // r = 0: Σ rᵢ is zero up to rounding and must not print as "-0.000" (common practice).
+        const string yaml = """
+            units: {length: m, angle: dms}
+            default_sd: {distance: 3 mm, azimuth: 3}
+            points:
+              - {id: A, e: 1000, n: 1000, fix: en}
+              - {id: B, e: 1000.5, n: 1100}
+            setups:
+              - at: A
+                distances:
+                  - {to: B, value: 100.001}
+                azimuths:
+                  - {to: B, value: 359-59-50}
+            """;
+        Assert.Contains("Sum of redundancy numbers 0.000 (degrees of freedom 0)", Report(yaml));
+    }
+}
