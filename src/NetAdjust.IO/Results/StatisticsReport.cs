@@ -147,13 +147,17 @@ internal static class StatisticsReport
             Line($"  {"Round",5} {"r",5} {"Var.factor",10} {"Global",7} {"Worst observation",-34} {"Statistic",9} {"Critical",8}  Action");
             foreach (var round in h.Rounds)
             {
-                string worst = round.WorstIndex is int wi ? $"#{wi + 1} {r.Network.Observations[wi].Describe()}" : "-";
+                // without its source, so that the kind and points fit the column; the sources are listed below
+                string worst = round.WorstIndex is int wi ? $"#{wi + 1} {(r.Network.Observations[wi] with { Source = null }).Describe()}" : "-";
                 Line($"  {round.Round,5} {round.DegreesOfFreedom,5} {Num(round.VarianceFactor, 4, 10)} {(round.GlobalTestPassed is bool g ? (g ? "passed" : "FAILED") : "n/a"),7} " +
                      $"{Clip(worst, 34),-34} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
             }
             Line($"  Stopped: {h.StopReason}.");
             if (h.SetAside.Count > 0)
             {
+                Line("  Set aside, in the order found:");
+                foreach (int i in h.SetAside)
+                    foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94)) Line("    " + part);
                 Line("  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
                 Line("  'sd_factor') in the project file, or re-measure.");
             }
