@@ -37,9 +37,11 @@ internal static class AdjustCommand
 
             var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) });
             string text = TextReportWriter.Write(result, context);
-            if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
-            if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
-            else console.Out.Write(text);
+            var files = new List<(string, string)>(); // all outputs or none: a failed write must not leave the others replaced
+            if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(result, context)));
+            if (reportPath is not null) files.Add((reportPath, text));
+            SafeFileWriter.WriteAll(files);
+            if (reportPath is null) console.Out.Write(text);
             return ExitCodes.Success;
         }));
         return cmd;
