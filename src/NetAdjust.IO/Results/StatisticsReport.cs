@@ -168,18 +168,21 @@ internal static class StatisticsReport
         {
             Line($"ROBUST ESTIMATION ({(rb.Method == RobustMethod.Huber ? "Huber" : "Danish method")}, c = {F(rb.Tuning, 2)}; " +
                  $"{rb.Iterations} re-weightings, {(rb.Converged ? "converged" : "NOT converged")})");
-            Line("  Observations down-weighted (weight factor below 1), with |u| = |v|/(sd sqrt(r)):");
+            Line("  Observations down-weighted (weight factor below 1), with |u| = the |w| each would get at full");
+            Line("  weight against the others as re-weighted (docs/methods.md):");
             int shown = 0;
             for (int i = 0; i < rb.WeightFactors.Count; i++)
             {
                 if (rb.WeightFactors[i] >= 1) continue;
                 shown++;
                 bool sus = rb.Suspected.Contains(i);
-                Line($"  #{i + 1,-4} {Clip(r.Network.Observations[i].Describe(), 50),-50} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
+                Line($"  #{i + 1,-4} {Clip((r.Network.Observations[i] with { Source = null }).Describe(), 34),-34} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
                      $"|u| {Num(rb.Standardised[i], 2, 6)}{(sus ? "  SUSPECTED" : "")}");
             }
             if (shown == 0) Line("  none");
             Line($"  Suspected blunders (|u| above {F(a.WCritical, 2)}): {(rb.Suspected.Count == 0 ? "none" : string.Join(", ", rb.Suspected.Select(i => "#" + (i + 1))))}");
+            foreach (int i in rb.Suspected)
+                foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94)) Line("    " + part);
             Line("  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
             Line();
         }
