@@ -32,6 +32,29 @@ public class ErrorMessageTests
         Assert.Equal(1, CountOf(e.Message, "angle from B to C"));
     }
 
+    [Theory]
+    [InlineData("sd_factor: 0", "sd_factor must be positive")]
+    [InlineData("exclude: maybe", "exclude 'maybe' must be true or false")]
+    public void ABadBlunderHuntMarkNamesFileAndLineOnce(string mark, string problem)
+    {
+        // Regression: "p.yaml:9: distance A→B (p.yaml:9): sd_factor must be positive" named the place twice.
+        string yaml = $$"""
+            units: {length: m, angle: dms}
+            default_sd: {distance: 3 mm}
+            points:
+              - {id: A, e: 1, n: 2, fix: en}
+              - {id: B, e: 100, n: 2}
+            setups:
+              - at: A
+                distances:
+                  - {to: B, value: 99, {{mark}}}
+            """;
+        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(), File.ReadAllText));
+        Assert.StartsWith("p.yaml:9: distance A→B: ", e.Message);
+        Assert.Contains(problem, e.Message);
+        Assert.Equal(1, CountOf(e.Message, "p.yaml"));
+    }
+
     private static int CountOf(string text, string part)
     {
         int n = 0;
