@@ -47,6 +47,32 @@ public class ReportFormatTests
     }
 
     [Fact]
+    public void ADirectionJustBelowAFullTurnIsNotPrintedAs360()
+    {
+        // GLOSSARY / common practice: directions and orientations are in [0°, 360°). 359-59-59.98 rounds to the
+        // report's 0.1" as 0-00-00.0, which is how it must be written (it was "360-00-00.0").
+        const string yaml = """
+            units: {length: m, angle: dms}
+            default_sd: {direction: 2, distance: 3 mm}
+            points:
+              - {id: A, e: 1000, n: 1000, fix: en}
+              - {id: B, e: 1000, n: 1100, fix: en}
+              - {id: C, e: 1100, n: 1000}
+            setups:
+              - at: A
+                directions:
+                  - {to: B, value: 359-59-59.98}
+                  - {to: C, value: 90-00-00.02}
+                distances:
+                  - {to: C, value: 100.000}
+            """;
+        string report = Report(yaml);
+        Assert.DoesNotContain("360-00-00", report);
+        var row = report.Split('\n').First(l => l.StartsWith("     1 direction", StringComparison.Ordinal));
+        Assert.Contains("   0-00-00.0 ", row);
+    }
+
+    [Fact]
     public void TheRedundancySumOfANetworkWithoutRedundancyIsNotPrintedNegative()
     {
         // r = 0: Σ rᵢ is zero up to rounding and must not print as "-0.000" (common practice).
