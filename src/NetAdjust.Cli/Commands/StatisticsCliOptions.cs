@@ -22,6 +22,13 @@ internal sealed class StatisticsCliOptions
         Description = "Largest number of observations the blunder hunt may set aside (default 10).",
         HelpName = "N",
         DefaultValueFactory = _ => 10,
+        CustomParser = r => // a plain message instead of "as expected type 'System.Int32'"
+        {
+            string t = r.Tokens.Count == 1 ? r.Tokens[0].Value : string.Join(" ", r.Tokens.Select(k => k.Value));
+            if (int.TryParse(t, System.Globalization.NumberStyles.Integer, System.Globalization.CultureInfo.InvariantCulture, out int v)) return v;
+            r.AddError($"--snoop-limit '{t}' must be a whole number: the most observations the blunder hunt may set aside");
+            return 0;
+        },
     };
 
     private readonly Option<string?> _robust = new("--robust")
