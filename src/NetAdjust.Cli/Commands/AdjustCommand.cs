@@ -22,23 +22,26 @@ internal static class AdjustCommand
         };
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var stats = new StatisticsCliOptions();
+        var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date, budgets,
         };
         stats.AddTo(cmd);
+        exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
             string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
             var runDate = ParseDate(parse.GetValue(date));
             var project = ProjectReader.Read(path);
-            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>(), project.InputFiles);
+            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
-            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets) });
+            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs });
             string text = TextReportWriter.Write(result, context);
             var files = new List<(string, string)>(); // all outputs or none: a failed write must not leave the others replaced
             if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(result, context)));
+            files.AddRange(exchange.Render(parse, result, context));
             if (reportPath is not null) files.Add((reportPath, text));
             SafeFileWriter.WriteAll(files);
             if (reportPath is null) console.Out.Write(text);

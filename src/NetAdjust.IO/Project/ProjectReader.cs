@@ -13,7 +13,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -99,10 +99,22 @@ public static partial class ProjectReader
 
         var network = new SurveyNetwork(name, points, observations);
         StatisticsSection.CheckPairs(root, displayName, network);
-        return new SurveyProject(network, units, options, inputs);
+        return new SurveyProject(network, units, options, inputs) { Crs = ReadCrs(ctx, root) };
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;
+
+    /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g. <c>EPSG:27700</c>).</summary>
+    private static string? ReadCrs(Context ctx, YamlMappingNode root)
+    {
+        if (ctx.Child(root, "crs") is not YamlNode node) return null;
+        string s = ctx.Scalar(node, "crs").Trim();
+        const string prefix = "EPSG:";
+        string code = s.StartsWith(prefix, StringComparison.OrdinalIgnoreCase) ? s[prefix.Length..] : "";
+        if (code.Length is < 4 or > 6 || !code.All(char.IsAsciiDigit))
+            throw ctx.Error(node, "crs", $"'{s}' is not a coordinate reference system: write EPSG: and its code, e.g. EPSG:27700");
+        return prefix + code;
+    }
 
     private static string FirstLine(string s) => s.Split('\n')[0].Trim();
 

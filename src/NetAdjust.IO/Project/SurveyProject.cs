@@ -8,4 +8,8 @@ namespace NetAdjust.IO.Project;
 /// <param name="Units">The declared units.</param>
 /// <param name="Options">Adjustment options from the file.</param>
 /// <param name="InputFiles">Full paths of every file read (the project file first), so that no output overwrites one.</param>
-public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, AdjustmentOptions Options, IReadOnlyList<string> InputFiles);
+public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, AdjustmentOptions Options, IReadOnlyList<string> InputFiles)
+{
+    /// <summary>The coordinate reference system the coordinates are in, as <c>EPSG:code</c> (key <c>crs</c>); null when the project declares none (local coordinates).</summary>
+    public string? Crs { get; init; }
+}

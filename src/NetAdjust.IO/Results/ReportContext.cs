@@ -11,6 +11,9 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// <summary>When true, the text report lists every observation's error budget, not only the summary per group.</summary>
     public bool ObservationBudgets { get; init; }
 
+    /// <summary>The project's coordinate reference system (<c>EPSG:code</c>), or null for local coordinates.</summary>
+    public string? Crs { get; init; }
+
     /// <summary>The blunder hunt that produced the result, when one was run (its log is reported).</summary>
     public NetAdjust.Statistics.BlunderHunt? Hunt { get; init; }
 

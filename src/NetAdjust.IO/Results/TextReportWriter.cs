@@ -17,10 +17,10 @@ public static class TextReportWriter
 
     /// <summary>The caution printed at the end of every report.</summary>
     public const string Caution =
-        "CAUTION: these results depend on the stochastic model (the standard deviations given or derived for the\n" +
-        "observations) and on the data. A passed test does not prove the absence of errors. Whether the work\n" +
-        "complies with a survey standard or contract is for the licensed surveyor in charge to judge under\n" +
-        "local regulations, before any result is used for stake-out, boundaries or construction.";
+        "CAUTION: these results depend on the stochastic model (the standard deviations given or derived for\n" +
+        "the observations) and on the data. A passed test does not prove the absence of errors. Whether the\n" +
+        "work complies with a survey standard or contract is for the licensed surveyor in charge to judge\n" +
+        "under local regulations, before any result is used for stake-out, boundaries or construction.";
 
     /// <summary>Renders the report.</summary>
     /// <param name="r">The result.</param>
@@ -44,6 +44,7 @@ public static class TextReportWriter
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
         Line($"Units     : lengths {u.Length.Name} ({lu}), angles {AngleName(u.Angle)}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
+        TextReportSections.Datum(sb, r, c);
         Line();
 
         var s = r.Statistics;
@@ -61,6 +62,7 @@ public static class TextReportWriter
             Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {F(g.Lower!.Value, 3)} <= {F(g.Statistic, 3)} <= {F(g.Upper!.Value, 3)} ? {(passed ? "PASSED" : "FAILED")}");
         else
             Line("  Global test: not possible (no redundancy)");
+        TextReportSections.WorstResiduals(sb, r, 5);
         Line();
 
         Line($"ADJUSTED COORDINATES ({lu}; standard deviations at the a-priori variance factor)");
@@ -70,7 +72,7 @@ public static class TextReportWriter
             string E(double? v, LengthPattern pat, int w) => v is double x ? pat.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
             string held = JsonResultWriter.FixityText(p.Input.Fixed);
             string weighted = (p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : "");
-            string role = held + (weighted.Length > 0 ? $" w:{weighted}" : "");
+            string role = held + (weighted.Length > 0 ? (held.Length > 0 ? " " : "") + $"w:{weighted}" : "");
             Line($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} {E(p.SdE, sdLen, 8)} {E(p.SdN, sdLen, 8)} {E(p.SdH, sdLen, 8)}  {role}".TrimEnd());
         }
         Line();

@@ -31,6 +31,22 @@ public sealed class OutputAtomicityTests : IDisposable
     }
 
     [Fact]
+    public void AnUnwritableExchangeOutputLeavesTheOtherOutputsUntouched()
+    {
+        // The exchange outputs (--csv, --html, ...) are written with --json and --report, all or none (docs/cli.md).
+        string csv = Path.Combine(_tmp, "earlier.csv"), json = Path.Combine(_tmp, "earlier.json");
+        File.WriteAllText(csv, "earlier csv\n");
+        File.WriteAllText(json, "earlier json\n");
+        var (code, _, stderr) = CliTests.Run("adjust", Demo, "--json", json, "--csv", csv, "--html", Path.Combine(_tmp, "no-such-folder", "r.html"),
+            "--date", "2026-12-01");
+        Assert.Equal(ExitCodes.OutputFailed, code);
+        Assert.Contains("cannot write", stderr);
+        Assert.Equal("earlier csv\n", File.ReadAllText(csv));
+        Assert.Equal("earlier json\n", File.ReadAllText(json));
+        Assert.Equal(2, Directory.GetFiles(_tmp).Length);
+    }
+
+    [Fact]
     public void BothOutputsAreWrittenWhenBothCan()
     {
         string json = Path.Combine(_tmp, "r.json"), report = Path.Combine(_tmp, "r.txt");

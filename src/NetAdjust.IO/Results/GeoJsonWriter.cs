@@ -1,0 +1,194 @@
+using System.Text;
+using System.Text.Encodings.Web;
+using System.Text.Json;
+using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
+using NetAdjust.Network;
+using NetAdjust.Units;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// Writes the network as GeoJSON for GIS: the points (with their standard deviations and ellipse axes), one line
+/// per observation between points with plan positions, and each standard error ellipse as a polygon at true size.
+/// Coordinates are the project's plane grid coordinates [easting, northing(, height)] in the project's length unit.
+/// When the project declares a coordinate reference system (<c>crs: EPSG:code</c>) it is written in the
+/// <c>crs</c> member that GIS readers understand (the 2008 GeoJSON form); otherwise the file states
+/// <c>"coordinates": "local"</c> under the <c>netadjust</c> member. Either way the file departs from RFC 7946,
+/// which allows only WGS 84 longitude and latitude: docs/output-format.md says how to read it.
+/// </summary>
+public static class GeoJsonWriter
+{
+    /// <summary>The format identifier written under <c>netadjust.format</c>.</summary>
+    public const string Format = "netadjust-geojson/1";
+
+    /// <summary>Vertices of each ellipse polygon (the ring is closed by repeating the first).</summary>
+    public const int EllipseVertices = 72;
+
+    /// <summary>Decimals written for coordinates (in the length unit).</summary>
+    public const int Decimals = 6;
+
+    /// <summary>Renders the GeoJSON text.</summary>
+    /// <param name="result">The result.</param>
+    /// <param name="context">Run details: the run date, the length unit and the coordinate reference system.</param>
+    public static string Write(AdjustmentResult result, ReportContext context)
+    {
+        var unit = context.Units.Length;
+        double k = 1.0 / unit.MetresPerUnit;
+        var w = ReportFigures.StandardisedResiduals(result);
+        using var ms = new MemoryStream();
+        using (var j = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            j.WriteStartObject();
+            j.WriteString("type", "FeatureCollection");
+            j.WriteString("name", result.Network.Name);
+            if (context.Crs is string crs)
+            {
+                j.WriteStartObject("crs");
+                j.WriteString("type", "name");
+                j.WriteStartObject("properties");
+                j.WriteString("name", "urn:ogc:def:crs:EPSG::" + crs[(crs.IndexOf(':') + 1)..]);
+                j.WriteEndObject();
+                j.WriteEndObject();
+            }
+            j.WriteStartObject("netadjust");
+            j.WriteString("format", Format);
+            j.WriteString("input", context.InputName);
+            j.WriteString("run_date", context.RunDate.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
+            j.WriteString("coordinates", context.Crs is null ? "local" : context.Crs);
+            j.WriteString("axis_order", "easting, northing, height");
+            j.WriteString("length_unit", unit.Symbol);
+            j.WriteString("ellipses", "standard (1 sigma) absolute error ellipses at true size, at " + ReportFigures.EllipseBasis(result));
+            j.WriteString("residual_units", "m for lengths, arcsec for angles");
+            j.WriteEndObject();
+
+            j.WriteStartArray("features");
+            var plan = new Dictionary<string, AdjustedPoint>(StringComparer.Ordinal);
+            foreach (var p in result.Points)
+            {
+                if (!ReportFigures.HasPlan(p)) continue;
+                plan[p.Id] = p;
+                var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(result, p);
+                j.WriteStartObject();
+                j.WriteString("type", "Feature");
+                j.WriteString("id", "point:" + p.Id);
+                j.WriteStartObject("geometry");
+                j.WriteString("type", "Point");
+                j.WriteStartArray("coordinates");
+                Num(j, p.E!.Value * k); Num(j, p.N!.Value * k);
+                if (p.H is double h) Num(j, h * k);
+                j.WriteEndArray();
+                j.WriteEndObject();
+                j.WriteStartObject("properties");
+                j.WriteString("feature", "point");
+                j.WriteString("id", p.Id);
+                j.WriteString("role", ReportFigures.RoleText(ReportFigures.Role(p)));
+                NumOrNull(j, "sd_e", p.SdE * k);
+                NumOrNull(j, "sd_n", p.SdN * k);
+                NumOrNull(j, "sd_h", p.SdH * k);
+                NumOrNull(j, "ellipse_a", el?.A * k);
+                NumOrNull(j, "ellipse_b", el?.B * k);
+                NumOrNull(j, "ellipse_azimuth_deg", el is ErrorEllipse e1 ? Math.Round(e1.Azimuth * 180 / Math.PI, 4) : null);
+                j.WriteEndObject();
+                j.WriteEndObject();
+            }
+
+            foreach (var o in result.Observations)
+            {
+                var i = o.Input;
+                string[] ids = i.Kind == ObservationKind.Angle ? [i.From, i.At!, i.To] : [i.From, i.To];
+                if (!ids.All(plan.ContainsKey)) continue;
+                bool ang = i.Kind.IsAngular();
+                double rk = ang ? Angle.ArcsecondsPerRadian : 1.0;
+                double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
+                j.WriteStartObject();
+                j.WriteString("type", "Feature");
+                j.WriteString("id", "observation:" + (o.Index + 1).ToString(System.Globalization.CultureInfo.InvariantCulture));
+                j.WriteStartObject("geometry");
+                j.WriteString("type", "LineString");
+                j.WriteStartArray("coordinates");
+                foreach (var id in ids)
+                {
+                    j.WriteStartArray();
+                    Num(j, plan[id].E!.Value * k); Num(j, plan[id].N!.Value * k);
+                    j.WriteEndArray();
+                }
+                j.WriteEndArray();
+                j.WriteEndObject();
+                j.WriteStartObject("properties");
+                j.WriteString("feature", "observation");
+                j.WriteNumber("number", o.Index + 1);
+                j.WriteString("kind", i.Kind.Name());
+                if (i.At is null) j.WriteNull("at"); else j.WriteString("at", i.At);
+                j.WriteString("from", i.From);
+                j.WriteString("to", i.To);
+                j.WriteNumber("residual", Math.Round(o.Residual * rk, ang ? 3 : 6));
+                j.WriteNumber("sd", Math.Round(i.StandardDeviation * rk, ang ? 3 : 6));
+                NumOrNull(j, "w", wi is double x ? Math.Round(x, 3) : null);
+                if (wi is double x2) j.WriteBoolean("w_test_failed", Math.Abs(x2) > ReportFigures.WCritical(result)); else j.WriteNull("w_test_failed");
+                j.WriteEndObject();
+                j.WriteEndObject();
+            }
+
+            foreach (var p in result.Points)
+            {
+                if (!ReportFigures.HasPlan(p) || ReportFigures.IsPlanFixed(p) || ReportFigures.Ellipse(result, p) is not ErrorEllipse el) continue;
+                j.WriteStartObject();
+                j.WriteString("type", "Feature");
+                j.WriteString("id", "ellipse:" + p.Id);
+                j.WriteStartObject("geometry");
+                j.WriteString("type", "Polygon");
+                j.WriteStartArray("coordinates");
+                j.WriteStartArray();
+                foreach (var (e, n) in EllipseRing(p.E!.Value, p.N!.Value, el, EllipseVertices))
+                {
+                    j.WriteStartArray();
+                    Num(j, e * k); Num(j, n * k);
+                    j.WriteEndArray();
+                }
+                j.WriteEndArray();
+                j.WriteEndArray();
+                j.WriteEndObject();
+                j.WriteStartObject("properties");
+                j.WriteString("feature", "ellipse");
+                j.WriteString("id", p.Id);
+                j.WriteString("level", "standard (1 sigma)");
+                Num(j, "a", el.A * k);
+                Num(j, "b", el.B * k);
+                j.WriteNumber("azimuth_deg", Math.Round(el.Azimuth * 180 / Math.PI, 4));
+                j.WriteEndObject();
+                j.WriteEndObject();
+            }
+            j.WriteEndArray();
+            j.WriteEndObject();
+        }
+        return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
+    }
+
+    /// <summary>
+    /// The closed ring of an ellipse polygon, counter-clockwise (RFC 7946 §3.1.6), in metres: the point at
+    /// parameter t is centre + a cos t · u + b sin t · v, with u the unit vector at the azimuth of a and v at the
+    /// azimuth of a − 90° (so that increasing t turns counter-clockwise).
+    /// </summary>
+    internal static IEnumerable<(double E, double N)> EllipseRing(double e0, double n0, ErrorEllipse el, int vertices)
+    {
+        double ue = Math.Sin(el.Azimuth), un = Math.Cos(el.Azimuth);
+        double ve = -un, vn = ue;
+        for (int i = 0; i <= vertices; i++)
+        {
+            double t = 2 * Math.PI * (i % vertices) / vertices;
+            double c = Math.Cos(t) * el.A, s = Math.Sin(t) * el.B;
+            yield return (e0 + (c * ue) + (s * ve), n0 + (c * un) + (s * vn));
+        }
+    }
+
+    private static void Num(Utf8JsonWriter j, double v) => j.WriteNumberValue(Math.Round(v, Decimals));
+
+    private static void Num(Utf8JsonWriter j, string name, double v) => j.WriteNumber(name, Math.Round(v, Decimals));
+
+    private static void NumOrNull(Utf8JsonWriter j, string name, double? v)
+    {
+        if (v is double x && double.IsFinite(x)) j.WriteNumber(name, Math.Round(x, Decimals));
+        else j.WriteNull(name);
+    }
+}

@@ -1,0 +1,280 @@
+using System.Globalization;
+using System.Net;
+using System.Text;
+using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
+using NetAdjust.Network;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// Writes the adjustment report as one self-contained HTML file: inline CSS and SVG only (no scripts, no fonts or
+/// other resources fetched, enforced by a Content-Security-Policy), readable on screen and printable to PDF
+/// (print stylesheet with a page break before each section). Sections: summary, network plot, histogram of
+/// standardised residuals with the standard normal curve (when w-values are available), the tables of the text
+/// report, and the caution. Deterministic: the run date is the only date.
+/// </summary>
+public static class HtmlReportWriter
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Renders the report.</summary>
+    /// <param name="result">The result.</param>
+    /// <param name="context">Run details and units.</param>
+    public static string Write(AdjustmentResult result, ReportContext context) =>
+        Write(result, context, ReportFigures.StandardisedResiduals(result));
+
+    /// <summary>Renders the report with the given standardised residuals (null: none available).</summary>
+    internal static string Write(AdjustmentResult r, ReportContext c, IReadOnlyList<double?>? w)
+    {
+        var u = new ReportUnits(c.Units);
+        var s = r.Statistics;
+        var g = s.GlobalTest;
+        var sb = new StringBuilder();
+        string title = $"Adjustment report: {r.Network.Name}";
+        sb.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+          .Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n")
+          .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+          .Append("<meta name=\"generator\" content=\"NetAdjust\">\n")
+          .Append("<title>").Append(E(title)).Append("</title>\n<style>\n").Append(Css).Append("</style>\n</head>\n<body>\n");
+
+        sb.Append("<header>\n<h1>").Append(E(title)).Append("</h1>\n<dl class=\"run\">\n");
+        Dl(sb, "Input", c.InputName);
+        Dl(sb, "Run date", c.RunDate.ToString("yyyy-MM-dd", Inv));
+        Dl(sb, "Units", $"lengths {c.Units.Length.Name} ({u.LengthSymbol}); angles {u.AngleName}; angular sd and residuals {u.SmallAngleSymbol}");
+        Dl(sb, "Datum", TextReportSections.DatumText(r));
+        Dl(sb, "Coordinates", c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
+        Dl(sb, "Solver", r.SolverName);
+        sb.Append("</dl>\n</header>\n");
+
+        // Summary.
+        sb.Append("<section id=\"summary\">\n<h2>Summary</h2>\n");
+        string verdict = g.Passed switch { true => "PASSED", false => "FAILED", _ => "not possible (no redundancy)" };
+        sb.Append("<p class=\"verdict ").Append(g.Passed switch { true => "pass", false => "fail", _ => "none" }).Append("\">Global test (χ², two-tailed, α = ")
+          .Append(F(g.Alpha, 3)).Append("): <strong>").Append(verdict).Append("</strong>");
+        if (g.Lower is double lo && g.Upper is double hi)
+            sb.Append(" — ").Append(F(lo, 3)).Append(" ≤ ").Append(F(g.Statistic, 3)).Append(" ≤ ").Append(F(hi, 3)).Append(" ?");
+        sb.Append("</p>\n<table class=\"figures\">\n<tbody>\n");
+        int plan = r.Points.Count(ReportFigures.HasPlan);
+        Tr(sb, "Points (with plan position / height only)", $"{r.Points.Count} ({plan} / {r.Points.Count - plan})");
+        Tr(sb, "Fixed control / weighted control / new (plan)",
+            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.Fixed)} / " +
+            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.Weighted)} / " +
+            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.New)}");
+        Tr(sb, "Observations (n)", s.Observations.ToString(Inv));
+        Tr(sb, "Unknowns (u)", s.Unknowns.ToString(Inv));
+        Tr(sb, "Degrees of freedom (r)", s.DegreesOfFreedom.ToString(Inv));
+        Tr(sb, "vᵀPv", F(s.Vtpv, 4));
+        Tr(sb, "A-priori variance factor σ0²", F(s.AprioriVarianceFactor, 4));
+        Tr(sb, "A-posteriori variance factor σ̂0²", s.VarianceFactor is double vf ? F(vf, 4) : "n/a");
+        Tr(sb, "Standard deviation of unit weight σ̂0", s.Sigma0 is double s0 ? F(s0, 4) : "n/a");
+        Tr(sb, "Iterations", s.Iterations.ToString(Inv));
+        sb.Append("</tbody>\n</table>\n");
+        var worst = ReportFigures.Worst(r, w, 5);
+        if (worst.Count > 0)
+        {
+            sb.Append("<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
+            foreach (var (o, wi) in worst)
+                sb.Append("<tr").Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
+                  .Append(E(o.Input.Describe())).Append("</td><td class=\"num\">").Append(F(wi, 2)).Append("</td><td>")
+                  .Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? "fails" : "passes").Append("</td></tr>\n");
+            sb.Append("</tbody>\n</table>\n");
+        }
+        else
+            sb.Append("<p class=\"note\">No observation can be tested (no redundancy, or none controlled): there are no standardised residuals.</p>\n");
+        sb.Append("</section>\n");
+
+        // Plot.
+        sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
+          .Append(NetworkPlotWriter.Render(r, c, w))
+          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append(", magnified as stated in the legend.")
+          .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
+          .Append("</figcaption>\n</figure>\n</section>\n");
+
+        // Histogram.
+        sb.Append("<section id=\"residuals\">\n<h2>Standardised residuals</h2>\n");
+        var ws = w?.Where(x => x is double d && double.IsFinite(d)).Select(x => x!.Value).ToList();
+        if (ws is { Count: > 0 })
+            sb.Append("<figure>\n").Append(Histogram(ws, ReportFigures.WCritical(r))).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
+              .Append(F(ReportFigures.WCritical(r), 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
+        else
+            sb.Append("<p class=\"note\">No standardised residuals are available (no observation can be tested): the histogram is left out.</p>\n");
+        sb.Append("</section>\n");
+
+        // Coordinates.
+        sb.Append("<section id=\"coordinates\">\n<h2>Adjusted coordinates</h2>\n<p>Lengths in ").Append(u.LengthSymbol)
+          .Append("; standard deviations at the a-priori variance factor; standard (1σ) error ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append("; azimuth of the semi-major axis from grid north.</p>\n")
+          .Append("<table>\n<thead><tr><th>Point</th><th>Role</th><th class=\"num\">Easting</th><th class=\"num\">Northing</th><th class=\"num\">Height</th>")
+          .Append("<th class=\"num\">sd E</th><th class=\"num\">sd N</th><th class=\"num\">sd H</th><th class=\"num\">a</th><th class=\"num\">b</th><th class=\"num\">Azimuth of a</th></tr></thead>\n<tbody>\n");
+        foreach (var p in r.Points)
+        {
+            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(r, p) : null;
+            string role = ReportFigures.HasPlan(p) ? ReportFigures.RoleText(ReportFigures.Role(p)) : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
+            sb.Append("<tr><td class=\"id\">").Append(E(p.Id)).Append("</td><td>").Append(role).Append("</td>");
+            foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(p.SdE), u.SmallLength(p.SdN), u.SmallLength(p.SdH),
+                                      u.SmallLength(el?.A), u.SmallLength(el?.B), el is ErrorEllipse e ? u.Azimuth(e.Azimuth) : "-" })
+                sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
+            sb.Append("</tr>\n");
+        }
+        sb.Append("</tbody>\n</table>\n</section>\n");
+
+        // Observations.
+        sb.Append("<section id=\"observations\">\n<h2>Observations</h2>\n<p>Residual v = adjusted − observed. Lengths in ").Append(u.LengthSymbol)
+          .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
+          .Append("<table>\n<thead><tr><th class=\"num\">#</th><th>Kind</th><th>At</th><th>From</th><th>To</th><th class=\"num\">Observed</th><th class=\"num\">Adjusted</th>")
+          .Append("<th class=\"num\">Residual</th><th class=\"num\">sd</th><th class=\"num\">w</th><th>Flag</th><th>Source</th></tr></thead>\n<tbody>\n");
+        foreach (var o in r.Observations)
+        {
+            var i = o.Input;
+            double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
+            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(r);
+            sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(i.Kind.Name().Replace('_', ' ')))
+              .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
+              .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
+            foreach (var v in new[] { u.ObservationValue(i.Kind, i.Value), u.ObservationValue(i.Kind, o.Adjusted), u.ObservationSmall(i.Kind, o.Residual),
+                                      u.ObservationSmall(i.Kind, i.StandardDeviation), wi is double wv ? F(wv, 2) + (failed ? " ✗" : "") : "-" })
+                sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
+            string flag = o.Index < r.Analysis.Observations.Count ? r.Analysis.Observations[o.Index].Flag.Name() ?? "" : "";
+            sb.Append("<td>").Append(E(flag)).Append("</td><td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
+        }
+        sb.Append("</tbody>\n</table>\n");
+        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(ReportFigures.WCritical(r), 2)).Append(").</p>\n");
+        sb.Append("</section>\n");
+
+        var budgets = new StringBuilder();
+        BudgetOutput.AppendSummary(budgets, r, c);
+        if (budgets.ToString().Trim().Length > 0)
+            sb.Append("<section id=\"budgets\">\n<h2>Error budgets</h2>\n<pre class=\"budget\">").Append(E(budgets.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+
+        if (r.Orientations.Count > 0)
+        {
+            sb.Append("<section id=\"orientations\">\n<h2>Orientation unknowns</h2>\n<p>One per direction set: the azimuth of the circle zero; sd in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
+              .Append("<table>\n<thead><tr><th>Set</th><th>Station</th><th class=\"num\">Orientation</th><th class=\"num\">sd</th></tr></thead>\n<tbody>\n");
+            foreach (var o in r.Orientations)
+                sb.Append("<tr><td>").Append(E(o.SetId)).Append("</td><td class=\"id\">").Append(E(o.Station)).Append("</td><td class=\"num\">").Append(E(u.AngleValue(o.Orientation)))
+                  .Append("</td><td class=\"num\">").Append(u.SmallAngle(o.Sd)).Append("</td></tr>\n");
+            sb.Append("</tbody>\n</table>\n</section>\n");
+        }
+
+        var statistics = new StringBuilder();
+        StatisticsReport.Append(statistics, r, c);
+        if (statistics.ToString().Trim().Length > 0)
+            sb.Append("<section id=\"statistics\">\n<h2>Tests, reliability and precision</h2>\n")
+              .Append("<p>The statistics sections of the text report: tests of the observations (redundancy numbers, w, tau, MDB, external reliability), ")
+              .Append("tests of weighted control, standard and 95% error ellipses, relative precision, and the blunder hunt, robust estimation and variance components when run.</p>\n")
+              .Append("<pre class=\"budget\">").Append(E(statistics.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+
+        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n</section>\n");
+        sb.Append("<footer>Report written by NetAdjust on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
+        return sb.ToString();
+    }
+
+    /// <summary>
+    /// An SVG histogram of w as a density (bar area = share of observations) with the standard normal density
+    /// φ(x) = exp(−x²/2)/√(2π) drawn over it, and the critical values of the w-test marked.
+    /// </summary>
+    internal static string Histogram(IReadOnlyList<double> w, double critical)
+    {
+        const double width = 720, height = 320, x0 = 56, x1 = 700, y0 = 20, y1 = 280, bin = 0.5;
+        double lim = Math.Max(4.0, Math.Ceiling(w.Max(Math.Abs) / bin) * bin);
+        int bins = (int)Math.Round(2 * lim / bin);
+        var counts = new int[bins];
+        foreach (double v in w)
+        {
+            int k = (int)Math.Floor((v + lim) / bin);
+            counts[Math.Clamp(k, 0, bins - 1)]++;
+        }
+        double peak = Math.Max(0.45, counts.Max() / (w.Count * bin));
+        double yMax = Math.Ceiling(peak * 10) / 10;
+        double X(double v) => x0 + ((v + lim) / (2 * lim) * (x1 - x0));
+        double Y(double d) => y1 - (d / yMax * (y1 - y0));
+        var sb = new StringBuilder();
+        sb.Append("<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"histogram\" viewBox=\"0 0 ").Append(N(width)).Append(' ').Append(N(height))
+          .Append("\" width=\"").Append(N(width)).Append("\" height=\"").Append(N(height)).Append("\" font-family=\"Helvetica, Arial, sans-serif\" font-size=\"12\" role=\"img\">\n")
+          .Append("<title>Histogram of standardised residuals (").Append(w.Count).Append(" observations)</title>\n")
+          .Append("<rect x=\"0\" y=\"0\" width=\"").Append(N(width)).Append("\" height=\"").Append(N(height)).Append("\" fill=\"#FFFFFF\"/>\n");
+        for (int k = 0; k < bins; k++)
+        {
+            if (counts[k] == 0) continue;
+            double d = counts[k] / (w.Count * bin);
+            double lo = -lim + (k * bin);
+            sb.Append("<rect class=\"bar\" x=\"").Append(N(X(lo))).Append("\" y=\"").Append(N(Y(d))).Append("\" width=\"").Append(N(X(lo + bin) - X(lo)))
+              .Append("\" height=\"").Append(N(y1 - Y(d))).Append("\" fill=\"").Append(NetworkPlotWriter.FixedColour).Append("\" fill-opacity=\"0.55\" stroke=\"#111111\" stroke-width=\"0.8\"><title>")
+              .Append(counts[k]).Append(" in [").Append(F(lo, 1)).Append(", ").Append(F(lo + bin, 1)).Append(")</title></rect>\n");
+        }
+        var curve = new StringBuilder();
+        for (int i = 0; i <= 200; i++)
+        {
+            double v = -lim + (2 * lim * i / 200);
+            double phi = Math.Exp(-0.5 * v * v) / Math.Sqrt(2 * Math.PI);
+            curve.Append(i == 0 ? "" : " ").Append(N(X(v))).Append(',').Append(N(Y(phi)));
+        }
+        sb.Append("<polyline class=\"normal-curve\" points=\"").Append(curve).Append("\" fill=\"none\" stroke=\"").Append(NetworkPlotWriter.FailColour).Append("\" stroke-width=\"2\"/>\n");
+        foreach (double c in new[] { -critical, critical })
+            sb.Append("<line class=\"critical\" x1=\"").Append(N(X(c))).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(X(c))).Append("\" y2=\"").Append(N(y1))
+              .Append("\" stroke=\"#111111\" stroke-dasharray=\"5 4\"/>\n");
+        sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y1)).Append("\" x2=\"").Append(N(x1)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
+        sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(x0)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
+        for (double t = Math.Ceiling(-lim); t <= Math.Floor(lim) + 1e-9; t += 1)
+            sb.Append("<text x=\"").Append(N(X(t))).Append("\" y=\"").Append(N(y1 + 16)).Append("\" text-anchor=\"middle\">").Append(F(t, 0)).Append("</text>\n");
+        for (double d = 0; d <= yMax + 1e-9; d += 0.1)
+            sb.Append("<text x=\"").Append(N(x0 - 6)).Append("\" y=\"").Append(N(Y(d) + 4)).Append("\" text-anchor=\"end\">").Append(F(d, 1)).Append("</text>\n");
+        sb.Append("<text x=\"").Append(N((x0 + x1) / 2)).Append("\" y=\"").Append(N(height - 4)).Append("\" text-anchor=\"middle\">standardised residual w</text>\n");
+        sb.Append("<text x=\"14\" y=\"").Append(N((y0 + y1) / 2)).Append("\" text-anchor=\"middle\" transform=\"rotate(-90 14 ").Append(N((y0 + y1) / 2)).Append(")\">density</text>\n");
+        sb.Append("</svg>\n");
+        return sb.ToString();
+    }
+
+    private static void Dl(StringBuilder sb, string term, string value) =>
+        sb.Append("<dt>").Append(E(term)).Append("</dt><dd>").Append(E(value)).Append("</dd>\n");
+
+    private static void Tr(StringBuilder sb, string term, string value) =>
+        sb.Append("<tr><th scope=\"row\">").Append(E(term)).Append("</th><td class=\"num\">").Append(E(value)).Append("</td></tr>\n");
+
+    private static string F(double v, int d) => v.ToString("F" + d, Inv);
+
+    private static string N(double v) => Math.Round(v, 2).ToString("0.##", Inv);
+
+    private static string E(string s) => WebUtility.HtmlEncode(s);
+
+    private const string Css = """
+        :root { color: #111; background: #fff; }
+        body { font-family: Helvetica, Arial, sans-serif; font-size: 14px; line-height: 1.4; margin: 24px auto; max-width: 1000px; padding: 0 16px; }
+        h1 { font-size: 22px; margin: 0 0 8px; }
+        h2 { font-size: 18px; border-bottom: 2px solid #0072B2; padding-bottom: 2px; margin-top: 28px; }
+        h3 { font-size: 15px; }
+        dl.run { display: grid; grid-template-columns: max-content 1fr; gap: 2px 16px; margin: 0; }
+        dl.run dt { font-weight: bold; }
+        dl.run dd { margin: 0; }
+        table { border-collapse: collapse; margin: 8px 0; font-size: 12.5px; }
+        th, td { border: 1px solid #ccc; padding: 2px 6px; text-align: left; vertical-align: top; }
+        thead th { background: #eef3f8; }
+        td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+        td.id { font-weight: bold; white-space: nowrap; }
+        td.src { color: #555; font-size: 11px; }
+        tr.fail td { background: #fbe3d6; font-weight: bold; }
+        table.figures th { font-weight: normal; background: #f6f6f6; }
+        .verdict { font-size: 16px; padding: 6px 10px; border-left: 6px solid #999; background: #f6f6f6; }
+        .verdict.pass { border-left-color: #009E73; }
+        .verdict.fail { border-left-color: #D55E00; }
+        .note { color: #444; font-style: italic; }
+        .caution { border: 2px solid #D55E00; padding: 8px 12px; }
+        figure { margin: 8px 0; }
+        figure svg { max-width: 100%; height: auto; border: 1px solid #ddd; }
+        figcaption { font-size: 12px; color: #333; margin-top: 4px; }
+        pre.budget { font-size: 12px; background: #f8f8f8; border: 1px solid #ddd; padding: 6px; overflow-x: auto; }
+        footer { margin-top: 24px; font-size: 11px; color: #555; }
+        @page { size: A4; margin: 14mm; }
+        @media print {
+          body { margin: 0; max-width: none; font-size: 11px; }
+          section { break-before: page; }
+          section#summary { break-before: auto; }
+          h2 { break-after: avoid; }
+          thead { display: table-header-group; }
+          tr { break-inside: avoid; }
+          figure svg { border: none; }
+          table { font-size: 10px; }
+        }
+
+        """;
+}

@@ -1,0 +1,60 @@
+using System.Globalization;
+using NetAdjust.IO.Project;
+using NetAdjust.Network;
+using NetAdjust.Units;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>Formats values in the project's units for the human-readable reports (text, HTML, plot).</summary>
+internal sealed class ReportUnits
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+    private readonly LengthPattern _len;
+    private readonly AnglePattern _ang;
+
+    public ReportUnits(ProjectUnits units)
+    {
+        Units = units;
+        _len = new LengthPattern(units.Length, 4);
+        _ang = new AnglePattern(units.Angle, units.Angle == AngleFormat.Dms ? 1 : 5);
+    }
+
+    public ProjectUnits Units { get; }
+
+    /// <summary>The length unit's symbol (m, ft, usft).</summary>
+    public string LengthSymbol => Units.Length.Symbol;
+
+    /// <summary>The unit of angular standard deviations and residuals (arcsec, mgon).</summary>
+    public string SmallAngleSymbol => Units.AngleSd.Symbol();
+
+    /// <summary>The angle format in words.</summary>
+    public string AngleName => Units.Angle switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
+
+    /// <summary>A coordinate or distance, or "-" when absent.</summary>
+    public string Length(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+
+    /// <summary>A standard deviation or residual length, or "-" when absent.</summary>
+    public string SmallLength(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+
+    /// <summary>An angle value in the project's angle format.</summary>
+    public string AngleValue(double radians) => _ang.Format(Angle.FromRadians(radians));
+
+    /// <summary>A small angle (sd, residual) in arcsec or mgon, 2 decimals.</summary>
+    public string SmallAngle(double radians) => (radians / Units.AngleSd.RadiansPerUnit()).ToString("F2", Inv);
+
+    /// <summary>An observed or adjusted value of an observation.</summary>
+    public string ObservationValue(ObservationKind kind, double si) => kind.IsAngular() ? AngleValue(si) : Length(si);
+
+    /// <summary>A residual or standard deviation of an observation.</summary>
+    public string ObservationSmall(ObservationKind kind, double si) => kind.IsAngular() ? SmallAngle(si) : SmallLength(si);
+
+    /// <summary>An azimuth in [0, π) as an angle in the project's format (one decimal of seconds, or 2 decimals).</summary>
+    public string Azimuth(double radians) => Units.Angle switch
+    {
+        AngleFormat.Dms => new AnglePattern(AngleFormat.Dms, 0).Format(Angle.FromRadians(radians)),
+        _ => new AnglePattern(Units.Angle, 2).Format(Angle.FromRadians(radians)),
+    };
+
+    /// <summary>Invariant fixed-point text.</summary>
+    public static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);
+}

@@ -1,0 +1,72 @@
+using System.Text;
+using NetAdjust.Adjustment;
+using NetAdjust.Network;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// Sections of the text report kept apart from <see cref="TextReportWriter"/>: the datum line and the largest
+/// standardised residuals in the summary. Every line stays within 100 columns.
+/// </summary>
+internal static class TextReportSections
+{
+    /// <summary>The report's maximum line width in characters.</summary>
+    public const int MaxWidth = 100;
+
+    /// <summary>The datum: which points are held or weighted, and in which components; wrapped to the width.</summary>
+    public static void Datum(StringBuilder sb, AdjustmentResult r, ReportContext c)
+    {
+        Wrapped(sb, "Datum     : ", DatumText(r));
+        Wrapped(sb, "Grid      : ", c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs);
+    }
+
+    /// <summary>"held A (en), B (h); weighted C (en)" for the points that define the datum.</summary>
+    public static string DatumText(AdjustmentResult r)
+    {
+        var held = r.Points.Where(p => p.Input.Fixed != Fixity.None).Select(p => $"{p.Id} ({JsonResultWriter.FixityText(p.Input.Fixed)})").ToList();
+        var weighted = r.Points.Where(p => p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.SdH.HasValue)
+            .Select(p => $"{p.Id} ({(p.Input.SdE.HasValue ? "e" : "")}{(p.Input.SdN.HasValue ? "n" : "")}{(p.Input.SdH.HasValue ? "h" : "")})").ToList();
+        return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
+    }
+
+    /// <summary>The observations with the largest |w| (when the result has standardised residuals).</summary>
+    public static void WorstResiduals(StringBuilder sb, AdjustmentResult r, int count)
+    {
+        var w = ReportFigures.StandardisedResiduals(r);
+        var worst = ReportFigures.Worst(r, w, count);
+        if (worst.Count == 0)
+        {
+            sb.Append("  Largest standardised residuals: none (no observation can be tested)\n");
+            return;
+        }
+        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical(r), 2)).Append("):\n");
+        foreach (var (o, wi) in worst)
+        {
+            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical(r) ? "FAILS" : "passes")}  {o.Input.Describe()}";
+            sb.Append(Clip(line, MaxWidth)).Append('\n');
+        }
+    }
+
+    /// <summary>Writes label + text, wrapping at spaces so no line passes <see cref="MaxWidth"/>; continuation lines are indented.</summary>
+    internal static void Wrapped(StringBuilder sb, string label, string text)
+    {
+        string indent = new(' ', label.Length);
+        var line = new StringBuilder(label);
+        bool empty = true;
+        foreach (string word in text.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (!empty && line.Length + 1 + word.Length > MaxWidth)
+            {
+                sb.Append(line).Append('\n');
+                line.Clear().Append(indent);
+                empty = true;
+            }
+            if (!empty) line.Append(' ');
+            line.Append(word);
+            empty = false;
+        }
+        sb.Append(Clip(line.ToString(), MaxWidth)).Append('\n');
+    }
+
+    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
+}
