@@ -72,6 +72,48 @@ public class ReportFormatTests
         Assert.Contains("   0-00-00.0 ", row);
     }
 
+    private static (Adjustment.AdjustmentResult, ReportContext) Adjusted(string yaml)
+    {
+        var p = ProjectReader.Parse(yaml, "r.yaml", Path.GetTempPath(), File.ReadAllText);
+        return (Adjuster.Adjust(p.Network, p.Options), new ReportContext("r.yaml", new DateOnly(2026, 12, 1), p.Units));
+    }
+
+    [Fact]
+    public void ExchangeFilesAndTheHtmlReportKeepAzimuthsInTheirRangeAfterRounding()
+    {
+        // GLOSSARY: ellipse azimuths in [0°, 180°), directions in [0°, 360°). A point 100 m north of A, fixed by a
+        // distance (3 mm) and an azimuth (3") 0.1" west of north: its major axis is at 179.99997°, which rounds to
+        // 180.0000 at four decimals and must be written 0.0000; the direction 359-59-59.98 must be written 0-00-00.0.
+        const string yaml = """
+            units: {length: m, angle: dms}
+            default_sd: {distance: 3 mm, azimuth: 3, direction: 2}
+            points:
+              - {id: A, e: 1000, n: 1000, fix: en}
+              - {id: B, e: 1000, n: 1100}
+              - {id: C, e: 1100, n: 1000, fix: en}
+            setups:
+              - at: A
+                distances:
+                  - {to: B, value: 100.001}
+                azimuths:
+                  - {to: B, value: 359-59-59.9}
+                directions:
+                  - {to: B, value: 359-59-59.98}
+                  - {to: C, value: 90-00-00.02}
+            """;
+        var (r, c) = Adjusted(yaml);
+        var b = r.Analysis.Points.Single(p => p.Id == "B").Ellipse!.Value;
+        Assert.InRange(b.AzimuthDegrees, 179.99995, 180.0); // the case this test is about
+        string csv = CoordinateCsvWriter.Write(r, c);
+        var row = csv.Split('\n').Single(l => l.StartsWith("B,", StringComparison.Ordinal)).Split(',');
+        Assert.Equal("0.0000", row[9]);
+        string geo = GeoJsonWriter.Write(r, c);
+        Assert.DoesNotContain("180.0", geo);
+        string html = HtmlReportWriter.Write(r, c);
+        Assert.DoesNotContain("360-00-00", html);
+        Assert.DoesNotContain("180-00-00", html);
+    }
+
     [Fact]
     public void TheRedundancySumOfANetworkWithoutRedundancyIsNotPrintedNegative()
     {
