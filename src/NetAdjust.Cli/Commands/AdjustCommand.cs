@@ -45,6 +45,7 @@ internal static class AdjustCommand
             string text;
             AdjustmentResult result;
             ReportContext context;
+            var files = new List<(string, string)>(); // all outputs or none: a failed write must not leave the others replaced
             if (parse.GetValue(sequence))
             {
                 // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply to it.
@@ -53,17 +54,18 @@ internal static class AdjustCommand
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
                 (result, context) = (seq.Constrained, context0);
                 text = SequenceReportWriter.Write(seq, context);
-                if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, SequenceJsonWriter.Write(seq, context));
+                if (jsonPath is not null) files.Add((jsonPath, SequenceJsonWriter.Write(seq, context)));
             }
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
                 text = TextReportWriter.Write(result, context);
-                if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
+                if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(result, context)));
             }
-            exchange.Write(parse, result, context);
-            if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
-            else console.Out.Write(text);
+            files.AddRange(exchange.Render(parse, result, context));
+            if (reportPath is not null) files.Add((reportPath, text));
+            SafeFileWriter.WriteAll(files);
+            if (reportPath is null) console.Out.Write(text);
             return ExitCodes.Success;
         }));
         return cmd;

@@ -117,7 +117,7 @@ public static partial class ProjectReader
     private static T Wrap<T>(Context ctx, YamlNode node, string item, Func<T> make)
     {
         try { return make(); }
-        catch (InvalidInputException e) { throw ctx.Error(node, item, e.Message); }
+        catch (InvalidInputException e) when (e is not ProjectFileException) { throw ctx.Error(node, item, e.Message); } // already names file, line and item
     }
 
     /// <summary>A length ≥ 0 in the project's unit (suffix allowed); 0 when the key is absent.</summary>

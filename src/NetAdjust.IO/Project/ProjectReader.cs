@@ -52,6 +52,10 @@ public static partial class ProjectReader
         {
             throw new ProjectFileException(displayName, (int)e.Start.Line, "", "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
         }
+        catch (InvalidOperationException) // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
+        {
+            throw UnclosedBracket(displayName, text);
+        }
 
         ctx.CheckKeys(root, TopKeys, "the project");
         string name = ctx.OptionalString(root, "project") ?? Path.GetFileNameWithoutExtension(displayName);
