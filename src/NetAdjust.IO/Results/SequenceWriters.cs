@@ -132,7 +132,7 @@ public static class SequenceReportWriter
         {
             var st = r.Statistics;
             var g = st.GlobalTest;
-            string test = g.Passed is bool p ? $"{F(g.Lower!.Value, 3)} <= {F(g.Statistic, 3)} <= {F(g.Upper!.Value, 3)} {(p ? "PASSED" : "FAILED")}" : "not possible (r = 0)";
+            string test = g.Passed is bool p ? $"{F(g.Statistic, 3)} in [{F(g.Lower!.Value, 3)}, {F(g.Upper!.Value, 3)}] {(p ? "PASSED" : "FAILED")}" : "not possible (r = 0)";
             Line($"  {name,-24} {st.DegreesOfFreedom,6} {F(st.Vtpv, 4),12} {(st.VarianceFactor is double vf ? F(vf, 4) : "n/a"),16}  {test}");
         }
         Line();
@@ -144,9 +144,9 @@ public static class SequenceReportWriter
         if (t.PassedChiSquare is bool ok)
         {
             string chi = t.SigmaEstimated ? "" : "  (decides)", fd = t.SigmaEstimated ? "  (decides)" : "";
-            Line($"  Chi-square (sigma0 known)         {F(t.ChiSquare, 3)} <= {F(t.ChiSquareCritical!.Value, 3)} ? {(ok ? "PASSED" : "FAILED")}{chi}");
+            Line($"  Chi-square (sigma0 known)         {F(t.ChiSquare, 3)}, critical {F(t.ChiSquareCritical!.Value, 3)}: {(ok ? "PASSED" : "FAILED")}{chi}");
             if (t.PassedF is bool okF)
-                Line($"  F (sigma0 from step 1)            {F(t.F!.Value, 3)} <= {F(t.FCritical!.Value, 3)} ? {(okF ? "PASSED" : "FAILED")}{fd}");
+                Line($"  F (sigma0 from step 1)            {F(t.F!.Value, 3)}, critical {F(t.FCritical!.Value, 3)}: {(okF ? "PASSED" : "FAILED")}{fd}");
         }
         else Line("  Not possible: the control adds no constraint beyond the minimum.");
         Line();

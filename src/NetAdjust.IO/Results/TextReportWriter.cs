@@ -59,7 +59,10 @@ public static class TextReportWriter
         Line($"  Std. deviation of unit weight {(s.Sigma0 is double s0 ? F(s0, 4) : "n/a"),12}");
         Line($"  Iterations                    {s.Iterations,8}");
         if (g.Passed is bool passed)
-            Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {F(g.Lower!.Value, 3)} <= {F(g.Statistic, 3)} <= {F(g.Upper!.Value, 3)} ? {(passed ? "PASSED" : "FAILED")}");
+        {
+            Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {(passed ? "PASSED" : "FAILED")}");
+            Line($"    vTPv / a-priori variance factor = {F(g.Statistic, 3)}; accepted from {F(g.Lower!.Value, 3)} to {F(g.Upper!.Value, 3)}");
+        }
         else
             Line("  Global test: not possible (no redundancy)");
         TextReportSections.WorstResiduals(sb, r, 5);
