@@ -33,6 +33,49 @@ public static class SafeFileWriter
         }
     }
 
+    /// <summary>
+    /// Writes several files as one step: every text goes to a temporary file in its target folder first, and only when
+    /// all of them are written are they renamed into place. A failure while writing leaves no partial file and every
+    /// earlier file untouched (none of the outputs is replaced).
+    /// </summary>
+    /// <param name="files">Target paths and contents, in order.</param>
+    /// <exception cref="OutputException">When a file cannot be written; the temporary files are removed.</exception>
+    public static void WriteAll(IReadOnlyList<(string Path, string Text)> files)
+    {
+        ArgumentNullException.ThrowIfNull(files);
+        var staged = new List<(string Tmp, string Full, string Given)>();
+        try
+        {
+            foreach (var (path, text) in files)
+            {
+                string full = Path.GetFullPath(path);
+                string tmp = TemporaryPath(full);
+                staged.Add((tmp, full, path));
+                try { File.WriteAllText(tmp, text, new UTF8Encoding(false)); }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
+                {
+                    throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
+                }
+            }
+            foreach (var (tmp, full, given) in staged)
+            {
+                try { File.Move(tmp, full, overwrite: true); }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
+                {
+                    throw new OutputException($"{given}: cannot write the file ({e.Message})", e);
+                }
+            }
+        }
+        finally
+        {
+            foreach (var (tmp, _, _) in staged)
+                try { if (File.Exists(tmp)) File.Delete(tmp); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+        }
+    }
+
+    private static string TemporaryPath(string full) =>
+        Path.Combine(Path.GetDirectoryName(full) ?? ".", "." + Path.GetFileName(full) + "." + Guid.NewGuid().ToString("N")[..8] + ".tmp");
+
     /// <summary>Writes text (UTF-8, no byte-order mark) to a file through a temporary file and a rename.</summary>
     /// <param name="path">The target path.</param>
     /// <param name="text">The content.</param>

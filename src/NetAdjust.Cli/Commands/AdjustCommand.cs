@@ -20,13 +20,17 @@ internal static class AdjustCommand
             Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
             HelpName = "YYYY-MM-DD",
         };
+        var sequence = new Option<bool>("--sequence")
+        {
+            Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
+        };
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress on standard error (progress is shown only for runs longer than a second)." };
         var stats = new StatisticsCliOptions();
         var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date, budgets, quiet,
+            file, json, report, date, budgets, sequence, quiet,
         };
         stats.AddTo(cmd);
         exchange.AddTo(cmd);
@@ -39,12 +43,31 @@ internal static class AdjustCommand
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
             if (!parse.GetValue(quiet)) project = project with { Options = project.Options with { Progress = new ProgressPrinter(console.Error) } };
-            var (result, context) = stats.Run(parse, project, new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs });
-            string text = TextReportWriter.Write(result, context);
-            if (jsonPath is not null) SafeFileWriter.WriteText(jsonPath, JsonResultWriter.Write(result, context));
-            exchange.Write(parse, result, context);
-            if (reportPath is not null) SafeFileWriter.WriteText(reportPath, text);
-            else console.Out.Write(text);
+            var context0 = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
+            string text;
+            AdjustmentResult result;
+            ReportContext context;
+            var files = new List<(string, string)>(); // all outputs or none: a failed write must not leave the others replaced
+            if (parse.GetValue(sequence))
+            {
+                // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply to it.
+                var clash = parse.Tokens.Select(t => t.Value).FirstOrDefault(t => t is "--snoop" or "--robust" or "--components");
+                if (clash is not null) throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
+                var seq = AdjustmentSequence.Run(project.Network, project.Options);
+                (result, context) = (seq.Constrained, context0);
+                text = SequenceReportWriter.Write(seq, context);
+                if (jsonPath is not null) files.Add((jsonPath, SequenceJsonWriter.Write(seq, context)));
+            }
+            else
+            {
+                (result, context) = stats.Run(parse, project, context0);
+                text = TextReportWriter.Write(result, context);
+                if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(result, context)));
+            }
+            files.AddRange(exchange.Render(parse, result, context));
+            if (reportPath is not null) files.Add((reportPath, text));
+            SafeFileWriter.WriteAll(files);
+            if (reportPath is null) console.Out.Write(text);
             return ExitCodes.Success;
         }));
         return cmd;

@@ -7,7 +7,8 @@ namespace NetAdjust.Cli.Commands;
 
 /// <summary>
 /// The report and exchange outputs of <c>adjust</c>: <c>--html</c>, <c>--svg</c>, <c>--csv</c>, <c>--landxml</c>,
-/// <c>--geojson</c>. Each writes one file through <see cref="SafeFileWriter"/> (docs/cli.md, docs/output-format.md).
+/// <c>--geojson</c>. They are written with the other outputs through <see cref="SafeFileWriter.WriteAll"/>, all or none
+/// (docs/cli.md, docs/output-format.md).
 /// </summary>
 internal sealed class ExchangeOutputs
 {
@@ -37,10 +38,14 @@ internal sealed class ExchangeOutputs
     /// <summary>The output paths given on the command line.</summary>
     public IEnumerable<string> Paths(ParseResult parse) => _outputs.Select(t => parse.GetValue(t.Option)).OfType<string>();
 
-    /// <summary>Renders and writes every requested output (each safely; the first failure stops the rest).</summary>
-    public void Write(ParseResult parse, AdjustmentResult result, ReportContext context)
+    /// <summary>Renders every requested output: (path, text) in option order, to be written all at once.</summary>
+    public IEnumerable<(string Path, string Text)> Render(ParseResult parse, AdjustmentResult result, ReportContext context)
     {
         foreach (var (o, render) in _outputs)
-            if (parse.GetValue(o) is string path) SafeFileWriter.WriteText(path, render(result, context));
+            if (parse.GetValue(o) is string path) yield return (path, render(result, context));
     }
+
+    /// <summary>Renders and writes every requested output, all or none (<see cref="SafeFileWriter.WriteAll"/>).</summary>
+    public void Write(ParseResult parse, AdjustmentResult result, ReportContext context) =>
+        SafeFileWriter.WriteAll(Render(parse, result, context).ToList());
 }

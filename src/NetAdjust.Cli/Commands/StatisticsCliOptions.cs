@@ -22,6 +22,13 @@ internal sealed class StatisticsCliOptions
         Description = "Largest number of observations the blunder hunt may set aside (default 10).",
         HelpName = "N",
         DefaultValueFactory = _ => 10,
+        CustomParser = r => // a plain message instead of "as expected type 'System.Int32'"
+        {
+            string t = r.Tokens.Count == 1 ? r.Tokens[0].Value : string.Join(" ", r.Tokens.Select(k => k.Value));
+            if (int.TryParse(t, System.Globalization.NumberStyles.Integer, System.Globalization.CultureInfo.InvariantCulture, out int v)) return v;
+            r.AddError($"--snoop-limit '{t}' must be a whole number: the most observations the blunder hunt may set aside");
+            return 0;
+        },
     };
 
     private readonly Option<string?> _robust = new("--robust")
@@ -82,8 +89,19 @@ internal sealed class StatisticsCliOptions
 
         // The robust run sees the data as given (it is a second opinion beside the hunt); the variance components use
         // the network after the hunt, so that set-aside blunders do not inflate their group's factor.
-        if (robust is RobustMethod m) context = context with { Robust = RobustEstimation.Run(project.Network, m, options) };
-        if (parse.GetValue(_components)) context = context with { Components = VarianceComponents.Estimate(result.Network, options) };
+        if (robust is RobustMethod m) context = context with { Robust = Extra("--robust", "robust re-weighting", () => RobustEstimation.Run(project.Network, m, options)) };
+        if (parse.GetValue(_components)) context = context with { Components = Extra("--components", "variance component estimation", () => VarianceComponents.Estimate(result.Network, options)) };
         return (result, context);
+    }
+
+    /// <summary>Runs an optional analysis; its failure is reported as that option's, not as the ordinary adjustment's.</summary>
+    private static T Extra<T>(string option, string what, Func<T> run)
+    {
+        try { return run(); }
+        catch (AdjustmentFailedException e)
+        {
+            throw new AdjustmentFailedException(
+                $"{option}: a re-adjustment of the {what} failed ({e.Message}) The ordinary adjustment itself succeeded: run without {option} for its report.", e);
+        }
     }
 }

@@ -20,7 +20,7 @@ internal static class ObservationMarks
         string? Get(string key) =>
             m.Children.TryGetValue(new YamlScalarNode(key), out var v) ? (v as YamlScalarNode)?.Value ?? "" : null;
         int line = (int)node.Start.Line;
-        string item = o.Describe();
+        string item = (o with { Source = null }).Describe(); // the message names file and line itself
         var ex = Get("exclude");
         var f = Get("sd_factor");
         if (ex is null && f is null) return o;

@@ -22,6 +22,9 @@ public static partial class ProjectReader
 
         public Dictionary<string, int> SetupsPerStation { get; } = new(StringComparer.Ordinal);
 
+        /// <summary>Distances observed anywhere in the file, by (from, to): sight lengths of points given no coordinates.</summary>
+        public Dictionary<(string, string), double> DistancesElsewhere { get; } = new();
+
         /// <summary>The budget of a height difference from a named level (for CSV rows); throws InvalidInputException.</summary>
         public ErrorBudget BudgetOfLevel(string id, Length? length, int? setups, int? runs)
         {
@@ -114,7 +117,7 @@ public static partial class ProjectReader
     private static T Wrap<T>(Context ctx, YamlNode node, string item, Func<T> make)
     {
         try { return make(); }
-        catch (InvalidInputException e) { throw ctx.Error(node, item, e.Message); }
+        catch (InvalidInputException e) when (e is not ProjectFileException) { throw ctx.Error(node, item, e.Message); } // already names file, line and item
     }
 
     /// <summary>A length ≥ 0 in the project's unit (suffix allowed); 0 when the key is absent.</summary>
@@ -206,6 +209,7 @@ public static partial class ProjectReader
                 double len = Math.Sqrt(((be - ae) * (be - ae)) + ((bn - an) * (bn - an)));
                 if (len > 0) return len;
             }
+            if (s.DistancesElsewhere.TryGetValue((at, to), out double e) || s.DistancesElsewhere.TryGetValue((to, at), out e)) return e;
             throw ctx.Error(p.Node, p.Item, $"the sight length to {to} is needed to weight this observation from the instrument specification: " +
                 "observe the distance in the same setup or give approximate coordinates of both points (or give 'sd')");
         }

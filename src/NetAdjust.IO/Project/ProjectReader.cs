@@ -13,7 +13,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs", "datum"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -52,6 +52,10 @@ public static partial class ProjectReader
         {
             throw new ProjectFileException(displayName, (int)e.Start.Line, "", "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
         }
+        catch (InvalidOperationException) // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
+        {
+            throw UnclosedBracket(displayName, text);
+        }
 
         ctx.CheckKeys(root, TopKeys, "the project");
         string name = ctx.OptionalString(root, "project") ?? Path.GetFileNameWithoutExtension(displayName);
@@ -60,6 +64,7 @@ public static partial class ProjectReader
         var angles = new AnglePattern(units.Angle, 4);
         var options = ReadOptions(ctx, root, units);
         options = options with { Analysis = StatisticsSection.Read(root, displayName) };
+        options = options with { Datum = ReadDatum(ctx, root) };
         var defaults = ReadDefaults(ctx, root, units);
 
         var points = new List<Point>();
@@ -68,6 +73,7 @@ public static partial class ProjectReader
                 points.Add(ReadPoint(ctx, node, lengths));
 
         var specs = ReadSpecifications(ctx, root, units, points);
+        PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)

@@ -40,7 +40,7 @@ public static class CoordinateCsvWriter
               .Append(L(p.E)).Append(',').Append(L(p.N)).Append(',').Append(L(p.H)).Append(',')
               .Append(L(p.SdE)).Append(',').Append(L(p.SdN)).Append(',').Append(L(p.SdH)).Append(',')
               .Append(L(el?.A)).Append(',').Append(L(el?.B)).Append(',')
-              .Append(el is ErrorEllipse e ? (e.Azimuth * 180.0 / Math.PI).ToString("F" + AzimuthDecimals, Inv) : "").Append(',')
+              .Append(el is ErrorEllipse e ? e.AzimuthDegreesRounded(AzimuthDecimals).ToString("F" + AzimuthDecimals, Inv) : "").Append(',')
               .Append(JsonResultWriter.FixityText(p.Input.Fixed)).Append(',')
               .Append((p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : ""))
               .Append('\n');

@@ -88,7 +88,7 @@ public static class GeoJsonWriter
                 NumOrNull(j, "sd_h", p.SdH * k);
                 NumOrNull(j, "ellipse_a", el?.A * k);
                 NumOrNull(j, "ellipse_b", el?.B * k);
-                NumOrNull(j, "ellipse_azimuth_deg", el is ErrorEllipse e1 ? Math.Round(e1.Azimuth * 180 / Math.PI, 4) : null);
+                NumOrNull(j, "ellipse_azimuth_deg", el is ErrorEllipse e1 ? e1.AzimuthDegreesRounded(4) : null);
                 j.WriteEndObject();
                 j.WriteEndObject();
             }
@@ -155,7 +155,7 @@ public static class GeoJsonWriter
                 j.WriteString("level", "standard (1 sigma)");
                 Num(j, "a", el.A * k);
                 Num(j, "b", el.B * k);
-                j.WriteNumber("azimuth_deg", Math.Round(el.Azimuth * 180 / Math.PI, 4));
+                j.WriteNumber("azimuth_deg", el.AzimuthDegreesRounded(4));
                 j.WriteEndObject();
                 j.WriteEndObject();
             }

@@ -53,7 +53,7 @@ public static class HtmlReportWriter
         sb.Append("<p class=\"verdict ").Append(g.Passed switch { true => "pass", false => "fail", _ => "none" }).Append("\">Global test (χ², two-tailed, α = ")
           .Append(F(g.Alpha, 3)).Append("): <strong>").Append(verdict).Append("</strong>");
         if (g.Lower is double lo && g.Upper is double hi)
-            sb.Append(" — ").Append(F(lo, 3)).Append(" ≤ ").Append(F(g.Statistic, 3)).Append(" ≤ ").Append(F(hi, 3)).Append(" ?");
+            sb.Append(" — vᵀPv/σ0² = ").Append(F(g.Statistic, 3)).Append(", accepted ").Append(F(lo, 3)).Append(" to ").Append(F(hi, 3));
         sb.Append("</p>\n<table class=\"figures\">\n<tbody>\n");
         int plan = r.Points.Count(ReportFigures.HasPlan);
         Tr(sb, "Points (with plan position / height only)", $"{r.Points.Count} ({plan} / {r.Points.Count - plan})");

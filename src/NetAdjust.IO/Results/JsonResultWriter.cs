@@ -41,6 +41,7 @@ public static class JsonResultWriter
         w.WriteString("input", context.InputName);
         w.WriteString("run_date", context.RunDate.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
         w.WriteString("solver", r.SolverName);
+        w.WriteString("datum", r.Options.Datum.Describe());
         w.WriteStartObject("units");
         w.WriteString("length", "m");
         w.WriteString("angle", "deg");

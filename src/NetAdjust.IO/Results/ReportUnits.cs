@@ -37,7 +37,7 @@ internal sealed class ReportUnits
     public string SmallLength(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
 
     /// <summary>An angle value in the project's angle format.</summary>
-    public string AngleValue(double radians) => _ang.Format(Angle.FromRadians(radians));
+    public string AngleValue(double radians) => _ang.FormatDirection(Angle.FromRadians(radians)); // in [0, 360) after rounding
 
     /// <summary>A small angle (sd, residual) in arcsec or mgon, 2 decimals.</summary>
     public string SmallAngle(double radians) => (radians / Units.AngleSd.RadiansPerUnit()).ToString("F2", Inv);
@@ -49,11 +49,13 @@ internal sealed class ReportUnits
     public string ObservationSmall(ObservationKind kind, double si) => kind.IsAngular() ? SmallAngle(si) : SmallLength(si);
 
     /// <summary>An azimuth in [0, π) as an angle in the project's format (one decimal of seconds, or 2 decimals).</summary>
-    public string Azimuth(double radians) => Units.Angle switch
+    public string Azimuth(double radians)
     {
-        AngleFormat.Dms => new AnglePattern(AngleFormat.Dms, 0).Format(Angle.FromRadians(radians)),
-        _ => new AnglePattern(Units.Angle, 2).Format(Angle.FromRadians(radians)),
-    };
+        var pattern = Units.Angle == AngleFormat.Dms ? new AnglePattern(AngleFormat.Dms, 0) : new AnglePattern(Units.Angle, 2);
+        string text = pattern.Format(Angle.FromRadians(radians));
+        var back = pattern.Parse(text); // rounded up to a half turn (180-00-00, 200.00 gon): the axis points at 0
+        return back.Success && back.Value.Radians >= Math.PI - 1e-12 ? pattern.Format(Angle.FromRadians(0)) : text;
+    }
 
     /// <summary>Invariant fixed-point text.</summary>
     public static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);

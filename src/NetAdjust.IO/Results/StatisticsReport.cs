@@ -30,7 +30,12 @@ internal static class StatisticsReport
         string Num(double? v, int d, int w) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv).PadLeft(w) : "-".PadLeft(w);
         bool gons = u.Angle == AngleFormat.Gons;
         string azUnit = gons ? "gon" : "deg";
-        string Az(double rad, int w) => (gons ? rad * 200 / Math.PI : rad * 180 / Math.PI).ToString("F2", Inv).PadLeft(w);
+        string Az(double rad, int w)
+        {
+            // [0, half turn) also after rounding: 179.997° prints as 0.00, never as 180.00
+            double half = gons ? 200 : 180, x = Math.Round(rad * half / Math.PI, 2, MidpointRounding.AwayFromZero);
+            return (x >= half ? x - half : x).ToString("F2", Inv).PadLeft(w);
+        }
         string Basis() => a.Basis == VarianceFactorBasis.Known
             ? $"variance factor known (a priori {F(a.VarianceFactor, 4)})"
             : $"variance factor estimated ({F(a.VarianceFactor, 4)})";
@@ -41,7 +46,7 @@ internal static class StatisticsReport
              $"MDB for power {F(1 - a.Options.TypeIIError, 2)}: delta0 {F(a.Delta0, 3)}");
         Line($"  Tau test: overall alpha {F(a.Options.TauAlpha, 3)}, {(a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "Sidak" : "Bonferroni")} " +
              $"split over {r.Statistics.Observations} observations, critical value {(a.TauCritical is double tc ? F(tc, 3) : "n/a (r < 2)")}");
-        Line($"  Sum of redundancy numbers {F(a.RedundancySum, 3)} (degrees of freedom {r.Statistics.DegreesOfFreedom})");
+        Line($"  Sum of redundancy numbers {F(Math.Round(a.RedundancySum, 3) + 0.0, 3)} (degrees of freedom {r.Statistics.DegreesOfFreedom})");
         Line($"  Residuals and MDB in {lu} or {au}; ext. rel. = largest point shift ({lu}) from an undetected MDB" +
              (a.ExternalReliabilityComputed ? "" : " (not computed)"));
         Line($"  {"#",4} {"Kind",-9} {"At",-6} {"From",-6} {"To",-6} {"Residual",9} {"r",5} {"w",6} {"tau",6} {"MDB",8} {"Ext.rel.",8} Flag");
@@ -142,13 +147,17 @@ internal static class StatisticsReport
             Line($"  {"Round",5} {"r",5} {"Var.factor",10} {"Global",7} {"Worst observation",-34} {"Statistic",9} {"Critical",8}  Action");
             foreach (var round in h.Rounds)
             {
-                string worst = round.WorstIndex is int wi ? $"#{wi + 1} {r.Network.Observations[wi].Describe()}" : "-";
+                // without its source, so that the kind and points fit the column; the sources are listed below
+                string worst = round.WorstIndex is int wi ? $"#{wi + 1} {(r.Network.Observations[wi] with { Source = null }).Describe()}" : "-";
                 Line($"  {round.Round,5} {round.DegreesOfFreedom,5} {Num(round.VarianceFactor, 4, 10)} {(round.GlobalTestPassed is bool g ? (g ? "passed" : "FAILED") : "n/a"),7} " +
                      $"{Clip(worst, 34),-34} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
             }
             Line($"  Stopped: {h.StopReason}.");
             if (h.SetAside.Count > 0)
             {
+                Line("  Set aside, in the order found:");
+                foreach (int i in h.SetAside)
+                    foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94)) Line("    " + part);
                 Line("  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
                 Line("  'sd_factor') in the project file, or re-measure.");
             }
@@ -159,18 +168,21 @@ internal static class StatisticsReport
         {
             Line($"ROBUST ESTIMATION ({(rb.Method == RobustMethod.Huber ? "Huber" : "Danish method")}, c = {F(rb.Tuning, 2)}; " +
                  $"{rb.Iterations} re-weightings, {(rb.Converged ? "converged" : "NOT converged")})");
-            Line("  Observations down-weighted (weight factor below 1), with |u| = |v|/(sd sqrt(r)):");
+            Line("  Observations down-weighted (weight factor below 1), with |u| = the |w| each would get at full");
+            Line("  weight against the others as re-weighted (docs/methods.md):");
             int shown = 0;
             for (int i = 0; i < rb.WeightFactors.Count; i++)
             {
                 if (rb.WeightFactors[i] >= 1) continue;
                 shown++;
                 bool sus = rb.Suspected.Contains(i);
-                Line($"  #{i + 1,-4} {Clip(r.Network.Observations[i].Describe(), 50),-50} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
+                Line($"  #{i + 1,-4} {Clip((r.Network.Observations[i] with { Source = null }).Describe(), 34),-34} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
                      $"|u| {Num(rb.Standardised[i], 2, 6)}{(sus ? "  SUSPECTED" : "")}");
             }
             if (shown == 0) Line("  none");
             Line($"  Suspected blunders (|u| above {F(a.WCritical, 2)}): {(rb.Suspected.Count == 0 ? "none" : string.Join(", ", rb.Suspected.Select(i => "#" + (i + 1))))}");
+            foreach (int i in rb.Suspected)
+                foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94)) Line("    " + part);
             Line("  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
             Line();
         }

@@ -26,6 +26,8 @@ internal static class TextReportSections
         var held = r.Points.Where(p => p.Input.Fixed != Fixity.None).Select(p => $"{p.Id} ({JsonResultWriter.FixityText(p.Input.Fixed)})").ToList();
         var weighted = r.Points.Where(p => p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.SdH.HasValue)
             .Select(p => $"{p.Id} ({(p.Input.SdE.HasValue ? "e" : "")}{(p.Input.SdN.HasValue ? "n" : "")}{(p.Input.SdH.HasValue ? "h" : "")})").ToList();
+        // Minimal or inner constraints set the control aside: say which datum was used instead.
+        if (r.Options.Datum.Mode != Adjustment.DatumMode.Control) return r.Options.Datum.Describe();
         return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 

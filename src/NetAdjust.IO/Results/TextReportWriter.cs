@@ -59,7 +59,10 @@ public static class TextReportWriter
         Line($"  Std. deviation of unit weight {(s.Sigma0 is double s0 ? F(s0, 4) : "n/a"),12}");
         Line($"  Iterations                    {s.Iterations,8}");
         if (g.Passed is bool passed)
-            Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {F(g.Lower!.Value, 3)} <= {F(g.Statistic, 3)} <= {F(g.Upper!.Value, 3)} ? {(passed ? "PASSED" : "FAILED")}");
+        {
+            Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {(passed ? "PASSED" : "FAILED")}");
+            Line($"    vTPv / a-priori variance factor = {F(g.Statistic, 3)}; accepted from {F(g.Lower!.Value, 3)} to {F(g.Upper!.Value, 3)}");
+        }
         else
             Line("  Global test: not possible (no redundancy)");
         TextReportSections.WorstResiduals(sb, r, 5);
@@ -83,7 +86,7 @@ public static class TextReportWriter
         {
             var i = o.Input;
             bool angular = i.Kind.IsAngular();
-            string Val(double si) => angular ? ang.Format(Angle.FromRadians(si)) : len.Format(Length.FromMetres(si));
+            string Val(double si) => angular ? ang.FormatDirection(Angle.FromRadians(si)) : len.Format(Length.FromMetres(si));
             string Small(double si) => angular ? F(si / radPerSdUnit, 2) : sdLen.Format(Length.FromMetres(si));
             Line($"  {o.Index + 1,4} {ShortKind(i.Kind),-9} {Clip(i.At ?? "", 8),-8} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 8),-8} {Clip(i.To, 8),-8} " +
                  $"{Val(i.Value),14} {Val(o.Adjusted),14} {Small(o.Residual),9} {Small(i.StandardDeviation),7}");
@@ -97,7 +100,7 @@ public static class TextReportWriter
             Line($"ORIENTATION UNKNOWNS (one per direction set; azimuth of the circle zero, sd in {au})");
             Line($"  {"Set",-20} {"Station",-10} {"Orientation",14} {"sd",8}");
             foreach (var o in r.Orientations)
-                Line($"  {Clip(o.SetId, 20),-20} {Clip(o.Station, 10),-10} {ang.Format(Angle.FromRadians(o.Orientation)),14} {F(o.Sd / radPerSdUnit, 2),8}");
+                Line($"  {Clip(o.SetId, 20),-20} {Clip(o.Station, 10),-10} {ang.FormatDirection(Angle.FromRadians(o.Orientation)),14} {F(o.Sd / radPerSdUnit, 2),8}");
             Line();
         }
 

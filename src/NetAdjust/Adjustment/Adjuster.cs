@@ -24,8 +24,9 @@ public static partial class Adjuster
         options ??= AdjustmentOptions.Default;
         options.Validate();
 
-        var (index, state) = Setup(network);
-        var control = ControlRows(network, index);
+        var plan = DatumPlan.Create(network, options.Datum);
+        var (index, state) = (plan.Index, plan.State);
+        var control = plan.UsesControl ? ControlRows(network, index) : [];
         int n = network.Observations.Count + control.Count;
         int u = index.Count;
         var solver = SolverChoice.For(options, network, index);
@@ -51,7 +52,7 @@ public static partial class Adjuster
                 iterations++;
                 options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {iterations}", null));
                 var (rows, l) = Linearise(network, index, state, control);
-                var factor = Factorize(solver, u, rows, weights, index);
+                var factor = plan.Factorize(solver, rows, weights);
                 var pl = weights.Multiply(l);
                 var rhs = new double[u];
                 for (int i = 0; i < rows.Length; i++)
@@ -59,30 +60,32 @@ public static partial class Adjuster
                     var r = rows[i];
                     for (int k = 0; k < r.Columns.Length; k++) rhs[r.Columns[k]] += r.Values[k] * pl[i]; // AᵀP l
                 }
-                lastDx = factor.Solve(rhs);
+                lastDx = plan.Step(factor, rhs);
                 converged = true;
                 for (int j = 0; j < u; j++)
                 {
                     if (!double.IsFinite(lastDx[j]))
                         throw new NoConvergenceException($"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a finite number.");
-                    state.Add(index.Unknowns[j], lastDx[j]);
                     double tol = index.Unknowns[j].Parameter == Parameter.Orientation ? options.AngleTolerance : options.LengthTolerance;
                     if (Math.Abs(lastDx[j]) >= tol) converged = false;
                 }
+                // Step control: halve the step while vᵀPv grows (see StepControl).
+                if (StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () => weights.Quadratic(Linearise(network, index, state, control).L)) < 1)
+                    converged = false;
             }
         }
 
         // Final linearisation at the solution: residuals, covariance.
         options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
         var (finalRows, finalL) = Linearise(network, index, state, control);
-        INormalFactor? finalFactor = u > 0 ? Factorize(solver, u, finalRows, weights, index) : null;
+        INormalFactor? finalFactor = u > 0 ? plan.Factorize(solver, finalRows, weights) : null;
         double vtpv = weights.Quadratic(finalL); // v = −l at the solution
-        int dof = n - u;
+        int dof = n - u + plan.ConditionCount;
         var stats = new AdjustmentStatistics(n, u, dof, vtpv, options.AprioriVarianceFactor, iterations,
             GlobalTest.Compute(vtpv, options.AprioriVarianceFactor, dof, options.GlobalTestAlpha));
 
         double s0 = options.AprioriVarianceFactor;
-        var points = network.Points.Select(p => AdjustedPointOf(p, index, state, finalFactor, s0)).ToArray();
+        var points = network.Points.Select(p => AdjustedPointOf(plan.AsUsed(p), index, state, finalFactor, s0)).ToArray();
         var observations = new AdjustedObservation[network.Observations.Count];
         for (int i = 0; i < observations.Length; i++)
         {
@@ -103,7 +106,7 @@ public static partial class Adjuster
                 return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)), sd);
             }).ToArray();
 
-        return new AdjustmentResult(network, options, index, finalFactor, points, observations, orientations, stats,
+        return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points, observations, orientations, stats,
             solver.Name, finalRows, weights);
     }
 
@@ -125,22 +128,6 @@ public static partial class Adjuster
         var rhs = new double[f.Size];
         for (int p = 0; p < a.Columns.Length; p++) rhs[a.Columns[p]] += a.Values[p];
         return a.Dot(f.Solve(rhs)); // a (N⁻¹ aᵀ)
-    }
-
-    private static INormalFactor Factorize(INormalEquationsSolver solver, int u, IReadOnlyList<SparseRow> rows, WeightMatrix weights, UnknownIndex index)
-    {
-        try
-        {
-            return solver.Factorize(u, rows, weights);
-        }
-        catch (SingularNormalMatrixException e)
-        {
-            var what = index.Unknowns[e.Column];
-            throw new DatumDefectException(
-                $"The datum is not defined: the observations and control do not determine the {what.Describe()}. " +
-                "Hold or weight more control (a point's position, a height, an azimuth), or add observations that connect it to the rest of the network.",
-                [what.Describe()]);
-        }
     }
 
     private static string NoConvergenceMessage(AdjustmentOptions options, UnknownIndex index, double[] dx)
@@ -201,57 +188,11 @@ public static partial class Adjuster
         return (rows, l);
     }
 
+    /// <summary>Unknowns and start values with the datum by the control (datum check and approximate coordinates included).</summary>
     private static (UnknownIndex, ParameterState) Setup(SurveyNetwork network)
     {
-        var plane = new HashSet<string>(StringComparer.Ordinal);
-        var height = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var o in network.Observations)
-            foreach (var id in o.Points)
-                (ObservationModels.IsHorizontal(o.Kind) ? plane : height).Add(id);
-
-        var index = new UnknownIndex();
-        var e = new Dictionary<string, double>(StringComparer.Ordinal);
-        var nn = new Dictionary<string, double>(StringComparer.Ordinal);
-        var h = new Dictionary<string, double>(StringComparer.Ordinal);
-        var missing = new List<string>();
-        foreach (var p in network.Points)
-        {
-            if (plane.Contains(p.Id))
-            {
-                if (p.E is null || p.N is null) missing.Add(p.Source is null ? p.Id : $"{p.Id} ({p.Source})");
-                e[p.Id] = p.E ?? 0; nn[p.Id] = p.N ?? 0;
-                if (!p.IsFixed(Fixity.E)) index.Add(new Unknown(p.Id, Parameter.E));
-                if (!p.IsFixed(Fixity.N)) index.Add(new Unknown(p.Id, Parameter.N));
-            }
-            if (height.Contains(p.Id))
-            {
-                h[p.Id] = p.H ?? 0; // height differences are linear: any start value converges in one step
-                if (!p.IsFixed(Fixity.H)) index.Add(new Unknown(p.Id, Parameter.H));
-            }
-        }
-        if (missing.Count > 0)
-            throw new InvalidInputException(
-                "These points take part in horizontal observations but have no approximate easting and northing: " +
-                string.Join(", ", missing) + ". Give approximate coordinates (a few metres off is enough).");
-
-        // Orientation unknowns: start from the mean of (azimuth − reading) over the set, taken circularly.
-        var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
-        foreach (var set in network.Observations.OfType<DirectionObservation>().GroupBy(d => d.SetId))
-        {
-            double first = double.NaN, sum = 0;
-            int count = 0;
-            foreach (var d in set)
-            {
-                var az = PlaneGeometry.Azimuth(d.Station, new PlanePoint(e[d.Station], nn[d.Station]), d.Target, new PlanePoint(e[d.Target], nn[d.Target])).Value;
-                double w = az - d.Reading.Radians;
-                if (count == 0) first = w;
-                sum += Units.Angle.ReduceSigned(w - first);
-                count++;
-            }
-            orientation[set.Key] = first + (sum / count);
-            index.Add(new Unknown(set.Key, Parameter.Orientation));
-        }
-        return (index, new ParameterState(e, nn, h, orientation));
+        var plan = DatumPlan.Create(network, DatumDefinition.ByControl);
+        return (plan.Index, plan.State);
     }
 
     private static AdjustedPoint AdjustedPointOf(Point p, UnknownIndex index, ParameterState state, INormalFactor? f, double s0)

@@ -21,6 +21,9 @@ public sealed record AdjustmentOptions
     /// <summary>Significance level α of the two-tailed global test, in (0, 1). Default 0.05.</summary>
     public double GlobalTestAlpha { get; init; } = 0.05;
 
+    /// <summary>How the datum is defined: by the control (default), by minimal constraints, or by inner constraints (free network).</summary>
+    public DatumDefinition Datum { get; init; } = DatumDefinition.ByControl;
+
     /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <see cref="AdjustmentResult.Analysis"/>.</summary>
     public Statistics.AnalysisOptions Analysis { get; init; } = Statistics.AnalysisOptions.Default;
 

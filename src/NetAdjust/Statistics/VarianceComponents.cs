@@ -39,6 +39,12 @@ public static class VarianceComponents
     /// <summary>Smallest ratio of longest to shortest distance for the a + b ppm fit.</summary>
     public const double MinimumLengthRatioForSpecFit = 3.0;
 
+    /// <summary>
+    /// Below this group redundancy the estimate is called weak and its 95% interval is given: with r = 10 the interval
+    /// of the standard-deviation scale already spans a factor of 2.5 (χ²(0.975; 10)/χ²(0.025; 10) = 6.3).
+    /// </summary>
+    public const double WeakGroupRedundancy = 10.0;
+
     /// <summary>Estimates the variance components.</summary>
     /// <param name="network">The network.</param>
     /// <param name="options">Adjustment options; null for defaults.</param>
@@ -151,11 +157,26 @@ public static class VarianceComponents
                 aPart = Math.Sqrt(ca.Theta);
                 bPart = Math.Sqrt(cb.Theta) * 1e6;
             }
-            if (r < 1) note = (note is null ? "" : note + "; ") + (r > 1e-6
-                ? $"the group's redundancy is only {r.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}: the estimate is weak"
+            if (r < WeakGroupRedundancy) note = (note is null ? "" : note + "; ") + (r > 1e-6
+                ? $"the group's redundancy is only {r.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}: the estimate is weak" + WeakInterval(vf, r)
                 : "the group has no redundancy: its variance factor cannot be estimated");
             groups.Add(new VarianceComponent(kind, members.Length, r, vf, Math.Sqrt(vf), same * Math.Sqrt(vf), aPart, bPart, note));
         }
         return new VarianceComponentEstimate(groups, it, converged, result);
+    }
+
+    /// <summary>
+    /// The 95% interval of a group's variance factor from its estimate f̂ and redundancy r, taking r f̂ / f as χ²(r)
+    /// (approximately so for r not whole): [r f̂ / χ²(0.975; r), r f̂ / χ²(0.025; r)] (Koch 1999, §3.6 and the χ² test
+    /// of a variance, *from memory* for the section).
+    /// </summary>
+    private static string WeakInterval(double vf, double r)
+    {
+        if (!(vf > 0) || !double.IsFinite(vf)) return "";
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        double lo = r * vf / MathNet.Numerics.Distributions.ChiSquared.InvCDF(r, 0.975);
+        double hi = r * vf / MathNet.Numerics.Distributions.ChiSquared.InvCDF(r, 0.025);
+        string Text(double x) => x >= 1000 ? x.ToString("F0", inv) : x.ToString("G3", inv);
+        return $" (95% interval of its variance factor roughly {Text(lo)} to {Text(hi)})";
     }
 }

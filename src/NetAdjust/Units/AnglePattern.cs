@@ -75,6 +75,21 @@ public sealed class AnglePattern
         }
     }
 
+    /// <summary>
+    /// Formats an angle as a direction in [0, full turn): the angle is reduced into that range, and a value that rounds
+    /// up to a full turn at this pattern's resolution is written as zero (359-59-59.97 → <c>0-00-00.0</c>, never
+    /// <c>360-00-00.0</c>).
+    /// </summary>
+    /// <param name="angle">The angle.</param>
+    /// <returns>Text that <see cref="Parse"/> reads back to within half a unit of the last decimal, modulo a full turn.</returns>
+    public string FormatDirection(Angle angle)
+    {
+        string text = Format(Angle.FromRadians(Angle.Reduce0To2Pi(angle.Radians)));
+        var back = Parse(text);
+        bool fullTurn = back.Success && back.Value.Radians >= (2 * Math.PI) - 1e-12; // rounded up to 360°, 400 gon
+        return fullTurn ? Format(Angle.FromRadians(0)) : text;
+    }
+
     /// <summary>Parses text in this pattern's format.</summary>
     /// <param name="text">The text; surrounding white space is ignored.</param>
     /// <returns>The angle, or a message naming what is wrong.</returns>

@@ -29,10 +29,19 @@ public class DatumAndFailureTests
     [Fact]
     public void MissingApproximateCoordinatesAreNamed()
     {
-        var pts = new[] { new Point("A") { E = 0, N = 0, Fixed = Fixity.EN }, new Point("Q17") { Source = "x.yaml:9" } };
-        var obs = new Observation[] { new DistanceObservation("A", "Q17", Length.FromMetres(10)) { StandardDeviation = 0.002 } };
+        // Two held points define the datum; Q17 is reached by one distance only, so no approximation can be computed.
+        var pts = new[]
+        {
+            new Point("A") { E = 0, N = 0, Fixed = Fixity.EN }, new Point("B") { E = 50, N = 0, Fixed = Fixity.EN },
+            new Point("Q17") { Source = "x.yaml:9" },
+        };
+        var obs = new Observation[]
+        {
+            new DistanceObservation("A", "B", Length.FromMetres(50)) { StandardDeviation = 0.002 },
+            new DistanceObservation("A", "Q17", Length.FromMetres(10)) { StandardDeviation = 0.002 },
+        };
         var e = Assert.ThrowsAny<InvalidInputException>(() => Adjuster.Adjust(new SurveyNetwork("x", pts, obs)));
-        Assert.Contains("Q17 (x.yaml:9)", e.Message);
+        Assert.Contains("Q17 (x.yaml:9): from located points it has 1 distance", e.Message);
     }
 
     [Fact]

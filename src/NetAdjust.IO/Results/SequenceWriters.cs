@@ -1,0 +1,179 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Encodings.Web;
+using System.Text.Json;
+using NetAdjust.Adjustment;
+using NetAdjust.Units;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// Writes the minimally-constrained-then-constrained sequence as JSON (format <c>netadjust-sequence/1</c>):
+/// <c>solutions</c> holds the two results in the single-result format (minimally-constrained first), then
+/// <c>constraint_test</c>, <c>control_discrepancies</c> and <c>coordinate_shifts</c>. Lengths in metres.
+/// </summary>
+public static class SequenceJsonWriter
+{
+    /// <summary>The format identifier written under <c>format</c>.</summary>
+    public const string Format = "netadjust-sequence/1";
+
+    /// <summary>Renders the sequence as UTF-8 JSON text.</summary>
+    /// <param name="s">The sequence result.</param>
+    /// <param name="context">Run details.</param>
+    public static string Write(SequenceResult s, ReportContext context)
+    {
+        using var ms = new MemoryStream();
+        using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            w.WriteStartObject();
+            w.WriteString("format", Format);
+            w.WriteString("minimal_datum", s.MinimalDatum);
+            w.WriteStartArray("solutions");
+            foreach (var r in new[] { s.Minimal, s.Constrained })
+            {
+                w.WriteStartObject();
+                JsonResultWriter.WriteBody(w, r, context);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+
+            var t = s.Test;
+            w.WriteStartObject("constraint_test");
+            w.WriteNumber("alpha", t.Alpha);
+            w.WriteNumber("added_constraints", t.AddedConstraints);
+            w.WriteNumber("vtpv_increase", t.VtpvIncrease);
+            w.WriteStartObject("chi_square");
+            w.WriteNumber("statistic", t.ChiSquare);
+            Num(w, "critical", t.ChiSquareCritical);
+            Bool(w, "passed", t.PassedChiSquare);
+            w.WriteEndObject();
+            w.WriteStartObject("f");
+            Num(w, "statistic", t.F);
+            Num(w, "critical", t.FCritical);
+            Bool(w, "passed", t.PassedF);
+            w.WriteEndObject();
+            w.WriteString("decided_by", t.SigmaEstimated ? "f" : "chi_square");
+            Bool(w, "passed", t.Passed);
+            w.WriteEndObject();
+
+            w.WriteStartArray("control_discrepancies");
+            foreach (var d in s.Discrepancies)
+            {
+                w.WriteStartObject();
+                w.WriteString("id", d.Id);
+                Num(w, "de", d.DE); Num(w, "dn", d.DN); Num(w, "dh", d.DH);
+                Num(w, "sd_de", d.SdE); Num(w, "sd_dn", d.SdN); Num(w, "sd_dh", d.SdH);
+                Num(w, "w_e", d.WE); Num(w, "w_n", d.WN); Num(w, "w_h", d.WH);
+                Num(w, "max_abs_w", d.MaxAbsW);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+
+            w.WriteStartArray("coordinate_shifts");
+            foreach (var c in s.Shifts)
+            {
+                w.WriteStartObject();
+                w.WriteString("id", c.Id);
+                Num(w, "de", c.DE); Num(w, "dn", c.DN); Num(w, "dh", c.DH); Num(w, "horizontal", c.Horizontal);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
+    }
+
+    private static void Num(Utf8JsonWriter w, string name, double? v)
+    {
+        if (v is double x && double.IsFinite(x)) w.WriteNumber(name, x);
+        else w.WriteNull(name);
+    }
+
+    private static void Bool(Utf8JsonWriter w, string name, bool? v)
+    {
+        if (v is bool b) w.WriteBoolean(name, b);
+        else w.WriteNull(name);
+    }
+}
+
+/// <summary>
+/// Writes the text report of the sequence: the comparison first (variance factors and global tests of both
+/// solutions, the test of the added constraints, control discrepancies, coordinate shifts), then the two full
+/// reports. Deterministic and culture-invariant.
+/// </summary>
+public static class SequenceReportWriter
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Renders the report.</summary>
+    /// <param name="s">The sequence result.</param>
+    /// <param name="c">Run details and units.</param>
+    public static string Write(SequenceResult s, ReportContext c)
+    {
+        var sb = new StringBuilder();
+        void Line(string text = "") => sb.Append(text).Append('\n');
+        var len = new LengthPattern(c.Units.Length, 4);
+        string lu = c.Units.Length.Symbol;
+        string L(double? v, int w) => v is double x ? len.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
+        string W(double? v, int w) => v is double x ? x.ToString("F2", Inv).PadLeft(w) : new string(' ', w - 1) + "-";
+        string F(double v, int d) => v.ToString("F" + d, Inv);
+
+        Line("NetAdjust datum sequence: minimally constrained, then constrained");
+        Line(new string('=', 66));
+        Line($"Project   : {s.Constrained.Network.Name}");
+        Line($"Input     : {c.InputName}");
+        Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        Line($"Step 1    : {s.MinimalDatum}");
+        Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");
+        Line();
+        Line("SOLUTIONS");
+        Line($"  {"",-24} {"r",6} {"vTPv",12} {"variance factor",16}  global test");
+        foreach (var (name, r) in new[] { ("1 minimally constrained", s.Minimal), ("2 constrained", s.Constrained) })
+        {
+            var st = r.Statistics;
+            var g = st.GlobalTest;
+            string test = g.Passed is bool p ? $"{F(g.Statistic, 3)} in [{F(g.Lower!.Value, 3)}, {F(g.Upper!.Value, 3)}] {(p ? "PASSED" : "FAILED")}" : "not possible (r = 0)";
+            Line($"  {name,-24} {st.DegreesOfFreedom,6} {F(st.Vtpv, 4),12} {(st.VarianceFactor is double vf ? F(vf, 4) : "n/a"),16}  {test}");
+        }
+        Line();
+
+        var t = s.Test;
+        Line($"TEST OF THE ADDED CONSTRAINTS (does the control fit the observations? alpha {F(t.Alpha, 3)}, one-tailed)");
+        Line($"  Added constraints                 {t.AddedConstraints,8}");
+        Line($"  Increase of vTPv                  {F(t.VtpvIncrease, 4),12}");
+        if (t.PassedChiSquare is bool ok)
+        {
+            string chi = t.SigmaEstimated ? "" : "  (decides)", fd = t.SigmaEstimated ? "  (decides)" : "";
+            Line($"  Chi-square (sigma0 known)         {F(t.ChiSquare, 3)}, critical {F(t.ChiSquareCritical!.Value, 3)}: {(ok ? "PASSED" : "FAILED")}{chi}");
+            if (t.PassedF is bool okF)
+                Line($"  F (sigma0 from step 1)            {F(t.F!.Value, 3)}, critical {F(t.FCritical!.Value, 3)}: {(okF ? "PASSED" : "FAILED")}{fd}");
+        }
+        else Line("  Not possible: the control adds no constraint beyond the minimum.");
+        Line();
+
+        Line($"CONTROL DISCREPANCIES (given - minimally constrained, {lu}; w = discrepancy / its standard deviation)");
+        Line($"  {"Point",-12} {"dE",9} {"dN",9} {"dH",9} {"sd dE",8} {"sd dN",8} {"sd dH",8} {"wE",7} {"wN",7} {"wH",7}");
+        double worst = s.Discrepancies.Select(d => d.MaxAbsW ?? 0).DefaultIfEmpty(0).Max();
+        foreach (var d in s.Discrepancies)
+            Line(($"  {Clip(d.Id, 12),-12} {L(d.DE, 9)} {L(d.DN, 9)} {L(d.DH, 9)} {L(d.SdE, 8)} {L(d.SdN, 8)} {L(d.SdH, 8)} {W(d.WE, 7)} {W(d.WN, 7)} {W(d.WH, 7)}" +
+                  (d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "")).TrimEnd());
+        Line();
+
+        Line($"COORDINATE SHIFTS (constrained - minimally constrained, {lu})");
+        Line($"  {"Point",-12} {"dE",9} {"dN",9} {"horiz.",9} {"dH",9}");
+        foreach (var sh in s.Shifts)
+            Line($"  {Clip(sh.Id, 12),-12} {L(sh.DE, 9)} {L(sh.DN, 9)} {L(sh.Horizontal, 9)} {L(sh.DH, 9)}".TrimEnd());
+        Line();
+
+        Line("STEP 1: MINIMALLY CONSTRAINED SOLUTION");
+        Line(new string('-', 38));
+        sb.Append(TextReportWriter.Write(s.Minimal, c));
+        Line();
+        Line("STEP 2: CONSTRAINED SOLUTION");
+        Line(new string('-', 28));
+        sb.Append(TextReportWriter.Write(s.Constrained, c));
+        return sb.ToString();
+    }
+
+    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
+}
