@@ -117,14 +117,15 @@ internal static class DenseKernels
 
     /// <summary>
     /// Splits the rows [0, mu) of a lower-triangular update into about <paramref name="parts"/> ranges of equal
-    /// work (row a costs a + 1).
+    /// work (row a costs a + 1). Inner cuts are even, so that every range pairs its rows exactly as one serial pass
+    /// does and the result is bit-for-bit independent of the number of cores.
     /// </summary>
     public static int[] BalancedTriangleSplit(int mu, int parts)
     {
         var cuts = new int[parts + 1];
         double total = (double)mu * (mu + 1) / 2;
         for (int p = 1; p < parts; p++)
-            cuts[p] = Math.Clamp((int)Math.Sqrt(2 * total * p / parts), cuts[p - 1], mu);
+            cuts[p] = Math.Clamp((int)Math.Sqrt(2 * total * p / parts) & ~1, cuts[p - 1], mu); // even: rows pair as in the serial loop
         cuts[parts] = mu;
         return cuts;
     }
