@@ -2,10 +2,20 @@ using BenchmarkDotNet.Running;
 
 namespace NetAdjust.Benchmarks;
 
-/// <summary>Runs the benchmarks: <c>dotnet run -c Release --project benchmarks/NetAdjust.Benchmarks -- --filter '*'</c>.</summary>
+/// <summary>
+/// Runs the benchmarks: <c>dotnet run -c Release --project benchmarks/NetAdjust.Benchmarks -- --filter '*'</c>;
+/// or a one-shot phase timing: <c>... -- phases plane|levels POINTS [auto|nd|md]</c>.
+/// </summary>
 public static class Program
 {
     /// <summary>Entry point.</summary>
-    /// <param name="args">BenchmarkDotNet arguments.</param>
-    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    /// <param name="args">BenchmarkDotNet arguments, or <c>phases ...</c>.</param>
+    public static void Main(string[] args)
+    {
+        if (args.Length > 0 && args[0] == "phases") { PhaseTimer.Run(args); return; }
+        if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
+        if (args.Length > 0 && args[0] == "crossover") { Crossover.Run(); return; }
+        if (args.Length > 1 && args[0] == "dense") { Crossover.DenseOnce(int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture)); return; }
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    }
 }

@@ -33,6 +33,7 @@ public static class Program
         root.Subcommands.Add(AdjustCommand.Create(console));
         root.Subcommands.Add(CheckCommand.Create(console));
         root.Subcommands.Add(BudgetCommand.Create(console));
+        root.Subcommands.Add(SimulateCommand.Create(console));
         var parse = root.Parse(args);
         var config = new InvocationConfiguration { Output = console.Out, Error = console.Error, EnableDefaultExceptionHandler = false };
         try

@@ -25,11 +25,12 @@ internal static class AdjustCommand
             Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
         };
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
+        var quiet = new Option<bool>("--quiet") { Description = "Print no progress on standard error (progress is shown only for runs longer than a second)." };
         var stats = new StatisticsCliOptions();
         var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date, budgets, sequence,
+            file, json, report, date, budgets, sequence, quiet,
         };
         stats.AddTo(cmd);
         exchange.AddTo(cmd);
@@ -41,6 +42,7 @@ internal static class AdjustCommand
             var project = ProjectReader.Read(path);
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
+            if (!parse.GetValue(quiet)) project = project with { Options = project.Options with { Progress = new ProgressPrinter(console.Error) } };
             var context0 = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
             string text;
             AdjustmentResult result;

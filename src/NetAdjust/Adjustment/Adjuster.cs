@@ -10,7 +10,7 @@ namespace NetAdjust.Adjustment;
 /// at each iteration the observation equations are linearised at the current parameters, N Δx = AᵀP l is solved
 /// (l = observed − computed), and the parameters updated, until every correction is below the tolerances.
 /// </summary>
-public static class Adjuster
+public static partial class Adjuster
 {
     /// <summary>Adjusts a network.</summary>
     /// <param name="network">The network (validated on construction).</param>
@@ -23,13 +23,13 @@ public static class Adjuster
     {
         options ??= AdjustmentOptions.Default;
         options.Validate();
-        var solver = options.Solver ?? new DenseNormalEquationsSolver();
 
         var plan = DatumPlan.Create(network, options.Datum);
         var (index, state) = (plan.Index, plan.State);
         var control = plan.UsesControl ? ControlRows(network, index) : [];
         int n = network.Observations.Count + control.Count;
         int u = index.Count;
+        var solver = SolverChoice.For(options, network, index);
 
         var diagonal = new double[n];
         for (int i = 0; i < network.Observations.Count; i++)
@@ -50,6 +50,7 @@ public static class Adjuster
                 if (iterations == options.MaxIterations)
                     throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
                 iterations++;
+                options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {iterations}", null));
                 var (rows, l) = Linearise(network, index, state, control);
                 var factor = plan.Factorize(solver, rows, weights);
                 var pl = weights.Multiply(l);
@@ -75,6 +76,7 @@ public static class Adjuster
         }
 
         // Final linearisation at the solution: residuals, covariance.
+        options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
         var (finalRows, finalL) = Linearise(network, index, state, control);
         INormalFactor? finalFactor = u > 0 ? plan.Factorize(solver, finalRows, weights) : null;
         double vtpv = weights.Quadratic(finalL); // v = −l at the solution
@@ -87,6 +89,7 @@ public static class Adjuster
         var observations = new AdjustedObservation[network.Observations.Count];
         for (int i = 0; i < observations.Length; i++)
         {
+            if (options.Progress is not null && i % 65536 == 0) options.Progress.Report(new AdjustmentProgress("statistics of the observations", 100.0 * i / observations.Length));
             var o = network.Observations[i];
             double v = -finalL[i];
             double adjusted = o.Value + v;

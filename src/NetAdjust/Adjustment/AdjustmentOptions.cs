@@ -36,6 +36,9 @@ public sealed record AdjustmentOptions
     /// </summary>
     public IWeightModel? WeightModel { get; init; }
 
+    /// <summary>Receives progress reports (phase and percent) during the adjustment; null for none. Called on the adjusting thread.</summary>
+    public IProgress<AdjustmentProgress>? Progress { get; init; }
+
     /// <summary>Checks the options.</summary>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>
     public void Validate()

@@ -1,0 +1,57 @@
+using NetAdjust.LinearAlgebra;
+using NetAdjust.LinearAlgebra.Sparse;
+using NetAdjust.Network;
+
+namespace NetAdjust.Adjustment;
+
+/// <summary>
+/// Chooses the linear solver of an adjustment when the options leave it open: the dense solver up to
+/// <see cref="DenseUnknownLimit"/> unknowns, the sparse engine above (crossover measured in docs/performance.md);
+/// and hands the unknowns' positions to a solver that can order by them.
+/// </summary>
+internal static class SolverChoice
+{
+    /// <summary>The largest number of unknowns solved densely by default.</summary>
+    public const int DenseUnknownLimit = 200;
+
+    /// <summary>The solver for an adjustment.</summary>
+    public static INormalEquationsSolver For(AdjustmentOptions options, SurveyNetwork network, UnknownIndex index)
+    {
+        var solver = options.Solver ?? (index.Count <= DenseUnknownLimit ? new DenseNormalEquationsSolver() : new SparseNormalEquationsSolver());
+        return solver is IGeometryAwareSolver aware ? new WithGeometry(aware, GeometryOf(network, index)) : solver;
+    }
+
+    /// <summary>
+    /// Groups the unknowns by point (E, N, H of a point; a direction set's orientation with its station) and
+    /// places each group at the point's given or approximate plane position (NaN when it has none).
+    /// </summary>
+    public static UnknownGeometry GeometryOf(SurveyNetwork network, UnknownIndex index)
+    {
+        var stationOfSet = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var o in network.Observations)
+            if (o is DirectionObservation d) stationOfSet.TryAdd(d.SetId, d.Station);
+        var groupOf = new int[index.Count];
+        var x = new double[network.Points.Count];
+        var y = new double[network.Points.Count];
+        for (int i = 0; i < network.Points.Count; i++)
+        {
+            x[i] = network.Points[i].E ?? double.NaN;
+            y[i] = network.Points[i].N ?? double.NaN;
+        }
+        for (int j = 0; j < index.Count; j++)
+        {
+            var u = index.Unknowns[j];
+            string owner = u.Parameter == Geometry.Parameter.Orientation ? stationOfSet[u.Owner] : u.Owner;
+            groupOf[j] = network.IndexOf(owner);
+        }
+        return new UnknownGeometry(groupOf, x, y);
+    }
+
+    private sealed class WithGeometry(IGeometryAwareSolver inner, UnknownGeometry geometry) : INormalEquationsSolver
+    {
+        public string Name => inner.Name;
+
+        public INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights) =>
+            inner.Factorize(unknownCount, rows, weights, geometry);
+    }
+}

@@ -1,0 +1,94 @@
+namespace NetAdjust.LinearAlgebra.Sparse;
+
+/// <summary>
+/// The adjacency graph G(N) of the normal matrix N = AᵀPA without forming N: unknowns i and j are adjacent
+/// when they appear together in one design row or in two rows joined by one weight block. Compressed
+/// (CSR-like) adjacency lists, sorted, without self loops.
+/// </summary>
+/// <remarks>
+/// The graph model of symmetric Gaussian elimination: Davis 2006, <i>Direct Methods for Sparse Linear
+/// Systems</i>, §4.1; George &amp; Liu 1981, <i>Computer Solution of Large Sparse Positive Definite Systems</i>, ch. 3.
+/// Memory O(nnz(N)).
+/// </remarks>
+public sealed class AdjacencyGraph
+{
+    private AdjacencyGraph(int vertexCount, int[] start, int[] adjacent)
+    {
+        VertexCount = vertexCount; Start = start; Adjacent = adjacent;
+    }
+
+    /// <summary>The number of vertices (unknowns).</summary>
+    public int VertexCount { get; }
+
+    /// <summary>Start[v]..Start[v+1] delimit the neighbours of v in <see cref="Adjacent"/>.</summary>
+    internal int[] Start { get; }
+
+    /// <summary>The neighbours of all vertices, sorted per vertex.</summary>
+    internal int[] Adjacent { get; }
+
+    /// <summary>The number of edges (each counted once).</summary>
+    public long EdgeCount => Adjacent.LongLength / 2;
+
+    /// <summary>The neighbours of one vertex.</summary>
+    /// <param name="v">The vertex.</param>
+    public ReadOnlySpan<int> Neighbours(int v) => Adjacent.AsSpan(Start[v], Start[v + 1] - Start[v]);
+
+    /// <summary>Builds G(AᵀPA).</summary>
+    /// <param name="unknownCount">Number of unknowns (columns of A).</param>
+    /// <param name="rows">The rows of A.</param>
+    /// <param name="weights">The block-diagonal P.</param>
+    public static AdjacencyGraph FromNormalEquations(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
+    {
+        // Cliques: one per weight block, its vertices the union of the block's rows' columns.
+        var cliqueStart = new List<int>(weights.Blocks.Count + 1) { 0 };
+        var cliqueVertices = new List<int>(rows.Count * 4);
+        var mark = new int[unknownCount];
+        Array.Fill(mark, -1);
+        for (int b = 0; b < weights.Blocks.Count; b++)
+        {
+            foreach (int r in weights.Blocks[b].Rows)
+                foreach (int c in rows[r].Columns)
+                    if (mark[c] != b) { mark[c] = b; cliqueVertices.Add(c); }
+            cliqueStart.Add(cliqueVertices.Count);
+        }
+        return FromCliques(unknownCount, cliqueStart, cliqueVertices);
+    }
+
+    /// <summary>Builds a graph as the union of cliques (each clique given by its vertices).</summary>
+    internal static AdjacencyGraph FromCliques(int n, List<int> cliqueStart, List<int> cliqueVertices)
+    {
+        var degree = new int[n + 1];
+        for (int q = 0; q + 1 < cliqueStart.Count; q++)
+        {
+            int size = cliqueStart[q + 1] - cliqueStart[q];
+            for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++) degree[cliqueVertices[t]] += size - 1;
+        }
+        var start = new int[n + 1];
+        for (int v = 0; v < n; v++) start[v + 1] = start[v] + degree[v];
+        var fill = new int[n];
+        Array.Copy(start, fill, n);
+        var adj = new int[start[n]];
+        for (int q = 0; q + 1 < cliqueStart.Count; q++)
+            for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++)
+            {
+                int v = cliqueVertices[t];
+                for (int s = cliqueStart[q]; s < cliqueStart[q + 1]; s++)
+                    if (s != t) adj[fill[v]++] = cliqueVertices[s];
+            }
+        // Sort and remove duplicates per vertex, compacting in place.
+        var newStart = new int[n + 1];
+        int w = 0;
+        for (int v = 0; v < n; v++)
+        {
+            int a = start[v], e = start[v + 1];
+            Array.Sort(adj, a, e - a);
+            newStart[v] = w;
+            int last = -1;
+            for (int p = a; p < e; p++)
+                if (adj[p] != last) { last = adj[p]; adj[w++] = last; }
+        }
+        newStart[n] = w;
+        Array.Resize(ref adj, w);
+        return new AdjacencyGraph(n, newStart, adj);
+    }
+}

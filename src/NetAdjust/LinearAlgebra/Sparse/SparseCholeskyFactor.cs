@@ -1,0 +1,101 @@
+namespace NetAdjust.LinearAlgebra.Sparse;
+
+/// <summary>
+/// A numeric supernodal Cholesky factor of N = AᵀPA (N = Pᵀ S⁻¹ L Lᵀ S⁻¹ P with the fill-reducing permutation P
+/// and the Jacobi scale S of its <see cref="SymbolicCholesky"/>): solves with N, and gives entries of Qxx = N⁻¹.
+/// Immutable after construction; the selected inverse is computed once, on the first request, thread-safely.
+/// </summary>
+/// <remarks>
+/// <see cref="InverseEntry"/> is exact (to rounding) on the pattern of L: any (i, j) of unknowns that share a
+/// design row or weight block, or that share a point's group when points are kept together by the ordering, lies
+/// on it. An entry off the pattern is computed by one solve N x = e_j (O(nnz(L))) and the last such column is
+/// cached, so a run of requests in one column costs one solve.
+/// </remarks>
+public sealed class SparseCholeskyFactor : INormalFactor
+{
+    private readonly double[] _l;
+    private readonly double[] _scale;
+    private readonly object _gate = new();
+    private double[]? _z;
+    private int _cachedColumn = -1;
+    private double[]? _cachedSolution;
+
+    internal SparseCholeskyFactor(SymbolicCholesky symbolic, double[] l, double[] scale)
+    {
+        Symbolic = symbolic; _l = l; _scale = scale;
+    }
+
+    /// <summary>Factorises C = P (AᵀPA) Pᵀ on an analysed pattern.</summary>
+    /// <param name="symbolic">The symbolic analysis of the pattern.</param>
+    /// <param name="assembly">The assembly plan for that pattern.</param>
+    /// <param name="rows">The rows of A (same pattern as analysed).</param>
+    /// <param name="weights">The weights.</param>
+    /// <exception cref="SingularNormalMatrixException">When a scaled pivot is not above
+    /// <see cref="DenseNormalEquationsSolver.PivotTolerance"/>; names the original column.</exception>
+    public static SparseCholeskyFactor Factorize(SymbolicCholesky symbolic, NormalMatrixAssembly assembly, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
+    {
+        var values = assembly.Assemble(rows, weights);
+        var (l, scale) = MultifrontalCholesky.Factorize(symbolic, values);
+        return new SparseCholeskyFactor(symbolic, l, scale);
+    }
+
+    /// <summary>The symbolic analysis this factor was computed on.</summary>
+    public SymbolicCholesky Symbolic { get; }
+
+    /// <inheritdoc />
+    public int Size => Symbolic.Size;
+
+    /// <inheritdoc />
+    public double[] Solve(ReadOnlySpan<double> rhs)
+    {
+        int n = Size;
+        if (rhs.Length != n) throw new ArgumentException($"the right-hand side has {rhs.Length} entries for {n} unknowns");
+        var perm = Symbolic.Perm;
+        var y = new double[n];
+        for (int k = 0; k < n; k++) y[k] = rhs[perm[k]] * _scale[k];      // y = S P b
+        SupernodalTriangularSolve.Forward(Symbolic, _l, y);               // y = L \ y
+        SupernodalTriangularSolve.Backward(Symbolic, _l, y);              // y = Lᵀ \ y
+        var x = new double[n];
+        for (int k = 0; k < n; k++) x[perm[k]] = y[k] * _scale[k];        // x = Pᵀ S y
+        return x;
+    }
+
+    /// <summary>True when (i, j) of Qxx lies on the pattern of the factor (an O(log m) look-up, no inverse needed).</summary>
+    /// <param name="i">Unknown index.</param>
+    /// <param name="j">Unknown index.</param>
+    public bool IsOnPattern(int i, int j)
+    {
+        int pi = Symbolic.InversePerm[i], pj = Symbolic.InversePerm[j];
+        return Symbolic.TryLocate(Math.Max(pi, pj), Math.Min(pi, pj), out _);
+    }
+
+    /// <inheritdoc />
+    public double InverseEntry(int i, int j)
+    {
+        int pi = Symbolic.InversePerm[i], pj = Symbolic.InversePerm[j];
+        if (Symbolic.TryLocate(Math.Max(pi, pj), Math.Min(pi, pj), out long at))
+        {
+            var z = _z;
+            if (z is null)
+                lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, _l);
+            return z[at] * _scale[pi] * _scale[pj];
+        }
+        lock (_gate)
+        {
+            if (_cachedColumn != j)
+            {
+                var e = new double[Size];
+                e[j] = 1;
+                _cachedSolution = Solve(e);
+                _cachedColumn = j;
+            }
+            return _cachedSolution![i];
+        }
+    }
+
+    /// <summary>Computes the selected inverse now (otherwise done on the first <see cref="InverseEntry"/> on the pattern).</summary>
+    public void ComputeSelectedInverse()
+    {
+        lock (_gate) _z ??= SelectedInversion.Compute(Symbolic, _l);
+    }
+}
