@@ -128,7 +128,8 @@ public static class JsonResultWriter
     internal static string FixityText(Fixity f) =>
         ((f & Fixity.E) != 0 ? "e" : "") + ((f & Fixity.N) != 0 ? "n" : "") + ((f & Fixity.H) != 0 ? "h" : "");
 
-    private static void NumberOrNull(Utf8JsonWriter w, string name, double? v)
+    /// <summary>Writes a finite number, or null for a missing or non-finite value.</summary>
+    internal static void NumberOrNull(Utf8JsonWriter w, string name, double? v)
     {
         if (v is double x && double.IsFinite(x)) w.WriteNumber(name, x);
         else w.WriteNull(name);

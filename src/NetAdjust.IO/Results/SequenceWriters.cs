@@ -44,12 +44,12 @@ public static class SequenceJsonWriter
             w.WriteNumber("vtpv_increase", t.VtpvIncrease);
             w.WriteStartObject("chi_square");
             w.WriteNumber("statistic", t.ChiSquare);
-            Num(w, "critical", t.ChiSquareCritical);
+            JsonResultWriter.NumberOrNull(w, "critical", t.ChiSquareCritical);
             Bool(w, "passed", t.PassedChiSquare);
             w.WriteEndObject();
             w.WriteStartObject("f");
-            Num(w, "statistic", t.F);
-            Num(w, "critical", t.FCritical);
+            JsonResultWriter.NumberOrNull(w, "statistic", t.F);
+            JsonResultWriter.NumberOrNull(w, "critical", t.FCritical);
             Bool(w, "passed", t.PassedF);
             w.WriteEndObject();
             w.WriteString("decided_by", t.SigmaEstimated ? "f" : "chi_square");
@@ -61,10 +61,10 @@ public static class SequenceJsonWriter
             {
                 w.WriteStartObject();
                 w.WriteString("id", d.Id);
-                Num(w, "de", d.DE); Num(w, "dn", d.DN); Num(w, "dh", d.DH);
-                Num(w, "sd_de", d.SdE); Num(w, "sd_dn", d.SdN); Num(w, "sd_dh", d.SdH);
-                Num(w, "w_e", d.WE); Num(w, "w_n", d.WN); Num(w, "w_h", d.WH);
-                Num(w, "max_abs_w", d.MaxAbsW);
+                JsonResultWriter.NumberOrNull(w, "de", d.DE); JsonResultWriter.NumberOrNull(w, "dn", d.DN); JsonResultWriter.NumberOrNull(w, "dh", d.DH);
+                JsonResultWriter.NumberOrNull(w, "sd_de", d.SdE); JsonResultWriter.NumberOrNull(w, "sd_dn", d.SdN); JsonResultWriter.NumberOrNull(w, "sd_dh", d.SdH);
+                JsonResultWriter.NumberOrNull(w, "w_e", d.WE); JsonResultWriter.NumberOrNull(w, "w_n", d.WN); JsonResultWriter.NumberOrNull(w, "w_h", d.WH);
+                JsonResultWriter.NumberOrNull(w, "max_abs_w", d.MaxAbsW);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -74,19 +74,13 @@ public static class SequenceJsonWriter
             {
                 w.WriteStartObject();
                 w.WriteString("id", c.Id);
-                Num(w, "de", c.DE); Num(w, "dn", c.DN); Num(w, "dh", c.DH); Num(w, "horizontal", c.Horizontal);
+                JsonResultWriter.NumberOrNull(w, "de", c.DE); JsonResultWriter.NumberOrNull(w, "dn", c.DN); JsonResultWriter.NumberOrNull(w, "dh", c.DH); JsonResultWriter.NumberOrNull(w, "horizontal", c.Horizontal);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
             w.WriteEndObject();
         }
         return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
-    }
-
-    private static void Num(Utf8JsonWriter w, string name, double? v)
-    {
-        if (v is double x && double.IsFinite(x)) w.WriteNumber(name, x);
-        else w.WriteNull(name);
     }
 
     private static void Bool(Utf8JsonWriter w, string name, bool? v)
@@ -155,14 +149,14 @@ public static class SequenceReportWriter
         Line($"  {"Point",-12} {"dE",9} {"dN",9} {"dH",9} {"sd dE",8} {"sd dN",8} {"sd dH",8} {"wE",7} {"wN",7} {"wH",7}");
         double worst = s.Discrepancies.Select(d => d.MaxAbsW ?? 0).DefaultIfEmpty(0).Max();
         foreach (var d in s.Discrepancies)
-            Line(($"  {Clip(d.Id, 12),-12} {L(d.DE, 9)} {L(d.DN, 9)} {L(d.DH, 9)} {L(d.SdE, 8)} {L(d.SdN, 8)} {L(d.SdH, 8)} {W(d.WE, 7)} {W(d.WN, 7)} {W(d.WH, 7)}" +
+            Line(($"  {TextReportWriter.Clip(d.Id, 12),-12} {L(d.DE, 9)} {L(d.DN, 9)} {L(d.DH, 9)} {L(d.SdE, 8)} {L(d.SdN, 8)} {L(d.SdH, 8)} {W(d.WE, 7)} {W(d.WN, 7)} {W(d.WH, 7)}" +
                   (d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "")).TrimEnd());
         Line();
 
         Line($"COORDINATE SHIFTS (constrained - minimally constrained, {lu})");
         Line($"  {"Point",-12} {"dE",9} {"dN",9} {"horiz.",9} {"dH",9}");
         foreach (var sh in s.Shifts)
-            Line($"  {Clip(sh.Id, 12),-12} {L(sh.DE, 9)} {L(sh.DN, 9)} {L(sh.Horizontal, 9)} {L(sh.DH, 9)}".TrimEnd());
+            Line($"  {TextReportWriter.Clip(sh.Id, 12),-12} {L(sh.DE, 9)} {L(sh.DN, 9)} {L(sh.Horizontal, 9)} {L(sh.DH, 9)}".TrimEnd());
         Line();
 
         Line("STEP 1: MINIMALLY CONSTRAINED SOLUTION");
@@ -174,6 +168,4 @@ public static class SequenceReportWriter
         sb.Append(TextReportWriter.Write(s.Constrained, c));
         return sb.ToString();
     }
-
-    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
 }

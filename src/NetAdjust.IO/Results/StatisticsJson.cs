@@ -28,7 +28,7 @@ internal static class StatisticsJson
             w.WriteEndObject();
         }
         else w.WriteNull("ellipse");
-        Num(w, "sd_h95", pp.HeightConfidence);
+        JsonResultWriter.NumberOrNull(w, "sd_h95", pp.HeightConfidence);
     }
 
     public static void WriteObservation(Utf8JsonWriter w, AdjustmentResult r, AdjustedObservation o)
@@ -43,12 +43,12 @@ internal static class StatisticsJson
     private static void WriteTest(Utf8JsonWriter w, ObservationTest t, double k)
     {
         w.WriteNumber("redundancy", t.Redundancy);
-        Num(w, "w", t.W);
-        Num(w, "tau", t.Tau);
-        Num(w, "mdb", t.Mdb * k);
-        Num(w, "external_reliability", t.ExternalReliability);
+        JsonResultWriter.NumberOrNull(w, "w", t.W);
+        JsonResultWriter.NumberOrNull(w, "tau", t.Tau);
+        JsonResultWriter.NumberOrNull(w, "mdb", t.Mdb * k);
+        JsonResultWriter.NumberOrNull(w, "external_reliability", t.ExternalReliability);
         if (t.ExternalReliabilityPoint is null) w.WriteNull("external_reliability_point"); else w.WriteString("external_reliability_point", t.ExternalReliabilityPoint);
-        Num(w, "bias_to_noise", t.BiasToNoiseRatio);
+        JsonResultWriter.NumberOrNull(w, "bias_to_noise", t.BiasToNoiseRatio);
         if (t.Flag.Name() is string f) w.WriteString("flag", f); else w.WriteNull("flag");
     }
 
@@ -64,7 +64,7 @@ internal static class StatisticsJson
         w.WriteNumber("delta0", a.Delta0);
         w.WriteNumber("tau_alpha", a.Options.TauAlpha);
         w.WriteString("tau_adjustment", a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "sidak" : "bonferroni");
-        Num(w, "tau_critical", a.TauCritical);
+        JsonResultWriter.NumberOrNull(w, "tau_critical", a.TauCritical);
         w.WriteNumber("confidence", a.Options.ConfidenceLevel);
         w.WriteNumber("ellipse_scale", a.EllipseScale);
         w.WriteNumber("interval_scale", a.IntervalScale);
@@ -85,7 +85,7 @@ internal static class StatisticsJson
             w.WriteNumber("b95", rel.Confidence.B);
             w.WriteNumber("distance", rel.Distance);
             w.WriteNumber("sd_distance", rel.SdDistance);
-            Num(w, "ratio", double.IsFinite(rel.Ratio) ? rel.Ratio : null);
+            JsonResultWriter.NumberOrNull(w, "ratio", double.IsFinite(rel.Ratio) ? rel.Ratio : null);
             w.WriteNumber("sd_azimuth", rel.SdAzimuth * Angle.ArcsecondsPerRadian);
             w.WriteBoolean("observed", rel.Observed);
             w.WriteEndObject();
@@ -131,11 +131,11 @@ internal static class StatisticsJson
                 w.WriteStartObject();
                 w.WriteNumber("round", round.Round);
                 w.WriteNumber("degrees_of_freedom", round.DegreesOfFreedom);
-                Num(w, "variance_factor", round.VarianceFactor);
+                JsonResultWriter.NumberOrNull(w, "variance_factor", round.VarianceFactor);
                 if (round.GlobalTestPassed is bool gp) w.WriteBoolean("global_test_passed", gp); else w.WriteNull("global_test_passed");
                 if (round.WorstIndex is int wi) w.WriteNumber("worst_index", wi); else w.WriteNull("worst_index");
-                Num(w, "worst_statistic", round.WorstStatistic);
-                Num(w, "critical", round.Critical);
+                JsonResultWriter.NumberOrNull(w, "worst_statistic", round.WorstStatistic);
+                JsonResultWriter.NumberOrNull(w, "critical", round.Critical);
                 w.WriteBoolean("set_aside", round.SetAside);
                 w.WriteEndObject();
             }
@@ -159,7 +159,7 @@ internal static class StatisticsJson
                 w.WriteStartObject();
                 w.WriteNumber("index", i);
                 w.WriteNumber("weight_factor", rb.WeightFactors[i]);
-                Num(w, "standardised_residual", rb.Standardised[i]);
+                JsonResultWriter.NumberOrNull(w, "standardised_residual", rb.Standardised[i]);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -179,22 +179,16 @@ internal static class StatisticsJson
                 w.WriteString("kind", g.Kind.Name());
                 w.WriteNumber("count", g.Count);
                 w.WriteNumber("redundancy", g.Redundancy);
-                Num(w, "variance_factor", g.VarianceFactor);
-                Num(w, "sd_scale", g.SdScale);
-                Num(w, "scaled_sd", g.ScaledSd * k);
-                Num(w, "constant_part", g.ConstantPart);
-                Num(w, "ppm_part", g.PpmPart);
+                JsonResultWriter.NumberOrNull(w, "variance_factor", g.VarianceFactor);
+                JsonResultWriter.NumberOrNull(w, "sd_scale", g.SdScale);
+                JsonResultWriter.NumberOrNull(w, "scaled_sd", g.ScaledSd * k);
+                JsonResultWriter.NumberOrNull(w, "constant_part", g.ConstantPart);
+                JsonResultWriter.NumberOrNull(w, "ppm_part", g.PpmPart);
                 if (g.Note is null) w.WriteNull("note"); else w.WriteString("note", g.Note);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
             w.WriteEndObject();
         }
-    }
-
-    private static void Num(Utf8JsonWriter w, string name, double? v)
-    {
-        if (v is double x && double.IsFinite(x)) w.WriteNumber(name, x);
-        else w.WriteNull(name);
     }
 }

@@ -71,7 +71,7 @@ internal static class StatisticsReport
                 _ => "",
             };
             if (i.SdFactor != 1.0) flag += (flag.Length > 0 ? " " : "") + $"sd x{i.SdFactor.ToString("0.###", Inv)}";
-            Line($"  {o.Index + 1,4} {Kind(i.Kind),-9} {Clip(i.At ?? "", 6),-6} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {Clip(i.To, 6),-6} " +
+            Line($"  {o.Index + 1,4} {Kind(i.Kind),-9} {TextReportWriter.Clip(i.At ?? "", 6),-6} {TextReportWriter.Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {TextReportWriter.Clip(i.To, 6),-6} " +
                  $"{Small(i, o.Residual, 9)} {Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2, 5)} {Num(t.W, 2, 6)} {Num(t.Tau, 2, 6)} " +
                  $"{Small(i, t.Mdb, 8)} {Len(t.ExternalReliability, 8)} {flag}");
         }
@@ -89,7 +89,7 @@ internal static class StatisticsReport
             Line($"TESTS OF THE WEIGHTED CONTROL ({lu})");
             Line($"  {"Point",-12} {"Comp.",5} {"Residual",9} {"r",5} {"w",7} {"tau",7} {"MDB",9} Flag");
             foreach (var ct in a.Control)
-                Line($"  {Clip(ct.PointId, 12),-12} {ct.Component,5} {Len(ct.Residual, 9)} {Num(ct.Test.Redundancy, 2, 5)} {Num(ct.Test.W, 2, 7)} " +
+                Line($"  {TextReportWriter.Clip(ct.PointId, 12),-12} {ct.Component,5} {Len(ct.Residual, 9)} {Num(ct.Test.Redundancy, 2, 5)} {Num(ct.Test.W, 2, 7)} " +
                      $"{Num(ct.Test.Tau, 2, 7)} {Len(ct.Test.Mdb, 9)} {ct.Test.Flag.Name() ?? ""}");
             Line();
         }
@@ -110,10 +110,10 @@ internal static class StatisticsReport
                 var input = r.Network[p.Id];
                 if ((e is null || input.IsFixed(Fixity.EN)) && (p.SdHeight is null || input.IsFixed(Fixity.H)))
                 {
-                    Line($"  {Clip(p.Id, 12),-12} {"held",9}");
+                    Line($"  {TextReportWriter.Clip(p.Id, 12),-12} {"held",9}");
                     continue;
                 }
-                Line($"  {Clip(p.Id, 12),-12} {Len(e?.A, 9)} {Len(e?.B, 9)} {(e is ErrorEllipse ee ? Az(ee.Azimuth, 8) : "-".PadLeft(8))} " +
+                Line($"  {TextReportWriter.Clip(p.Id, 12),-12} {Len(e?.A, 9)} {Len(e?.B, 9)} {(e is ErrorEllipse ee ? Az(ee.Azimuth, 8) : "-".PadLeft(8))} " +
                      $"{Len(k?.A, 9)} {Len(k?.B, 9)} {Len(p.SdHeight, 9)} {Len(p.HeightConfidence, 9)}");
             }
             Line();
@@ -124,7 +124,7 @@ internal static class StatisticsReport
             Line($"RELATIVE ERROR ELLIPSES ({lu}; azimuth in {azUnit}; relative distance precision 1:k; azimuth sd in {au})");
             Line($"  {"From",-8} {"To",-8} {"a",8} {"b",8} {"Azimuth",8} {"a " + level,8} {"Distance",11} {"sd dist",8} {"1:k",9} {"sd az",7}");
             foreach (var rel in a.Relative)
-                Line($"  {Clip(rel.From, 8),-8} {Clip(rel.To, 8),-8} {Len(rel.Ellipse.A, 8)} {Len(rel.Ellipse.B, 8)} {Az(rel.Ellipse.Azimuth, 8)} " +
+                Line($"  {TextReportWriter.Clip(rel.From, 8),-8} {TextReportWriter.Clip(rel.To, 8),-8} {Len(rel.Ellipse.A, 8)} {Len(rel.Ellipse.B, 8)} {Az(rel.Ellipse.Azimuth, 8)} " +
                      $"{Len(rel.Confidence.A, 8)} {Len(rel.Distance, 11)} {Len(rel.SdDistance, 8)} {(double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact"),9} " +
                      $"{(rel.SdAzimuth / radPerSd).ToString("F2", Inv),7}{(rel.Observed ? "" : " *")}");
             if (a.Relative.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
@@ -136,7 +136,7 @@ internal static class StatisticsReport
             Line($"RELATIVE HEIGHT PRECISION ({lu}; standard deviation of the height difference and its {level} half-width)");
             Line($"  {"From",-10} {"To",-10} {"dH",11} {"sd dH",9} {"dH " + level,9}");
             foreach (var rh in a.RelativeHeights)
-                Line($"  {Clip(rh.From, 10),-10} {Clip(rh.To, 10),-10} {Len(rh.Difference, 11)} {Len(rh.SdDifference, 9)} {Len(rh.Confidence, 9)}{(rh.Observed ? "" : " *")}");
+                Line($"  {TextReportWriter.Clip(rh.From, 10),-10} {TextReportWriter.Clip(rh.To, 10),-10} {Len(rh.Difference, 11)} {Len(rh.SdDifference, 9)} {Len(rh.Confidence, 9)}{(rh.Observed ? "" : " *")}");
             if (a.RelativeHeights.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
             Line();
         }
@@ -150,7 +150,7 @@ internal static class StatisticsReport
                 // without its source, so that the kind and points fit the column; the sources are listed below
                 string worst = round.WorstIndex is int wi ? $"#{wi + 1} {(r.Network.Observations[wi] with { Source = null }).Describe()}" : "-";
                 Line($"  {round.Round,5} {round.DegreesOfFreedom,5} {Num(round.VarianceFactor, 4, 10)} {(round.GlobalTestPassed is bool g ? (g ? "passed" : "FAILED") : "n/a"),7} " +
-                     $"{Clip(worst, 34),-34} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
+                     $"{TextReportWriter.Clip(worst, 34),-34} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
             }
             Line($"  Stopped: {h.StopReason}.");
             if (h.SetAside.Count > 0)
@@ -176,7 +176,7 @@ internal static class StatisticsReport
                 if (rb.WeightFactors[i] >= 1) continue;
                 shown++;
                 bool sus = rb.Suspected.Contains(i);
-                Line($"  #{i + 1,-4} {Clip((r.Network.Observations[i] with { Source = null }).Describe(), 34),-34} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
+                Line($"  #{i + 1,-4} {TextReportWriter.Clip((r.Network.Observations[i] with { Source = null }).Describe(), 34),-34} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
                      $"|u| {Num(rb.Standardised[i], 2, 6)}{(sus ? "  SUSPECTED" : "")}");
             }
             if (shown == 0) Line("  none");
@@ -218,8 +218,6 @@ internal static class StatisticsReport
         }
         if (line.Length > 0) yield return line.ToString();
     }
-
-    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
 
     private static string Kind(ObservationKind k) => k == ObservationKind.HeightDifference ? "height" : k.Name();
 }

@@ -45,7 +45,7 @@ internal static class TextReportSections
         foreach (var (o, wi) in worst)
         {
             string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical(r) ? "FAILS" : "passes")}  {o.Input.Describe()}";
-            sb.Append(Clip(line, MaxWidth)).Append('\n');
+            sb.Append(TextReportWriter.Clip(line, MaxWidth)).Append('\n');
         }
     }
 
@@ -67,8 +67,6 @@ internal static class TextReportSections
             line.Append(word);
             empty = false;
         }
-        sb.Append(Clip(line.ToString(), MaxWidth)).Append('\n');
+        sb.Append(TextReportWriter.Clip(line.ToString(), MaxWidth)).Append('\n');
     }
-
-    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
 }

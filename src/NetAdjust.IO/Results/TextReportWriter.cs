@@ -111,7 +111,8 @@ public static class TextReportWriter
 
     private static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);
 
-    private static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
+    /// <summary>Cuts text to a column width, marking the cut with a tilde.</summary>
+    internal static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
 
     private static string AngleName(AngleFormat f) => f switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
 
