@@ -15,9 +15,7 @@ public class DemoAdjustBenchmark
     [GlobalSetup]
     public void Setup()
     {
-        var d = new DirectoryInfo(AppContext.BaseDirectory);
-        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        _path = Path.Combine(d!.FullName, "data", "brackenmoor.yaml");
+        _path = DemoData.File("brackenmoor.yaml");
         _project = ProjectReader.Read(_path);
     }
 

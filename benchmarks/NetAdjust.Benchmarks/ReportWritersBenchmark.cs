@@ -16,9 +16,7 @@ public class ReportWritersBenchmark
     [GlobalSetup]
     public void Setup()
     {
-        var d = new DirectoryInfo(AppContext.BaseDirectory);
-        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        var demo = ProjectReader.Read(Path.Combine(d!.FullName, "data", "brackenmoor.yaml"));
+        var demo = ProjectReader.Read(DemoData.File("brackenmoor.yaml"));
         _result = Adjuster.Adjust(demo.Network, demo.Options);
         _ = _result.Analysis;
         _context = new ReportContext("data/brackenmoor.yaml", new DateOnly(2026, 12, 1), demo.Units);

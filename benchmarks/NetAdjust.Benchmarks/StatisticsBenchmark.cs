@@ -16,11 +16,9 @@ public class StatisticsBenchmark
     [GlobalSetup]
     public void Setup()
     {
-        var d = new DirectoryInfo(AppContext.BaseDirectory);
-        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        var demo = ProjectReader.Read(Path.Combine(d!.FullName, "data", "brackenmoor.yaml"));
+        var demo = ProjectReader.Read(DemoData.File("brackenmoor.yaml"));
         _result = Adjuster.Adjust(demo.Network, demo.Options);
-        _blunder = ProjectReader.Read(Path.Combine(d.FullName, "data", "harrowfield-blunder.yaml"));
+        _blunder = ProjectReader.Read(DemoData.File("harrowfield-blunder.yaml"));
     }
 
     /// <summary>Full analysis (tests, reliability with one solve per observation, ellipses, relative ellipses).</summary>

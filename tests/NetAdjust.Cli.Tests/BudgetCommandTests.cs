@@ -104,9 +104,7 @@ public class AdjustBudgetReportTests
 {
     private static string Demo()
     {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "NetAdjust.sln"))) dir = dir.Parent;
-        return Path.Combine(dir!.FullName, "data", "brackenmoor.yaml");
+        return Path.Combine(CliTests.RepoRoot(), "data", "brackenmoor.yaml");
     }
 
     [Fact]

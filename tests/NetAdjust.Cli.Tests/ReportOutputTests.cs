@@ -9,9 +9,7 @@ public sealed class ReportOutputTests : IDisposable
 
     public ReportOutputTests()
     {
-        var d = new DirectoryInfo(AppContext.BaseDirectory);
-        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        string data = Path.Combine(d!.FullName, "data");
+        string data = Path.Combine(CliTests.RepoRoot(), "data");
         File.Copy(Path.Combine(data, "brackenmoor.yaml"), Path.Combine(_dir, "brackenmoor.yaml"));
         File.Copy(Path.Combine(data, "brackenmoor-levels.csv"), Path.Combine(_dir, "brackenmoor-levels.csv"));
     }

@@ -53,9 +53,7 @@ public class DatumSectionTests
 
     private static string Data(string name)
     {
-        var d = new DirectoryInfo(AppContext.BaseDirectory);
-        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        return Path.Combine(d!.FullName, "data", name);
+        return Path.Combine(NetAdjust.IO.Tests.Results.TestProjects.RepoRoot, "data", name);
     }
 
     [Fact]

@@ -7,9 +7,7 @@ public class AdjustStatisticsCliTests
 {
     private static string Repo()
     {
-        var d = new DirectoryInfo(AppContext.BaseDirectory);
-        while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        return d?.FullName ?? throw new InvalidOperationException("repository root not found");
+        return CliTests.RepoRoot();
     }
 
     private static (int Code, string Out, string Err) Run(params string[] args)

@@ -19,9 +19,7 @@ public class StochasticProjectTests
 
     internal static string DataDirectory()
     {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "NetAdjust.sln"))) dir = dir.Parent;
-        return Path.Combine(dir?.FullName ?? throw new InvalidOperationException("repository root not found"), "data");
+        return Path.Combine(NetAdjust.IO.Tests.Results.TestProjects.RepoRoot, "data");
     }
 
     private static SurveyProject Parse(string yaml, string? dir = null) =>
