@@ -1,3 +1,4 @@
+using System.Globalization;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
 
@@ -205,8 +206,20 @@ internal sealed class PlaneLocator(ObservationIndex index)
     }
 
     /// <summary>
-    /// Locates point <paramref name="id"/> by the constructions of <paramref name="strength"/> (and, today, the
-    /// stronger ones); null when none applies.
+    /// Largest root-mean-square standardised misfit of the angles of a resection, in σ, above which it is rejected:
+    /// 100σ. Noise and the blunders the w-test is there to find stay well below; beyond it an angle, a reading or
+    /// a located point's coordinates is wrong and the resection would hide it (a choice of this project,
+    /// docs/methods.md). An exactly determined resection (three targets) always fits.
+    /// </summary>
+    internal const double ResectionMisfitLimit = 100;
+
+    private static bool IsRejected(PlanePoint resected, List<AngleAtPoint> cuts) =>
+        Math.Sqrt(Constructions.Misfit(resected, [], [], cuts) / cuts.Count) > ResectionMisfitLimit;
+
+    /// <summary>
+    /// Locates point <paramref name="id"/> by the constructions of <paramref name="strength"/> and the stronger
+    /// ones (a point tried at a strength was tried, without success, at the stronger ones in the same round);
+    /// null when none applies.
     /// </summary>
     private PlanePoint? Construct(string id, Dictionary<string, PlanePoint> known, Dictionary<string, double> orientation,
         ConstructionStrength strength, out string? parent, Func<string, int>? generation = null)
@@ -243,28 +256,29 @@ internal sealed class PlaneLocator(ObservationIndex index)
                     bestSin = sin;
                 }
             }
-        if (best is not null) return best;
+        if (best is not null || strength <= ConstructionStrength.PolarOrIntersection) return best;
 
-        // Resection from angles at the point.
-        if (Constructions.Resect(cuts) is PlanePoint res
-            && Constructions.Misfit(res, [], [], cuts) < 1e6 * Math.Max(1, cuts.Count)) return res;
+        // Resection from angles at the point, unless its angles misfit (a redundant resection shows a blunder).
+        if (Constructions.Resect(cuts) is PlanePoint res && !IsRejected(res, cuts)) return res;
 
         if (strength == ConstructionStrength.Resection) return null;
 
         // Two-solution constructions: ray–distance, distance–distance.
-        var candidates = new List<(PlanePoint, PlanePoint)>();
+        var candidates = new List<(PlanePoint, PlanePoint?)>();
         foreach (var r in rays)
             foreach (var d in circles.Where(d => d.Origin != r.Origin))
-                if (Constructions.RayCircle(r, d) is var (p1, p2)) candidates.Add((p1, p2 ?? p1));
+                if (Constructions.RayCircle(r, d) is var (p1, p2)) candidates.Add((p1, p2));
         for (int a = 0; a < circles.Count; a++)
             for (int b = a + 1; b < circles.Count; b++)
                 if (circles[a].Origin != circles[b].Origin && Constructions.CircleCircle(circles[a], circles[b]) is var (p1, p2))
                     candidates.Add((p1, p2));
         foreach (var (p1, p2) in candidates)
         {
-            double m1 = Constructions.Misfit(p1, rays, circles, cuts), m2 = Constructions.Misfit(p2, rays, circles, cuts);
+            if (p2 is null) return p1; // a unique solution (the ray starts inside the circle) needs no deciding
+            double m1 = Constructions.Misfit(p1, rays, circles, cuts);
+            double m2 = Constructions.Misfit(p2.Value, rays, circles, cuts);
             // The two solutions fit the observations that made them equally; the others decide (3σ margin).
-            if (Math.Abs(m1 - m2) > 9) return m1 < m2 ? p1 : p2;
+            if (Math.Abs(m1 - m2) > 9) return m1 < m2 ? p1 : p2.Value;
             if (strength == ConstructionStrength.UndecidedIntersection) return p1;
         }
         return null;
@@ -278,9 +292,21 @@ internal sealed class PlaneLocator(ObservationIndex index)
         string name = p.Source is null ? id : $"{id} ({p.Source})";
         int all = index.ObservationsOf(id).Count;
         static string Count(int k, string what) => k == 1 ? $"1 {what}" : $"{k} {what}s";
-        return $"{name}: from located points it has {Count(circles.Count, "distance")}, " +
-               $"{Count(rays.Count, "oriented direction or azimuth")} " +
-               $"and {Count(cuts.Count, "angle at the point")} ({Count(all, "observation")} in all); " +
-               (all == 0 ? "no observation reaches it" : "that does not fix its position");
+        string has = $"{name}: from located points it has {Count(circles.Count, "distance")}, " +
+                     $"{Count(rays.Count, "oriented direction or azimuth")} " +
+                     $"and {Count(cuts.Count, "angle at the point")} ({Count(all, "observation")} in all); ";
+        if (Constructions.Resect(cuts) is PlanePoint res && IsRejected(res, cuts))
+        {
+            var worst = cuts.MaxBy(c => Math.Abs(Constructions.AngleMisfit(res, c) / c.Sd));
+            string targets = string.Join(", ", cuts.SelectMany(c => new[] { c.X, c.Y }).Distinct(StringComparer.Ordinal));
+            var ic = CultureInfo.InvariantCulture;
+            string rms = Math.Sqrt(Constructions.Misfit(res, [], [], cuts) / cuts.Count).ToString("F0", ic);
+            string largest = Math.Abs(Constructions.AngleMisfit(res, worst) / worst.Sd).ToString("F0", ic);
+            string limit = ResectionMisfitLimit.ToString("F0", ic);
+            return has + $"its resection from {targets} was rejected: the angles at the point misfit by {rms}σ (root " +
+                   $"mean square; limit {limit}σ), the angle from {worst.X} to {worst.Y} by {largest}σ, so a direction, " +
+                   "an angle or a located point's coordinates is wrong";
+        }
+        return has + (all == 0 ? "no observation reaches it" : "that does not fix its position");
     }
 }
