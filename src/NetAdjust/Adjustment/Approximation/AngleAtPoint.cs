@@ -9,4 +9,5 @@ namespace NetAdjust.Adjustment.Approximation;
 /// <param name="AtY">Its coordinates.</param>
 /// <param name="Angle">The clockwise angle X → Y, radians.</param>
 /// <param name="Sd">Standard deviation of the angle, radians.</param>
-internal readonly record struct AngleAtPoint(string X, PlanePoint AtX, string Y, PlanePoint AtY, double Angle, double Sd);
+internal readonly record struct AngleAtPoint(
+    string X, PlanePoint AtX, string Y, PlanePoint AtY, double Angle, double Sd);

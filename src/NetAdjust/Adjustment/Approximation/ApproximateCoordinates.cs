@@ -42,7 +42,8 @@ internal static class ApproximateCoordinates
             var keptPlane = plane.Where(id => kept.ObservationsOf(id).Count > 0).ToHashSet(StringComparer.Ordinal);
             new PlaneLocator(kept).Locate(keptPlane, e, n, seedWhenNothingKnown, throwWhenMissing: false);
         }
-        new PlaneLocator(new ObservationIndex(network)).Locate(plane, e, n, seedWhenNothingKnown, throwWhenMissing: true);
+        new PlaneLocator(new ObservationIndex(network))
+            .Locate(plane, e, n, seedWhenNothingKnown, throwWhenMissing: true);
     }
 
     /// <summary>
@@ -54,7 +55,8 @@ internal static class ApproximateCoordinates
     /// <param name="network">The network.</param>
     /// <param name="height">Points taking part in height differences.</param>
     /// <param name="h">Heights known so far, completed in place.</param>
-    public static void Heights(SurveyNetwork network, IReadOnlyCollection<string> height, Dictionary<string, double> h) =>
+    public static void Heights(SurveyNetwork network, IReadOnlyCollection<string> height,
+        Dictionary<string, double> h) =>
         Constructions.LevellingTree(network.Points.Select(p => p.Id).Where(height.Contains).ToList(),
             ApproximationOffers.LevellingEdges(network), h);
 }

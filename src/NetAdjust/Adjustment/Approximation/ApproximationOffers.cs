@@ -13,7 +13,8 @@ namespace NetAdjust.Adjustment.Approximation;
 /// </summary>
 internal static class ApproximationOffers
 {
-    /// <summary>The direction when <paramref name="o"/> belongs to a set sharing one orientation; otherwise null.</summary>
+    /// <summary>The direction when <paramref name="o"/> belongs to a set sharing one orientation; otherwise
+    /// null.</summary>
     public static DirectionObservation? SetMember(Observation o) => o as DirectionObservation;
 
     /// <summary>Whether the observation fixes the scale of a part built in a local frame (distances).</summary>
@@ -77,9 +78,11 @@ internal static class ApproximationOffers
         {
             var located = dirs.Where(d => known.ContainsKey(d.Target)).ToList();
             for (int k = 1; k < located.Count; k++)
+            {
+                double angle = Angle.Reduce0To2Pi(located[k].Reading.Radians - located[0].Reading.Radians);
                 cuts.Add(new AngleAtPoint(located[0].Target, known[located[0].Target], located[k].Target,
-                    known[located[k].Target], Angle.Reduce0To2Pi(located[k].Reading.Radians - located[0].Reading.Radians),
-                    Math.Sqrt(2) * located[k].StandardDeviation));
+                    known[located[k].Target], angle, Math.Sqrt(2) * located[k].StandardDeviation));
+            }
         }
         return (rays, circles, cuts);
     }

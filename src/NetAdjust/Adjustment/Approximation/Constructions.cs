@@ -196,8 +196,8 @@ internal static class Constructions
     /// <param name="order">The points to give heights, in input order.</param>
     /// <param name="edges">Height differences in the order to use them: (from, to, H(to) − H(from)) in metres.</param>
     /// <param name="h">Heights known so far, completed in place.</param>
-    public static void LevellingTree(IReadOnlyList<string> order, IEnumerable<(string From, string To, double Dh)> edges,
-        Dictionary<string, double> h)
+    public static void LevellingTree(IReadOnlyList<string> order,
+        IEnumerable<(string From, string To, double Dh)> edges, Dictionary<string, double> h)
     {
         var next = new Dictionary<string, List<(string To, double Dh)>>(StringComparer.Ordinal);
         List<(string To, double Dh)> Of(string id)

@@ -41,7 +41,8 @@ internal sealed class ObservationIndex
     /// <summary>The network indexed.</summary>
     public SurveyNetwork Network { get; }
 
-    /// <summary>Direction sets by id, each with its directions in input order; sets in order of first appearance.</summary>
+    /// <summary>Direction sets by id, each with its directions in input order; sets in order of first
+    /// appearance.</summary>
     public IReadOnlyDictionary<string, List<DirectionObservation>> Sets => _sets;
 
     /// <summary>The observations that involve point <paramref name="id"/>, in input order.</summary>

@@ -20,7 +20,8 @@ internal sealed class PlaneLocator(ObservationIndex index)
     /// <param name="plane">Points taking part in horizontal observations.</param>
     /// <param name="e">Eastings known so far, completed in place.</param>
     /// <param name="n">Northings, completed in place.</param>
-    /// <param name="seedWhenNothingKnown">When no point has coordinates, start a local frame at the first point.</param>
+    /// <param name="seedWhenNothingKnown">When no point has coordinates, start a local frame at the first
+    /// point.</param>
     /// <param name="throwWhenMissing">Whether a point that cannot be reached is an error.</param>
     /// <exception cref="InvalidInputException">Naming each point that cannot be reached and what it lacks.</exception>
     public void Locate(IReadOnlyCollection<string> plane, Dictionary<string, double> e, Dictionary<string, double> n,
@@ -89,7 +90,8 @@ internal sealed class PlaneLocator(ObservationIndex index)
         }
     }
 
-    /// <summary>Locates every point it can from <paramref name="known"/>, in rounds, until nothing more is reached.</summary>
+    /// <summary>Locates every point it can from <paramref name="known"/>, in rounds, until nothing more is
+    /// reached.</summary>
     private void Propagate(List<string> order, Dictionary<string, PlanePoint> known, bool ties)
     {
         // Breadth-first rounds: each round locates every point it can from the points located before it, so a point
@@ -165,7 +167,8 @@ internal sealed class PlaneLocator(ObservationIndex index)
                         candidates.UnionWith(Sets[d.SetId].Select(x => x.Target).Append(d.Station));
                 }
             }
-            if (ties) candidates.UnionWith(order.Where(id => !known.ContainsKey(id))); // ambiguous cases may unlock anything
+            // Ambiguous cases may unlock anything.
+            if (ties) candidates.UnionWith(order.Where(id => !known.ContainsKey(id)));
         }
     }
 
@@ -181,7 +184,9 @@ internal sealed class PlaneLocator(ObservationIndex index)
     private void OrientSets(Dictionary<string, PlanePoint> known, Dictionary<string, double> orientation,
         IEnumerable<string>? fresh = null)
     {
-        var touched = fresh is null ? Sets.Keys.ToHashSet(StringComparer.Ordinal) : new HashSet<string>(StringComparer.Ordinal);
+        var touched = fresh is null
+            ? Sets.Keys.ToHashSet(StringComparer.Ordinal)
+            : new HashSet<string>(StringComparer.Ordinal);
         if (fresh is not null)
             foreach (var id in fresh)
                 foreach (var k in index.SetsOf(id)) touched.Add(k);
@@ -221,8 +226,9 @@ internal sealed class PlaneLocator(ObservationIndex index)
     /// ones (a point tried at a strength was tried, without success, at the stronger ones in the same round);
     /// null when none applies.
     /// </summary>
-    private PlanePoint? Construct(string id, Dictionary<string, PlanePoint> known, Dictionary<string, double> orientation,
-        ConstructionStrength strength, out string? parent, Func<string, int>? generation = null)
+    private PlanePoint? Construct(string id, Dictionary<string, PlanePoint> known,
+        Dictionary<string, double> orientation, ConstructionStrength strength, out string? parent,
+        Func<string, int>? generation = null)
     {
         parent = null;
         var (rays, circles, cuts) = ApproximationOffers.Gather(index, id, known, orientation);
@@ -270,7 +276,8 @@ internal sealed class PlaneLocator(ObservationIndex index)
                 if (Constructions.RayCircle(r, d) is var (p1, p2)) candidates.Add((p1, p2));
         for (int a = 0; a < circles.Count; a++)
             for (int b = a + 1; b < circles.Count; b++)
-                if (circles[a].Origin != circles[b].Origin && Constructions.CircleCircle(circles[a], circles[b]) is var (p1, p2))
+                if (circles[a].Origin != circles[b].Origin
+                    && Constructions.CircleCircle(circles[a], circles[b]) is var (p1, p2))
                     candidates.Add((p1, p2));
         foreach (var (p1, p2) in candidates)
         {
@@ -291,21 +298,22 @@ internal sealed class PlaneLocator(ObservationIndex index)
         var p = index.Network[id];
         string name = p.Source is null ? id : $"{id} ({p.Source})";
         int all = index.ObservationsOf(id).Count;
-        static string Count(int k, string what) => k == 1 ? $"1 {what}" : $"{k} {what}s";
-        string has = $"{name}: from located points it has {Count(circles.Count, "distance")}, " +
-                     $"{Count(rays.Count, "oriented direction or azimuth")} " +
-                     $"and {Count(cuts.Count, "angle at the point")} ({Count(all, "observation")} in all); ";
+        static string Count(int k, string one, string many) => k == 1 ? $"1 {one}" : $"{k} {many}";
+        string has = $"{name}: from located points it has {Count(circles.Count, "distance", "distances")}, " +
+                     $"{Count(rays.Count, "oriented direction or azimuth", "oriented directions or azimuths")} " +
+                     $"and {Count(cuts.Count, "angle at the point", "angles at the point")} " +
+                     $"({Count(all, "observation", "observations")} in all); ";
         if (Constructions.Resect(cuts) is PlanePoint res && IsRejected(res, cuts))
         {
             var worst = cuts.MaxBy(c => Math.Abs(Constructions.AngleMisfit(res, c) / c.Sd));
-            string targets = string.Join(", ", cuts.SelectMany(c => new[] { c.X, c.Y }).Distinct(StringComparer.Ordinal));
+            var targets = string.Join(", ", cuts.SelectMany(c => new[] { c.X, c.Y }).Distinct(StringComparer.Ordinal));
             var ic = CultureInfo.InvariantCulture;
             string rms = Math.Sqrt(Constructions.Misfit(res, [], [], cuts) / cuts.Count).ToString("F0", ic);
             string largest = Math.Abs(Constructions.AngleMisfit(res, worst) / worst.Sd).ToString("F0", ic);
             string limit = ResectionMisfitLimit.ToString("F0", ic);
-            return has + $"its resection from {targets} was rejected: the angles at the point misfit by {rms}σ (root " +
-                   $"mean square; limit {limit}σ), the angle from {worst.X} to {worst.Y} by {largest}σ, so a direction, " +
-                   "an angle or a located point's coordinates is wrong";
+            return has + $"its resection from {targets} was rejected: the angles at the point misfit by {rms}σ " +
+                   $"(root mean square; limit {limit}σ; largest: the angle from {worst.X} to {worst.Y}, {largest}σ), " +
+                   "so a direction, an angle or a located point's coordinates is wrong";
         }
         return has + (all == 0 ? "no observation reaches it" : "that does not fix its position");
     }

@@ -36,11 +36,15 @@ public class ConstructionOrderTests
     /// reading to <paramref name="wrongTarget"/> off by <paramref name="wrongBy"/> rad.</summary>
     private static IEnumerable<Observation> Set(string station, string[] targets, double zero,
         (string Id, double E, double N)[] truth, string? wrongTarget = null, double wrongBy = 0) =>
-        targets.Select(t => (Observation)new DirectionObservation(station, t,
-            Angle.FromRadians(Angle.Reduce0To2Pi(Az(At(station, truth), At(t, truth)) - zero + (t == wrongTarget ? wrongBy : 0))),
-            station + "/1") { StandardDeviation = 1e-5 });
+        targets.Select(t =>
+        {
+            double reading = Az(At(station, truth), At(t, truth)) - zero + (t == wrongTarget ? wrongBy : 0);
+            return (Observation)new DirectionObservation(station, t, Angle.FromRadians(Angle.Reduce0To2Pi(reading)),
+                station + "/1") { StandardDeviation = 1e-5 };
+        });
 
-    private static Observation Distance(string from, string to, (string Id, double E, double N)[] truth, double wrongBy = 0) =>
+    private static Observation Distance(string from, string to, (string Id, double E, double N)[] truth,
+        double wrongBy = 0) =>
         new DistanceObservation(from, to, Length.FromMetres(Dist(At(from, truth), At(to, truth)) + wrongBy))
         { StandardDeviation = 0.002 };
 
@@ -135,8 +139,9 @@ public class ConstructionOrderTests
         var obs = Set("P", ["A", "B", "C", "D"], 0.7, truth, wrongTarget: "D", wrongBy: 0.01);
         var ex = Assert.Throws<InvalidInputException>(() => Run(new SurveyNetwork("misfit", pts, obs)));
         Assert.Contains("P:", ex.Message);
-        Assert.Contains("resection", ex.Message);
-        Assert.Contains("σ", ex.Message);
+        Assert.Contains("3 angles at the point", ex.Message);
+        Assert.Contains("resection from A, B, C, D was rejected", ex.Message);
+        Assert.Contains("limit 100σ", ex.Message);
     }
 
     [Fact]

@@ -196,6 +196,7 @@ public class ConstructionsTests
         // atan2(ΔE, ΔN): east is 90°, south-west 225°.
         Assert.Equal(90 * Deg, Constructions.Azimuth(new PlanePoint(0, 0), new PlanePoint(5, 0)), 12);
         Assert.Equal(225 * Deg, Constructions.Azimuth(new PlanePoint(0, 0), new PlanePoint(-3, -3)), 12);
-        Assert.Equal(Angle.FromDegrees(225).Radians, Constructions.Azimuth(new PlanePoint(1, 1), new PlanePoint(-2, -2)), 12);
+        Assert.Equal(Angle.FromDegrees(225).Radians,
+            Constructions.Azimuth(new PlanePoint(1, 1), new PlanePoint(-2, -2)), 12);
     }
 }
