@@ -1,3 +1,5 @@
+using FsCheck;
+using FsCheck.Xunit;
 using NetAdjust.Adjustment.Approximation;
 using NetAdjust.Geometry;
 using NetAdjust.Units;
@@ -5,9 +7,9 @@ using NetAdjust.Units;
 namespace NetAdjust.Tests.Adjustment.Approximation;
 
 /// <summary>
-/// The plane constructions against values worked by hand from the plane-coordinate formulas of any surveying
-/// textbook (e.g. Wolf &amp; Ghilani, <i>Adjustment Computations</i>, chapters on traverse and intersection/
-/// resection): polar point E = E₀ + d sin t, N = N₀ + d cos t; azimuth t = atan2(ΔE, ΔN). Each expected value
+/// The plane constructions against values worked by hand from the plane-coordinate formulas (common practice;
+/// e.g. Wolf &amp; Ghilani, <i>Adjustment Computations</i>, chapters on traverse and intersection/resection, cited
+/// from memory): polar point E = E₀ + d sin t, N = N₀ + d cos t; azimuth t = atan2(ΔE, ΔN). Each expected value
 /// is worked in the comment beside it; the configurations use right angles and 3-4-5 triangles so that the
 /// values are exact.
 /// </summary>
@@ -143,13 +145,49 @@ public class ConstructionsTests
     public void ResectionOnTheDangerCircleIsRefused()
     {
         // P = (0, 0) and targets (0, 100), (100, 100), (100, 0) are the corners of one square, so all four lie on
-        // one circle: every point of it sees the targets under the same angles (45° and 45°), the classical
-        // "danger circle" (Wolf & Ghilani, resection), and no position may be given.
+        // one circle: every point of it sees the targets under the same angles (45° and 45°, inscribed-angle
+        // theorem), the "danger circle" of resection (common practice), and no position may be given.
         var a = new PlanePoint(0, 100);
         var b = new PlanePoint(100, 100);
         var c = new PlanePoint(100, 0);
         Assert.Null(Constructions.Resect([new AngleAtPoint("A", a, "B", b, 45 * Deg, 1e-5),
             new AngleAtPoint("B", b, "C", c, 45 * Deg, 1e-5)]));
+    }
+
+    [Property(MaxTest = 200)]
+    public void ResectionRecoversAnyPointAwayFromTheDangerCircle(NormalFloat pe, NormalFloat pn, PositiveInt seed)
+    {
+        // Cross-check by the forward problem: angles computed from a chosen P by atan2 (an independent
+        // computation) must resect back to P, wherever P and the three targets lie, unless P is within 5% of the
+        // radius of the circle through the targets (the danger circle, where no answer is asked for).
+        var rng = new Random(seed.Get);
+        var p = new PlanePoint(((double)pe % 500) + 0.5, ((double)pn % 500) + 0.25);
+        var t = Enumerable.Range(0, 3)
+            .Select(_ => new PlanePoint(rng.Next(-1000, 1000), rng.Next(-1000, 1000))).ToArray();
+        double az(PlanePoint x) => Math.Atan2(x.E - p.E, x.N - p.N);
+        var cuts = new[]
+        {
+            new AngleAtPoint("A", t[0], "B", t[1], Angle.Reduce0To2Pi(az(t[1]) - az(t[0])), 1e-5),
+            new AngleAtPoint("B", t[1], "C", t[2], Angle.Reduce0To2Pi(az(t[2]) - az(t[1])), 1e-5),
+        };
+        // Distance of P from the circle through the targets (circumcircle by the perpendicular bisectors).
+        double ax = t[0].E, ay = t[0].N, bx = t[1].E, by = t[1].N, cx = t[2].E, cy = t[2].N;
+        double d = 2 * ((ax * (by - cy)) + (bx * (cy - ay)) + (cx * (ay - by)));
+        bool wellPlaced = t.All(x => Constructions.Distance(x, p) > 50);
+        if (Math.Abs(d) > 1e3 && wellPlaced)
+        {
+            double a2 = (ax * ax) + (ay * ay), b2 = (bx * bx) + (by * by), c2 = (cx * cx) + (cy * cy);
+            var centre = new PlanePoint(((a2 * (by - cy)) + (b2 * (cy - ay)) + (c2 * (ay - by))) / d,
+                ((a2 * (cx - bx)) + (b2 * (ax - cx)) + (c2 * (bx - ax))) / d);
+            double off = Math.Abs(Constructions.Distance(centre, p) - Constructions.Distance(centre, t[0]));
+            var r = Constructions.Resect(cuts);
+            if (off > 0.05 * Constructions.Distance(centre, t[0]))
+            {
+                Assert.NotNull(r);
+                Assert.True(Constructions.Distance(r.Value, p) < 1e-6 * (1 + Constructions.Distance(centre, t[0])),
+                    $"resected ({r.Value.E}, {r.Value.N}) for ({p.E}, {p.N})");
+            }
+        }
     }
 
     [Fact]
