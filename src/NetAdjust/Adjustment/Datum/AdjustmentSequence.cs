@@ -172,7 +172,8 @@ public static class AdjustmentSequence
         bool planeOk = planeIds.Count == 0 || planeControl.Count >= (rotationOrScale ? 2 : 1);
         bool heightOk = heightIds.Count == 0 || heightControl.Count >= 1;
         // Reference objects (control placed by a sight line only) cannot float in a free network: hold them instead.
-        if (planeControl.Any(p => !DatumPlan.IsPlaced(network, p.Id))) return DatumDefinition.Minimal();
+        var links = new Approximation.ObservationIndex(network);
+        if (planeControl.Any(p => !DatumPlan.IsPlaced(links, p.Id))) return DatumDefinition.Minimal();
         if (!planeOk || !heightOk) return DatumDefinition.Free();
         return DatumDefinition.Free(planeControl.Concat(heightControl).Select(p => p.Id).Distinct(StringComparer.Ordinal).ToList());
     }

@@ -110,7 +110,8 @@ internal sealed class DatumPlan
         bool fullHold = false;
         if (planePoints.Count > 0)
         {
-            var placed = planePoints.Where(id => IsPlaced(network, id)).ToList();
+            var links = new ObservationIndex(network);
+            var placed = planePoints.Where(id => IsPlaced(links, id)).ToList();
             p0 = minimal && definition.HoldPoint is string hp0 ? Check(hp0, planePoints, "the held point")
                 : (minimal ? placed.FirstOrDefault(IsPlaneControl) ?? planePoints.FirstOrDefault(IsPlaneControl) : null) ?? placed.FirstOrDefault() ?? planePoints[0];
             bool needSecond = defects.Contains(Defect.Rotation) || defects.Contains(Defect.Scale);
@@ -127,11 +128,11 @@ internal sealed class DatumPlan
                 var control = candidates.Where(IsPlaneControl).ToList();
                 if (minimal && control.Count > 0) candidates = control;
                 // Prefer points the observations place; among those, the farthest.
-                p1 = candidates.OrderByDescending(id => IsPlaced(network, id)).ThenByDescending(id => Sq(e0[id] - e0[p0]) + Sq(n0[id] - n0[p0])).First();
+                p1 = candidates.OrderByDescending(id => IsPlaced(links, id)).ThenByDescending(id => Sq(e0[id] - e0[p0]) + Sq(n0[id] - n0[p0])).First();
             }
             // Control points that no observation places but a sight line (reference objects) are held in full, with p0.
-            var objects = planePoints.Where(id => IsPlaneControl(id) && !IsPlaced(network, id) && id != p0).ToList();
-            if (minimal && p1 is not null && !IsPlaced(network, p1) && !objects.Contains(p1)) objects.Insert(0, p1);
+            var objects = planePoints.Where(id => IsPlaneControl(id) && !IsPlaced(links, id) && id != p0).ToList();
+            if (minimal && p1 is not null && !IsPlaced(links, p1) && !objects.Contains(p1)) objects.Insert(0, p1);
             fullHold = minimal && needSecond && objects.Count > 0;
             if (fullHold)
             {
@@ -140,7 +141,7 @@ internal sealed class DatumPlan
                 heldPoints.UnionWith(objects);
                 defects.RemoveAll(d => d != Defect.Height);
             }
-            else if (definition.Mode == DatumMode.InnerConstraints && planePoints.FirstOrDefault(id => !IsPlaced(network, id)) is string loose)
+            else if (definition.Mode == DatumMode.InnerConstraints && planePoints.FirstOrDefault(id => !IsPlaced(links, id)) is string loose)
             {
                 throw new DatumDefectException(
                     $"The datum is not defined: in a free network point {loose} is placed by no observation but a single sight line " +
@@ -165,11 +166,11 @@ internal sealed class DatumPlan
     /// Whether the observations alone can place a plane point (a structural test, not a proof): a distance reaches it,
     /// or rays from two stations, or it is a station with at least two sightings or angles.
     /// </summary>
-    internal static bool IsPlaced(SurveyNetwork network, string id)
+    internal static bool IsPlaced(ObservationIndex links, string id)
     {
         int count = 0;
         var rayStations = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var o in ApproximateCoordinates.ObservationsOf(network, id))
+        foreach (var o in links.ObservationsOf(id))
         {
             if (!ObservationModels.IsHorizontal(o.Kind) || o.Excluded) continue;
             if (o.Kind == ObservationKind.Distance) count += 2;
@@ -227,17 +228,9 @@ internal sealed class DatumPlan
         var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
         foreach (var set in network.Observations.OfType<DirectionObservation>().GroupBy(d => d.SetId))
         {
-            double first = double.NaN, sum = 0;
-            int count = 0;
-            foreach (var d in set)
-            {
-                var az = PlaneGeometry.Azimuth(d.Station, new PlanePoint(e[d.Station], nn[d.Station]), d.Target, new PlanePoint(e[d.Target], nn[d.Target])).Value;
-                double w = az - d.Reading.Radians;
-                if (count == 0) first = w;
-                sum += Units.Angle.ReduceSigned(w - first);
-                count++;
-            }
-            orientation[set.Key] = first + (sum / count);
+            orientation[set.Key] = SetOrientation.Mean(set.Select(d => PlaneGeometry.Azimuth(d.Station,
+                new PlanePoint(e[d.Station], nn[d.Station]), d.Target, new PlanePoint(e[d.Target], nn[d.Target])).Value
+                - d.Reading.Radians))!.Value;
             index.Add(new Unknown(set.Key, Parameter.Orientation));
         }
         var state = new ParameterState(e, nn, h, orientation);

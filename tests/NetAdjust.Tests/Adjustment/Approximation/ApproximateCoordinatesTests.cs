@@ -3,16 +3,17 @@ using FsCheck.Xunit;
 using NetAdjust.Adjustment;
 using NetAdjust.Adjustment.Approximation;
 using NetAdjust.Network;
+using NetAdjust.Tests.Adjustment.Datum;
 using NetAdjust.Units;
 
-namespace NetAdjust.Tests.Adjustment.Datum;
+namespace NetAdjust.Tests.Adjustment.Approximation;
 
 /// <summary>
 /// Automatic approximate coordinates. Oracles: the simulated truth (exact observations must give it back to
 /// rounding, since polar, intersection, resection and distance intersections are exact constructions), and the
 /// least-squares solution itself, which does not depend on where the iterations started.
 /// </summary>
-public class ApproximationTests
+public class ApproximateCoordinatesTests
 {
     private static double Az(double e1, double n1, double e2, double n2) => Angle.Reduce0To2Pi(Math.Atan2(e2 - e1, n2 - n1));
 

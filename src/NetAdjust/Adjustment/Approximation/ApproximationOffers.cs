@@ -1,0 +1,108 @@
+using NetAdjust.Geometry;
+using NetAdjust.Network;
+using NetAdjust.Units;
+
+namespace NetAdjust.Adjustment.Approximation;
+
+/// <summary>
+/// THE ONE PLACE that maps observation kinds to what they offer approximate coordinates: rays (azimuths, oriented
+/// directions, angles at a located station), circles (distances), angles at the unknown point (angles and
+/// directions observed there), height differences, membership of a direction set, and whether a kind fixes the
+/// scale of a local frame. Everything else in this folder works on those offers only, so that the entries can
+/// move into the observation kinds' own types.
+/// </summary>
+internal static class ApproximationOffers
+{
+    /// <summary>The direction when <paramref name="o"/> belongs to a set sharing one orientation; otherwise
+    /// null.</summary>
+    public static DirectionObservation? SetMember(Observation o) => o as DirectionObservation;
+
+    /// <summary>Whether the observation fixes the scale of a part built in a local frame (distances).</summary>
+    public static bool FixesScale(Observation o) => o.Kind == ObservationKind.Distance && !o.Excluded;
+
+    /// <summary>Whether the observation ties plane positions (every kind but height differences).</summary>
+    public static bool IsPlane(Observation o) => ObservationModels.IsHorizontal(o.Kind);
+
+    /// <summary>Height differences as (from, to, H(to) − H(from)); set-aside observations last, so that they
+    /// are used only where nothing else reaches.</summary>
+    public static IEnumerable<(string From, string To, double Dh)> LevellingEdges(SurveyNetwork network) =>
+        network.Observations.OfType<HeightDifferenceObservation>().OrderBy(x => x.Excluded)
+            .Select(o => (o.From, o.To, o.Value));
+
+    /// <summary>
+    /// Everything that ties point <paramref name="id"/> to located points: rays from located stations, circles
+    /// about located points, and angles at the point between located points.
+    /// </summary>
+    /// <param name="index">The observation index.</param>
+    /// <param name="id">The point to locate.</param>
+    /// <param name="known">Located points.</param>
+    /// <param name="orientation">Orientations of the direction sets oriented so far, radians.</param>
+    public static (List<Ray> Rays, List<Circle> Circles, List<AngleAtPoint> Cuts) Gather(ObservationIndex index,
+        string id, IReadOnlyDictionary<string, PlanePoint> known, IReadOnlyDictionary<string, double> orientation)
+    {
+        var rays = new List<Ray>();
+        var circles = new List<Circle>();
+        var cuts = new List<AngleAtPoint>();
+        foreach (var o in index.ObservationsOf(id))
+        {
+            switch (o)
+            {
+                case DistanceObservation d when d.From == id && known.TryGetValue(d.To, out var q):
+                    circles.Add(new Circle(d.To, q, d.Value, d.StandardDeviation)); break;
+                case DistanceObservation d when d.To == id && known.TryGetValue(d.From, out var q):
+                    circles.Add(new Circle(d.From, q, d.Value, d.StandardDeviation)); break;
+                case AzimuthObservation a when a.To == id && known.TryGetValue(a.From, out var q):
+                    rays.Add(new Ray(a.From, q, a.Value, a.StandardDeviation)); break;
+                case AzimuthObservation a when a.From == id && known.TryGetValue(a.To, out var q):
+                    rays.Add(new Ray(a.To, q, Angle.Reduce0To2Pi(a.Value + Math.PI), a.StandardDeviation)); break;
+                case DirectionObservation d when d.Target == id && orientation.TryGetValue(d.SetId, out double w)
+                                                 && known.TryGetValue(d.Station, out var q):
+                    rays.Add(new Ray(d.Station, q, Angle.Reduce0To2Pi(d.Reading.Radians + w), d.StandardDeviation));
+                    break;
+                case AngleObservation g when g.Station != id && known.TryGetValue(g.Station, out var s):
+                    if (g.Foresight == id && known.TryGetValue(g.Backsight, out var b))
+                        rays.Add(new Ray(g.Station, s, Angle.Reduce0To2Pi(Constructions.Azimuth(s, b) + g.Value),
+                            g.StandardDeviation));
+                    else if (g.Backsight == id && known.TryGetValue(g.Foresight, out var f))
+                        rays.Add(new Ray(g.Station, s, Angle.Reduce0To2Pi(Constructions.Azimuth(s, f) - g.Value),
+                            g.StandardDeviation));
+                    break;
+                case AngleObservation g when g.Station == id && known.TryGetValue(g.Backsight, out var bb)
+                                             && known.TryGetValue(g.Foresight, out var ff):
+                    cuts.Add(new AngleAtPoint(g.Backsight, bb, g.Foresight, ff, g.Value, g.StandardDeviation)); break;
+            }
+        }
+        // Direction sets at the point: every located target against the set's first located target (the
+        // difference of two readings, σ√2).
+        foreach (var dirs in index.SetsAt(id).Select(k => index.Sets[k]))
+        {
+            var located = dirs.Where(d => known.ContainsKey(d.Target)).ToList();
+            for (int k = 1; k < located.Count; k++)
+            {
+                double angle = Angle.Reduce0To2Pi(located[k].Reading.Radians - located[0].Reading.Radians);
+                cuts.Add(new AngleAtPoint(located[0].Target, known[located[0].Target], located[k].Target,
+                    known[located[k].Target], angle, Math.Sqrt(2) * located[k].StandardDeviation));
+            }
+        }
+        return (rays, circles, cuts);
+    }
+
+    /// <summary>
+    /// A second point for a local frame started at <paramref name="first"/>: the far end of its first distance at
+    /// the observed length (else the first other point of a plane observation at 100 m), on an observed azimuth
+    /// between the two (else north). Null when no plane observation leaves the point.
+    /// </summary>
+    public static (string Id, PlanePoint At)? SeedNeighbour(ObservationIndex index, string first)
+    {
+        var mine = index.ObservationsOf(first);
+        var dist = mine.OfType<DistanceObservation>().FirstOrDefault();
+        string? other = dist is null ? null : dist.From == first ? dist.To : dist.From;
+        other ??= mine.Where(IsPlane).SelectMany(o => o.Points).FirstOrDefault(p => p != first);
+        if (other is null) return null;
+        double d = dist?.Value ?? 100.0;
+        var az = mine.OfType<AzimuthObservation>()
+            .FirstOrDefault(a => (a.From == first && a.To == other) || (a.To == first && a.From == other));
+        double t = az is null ? 0 : az.From == first ? az.Value : az.Value + Math.PI;
+        return (other, new PlanePoint(d * Math.Sin(t), d * Math.Cos(t)));
+    }
+}
