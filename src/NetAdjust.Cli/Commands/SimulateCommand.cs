@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using NetAdjust.Design;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Text;
 
 namespace NetAdjust.Cli.Commands;
 
@@ -23,12 +24,7 @@ internal static class SimulateCommand
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string k = parse.GetValue(kind)!;
-            var networkKind = k switch
-            {
-                "plane" => SyntheticNetworkKind.Plane,
-                "levels" => SyntheticNetworkKind.Levels,
-                _ => throw new InvalidInputException($"--kind must be 'plane' or 'levels', not '{k}'"),
-            };
+            var networkKind = CliChoice.Parse(k, "--kind", OptionGrammars.SyntheticKinds);
             int n = parse.GetValue(points);
             int nb = parse.GetValue(neighbours);
             if (n < 3) throw new InvalidInputException($"--points must be at least 3, not {n}");
