@@ -1,6 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
-using NetAdjust.Design;
+using NetAdjust.Simulation;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Text;
 

@@ -1,5 +1,5 @@
 using NetAdjust.Adjustment;
-using NetAdjust.Design;
+using NetAdjust.Simulation;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Text;
 using NetAdjust.Network;

@@ -2,13 +2,13 @@ using MathNet.Numerics.Distributions;
 using NetAdjust.Network;
 using NetAdjust.Units;
 
-namespace NetAdjust.Tests.Statistics;
+namespace NetAdjust.Simulation;
 
 /// <summary>
 /// Invented test networks simulated from a chosen truth (test data only): two held control points, free points,
 /// direction sets and distances, and optionally a level network. Noise is N(0, σ²) per observation from a seeded generator.
 /// </summary>
-internal static class SimulatedNetworks
+internal static class BracedNetworks
 {
     public const double DirectionSd = 3.0 / 206264.80624709636; // 3″
     public const double DistanceSd = 0.003;                     // 3 mm
