@@ -29,7 +29,8 @@ public class OptionGrammarCliTests
     [Fact]
     public void Rounding_and_simulate_kind_give_the_grammar_message()
     {
-        var (code, _, stderr) = CliTests.Run("budget", "level", "--reading-sd", "0.3 mm", "--setups", "4", "--rounding", "gauss");
+        var (code, _, stderr) = CliTests.Run(
+            "budget", "level", "--reading-sd", "0.3 mm", "--setups", "4", "--rounding", "gauss");
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("--rounding: " + OptionGrammars.Rounding.Parse("gauss").Error, stderr);
         (code, _, stderr) = CliTests.Run("simulate", "--points", "10", "--kind", "cube", "--out", "unused.yaml");

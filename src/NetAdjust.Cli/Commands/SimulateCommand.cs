@@ -16,10 +16,14 @@ internal static class SimulateCommand
 {
     public static Command Create(CliConsole console)
     {
-        var points = new Option<int?>("--points") { Description = "Number of points (at least 3); not with --scenario." };
+        var points = new Option<int?>("--points")
+        {
+            Description = "Number of points (at least 3); not with --scenario.",
+        };
         var kind = new Option<string>("--kind")
         {
-            Description = "plane (directions and distances) or levels (height differences).", DefaultValueFactory = _ => "plane",
+            Description = "plane (directions and distances) or levels (height differences).",
+            DefaultValueFactory = _ => "plane",
         };
         var scenario = new Option<string?>("--scenario")
         {
@@ -40,11 +44,13 @@ internal static class SimulateCommand
             string path = parse.GetValue(output)!;
             if (parse.GetValue(scenario) is string name)
             {
-                var clash = parse.Tokens.Select(t => t.Value).FirstOrDefault(t => t is "--points" or "--kind" or "--neighbours");
+                var clash = parse.Tokens.Select(t => t.Value)
+                    .FirstOrDefault(t => t is "--points" or "--kind" or "--neighbours");
                 if (clash is not null) throw new InvalidInputException($"--scenario cannot be combined with {clash}");
                 var which = CliChoice.Parse(name, "--scenario", DemoProjectWriter.Scenarios);
                 bool seedGiven = parse.GetResult(seed) is { Implicit: false };
-                var survey = DemoScenarios.Draw(which, seedGiven ? parse.GetValue(seed) : DemoScenarios.DefaultSeed(which));
+                int s = seedGiven ? parse.GetValue(seed) : DemoScenarios.DefaultSeed(which);
+                var survey = DemoScenarios.Draw(which, s);
                 string dir = Path.GetDirectoryName(Path.GetFullPath(path))!;
                 var files = DemoProjectWriter.Format(survey, Path.GetFileNameWithoutExtension(path))
                     .Select(f => (Path.Combine(dir, f.Name), f.Text)).ToList();
@@ -53,7 +59,8 @@ internal static class SimulateCommand
                     $"{path}: demo scenario {name} drawn with seed {survey.Seed} ({files.Count} file(s))."));
                 return ExitCodes.Success;
             }
-            if (parse.GetValue(points) is not int n) throw new InvalidInputException("--points is required (or give --scenario)");
+            if (parse.GetValue(points) is not int n)
+                throw new InvalidInputException("--points is required (or give --scenario)");
             string k = parse.GetValue(kind)!;
             var networkKind = CliChoice.Parse(k, "--kind", OptionGrammars.SyntheticKinds);
             int nb = parse.GetValue(neighbours);

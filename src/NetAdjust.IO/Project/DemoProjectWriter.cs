@@ -27,7 +27,8 @@ public static class DemoProjectWriter
     /// <param name="baseName">The project file's name without extension; other files are named after it.</param>
     public static IReadOnlyList<(string Name, string Text)> Format(DemoSurvey survey, string baseName)
     {
-        string how = string.Create(Inv, $"netadjust simulate --scenario {Scenarios.Format(survey.Scenario)} --seed {survey.Seed}");
+        string how = string.Create(Inv,
+            $"netadjust simulate --scenario {Scenarios.Format(survey.Scenario)} --seed {survey.Seed}");
         return survey.Scenario switch
         {
             DemoScenario.Brackenmoor => Brackenmoor(survey, baseName, how),
@@ -54,7 +55,8 @@ public static class DemoProjectWriter
                 "  alpha: 0.05\n" +
                 "  max_iterations: 20\n" +
                 "  centering: independent   # independent | correlated (one covariance block per setup)\n" +
-                "# Instrument and target specifications: every direction, angle and distance of a setup that names an\n" +
+                "# Instrument and target specifications: every direction, angle and distance of a setup that " +
+                "names an\n" +
                 "# instrument is weighted from them (docs/input-format.md, 'Instruments, targets and procedures').\n" +
                 "instruments:\n" +
                 "  - {id: TS3, direction_sd: 3, zenith_sd: 3, edm: 2 mm + 2 ppm, centering: 1.0 mm, height: 1.5 mm}" +
@@ -93,7 +95,8 @@ public static class DemoProjectWriter
         c.Append("# Level loop at Brackenmoor (invented), double-run levelling with level DL10: ")
             .Append("sd = 1.0 mm/sqrt(km) x sqrt(length)\nkind,from,to,value,length,level\n");
         foreach (var h in s.Levelling)
-            c.Append(Inv, $"height_difference,{h.From},{h.To},{h.Difference.Metres:F5},{h.LineLength!.Value.Metres:F0},DL10\n");
+            c.Append(Inv, $"height_difference,{h.From},{h.To},{h.Difference.Metres:F5},")
+                .Append(Inv, $"{h.LineLength!.Value.Metres:F0},DL10\n");
         return
         [
             (baseName + ".yaml", Project(true,
@@ -169,10 +172,11 @@ public static class DemoProjectWriter
         var dms = AnglePattern.Dms;
         if (obs.OfType<DirectionObservation>().Any()) y.Append("    directions:\n");
         foreach (var d in obs.OfType<DirectionObservation>())
-            y.Append("      - {to: ").Append(d.Target).Append(", value: ").Append(dms.FormatDirection(d.Reading)).Append("}\n");
+            y.Append(Inv, $"      - {{to: {d.Target}, value: {dms.FormatDirection(d.Reading)}}}\n");
         if (obs.OfType<AngleObservation>().Any()) y.Append("    angles:\n");
         foreach (var a in obs.OfType<AngleObservation>())
-            y.Append(Inv, $"      - {{from: {a.Backsight}, to: {a.Foresight}, value: {dms.FormatDirection(a.Measured)}}}\n");
+            y.Append(Inv, $"      - {{from: {a.Backsight}, to: {a.Foresight}, ")
+                .Append(Inv, $"value: {dms.FormatDirection(a.Measured)}}}\n");
         if (obs.OfType<DistanceObservation>().Any()) y.Append("    distances:\n");
         foreach (var d in obs.OfType<DistanceObservation>())
         {

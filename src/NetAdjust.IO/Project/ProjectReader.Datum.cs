@@ -24,7 +24,8 @@ public static partial class ProjectReader
         void Only(string key, string allowedMode)
         {
             if (ctx.Child(m, key) is YamlNode k)
-                throw ctx.Error(k, "datum." + key, $"'{key}' belongs to mode {allowedMode}, not to mode {OptionGrammars.DatumModes.Format(mode)}");
+                throw ctx.Error(k, "datum." + key,
+                    $"'{key}' belongs to mode {allowedMode}, not to mode {OptionGrammars.DatumModes.Format(mode)}");
         }
         switch (mode)
         {

@@ -61,7 +61,8 @@ internal static class StatisticsSection
         {
             TauAdjustment = Choice("tau_adjustment", o.TauAdjustment, OptionGrammars.TauAdjustment),
             VarianceFactor = Choice("variance_factor_basis", o.VarianceFactor, OptionGrammars.VarianceFactorBasis),
-            ExternalReliability = Choice("external_reliability", o.ExternalReliability, OptionGrammars.ExternalReliability),
+            ExternalReliability = Choice("external_reliability", o.ExternalReliability,
+                OptionGrammars.ExternalReliability),
         };
         if (m.Children.TryGetValue(new YamlScalarNode("relative_pairs"), out var pairsNode))
         {

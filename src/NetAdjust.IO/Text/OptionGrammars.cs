@@ -16,7 +16,9 @@ namespace NetAdjust.IO.Text;
 /// </summary>
 public static class OptionGrammars
 {
-    /// <summary>The unit of bare lengths of a project (<c>units.length</c>) or of the command line (<c>--units</c>).</summary>
+    /// <summary>
+    /// The unit of bare lengths of a project (<c>units.length</c>) or of the command line (<c>--units</c>).
+    /// </summary>
     public static TextChoice<LengthUnit> LengthUnits { get; } = new("a length unit here",
         "m, ft (international foot) or usft (US survey foot)", false,
         ("m", LengthUnit.Metre), ("ft", LengthUnit.InternationalFoot), ("usft", LengthUnit.UsSurveyFoot));
@@ -49,9 +51,13 @@ public static class OptionGrammars
 
     /// <summary>The kind of datum (<c>datum.mode</c>).</summary>
     public static TextChoice<DatumMode> DatumModes { get; } = new("a datum mode", "control, minimal or free", false,
-        ("control", DatumMode.Control), ("minimal", DatumMode.MinimalConstraints), ("free", DatumMode.InnerConstraints));
+        ("control", DatumMode.Control), ("minimal", DatumMode.MinimalConstraints),
+        ("free", DatumMode.InnerConstraints));
 
-    /// <summary>Whether the variance factor is taken as known or estimated (<c>statistics.variance_factor_basis</c>, <c>--variance-factor</c>).</summary>
+    /// <summary>
+    /// Whether the variance factor is taken as known or estimated (<c>statistics.variance_factor_basis</c>,
+    /// <c>--variance-factor</c>).
+    /// </summary>
     public static TextChoice<VarianceFactorBasis> VarianceFactorBasis { get; } = new("a variance-factor basis",
         "known (w-test, chi-square scale) or estimated (tau test, F scale)", false,
         ("known", Statistics.VarianceFactorBasis.Known), ("estimated", Statistics.VarianceFactorBasis.Estimated));
@@ -62,8 +68,8 @@ public static class OptionGrammars
         ("sidak", MultipleTestAdjustment.Sidak), ("bonferroni", MultipleTestAdjustment.Bonferroni));
 
     /// <summary>When external reliability is computed (<c>statistics.external_reliability</c>).</summary>
-    public static TextChoice<ExternalReliabilityMode> ExternalReliability { get; } = new("an external-reliability setting",
-        "auto, always or never", false,
+    public static TextChoice<ExternalReliabilityMode> ExternalReliability { get; } = new(
+        "an external-reliability setting", "auto, always or never", false,
         ("auto", ExternalReliabilityMode.Auto), ("always", ExternalReliabilityMode.Always),
         ("never", ExternalReliabilityMode.Never));
 
@@ -101,7 +107,7 @@ public static class OptionGrammars
         return ParseResult<Fixity>.Ok(fix);
     }
 
-    /// <summary>The letters of held components as <see cref="HeldComponents"/> reads them (empty when none is held).</summary>
+    /// <summary>The letters of held components as <see cref="HeldComponents"/> reads them (empty: none held).</summary>
     /// <param name="fix">The held components.</param>
     public static string FormatHeldComponents(Fixity fix) =>
         ((fix & Fixity.E) != 0 ? "e" : "") + ((fix & Fixity.N) != 0 ? "n" : "") + ((fix & Fixity.H) != 0 ? "h" : "");

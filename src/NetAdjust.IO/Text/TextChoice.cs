@@ -17,7 +17,7 @@ public sealed class TextChoice<T>
     /// <param name="what">What a legal word is, with its article, for messages (e.g. <c>a datum mode</c>).</param>
     /// <param name="legal">The legal words as the message lists them, with their meaning where it helps.</param>
     /// <param name="ignoreCase">Whether letter case is ignored.</param>
-    /// <param name="words">Each word and its value; the first word of a value is the one <see cref="Format"/> writes.</param>
+    /// <param name="words">Each word and its value; <see cref="Format"/> writes the first word of a value.</param>
     internal TextChoice(string what, string legal, bool ignoreCase, params (string Word, T Value)[] words)
     {
         What = what;

@@ -9,6 +9,6 @@ public enum DemoScenario
     /// <summary>Harrowfield quarry extension: a braced network of four new stations with one planted blunder.</summary>
     Harrowfield,
 
-    /// <summary>Harrowgate viaduct: six new stations tied to four control marks, one of them disturbed by 5 cm.</summary>
+    /// <summary>Harrowgate viaduct: six new stations tied to four control marks, one of them moved by 5 cm.</summary>
     Harrowgate,
 }

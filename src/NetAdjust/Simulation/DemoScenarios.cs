@@ -119,7 +119,8 @@ public static class DemoScenarios
         {
             double sd = 0.0010 * Math.Sqrt(length / 1000);
             var dh = Length.FromMetres(heights[b] - heights[a] + noise.Gauss(sd));
-            levelling.Add(new HeightDifferenceObservation(a, b, dh, Length.FromMetres(length)) { StandardDeviation = sd });
+            levelling.Add(new HeightDifferenceObservation(a, b, dh, Length.FromMetres(length))
+                { StandardDeviation = sd });
         }
         return new DemoSurvey(DemoScenario.Brackenmoor, seed, points, setups, levelling, truth, []);
     }
@@ -133,7 +134,8 @@ public static class DemoScenarios
         var noise = new Noise(seed);
         var truth = Plane([
             ("HQ1", 5120.000, 8040.000), ("HQ2", 5705.318, 8412.907),
-            ("H1", 5233.417, 8391.226), ("H2", 5488.903, 8127.551), ("H3", 5391.264, 8608.772), ("H4", 5802.640, 8690.115)]);
+            ("H1", 5233.417, 8391.226), ("H2", 5488.903, 8127.551), ("H3", 5391.264, 8608.772),
+            ("H4", 5802.640, 8690.115)]);
         (double E, double N) P(string id) => (truth[id].E, truth[id].N);
         var points = new List<Point>();
         foreach (var (id, t) in truth)

@@ -6,7 +6,8 @@ namespace NetAdjust.Simulation;
 /// <summary>A simulated network and the truth it was simulated from (E, N, H of every point, metres).</summary>
 /// <param name="Network">The network: observations drawn from the truth with Gaussian noise of their σ.</param>
 /// <param name="Truth">The true coordinates of every point, by id.</param>
-internal sealed record SimulatedNetwork(SurveyNetwork Network, IReadOnlyDictionary<string, (double E, double N, double H)> Truth);
+internal sealed record SimulatedNetwork(
+    SurveyNetwork Network, IReadOnlyDictionary<string, (double E, double N, double H)> Truth);
 
 /// <summary>
 /// Seeded small networks on a jittered grid, for tests of invariants and oracles (invented data): points 200 m apart,
@@ -21,21 +22,24 @@ internal static class GridNetworks
     /// <param name="OriginN">Northing of the first grid node, m.</param>
     /// <param name="IdPrefix">The letter before the grid indices of a point id.</param>
     /// <param name="Name">The network's name; null for one made from the seed.</param>
-    internal sealed record Layout(double OriginE = 3000, double OriginN = 7000, string IdPrefix = "Q", string? Name = null);
+    internal sealed record Layout(
+        double OriginE = 3000, double OriginN = 7000, string IdPrefix = "Q", string? Name = null);
 
     /// <param name="seed">Random seed.</param>
     /// <param name="side">Grid side (side² points).</param>
     /// <param name="control">Which point indices are control, with their fixity.</param>
-    /// <param name="approx">Approximate coordinates of the other points: null = none given; otherwise the truth offset by up to this (m).</param>
+    /// <param name="approx">
+    /// Approximate coordinates of the other points: null = none given; otherwise the truth offset by up to this (m).
+    /// </param>
     /// <param name="levelling">Add height differences.</param>
     /// <param name="azimuth">Add one observed azimuth (removes the rotation defect).</param>
     /// <param name="disturb">A control point whose given coordinates are moved (dE, dN) from the truth.</param>
     /// <param name="noise">Scale of the observation noise (0 for exact observations).</param>
-    /// <param name="distances">Include the distances (without them, and without an azimuth, scale is a defect too).</param>
+    /// <param name="distances">Include the distances (without them and an azimuth, scale is a defect too).</param>
     /// <param name="layout">Origin, point names and network name; null for the default layout.</param>
-    public static SimulatedNetwork Grid(int seed, int side, IReadOnlyDictionary<int, Fixity> control, double? approx = 0.05,
-        bool levelling = false, bool azimuth = false, (int Index, double DE, double DN)? disturb = null, double noise = 1.0,
-        bool distances = true, Layout? layout = null)
+    public static SimulatedNetwork Grid(int seed, int side, IReadOnlyDictionary<int, Fixity> control,
+        double? approx = 0.05, bool levelling = false, bool azimuth = false, (int Index, double DE, double DN)? disturb = null,
+        double noise = 1.0, bool distances = true, Layout? layout = null)
     {
         layout ??= new Layout();
         var rng = new Random(seed);
@@ -44,7 +48,8 @@ internal static class GridNetworks
         for (int i = 0; i < side; i++)
             for (int j = 0; j < side; j++)
                 truth.Add((side <= 10 ? $"{layout.IdPrefix}{i}{j}" : $"{layout.IdPrefix}{i}_{j}",
-                    layout.OriginE + (i * 200) + (rng.NextDouble() * 60), layout.OriginN + (j * 200) + (rng.NextDouble() * 60),
+                    layout.OriginE + (i * 200) + (rng.NextDouble() * 60),
+                    layout.OriginN + (j * 200) + (rng.NextDouble() * 60),
                     50 + (rng.NextDouble() * 20)));
         var points = new List<Point>();
         for (int k = 0; k < truth.Count; k++)
@@ -52,14 +57,17 @@ internal static class GridNetworks
             var t = truth[k];
             if (control.TryGetValue(k, out var fix))
             {
-                double de = disturb is { } d && d.Index == k ? d.DE : 0, dn = disturb is { } d2 && d2.Index == k ? d2.DN : 0;
-                points.Add(new Point(t.Id) { E = t.E + de, N = t.N + dn, H = (fix & Fixity.H) != 0 ? t.H : null, Fixed = fix });
+                double de = disturb is { } d && d.Index == k ? d.DE : 0;
+                double dn = disturb is { } d2 && d2.Index == k ? d2.DN : 0;
+                double? h = (fix & Fixity.H) != 0 ? t.H : null;
+                points.Add(new Point(t.Id) { E = t.E + de, N = t.N + dn, H = h, Fixed = fix });
             }
             else
             {
                 // Draw the offsets in every case, so that the observations do not depend on the approximations chosen.
                 double ue = (rng.NextDouble() - 0.5) * 2, un = (rng.NextDouble() - 0.5) * 2;
-                points.Add(approx is double off ? new Point(t.Id) { E = t.E + (ue * off), N = t.N + (un * off) } : new Point(t.Id));
+                points.Add(approx is double off
+                    ? new Point(t.Id) { E = t.E + (ue * off), N = t.N + (un * off) } : new Point(t.Id));
             }
         }
         var obs = new List<Observation>();
@@ -79,7 +87,8 @@ internal static class GridNetworks
                     double dist = Math.Sqrt(Math.Pow(t.E - st.E, 2) + Math.Pow(t.N - st.N, 2));
                     double sd = 0.002 + (2e-6 * dist);
                     double dd = dist + (noise * Gauss() * sd);
-                    if (distances) obs.Add(new DistanceObservation(st.Id, t.Id, Length.FromMetres(dd)) { StandardDeviation = sd });
+                    if (distances)
+                        obs.Add(new DistanceObservation(st.Id, t.Id, Length.FromMetres(dd)) { StandardDeviation = sd });
                     if (levelling)
                     {
                         var dh = Length.FromMetres(t.H - st.H + (noise * Gauss() * 0.001));
@@ -100,7 +109,7 @@ internal static class GridNetworks
             truth.ToDictionary(t => t.Id, t => (t.E, t.N, t.H)));
     }
 
-    /// <summary>Control: point 0 held in E, N (and H when levelling), point <paramref name="last"/> in E and N.</summary>
+    /// <summary>Control: point 0 held in E, N (and H when levelling), point <paramref name="last"/> in E, N.</summary>
     public static Dictionary<int, Fixity> TwoHeld(int last, bool levelling) =>
         new() { [0] = levelling ? Fixity.ENH : Fixity.EN, [last] = Fixity.EN };
 
@@ -108,7 +117,8 @@ internal static class GridNetworks
     /// A grid of side² points named P00, P01, ... from (1000, 5000): P00 held in E, N and H, P01 in E and N, the
     /// others given approximate coordinates within <paramref name="approxOffset"/> of the truth.
     /// </summary>
-    public static SurveyNetwork Horizontal(int seed, int side = 3, double approxOffset = 0.05, bool levelling = false) =>
+    public static SurveyNetwork Horizontal(int seed, int side = 3, double approxOffset = 0.05, bool levelling = false)
+        =>
         Grid(seed, side, new Dictionary<int, Fixity> { [0] = Fixity.ENH, [1] = Fixity.EN }, approxOffset, levelling,
             layout: new Layout(1000, 5000, "P", $"random {seed}")).Network;
 }

@@ -26,19 +26,21 @@ public class DemoScenarioTests
 
     [Theory]
     [MemberData(nameof(Committed))]
-    public void The_scenario_has_the_committed_points_and_sightings(DemoScenario scenario, string committed, string drawnName)
+    public void The_scenario_has_the_committed_points_and_sightings(
+        DemoScenario scenario, string committed, string drawnName)
     {
         var survey = DemoScenarios.Draw(scenario, DemoScenarios.DefaultSeed(scenario));
         var old = ProjectReader.Read(Path.Combine(TestProjects.RepoRoot, "data", committed)).Network;
         var drawn = Drawn(survey, committed)[drawnName];
-        var fresh = ProjectReader.Parse(drawn, drawnName, "/demo", p => Drawn(survey, committed)[Path.GetFileName(p)]).Network;
+        var files = Drawn(survey, committed);
+        var fresh = ProjectReader.Parse(drawn, drawnName, "/demo", p => files[Path.GetFileName(p)]).Network;
 
         Assert.Equal(old.Points.Select(p => (p.Id, p.Fixed)), fresh.Points.Select(p => (p.Id, p.Fixed)));
         foreach (var (a, b) in old.Points.Zip(fresh.Points))
         {
-            if (a.Fixed != Fixity.None) Assert.Equal((a.E, a.N, a.H), (b.E, b.N, b.H)); // control values are the scenario's
+            if (a.Fixed != Fixity.None) Assert.Equal((a.E, a.N, a.H), (b.E, b.N, b.H)); // the scenario's control
             Assert.Equal(a.E is null, b.E is null);
-            if (a.E is double e && a.Fixed == Fixity.None) // approximations within the jitter of 0.4 m, rounded to 0.1 m
+            if (a.E is double e && a.Fixed == Fixity.None) // approximations: jitter up to 0.4 m, rounded to 0.1 m
             {
                 Assert.InRange(Math.Abs(e - survey.Truth[a.Id].E), 0, 0.45);
                 Assert.InRange(Math.Abs(a.N!.Value - survey.Truth[a.Id].N), 0, 0.45);
@@ -82,7 +84,8 @@ public class DemoScenarioTests
             switch (o)
             {
                 case AngleObservation a:
-                    Within(Wrap(a.Measured.Radians - (Az(a.Station, a.Foresight) - Az(a.Station, a.Backsight))), 0, sdOf[Key(a)]);
+                    double angle = Az(a.Station, a.Foresight) - Az(a.Station, a.Backsight);
+                    Within(Wrap(a.Measured.Radians - angle), 0, sdOf[Key(a)]);
                     break;
                 case DistanceObservation d:
                     double bias = survey.Blunders.Where(b => (b.At, b.To) == (d.From, d.To)).Sum(b => b.Size);
@@ -141,7 +144,7 @@ public class DemoScenarioTests
     };
 
     private static void Within(double misfit, double expected, double sd) =>
-        Assert.True(Math.Abs(misfit - expected) <= 4.5 * sd, $"misfit {misfit} is not within 4.5 sigma ({sd}) of {expected}");
+        Assert.True(Math.Abs(misfit - expected) <= 4.5 * sd, $"misfit {misfit} not within 4.5 sigma ({sd}) of {expected}");
 
     /// <summary>Masks numbers and the generator's name, which differ between draws and generators.</summary>
     private static string Mask(string text) => Regex.Replace(

@@ -65,7 +65,8 @@ public class OptionGrammarsTests
     [Theory]
     [InlineData("both", Faces.Both)]
     [InlineData("one", Faces.One)]
-    public void Faces_legal(string text, Faces expected) => Assert.Equal(expected, OptionGrammars.Faces.Parse(text).Value);
+    public void Faces_legal(string text, Faces expected) =>
+        Assert.Equal(expected, OptionGrammars.Faces.Parse(text).Value);
 
     [Theory]
     [InlineData("two")]
@@ -84,7 +85,8 @@ public class OptionGrammarsTests
     [InlineData("gauss")]
     [InlineData("halfresolution")]
     public void Rounding_illegal(string text) =>
-        Illegal(OptionGrammars.Rounding, text, "is not a rounding treatment: use uniform (resolution/sqrt(12)) or half");
+        Illegal(OptionGrammars.Rounding, text,
+            "is not a rounding treatment: use uniform (resolution/sqrt(12)) or half");
 
     [Fact]
     public void Centering_legal()
@@ -97,7 +99,8 @@ public class OptionGrammarsTests
     [InlineData("maybe")]
     [InlineData("diagonal")]
     public void Centering_illegal(string text) =>
-        Illegal(OptionGrammars.Centering, text, "is not a centering model: use independent (diagonal weights) or correlated");
+        Illegal(OptionGrammars.Centering, text,
+            "is not a centering model: use independent (diagonal weights) or correlated");
 
     [Theory]
     [InlineData("control", DatumMode.Control)]
@@ -146,7 +149,8 @@ public class OptionGrammarsTests
     [Theory]
     [InlineData("sometimes")]
     public void External_reliability_illegal(string text) =>
-        Illegal(OptionGrammars.ExternalReliability, text, "is not an external-reliability setting: use auto, always or never");
+        Illegal(OptionGrammars.ExternalReliability, text,
+            "is not an external-reliability setting: use auto, always or never");
 
     [Theory]
     [InlineData("huber", RobustMethod.Huber)]
@@ -167,7 +171,8 @@ public class OptionGrammarsTests
     [InlineData("false", false)]
     [InlineData("No", false)]
     [InlineData("0", false)]
-    public void Yes_no_legal(string text, bool expected) => Assert.Equal(expected, OptionGrammars.YesNo.Parse(text).Value);
+    public void Yes_no_legal(string text, bool expected) =>
+        Assert.Equal(expected, OptionGrammars.YesNo.Parse(text).Value);
 
     [Theory]
     [InlineData("maybe")]
