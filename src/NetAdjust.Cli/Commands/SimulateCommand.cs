@@ -27,7 +27,7 @@ internal static class SimulateCommand
         };
         var scenario = new Option<string?>("--scenario")
         {
-            Description = "Draw a demo project of data/ instead: " + DemoProjectWriter.Scenarios.Legal + ".",
+            Description = "Draw a demo project of data/ instead: " + OptionGrammars.DemoScenarios.Legal + ".",
             HelpName = "NAME",
         };
         var seed = new Option<int>("--seed")
@@ -47,7 +47,7 @@ internal static class SimulateCommand
                 var clash = parse.Tokens.Select(t => t.Value)
                     .FirstOrDefault(t => t is "--points" or "--kind" or "--neighbours");
                 if (clash is not null) throw new InvalidInputException($"--scenario cannot be combined with {clash}");
-                var which = CliChoice.Parse(name, "--scenario", DemoProjectWriter.Scenarios);
+                var which = CliChoice.Parse(name, "--scenario", OptionGrammars.DemoScenarios);
                 bool seedGiven = parse.GetResult(seed) is { Implicit: false };
                 int s = seedGiven ? parse.GetValue(seed) : DemoScenarios.DefaultSeed(which);
                 var survey = DemoScenarios.Draw(which, s);

@@ -15,20 +15,13 @@ public static class DemoProjectWriter
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    /// <summary>The scenario names accepted by <c>simulate --scenario</c>.</summary>
-    public static TextChoice<DemoScenario> Scenarios { get; } = new("a demo scenario",
-        "brackenmoor (traverse and level loop), harrowfield (braced network with a blunder) or harrowgate "
-        + "(control check with a disturbed mark)", false,
-        ("brackenmoor", DemoScenario.Brackenmoor), ("harrowfield", DemoScenario.Harrowfield),
-        ("harrowgate", DemoScenario.Harrowgate));
-
     /// <summary>The files of a survey: (file name, text), the project file first.</summary>
     /// <param name="survey">The drawn survey.</param>
     /// <param name="baseName">The project file's name without extension; other files are named after it.</param>
     public static IReadOnlyList<(string Name, string Text)> Format(DemoSurvey survey, string baseName)
     {
         string how = string.Create(Inv,
-            $"netadjust simulate --scenario {Scenarios.Format(survey.Scenario)} --seed {survey.Seed}");
+            $"netadjust simulate --scenario {OptionGrammars.DemoScenarios.Format(survey.Scenario)} --seed {survey.Seed}");
         return survey.Scenario switch
         {
             DemoScenario.Brackenmoor => Brackenmoor(survey, baseName, how),

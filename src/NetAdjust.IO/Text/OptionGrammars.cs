@@ -86,6 +86,13 @@ public static class OptionGrammars
         "plane (directions and distances) or levels (height differences)", false,
         ("plane", SyntheticNetworkKind.Plane), ("levels", SyntheticNetworkKind.Levels));
 
+    /// <summary>The demo scenarios of data/ (<c>simulate --scenario</c>).</summary>
+    public static TextChoice<DemoScenario> DemoScenarios { get; } = new("a demo scenario",
+        "brackenmoor (traverse and level loop), harrowfield (braced network with a blunder) or harrowgate "
+        + "(control check with a disturbed mark)", false,
+        ("brackenmoor", DemoScenario.Brackenmoor), ("harrowfield", DemoScenario.Harrowfield),
+        ("harrowgate", DemoScenario.Harrowgate));
+
     /// <summary>
     /// Reads the held components of a point (<c>fix</c>): the letters e, n and h in any order (e.g. <c>en</c>,
     /// <c>h</c>, <c>enh</c>); empty text holds nothing.

@@ -194,6 +194,19 @@ public class OptionGrammarsTests
         Illegal(OptionGrammars.SyntheticKinds, text, "is not a kind of synthetic network: use plane (");
 
     [Theory]
+    [InlineData("brackenmoor", DemoScenario.Brackenmoor)]
+    [InlineData("harrowfield", DemoScenario.Harrowfield)]
+    [InlineData("harrowgate", DemoScenario.Harrowgate)]
+    public void Demo_scenarios_legal(string text, DemoScenario expected) =>
+        Assert.Equal(expected, OptionGrammars.DemoScenarios.Parse(text).Value);
+
+    [Theory]
+    [InlineData("moorside")]
+    [InlineData("harrowfield-blunder")]
+    public void Demo_scenarios_illegal(string text) =>
+        Illegal(OptionGrammars.DemoScenarios, text, "is not a demo scenario: use brackenmoor (");
+
+    [Theory]
     [InlineData("e", Fixity.E)]
     [InlineData("en", Fixity.EN)]
     [InlineData("ne", Fixity.EN)]
@@ -242,6 +255,7 @@ public class OptionGrammarsTests
         RoundTrip(OptionGrammars.RobustMethods);
         RoundTrip(OptionGrammars.YesNo);
         RoundTrip(OptionGrammars.SyntheticKinds);
+        RoundTrip(OptionGrammars.DemoScenarios);
         Assert.Equal("yes", OptionGrammars.YesNo.Words[1]); // an alias reads, but the first word is written
         Assert.Equal("true", OptionGrammars.YesNo.Format(true));
     }
@@ -260,6 +274,7 @@ public class OptionGrammarsTests
         Covers(OptionGrammars.ExternalReliability);
         Covers(OptionGrammars.RobustMethods);
         Covers(OptionGrammars.SyntheticKinds);
+        Covers(OptionGrammars.DemoScenarios);
     }
 
     private static void Illegal<T>(TextChoice<T> grammar, string text, string message)
