@@ -1,6 +1,6 @@
 using System.Diagnostics;
 using NetAdjust.Adjustment;
-using NetAdjust.Design;
+using NetAdjust.Simulation;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.LinearAlgebra.Sparse;
 

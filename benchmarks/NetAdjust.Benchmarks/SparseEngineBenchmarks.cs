@@ -5,7 +5,7 @@ using BenchmarkDotNet.Engines;
 using BenchmarkDotNet.Jobs;
 using BenchmarkDotNet.Toolchains.InProcess.Emit;
 using NetAdjust.Adjustment;
-using NetAdjust.Design;
+using NetAdjust.Simulation;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.LinearAlgebra.Sparse;
 using NetAdjust.Network;
@@ -47,7 +47,7 @@ public class SparseEngineBenchmarks
 
     /// <summary>Sparse assembly: the graph of N, the assembly plan, and the values of N = AᵀPA.</summary>
     [Benchmark]
-    public (AdjacencyGraph, double[]) Assembly()
+    public object Assembly() // object: the engine's types are internal to the library
     {
         var g = AdjacencyGraph.FromNormalEquations(_problem.Unknowns, _problem.Rows, _problem.Weights);
         return (g, new NormalMatrixAssembly(_symbolic, _problem.Rows).Assemble(_problem.Rows, _problem.Weights));
@@ -55,12 +55,12 @@ public class SparseEngineBenchmarks
 
     /// <summary>Geometric nested dissection and the symbolic analysis (elimination tree, counts, supernodes, patterns).</summary>
     [Benchmark]
-    public SymbolicCholesky OrderingAndSymbolic() =>
+    public object OrderingAndSymbolic() =>
         SymbolicCholesky.Analyze(_graph, GeometricNestedDissection.Order(_graph, _problem.Geometry), "nested dissection");
 
     /// <summary>Numeric phase on the analysed pattern: values of N and the supernodal factorisation.</summary>
     [Benchmark]
-    public SparseCholeskyFactor NumericFactorisation() => SparseCholeskyFactor.Factorize(_symbolic, _assembly, _problem.Rows, _problem.Weights);
+    public object NumericFactorisation() => SparseCholeskyFactor.Factorize(_symbolic, _assembly, _problem.Rows, _problem.Weights);
 
     /// <summary>Forward and back substitution.</summary>
     [Benchmark]

@@ -42,4 +42,42 @@ public sealed class SimulateCommandTests : IDisposable
         Assert.Contains("--kind", stderr);
         Assert.False(File.Exists(Path.Combine(_tmp, "x.yaml")));
     }
+
+    [Theory]
+    [InlineData("brackenmoor", 3)]
+    [InlineData("harrowfield", 1)]
+    [InlineData("harrowgate", 1)]
+    public void DrawsADemoScenarioThatAdjustsAndRepeatsForTheSameSeed(string scenario, int files)
+    {
+        string yaml = Path.Combine(_tmp, scenario + ".yaml");
+        var (code, stdout, stderr) = CliTests.Run("simulate", "--scenario", scenario, "--out", yaml);
+        Assert.True(code == ExitCodes.Success, stderr);
+        Assert.Contains($"({files} file(s))", stdout);
+        Assert.Equal(files, Directory.GetFiles(_tmp).Length);
+        string first = File.ReadAllText(yaml);
+        Assert.Equal(ExitCodes.Success, CliTests.Run("adjust", yaml, "--quiet", "--date", "2026-12-01").Code);
+        string again = Path.Combine(_tmp, "again", scenario + ".yaml");
+        Directory.CreateDirectory(Path.GetDirectoryName(again)!);
+        Assert.Equal(ExitCodes.Success, CliTests.Run("simulate", "--scenario", scenario, "--out", again).Code);
+        Assert.Equal(first, File.ReadAllText(again));
+        var (other, _, _) = CliTests.Run("simulate", "--scenario", scenario, "--seed", "9", "--out", again);
+        Assert.Equal(ExitCodes.Success, other);
+        Assert.NotEqual(first, File.ReadAllText(again));
+    }
+
+    [Fact]
+    public void RejectsAnUnknownScenarioAndAScenarioWithPoints()
+    {
+        string x = Path.Combine(_tmp, "x.yaml");
+        var (code, _, stderr) = CliTests.Run("simulate", "--scenario", "moorside", "--out", x);
+        Assert.Equal(ExitCodes.InvalidInput, code);
+        Assert.Contains("--scenario: 'moorside' is not a demo scenario: use brackenmoor", stderr);
+        (code, _, stderr) = CliTests.Run("simulate", "--scenario", "harrowgate", "--points", "9", "--out", x);
+        Assert.Equal(ExitCodes.InvalidInput, code);
+        Assert.Contains("--scenario cannot be combined with --points", stderr);
+        (code, _, stderr) = CliTests.Run("simulate", "--out", x);
+        Assert.Equal(ExitCodes.InvalidInput, code);
+        Assert.Contains("--points is required (or give --scenario)", stderr);
+        Assert.Empty(Directory.GetFiles(_tmp));
+    }
 }

@@ -73,7 +73,7 @@ public class ProjectReaderTests
 
     [Theory]
     [InlineData("pionts: []", 1, "unknown key 'pionts'")]
-    [InlineData("points:\n  - {id: A, e: 1, n: 2, fix: xy}", 2, "point A: fix 'xy' must list")]
+    [InlineData("points:\n  - {id: A, e: 1, n: 2, fix: xy}", 2, "point A: fix: 'xy' is not a set of held components")]
     [InlineData("points:\n  - {id: A, east: 1}", 2, "point A: unknown key 'east'")]
     [InlineData("points:\n  - {e: 1}", 2, "'id' is missing")]
     [InlineData("units: {length: yd}", 1, "'yd' is not a length unit here")]

@@ -4,6 +4,7 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Text;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
@@ -163,12 +164,7 @@ internal static class BudgetCommand
             {
                 if (p.GetValue(length) is not null) throw new InvalidInputException("--length belongs to the per-km model (--per-km); give --setups with --reading-sd");
                 string? rt = p.GetValue(rounding);
-                var treatment = rt switch
-                {
-                    null or "uniform" => RoundingTreatment.Uniform,
-                    "half" => RoundingTreatment.HalfResolution,
-                    _ => throw new InvalidInputException($"--rounding '{rt}' must be 'uniform' or 'half'"),
-                };
+                var treatment = CliChoice.Parse(rt, "--rounding", OptionGrammars.Rounding, RoundingTreatment.Uniform);
                 var level = LevelSpecification.PerReading("(command line)", RequiredLength(rs, "--reading-sd", unit, positive: false),
                     OptionalLength(p.GetValue(resolution), "--resolution", unit), treatment);
                 if (p.GetValue(setups) is null) throw new InvalidInputException("--setups is required with --reading-sd");
@@ -211,27 +207,13 @@ internal static class BudgetCommand
 
     private static double MetresPerUnitExact(this LengthUnit u) => Length.From(1.0, u).Metres;
 
-    private static LengthUnit LengthUnitOf(string? s) => s switch
-    {
-        null or "m" => LengthUnit.Metre,
-        "ft" => LengthUnit.InternationalFoot,
-        "usft" => LengthUnit.UsSurveyFoot,
-        _ => throw new InvalidInputException($"--units '{s}' must be m, ft or usft"),
-    };
+    private static LengthUnit LengthUnitOf(string? s) =>
+        CliChoice.Parse(s, "--units", OptionGrammars.LengthUnits, LengthUnit.Metre);
 
-    private static AngleSdUnit AngleUnitOf(string? s) => s switch
-    {
-        null or "arcsec" => AngleSdUnit.Arcsecond,
-        "mgon" => AngleSdUnit.Milligon,
-        _ => throw new InvalidInputException($"--angle-units '{s}' must be arcsec or mgon"),
-    };
+    private static AngleSdUnit AngleUnitOf(string? s) =>
+        CliChoice.Parse(s, "--angle-units", OptionGrammars.AngleSdUnits, AngleSdUnit.Arcsecond);
 
-    private static Faces FacesOf(string? s) => s switch
-    {
-        null or "both" => Faces.Both,
-        "one" => Faces.One,
-        _ => throw new InvalidInputException($"--faces '{s}' must be both or one"),
-    };
+    private static Faces FacesOf(string? s) => CliChoice.Parse(s, "--faces", OptionGrammars.Faces, Faces.Both);
 
     private static double RequiredLength(string? text, string name, LengthUnit unit, bool positive)
     {

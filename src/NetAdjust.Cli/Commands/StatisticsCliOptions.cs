@@ -1,6 +1,7 @@
 using System.CommandLine;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Text;
 using NetAdjust.IO.Results;
 using NetAdjust.Statistics;
 
@@ -61,20 +62,13 @@ internal sealed class StatisticsCliOptions
     public (AdjustmentResult, ReportContext) Run(ParseResult parse, SurveyProject project, ReportContext context)
     {
         var options = project.Options;
-        switch (parse.GetValue(_basis))
+        if (parse.GetValue(_basis) is string basis)
         {
-            case null: break;
-            case "known": options = options with { Analysis = options.Analysis with { VarianceFactor = VarianceFactorBasis.Known } }; break;
-            case "estimated": options = options with { Analysis = options.Analysis with { VarianceFactor = VarianceFactorBasis.Estimated } }; break;
-            case var other: throw new InvalidInputException($"--variance-factor '{other}' must be 'known' or 'estimated'");
+            var b = CliChoice.Parse(basis, "--variance-factor", OptionGrammars.VarianceFactorBasis);
+            options = options with { Analysis = options.Analysis with { VarianceFactor = b } };
         }
-        RobustMethod? robust = parse.GetValue(_robust) switch
-        {
-            null => null,
-            "huber" => RobustMethod.Huber,
-            "danish" => RobustMethod.Danish,
-            var other => throw new InvalidInputException($"--robust '{other}' must be 'huber' or 'danish'"),
-        };
+        RobustMethod? robust = parse.GetValue(_robust) is string rm
+            ? CliChoice.Parse(rm, "--robust", OptionGrammars.RobustMethods) : null;
         int limit = parse.GetValue(_limit);
         if (limit < 1) throw new InvalidInputException($"--snoop-limit {limit} must be at least 1");
 

@@ -1,4 +1,5 @@
 using System.Globalization;
+using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using YamlDotNet.RepresentationModel;
 
@@ -32,12 +33,9 @@ internal static class ObservationMarks
     /// <summary>Applies marks given as text (empty text: no mark).</summary>
     public static Observation Apply(Observation o, string exclude, string sdFactor, string file, int line, string item)
     {
-        bool excluded = exclude.Trim().ToLowerInvariant() switch
-        {
-            "" or "false" or "no" or "0" => false,
-            "true" or "yes" or "1" => true,
-            _ => throw new ProjectFileException(file, line, item, $"exclude '{exclude}' must be true or false"),
-        };
+        var ex = OptionGrammars.YesNo.Parse(exclude);
+        bool excluded = exclude.Trim().Length > 0
+            && (ex.Success ? ex.Value : throw new ProjectFileException(file, line, item, "exclude: " + ex.Error));
         double factor = 1.0;
         if (sdFactor.Trim().Length > 0)
         {

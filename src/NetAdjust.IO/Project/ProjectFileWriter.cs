@@ -45,7 +45,7 @@ public static class ProjectFileWriter
             if (p.E is double e) y.Append(", e: ").Append(e.ToString("F4", Inv));
             if (p.N is double n) y.Append(", n: ").Append(n.ToString("F4", Inv));
             if (p.H is double h) y.Append(", h: ").Append(h.ToString("F4", Inv));
-            string fix = (p.IsFixed(Fixity.E) ? "e" : "") + (p.IsFixed(Fixity.N) ? "n" : "") + (p.IsFixed(Fixity.H) ? "h" : "");
+            string fix = Text.OptionGrammars.FormatHeldComponents(p.Fixed);
             if (fix.Length > 0) y.Append(", fix: ").Append(fix);
             if (p.SdE is double se) y.Append(", sd_e: ").Append(se.ToString("F5", Inv));
             if (p.SdN is double sn) y.Append(", sd_n: ").Append(sn.ToString("F5", Inv));

@@ -1,4 +1,5 @@
 using NetAdjust.Adjustment;
+using NetAdjust.IO.Text;
 using YamlDotNet.RepresentationModel;
 
 namespace NetAdjust.IO.Project;
@@ -11,7 +12,8 @@ public static partial class ProjectReader
         if (ctx.Child(root, "datum") is not YamlNode node) return DatumDefinition.ByControl;
         var m = ctx.Mapping(node, "datum");
         ctx.CheckKeys(m, ["mode", "hold", "azimuth_to", "hold_height", "points"], "datum");
-        string mode = ctx.OptionalString(m, "mode") ?? "control";
+        var mode = ctx.Child(m, "mode") is YamlNode mn
+            ? ctx.Choice(mn, "datum.mode", OptionGrammars.DatumModes) : DatumMode.Control;
         string? hold = ctx.OptionalString(m, "hold"), azimuthTo = ctx.OptionalString(m, "azimuth_to"), holdHeight = ctx.OptionalString(m, "hold_height");
         List<string>? points = null;
         if (ctx.Child(m, "points") is YamlNode pn)
@@ -22,21 +24,20 @@ public static partial class ProjectReader
         void Only(string key, string allowedMode)
         {
             if (ctx.Child(m, key) is YamlNode k)
-                throw ctx.Error(k, "datum." + key, $"'{key}' belongs to mode {allowedMode}, not to mode {mode}");
+                throw ctx.Error(k, "datum." + key,
+                    $"'{key}' belongs to mode {allowedMode}, not to mode {OptionGrammars.DatumModes.Format(mode)}");
         }
         switch (mode)
         {
-            case "control":
+            case DatumMode.Control:
                 Only("hold", "minimal"); Only("azimuth_to", "minimal"); Only("hold_height", "minimal"); Only("points", "free");
                 return DatumDefinition.ByControl;
-            case "minimal":
+            case DatumMode.MinimalConstraints:
                 Only("points", "free");
                 return DatumDefinition.Minimal(hold, azimuthTo, holdHeight);
-            case "free":
+            default:
                 Only("hold", "minimal"); Only("azimuth_to", "minimal"); Only("hold_height", "minimal");
                 return DatumDefinition.Free(points);
-            default:
-                throw ctx.Error(ctx.Child(m, "mode")!, "datum.mode", $"'{mode}' is not a datum mode: use control, minimal or free");
         }
     }
 }

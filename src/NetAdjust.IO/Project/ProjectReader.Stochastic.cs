@@ -1,4 +1,5 @@
 using System.Globalization;
+using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
@@ -98,13 +99,7 @@ public static partial class ProjectReader
                     var rounding = RoundingTreatment.Uniform;
                     if (ctx.Child(m, "rounding") is YamlNode rn)
                     {
-                        string t = ctx.Scalar(rn, item + " rounding");
-                        rounding = t switch
-                        {
-                            "uniform" => RoundingTreatment.Uniform,
-                            "half" => RoundingTreatment.HalfResolution,
-                            _ => throw ctx.Error(rn, item, $"rounding '{t}' must be 'uniform' (resolution/sqrt(12)) or 'half' (half the resolution)"),
-                        };
+                        rounding = ctx.Choice(rn, item, OptionGrammars.Rounding, "rounding");
                     }
                     spec = Wrap(ctx, m, item, () => LevelSpecification.PerReading(id, SpecLength(ctx, m, "reading_sd", item, units),
                         SpecLength(ctx, m, "resolution", item, units), rounding));
@@ -161,13 +156,7 @@ public static partial class ProjectReader
         var faces = Faces.Both;
         if (ctx.Child(m, "faces") is YamlNode fn)
         {
-            string t = ctx.Scalar(fn, item + " faces");
-            faces = t switch
-            {
-                "both" => Faces.Both,
-                "one" => Faces.One,
-                _ => throw ctx.Error(fn, item, $"faces '{t}' must be 'both' or 'one'"),
-            };
+            faces = ctx.Choice(fn, item, OptionGrammars.Faces, "faces");
         }
         if (instrument is null)
             foreach (var k in new[] { "target", "sets", "faces" })

@@ -1,5 +1,6 @@
 using System.Globalization;
 using NetAdjust.Adjustment;
+using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using NetAdjust.Units;
 using YamlDotNet.Core;
@@ -128,31 +129,17 @@ public static partial class ProjectReader
         var length = ProjectUnits.Default.Length;
         if (ctx.Child(m, "length") is YamlNode ln)
         {
-            string s = ctx.Scalar(ln, "units.length");
-            length = s is "m" or "ft" or "usft" ? LengthUnit.FromSymbol(s)! : throw ctx.Error(ln, "units.length", $"'{s}' is not a length unit here: use m, ft (international foot) or usft (US survey foot)");
+            length = ctx.Choice(ln, "units.length", OptionGrammars.LengthUnits);
         }
         var angle = ProjectUnits.Default.Angle;
         if (ctx.Child(m, "angle") is YamlNode an)
         {
-            string s = ctx.Scalar(an, "units.angle");
-            angle = s switch
-            {
-                "dms" => AngleFormat.Dms,
-                "deg" => AngleFormat.Degrees,
-                "gon" => AngleFormat.Gons,
-                _ => throw ctx.Error(an, "units.angle", $"'{s}' is not an angle format: use dms, deg or gon"),
-            };
+            angle = ctx.Choice(an, "units.angle", OptionGrammars.AngleFormats);
         }
         var sd = angle == AngleFormat.Gons ? AngleSdUnit.Milligon : AngleSdUnit.Arcsecond;
         if (ctx.Child(m, "angle_sd") is YamlNode sn)
         {
-            string s = ctx.Scalar(sn, "units.angle_sd");
-            sd = s switch
-            {
-                "arcsec" => AngleSdUnit.Arcsecond,
-                "mgon" => AngleSdUnit.Milligon,
-                _ => throw ctx.Error(sn, "units.angle_sd", $"'{s}' is not a unit for angular standard deviations: use arcsec or mgon"),
-            };
+            sd = ctx.Choice(sn, "units.angle_sd", OptionGrammars.AngleSdUnits);
         }
         return new ProjectUnits(length, angle, sd);
     }
@@ -165,13 +152,7 @@ public static partial class ProjectReader
         ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering"], "adjustment");
         if (ctx.Child(m, "centering") is YamlNode cn)
         {
-            string t = ctx.Scalar(cn, "adjustment.centering");
-            o = t switch
-            {
-                "independent" => o with { WeightModel = null },
-                "correlated" => o with { WeightModel = NetAdjust.Stochastic.SetupCenteringWeightModel.Instance },
-                _ => throw ctx.Error(cn, "adjustment.centering", $"'{t}' must be 'independent' (diagonal weights) or 'correlated' (one covariance block per setup)"),
-            };
+            o = o with { WeightModel = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
         }
         if (ctx.Child(m, "max_iterations") is YamlNode it)
         {
@@ -250,17 +231,8 @@ public static partial class ProjectReader
         var fix = Fixity.None;
         if (ctx.Child(m, "fix") is YamlNode f)
         {
-            string s = ctx.Scalar(f, item);
-            foreach (char c in s)
-            {
-                fix |= c switch
-                {
-                    'e' => Fixity.E,
-                    'n' => Fixity.N,
-                    'h' => Fixity.H,
-                    _ => throw ctx.Error(f, item, $"fix '{s}' must list the held components with the letters e, n, h (e.g. 'en' or 'h')"),
-                };
-            }
+            var r = OptionGrammars.HeldComponents(ctx.Scalar(f, item));
+            fix = r.Success ? r.Value : throw ctx.Error(f, item, "fix: " + r.Error);
         }
         var p = new Point(id)
         {
@@ -393,6 +365,13 @@ public static partial class ProjectReader
             string s = Scalar(node, item);
             return double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && double.IsFinite(v)
                 ? v : throw Error(node, item, $"'{s}' is not a number");
+        }
+
+        /// <summary>Reads an enumerated option through its grammar; the error names the item.</summary>
+        public T Choice<T>(YamlNode node, string item, TextChoice<T> grammar, string? key = null)
+        {
+            var r = grammar.Parse(Scalar(node, item));
+            return r.Success ? r.Value : throw Error(node, item, key is null ? r.Error! : $"{key}: {r.Error}");
         }
 
         public Angle ParseAngle(YamlNode node, AnglePattern p, string text, string item)

@@ -1,4 +1,5 @@
 using System.Globalization;
+using NetAdjust.IO.Text;
 using NetAdjust.Statistics;
 using YamlDotNet.RepresentationModel;
 
@@ -46,11 +47,11 @@ internal static class StatisticsSection
             return double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && v > 0 && v < 1
                 ? v : throw new ProjectFileException(file, Line(at!), "statistics." + key, $"'{t}' must be a probability between 0 and 1");
         }
-        T Choice<T>(string key, T current, params (string Name, T Value)[] choices)
+        T Choice<T>(string key, T current, TextChoice<T> grammar)
         {
             if (Text(key, out var at) is not string t) return current;
-            foreach (var (name, value) in choices) if (name == t) return value;
-            throw new ProjectFileException(file, Line(at!), "statistics." + key, $"'{t}' is not one of: {string.Join(", ", choices.Select(c => c.Name))}");
+            var r = grammar.Parse(t);
+            return r.Success ? r.Value : throw new ProjectFileException(file, Line(at!), "statistics." + key, r.Error!);
         }
         if (Probability("w_alpha") is double wa) o = o with { WTestAlpha = wa };
         if (Probability("type_ii_error") is double b) o = o with { TypeIIError = b };
@@ -58,10 +59,10 @@ internal static class StatisticsSection
         if (Probability("confidence") is double c) o = o with { ConfidenceLevel = c };
         o = o with
         {
-            TauAdjustment = Choice("tau_adjustment", o.TauAdjustment, ("sidak", MultipleTestAdjustment.Sidak), ("bonferroni", MultipleTestAdjustment.Bonferroni)),
-            VarianceFactor = Choice("variance_factor_basis", o.VarianceFactor, ("known", VarianceFactorBasis.Known), ("estimated", VarianceFactorBasis.Estimated)),
+            TauAdjustment = Choice("tau_adjustment", o.TauAdjustment, OptionGrammars.TauAdjustment),
+            VarianceFactor = Choice("variance_factor_basis", o.VarianceFactor, OptionGrammars.VarianceFactorBasis),
             ExternalReliability = Choice("external_reliability", o.ExternalReliability,
-                ("auto", ExternalReliabilityMode.Auto), ("always", ExternalReliabilityMode.Always), ("never", ExternalReliabilityMode.Never)),
+                OptionGrammars.ExternalReliability),
         };
         if (m.Children.TryGetValue(new YamlScalarNode("relative_pairs"), out var pairsNode))
         {

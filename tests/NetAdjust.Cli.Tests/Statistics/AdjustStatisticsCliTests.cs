@@ -67,8 +67,8 @@ public class AdjustStatisticsCliTests
     }
 
     [Theory]
-    [InlineData("--robust", "median", "--robust 'median' must be 'huber' or 'danish'")]
-    [InlineData("--variance-factor", "guessed", "--variance-factor 'guessed' must be 'known' or 'estimated'")]
+    [InlineData("--robust", "median", "--robust: 'median' is not a robust method: use huber or danish")]
+    [InlineData("--variance-factor", "guessed", "--variance-factor: 'guessed' is not a variance-factor basis: use known")]
     [InlineData("--snoop-limit", "0", "--snoop-limit 0 must be at least 1")]
     public void BadStatisticsOptionsAreInvalidInput(string option, string value, string message)
     {

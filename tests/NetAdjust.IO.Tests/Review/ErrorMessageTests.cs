@@ -34,7 +34,7 @@ public class ErrorMessageTests
 
     [Theory]
     [InlineData("sd_factor: 0", "sd_factor must be positive")]
-    [InlineData("exclude: maybe", "exclude 'maybe' must be true or false")]
+    [InlineData("exclude: maybe", "exclude: 'maybe' is not true or false: use true or false")]
     public void ABadBlunderHuntMarkNamesFileAndLineOnce(string mark, string problem)
     {
         // Regression: "p.yaml:9: distance A→B (p.yaml:9): sd_factor must be positive" named the place twice.

@@ -84,7 +84,7 @@ public class StatisticsInputTests
     }
 
     [Theory]
-    [InlineData("{to: B, value: 100.001, exclude: maybe}", 11, "exclude 'maybe' must be true or false")]
+    [InlineData("{to: B, value: 100.001, exclude: maybe}", 11, "exclude: 'maybe' is not true or false: use true or false")]
     [InlineData("{to: B, value: 100.001, sd_factor: -1}", 11, "sd_factor must be positive")]
     [InlineData("{to: B, value: 100.001, sd_factor: x}", 11, "sd_factor 'x' is not a number")]
     public void BadMarksNameFileLineAndItem(string item, int line, string message)
@@ -136,7 +136,7 @@ public class StatisticsInputTests
 
     [Theory]
     [InlineData("statistics:\n  w_alpha: 2\n", 9, "must be a probability")]
-    [InlineData("statistics:\n  tau_adjustment: holm\n", 9, "is not one of: sidak, bonferroni")]
+    [InlineData("statistics:\n  tau_adjustment: holm\n", 9, "'holm' is not a tau-test adjustment: use sidak or bonferroni")]
     [InlineData("statistics:\n  colour: red\n", 9, "unknown key 'colour'")]
     [InlineData("statistics:\n  relative_pairs:\n    - [A]\n", 10, "two point ids")]
     [InlineData("statistics:\n  relative_pairs:\n    - [A, Z9]\n", 10, "point Z9 is not defined")]

@@ -137,7 +137,7 @@ public class StochasticProjectTests
     [Theory]
     [InlineData("    instrument: NOPE\n", "instrument 'NOPE' is not defined")]
     [InlineData("    sets: 2\n", "name the setup's 'instrument'")]
-    [InlineData("    instrument: TS\n    faces: two\n", "faces 'two' must be 'both' or 'one'")]
+    [InlineData("    instrument: TS\n    faces: two\n", "faces: 'two' is not a choice of faces: use both (face left and face right) or one")]
     [InlineData("    instrument: TS\n    sets: 0\n", "sets must be a whole number")]
     public void Bad_setup_procedures_are_reported(string keys, string what)
     {
@@ -153,7 +153,7 @@ public class StochasticProjectTests
         var p = Parse(Head.Replace("default_sd:", "adjustment: {centering: correlated}\ndefault_sd:"));
         Assert.Same(SetupCenteringWeightModel.Instance, p.Options.WeightModel);
         var e = Assert.Throws<ProjectFileException>(() => Parse(Head.Replace("default_sd:", "adjustment: {centering: maybe}\ndefault_sd:")));
-        Assert.Contains("'maybe' must be 'independent'", e.Message);
+        Assert.Contains("'maybe' is not a centering model: use independent (diagonal weights) or correlated", e.Message);
     }
 
     [Fact]

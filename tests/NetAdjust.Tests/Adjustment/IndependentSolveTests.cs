@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.LinearAlgebra;
@@ -16,7 +17,7 @@ public class IndependentSolveTests
     [InlineData(3, true)]
     public void NormalEquationsAgreeWithQrOnTheSameLinearisedSystem(int seed, bool levelling)
     {
-        var result = Adjuster.Adjust(TestNetworks.Horizontal(seed, 3, levelling: levelling));
+        var result = Adjuster.Adjust(GridNetworks.Horizontal(seed, 3, levelling: levelling));
         int n = result.DesignRows.Count, u = result.Unknowns.Count;
         // √P A x ≈ √P l, with a random right-hand side l (diagonal P).
         var rng = new Random(seed);
@@ -57,7 +58,7 @@ public class IndependentSolveTests
     public void AdjustedResidualsAreOrthogonalToTheColumnsOfPA()
     {
         // At the least-squares solution Aᵀ P v = 0 (normal equations); checked with the result's own A, P, v.
-        var r = Adjuster.Adjust(TestNetworks.Horizontal(7, 3, levelling: true));
+        var r = Adjuster.Adjust(GridNetworks.Horizontal(7, 3, levelling: true));
         var v = r.Observations.Select(o => o.Residual).ToArray();
         var pv = r.Weights.Multiply(v);
         var atpv = new double[r.Unknowns.Count];
@@ -71,8 +72,8 @@ public class IndependentSolveTests
     [Fact]
     public void ResultDoesNotDependOnHowFarOffTheApproximateCoordinatesWere()
     {
-        var near = Adjuster.Adjust(TestNetworks.Horizontal(11, 3, approxOffset: 0.01));
-        var far = Adjuster.Adjust(TestNetworks.Horizontal(11, 3, approxOffset: 2.0));
+        var near = Adjuster.Adjust(GridNetworks.Horizontal(11, 3, approxOffset: 0.01));
+        var far = Adjuster.Adjust(GridNetworks.Horizontal(11, 3, approxOffset: 2.0));
         for (int i = 0; i < near.Points.Count; i++)
         {
             Assert.Equal(near.Points[i].E!.Value, far.Points[i].E!.Value, 7);

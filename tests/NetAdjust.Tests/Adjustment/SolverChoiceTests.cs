@@ -1,5 +1,5 @@
 using NetAdjust.Adjustment;
-using NetAdjust.Design;
+using NetAdjust.Simulation;
 using NetAdjust.LinearAlgebra.Sparse;
 
 namespace NetAdjust.Tests.Adjustment;
@@ -10,7 +10,7 @@ public class SolverChoiceTests
     [Fact]
     public void SmallNetworksRunDenseAndLargerOnesSparseAndTheResultSaysWhich()
     {
-        var small = Adjuster.Adjust(TestNetworks.Horizontal(1, 3));
+        var small = Adjuster.Adjust(GridNetworks.Horizontal(1, 3));
         Assert.True(small.Unknowns.Count <= SolverChoice.DenseUnknownLimit);
         Assert.StartsWith("dense", small.SolverName);
 
@@ -25,7 +25,7 @@ public class SolverChoiceTests
     public void ProgressReportsEachIterationAndTheFinalPhases()
     {
         var seen = new List<AdjustmentProgress>();
-        var result = Adjuster.Adjust(TestNetworks.Horizontal(3, 3), AdjustmentOptions.Default with { Progress = new Recorder(seen) });
+        var result = Adjuster.Adjust(GridNetworks.Horizontal(3, 3), AdjustmentOptions.Default with { Progress = new Recorder(seen) });
         var iterations = seen.Where(p => p.Phase.StartsWith("Gauss-Newton iteration", StringComparison.Ordinal)).ToList();
         Assert.Equal(result.Statistics.Iterations, iterations.Count);
         Assert.Contains(seen, p => p.Phase.StartsWith("final factorisation", StringComparison.Ordinal));

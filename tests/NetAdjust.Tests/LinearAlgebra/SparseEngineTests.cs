@@ -3,7 +3,7 @@ using FsCheck.Fluent;
 using FsCheck.Xunit;
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
-using NetAdjust.Design;
+using NetAdjust.Simulation;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.LinearAlgebra.Sparse;
 
@@ -199,7 +199,7 @@ public class SparseEngineTests
     public Property SparseAndDenseAdjustmentsAgree() =>
         Prop.ForAll(Seeds, Gen.Choose(3, 5).ToArbitrary(), Gen.Elements(true, false).ToArbitrary(), (seed, side, levels) =>
         {
-            var network = TestNetworks.Horizontal(seed, side, levelling: levels);
+            var network = GridNetworks.Horizontal(seed, side, levelling: levels);
             var dense = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
             var sparse = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new SparseNormalEquationsSolver() });
             AssertAgree(dense, sparse);

@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.LinearAlgebra;
@@ -14,7 +15,7 @@ public class BlockWeightTests
         // A linear least-squares step at the solution's linearisation point with that P gives v; the analysis must
         // then match the dense formulas rᵢ = (Qvv P)ᵢᵢ and wᵢ = (P v)ᵢ / √(P Qvv P)ᵢᵢ computed with MathNet
         // (Baarda 1968; Koch 1999 §3.2), and Σ rᵢ = r.
-        var (net, _) = SimulatedNetworks.Horizontal(61, 3);
+        var (net, _) = BracedNetworks.Horizontal(61, 3);
         var baseResult = Adjuster.Adjust(net);
         var rows = baseResult.DesignRows;
         int m = rows.Count, u = baseResult.Unknowns.Count;

@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
@@ -33,7 +34,7 @@ public class CovarianceAccessTests
     {
         // A sparse network (few free-point pairs observed), one set-aside observation and a listed pair that no
         // observation joins: the cases that would tempt an off-pattern request.
-        var (net0, _) = SimulatedNetworks.Horizontal(23, 5, allPairs: false, pairProbability: 0.0);
+        var (net0, _) = BracedNetworks.Horizontal(23, 5, allPairs: false, pairProbability: 0.0);
         // A set-aside distance between two free points that nothing else joins.
         var p1 = net0["P1"]; var p5 = net0["P5"];
         var extra = new DistanceObservation("P1", "P5", NetAdjust.Units.Length.FromMetres(Math.Sqrt(Math.Pow(p5.E!.Value - p1.E!.Value, 2) + Math.Pow(p5.N!.Value - p1.N!.Value, 2))))
@@ -77,7 +78,7 @@ public class RelativeHeightTests
     {
         // σ²(H_b − H_a) = C_aa + C_bb − 2 C_ab (propagation of variances; Mikhail & Ackermann 1976), against the full
         // Qxx from MathNet's dense inverse, for observed pairs and for a listed pair computed by solves.
-        var (net, _) = SimulatedNetworks.Levelling(5, 7, 2);
+        var (net, _) = BracedNetworks.Levelling(5, 7, 2);
         var options = AdjustmentOptions.Default with { Analysis = AnalysisOptions.Default with { RelativePairs = [("BM1", "BM6")] } };
         var res = Adjuster.Adjust(net, options);
         int m = res.DesignRows.Count, u = res.Unknowns.Count;

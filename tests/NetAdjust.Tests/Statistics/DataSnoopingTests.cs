@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
@@ -15,7 +16,7 @@ public class DataSnoopingTests
     public void ACleanNetworkIsLeftUntouched()
     {
         // Simulated with N(0, σ²) noise only: no observation should be set aside at α0 = 0.001 (Baarda 1968).
-        var (net, _) = SimulatedNetworks.Horizontal(41, 4);
+        var (net, _) = BracedNetworks.Horizontal(41, 4);
         var hunt = DataSnooping.Run(net, Quick);
         Assert.Empty(hunt.SetAside);
         Assert.Single(hunt.Rounds);
@@ -29,14 +30,14 @@ public class DataSnoopingTests
     {
         // Baarda (1968) data snooping: a single 20σ blunder in an observation with rᵢ > 0.3 has E|wᵢ| = 20√rᵢ > 11,
         // far above 3.29 and above every other w. Checked for every such observation of the network.
-        var (net, _) = SimulatedNetworks.Horizontal(41, 4);
+        var (net, _) = BracedNetworks.Horizontal(41, 4);
         var clean = Adjuster.Adjust(net, Quick);
         var candidates = clean.Analysis.Observations.Where(t => t.Redundancy > 0.3).Select(t => t.Index).ToList();
         Assert.True(candidates.Count > 10);
         foreach (int i in candidates)
         {
             double sd = net.Observations[i].StandardDeviation;
-            var hunt = DataSnooping.Run(SimulatedNetworks.WithBias(net, i, 20 * sd), Quick);
+            var hunt = DataSnooping.Run(BracedNetworks.WithBias(net, i, 20 * sd), Quick);
             Assert.Equal(i, hunt.Rounds[0].WorstIndex);
             Assert.True(hunt.Rounds[0].SetAside);
             Assert.Equal(new[] { i }, hunt.SetAside);
@@ -50,8 +51,8 @@ public class DataSnoopingTests
     [Fact]
     public void TheRoundLimitStopsTheHunt()
     {
-        var (net, _) = SimulatedNetworks.Horizontal(41, 4);
-        var biased = SimulatedNetworks.WithBias(SimulatedNetworks.WithBias(net, 5, 0.1), 20, 0.1);
+        var (net, _) = BracedNetworks.Horizontal(41, 4);
+        var biased = BracedNetworks.WithBias(BracedNetworks.WithBias(net, 5, 0.1), 20, 0.1);
         var hunt = DataSnooping.Run(biased, Quick, maxRounds: 1);
         Assert.Single(hunt.SetAside);
         Assert.Contains("round limit", hunt.StopReason);
@@ -65,11 +66,11 @@ public class DataSnoopingTests
     {
         // Huber (1964) / Danish method (Krarup & Kubik): two 25σ blunders in well-controlled observations of a
         // strong network end up as the two suspects, and the clean observations keep (nearly) full weight.
-        var (net, _) = SimulatedNetworks.Horizontal(41, 4);
+        var (net, _) = BracedNetworks.Horizontal(41, 4);
         var clean = Adjuster.Adjust(net, Quick);
         var strong = clean.Analysis.Observations.Where(t => t.Redundancy > 0.5).Select(t => t.Index).ToList();
         int i = strong[1], j = strong[^2];
-        var biased = SimulatedNetworks.WithBias(SimulatedNetworks.WithBias(net, i, 25 * net.Observations[i].StandardDeviation), j, -25 * net.Observations[j].StandardDeviation);
+        var biased = BracedNetworks.WithBias(BracedNetworks.WithBias(net, i, 25 * net.Observations[i].StandardDeviation), j, -25 * net.Observations[j].StandardDeviation);
         var rb = RobustEstimation.Run(biased, method, Quick);
         Assert.True(rb.Converged);
         Assert.Equal(new[] { i, j }.Order(), rb.Suspected.Take(2).Order());

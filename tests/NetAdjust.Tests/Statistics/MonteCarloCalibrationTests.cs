@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using MathNet.Numerics.Distributions;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
@@ -22,7 +23,7 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
         {
             Analysis = AnalysisOptions.Default with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false },
         };
-        var (exact, truth) = SimulatedNetworks.Horizontal(2026, 3, noise: 0.0);
+        var (exact, truth) = BracedNetworks.Horizontal(2026, 3, noise: 0.0);
         var reference = Adjuster.Adjust(exact, options);
         int r = reference.Statistics.DegreesOfFreedom;
         var free = reference.Points.Where(p => p.SdE > 0).Select(p => p.Id).ToArray();
@@ -46,7 +47,7 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
         }
         for (int k = 0; k < Realisations; k++)
         {
-            var (net, _) = SimulatedNetworks.Horizontal(2026, 3, noise: 1.0, noiseSeed: 10_000 + k);
+            var (net, _) = BracedNetworks.Horizontal(2026, 3, noise: 1.0, noiseSeed: 10_000 + k);
             var res = Adjuster.Adjust(net, options);
             sumVf += res.Statistics.VarianceFactor!.Value;
             if (res.Statistics.GlobalTest.Passed == false) rejected++;
@@ -127,7 +128,7 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
         int any = 0; const int runs = 600;
         for (int k = 0; k < runs; k++)
         {
-            var noisy = SimulatedNetworks.Levelling(77, 8, 10).Network; // geometry fixed by seed 77
+            var noisy = BracedNetworks.Levelling(77, 8, 10).Network; // geometry fixed by seed 77
             var res = Adjuster.Adjust(Resimulate(noisy, k), options);
             if (res.Analysis.Observations.Any(t => t.TauPassed == false)) any++;
         }

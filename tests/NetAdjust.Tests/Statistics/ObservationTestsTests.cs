@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using FsCheck;
 using FsCheck.Fluent;
 using MathNet.Numerics.LinearAlgebra;
@@ -26,8 +27,8 @@ public class ObservationTestsTests
                   select (seed, free, p / 100.0, lev);
         Prop.ForAll(Arb.From(gen), t =>
         {
-            var net = t.lev ? SimulatedNetworks.Levelling(t.seed, t.free + 2, t.free + 1).Network
-                            : SimulatedNetworks.Horizontal(t.seed, t.free, allPairs: false, pairProbability: t.Item3).Network;
+            var net = t.lev ? BracedNetworks.Levelling(t.seed, t.free + 2, t.free + 1).Network
+                            : BracedNetworks.Horizontal(t.seed, t.free, allPairs: false, pairProbability: t.Item3).Network;
             var res = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never));
             var a = res.Analysis;
             bool sum = Math.Abs(a.RedundancySum - res.Statistics.DegreesOfFreedom) < 1e-8;
@@ -41,7 +42,7 @@ public class ObservationTestsTests
     {
         // Independent route: dense A and P, Qxx by MathNet's inverse of AᵀPA, Qvv = P⁻¹ − A Qxx Aᵀ (Gauss-Markov model,
         // Koch 1999 §3.2), rᵢ = (Qvv P)ᵢᵢ, wᵢ = vᵢ / (σ0 √Qvv,ii) (Baarda 1968).
-        var (net, _) = SimulatedNetworks.Horizontal(17, 3);
+        var (net, _) = BracedNetworks.Horizontal(17, 3);
         var res = Adjuster.Adjust(net, Opt());
         int m = res.DesignRows.Count, u = res.Unknowns.Count;
         var A = Matrix<double>.Build.Dense(m, u);
@@ -67,12 +68,12 @@ public class ObservationTestsTests
     public void ExternalReliabilityEqualsTheShiftOfARepeatedAdjustment()
     {
         // ∇x = Qxx Aᵀ P eᵢ ∇ᵢ (Baarda 1968): compare with adjusting again after adding the MDB to the observation.
-        var (net, _) = SimulatedNetworks.Horizontal(5, 3);
+        var (net, _) = BracedNetworks.Horizontal(5, 3);
         var res = Adjuster.Adjust(net, Opt());
         foreach (int i in new[] { 0, 4, 9, res.Observations.Count - 1 })
         {
             var t = res.Analysis.Observations[i];
-            var biased = Adjuster.Adjust(SimulatedNetworks.WithBias(net, i, t.Mdb!.Value), Opt(ExternalReliabilityMode.Never));
+            var biased = Adjuster.Adjust(BracedNetworks.WithBias(net, i, t.Mdb!.Value), Opt(ExternalReliabilityMode.Never));
             double best = 0;
             for (int p = 0; p < res.Points.Count; p++)
             {
@@ -88,8 +89,8 @@ public class ObservationTestsTests
     {
         // For a diagonal weight, the standardised misclosure l / √(σ² + σ0² a Qxx aᵀ) of an observation left out
         // equals its w-test value in the adjustment that includes it (common practice; follows from the update formulas).
-        var (net, _) = SimulatedNetworks.Horizontal(11, 3, noise: 1.0);
-        var biasedNet = SimulatedNetworks.WithBias(net, 6, 0.03);
+        var (net, _) = BracedNetworks.Horizontal(11, 3, noise: 1.0);
+        var biasedNet = BracedNetworks.WithBias(net, 6, 0.03);
         var full = Adjuster.Adjust(biasedNet, Opt(ExternalReliabilityMode.Never));
         var obs = biasedNet.Observations.ToArray();
         obs[6] = obs[6] with { Excluded = true };
@@ -114,7 +115,7 @@ public class ObservationTestsTests
     {
         // Relative covariance D = Q_bb + Q_aa − Q_ab − Q_ba (Mikhail & Ackermann 1976); the full Qxx from MathNet's
         // dense inverse is the independent reference, for a pair read from the factor's pattern and one found by solves.
-        var (net, _) = SimulatedNetworks.Horizontal(23, 4, allPairs: false, pairProbability: 0.0);
+        var (net, _) = BracedNetworks.Horizontal(23, 4, allPairs: false, pairProbability: 0.0);
         var options = Opt() with { Analysis = AnalysisOptions.Default with { RelativePairs = [("P1", "P2"), ("P3", "P4")] } };
         var res = Adjuster.Adjust(net, options);
         int m = res.DesignRows.Count, u = res.Unknowns.Count;
@@ -143,7 +144,7 @@ public class ObservationTestsTests
     [Fact]
     public void PointEllipsesUseTheCoordinateCovariance()
     {
-        var (net, _) = SimulatedNetworks.Horizontal(3, 2);
+        var (net, _) = BracedNetworks.Horizontal(3, 2);
         var res = Adjuster.Adjust(net, Opt());
         foreach (var (p, pp) in res.Points.Zip(res.Analysis.Points))
         {
@@ -156,7 +157,7 @@ public class ObservationTestsTests
     [Fact]
     public void EstimatedBasisScalesByTheAPosterioriVarianceFactor()
     {
-        var (net, _) = SimulatedNetworks.Horizontal(8, 3, noise: 2.0);
+        var (net, _) = BracedNetworks.Horizontal(8, 3, noise: 2.0);
         var known = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never));
         var est = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never) with { Analysis = AnalysisOptions.Default with { VarianceFactor = VarianceFactorBasis.Estimated } });
         double s0 = known.Statistics.Sigma0!.Value;

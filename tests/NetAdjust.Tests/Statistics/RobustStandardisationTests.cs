@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
@@ -32,10 +33,10 @@ public class RobustStandardisationTests
         // others and i set aside (weight 0); its misclosure eᵢ there, standardised by √(σᵢ² + σ0² aᵢ Q′ aᵢᵀ)
         // (Baarda 1968: the predicted residual and its variance), must equal the reported |u|. The former
         // |v|/(σ √r) with r of the re-weighted adjustment tended to |eᵢ|/σᵢ instead: 1/√r₀ times too large.
-        var (net, _) = SimulatedNetworks.Horizontal(41, 4);
+        var (net, _) = BracedNetworks.Horizontal(41, 4);
         var clean = Adjuster.Adjust(net, Quick);
         int i0 = clean.Analysis.Observations.Where(t => t.Redundancy > 0.3).Select(t => t.Index).ToList()[3];
-        var biased = SimulatedNetworks.WithBias(net, i0, 20 * net.Observations[i0].StandardDeviation);
+        var biased = BracedNetworks.WithBias(net, i0, 20 * net.Observations[i0].StandardDeviation);
         var rb = RobustEstimation.Run(biased, method, Quick);
         Assert.True(rb.Converged);
         var reweighted = biased.Observations.Select((o, k) => Reweighting.WithSd(o, o.StandardDeviation / Math.Sqrt(rb.WeightFactors[k]))).ToArray();
@@ -66,13 +67,13 @@ public class RobustStandardisationTests
         // Baarda 1968): the robust run must suspect that observation and no other. On these thinner networks the
         // former |v|/(σ √r) flagged good observations beside the blunder in 2 of 50 runs (Huber) and in 26 of 46 runs
         // (Danish), because a down-weighted observation's r tends to 1 and its |v|/σ is then 1/√r₀ times too large.
-        var (net, _) = SimulatedNetworks.Horizontal(seed, 5, allPairs: false, pairProbability: pairProbability);
+        var (net, _) = BracedNetworks.Horizontal(seed, 5, allPairs: false, pairProbability: pairProbability);
         var clean = Adjuster.Adjust(net, Quick);
         var candidates = clean.Analysis.Observations.Where(t => t.Redundancy > 0.3).Select(t => t.Index).ToList();
         Assert.True(candidates.Count > 10);
         foreach (int i in candidates)
         {
-            var rb = RobustEstimation.Run(SimulatedNetworks.WithBias(net, i, 20 * net.Observations[i].StandardDeviation), method, Quick);
+            var rb = RobustEstimation.Run(BracedNetworks.WithBias(net, i, 20 * net.Observations[i].StandardDeviation), method, Quick);
             Assert.Equal(new[] { i }, rb.Suspected);
         }
     }

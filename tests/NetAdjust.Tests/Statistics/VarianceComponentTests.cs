@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
@@ -16,7 +17,7 @@ public class VarianceComponentTests(Xunit.Abstractions.ITestOutputHelper output)
         var dist = new List<double>(); var dir = new List<double>();
         for (int k = 0; k < runs; k++)
         {
-            var (net, _) = SimulatedNetworks.Horizontal(9, 5, noise: 1.0, noiseSeed: 500 + k, distanceNoise: 2.0);
+            var (net, _) = BracedNetworks.Horizontal(9, 5, noise: 1.0, noiseSeed: 500 + k, distanceNoise: 2.0);
             var vc = VarianceComponents.Estimate(net, fitDistanceSpec: false);
             Assert.True(vc.Converged);
             dist.Add(vc.Groups.Single(g => g.Kind == ObservationKind.Distance).VarianceFactor);
@@ -38,7 +39,7 @@ public class VarianceComponentTests(Xunit.Abstractions.ITestOutputHelper output)
     {
         // The estimator's fixed point: with the re-scaled σ, Σ vᵢ²/σᵢ² over a group equals its redundancy Σ rᵢ
         // (Förstner 1979), so every group's variance factor against the new σ is 1.
-        var (net, _) = SimulatedNetworks.Horizontal(19, 4, noise: 1.0, distanceNoise: 3.0);
+        var (net, _) = BracedNetworks.Horizontal(19, 4, noise: 1.0, distanceNoise: 3.0);
         var vc = VarianceComponents.Estimate(net, fitDistanceSpec: false);
         var fin = vc.Final;
         foreach (var kind in new[] { ObservationKind.Distance, ObservationKind.Direction })
@@ -49,13 +50,13 @@ public class VarianceComponentTests(Xunit.Abstractions.ITestOutputHelper output)
             Assert.Equal(1.0, q / r, 3);
         }
         var d = vc.Groups.Single(g => g.Kind == ObservationKind.Distance);
-        Assert.Equal(Math.Sqrt(d.VarianceFactor) * SimulatedNetworks.DistanceSd, d.ScaledSd!.Value, 12);
+        Assert.Equal(Math.Sqrt(d.VarianceFactor) * BracedNetworks.DistanceSd, d.ScaledSd!.Value, 12);
     }
 
     [Fact]
     public void TheDistanceSpecFitIsRefusedWithoutASpreadOfLengths()
     {
-        var (net, _) = SimulatedNetworks.Horizontal(19, 2);
+        var (net, _) = BracedNetworks.Horizontal(19, 2);
         var vc = VarianceComponents.Estimate(net);
         var d = vc.Groups.Single(g => g.Kind == ObservationKind.Distance);
         Assert.Null(d.PpmPart);
@@ -76,7 +77,7 @@ public class VarianceComponentSpecFitTests(Xunit.Abstractions.ITestOutputHelper 
         int notConverged = 0;
         for (int k = 0; k < runs; k++)
         {
-            var (net, _) = SimulatedNetworks.Horizontal(31, 7, noise: 1.0, noiseSeed: 900 + k,
+            var (net, _) = BracedNetworks.Horizontal(31, 7, noise: 1.0, noiseSeed: 900 + k,
                 distanceTrueSd: d => Math.Sqrt((0.002 * 0.002) + Math.Pow(8e-6 * d, 2)));
             var vc = VarianceComponents.Estimate(net);
             if (!vc.Converged) notConverged++;

@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using System.Globalization;
 using System.Text.RegularExpressions;
 using NetAdjust.Network;
@@ -44,7 +45,7 @@ public class VarianceComponentWeakNoteTests
     [Fact]
     public void AGroupWithAmpleRedundancyHasNoWeakNote()
     {
-        var (net, _) = SimulatedNetworks.Horizontal(41, 4);
+        var (net, _) = BracedNetworks.Horizontal(41, 4);
         var vc = VarianceComponents.Estimate(net, fitDistanceSpec: false);
         Assert.Contains(vc.Groups, g => g.Redundancy >= VarianceComponents.WeakGroupRedundancy);
         foreach (var g in vc.Groups)

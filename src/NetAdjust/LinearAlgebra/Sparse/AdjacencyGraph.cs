@@ -10,7 +10,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// Systems</i>, §4.1; George &amp; Liu 1981, <i>Computer Solution of Large Sparse Positive Definite Systems</i>, ch. 3.
 /// Memory O(nnz(N)).
 /// </remarks>
-public sealed class AdjacencyGraph
+internal sealed class AdjacencyGraph
 {
     private AdjacencyGraph(int vertexCount, int[] start, int[] adjacent)
     {

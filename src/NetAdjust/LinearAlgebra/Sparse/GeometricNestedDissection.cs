@@ -10,7 +10,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// planar grids gives O(n log n) fill and O(n^1.5) work; the coordinate split follows the geometric variant
 /// described in Davis 2006, <i>Direct Methods for Sparse Linear Systems</i>, §7.6. O(g log² g) time for g groups.
 /// </remarks>
-public static class GeometricNestedDissection
+internal static class GeometricNestedDissection
 {
     /// <summary>Groups at or below this count are numbered as they come.</summary>
     public const int LeafGroups = 12;

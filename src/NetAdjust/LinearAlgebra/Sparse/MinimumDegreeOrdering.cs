@@ -14,7 +14,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// implemented. George &amp; Liu 1989, "The evolution of the minimum degree ordering algorithm", SIAM Review 31(1),
 /// surveys the method; Davis 2006, §7.1. Deterministic: ties go to the lowest index.
 /// </remarks>
-public static class MinimumDegreeOrdering
+internal static class MinimumDegreeOrdering
 {
     /// <summary>A fill-reducing permutation p (p[k] = unknown placed k-th).</summary>
     /// <param name="graph">G(N).</param>

@@ -10,7 +10,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// sparse matrices", ACM TOMS 4(3):250–269; Davis 2006, §2.8 cs_multiply). Time O(Σ_s |a_s|·|block row lengths|).
 /// The plan (transpose of A's pattern) is built once per pattern; <see cref="Assemble"/> runs per numeric phase.
 /// </remarks>
-public sealed class NormalMatrixAssembly
+internal sealed class NormalMatrixAssembly
 {
     private readonly SymbolicCholesky _symbolic;
     private readonly int[] _atStart, _atRow, _atPos; // Aᵀ pattern: rows s and positions q with A(s, j) at Columns[q]

@@ -5,7 +5,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// order, p[k] = the original index placed at position k; its inverse q = p⁻¹ gives q[p[k]] = k.
 /// C = P N Pᵀ then has C(k, l) = N(p[k], p[l]).
 /// </summary>
-public static class Permutation
+internal static class Permutation
 {
     /// <summary>The inverse permutation q with q[p[k]] = k.</summary>
     /// <param name="p">A permutation of 0..n−1.</param>

@@ -11,7 +11,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// on it. An entry off the pattern is computed by one solve N x = e_j (O(nnz(L))) and the last such column is
 /// cached, so a run of requests in one column costs one solve.
 /// </remarks>
-public sealed class SparseCholeskyFactor : INormalFactor
+internal sealed class SparseCholeskyFactor : INormalFactor
 {
     private readonly double[] _l;
     private readonly double[] _scale;

@@ -45,7 +45,7 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
     public SparseOrdering Ordering { get; }
 
     /// <summary>The analysis of the last pattern factorised; null before the first call.</summary>
-    public SymbolicCholesky? Symbolic => _symbolic;
+    internal SymbolicCholesky? Symbolic => _symbolic;
 
     /// <summary>How many symbolic analyses this instance has made (one per distinct pattern).</summary>
     public int AnalysisCount { get; private set; }

@@ -11,7 +11,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// the elimination tree and postorder; Liu, Ng &amp; Peyton 1993 for supernodes. Time O(nnz(L)), memory
 /// O(nnz(N) + Σ supernode rows).
 /// </remarks>
-public sealed class SymbolicCholesky
+internal sealed class SymbolicCholesky
 {
     private SymbolicCholesky() { }
 

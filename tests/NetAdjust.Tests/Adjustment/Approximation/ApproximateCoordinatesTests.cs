@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using FsCheck;
 using FsCheck.Xunit;
 using NetAdjust.Adjustment;
@@ -165,7 +166,7 @@ public class ApproximateCoordinatesTests
         // 900 points over 6 km, 2" directions: each point is located by the shortest chain from the control, and
         // direction sets are oriented on the station that located their station, so errors grow like a random walk
         // (about a metre here), not geometrically. Bound 5 m: common practice is that a few metres still converge.
-        var sim = DatumNetworks.Grid(5, side, DatumNetworks.TwoHeld(last, levelling: false), approx: null);
+        var sim = GridNetworks.Grid(5, side, GridNetworks.TwoHeld(last, levelling: false), approx: null);
         var (e, n) = Run(sim.Network);
         double worst = sim.Truth.Max(t => Math.Max(Math.Abs(e[t.Key] - t.Value.E), Math.Abs(n[t.Key] - t.Value.N)));
         Assert.True(worst < 5, $"worst approximation error {worst:F2} m");
@@ -177,9 +178,9 @@ public class ApproximateCoordinatesTests
         // A random 3×3 or 4×4 network: the same least-squares solution whether the iterations start at the truth or
         // at coordinates computed from the observations (control: two held points).
         int side = 3 + (seed.Get % 2);
-        var control = DatumNetworks.TwoHeld(side * side - 1, levelling: true);
-        var fromTruth = Adjuster.Adjust(DatumNetworks.Grid(seed.Get, side, control, approx: 0, levelling: true).Network);
-        var auto = Adjuster.Adjust(DatumNetworks.Grid(seed.Get, side, control, approx: null, levelling: true).Network);
+        var control = GridNetworks.TwoHeld(side * side - 1, levelling: true);
+        var fromTruth = Adjuster.Adjust(GridNetworks.Grid(seed.Get, side, control, approx: 0, levelling: true).Network);
+        var auto = Adjuster.Adjust(GridNetworks.Grid(seed.Get, side, control, approx: null, levelling: true).Network);
         for (int i = 0; i < auto.Points.Count; i++)
         {
             Assert.Equal(fromTruth.Points[i].E!.Value, auto.Points[i].E!.Value, 7);
@@ -195,9 +196,9 @@ public class ApproximateCoordinatesTests
     public void ApproximationsMetresOffConvergeToTheSameSolution(int seed, double offset)
     {
         // Gauss-Newton with step halving (Hartley 1961): start values off by up to 25 m on 200 m lines.
-        var control = DatumNetworks.TwoHeld(15, levelling: false);
-        var near = Adjuster.Adjust(DatumNetworks.Grid(seed, 4, control, approx: 0).Network);
-        var far = Adjuster.Adjust(DatumNetworks.Grid(seed, 4, control, approx: offset).Network, AdjustmentOptions.Default with { MaxIterations = 50 });
+        var control = GridNetworks.TwoHeld(15, levelling: false);
+        var near = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: 0).Network);
+        var far = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: offset).Network, AdjustmentOptions.Default with { MaxIterations = 50 });
         for (int i = 0; i < near.Points.Count; i++)
         {
             Assert.Equal(near.Points[i].E!.Value, far.Points[i].E!.Value, 7);

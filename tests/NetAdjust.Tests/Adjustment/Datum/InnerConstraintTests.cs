@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using FsCheck;
 using FsCheck.Xunit;
 using MathNet.Numerics.LinearAlgebra;
@@ -59,7 +60,7 @@ public class InnerConstraintTests
     }
 
     private static SurveyNetwork Net(int seed, bool levelling, bool azimuth = false, Dictionary<int, Fixity>? control = null) =>
-        DatumNetworks.Grid(seed, 3, control ?? new Dictionary<int, Fixity> { [0] = levelling ? Fixity.ENH : Fixity.EN, [8] = Fixity.E },
+        GridNetworks.Grid(seed, 3, control ?? new Dictionary<int, Fixity> { [0] = levelling ? Fixity.ENH : Fixity.EN, [8] = Fixity.E },
             approx: 0.05, levelling: levelling, azimuth: azimuth).Network;
 
     [Property(MaxTest = 10)]
@@ -178,7 +179,7 @@ public class InnerConstraintTests
         // No distance: scale joins the datum defect (with an azimuth: translation and scale; without: also rotation).
         // Held control for the same defect: point 0 in E and N, point 8 in E (and N when rotation is a defect too).
         var control = new Dictionary<int, Fixity> { [0] = Fixity.EN, [8] = azimuth ? Fixity.E : Fixity.EN };
-        var net = DatumNetworks.Grid(seed, 3, control, azimuth: azimuth, distances: false).Network;
+        var net = GridNetworks.Grid(seed, 3, control, azimuth: azimuth, distances: false).Network;
         var held = Adjuster.Adjust(net, Tight);
         var minimal = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q22") });
         var free = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Free() });

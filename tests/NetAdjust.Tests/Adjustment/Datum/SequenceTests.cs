@@ -1,3 +1,4 @@
+using NetAdjust.Simulation;
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
@@ -48,7 +49,7 @@ public class SequenceTests
     [InlineData(43)]
     public void TheIncreaseOfVtpvIsTheQuadraticFormOfTheDiscrepancies(int seed)
     {
-        var net = DatumNetworks.Grid(seed, 4, Five).Network;
+        var net = GridNetworks.Grid(seed, 4, Five).Network;
         var s = AdjustmentSequence.Run(net, Tight);
         Assert.Equal(DatumMode.InnerConstraints, s.Minimal.Options.Datum.Mode);
         Assert.Equal(10 - 3, s.Test.AddedConstraints); // 5 points × 2 components − datum defect 3
@@ -64,7 +65,7 @@ public class SequenceTests
     [InlineData(43, 3, 0.0, -0.05)]
     public void AControlMarkDisturbedByFiveCentimetresFailsTheTestAndStandsOut(int seed, int disturbed, double de, double dn)
     {
-        var sim = DatumNetworks.Grid(seed, 4, Five, disturb: (disturbed, de, dn));
+        var sim = GridNetworks.Grid(seed, 4, Five, disturb: (disturbed, de, dn));
         var s = AdjustmentSequence.Run(sim.Network, Tight);
         string id = sim.Network.Points[disturbed].Id;
         Assert.False(s.Test.Passed, $"T = {s.Test.ChiSquare}");
@@ -73,7 +74,7 @@ public class SequenceTests
         Assert.Equal(id, worst.Id);
         Assert.Equal(QuadraticForm(s), s.Test.VtpvIncrease, 1e-3 * s.Test.VtpvIncrease);
         // The minimally-constrained solution tests the observations alone: its global test is not affected.
-        Assert.Equal(s.Minimal.Statistics.Vtpv, AdjustmentSequence.Run(DatumNetworks.Grid(seed, 4, Five).Network, Tight).Minimal.Statistics.Vtpv, 6);
+        Assert.Equal(s.Minimal.Statistics.Vtpv, AdjustmentSequence.Run(GridNetworks.Grid(seed, 4, Five).Network, Tight).Minimal.Statistics.Vtpv, 6);
         // Shifts: the constrained solution moves the points near the disturbed mark most.
         Assert.Contains(s.Shifts, x => x.Id == id && x.Horizontal > 0.01);
     }
@@ -88,7 +89,7 @@ public class SequenceTests
         int rejected = 0;
         for (int k = 0; k < runs; k++)
         {
-            var s = AdjustmentSequence.Run(DatumNetworks.Grid(1000 + k, 4, Five).Network);
+            var s = AdjustmentSequence.Run(GridNetworks.Grid(1000 + k, 4, Five).Network);
             t.Add(s.Test.ChiSquare);
             if (s.Test.Passed == false) rejected++;
         }
@@ -100,7 +101,7 @@ public class SequenceTests
     [Fact]
     public void ExplicitMinimalConstraintsCanBeChosenForTheFirstSolution()
     {
-        var net = DatumNetworks.Grid(44, 4, Five).Network;
+        var net = GridNetworks.Grid(44, 4, Five).Network;
         var s = AdjustmentSequence.Run(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q33") });
         Assert.Equal("minimal constraints: position of Q00, azimuth to Q33", s.MinimalDatum);
         var q00 = s.Discrepancies.Single(d => d.Id == "Q00");
@@ -114,7 +115,7 @@ public class SequenceTests
     [Fact]
     public void WithAnEstimatedVarianceFactorTheFTestDecides()
     {
-        var sim = DatumNetworks.Grid(46, 4, Five, disturb: (12, 0.03, 0.04));
+        var sim = GridNetworks.Grid(46, 4, Five, disturb: (12, 0.03, 0.04));
         var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = NetAdjust.Statistics.VarianceFactorBasis.Estimated } };
         var s = AdjustmentSequence.Run(sim.Network, options);
         Assert.True(s.Test.SigmaEstimated);

@@ -2,13 +2,14 @@ using MathNet.Numerics.Distributions;
 using NetAdjust.Network;
 using NetAdjust.Units;
 
-namespace NetAdjust.Tests.Statistics;
+namespace NetAdjust.Simulation;
 
 /// <summary>
-/// Invented test networks simulated from a chosen truth (test data only): two held control points, free points,
-/// direction sets and distances, and optionally a level network. Noise is N(0, σ²) per observation from a seeded generator.
+/// Small braced networks simulated from a chosen truth, for the statistical tests (invented data): two held control
+/// points, free points, direction sets and distances between all (or randomly chosen) pairs; and level networks.
+/// Noise is N(0, σ²) per observation from a seeded generator (MathNet's normal sampler).
 /// </summary>
-internal static class SimulatedNetworks
+internal static class BracedNetworks
 {
     public const double DirectionSd = 3.0 / 206264.80624709636; // 3″
     public const double DistanceSd = 0.003;                     // 3 mm
@@ -17,8 +18,9 @@ internal static class SimulatedNetworks
     public sealed record Truth(Dictionary<string, (double E, double N)> Plane, Dictionary<string, double> Height);
 
     /// <summary>A small horizontal network: control A, B; free points P1..Pk placed by the generator.</summary>
-    public static (SurveyNetwork Network, Truth Truth) Horizontal(int seed, int freePoints, double noise = 1.0, bool allPairs = true,
-        double pairProbability = 1.0, int? noiseSeed = null, double? distanceNoise = null, Func<double, double>? distanceTrueSd = null)
+    public static (SurveyNetwork Network, Truth Truth) Horizontal(int seed, int freePoints, double noise = 1.0,
+        bool allPairs = true, double pairProbability = 1.0, int? noiseSeed = null, double? distanceNoise = null,
+        Func<double, double>? distanceTrueSd = null)
     {
         var rnd = new Random(seed);
         var noiseRnd = noiseSeed is int ns ? new Random(ns) : rnd;
@@ -55,12 +57,15 @@ internal static class SimulatedNetworks
                 if (!controlPair && !allPairs && rnd.NextDouble() > pairProbability) continue;
                 double az = Math.Atan2(plane[to].E - plane[at].E, plane[to].N - plane[at].N);
                 double reading = Angle.Reduce0To2Pi(az - orientation + (noise * DirectionSd * Gauss()));
-                obs.Add(new DirectionObservation(at, to, Angle.FromRadians(reading), at + "/1") { StandardDeviation = DirectionSd });
+                obs.Add(new DirectionObservation(at, to, Angle.FromRadians(reading), at + "/1")
+                    { StandardDeviation = DirectionSd });
                 if (string.CompareOrdinal(at, to) < 0 && !(at == "A" && to == "B"))
                 {
-                    double d = Math.Sqrt(Math.Pow(plane[to].E - plane[at].E, 2) + Math.Pow(plane[to].N - plane[at].N, 2));
+                    double d = Math.Sqrt(
+                        Math.Pow(plane[to].E - plane[at].E, 2) + Math.Pow(plane[to].N - plane[at].N, 2));
                     double trueSd = distanceTrueSd?.Invoke(d) ?? ((distanceNoise ?? noise) * DistanceSd);
-                    obs.Add(new DistanceObservation(at, to, Length.FromMetres(d + (trueSd * Gauss()))) { StandardDeviation = DistanceSd });
+                    obs.Add(new DistanceObservation(at, to, Length.FromMetres(d + (trueSd * Gauss())))
+                        { StandardDeviation = DistanceSd });
                 }
             }
         }
@@ -68,17 +73,20 @@ internal static class SimulatedNetworks
     }
 
     /// <summary>A level network: benchmark BM0 held, BM1..BMk free, a chain plus random cross sections.</summary>
-    public static (SurveyNetwork Network, Truth Truth) Levelling(int seed, int benchmarks, int extraSections, double noise = 1.0)
+    public static (SurveyNetwork Network, Truth Truth) Levelling(
+        int seed, int benchmarks, int extraSections, double noise = 1.0)
     {
         var rnd = new Random(seed);
         var h = new Dictionary<string, double>(StringComparer.Ordinal);
         for (int k = 0; k <= benchmarks; k++) h[$"BM{k}"] = 50 + (rnd.NextDouble() * 20);
-        var points = h.Keys.Select(id => id == "BM0" ? new Point(id) { H = h[id], Fixed = Fixity.H } : new Point(id)).ToList();
+        var points = h.Keys
+            .Select(id => id == "BM0" ? new Point(id) { H = h[id], Fixed = Fixity.H } : new Point(id)).ToList();
         var obs = new List<Observation>();
         void Section(string a, string b)
         {
             double sd = HeightSd * (0.5 + rnd.NextDouble());
-            obs.Add(new HeightDifferenceObservation(a, b, Length.FromMetres(h[b] - h[a] + (noise * sd * Normal.Sample(rnd, 0, 1)))) { StandardDeviation = sd });
+            var dh = Length.FromMetres(h[b] - h[a] + (noise * sd * Normal.Sample(rnd, 0, 1)));
+            obs.Add(new HeightDifferenceObservation(a, b, dh) { StandardDeviation = sd });
         }
         for (int k = 1; k <= benchmarks; k++) Section($"BM{k - 1}", $"BM{k}");
         for (int x = 0; x < extraSections; x++)

@@ -1,0 +1,14 @@
+namespace NetAdjust.Simulation;
+
+/// <summary>The invented demonstration surveys of the repository's data/ folder (docs: data/README.md).</summary>
+public enum DemoScenario
+{
+    /// <summary>Brackenmoor water treatment works: a closed traverse of seven stations and a level loop.</summary>
+    Brackenmoor,
+
+    /// <summary>Harrowfield quarry extension: a braced network of four new stations with one planted blunder.</summary>
+    Harrowfield,
+
+    /// <summary>Harrowgate viaduct: six new stations tied to four control marks, one of them moved by 5 cm.</summary>
+    Harrowgate,
+}
