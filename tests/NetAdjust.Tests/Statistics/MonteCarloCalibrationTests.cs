@@ -89,7 +89,7 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
 
         // 95% confidence ellipses contain the true point in 95% of realisations, both with the χ² scale 2.4477 and
         // σ0² (variance factor known) and with the F scale √(2F(0.95; 2, r)) and σ̂0² (estimated; exact for a linear
-        // model): Hoover 1984; REFERENCES.md §5. Binomial sd √(0.95·0.05/N).
+        // model): Hoover 1984; docs/references.md §5. Binomial sd √(0.95·0.05/N).
         double cover = 4.5 * Math.Sqrt(0.95 * 0.05 / n);
         for (int f = 0; f < free.Length; f++)
         {

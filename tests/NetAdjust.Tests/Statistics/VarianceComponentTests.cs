@@ -68,7 +68,7 @@ public class VarianceComponentSpecFitTests(Xunit.Abstractions.ITestOutputHelper 
     [Fact]
     public void TheDistanceSpecFitRecoversAConstantAndAProportionalPart()
     {
-        // Distances simulated with σ² = (2 mm)² + (8 ppm · d)² (EDM specification a + b ppm, GLOSSARY.md), given as a
+        // Distances simulated with σ² = (2 mm)² + (8 ppm · d)² (EDM specification a + b ppm, docs/glossary.md), given as a
         // flat 3 mm. The two-component Förstner (1979) estimate, averaged over realisations, recovers a² and b²
         // within 4.5 standard errors of the mean (from the spread of the estimates).
         const int runs = 24;

@@ -25,7 +25,7 @@ public class BudgetBuilderTests
     {
         var proc = new ObservingProcedure(sets, faces == "both" ? Faces.Both : Faces.One);
         var b = AngleBudgetBuilder.Build(Station(5.0), null, null, proc, 150, 150, 1.0);
-        // Check values are printed to 0.1": compare to within half of that.
+        // The expected values are the rule √2·5″/√n (one face: ×√2) computed and rounded to 0.1″: compare within half of that.
         Assert.Equal(expectedArcsec, Arcsec(b.Total), 0.05);
         Assert.Equal(expectedArcsec, Arcsec(b.ValueOf(ContributionNames.PointingReading)), 0.05);
     }
@@ -106,7 +106,7 @@ public class BudgetBuilderTests
     [Fact]
     public void Level_per_km_model()
     {
-        // ISO 17123-2: σ of 1 km double-run levelling; a section of K km has σ√K (common practice; REFERENCES.md §9).
+        // ISO 17123-2: σ of 1 km double-run levelling; a section of K km has σ√K (common practice; docs/references.md §9).
         var level = LevelSpecification.PerKm("L", 0.001);
         Assert.Equal(0.001 * Math.Sqrt(0.42), HeightDifferenceBudgetBuilder.Build(level, 420, null).Total, 15);
         Assert.Equal(0.001 * Math.Sqrt(0.42) * Math.Sqrt(2), HeightDifferenceBudgetBuilder.Build(level, 420, new LevellingProcedure(1, 1)).Total, 15);
@@ -116,7 +116,8 @@ public class BudgetBuilderTests
     [Fact]
     public void Rod_rounding_uniform_is_resolution_over_root_twelve()
     {
-        // GUM JCGM 100:2008 §4.3.7 / §F.2.2.1 (REFERENCES.md §12): reading to 0.01 → σ = 0.0028868.
+        // GUM, JCGM 100:2008 §F.2.2.1 (u = δx/√12) and §4.3.7 (section number from memory): reading to 0.01 →
+        // σ = 0.01/√12 = 0.0028868 (computed; certainty in docs/references.md §12).
         Assert.Equal(0.0028868, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.Uniform).RoundingSd, 7);
         Assert.Equal(0.005, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.HalfResolution).RoundingSd, 15);
         var b = HeightDifferenceBudgetBuilder.Build(LevelSpecification.PerReading("L", 0, 0.001, RoundingTreatment.Uniform), null, new LevellingProcedure(3, 1));

@@ -54,7 +54,7 @@ public class SequenceTests
         Assert.Equal(10 - 3, s.Test.AddedConstraints); // 5 points × 2 components − datum defect 3
         // (Whether single simulations pass is a matter of chance at α; the calibration test below checks the rate.)
         Assert.Equal(QuadraticForm(s), s.Test.VtpvIncrease, 1e-4 * Math.Max(1, s.Test.VtpvIncrease));
-        // χ²(0.95; 7) = 14.0671 (NIST/SEMATECH e-Handbook §1.3.6.7.4 table, upper critical values; scipy agrees).
+        // χ²(0.95; 7) = 14.0671: computed with scipy, not read in a printed table (docs/references.md §2).
         Assert.Equal(14.0671, s.Test.ChiSquareCritical!.Value, 4);
     }
 
