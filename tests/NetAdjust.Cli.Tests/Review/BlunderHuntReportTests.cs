@@ -9,8 +9,8 @@ public class BlunderHuntReportTests
         // The demo plants one blunder, +40 mm on the distance H3→H4 (data/tools/simulate_blunder_demo.py). The log
         // column showed "#26 distance H3→H4 (data/harrowfi~": the observation must be readable in the table, and the
         // file and line where the surveyor marks it 'exclude: true' must be given in full.
-        string demo = Path.Combine(CliTests.RepoRoot(), "data", "harrowfield-blunder.yaml");
-        var (code, stdout, stderr) = CliTests.Run("adjust", demo, "--snoop", "--date", "2026-12-01");
+        string demo = CliHarness.DataFile("harrowfield-blunder.yaml");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         var lines = stdout.Split('\n');
         var hunt = lines.SkipWhile(l => !l.StartsWith("BLUNDER HUNT", StringComparison.Ordinal)).TakeWhile(l => l.Length > 0).ToList();

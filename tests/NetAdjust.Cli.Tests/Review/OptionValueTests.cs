@@ -8,8 +8,8 @@ public class OptionValueTests
     [InlineData("2.5")]
     public void ANonNumericSnoopLimitIsAUsageErrorWithoutDotNetTypeNames(string value)
     {
-        string demo = Path.Combine(CliTests.RepoRoot(), "data", "harrowfield-blunder.yaml");
-        var (code, stdout, stderr) = CliTests.Run("adjust", demo, "--snoop", "--snoop-limit", value);
+        string demo = CliHarness.DataFile("harrowfield-blunder.yaml");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--snoop-limit", value);
         Assert.Equal(ExitCodes.Usage, code);
         Assert.DoesNotContain("NetAdjust least-squares adjustment report", stdout);
         Assert.Contains($"--snoop-limit '{value}' must be a whole number", stderr);
@@ -19,11 +19,11 @@ public class OptionValueTests
     [Fact]
     public void AWholeSnoopLimitStillWorksAndTheDefaultIsTen()
     {
-        string demo = Path.Combine(CliTests.RepoRoot(), "data", "harrowfield-blunder.yaml");
-        var (code, stdout, stderr) = CliTests.Run("adjust", demo, "--snoop", "--snoop-limit", "1", "--date", "2026-12-01");
+        string demo = CliHarness.DataFile("harrowfield-blunder.yaml");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--snoop-limit", "1", "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("BLUNDER HUNT", stdout);
-        (code, stdout, stderr) = CliTests.Run("adjust", demo, "--snoop", "--date", "2026-12-01");
+        (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("Stopped: no observation fails the test.", stdout);
     }

@@ -47,10 +47,10 @@ public sealed class OptionalAnalysisFailureTests : IDisposable
     {
         string f = Path.Combine(_tmp, "bad.yaml");
         File.WriteAllText(f, Inconsistent);
-        var (code, stdout, stderr) = CliTests.Run("adjust", f, "--date", "2026-12-01");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", f, "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("FAILED", stdout); // the global test: a result, not an error
-        (code, stdout, stderr) = CliTests.Run("adjust", f, "--components", "--date", "2026-12-01");
+        (code, stdout, stderr) = CliHarness.Run("adjust", f, "--components", "--date", "2026-12-01");
         Assert.True(code == ExitCodes.AdjustmentFailed,
             "the re-adjustments of this test network were expected not to converge; if the solver now copes, this test needs another failing case");
         Assert.Equal("", stdout);

@@ -7,7 +7,7 @@ public sealed class OutputAtomicityTests : IDisposable
 
     public void Dispose() => Directory.Delete(_tmp, recursive: true);
 
-    private static string Demo => Path.Combine(CliTests.RepoRoot(), "data", "brackenmoor.yaml");
+    private static string Demo => CliHarness.DataFile("brackenmoor.yaml");
 
     [Theory]
     [InlineData(true)]
@@ -22,7 +22,7 @@ public sealed class OutputAtomicityTests : IDisposable
         string[] args = jsonIsTheGoodOne
             ? ["adjust", Demo, "--json", good, "--report", bad, "--date", "2026-12-01"]
             : ["adjust", Demo, "--json", bad, "--report", good, "--date", "2026-12-01"];
-        var (code, stdout, stderr) = CliTests.Run(args);
+        var (code, stdout, stderr) = CliHarness.Run(args);
         Assert.Equal(ExitCodes.OutputFailed, code);
         Assert.Contains("cannot write", stderr);
         Assert.Equal("earlier result\n", File.ReadAllText(good));
@@ -37,7 +37,7 @@ public sealed class OutputAtomicityTests : IDisposable
         string csv = Path.Combine(_tmp, "earlier.csv"), json = Path.Combine(_tmp, "earlier.json");
         File.WriteAllText(csv, "earlier csv\n");
         File.WriteAllText(json, "earlier json\n");
-        var (code, _, stderr) = CliTests.Run("adjust", Demo, "--json", json, "--csv", csv, "--html", Path.Combine(_tmp, "no-such-folder", "r.html"),
+        var (code, _, stderr) = CliHarness.Run("adjust", Demo, "--json", json, "--csv", csv, "--html", Path.Combine(_tmp, "no-such-folder", "r.html"),
             "--date", "2026-12-01");
         Assert.Equal(ExitCodes.OutputFailed, code);
         Assert.Contains("cannot write", stderr);
@@ -51,7 +51,7 @@ public sealed class OutputAtomicityTests : IDisposable
     {
         string json = Path.Combine(_tmp, "r.json"), report = Path.Combine(_tmp, "r.txt");
         File.WriteAllText(json, "earlier\n");
-        var (code, stdout, stderr) = CliTests.Run("adjust", Demo, "--json", json, "--report", report, "--date", "2026-12-01");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", Demo, "--json", json, "--report", report, "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Equal("", stdout);
         Assert.StartsWith("{", File.ReadAllText(json));
