@@ -14,7 +14,7 @@ public class BudgetCommandTests
     [InlineData("3", "both", "4.08")]
     [InlineData("4", "both", "3.54")]
     [InlineData("1", "one", "10.00")]
-    public void Angle_budget_prints_the_expected_total(string sets, string faces, string total)
+    public void AngleBudgetPrintsTheExpectedTotal(string sets, string faces, string total)
     {
         var (code, output, err) = CliHarness.Run("budget", "angle", "--direction-sd", "5", "--sets", sets, "--faces", faces);
         Assert.Equal(0, code);
@@ -23,7 +23,7 @@ public class BudgetCommandTests
     }
 
     [Fact]
-    public void Distance_budget_matches_the_hand_computation()
+    public void DistanceBudgetMatchesTheHandComputation()
     {
         // Own scenario: 412.5 m, 3 mm + 2 ppm, centering 0.8 mm and 1.5 mm: √(9 + 0.680625 + 0.64 + 2.25) mm = 3.5455 mm.
         var (code, output, _) = CliHarness.Run("budget", "distance", "--length", "412.5", "--edm", "3 mm + 2 ppm",
@@ -35,7 +35,7 @@ public class BudgetCommandTests
     }
 
     [Fact]
-    public void Json_output_and_feet()
+    public void JsonOutputAndFeet()
     {
         // 1000 ft, 0.01 ft + 5 ppm: b·D = 0.005 ft; σ = √(0.01² + 0.005²) ft = 0.0111803 ft.
         var (code, output, _) = CliHarness.Run("budget", "distance", "--length", "1000", "--edm", "0.01 + 5 ppm", "--units", "ft", "--json");
@@ -47,7 +47,7 @@ public class BudgetCommandTests
     }
 
     [Fact]
-    public void Level_line_budget_grows_with_the_square_root_of_the_readings()
+    public void LevelLineBudgetGrowsWithTheSquareRootOfTheReadings()
     {
         // Own level line: 0.5 mm per reading; 9 setups (18 readings) vs 36 setups (72 readings): σ doubles.
         static double Sd(string setups)
@@ -69,7 +69,7 @@ public class BudgetCommandTests
     [InlineData("direction")]
     [InlineData("angle")]
     [InlineData("level")]
-    public void Help_is_available_for_every_budget_kind(string kind)
+    public void HelpIsAvailableForEveryBudgetKind(string kind)
     {
         var (code, output, _) = CliHarness.Run("budget", kind, "--help");
         Assert.Equal(0, code);
@@ -83,7 +83,7 @@ public class BudgetCommandTests
     [InlineData(new[] { "budget", "level", "--per-km", "-1 mm", "--length", "2 km" }, "--per-km must be positive")]
     [InlineData(new[] { "budget", "angle", "--direction-sd", "5", "--sets", "two" }, "--sets 'two' must be a whole number")]
     [InlineData(new[] { "budget", "direction", "--direction-sd", "5", "--instrument-centering", "1 mm" }, "--length is needed")]
-    public void Bad_specifications_give_a_clear_error_and_exit_code_2(string[] args, string message)
+    public void BadSpecificationsGiveAClearErrorAndExitCode2(string[] args, string message)
     {
         var (code, output, err) = CliHarness.Run(args);
         Assert.Equal(ExitCodes.InvalidInput, code);
@@ -100,7 +100,7 @@ public class AdjustBudgetReportTests
     }
 
     [Fact]
-    public void Demo_report_shows_the_budget_summary_and_on_request_each_observation()
+    public void DemoReportShowsTheBudgetSummaryAndOnRequestEachObservation()
     {
         var (code, text, _) = CliHarness.Run("adjust", Demo(), "--date", "2026-12-01", "--budgets");
         Assert.Equal(0, code);

@@ -46,7 +46,7 @@ public class StochasticProjectTests
         """;
 
     [Fact]
-    public void Setup_observations_inherit_instrument_target_and_procedure_and_explicit_sd_overrides()
+    public void SetupObservationsInheritInstrumentTargetAndProcedureAndExplicitSdOverrides()
     {
         var p = Parse(Head + """
             setups:
@@ -85,7 +85,7 @@ public class StochasticProjectTests
     }
 
     [Fact]
-    public void Levelling_sections_from_level_specifications()
+    public void LevellingSectionsFromLevelSpecifications()
     {
         var p = Parse(Head + """
             levelling:
@@ -104,7 +104,7 @@ public class StochasticProjectTests
     }
 
     [Fact]
-    public void Csv_height_differences_may_name_a_level()
+    public void CsvHeightDifferencesMayNameALevel()
     {
         string csv = "kind,from,to,value,length,level,setups,runs\nheight_difference,A,D,1.0,250,ISO,,\nheight_difference,A,D,1.0,,DIGI,5,1\n";
         var p = ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => f.EndsWith("lev.csv") ? csv : throw new IOException("no"));
@@ -125,7 +125,7 @@ public class StochasticProjectTests
     [InlineData("  - {id: TS2, direction_sd: -5}", "instrument TS2", "direction_sd must be positive")]
     [InlineData("  - {id: TS2, direction_sd: 5, centering: -1 mm}", "instrument TS2", "centering must not be negative")]
     [InlineData("  - {id: TS2, edm: 3 mm + 2 ppm}", "instrument TS2", "'direction_sd' is missing")]
-    public void Bad_instrument_specifications_name_file_line_and_item(string line, string where, string what)
+    public void BadInstrumentSpecificationsNameFileLineAndItem(string line, string where, string what)
     {
         string yaml = Head.Replace("instruments:\n", "instruments:\n" + line + "\n");
         var e = Assert.Throws<ProjectFileException>(() => Parse(yaml));
@@ -139,7 +139,7 @@ public class StochasticProjectTests
     [InlineData("    sets: 2\n", "name the setup's 'instrument'")]
     [InlineData("    instrument: TS\n    faces: two\n", "faces 'two' must be 'both' or 'one'")]
     [InlineData("    instrument: TS\n    sets: 0\n", "sets must be a whole number")]
-    public void Bad_setup_procedures_are_reported(string keys, string what)
+    public void BadSetupProceduresAreReported(string keys, string what)
     {
         string yaml = Head + "setups:\n  - at: A\n" + keys + "    directions:\n      - {to: B, value: 0-00-00}\n";
         var e = Assert.Throws<ProjectFileException>(() => Parse(yaml));
@@ -148,7 +148,7 @@ public class StochasticProjectTests
     }
 
     [Fact]
-    public void Centering_option_selects_the_correlated_weight_model()
+    public void CenteringOptionSelectsTheCorrelatedWeightModel()
     {
         var p = Parse(Head.Replace("default_sd:", "adjustment: {centering: correlated}\ndefault_sd:"));
         Assert.Same(SetupCenteringWeightModel.Instance, p.Options.WeightModel);
@@ -157,7 +157,7 @@ public class StochasticProjectTests
     }
 
     [Fact]
-    public void Demo_is_weighted_from_specifications_and_adjusts_cleanly_both_ways()
+    public void DemoIsWeightedFromSpecificationsAndAdjustsCleanlyBothWays()
     {
         string dir = DataDirectory();
         var p = ProjectReader.Read(Path.Combine(dir, "brackenmoor.yaml"));
@@ -190,7 +190,7 @@ public class StochasticProjectTests
     /// the root-sum-square of sd_components equals sd (issue requirement; invariant of the error budget).
     /// </summary>
     [Property(MaxTest = 30)]
-    public Property Root_sum_square_of_sd_components_equals_sd_for_every_demo_observation()
+    public Property RootSumSquareOfSdComponentsEqualsSdForEveryDemoObservation()
     {
         string dir = DataDirectory();
         string demo = File.ReadAllText(Path.Combine(dir, "brackenmoor.yaml"));
