@@ -193,7 +193,7 @@ public class ApproximationTests
     [InlineData(5, 25.0)]
     public void ApproximationsMetresOffConvergeToTheSameSolution(int seed, double offset)
     {
-        // Gauss-Newton with step halving (Hartley 1961): start values off by up to 25 m on 200 m lines.
+        // Gauss-Newton with step halving (Hartley 1961, from memory): start values off by up to 25 m on 200 m lines.
         var control = DatumNetworks.TwoHeld(15, levelling: false);
         var near = Adjuster.Adjust(DatumNetworks.Grid(seed, 4, control, approx: 0).Network);
         var far = Adjuster.Adjust(DatumNetworks.Grid(seed, 4, control, approx: offset).Network, AdjustmentOptions.Default with { MaxIterations = 50 });

@@ -11,7 +11,7 @@ namespace NetAdjust.Tests.Adjustment.Datum;
 /// independent oracle: the bordered normal matrix [N B; Bᵀ 0]⁻¹, whose upper-left block is the cofactor matrix in
 /// the datum Bᵀx = 0, and the Moore-Penrose pseudo-inverse N⁺ (SVD), which is the inner-constraint cofactor matrix
 /// when B spans the null space of N (Koch 1999, <i>Parameter Estimation and Hypothesis Testing in Linear Models</i>,
-/// §3.4; Baarda 1973, <i>S-transformations and criterion matrices</i>).
+/// §3.4; Baarda 1973, <i>S-transformations and criterion matrices</i>; section and title from memory).
 /// </summary>
 public class InnerConstraintTests
 {
@@ -96,7 +96,7 @@ public class InnerConstraintTests
         // Three ways to fix the same datum defect: held coordinates (point 0 in E, N, H and point 8 in E: plain
         // solve, no S-transformation), explicit minimal constraints (position + azimuth, held as conditions) and
         // inner constraints. Residuals, vᵀPv, standard deviations of adjusted observations, redundancy numbers and
-        // w-values do not depend on the datum (Koch 1999, §3.4; common practice in free-network adjustment).
+        // w-values do not depend on the datum (Koch 1999, §3.4, from memory; common practice in free-network adjustment).
         bool lev = seed.Get % 2 == 0;
         var net = Net(seed.Get, lev);
         var held = Adjuster.Adjust(net, Tight);
@@ -139,7 +139,7 @@ public class InnerConstraintTests
     [Fact]
     public void WithAnObservedAzimuthTheInnerConstraintCofactorIsThePseudoInverse()
     {
-        // Null space = translations only, the same rows as B: Q = N⁺ (Koch 1999, §3.4). N⁺ by MathNet's SVD.
+        // Null space = translations only, the same rows as B: Q = N⁺ (Koch 1999, §3.4, section from memory). N⁺ by MathNet's SVD.
         var r = Adjuster.Adjust(Net(23, levelling: true, azimuth: true), Tight with { Datum = DatumDefinition.Free() });
         Assert.Equal(3, r.Statistics.DegreesOfFreedom - (r.Statistics.Observations - r.Statistics.Unknowns));
         AssertCofactorsEqual(Normal(r).PseudoInverse(), r.Cofactor, 1e-8, "N+");
