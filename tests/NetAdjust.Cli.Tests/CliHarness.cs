@@ -15,7 +15,7 @@ internal readonly record struct CliRun(int Code, string Out, string Err);
 /// </summary>
 internal static class CliHarness
 {
-    /// <summary>The repository root (the folder that holds NetAdjust.sln), found upwards from the test binaries.</summary>
+    /// <summary>The repository root (the folder that holds NetAdjust.sln), found upwards from the tests.</summary>
     public static string RepoRoot { get; } = FindRepoRoot();
 
     /// <summary>A file of the repository's demo folder data/.</summary>
@@ -36,7 +36,7 @@ internal static class CliHarness
     /// Runs the built command (NetAdjust.Cli.dll beside the test binaries, i.e. the build of the same configuration)
     /// in a child process with the given working folder.
     /// </summary>
-    /// <param name="workingDirectory">The child's current folder (relative paths in <paramref name="args"/> start there).</param>
+    /// <param name="workingDirectory">The child's current folder (relative paths in the arguments start there).</param>
     /// <param name="args">The command line, verb first.</param>
     public static CliRun RunProcess(string workingDirectory, params string[] args)
     {

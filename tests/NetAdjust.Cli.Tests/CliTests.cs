@@ -29,8 +29,12 @@ public sealed class CliTests : IDisposable
         // (13 directions, 7 distances, 1 angle) and data/brackenmoor-levels.csv (5 height differences).
         var kinds = root.GetProperty("observations").EnumerateArray().GroupBy(o => o.GetProperty("kind").GetString()!)
             .ToDictionary(g => g.Key, g => g.Count());
-        var expected = new Dictionary<string, int> { ["direction"] = 13, ["distance"] = 7, ["angle"] = 1, ["height_difference"] = 5 };
-        Assert.Equal(expected.OrderBy(k => k.Key, StringComparer.Ordinal), kinds.OrderBy(k => k.Key, StringComparer.Ordinal));
+        var expected = new Dictionary<string, int>
+        {
+            ["direction"] = 13, ["distance"] = 7, ["angle"] = 1, ["height_difference"] = 5,
+        };
+        Assert.Equal(expected.OrderBy(k => k.Key, StringComparer.Ordinal),
+            kinds.OrderBy(k => k.Key, StringComparer.Ordinal));
         // Every point of the demo is listed; held points have zero sd.
         var bk01 = root.GetProperty("points").EnumerateArray().Single(p => p.GetProperty("id").GetString() == "BK01");
         Assert.Equal(0.0, bk01.GetProperty("sd_e").GetDouble());

@@ -4,7 +4,8 @@ namespace NetAdjust.Cli.Tests;
 
 /// <summary>
 /// Deterministic output, checked across processes: the built command, run in a child process on each demo project of
-/// data/ with a fixed --date, writes every output byte for byte as the committed golden files in Golden/ (demo/option/).
+/// data/ with a fixed --date, writes every output byte for byte as the committed golden files in
+/// Golden/&lt;demo&gt;/&lt;variant&gt;/.
 /// A change of output on purpose is recorded by running these tests with NETADJUST_UPDATE_GOLDEN=1, which rewrites the
 /// golden files instead of comparing; the diff is then reviewed and committed (DEVELOPERS.md).
 /// </summary>
@@ -68,7 +69,8 @@ public sealed class GoldenOutputTests : IDisposable
             byte[] expected = File.ReadAllBytes(path);
             if (!expected.AsSpan().SequenceEqual(actual)) differing.Add($"{file}: {FirstDifference(expected, actual)}");
         }
-        Assert.True(differing.Count == 0, $"{demo} {variant} differs from Golden/{demo}/{variant}:\n" + string.Join("\n", differing));
+        Assert.True(differing.Count == 0,
+            $"{demo} {variant} differs from Golden/{demo}/{variant}:\n" + string.Join("\n", differing));
     }
 
     private static string FirstDifference(byte[] expected, byte[] actual)
@@ -76,7 +78,8 @@ public sealed class GoldenOutputTests : IDisposable
         int i = 0;
         while (i < expected.Length && i < actual.Length && expected[i] == actual[i]) i++;
         int line = 1 + expected.AsSpan(0, i).Count((byte)'\n');
-        string Around(byte[] b) => Encoding.UTF8.GetString(b, Math.Max(0, i - 40), Math.Min(b.Length, i + 40) - Math.Max(0, i - 40));
+        int from = Math.Max(0, i - 40);
+        string Around(byte[] b) => Encoding.UTF8.GetString(b, from, Math.Min(b.Length, i + 40) - from); // from ≤ i
         return $"first difference at byte {i} (line {line}); golden …{Around(expected)}… now …{Around(actual)}…";
     }
 }

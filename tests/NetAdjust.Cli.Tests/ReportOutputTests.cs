@@ -38,7 +38,8 @@ public sealed class ReportOutputTests : IDisposable
         Assert.Equal(ExitCodes.Success, RunAll("a", "2026-12-01").Code);
         foreach (var k in Kinds) Assert.True(new FileInfo(P($"a/out.{k}")).Length > 200, $"{k} output is too short");
         Assert.Equal(Kinds.Select(k => "out." + k).Order(StringComparer.Ordinal),
-            Directory.GetFiles(P("a"), "*", SearchOption.AllDirectories).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+            Directory.GetFiles(P("a"), "*", SearchOption.AllDirectories).Select(Path.GetFileName)
+                .Order(StringComparer.Ordinal));
     }
 
     [Fact]

@@ -19,7 +19,8 @@ public class ReportFormatTests
     [InlineData("gon", "1", "399.9970", "200.00")]
     public void AnEllipseAzimuthJustBelowAHalfTurnPrintsAsZero(string angle, string azimuthSd, string azimuth, string forbidden)
     {
-        // Convention (docs/methods.md, docs/glossary.md): the azimuth of the semi-major axis is in [0°, 180°) ([0, 200) gon).
+        // Convention (docs/methods.md, docs/glossary.md): the azimuth of the semi-major axis is in [0°, 180°)
+        // ([0, 200) gon).
         // A point fixed by a distance (3 mm) and an azimuth (3", or 1 mgon) 10" (3 mgon) west of north, 100 m away, has
         // its major axis along the line, at 179.997° (199.997 gon): rounded to two decimals it must print 0.00, not the
         // out-of-range 180.00 (200.00).
@@ -81,9 +82,10 @@ public class ReportFormatTests
     [Fact]
     public void ExchangeFilesAndTheHtmlReportKeepAzimuthsInTheirRangeAfterRounding()
     {
-        // docs/glossary.md: ellipse azimuths in [0°, 180°), directions in [0°, 360°). A point 100 m north of A, fixed by a
-        // distance (3 mm) and an azimuth (3") 0.1" west of north: its major axis is at 179.99997°, which rounds to
-        // 180.0000 at four decimals and must be written 0.0000; the direction 359-59-59.98 must be written 0-00-00.0.
+        // docs/glossary.md: ellipse azimuths in [0°, 180°), directions in [0°, 360°). A point 100 m north of A, fixed
+        // by a distance (3 mm) and an azimuth (3") 0.1" west of north: its major axis is at 179.99997°, which
+        // rounds to 180.0000 at four decimals and must be written 0.0000; the direction 359-59-59.98 must be
+        // written 0-00-00.0.
         const string yaml = """
             units: {length: m, angle: dms}
             default_sd: {distance: 3 mm, azimuth: 3, direction: 2}

@@ -8,8 +8,9 @@ public class CriticalValuesTests
     [Fact]
     public void WTestCriticalValueIs329ForAlpha0001()
     {
-        // Baarda (1968), A Testing Procedure for Use in Geodetic Networks, NGC Publ. on Geodesy NS 2(5), uses α0 = 0.001;
-        // its two-sided normal critical value 3.2905 is computed (scipy), not read in Baarda (docs/references.md §3).
+        // Baarda (1968), A Testing Procedure for Use in Geodetic Networks, NGC Publ. on Geodesy NS 2(5), uses
+        // α0 = 0.001; its two-sided normal critical value 3.2905 is computed (scipy), not read in Baarda
+        // (docs/references.md §3).
         Assert.Equal(3.2905, CriticalValues.WTest(0.001), 4);
     }
 
@@ -59,8 +60,8 @@ public class CriticalValuesTests
     [InlineData(300, 700)]
     public void TauEqualsTheFFormOfKoch(int r, int n)
     {
-        // Koch (1999), Parameter Estimation and Hypothesis Testing in Linear Models, eq. 4.117 (equation number seen only
-        // in code that cites it; docs/references.md §4):
+        // Koch (1999), Parameter Estimation and Hypothesis Testing in Linear Models, eq. 4.117 (equation number seen
+        // only in code that cites it; docs/references.md §4):
         // τ = √(r F / (r − 1 + F)), F = F(1 − α′; 1, r − 1); MathNet's Fisher-Snedecor as the independent route.
         double a = CriticalValues.PerTestAlpha(0.05, n, MultipleTestAdjustment.Bonferroni);
         double f = FisherSnedecor.InvCDF(1, r - 1, 1 - a);

@@ -42,7 +42,8 @@ public class ErrorEllipseTests
     [InlineData(2.0, 2.0, -1.0, 135.0)] // negative → south-east / north-west
     public void AzimuthIsClockwiseFromNorth(double ce, double cn, double cen, double azDeg)
     {
-        // Convention of docs/glossary.md: azimuth of the semi-major axis clockwise from north in [0°, 180°) (common practice).
+        // Convention of docs/glossary.md: azimuth of the semi-major axis clockwise from north in [0°, 180°)
+        // (common practice).
         Assert.Equal(azDeg, ErrorEllipse.FromCovariance(ce, cn, cen).AzimuthDegrees, 9);
     }
 

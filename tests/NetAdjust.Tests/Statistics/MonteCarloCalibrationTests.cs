@@ -8,7 +8,8 @@ namespace NetAdjust.Tests.Statistics;
 /// <summary>
 /// Monte Carlo calibration: observations simulated from a known truth with N(0, σ²) noise (fixed seeds). When the
 /// model is right, σ̂0² has mean 1 (variance 2/r), each wᵢ is N(0, 1), the global test rejects with probability α,
-/// and the adjusted coordinates scatter with the reported covariance σ0² Qxx (Koch 1999 §3.2, §4, sections from memory; Baarda 1968).
+/// and the adjusted coordinates scatter with the reported covariance σ0² Qxx (Koch 1999 §3.2, §4, sections from
+/// memory; Baarda 1968).
 /// Tolerances are 4.5 standard errors of each sampling statistic, derived beside each check.
 /// </summary>
 public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper output)

@@ -17,8 +17,8 @@ public class ObservationTestsTests
     [Fact]
     public void RedundancyNumbersSumToTheDegreesOfFreedomOnRandomNetworks()
     {
-        // Σ rᵢ = tr(Qvv P) = n − u (Baarda 1968; Teunissen 2000, Adjustment theory, from memory) and 0 ≤ rᵢ ≤ 1: property over
-        // random horizontal and level networks.
+        // Σ rᵢ = tr(Qvv P) = n − u (Baarda 1968; Teunissen 2000, Adjustment theory, from memory) and 0 ≤ rᵢ ≤ 1:
+        // property over random horizontal and level networks.
         var gen = from seed in Gen.Choose(1, 1_000_000)
                   from free in Gen.Choose(1, 4)
                   from p in Gen.Choose(0, 100)

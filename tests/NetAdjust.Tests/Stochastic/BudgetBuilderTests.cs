@@ -25,7 +25,8 @@ public class BudgetBuilderTests
     {
         var proc = new ObservingProcedure(sets, faces == "both" ? Faces.Both : Faces.One);
         var b = AngleBudgetBuilder.Build(Station(5.0), null, null, proc, 150, 150, 1.0);
-        // The expected values are the rule √2·5″/√n (one face: ×√2) computed and rounded to 0.1″: compare within half of that.
+        // The expected values are the rule √2·5″/√n (one face: ×√2) computed and rounded to 0.1″: compare within
+        // half of that.
         Assert.Equal(expectedArcsec, Arcsec(b.Total), 0.05);
         Assert.Equal(expectedArcsec, Arcsec(b.ValueOf(ContributionNames.PointingReading)), 0.05);
     }
@@ -106,7 +107,8 @@ public class BudgetBuilderTests
     [Fact]
     public void LevelPerKmModel()
     {
-        // ISO 17123-2: σ of 1 km double-run levelling; a section of K km has σ√K (common practice; docs/references.md §9).
+        // ISO 17123-2: σ of 1 km double-run levelling; a section of K km has σ√K (common practice;
+        // docs/references.md §9).
         var level = LevelSpecification.PerKm("L", 0.001);
         Assert.Equal(0.001 * Math.Sqrt(0.42), HeightDifferenceBudgetBuilder.Build(level, 420, null).Total, 15);
         Assert.Equal(0.001 * Math.Sqrt(0.42) * Math.Sqrt(2), HeightDifferenceBudgetBuilder.Build(level, 420, new LevellingProcedure(1, 1)).Total, 15);

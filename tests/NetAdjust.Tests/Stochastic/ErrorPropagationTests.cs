@@ -6,7 +6,8 @@ namespace NetAdjust.Tests.Stochastic;
 public class ErrorPropagationTests
 {
     // The three elementary rules are special cases of the general law Σy = J Σx Jᵀ (Koch 1999, §2.2, and
-    // Ghilani 2017, ch. 6: section and chapter from memory). Each is checked against the general law evaluated by MathNet.
+    // Ghilani 2017, ch. 6: section and chapter from memory). Each is checked against the general law evaluated by
+    // MathNet.
 
     [Theory]
     [InlineData(0.0005, 1)]

@@ -59,8 +59,8 @@ public class InnerConstraintTests
     }
 
     /// <summary>
-    /// The null space of N from MathNet's SVD (the right singular vectors whose singular values are negligible), independent
-    /// of the library's datum code. Its dimension must be the expected datum defect.
+    /// The null space of N from MathNet's SVD (the right singular vectors whose singular values are negligible),
+    /// independent of the library's datum code. Its dimension must be the expected datum defect.
     /// </summary>
     private static Matrix<double> SvdNullSpace(Matrix<double> n, int expectedDefect)
     {
@@ -72,16 +72,19 @@ public class InnerConstraintTests
         return svd.VT.Transpose().SubMatrix(0, n.RowCount, rank, n.RowCount - rank);
     }
 
-    /// <summary>Inner constraints over the coordinates of all points (or of a subset): the rows of the null space for
-    /// those coordinates, zero for the orientation unknowns and other points (the definition in docs/methods.md, Datum).</summary>
-    private static Matrix<double> InnerConditions(AdjustmentResult r, Matrix<double> nullSpace, IReadOnlyCollection<string>? subset = null)
+    /// <summary>
+    /// Inner constraints over the coordinates of all points (or of a subset): the rows of the null space for those
+    /// coordinates, zero for the orientation unknowns and other points (the definition in docs/methods.md, Datum).
+    /// </summary>
+    private static Matrix<double> InnerConditions(AdjustmentResult r, Matrix<double> nullSpace,
+        IReadOnlyCollection<string>? subset = null)
     {
         var b = nullSpace.Clone();
         for (int i = 0; i < r.Unknowns.Count; i++)
         {
             var x = r.Unknowns.Unknowns[i];
-            if (x.Parameter == NetAdjust.Geometry.Parameter.Orientation || (subset is not null && !subset.Contains(x.Owner)))
-                b.ClearRow(i);
+            bool outside = subset is not null && !subset.Contains(x.Owner);
+            if (x.Parameter == NetAdjust.Geometry.Parameter.Orientation || outside) b.ClearRow(i);
         }
         return b;
     }
@@ -96,7 +99,8 @@ public class InnerConstraintTests
         // Three ways to fix the same datum defect: held coordinates (point 0 in E, N, H and point 8 in E: plain
         // solve, no S-transformation), explicit minimal constraints (position + azimuth, held as conditions) and
         // inner constraints. Residuals, vᵀPv, standard deviations of adjusted observations, redundancy numbers and
-        // w-values do not depend on the datum (Koch 1999, §3.4, from memory; common practice in free-network adjustment).
+        // w-values do not depend on the datum (Koch 1999, §3.4, from memory; common practice in free-network
+        // adjustment).
         bool lev = seed.Get % 2 == 0;
         var net = Net(seed.Get, lev);
         var held = Adjuster.Adjust(net, Tight);
@@ -139,7 +143,8 @@ public class InnerConstraintTests
     [Fact]
     public void WithAnObservedAzimuthTheInnerConstraintCofactorIsThePseudoInverse()
     {
-        // Null space = translations only, the same rows as B: Q = N⁺ (Koch 1999, §3.4, section from memory). N⁺ by MathNet's SVD.
+        // Null space = translations only, the same rows as B: Q = N⁺ (Koch 1999, §3.4, section from memory).
+        // N⁺ by MathNet's SVD.
         var r = Adjuster.Adjust(Net(23, levelling: true, azimuth: true), Tight with { Datum = DatumDefinition.Free() });
         Assert.Equal(3, r.Statistics.DegreesOfFreedom - (r.Statistics.Observations - r.Statistics.Unknowns));
         AssertCofactorsEqual(Normal(r).PseudoInverse(), r.Cofactor, 1e-8, "N+");
@@ -227,6 +232,7 @@ public class InnerConstraintTests
         Assert.Equal(Math.Sqrt(Math.Pow(g1.E!.Value - g0.E!.Value, 2) + Math.Pow(g1.N!.Value - g0.N!.Value, 2)),
             Math.Sqrt(Math.Pow(p1.E!.Value - p0.E!.Value, 2) + Math.Pow(p1.N!.Value - p0.N!.Value, 2)), 8);
         var nf = Normal(free);
-        AssertCofactorsEqual(Bordered(nf, InnerConditions(free, SvdNullSpace(nf, defect))), free.Cofactor, 1e-9, "Q scale-free");
+        var bf = InnerConditions(free, SvdNullSpace(nf, defect));
+        AssertCofactorsEqual(Bordered(nf, bf), free.Cofactor, 1e-9, "Q scale-free");
     }
 }

@@ -9,7 +9,8 @@ namespace NetAdjust.Tests.Adjustment.Datum;
 /// The sequence "minimally constrained, then constrained" on simulated networks with five held control points.
 /// The test of the added constraints is checked against its closed form in the linear model: the increase of
 /// vᵀPv equals dᵀ Q_dd⁺ d for the control discrepancies d and their cofactor Q_dd in the minimally-constrained
-/// datum (Koch 1999, §4.3, test of linear hypotheses; Caspary 1987, ch. 4; sections from memory), computed with MathNet's singular value decomposition.
+/// datum (Koch 1999, §4.3, test of linear hypotheses; Caspary 1987, ch. 4; sections from memory), computed with
+/// MathNet's singular value decomposition.
 /// </summary>
 public class SequenceTests
 {
