@@ -2,7 +2,7 @@ using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
 
-namespace NetAdjust.IO.Tests.Review;
+namespace NetAdjust.IO.Tests.Results;
 
 /// <summary>Regression tests for the text report found in review.</summary>
 public class ReportFormatTests

@@ -1,4 +1,4 @@
-namespace NetAdjust.Cli.Tests.Review;
+namespace NetAdjust.Cli.Tests.Commands;
 
 /// <summary>Review regression: a non-numeric --snoop-limit is a usage error with a plain message (docs/cli.md).</summary>
 public class OptionValueTests

@@ -1,4 +1,4 @@
-namespace NetAdjust.Cli.Tests.Review;
+namespace NetAdjust.Cli.Tests.Commands;
 
 /// <summary>Regression tests for the blunder-hunt section of the text report, found in review.</summary>
 public class BlunderHuntReportTests

@@ -1,6 +1,6 @@
 using System.Diagnostics;
 
-namespace NetAdjust.IO.Tests.Browser;
+namespace NetAdjust.IO.Tests.Results;
 
 /// <summary>
 /// Runs Debian's headless Chromium (installed by .ci/install-system-packages) as a separate process:

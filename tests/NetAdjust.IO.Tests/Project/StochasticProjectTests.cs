@@ -11,7 +11,7 @@ using NetAdjust.Network;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
-namespace NetAdjust.IO.Tests.Stochastic;
+namespace NetAdjust.IO.Tests.Project;
 
 public class StochasticProjectTests
 {

@@ -1,7 +1,7 @@
 using System.Buffers.Binary;
 using System.IO.Compression;
 
-namespace NetAdjust.IO.Tests.Browser;
+namespace NetAdjust.IO.Tests.Results;
 
 /// <summary>
 /// A minimal PNG decoder for test screenshots: 8-bit RGB or RGBA, not interlaced (PNG specification,

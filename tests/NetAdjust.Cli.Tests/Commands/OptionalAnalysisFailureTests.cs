@@ -1,4 +1,4 @@
-namespace NetAdjust.Cli.Tests.Review;
+namespace NetAdjust.Cli.Tests.Commands;
 
 /// <summary>Regression test: a failed optional analysis is named as such, not as a failure of the adjustment.</summary>
 public sealed class OptionalAnalysisFailureTests : IDisposable

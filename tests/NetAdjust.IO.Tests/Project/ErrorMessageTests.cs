@@ -1,6 +1,6 @@
 using NetAdjust.IO.Project;
 
-namespace NetAdjust.IO.Tests.Review;
+namespace NetAdjust.IO.Tests.Project;
 
 /// <summary>Regression tests for error messages of the project reader found in review.</summary>
 public class ErrorMessageTests

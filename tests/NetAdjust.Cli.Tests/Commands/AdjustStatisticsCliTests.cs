@@ -1,7 +1,7 @@
 using System.Text.Json;
 using NetAdjust.Cli;
 
-namespace NetAdjust.Cli.Tests.Statistics;
+namespace NetAdjust.Cli.Tests.Commands;
 
 public class AdjustStatisticsCliTests
 {

@@ -1,4 +1,4 @@
-namespace NetAdjust.Cli.Tests.Review;
+namespace NetAdjust.Cli.Tests.Commands;
 
 /// <summary>Regression tests: a run that fails to write one output replaces none of them (docs/cli.md).</summary>
 public sealed class OutputAtomicityTests : IDisposable

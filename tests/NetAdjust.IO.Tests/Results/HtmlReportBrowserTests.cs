@@ -1,8 +1,7 @@
 using System.Text.RegularExpressions;
 using NetAdjust.IO.Results;
-using NetAdjust.IO.Tests.Results;
 
-namespace NetAdjust.IO.Tests.Browser;
+namespace NetAdjust.IO.Tests.Results;
 
 /// <summary>The HTML report and the SVG plot opened in real headless Chromium.</summary>
 public sealed class HtmlReportBrowserTests : IDisposable

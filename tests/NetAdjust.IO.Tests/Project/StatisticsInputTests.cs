@@ -2,7 +2,7 @@ using NetAdjust.IO.Project;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
 
-namespace NetAdjust.IO.Tests.Statistics;
+namespace NetAdjust.IO.Tests.Project;
 
 public class StatisticsInputTests
 {
