@@ -5,14 +5,6 @@ namespace NetAdjust.Cli.Tests;
 
 public class BudgetCommandTests
 {
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter { NewLine = "\n" };
-        var e = new StringWriter { NewLine = "\n" };
-        int code = Program.Run(args, new CliConsole(o, e));
-        return (code, o.ToString(), e.ToString());
-    }
-
     private static string TotalLine(string output) => output.Split('\n').Single(l => l.TrimStart().StartsWith("total", StringComparison.Ordinal));
 
     [Theory]
@@ -22,19 +14,19 @@ public class BudgetCommandTests
     [InlineData("3", "both", "4.08")]
     [InlineData("4", "both", "3.54")]
     [InlineData("1", "one", "10.00")]
-    public void Angle_budget_prints_the_expected_total(string sets, string faces, string total)
+    public void AngleBudgetPrintsTheExpectedTotal(string sets, string faces, string total)
     {
-        var (code, output, err) = Run("budget", "angle", "--direction-sd", "5", "--sets", sets, "--faces", faces);
+        var (code, output, err) = CliHarness.Run("budget", "angle", "--direction-sd", "5", "--sets", sets, "--faces", faces);
         Assert.Equal(0, code);
         Assert.Equal("", err);
         Assert.Contains($" {total} arcsec", TotalLine(output));
     }
 
     [Fact]
-    public void Distance_budget_matches_the_hand_computation()
+    public void DistanceBudgetMatchesTheHandComputation()
     {
         // Own scenario: 412.5 m, 3 mm + 2 ppm, centering 0.8 mm and 1.5 mm: √(9 + 0.680625 + 0.64 + 2.25) mm = 3.5455 mm.
-        var (code, output, _) = Run("budget", "distance", "--length", "412.5", "--edm", "3 mm + 2 ppm",
+        var (code, output, _) = CliHarness.Run("budget", "distance", "--length", "412.5", "--edm", "3 mm + 2 ppm",
             "--instrument-centering", "0.8 mm", "--target-centering", "1.5mm");
         Assert.Equal(0, code);
         Assert.Contains(" 0.00355 m", TotalLine(output));
@@ -43,10 +35,10 @@ public class BudgetCommandTests
     }
 
     [Fact]
-    public void Json_output_and_feet()
+    public void JsonOutputAndFeet()
     {
         // 1000 ft, 0.01 ft + 5 ppm: b·D = 0.005 ft; σ = √(0.01² + 0.005²) ft = 0.0111803 ft.
-        var (code, output, _) = Run("budget", "distance", "--length", "1000", "--edm", "0.01 + 5 ppm", "--units", "ft", "--json");
+        var (code, output, _) = CliHarness.Run("budget", "distance", "--length", "1000", "--edm", "0.01 + 5 ppm", "--units", "ft", "--json");
         Assert.Equal(0, code);
         using var doc = JsonDocument.Parse(output);
         Assert.Equal("ft", doc.RootElement.GetProperty("unit").GetString());
@@ -55,19 +47,19 @@ public class BudgetCommandTests
     }
 
     [Fact]
-    public void Level_line_budget_grows_with_the_square_root_of_the_readings()
+    public void LevelLineBudgetGrowsWithTheSquareRootOfTheReadings()
     {
         // Own level line: 0.5 mm per reading; 9 setups (18 readings) vs 36 setups (72 readings): σ doubles.
         static double Sd(string setups)
         {
-            var (code, output, _) = Run("budget", "level", "--reading-sd", "0.5 mm", "--setups", setups, "--json");
+            var (code, output, _) = CliHarness.Run("budget", "level", "--reading-sd", "0.5 mm", "--setups", setups, "--json");
             Assert.Equal(0, code);
             using var doc = JsonDocument.Parse(output);
             return doc.RootElement.GetProperty("sd").GetDouble();
         }
         Assert.Equal(0.0005 * Math.Sqrt(18), Sd("9"), 15);
         Assert.Equal(2.0, Sd("36") / Sd("9"), 12);
-        var (c2, perKm, _) = Run("budget", "level", "--per-km", "1 mm", "--length", "4 km");
+        var (c2, perKm, _) = CliHarness.Run("budget", "level", "--per-km", "1 mm", "--length", "4 km");
         Assert.Equal(0, c2);
         Assert.Contains(" 0.00200 m", TotalLine(perKm)); // ISO 17123-2: 1 mm × √4
     }
@@ -77,9 +69,9 @@ public class BudgetCommandTests
     [InlineData("direction")]
     [InlineData("angle")]
     [InlineData("level")]
-    public void Help_is_available_for_every_budget_kind(string kind)
+    public void HelpIsAvailableForEveryBudgetKind(string kind)
     {
-        var (code, output, _) = Run("budget", kind, "--help");
+        var (code, output, _) = CliHarness.Run("budget", kind, "--help");
         Assert.Equal(0, code);
         Assert.Contains("--units", output);
     }
@@ -91,9 +83,9 @@ public class BudgetCommandTests
     [InlineData(new[] { "budget", "level", "--per-km", "-1 mm", "--length", "2 km" }, "--per-km must be positive")]
     [InlineData(new[] { "budget", "angle", "--direction-sd", "5", "--sets", "two" }, "--sets 'two' must be a whole number")]
     [InlineData(new[] { "budget", "direction", "--direction-sd", "5", "--instrument-centering", "1 mm" }, "--length is needed")]
-    public void Bad_specifications_give_a_clear_error_and_exit_code_2(string[] args, string message)
+    public void BadSpecificationsGiveAClearErrorAndExitCode2(string[] args, string message)
     {
-        var (code, output, err) = Run(args);
+        var (code, output, err) = CliHarness.Run(args);
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Equal("", output);
         Assert.Contains(message, err);
@@ -104,16 +96,14 @@ public class AdjustBudgetReportTests
 {
     private static string Demo()
     {
-        return Path.Combine(CliTests.RepoRoot(), "data", "brackenmoor.yaml");
+        return CliHarness.DataFile("brackenmoor.yaml");
     }
 
     [Fact]
-    public void Demo_report_shows_the_budget_summary_and_on_request_each_observation()
+    public void DemoReportShowsTheBudgetSummaryAndOnRequestEachObservation()
     {
-        var o = new StringWriter { NewLine = "\n" };
-        int code = Program.Run(["adjust", Demo(), "--date", "2026-12-01", "--budgets"], new CliConsole(o, new StringWriter()));
+        var (code, text, _) = CliHarness.Run("adjust", Demo(), "--date", "2026-12-01", "--budgets");
         Assert.Equal(0, code);
-        string text = o.ToString();
         Assert.Contains("ERROR BUDGETS", text);
         Assert.Contains("ERROR BUDGET PER OBSERVATION", text);
         // Distance 4 of the demo (BK01→S1, 189.9390 m): 2 mm + 2 ppm, 1 mm + 1 mm centering:
@@ -122,9 +112,8 @@ public class AdjustBudgetReportTests
         var budgetPart = text[text.IndexOf("ERROR BUDGETS", StringComparison.Ordinal)..text.IndexOf("CAUTION", StringComparison.Ordinal)];
         Assert.All(budgetPart.Split('\n'), l => Assert.True(l.Length <= 100, l));
 
-        var plain = new StringWriter { NewLine = "\n" };
-        Program.Run(["adjust", Demo(), "--date", "2026-12-01"], new CliConsole(plain, new StringWriter()));
-        Assert.Contains("ERROR BUDGETS", plain.ToString());
-        Assert.DoesNotContain("ERROR BUDGET PER OBSERVATION", plain.ToString());
+        var plain = CliHarness.Run("adjust", Demo(), "--date", "2026-12-01").Out;
+        Assert.Contains("ERROR BUDGETS", plain);
+        Assert.DoesNotContain("ERROR BUDGET PER OBSERVATION", plain);
     }
 }

@@ -15,7 +15,7 @@ public class OptionGrammarCliTests
     [InlineData("--angle-units", "cc")]
     public void Budget_options_give_the_grammar_message(string option, string word)
     {
-        var (code, _, stderr) = CliTests.Run("budget", "direction", "--direction-sd", "1", option, word);
+        var (code, _, stderr) = CliHarness.Run("budget", "direction", "--direction-sd", "1", option, word);
         Assert.Equal(ExitCodes.InvalidInput, code);
         var grammar = option switch
         {
@@ -29,11 +29,11 @@ public class OptionGrammarCliTests
     [Fact]
     public void Rounding_and_simulate_kind_give_the_grammar_message()
     {
-        var (code, _, stderr) = CliTests.Run(
+        var (code, _, stderr) = CliHarness.Run(
             "budget", "level", "--reading-sd", "0.3 mm", "--setups", "4", "--rounding", "gauss");
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("--rounding: " + OptionGrammars.Rounding.Parse("gauss").Error, stderr);
-        (code, _, stderr) = CliTests.Run("simulate", "--points", "10", "--kind", "cube", "--out", "unused.yaml");
+        (code, _, stderr) = CliHarness.Run("simulate", "--points", "10", "--kind", "cube", "--out", "unused.yaml");
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("--kind: 'cube' is not a kind of synthetic network: use plane", stderr);
     }
@@ -45,7 +45,7 @@ public class OptionGrammarCliTests
                             "  - {id: B, e: 100, n: 0}\nsetups:\n  - at: A\n    instrument: TS\n    faces: two\n" +
                             "    directions:\n      - {to: B, value: 0-00-00}\n";
         var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(head, "p.yaml", ".", _ => ""));
-        var (_, _, stderr) = CliTests.Run("budget", "direction", "--direction-sd", "1", "--faces", "two");
+        var (_, _, stderr) = CliHarness.Run("budget", "direction", "--direction-sd", "1", "--faces", "two");
         string message = OptionGrammars.Faces.Parse("two").Error!;
         Assert.Contains("faces: " + message, e.Message);
         Assert.Contains("--faces: " + message, stderr);

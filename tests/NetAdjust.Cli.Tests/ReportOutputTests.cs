@@ -9,9 +9,8 @@ public sealed class ReportOutputTests : IDisposable
 
     public ReportOutputTests()
     {
-        string data = Path.Combine(CliTests.RepoRoot(), "data");
-        File.Copy(Path.Combine(data, "brackenmoor.yaml"), Path.Combine(_dir, "brackenmoor.yaml"));
-        File.Copy(Path.Combine(data, "brackenmoor-levels.csv"), Path.Combine(_dir, "brackenmoor-levels.csv"));
+        File.Copy(CliHarness.DataFile("brackenmoor.yaml"), Path.Combine(_dir, "brackenmoor.yaml"));
+        File.Copy(CliHarness.DataFile("brackenmoor-levels.csv"), Path.Combine(_dir, "brackenmoor-levels.csv"));
     }
 
     public void Dispose()
@@ -21,38 +20,26 @@ public sealed class ReportOutputTests : IDisposable
 
     private string P(string name) => Path.Combine(_dir, name);
 
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter { NewLine = "\n" };
-        var e = new StringWriter { NewLine = "\n" };
-        int code = Program.Run(args, new CliConsole(o, e));
-        return (code, o.ToString(), e.ToString());
-    }
-
     private static readonly string[] Kinds = ["report", "json", "html", "svg", "csv", "landxml", "geojson"];
 
-    private (int Code, string Out, string Err) RunAll(string sub, string date)
+    private CliRun RunAll(string sub, string date)
     {
         Directory.CreateDirectory(P(sub));
         var args = new List<string> { "adjust", P("brackenmoor.yaml"), "--date", date };
         foreach (var k in Kinds) { args.Add("--" + k); args.Add(P(Path.Combine(sub, "out." + k))); }
-        return Run([.. args]);
+        return CliHarness.Run([.. args]);
     }
 
     [Fact]
-    public void WritesEveryOutputAndTheSameInputGivesByteIdenticalFiles()
+    public void WritesEveryOutputAndLeavesNoTemporaryFile()
     {
-        var a = RunAll("a", "2026-12-01");
-        var b = RunAll("b", "2026-12-01");
-        Assert.Equal(ExitCodes.Success, a.Code);
-        Assert.Equal(ExitCodes.Success, b.Code);
-        foreach (var k in Kinds)
-        {
-            byte[] x = File.ReadAllBytes(P($"a/out.{k}")), y = File.ReadAllBytes(P($"b/out.{k}"));
-            Assert.True(x.Length > 200, $"{k} output is too short");
-            Assert.True(x.AsSpan().SequenceEqual(y), $"{k} output differs between two runs on the same input");
-        }
-        Assert.Empty(Directory.GetFiles(P("a"), "*.tmp", SearchOption.AllDirectories).Concat(Directory.GetFiles(P("a"), ".*")));
+        // Byte-for-byte determinism is checked against committed golden files from a separate process
+        // (GoldenOutputTests); here: every output is written and nothing else is left behind.
+        Assert.Equal(ExitCodes.Success, RunAll("a", "2026-12-01").Code);
+        foreach (var k in Kinds) Assert.True(new FileInfo(P($"a/out.{k}")).Length > 200, $"{k} output is too short");
+        Assert.Equal(Kinds.Select(k => "out." + k).Order(StringComparer.Ordinal),
+            Directory.GetFiles(P("a"), "*", SearchOption.AllDirectories).Select(Path.GetFileName)
+                .Order(StringComparer.Ordinal));
     }
 
     [Fact]
@@ -73,7 +60,7 @@ public sealed class ReportOutputTests : IDisposable
     public void UnwritableOutputPathGivesExitCode4AClearMessageAndNoFile()
     {
         string target = P("no-such-folder/sub/report.html");
-        var r = Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--html", target);
+        var r = CliHarness.Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--html", target);
         Assert.Equal(ExitCodes.OutputFailed, r.Code);
         Assert.Contains("no-such-folder/sub/report.html", r.Err);
         Assert.Contains("cannot write", r.Err);
@@ -86,7 +73,7 @@ public sealed class ReportOutputTests : IDisposable
     {
         Directory.CreateDirectory(P("taken"));
         var before = Directory.GetFileSystemEntries(_dir).Order().ToArray();
-        var r = Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--csv", P("taken"));
+        var r = CliHarness.Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--csv", P("taken"));
         Assert.Equal(ExitCodes.OutputFailed, r.Code);
         Assert.Contains("taken", r.Err);
         Assert.Equal(before, Directory.GetFileSystemEntries(_dir).Order().ToArray()); // no partial or temporary file
@@ -101,7 +88,7 @@ public sealed class ReportOutputTests : IDisposable
     {
         File.WriteAllText(P("old.csv"), "OLD");
         string yaml = File.ReadAllText(P("brackenmoor.yaml")), levels = File.ReadAllText(P("brackenmoor-levels.csv"));
-        var r = Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--csv", P("old.csv"), option, P(input));
+        var r = CliHarness.Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--csv", P("old.csv"), option, P(input));
         Assert.Equal(ExitCodes.OutputFailed, r.Code);
         Assert.Contains("refusing to overwrite an input file", r.Err);
         Assert.Equal(yaml, File.ReadAllText(P("brackenmoor.yaml")));

@@ -161,17 +161,6 @@ public class TextReportTests
         // The held point A,1 at 1000 ft (304.8 m) is printed in feet.
         Assert.Matches(@"\n  A,1 +1000\.0000 +1000\.0000 ", t);
     }
-
-    [Fact]
-    public void IsDeterministic()
-    {
-        var (r, c) = TestProjects.Demo();
-        Assert.Equal(TextReportWriter.Write(r, c), TextReportWriter.Write(r, c));
-        Assert.Equal(CoordinateCsvWriter.Write(r, c), CoordinateCsvWriter.Write(r, c));
-        Assert.Equal(JsonResultWriter.Write(r, c), JsonResultWriter.Write(r, c));
-        Assert.Equal(GeoJsonWriter.Write(r, c), GeoJsonWriter.Write(r, c));
-        Assert.Equal(LandXmlWriter.Write(r, c), LandXmlWriter.Write(r, c));
-    }
 }
 
 public class CrsKeyTests

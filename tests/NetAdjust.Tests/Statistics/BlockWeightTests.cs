@@ -14,7 +14,7 @@ public class BlockWeightTests
         // The directions of each set are given a correlated covariance block (as a common centering error makes them).
         // A linear least-squares step at the solution's linearisation point with that P gives v; the analysis must
         // then match the dense formulas rᵢ = (Qvv P)ᵢᵢ and wᵢ = (P v)ᵢ / √(P Qvv P)ᵢᵢ computed with MathNet
-        // (Baarda 1968; Koch 1999 §3.2), and Σ rᵢ = r.
+        // (Baarda 1968; Koch 1999 §3.2, section from memory), and Σ rᵢ = r.
         var (net, _) = BracedNetworks.Horizontal(61, 3);
         var baseResult = Adjuster.Adjust(net);
         var rows = baseResult.DesignRows;

@@ -94,7 +94,8 @@ public class RelativeHeightTests
             int a = res.Unknowns.IndexOf(rh.From, Parameter.H), b = res.Unknowns.IndexOf(rh.To, Parameter.H);
             double C(int i, int j) => i < 0 || j < 0 ? 0 : Qxx[i, j];
             Assert.Equal(Math.Sqrt(C(a, a) + C(b, b) - (2 * C(a, b))), rh.SdDifference, 12);
-            Assert.Equal(1.959964 * rh.SdDifference, rh.Confidence, 6); // REFERENCES.md §5: z(0.975) = 1.959964
+            // z(0.975) = 1.959964, computed (docs/references.md §5).
+            Assert.Equal(1.959964 * rh.SdDifference, rh.Confidence, 6);
         }
     }
 }

@@ -2,7 +2,7 @@ using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Statistics;
 
-/// <summary>Review regression: ellipse azimuths stay in [0°, 180°) after rounding (GLOSSARY convention).</summary>
+/// <summary>Regression: ellipse azimuths stay in [0°, 180°) after rounding (convention of docs/glossary.md).</summary>
 public class EllipseAzimuthRoundingTests
 {
     [Theory]

@@ -42,16 +42,32 @@ public class ErrorEllipseTests
     [InlineData(2.0, 2.0, -1.0, 135.0)] // negative → south-east / north-west
     public void AzimuthIsClockwiseFromNorth(double ce, double cn, double cen, double azDeg)
     {
-        // Convention of GLOSSARY.md: azimuth of the semi-major axis clockwise from north in [0°, 180°) (common practice).
+        // Convention of docs/glossary.md: azimuth of the semi-major axis clockwise from north in [0°, 180°)
+        // (common practice).
         Assert.Equal(azDeg, ErrorEllipse.FromCovariance(ce, cn, cen).AzimuthDegrees, 9);
     }
 
     [Fact]
-    public void SdAlongTheAxesEqualsTheSemiAxes()
+    public void SdAlongADirectionIsTheQuadraticFormOfTheCovariance()
     {
-        var e = ErrorEllipse.FromCovariance(3e-6, 1e-6, 0.8e-6);
-        Assert.Equal(e.A, e.SdAlong(e.Azimuth), 12);
-        Assert.Equal(e.B, e.SdAlong(e.Azimuth + (Math.PI / 2)), 12);
+        // σ along the unit vector u = (sin α, cos α) (E, N) is √(uᵀ C u) (propagation of variances; Mikhail &
+        // Ackermann 1976), computed here from the covariance itself with MathNet, not from the ellipse's own axes.
+        // Along the major axis this is A, across it B.
+        double ce = 3e-6, cn = 1e-6, cen = 0.8e-6;
+        var c = Matrix<double>.Build.DenseOfArray(new[,] { { ce, cen }, { cen, cn } });
+        var e = ErrorEllipse.FromCovariance(ce, cn, cen);
+        double Quadratic(double azimuth)
+        {
+            var u = Vector<double>.Build.DenseOfArray([Math.Sin(azimuth), Math.Cos(azimuth)]);
+            return Math.Sqrt(u * c * u);
+        }
+        for (int deg = 0; deg < 360; deg += 15)
+        {
+            double az = deg * Math.PI / 180;
+            Assert.Equal(Quadratic(az), e.SdAlong(az), 15);
+        }
+        Assert.Equal(Quadratic(e.Azimuth), e.A, 15);
+        Assert.Equal(Quadratic(e.Azimuth + (Math.PI / 2)), e.B, 15);
         Assert.Equal(2.4477 * e.A, e.Scaled(2.4477).A, 15);
     }
 }

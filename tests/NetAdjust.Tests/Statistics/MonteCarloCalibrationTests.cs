@@ -9,7 +9,8 @@ namespace NetAdjust.Tests.Statistics;
 /// <summary>
 /// Monte Carlo calibration: observations simulated from a known truth with N(0, σ²) noise (fixed seeds). When the
 /// model is right, σ̂0² has mean 1 (variance 2/r), each wᵢ is N(0, 1), the global test rejects with probability α,
-/// and the adjusted coordinates scatter with the reported covariance σ0² Qxx (Koch 1999 §3.2, §4; Baarda 1968).
+/// and the adjusted coordinates scatter with the reported covariance σ0² Qxx (Koch 1999 §3.2, §4, sections from
+/// memory; Baarda 1968).
 /// Tolerances are 4.5 standard errors of each sampling statistic, derived beside each check.
 /// </summary>
 public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper output)
@@ -90,7 +91,7 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
 
         // 95% confidence ellipses contain the true point in 95% of realisations, both with the χ² scale 2.4477 and
         // σ0² (variance factor known) and with the F scale √(2F(0.95; 2, r)) and σ̂0² (estimated; exact for a linear
-        // model): Hoover 1984; REFERENCES.md §5. Binomial sd √(0.95·0.05/N).
+        // model): Hoover 1984; docs/references.md §5. Binomial sd √(0.95·0.05/N).
         double cover = 4.5 * Math.Sqrt(0.95 * 0.05 / n);
         for (int f = 0; f < free.Length; f++)
         {

@@ -18,8 +18,8 @@ public class ObservationTestsTests
     [Fact]
     public void RedundancyNumbersSumToTheDegreesOfFreedomOnRandomNetworks()
     {
-        // Σ rᵢ = tr(Qvv P) = n − u (Baarda 1968; Teunissen 2000, Adjustment theory) and 0 ≤ rᵢ ≤ 1: property over
-        // random horizontal and level networks.
+        // Σ rᵢ = tr(Qvv P) = n − u (Baarda 1968; Teunissen 2000, Adjustment theory, from memory) and 0 ≤ rᵢ ≤ 1:
+        // property over random horizontal and level networks.
         var gen = from seed in Gen.Choose(1, 1_000_000)
                   from free in Gen.Choose(1, 4)
                   from p in Gen.Choose(0, 100)
@@ -41,7 +41,7 @@ public class ObservationTestsTests
     public void RedundancyAndWAgreeWithAnIndependentDenseComputation()
     {
         // Independent route: dense A and P, Qxx by MathNet's inverse of AᵀPA, Qvv = P⁻¹ − A Qxx Aᵀ (Gauss-Markov model,
-        // Koch 1999 §3.2), rᵢ = (Qvv P)ᵢᵢ, wᵢ = vᵢ / (σ0 √Qvv,ii) (Baarda 1968).
+        // Koch 1999 §3.2, section from memory), rᵢ = (Qvv P)ᵢᵢ, wᵢ = vᵢ / (σ0 √Qvv,ii) (Baarda 1968).
         var (net, _) = BracedNetworks.Horizontal(17, 3);
         var res = Adjuster.Adjust(net, Opt());
         int m = res.DesignRows.Count, u = res.Unknowns.Count;

@@ -36,8 +36,8 @@ public class VarianceComponentWeakNoteTests
         var m = Regex.Match(g.Note!, @"roughly ([0-9.E+\-]+) to ([0-9.E+\-]+)\)");
         Assert.True(m.Success, g.Note);
         double lo = double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), hi = double.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture);
-        // NIST/SEMATECH e-Handbook, table of χ² critical values (REFERENCES.md §2): χ²(0.975; 1) = 5.0239,
-        // χ²(0.025; 1) = 0.000982. The note prints three significant digits.
+        // χ²(0.975; 1) = 5.0239 (NIST/SEMATECH e-Handbook, table of χ² critical values, seen in a reproduction) and
+        // χ²(0.025; 1) = 0.000982 (computed); docs/references.md §2. The note prints three significant digits.
         Assert.InRange(lo / (g.VarianceFactor / 5.0239), 0.995, 1.005);
         Assert.InRange(hi / (g.VarianceFactor / 0.000982), 0.995, 1.005);
     }

@@ -21,17 +21,18 @@ public class BudgetBuilderTests
     [InlineData(3, "both", 4.1)]
     [InlineData(4, "both", 3.5)]
     [InlineData(1, "one", 10.0)]
-    public void Five_second_instrument_angle_rules_of_thumb(int sets, string faces, double expectedArcsec)
+    public void FiveSecondInstrumentAngleRulesOfThumb(int sets, string faces, double expectedArcsec)
     {
         var proc = new ObservingProcedure(sets, faces == "both" ? Faces.Both : Faces.One);
         var b = AngleBudgetBuilder.Build(Station(5.0), null, null, proc, 150, 150, 1.0);
-        // Check values are printed to 0.1": compare to within half of that.
+        // The expected values are the rule √2·5″/√n (one face: ×√2) computed and rounded to 0.1″: compare within
+        // half of that.
         Assert.Equal(expectedArcsec, Arcsec(b.Total), 0.05);
         Assert.Equal(expectedArcsec, Arcsec(b.ValueOf(ContributionNames.PointingReading)), 0.05);
     }
 
     [Fact]
-    public void Direction_sets_and_faces()
+    public void DirectionSetsAndFaces()
     {
         // ISO 17123-3 σ is for one direction in both faces: n sets → σ/√n; one face → σ√2/√n (common practice).
         Assert.Equal(5.0, Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians, ObservingProcedure.Default)), 12);
@@ -40,7 +41,7 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Hand_computed_distance_budget()
+    public void HandComputedDistanceBudget()
     {
         // Own scenario: D = 412.5 m, EDM 3 mm + 2 ppm, instrument centering 0.8 mm, target centering 1.5 mm.
         //   edm_constant          a   = 3 mm                       a²   = 9            mm²
@@ -59,7 +60,7 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Angle_instrument_centering_matches_the_general_law_on_the_geometry()
+    public void AngleInstrumentCenteringMatchesTheGeneralLawOnTheGeometry()
     {
         // Independent check of σ_i·D3/(Db·Df): move the station by e (Σe = σ_i² I) and propagate through the
         // angle's partial derivatives with respect to the station's coordinates (PlaneGeometry) and J Σe Jᵀ.
@@ -81,7 +82,7 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Direction_centering_is_sigma_over_distance()
+    public void DirectionCenteringIsSigmaOverDistance()
     {
         var b = DirectionBudgetBuilder.Build(Station(1, 0.001), new TargetSpecification("P", 0.002, 0), ObservingProcedure.Default, 200);
         Assert.Equal(0.001 / 200, b.ValueOf(ContributionNames.InstrumentCentering), 15);
@@ -89,7 +90,7 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Level_line_series_grows_with_the_square_root_of_the_readings()
+    public void LevelLineSeriesGrowsWithTheSquareRootOfTheReadings()
     {
         // Own level line: σ of one reading 0.4 mm, no rounding. 4 setups = 8 readings, 16 setups = 32 readings.
         // Error of a series: σ = 0.4 mm·√8 and 0.4 mm·√32, so four times the setups doubles σ; it does not quadruple.
@@ -104,9 +105,10 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Level_per_km_model()
+    public void LevelPerKmModel()
     {
-        // ISO 17123-2: σ of 1 km double-run levelling; a section of K km has σ√K (common practice; REFERENCES.md §9).
+        // ISO 17123-2: σ of 1 km double-run levelling; a section of K km has σ√K (common practice;
+        // docs/references.md §9).
         var level = LevelSpecification.PerKm("L", 0.001);
         Assert.Equal(0.001 * Math.Sqrt(0.42), HeightDifferenceBudgetBuilder.Build(level, 420, null).Total, 15);
         Assert.Equal(0.001 * Math.Sqrt(0.42) * Math.Sqrt(2), HeightDifferenceBudgetBuilder.Build(level, 420, new LevellingProcedure(1, 1)).Total, 15);
@@ -114,9 +116,10 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Rod_rounding_uniform_is_resolution_over_root_twelve()
+    public void RodRoundingUniformIsResolutionOverRootTwelve()
     {
-        // GUM JCGM 100:2008 §4.3.7 / §F.2.2.1 (REFERENCES.md §12): reading to 0.01 → σ = 0.0028868.
+        // GUM, JCGM 100:2008 §F.2.2.1 (u = δx/√12) and §4.3.7 (section number from memory): reading to 0.01 →
+        // σ = 0.01/√12 = 0.0028868 (computed; certainty in docs/references.md §12).
         Assert.Equal(0.0028868, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.Uniform).RoundingSd, 7);
         Assert.Equal(0.005, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.HalfResolution).RoundingSd, 15);
         var b = HeightDifferenceBudgetBuilder.Build(LevelSpecification.PerReading("L", 0, 0.001, RoundingTreatment.Uniform), null, new LevellingProcedure(3, 1));
@@ -130,7 +133,7 @@ public class BudgetBuilderTests
     [InlineData("2 mm", 0.002, 0)]
     [InlineData("5 ppm", 0, 5)]
     [InlineData("0.01 ft + 5 ppm", 0.003048, 5)]
-    public void Edm_specification_legal(string text, double a, double b)
+    public void EdmSpecificationLegal(string text, double a, double b)
     {
         var r = EdmSpecification.Parse(text, LengthUnit.Metre);
         Assert.True(r.Success, r.Error);
@@ -146,7 +149,7 @@ public class BudgetBuilderTests
     [InlineData("", "empty")]
     [InlineData("3 mm +", "a mm + b ppm")]
     [InlineData("3 yd + 2 ppm", "'yd'")]
-    public void Edm_specification_illegal(string text, string messagePart)
+    public void EdmSpecificationIllegal(string text, string messagePart)
     {
         var r = EdmSpecification.Parse(text, LengthUnit.Metre);
         Assert.False(r.Success);
@@ -154,7 +157,7 @@ public class BudgetBuilderTests
     }
 
     [Fact]
-    public void Negative_or_missing_specifications_are_rejected_with_clear_messages()
+    public void NegativeOrMissingSpecificationsAreRejectedWithClearMessages()
     {
         var e = Assert.Throws<InvalidInputException>(() => new TotalStationSpecification("TS1", -1e-5, 0, null, 0, 0));
         Assert.Contains("TS1", e.Message);

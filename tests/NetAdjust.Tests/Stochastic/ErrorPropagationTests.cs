@@ -5,14 +5,15 @@ namespace NetAdjust.Tests.Stochastic;
 
 public class ErrorPropagationTests
 {
-    // The three elementary rules are special cases of the general law Σy = J Σx Jᵀ (Koch 1999, §2.2;
-    // Ghilani 2017, ch. 6, from memory). Each is checked against the general law evaluated by MathNet.
+    // The three elementary rules are special cases of the general law Σy = J Σx Jᵀ (Koch 1999, §2.2, and
+    // Ghilani 2017, ch. 6: section and chapter from memory). Each is checked against the general law evaluated by
+    // MathNet.
 
     [Theory]
     [InlineData(0.0005, 1)]
     [InlineData(0.0005, 4)]
     [InlineData(1.7, 25)]
-    public void Series_equals_general_law_for_a_sum_of_n_equal_errors(double e, int n)
+    public void SeriesEqualsGeneralLawForASumOfNEqualErrors(double e, int n)
     {
         var j = Matrix<double>.Build.Dense(1, n, 1.0);                 // y = x1 + ... + xn
         var sx = Matrix<double>.Build.DiagonalIdentity(n) * (e * e);
@@ -24,7 +25,7 @@ public class ErrorPropagationTests
     [InlineData(5.0, 1)]
     [InlineData(5.0, 2)]
     [InlineData(5.0, 7)]
-    public void Mean_equals_general_law_for_an_average(double e, int n)
+    public void MeanEqualsGeneralLawForAnAverage(double e, int n)
     {
         var j = Matrix<double>.Build.Dense(1, n, 1.0 / n);             // y = (x1 + ... + xn)/n
         var sx = Matrix<double>.Build.DiagonalIdentity(n) * (e * e);
@@ -33,7 +34,7 @@ public class ErrorPropagationTests
     }
 
     [Fact]
-    public void Sum_equals_general_law_for_independent_sources()
+    public void SumEqualsGeneralLawForIndependentSources()
     {
         double[] e = [0.002, 0.0008, 0.0015, 0.0];
         var j = Matrix<double>.Build.Dense(1, e.Length, 1.0);
@@ -43,14 +44,14 @@ public class ErrorPropagationTests
     }
 
     [Fact]
-    public void Sum_neither_overflows_nor_underflows()
+    public void SumNeitherOverflowsNorUnderflows()
     {
         Assert.Equal(5e200, ErrorPropagation.Sum(3e200, 4e200), 1e188);
         Assert.Equal(5e-200, ErrorPropagation.Sum(3e-200, 4e-200), 1e-212);
     }
 
     [Fact]
-    public void Propagate_gives_the_covariance_of_a_sum_and_a_difference()
+    public void PropagateGivesTheCovarianceOfASumAndADifference()
     {
         // y1 = x1 + x2, y2 = x1 − x2 with Σx = diag(a², b²): Σy = [[a²+b², a²−b²], [a²−b², a²+b²]] (worked by hand).
         double a = 3, b = 2;
@@ -63,7 +64,7 @@ public class ErrorPropagationTests
     }
 
     [Fact]
-    public void Bad_arguments_are_rejected()
+    public void BadArgumentsAreRejected()
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => ErrorPropagation.Series(-1, 2));
         Assert.Throws<ArgumentOutOfRangeException>(() => ErrorPropagation.Series(1, 0));
@@ -73,7 +74,7 @@ public class ErrorPropagationTests
     }
 
     [Fact]
-    public void Budget_total_is_the_root_sum_square_and_names_are_checked()
+    public void BudgetTotalIsTheRootSumSquareAndNamesAreChecked()
     {
         var b = new ErrorBudget([new("a", 3), new("b", 4)]);
         Assert.Equal(5.0, b.Total, 15);

@@ -55,7 +55,7 @@ public class SetupCenteringWeightModelTests
     private static AdjustmentOptions Correlated => AdjustmentOptions.Default with { WeightModel = SetupCenteringWeightModel.Instance };
 
     [Fact]
-    public void Correlated_and_diagonal_agree_when_instrument_centering_is_zero()
+    public void CorrelatedAndDiagonalAgreeWhenInstrumentCenteringIsZero()
     {
         var net = Network(0.0, 0.001);
         var diag = Adjuster.Adjust(net);
@@ -71,7 +71,7 @@ public class SetupCenteringWeightModelTests
     }
 
     [Fact]
-    public void Correlated_option_differs_when_the_instrument_centering_is_not_zero()
+    public void CorrelatedOptionDiffersWhenTheInstrumentCenteringIsNotZero()
     {
         var net = Network(0.002, 0.001);
         var diag = Adjuster.Adjust(net);
@@ -83,7 +83,7 @@ public class SetupCenteringWeightModelTests
     }
 
     [Fact]
-    public void Weight_block_inverse_is_the_propagated_covariance_of_the_setup()
+    public void WeightBlockInverseIsThePropagatedCovarianceOfTheSetup()
     {
         // Independent check: Σ = D + J (σ_i² I) Jᵀ where J holds each observation's partial derivatives with
         // respect to the station's easting and northing (PlaneGeometry), D the other contributions squared.

@@ -3,7 +3,7 @@ using NetAdjust.Units;
 namespace NetAdjust.Tests.Units;
 
 /// <summary>
-/// Directions, azimuths and orientations are written in [0, full turn) (common practice; GLOSSARY: azimuths in
+/// Directions, azimuths and orientations are written in [0, full turn) (common practice; docs/glossary.md: azimuths in
 /// [0, 360°)). Review regression: 359-59-59.98 was printed as 360-00-00.0.
 /// </summary>
 public class FormatDirectionTests

@@ -18,7 +18,8 @@ public class LengthTests
         // Federal Register 24 FR 5348 (1959) and 85 FR 62698 (2020): 1 US survey foot = 1200/3937 m.
         Assert.Equal(1200.0 / 3937.0, LengthUnit.UsSurveyFoot.MetresPerUnit);
         Assert.Equal(1200.0 / 3937.0, Length.FromUsSurveyFeet(1).Metres); // the correctly rounded quotient, bit-exact
-        Assert.Equal(0.30480060960121924, Length.FromUsSurveyFeet(1).Metres, 1e-16); // shared REFERENCES.md §1, 17 digits
+        // 1200/3937 to 17 digits (docs/references.md §1).
+        Assert.Equal(0.30480060960121924, Length.FromUsSurveyFeet(1).Metres, 1e-16);
     }
 
     [Fact]

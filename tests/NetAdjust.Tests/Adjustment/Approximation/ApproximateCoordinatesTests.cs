@@ -195,7 +195,7 @@ public class ApproximateCoordinatesTests
     [InlineData(5, 25.0)]
     public void ApproximationsMetresOffConvergeToTheSameSolution(int seed, double offset)
     {
-        // Gauss-Newton with step halving (Hartley 1961): start values off by up to 25 m on 200 m lines.
+        // Gauss-Newton with step halving (Hartley 1961, from memory): start values off by up to 25 m on 200 m lines.
         var control = GridNetworks.TwoHeld(15, levelling: false);
         var near = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: 0).Network);
         var far = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: offset).Network, AdjustmentOptions.Default with { MaxIterations = 50 });

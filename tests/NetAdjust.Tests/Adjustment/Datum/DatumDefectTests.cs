@@ -7,7 +7,7 @@ namespace NetAdjust.Tests.Adjustment.Datum;
 /// <summary>
 /// Each kind of datum defect is found before solving and named in its own words. The defects of a plane network
 /// (translation, rotation without azimuth, scale without distance) and of a level network (height) are common
-/// practice; Koch (1999), §3.4, treats models not of full rank.
+/// practice; Koch (1999), §3.4 (section from memory), treats models not of full rank.
 /// </summary>
 public class DatumDefectTests
 {

@@ -10,7 +10,8 @@ namespace NetAdjust.Tests.Adjustment.Datum;
 /// The sequence "minimally constrained, then constrained" on simulated networks with five held control points.
 /// The test of the added constraints is checked against its closed form in the linear model: the increase of
 /// vᵀPv equals dᵀ Q_dd⁺ d for the control discrepancies d and their cofactor Q_dd in the minimally-constrained
-/// datum (Koch 1999, §4.3, test of linear hypotheses; Caspary 1987, ch. 4), computed with MathNet's singular value decomposition.
+/// datum (Koch 1999, §4.3, test of linear hypotheses; Caspary 1987, ch. 4; sections from memory), computed with
+/// MathNet's singular value decomposition.
 /// </summary>
 public class SequenceTests
 {
@@ -55,7 +56,7 @@ public class SequenceTests
         Assert.Equal(10 - 3, s.Test.AddedConstraints); // 5 points × 2 components − datum defect 3
         // (Whether single simulations pass is a matter of chance at α; the calibration test below checks the rate.)
         Assert.Equal(QuadraticForm(s), s.Test.VtpvIncrease, 1e-4 * Math.Max(1, s.Test.VtpvIncrease));
-        // χ²(0.95; 7) = 14.0671 (NIST/SEMATECH e-Handbook §1.3.6.7.4 table, upper critical values; scipy agrees).
+        // χ²(0.95; 7) = 14.0671: computed with scipy, not read in a printed table (docs/references.md §2).
         Assert.Equal(14.0671, s.Test.ChiSquareCritical!.Value, 4);
     }
 
