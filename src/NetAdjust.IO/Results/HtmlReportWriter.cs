@@ -22,11 +22,21 @@ public static class HtmlReportWriter
     /// <param name="result">The result.</param>
     /// <param name="context">Run details and units.</param>
     public static string Write(AdjustmentResult result, ReportContext context) =>
-        Write(result, context, ReportFigures.StandardisedResiduals(result));
+        Write(ResultReport.Build(result, context));
+
+    /// <summary>Renders the report of a report model.</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        return Write(report, report.W);
+    }
 
     /// <summary>Renders the report with the given standardised residuals (null: none available).</summary>
-    internal static string Write(AdjustmentResult r, ReportContext c, IReadOnlyList<double?>? w)
+    internal static string Write(ResultReport report, IReadOnlyList<double?>? w)
     {
+        var r = report.Result;
+        var c = report.Context;
         var u = new ReportUnits(c.Units);
         var s = r.Statistics;
         var g = s.GlobalTest;
@@ -87,7 +97,8 @@ public static class HtmlReportWriter
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
           .Append(NetworkPlotWriter.Render(r, c, w))
-          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append(", magnified as stated in the legend.")
+          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ")
+          .Append(report.Basis.Words).Append(", magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
           .Append("</figcaption>\n</figure>\n</section>\n");
 
@@ -103,15 +114,19 @@ public static class HtmlReportWriter
 
         // Coordinates.
         sb.Append("<section id=\"coordinates\">\n<h2>Adjusted coordinates</h2>\n<p>Lengths in ").Append(u.LengthSymbol)
-          .Append("; standard deviations at the a-priori variance factor; standard (1σ) error ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append("; azimuth of the semi-major axis from grid north.</p>\n")
+          .Append("; standard deviations at ").Append(report.Basis.Words)
+          .Append("; standard (1σ) error ellipses at ").Append(report.Basis.Words)
+          .Append("; azimuth of the semi-major axis from grid north.</p>\n")
           .Append("<table>\n<thead><tr><th>Point</th><th>Role</th><th class=\"num\">Easting</th><th class=\"num\">Northing</th><th class=\"num\">Height</th>")
           .Append("<th class=\"num\">sd E</th><th class=\"num\">sd N</th><th class=\"num\">sd H</th><th class=\"num\">a</th><th class=\"num\">b</th><th class=\"num\">Azimuth of a</th></tr></thead>\n<tbody>\n");
-        foreach (var p in r.Points)
+        foreach (var row in report.Points.Rows)
         {
-            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(r, p) : null;
-            string role = ReportFigures.HasPlan(p) ? ReportFigures.RoleText(ReportFigures.Role(p)) : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
+            var p = row.Source;
+            var el = row.Ellipse;
+            string role = row.HasPlan ? ReportFigures.RoleText(row.Role)
+                : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
             sb.Append("<tr><td class=\"id\">").Append(E(p.Id)).Append("</td><td>").Append(role).Append("</td>");
-            foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(p.SdE), u.SmallLength(p.SdN), u.SmallLength(p.SdH),
+            foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(row.SdE), u.SmallLength(row.SdN), u.SmallLength(row.SdH),
                                       u.SmallLength(el?.A), u.SmallLength(el?.B), el is ErrorEllipse e ? u.Azimuth(e.Azimuth) : "-" })
                 sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
             sb.Append("</tr>\n");
@@ -128,7 +143,7 @@ public static class HtmlReportWriter
             var i = o.Input;
             double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
             bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(r);
-            sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(i.Kind.Name().Replace('_', ' ')))
+            sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(ObservationLabels.Words(i.Kind)))
               .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
               .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
             foreach (var v in new[] { u.ObservationValue(i.Kind, i.Value), u.ObservationValue(i.Kind, o.Adjusted), u.ObservationSmall(i.Kind, o.Residual),

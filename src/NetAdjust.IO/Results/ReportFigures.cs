@@ -31,11 +31,6 @@ internal static class ReportFigures
     /// <param name="r">The result.</param>
     public static double WCritical(AdjustmentResult r) => r.Analysis.WCritical;
 
-    /// <summary>Which variance factor scales the ellipses, in words: "the a-priori variance factor" or "the estimated variance factor".</summary>
-    /// <param name="r">The result.</param>
-    public static string EllipseBasis(AdjustmentResult r) =>
-        r.Analysis.Basis == VarianceFactorBasis.Known ? "the a-priori variance factor" : "the estimated variance factor";
-
     /// <summary>True when the point is held fixed in both plan coordinates.</summary>
     /// <param name="p">The point.</param>
     public static bool IsPlanFixed(AdjustedPoint p) => p.Input.IsFixed(Network.Fixity.E) && p.Input.IsFixed(Network.Fixity.N);

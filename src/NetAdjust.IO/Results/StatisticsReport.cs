@@ -71,7 +71,7 @@ internal static class StatisticsReport
                 _ => "",
             };
             if (i.SdFactor != 1.0) flag += (flag.Length > 0 ? " " : "") + $"sd x{i.SdFactor.ToString("0.###", Inv)}";
-            Line($"  {o.Index + 1,4} {Kind(i.Kind),-9} {TextReportWriter.Clip(i.At ?? "", 6),-6} {TextReportWriter.Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {TextReportWriter.Clip(i.To, 6),-6} " +
+            Line($"  {o.Index + 1,4} {ObservationLabels.Short(i.Kind),-9} {TextReportWriter.Clip(i.At ?? "", 6),-6} {TextReportWriter.Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {TextReportWriter.Clip(i.To, 6),-6} " +
                  $"{Small(i, o.Residual, 9)} {Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2, 5)} {Num(t.W, 2, 6)} {Num(t.Tau, 2, 6)} " +
                  $"{Small(i, t.Mdb, 8)} {Len(t.ExternalReliability, 8)} {flag}");
         }
@@ -197,7 +197,7 @@ internal static class StatisticsReport
                     ? (u.Length == LengthUnit.Metre ? (ca * 1000).ToString("0.0", Inv) + " mm" : Length.FromMetres(ca).In(u.Length).ToString("0.0000", Inv) + " " + lu) + " + " + pb.ToString("0.0", Inv) + " ppm"
                     : g.ScaledSd is double sd && double.IsFinite(sd) ? (g.Kind.IsAngular() ? $"sd {(sd / radPerSd).ToString("0.00", Inv)} {au}" : $"sd {Length.FromMetres(sd).In(u.Length).ToString("0.0000", Inv)} {lu}")
                     : double.IsFinite(g.SdScale) ? $"given sd x {g.SdScale.ToString("0.000", Inv)}" : "not estimable";
-                Line($"  {Kind(g.Kind),-18} {g.Count,5} {Num(g.Redundancy, 2, 8)} {Num(g.VarianceFactor, 3, 10)} {Num(g.SdScale, 3, 9)}  {spec}");
+                Line($"  {ObservationLabels.Short(g.Kind),-18} {g.Count,5} {Num(g.Redundancy, 2, 8)} {Num(g.VarianceFactor, 3, 10)} {Num(g.SdScale, 3, 9)}  {spec}");
                 if (g.Note is not null) foreach (var part in Wrap("note: " + g.Note, 94)) Line("    " + part);
             }
             Line("  A variance factor of 1 means the group's given standard deviations fit its residuals.");
@@ -218,6 +218,4 @@ internal static class StatisticsReport
         }
         if (line.Length > 0) yield return line.ToString();
     }
-
-    private static string Kind(ObservationKind k) => k == ObservationKind.HeightDifference ? "height" : k.Name();
 }

@@ -25,8 +25,15 @@ public static class TextReportWriter
     /// <summary>Renders the report.</summary>
     /// <param name="r">The result.</param>
     /// <param name="c">Run details and units.</param>
-    public static string Write(AdjustmentResult r, ReportContext c)
+    public static string Write(AdjustmentResult r, ReportContext c) => Write(ResultReport.Build(r, c));
+
+    /// <summary>Renders the report of a report model.</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report)
     {
+        ArgumentNullException.ThrowIfNull(report);
+        var r = report.Result;
+        var c = report.Context;
         var u = c.Units;
         var len = new LengthPattern(u.Length, u.Length == LengthUnit.Metre ? 4 : 4);
         var sdLen = new LengthPattern(u.Length, 4);
@@ -65,18 +72,20 @@ public static class TextReportWriter
         }
         else
             Line("  Global test: not possible (no redundancy)");
-        TextReportSections.WorstResiduals(sb, r, 5);
+        TextReportSections.WorstResiduals(sb, report, 5);
         Line();
 
-        Line($"ADJUSTED COORDINATES ({lu}; standard deviations at the a-priori variance factor)");
+        Line($"ADJUSTED COORDINATES ({lu}; standard deviations at {report.Basis.Words})");
         Line($"  {"Point",-12} {"Easting",14} {"Northing",14} {"Height",11} {"sd E",8} {"sd N",8} {"sd H",8}  Held");
-        foreach (var p in r.Points)
+        foreach (var row in report.Points.Rows)
         {
-            string E(double? v, LengthPattern pat, int w) => v is double x ? pat.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
-            string held = JsonResultWriter.FixityText(p.Input.Fixed);
-            string weighted = (p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : "");
+            string E(double? v, LengthPattern pat, int w) =>
+                v is double x ? pat.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
+            var p = row.Source;
+            string held = row.Held, weighted = row.Weighted;
             string role = held + (weighted.Length > 0 ? (held.Length > 0 ? " " : "") + $"w:{weighted}" : "");
-            Line($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} {E(p.SdE, sdLen, 8)} {E(p.SdN, sdLen, 8)} {E(p.SdH, sdLen, 8)}  {role}".TrimEnd());
+            Line(($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} " +
+                  $"{E(row.SdE, sdLen, 8)} {E(row.SdN, sdLen, 8)} {E(row.SdH, sdLen, 8)}  {role}").TrimEnd());
         }
         Line();
 
@@ -85,10 +94,10 @@ public static class TextReportWriter
         foreach (var o in r.Observations)
         {
             var i = o.Input;
-            bool angular = i.Kind.IsAngular();
+            bool angular = ObservationLabels.IsAngular(i.Kind);
             string Val(double si) => angular ? ang.FormatDirection(Angle.FromRadians(si)) : len.Format(Length.FromMetres(si));
             string Small(double si) => angular ? F(si / radPerSdUnit, 2) : sdLen.Format(Length.FromMetres(si));
-            Line($"  {o.Index + 1,4} {ShortKind(i.Kind),-9} {Clip(i.At ?? "", 8),-8} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 8),-8} {Clip(i.To, 8),-8} " +
+            Line($"  {o.Index + 1,4} {ObservationLabels.Short(i.Kind),-9} {Clip(i.At ?? "", 8),-8} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 8),-8} {Clip(i.To, 8),-8} " +
                  $"{Val(i.Value),14} {Val(o.Adjusted),14} {Small(o.Residual),9} {Small(i.StandardDeviation),7}");
         }
         Line();
@@ -115,10 +124,4 @@ public static class TextReportWriter
     internal static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
 
     private static string AngleName(AngleFormat f) => f switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
-
-    private static string ShortKind(ObservationKind k) => k switch
-    {
-        ObservationKind.HeightDifference => "height",
-        _ => k.Name(),
-    };
 }
