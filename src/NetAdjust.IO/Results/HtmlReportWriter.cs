@@ -65,12 +65,12 @@ public static class HtmlReportWriter
         if (g.Lower is double lo && g.Upper is double hi)
             sb.Append(" — vᵀPv/σ0² = ").Append(F(g.Statistic, 3)).Append(", accepted ").Append(F(lo, 3)).Append(" to ").Append(F(hi, 3));
         sb.Append("</p>\n<table class=\"figures\">\n<tbody>\n");
-        int plan = r.Points.Count(ReportFigures.HasPlan);
+        var planRows = report.Points.Rows.Where(p => p.HasPlan).ToList();
+        int plan = planRows.Count;
         Tr(sb, "Points (with plan position / height only)", $"{r.Points.Count} ({plan} / {r.Points.Count - plan})");
         Tr(sb, "Fixed control / weighted control / new (plan)",
-            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.Fixed)} / " +
-            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.Weighted)} / " +
-            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.New)}");
+            $"{planRows.Count(p => p.Role == PointRole.Fixed)} / {planRows.Count(p => p.Role == PointRole.Weighted)} / " +
+            $"{planRows.Count(p => p.Role == PointRole.New)}");
         Tr(sb, "Observations (n)", s.Observations.ToString(Inv));
         Tr(sb, "Unknowns (u)", s.Unknowns.ToString(Inv));
         Tr(sb, "Degrees of freedom (r)", s.DegreesOfFreedom.ToString(Inv));
@@ -85,9 +85,9 @@ public static class HtmlReportWriter
         {
             sb.Append("<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
             foreach (var (o, wi) in worst)
-                sb.Append("<tr").Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
+                sb.Append("<tr").Append(Math.Abs(wi) > report.WCritical ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
                   .Append(E(o.Input.Describe())).Append("</td><td class=\"num\">").Append(F(wi, 2)).Append("</td><td>")
-                  .Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? "fails" : "passes").Append("</td></tr>\n");
+                  .Append(Math.Abs(wi) > report.WCritical ? "fails" : "passes").Append("</td></tr>\n");
             sb.Append("</tbody>\n</table>\n");
         }
         else
@@ -96,7 +96,7 @@ public static class HtmlReportWriter
 
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
-          .Append(NetworkPlotWriter.Render(r, c, w))
+          .Append(NetworkPlotWriter.Render(report, w))
           .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ")
           .Append(report.Basis.Words).Append(", magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
@@ -106,8 +106,8 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"residuals\">\n<h2>Standardised residuals</h2>\n");
         var ws = w?.Where(x => x is double d && double.IsFinite(d)).Select(x => x!.Value).ToList();
         if (ws is { Count: > 0 })
-            sb.Append("<figure>\n").Append(Histogram(ws, ReportFigures.WCritical(r))).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
-              .Append(F(ReportFigures.WCritical(r), 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
+            sb.Append("<figure>\n").Append(Histogram(ws, report.WCritical)).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
+              .Append(F(report.WCritical, 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
         else
             sb.Append("<p class=\"note\">No standardised residuals are available (no observation can be tested): the histogram is left out.</p>\n");
         sb.Append("</section>\n");
@@ -142,7 +142,7 @@ public static class HtmlReportWriter
         {
             var i = o.Input;
             double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(r);
+            bool failed = wi is double x && Math.Abs(x) > report.WCritical;
             sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(ObservationLabels.Words(i.Kind)))
               .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
               .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
@@ -153,7 +153,7 @@ public static class HtmlReportWriter
             sb.Append("<td>").Append(E(flag)).Append("</td><td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
-        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(ReportFigures.WCritical(r), 2)).Append(").</p>\n");
+        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(report.WCritical, 2)).Append(").</p>\n");
         sb.Append("</section>\n");
 
         var budgets = new StringBuilder();

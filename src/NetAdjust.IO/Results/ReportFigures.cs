@@ -27,10 +27,6 @@ internal static class ReportFigures
     public static IReadOnlyList<double?> StandardisedResiduals(AdjustmentResult r) =>
         r.Analysis.Observations.Select(t => t.Flag == ObservationFlag.Excluded ? null : t.W).ToList();
 
-    /// <summary>The critical value of the w-test, z(1 − α0/2) (Baarda 1968; 3.29 for α0 = 0.001).</summary>
-    /// <param name="r">The result.</param>
-    public static double WCritical(AdjustmentResult r) => r.Analysis.WCritical;
-
     /// <summary>True when the point is held fixed in both plan coordinates.</summary>
     /// <param name="p">The point.</param>
     public static bool IsPlanFixed(AdjustedPoint p) => p.Input.IsFixed(Network.Fixity.E) && p.Input.IsFixed(Network.Fixity.N);

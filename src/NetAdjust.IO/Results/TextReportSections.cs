@@ -42,10 +42,10 @@ internal static class TextReportSections
             sb.Append("  Largest standardised residuals: none (no observation can be tested)\n");
             return;
         }
-        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical(r), 2)).Append("):\n");
+        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(report.WCritical, 2)).Append("):\n");
         foreach (var (o, wi) in worst)
         {
-            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical(r) ? "FAILS" : "passes")}  {o.Input.Describe()}";
+            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > report.WCritical ? "FAILS" : "passes")}  {o.Input.Describe()}";
             sb.Append(TextReportWriter.Clip(line, MaxWidth)).Append('\n');
         }
     }
