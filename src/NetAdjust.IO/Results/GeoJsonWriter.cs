@@ -47,7 +47,6 @@ public static class GeoJsonWriter
         var context = report.Context;
         var unit = context.Units.Length;
         double k = 1.0 / unit.MetresPerUnit;
-        var w = report.W;
         using (var j = new Utf8JsonWriter(stream, JsonResultWriter.WriterOptions))
         {
             j.WriteStartObject();
@@ -107,14 +106,15 @@ public static class GeoJsonWriter
                 j.WriteEndObject();
             }
 
-            foreach (var o in result.Observations)
+            foreach (var row in report.Observations.Rows)
             {
+                var o = row.Source;
                 var i = o.Input;
                 string[] ids = i.Kind == ObservationKind.Angle ? [i.From, i.At!, i.To] : [i.From, i.To];
                 if (!ids.All(plan.ContainsKey)) continue;
                 bool ang = ObservationLabels.IsAngular(i.Kind);
                 double rk = ObservationLabels.JsonSmallFactor(i.Kind);
-                double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
+                double? wi = row.W;
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
                 j.WriteString("id", "observation:" + (o.Index + 1).ToString(System.Globalization.CultureInfo.InvariantCulture));
@@ -139,7 +139,7 @@ public static class GeoJsonWriter
                 j.WriteNumber("residual", Math.Round(o.Residual * rk, ang ? 3 : 6));
                 j.WriteNumber("sd", Math.Round(i.StandardDeviation * rk, ang ? 3 : 6));
                 NumOrNull(j, "w", wi is double x ? Math.Round(x, 3) : null);
-                if (wi is double x2) j.WriteBoolean("w_test_failed", Math.Abs(x2) > report.WCritical);
+                if (wi is not null) j.WriteBoolean("w_test_failed", row.FailsWTest);
                 else j.WriteNull("w_test_failed");
                 j.WriteEndObject();
                 j.WriteEndObject();

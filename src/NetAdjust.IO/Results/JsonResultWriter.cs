@@ -79,7 +79,7 @@ public static class JsonResultWriter
                 Finite(s.VarianceFactor), Finite(s.Sigma0), s.Iterations,
                 new(g.Alpha, g.Statistic, Finite(g.Lower), Finite(g.Upper), g.Passed)),
             Points = report.Points.Rows.Select(p => Point(r, p)),
-            Observations = r.Observations.Select(o => Observation(report, o)),
+            Observations = report.Observations.Rows.Select(Observation),
             Orientations = r.Orientations.Select(o =>
                 new ResultJson.Orientation(o.SetId, o.Station, Angle.FromRadians(o.Orientation).Degrees,
                     o.Sd * Angle.ArcsecondsPerRadian)),
@@ -113,8 +113,9 @@ public static class JsonResultWriter
             Finite(p.SdH), Finite(p.CovEN), ellipse, Finite(pp.HeightConfidence));
     }
 
-    private static ResultJson.Observation Observation(ResultReport report, AdjustedObservation o)
+    private static ResultJson.Observation Observation(ObservationRow row)
     {
+        var o = row.Source;
         var i = o.Input;
         double k = ObservationLabels.JsonSmallFactor(i.Kind);
         var components = new Dictionary<string, double>(StringComparer.Ordinal);
@@ -140,7 +141,7 @@ public static class JsonResultWriter
             SdFactor = i.SdFactor != 1.0 ? i.SdFactor : null,
             Redundancy = 0, W = null, Tau = null, Mdb = null, ExternalReliability = null,
             ExternalReliabilityPoint = null, BiasToNoise = null, Flag = null,
-        }, report.TestOf(o), k);
+        }, row.Test, k);
     }
 
     /// <summary>The test members of an observation or control component (MDB in JSON units via <paramref name="k"/>).</summary>

@@ -29,6 +29,12 @@ internal enum ColumnUnit
 
     /// <summary>An azimuth already in decimal degrees (rounded where the model says so).</summary>
     Degrees,
+
+    /// <summary>An observed quantity: an angle (radians) or a length (metres), by the row's observation kind.</summary>
+    ObservedValue,
+
+    /// <summary>A residual or standard deviation of an observation: small angle (radians) or length, by kind.</summary>
+    ObservedPrecision,
 }
 
 /// <summary>One typed cell: text, a number, or nothing (a value that does not exist, e.g. no easting for a benchmark).</summary>

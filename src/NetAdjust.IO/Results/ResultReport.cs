@@ -1,6 +1,5 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
-using NetAdjust.Statistics;
 using NetAdjust.Stochastic;
 
 namespace NetAdjust.IO.Results;
@@ -18,7 +17,9 @@ public sealed class ResultReport
         Context = context;
         Basis = SdBasis.Of(result);
         W = ReportFigures.StandardisedResiduals(result);
-        Points = new ReportTable<PointRow>(PointRow.Columns, result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
+        Points = new ReportTable<PointRow>(PointRow.Columns,
+            result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
+        Observations = new ReportTable<ObservationRow>(ObservationRow.Columns, ObservationRow.Of(result, W));
     }
 
     /// <summary>Builds the model.</summary>
@@ -43,14 +44,14 @@ public sealed class ResultReport
     /// <summary>The point table: coordinates, standard deviations and ellipses at <see cref="Basis"/>, roles.</summary>
     internal ReportTable<PointRow> Points { get; }
 
+    /// <summary>The observation table: observed and adjusted values, residuals, tests, in input order.</summary>
+    internal ReportTable<ObservationRow> Observations { get; }
+
     /// <summary>Standardised residuals w by observation index (null where an observation cannot be tested or is set aside).</summary>
     internal IReadOnlyList<double?> W { get; }
 
     /// <summary>The critical value of the w-test.</summary>
     internal double WCritical => Result.Analysis.WCritical;
-
-    /// <summary>The statistics of the observation with this index.</summary>
-    internal ObservationTest TestOf(AdjustedObservation o) => Result.Analysis.Observations[o.Index];
 
     /// <summary>
     /// The error budget an observation's standard deviation was built from, or null for a stated one. The one place
