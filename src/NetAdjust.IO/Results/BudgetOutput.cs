@@ -26,8 +26,7 @@ internal static class BudgetOutput
         var withBudget = r.Network.Observations.Where(o => ResultReport.BudgetOf(o) is not null).ToList();
         if (withBudget.Count == 0) return;
         var u = c.Units;
-        var sdLen = new LengthPattern(u.Length, 4);
-        double radPerUnit = u.AngleSd.RadiansPerUnit();
+        var units = new ReportUnits(u);
         void Line(string s = "") => sb.Append(s).Append('\n');
         Line($"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
         Line($"  Weights: {r.Options.WeightModel?.Description ?? "independent observations (diagonal weights)"}");
@@ -43,7 +42,7 @@ internal static class BudgetOutput
                 foreach (var ct in ResultReport.BudgetOf(o)!.Contributions)
                     if (!names.Contains(ct.Name)) names.Add(ct.Name);
             double meanVar = group.Average(o => o.StandardDeviation * o.StandardDeviation);
-            string Fmt(double si) => kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
+            string Fmt(double si) => units.ObservationSmall(kind, si);
             foreach (string name in names)
             {
                 double v = group.Average(o => Math.Pow(ResultReport.BudgetOf(o)!.ValueOf(name), 2));
@@ -58,7 +57,7 @@ internal static class BudgetOutput
         {
             var o = ao.Input;
             if (ResultReport.BudgetOf(o) is not { } budget) continue;
-            string Fmt(double si) => o.Kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
+            string Fmt(double si) => units.ObservationSmall(o.Kind, si);
             // Wrapped to the report's 100 columns: "   12 total 2.18 = name value, name value, ..."
             var line = new StringBuilder($"  {ao.Index + 1,4} total {Fmt(o.StandardDeviation)} =");
             var items = budget.Contributions.Select(x => $"{x.Name} {Fmt(x.Value)}").ToList();

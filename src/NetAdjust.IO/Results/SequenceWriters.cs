@@ -60,9 +60,9 @@ public static class SequenceReportWriter
     {
         var sb = new StringBuilder();
         void Line(string text = "") => sb.Append(text).Append('\n');
-        var len = new LengthPattern(c.Units.Length, 4);
-        string lu = c.Units.Length.Symbol;
-        string L(double? v, int w) => v is double x ? len.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
+        var units = new ReportUnits(c.Units);
+        string lu = units.LengthSymbol;
+        string L(double? v, int w) => units.Length(v).PadLeft(w);
         string W(double? v, int w) => v is double x ? x.ToString("F2", Inv).PadLeft(w) : new string(' ', w - 1) + "-";
         string F(double v, int d) => v.ToString("F" + d, Inv);
 

@@ -24,9 +24,10 @@ internal static class StatisticsReport
         var a = r.Analysis;
         string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
         double radPerSd = u.AngleSd.RadiansPerUnit();
-        string Len(double? m, int w) => m is double x && double.IsFinite(x) ? Length.FromMetres(x).In(u.Length).ToString("F4", Inv).PadLeft(w) : "-".PadLeft(w);
-        string Small(Observation o, double? si, int w) => si is not double x || !double.IsFinite(x) ? "-".PadLeft(w)
-            : o.Kind.IsAngular() ? (x / radPerSd).ToString("F2", Inv).PadLeft(w) : Len(x, w);
+        var units = new ReportUnits(u);
+        string Len(double? m, int w) => units.Length(m).PadLeft(w);
+        string Small(Observation o, double? si, int w) =>
+            (si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-").PadLeft(w);
         string Num(double? v, int d, int w) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv).PadLeft(w) : "-".PadLeft(w);
         bool gons = u.Angle == AngleFormat.Gons;
         string azUnit = gons ? "gon" : "deg";
@@ -126,7 +127,7 @@ internal static class StatisticsReport
             foreach (var rel in a.Relative)
                 Line($"  {TextReportWriter.Clip(rel.From, 8),-8} {TextReportWriter.Clip(rel.To, 8),-8} {Len(rel.Ellipse.A, 8)} {Len(rel.Ellipse.B, 8)} {Az(rel.Ellipse.Azimuth, 8)} " +
                      $"{Len(rel.Confidence.A, 8)} {Len(rel.Distance, 11)} {Len(rel.SdDistance, 8)} {(double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact"),9} " +
-                     $"{(rel.SdAzimuth / radPerSd).ToString("F2", Inv),7}{(rel.Observed ? "" : " *")}");
+                     $"{units.SmallAngle(rel.SdAzimuth),7}{(rel.Observed ? "" : " *")}");
             if (a.Relative.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
             Line();
         }
