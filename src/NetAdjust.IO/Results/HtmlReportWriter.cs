@@ -29,12 +29,7 @@ public static class HtmlReportWriter
     public static string Write(ResultReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
-        return Write(report, report.W);
-    }
-
-    /// <summary>Renders the report with the given standardised residuals (null: none available).</summary>
-    internal static string Write(ResultReport report, IReadOnlyList<double?>? w)
-    {
+        var w = report.W;
         var r = report.Result;
         var c = report.Context;
         var u = new ReportUnits(c.Units);
@@ -96,7 +91,7 @@ public static class HtmlReportWriter
 
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
-          .Append(NetworkPlotWriter.Render(report, w))
+          .Append(NetworkPlotWriter.Render(report))
           .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ")
           .Append(report.Basis.Words).Append(", magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
@@ -138,18 +133,19 @@ public static class HtmlReportWriter
           .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
           .Append("<table>\n<thead><tr><th class=\"num\">#</th><th>Kind</th><th>At</th><th>From</th><th>To</th><th class=\"num\">Observed</th><th class=\"num\">Adjusted</th>")
           .Append("<th class=\"num\">Residual</th><th class=\"num\">sd</th><th class=\"num\">w</th><th>Flag</th><th>Source</th></tr></thead>\n<tbody>\n");
-        foreach (var o in r.Observations)
+        foreach (var row in report.Observations.Rows)
         {
+            var o = row.Source;
             var i = o.Input;
-            double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > report.WCritical;
+            double? wi = row.W;
+            bool failed = row.FailsWTest;
             sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(ObservationLabels.Words(i.Kind)))
               .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
               .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
             foreach (var v in new[] { u.ObservationValue(i.Kind, i.Value), u.ObservationValue(i.Kind, o.Adjusted), u.ObservationSmall(i.Kind, o.Residual),
                                       u.ObservationSmall(i.Kind, i.StandardDeviation), wi is double wv ? F(wv, 2) + (failed ? " ✗" : "") : "-" })
                 sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
-            string flag = o.Index < r.Analysis.Observations.Count ? r.Analysis.Observations[o.Index].Flag.Name() ?? "" : "";
+            string flag = row.Test.Flag.Name() ?? "";
             sb.Append("<td>").Append(E(flag)).Append("</td><td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");

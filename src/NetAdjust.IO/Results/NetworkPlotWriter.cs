@@ -40,12 +40,13 @@ public static class NetworkPlotWriter
     public static string WriteDocument(ResultReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
-        return "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + Render(report, report.W);
+        return "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + Render(report);
     }
 
     /// <summary>Renders the plot as an <c>svg</c> element for embedding in HTML.</summary>
-    internal static string Render(ResultReport report, IReadOnlyList<double?>? w)
+    internal static string Render(ResultReport report)
     {
+        var w = report.W;
         var result = report.Result;
         var context = report.Context;
         var units = new ReportUnits(context.Units);
@@ -85,12 +86,13 @@ public static class NetworkPlotWriter
         var planIds = pts.ToDictionary(p => p.Id, StringComparer.Ordinal);
         var ok = new StringBuilder();
         var fail = new StringBuilder();
-        foreach (var o in result.Observations)
+        foreach (var row in report.Observations.Rows)
         {
+            var o = row.Source;
             var i = o.Input;
             var segs = i.Kind == ObservationKind.Angle ? new[] { (i.At!, i.From), (i.At!, i.To) } : new[] { (i.From, i.To) };
-            double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > report.WCritical;
+            double? wi = row.W;
+            bool failed = row.FailsWTest;
             foreach (var (a, b) in segs)
             {
                 if (!planIds.TryGetValue(a, out var pa) || !planIds.TryGetValue(b, out var pb)) continue;

@@ -24,10 +24,10 @@ internal sealed record ObservationRow(AdjustedObservation Source, ObservationTes
     public string FromShown => Input.Kind == ObservationKind.Direction ? "" : Input.From;
 
     /// <summary>The rows of a result, in input order.</summary>
-    public static IReadOnlyList<ObservationRow> Of(AdjustmentResult r, IReadOnlyList<double?> w) =>
+    public static IReadOnlyList<ObservationRow> Of(AdjustmentResult r, IReadOnlyList<double?>? w) =>
         r.Observations.Select(o =>
         {
-            double? wi = o.Index < w.Count ? w[o.Index] : null;
+            double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
             return new ObservationRow(o, r.Analysis.Observations[o.Index], wi,
                 wi is double x && Math.Abs(x) > r.Analysis.WCritical);
         }).ToList();

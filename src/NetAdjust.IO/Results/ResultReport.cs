@@ -11,12 +11,12 @@ namespace NetAdjust.IO.Results;
 /// </summary>
 public sealed class ResultReport
 {
-    private ResultReport(AdjustmentResult result, ReportContext context)
+    private ResultReport(AdjustmentResult result, ReportContext context, IReadOnlyList<double?>? w)
     {
         Result = result;
         Context = context;
         Basis = SdBasis.Of(result);
-        W = ReportFigures.StandardisedResiduals(result);
+        W = w;
         Points = new ReportTable<PointRow>(PointRow.Columns,
             result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
         Observations = new ReportTable<ObservationRow>(ObservationRow.Columns, ObservationRow.Of(result, W));
@@ -29,7 +29,7 @@ public sealed class ResultReport
     {
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(context);
-        return new ResultReport(result, context);
+        return new ResultReport(result, context, ReportFigures.StandardisedResiduals(result));
     }
 
     /// <summary>The result the model shows.</summary>
@@ -47,8 +47,14 @@ public sealed class ResultReport
     /// <summary>The observation table: observed and adjusted values, residuals, tests, in input order.</summary>
     internal ReportTable<ObservationRow> Observations { get; }
 
-    /// <summary>Standardised residuals w by observation index (null where an observation cannot be tested or is set aside).</summary>
-    internal IReadOnlyList<double?> W { get; }
+    /// <summary>
+    /// Standardised residuals w by observation index (null where an observation cannot be tested or is set aside);
+    /// null when the outputs are to show none.
+    /// </summary>
+    internal IReadOnlyList<double?>? W { get; }
+
+    /// <summary>The same model showing other standardised residuals (null: none), e.g. to render the no-w layout.</summary>
+    internal ResultReport WithStandardisedResiduals(IReadOnlyList<double?>? w) => new(Result, Context, w);
 
     /// <summary>The critical value of the w-test.</summary>
     internal double WCritical => Result.Analysis.WCritical;
