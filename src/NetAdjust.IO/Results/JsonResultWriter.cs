@@ -144,7 +144,8 @@ public static class JsonResultWriter
         }, row.Test, k);
     }
 
-    /// <summary>The test members of an observation or control component (MDB in JSON units via <paramref name="k"/>).</summary>
+    /// <summary>The test members of an observation or control component (MDB in JSON units by <paramref name="k"/>).
+    /// </summary>
     private static T Fill<T>(T row, ObservationTest t, double k) where T : ResultJson.Reliability => row with
     {
         Redundancy = t.Redundancy,

@@ -52,7 +52,7 @@ internal static class ResultJson
 
     internal sealed record Ellipse(double A, double B, double Azimuth, double A95, double B95);
 
-    /// <summary>The test and reliability members shared by observations and control components (written last).</summary>
+    /// <summary>Test and reliability members shared by observations and control components (written last).</summary>
     internal abstract record Reliability
     {
         [JsonPropertyOrder(1)] public required double Redundancy { get; init; }
@@ -92,12 +92,12 @@ internal static class ResultJson
         public double? SdFactor { get; init; }
     }
 
-    internal sealed record Orientation(string Set, string Station, [property: JsonPropertyName("orientation")] double Value,
-        double Sd);
+    internal sealed record Orientation(string Set, string Station,
+        [property: JsonPropertyName("orientation")] double Value, double Sd);
 
-    internal sealed record Testing(string VarianceFactorBasis, double VarianceFactorUsed, double WAlpha, double WCritical,
-        double TypeIIError, double Delta0, double TauAlpha, string TauAdjustment, double? TauCritical, double Confidence,
-        double EllipseScale, double IntervalScale, bool ExternalReliabilityComputed, double RedundancySum);
+    internal sealed record Testing(string VarianceFactorBasis, double VarianceFactorUsed, double WAlpha,
+        double WCritical, double TypeIIError, double Delta0, double TauAlpha, string TauAdjustment, double? TauCritical,
+        double Confidence, double EllipseScale, double IntervalScale, bool ExternalReliabilityComputed, double RedundancySum);
 
     internal sealed record Relative(string From, string To, double A, double B, double Azimuth, double A95, double B95,
         double Distance, double SdDistance, double? Ratio, double SdAzimuth, bool Observed);
@@ -116,8 +116,8 @@ internal static class ResultJson
     internal sealed record HuntRound(int Round, int DegreesOfFreedom, double? VarianceFactor, bool? GlobalTestPassed,
         int? WorstIndex, double? WorstStatistic, double? Critical, bool SetAside);
 
-    internal sealed record Robust(string Method, double Tuning, int Iterations, bool Converged, IEnumerable<int> Suspected,
-        IEnumerable<RobustObservation> Observations);
+    internal sealed record Robust(string Method, double Tuning, int Iterations, bool Converged,
+        IEnumerable<int> Suspected, IEnumerable<RobustObservation> Observations);
 
     internal sealed record RobustObservation(int Index, double WeightFactor, double? StandardisedResidual);
 
@@ -128,7 +128,8 @@ internal static class ResultJson
 
     /// <summary>The sequence document: both solutions, the constraint test, discrepancies and shifts.</summary>
     internal sealed record Sequence(string Format, string MinimalDatum, IEnumerable<Document> Solutions,
-        ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies, IEnumerable<Shift> CoordinateShifts);
+        ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies,
+        IEnumerable<Shift> CoordinateShifts);
 
     internal sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, TestValue ChiSquare,
         [property: JsonPropertyName("f")] TestValue FTest, string DecidedBy, bool? Passed);
@@ -141,10 +142,3 @@ internal static class ResultJson
 
     internal sealed record Shift(string Id, double? De, double? Dn, double? Dh, double? Horizontal);
 }
-
-/// <summary>Source-generated serialisation of <see cref="ResultJson"/> documents: two-space indentation, snake-case keys.</summary>
-[JsonSourceGenerationOptions(WriteIndented = true, PropertyNamingPolicy = JsonKnownNamingPolicy.SnakeCaseLower,
-    DefaultIgnoreCondition = JsonIgnoreCondition.Never)]
-[JsonSerializable(typeof(ResultJson.Document))]
-[JsonSerializable(typeof(ResultJson.Sequence))]
-internal sealed partial class ResultJsonContext : JsonSerializerContext;

@@ -38,7 +38,7 @@ public sealed class ResultReport
     /// <summary>The run details.</summary>
     public ReportContext Context { get; }
 
-    /// <summary>The one variance factor at which the point table's standard deviations and ellipses are given.</summary>
+    /// <summary>The one variance factor of the point table's standard deviations and ellipses.</summary>
     internal SdBasis Basis { get; }
 
     /// <summary>The point table: coordinates, standard deviations and ellipses at <see cref="Basis"/>, roles.</summary>
@@ -53,7 +53,7 @@ public sealed class ResultReport
     /// </summary>
     internal IReadOnlyList<double?>? W { get; }
 
-    /// <summary>The same model showing other standardised residuals (null: none), e.g. to render the no-w layout.</summary>
+    /// <summary>The same model with other standardised residuals (null: none), e.g. for the no-w layout.</summary>
     internal ResultReport WithStandardisedResiduals(IReadOnlyList<double?>? w) => new(Result, Context, w);
 
     /// <summary>The critical value of the w-test.</summary>

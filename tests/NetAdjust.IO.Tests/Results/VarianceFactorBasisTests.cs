@@ -53,7 +53,8 @@ public class VarianceFactorBasisTests
 
     private static (AdjustmentResult R, ReportContext C) Load()
     {
-        var project = ProjectReader.Parse(Project, "optimistic.yaml", "/nonexistent", _ => throw new IOException("no files"));
+        var project = ProjectReader.Parse(Project, "optimistic.yaml", "/nonexistent",
+            _ => throw new IOException("no files"));
         var r = Adjuster.Adjust(project.Network, project.Options);
         return (r, new ReportContext("optimistic.yaml", TestProjects.RunDate, project.Units));
     }
@@ -70,8 +71,8 @@ public class VarianceFactorBasisTests
     public void CoordinateCsvStandardDeviationsMatchItsEllipsesAndNameTheBasis()
     {
         var (r, c) = Load();
-        using var reader = Sep.New(',').Reader(o => o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture })
-            .FromText(CoordinateCsvWriter.Write(r, c));
+        using var reader = Sep.New(',')
+            .Reader(o => o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture }).FromText(CoordinateCsvWriter.Write(r, c));
         int checkedRows = 0;
         foreach (var rec in reader)
         {
@@ -98,7 +99,8 @@ public class VarianceFactorBasisTests
         foreach (var f in doc.RootElement.GetProperty("features").EnumerateArray())
         {
             var p = f.GetProperty("properties");
-            if (p.GetProperty("feature").GetString() != "point" || p.GetProperty("ellipse_a").ValueKind == JsonValueKind.Null) continue;
+            if (p.GetProperty("feature").GetString() != "point") continue;
+            if (p.GetProperty("ellipse_a").ValueKind == JsonValueKind.Null) continue;
             AssertTrace(p.GetProperty("sd_e").GetDouble(), p.GetProperty("sd_n").GetDouble(),
                 p.GetProperty("ellipse_a").GetDouble(), p.GetProperty("ellipse_b").GetDouble(), 1e-5);
             checkedPoints++;
@@ -129,14 +131,15 @@ public class VarianceFactorBasisTests
         var row = text.Split('\n').First(l => l.StartsWith("  C ", StringComparison.Ordinal))
             .Split(' ', StringSplitOptions.RemoveEmptyEntries);
         var el = r.Analysis.Points[r.Network.IndexOf("C")].Ellipse!.Value;
-        AssertTrace(double.Parse(row[4], CultureInfo.InvariantCulture), double.Parse(row[5], CultureInfo.InvariantCulture),
-            el.A, el.B, 1e-4);
+        double sdE = double.Parse(row[4], CultureInfo.InvariantCulture);
+        double sdN = double.Parse(row[5], CultureInfo.InvariantCulture);
+        AssertTrace(sdE, sdN, el.A, el.B, 1e-4);
         string html = HtmlReportWriter.Write(r, c);
         Assert.Contains("standard deviations at the estimated variance factor; standard (1σ) error ellipses at the " +
                         "estimated variance factor", html);
     }
 
-    /// <summary>a² + b² = sd_E² + sd_N², compared as the root of each side (lengths), to the rounding of the file.</summary>
+    /// <summary>a² + b² = sd_E² + sd_N², compared as the root of each side (lengths), to the file's rounding.</summary>
     private static void AssertTrace(double sdE, double sdN, double a, double b, double tolerance) =>
         Assert.Equal(Math.Sqrt((a * a) + (b * b)), Math.Sqrt((sdE * sdE) + (sdN * sdN)), tolerance);
 }
