@@ -20,9 +20,15 @@ public static class JsonResultWriter
     /// <summary>The format identifier written under <c>format</c>.</summary>
     public const string Format = "netadjust-result/1";
 
-    /// <summary>Options of the JSON outputs: two-space indentation, non-ASCII text written as is (UTF-8).</summary>
+    /// <summary>Options of the JSON outputs: two-space indentation, LF line ends, non-ASCII text as is (UTF-8).</summary>
     internal static readonly JsonWriterOptions WriterOptions =
-        new() { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+        new() { Indented = true, NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+
+    /// <summary>The same options for the serialiser, over the source-generated metadata of <see cref="ResultJson"/>.</summary>
+    private static readonly JsonSerializerOptions SerializerOptions = new(ResultJsonContext.Default.Options)
+    {
+        NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+    };
 
     /// <summary>Renders the result as UTF-8 JSON text.</summary>
     /// <param name="result">The result.</param>
@@ -40,14 +46,17 @@ public static class JsonResultWriter
     public static void Write(Stream stream, ResultReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
-        Serialise(stream, Document(report), ResultJsonContext.Default.Document);
+        Serialise(stream, Document(report));
     }
 
-    /// <summary>Serialises a document to a stream through one <see cref="Utf8JsonWriter"/>, then a line feed.</summary>
-    internal static void Serialise<T>(Stream stream, T document, JsonTypeInfo<T> type)
+    /// <summary>
+    /// Serialises a document to a stream, then a line feed. The serialiser works from metadata (no fast path), so it
+    /// writes in chunks of about its buffer size while it enumerates the rows: no whole document is held in memory.
+    /// </summary>
+    internal static void Serialise<T>(Stream stream, T document)
     {
         ArgumentNullException.ThrowIfNull(stream);
-        using (var w = new Utf8JsonWriter(stream, WriterOptions)) JsonSerializer.Serialize(w, document, type);
+        JsonSerializer.Serialize(stream, document, (JsonTypeInfo<T>)SerializerOptions.GetTypeInfo(typeof(T)));
         stream.WriteByte((byte)'\n');
     }
 

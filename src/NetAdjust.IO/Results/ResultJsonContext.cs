@@ -6,7 +6,7 @@ namespace NetAdjust.IO.Results;
 /// Source-generated serialisation of <see cref="ResultJson"/> documents: two-space indentation, snake-case keys.
 /// </summary>
 [JsonSourceGenerationOptions(WriteIndented = true, PropertyNamingPolicy = JsonKnownNamingPolicy.SnakeCaseLower,
-    DefaultIgnoreCondition = JsonIgnoreCondition.Never)]
+    DefaultIgnoreCondition = JsonIgnoreCondition.Never, GenerationMode = JsonSourceGenerationMode.Metadata)]
 [JsonSerializable(typeof(ResultJson.Document))]
 [JsonSerializable(typeof(ResultJson.Sequence))]
 internal sealed partial class ResultJsonContext : JsonSerializerContext;

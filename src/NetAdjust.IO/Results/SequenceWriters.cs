@@ -38,7 +38,7 @@ public static class SequenceJsonWriter
             s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
                 F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
             s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))));
-        JsonResultWriter.Serialise(stream, document, ResultJsonContext.Default.Sequence);
+        JsonResultWriter.Serialise(stream, document);
     }
 
     private static double? F(double? v) => JsonResultWriter.Finite(v);

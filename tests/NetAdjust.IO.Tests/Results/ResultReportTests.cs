@@ -73,3 +73,34 @@ public class ResultReportTests
                      "ellipse_azimuth_deg,held,weighted,variance_factor_basis", header);
     }
 }
+
+/// <summary>The JSON result reaches its stream in pieces while it is written, not as one finished buffer.</summary>
+public class JsonStreamingTests
+{
+    private sealed class CountingStream : MemoryStream
+    {
+        public int Writes { get; private set; }
+
+        public override void Write(byte[] buffer, int offset, int count)
+        {
+            Writes++;
+            base.Write(buffer, offset, count);
+        }
+
+        public override void Write(ReadOnlySpan<byte> buffer)
+        {
+            Writes++;
+            base.Write(buffer);
+        }
+    }
+
+    [Fact]
+    public void TheDemoResultIsWrittenInSeveralPieces()
+    {
+        var (r, c) = TestProjects.Demo();
+        using var stream = new CountingStream();
+        JsonResultWriter.Write(stream, ResultReport.Build(r, c));
+        Assert.True(stream.Length > 30_000); // about twice the serialiser's 16 KiB buffer
+        Assert.True(stream.Writes >= 3, $"{stream.Writes} writes");
+    }
+}
