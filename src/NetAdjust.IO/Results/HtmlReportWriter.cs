@@ -112,8 +112,9 @@ public static class HtmlReportWriter
           .Append("; standard deviations at ").Append(report.Basis.Words)
           .Append("; standard (1σ) error ellipses at ").Append(report.Basis.Words)
           .Append("; azimuth of the semi-major axis from grid north.</p>\n")
-          .Append("<table>\n<thead><tr><th>Point</th><th>Role</th><th class=\"num\">Easting</th><th class=\"num\">Northing</th><th class=\"num\">Height</th>")
-          .Append("<th class=\"num\">sd E</th><th class=\"num\">sd N</th><th class=\"num\">sd H</th><th class=\"num\">a</th><th class=\"num\">b</th><th class=\"num\">Azimuth of a</th></tr></thead>\n<tbody>\n");
+          .Append(TableHead(PointRow.Columns.Where(col => col.Key is not ("held" or "weighted"))
+              .SelectMany(col => col.Key == "id"
+                  ? new[] { (col.Header, col.Kind), ("Role", ValueKind.Text) } : [(col.Header, col.Kind)])));
         foreach (var row in report.Points.Rows)
         {
             var p = row.Source;
@@ -131,8 +132,7 @@ public static class HtmlReportWriter
         // Observations.
         sb.Append("<section id=\"observations\">\n<h2>Observations</h2>\n<p>Residual v = adjusted − observed. Lengths in ").Append(u.LengthSymbol)
           .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
-          .Append("<table>\n<thead><tr><th class=\"num\">#</th><th>Kind</th><th>At</th><th>From</th><th>To</th><th class=\"num\">Observed</th><th class=\"num\">Adjusted</th>")
-          .Append("<th class=\"num\">Residual</th><th class=\"num\">sd</th><th class=\"num\">w</th><th>Flag</th><th>Source</th></tr></thead>\n<tbody>\n");
+          .Append(TableHead(ObservationRow.Columns.Select(col => (col.Header, col.Kind))));
         foreach (var row in report.Observations.Rows)
         {
             var o = row.Source;
@@ -234,6 +234,15 @@ public static class HtmlReportWriter
         sb.Append("<text x=\"14\" y=\"").Append(N((y0 + y1) / 2)).Append("\" text-anchor=\"middle\" transform=\"rotate(-90 14 ").Append(N((y0 + y1) / 2)).Append(")\">density</text>\n");
         sb.Append("</svg>\n");
         return sb.ToString();
+    }
+
+    /// <summary>The opening of a table with its header row: numeric columns right-aligned (class <c>num</c>).</summary>
+    private static string TableHead(IEnumerable<(string Header, ValueKind Kind)> columns)
+    {
+        var sb = new StringBuilder("<table>\n<thead><tr>");
+        foreach (var (header, kind) in columns)
+            sb.Append(kind == ValueKind.Number ? "<th class=\"num\">" : "<th>").Append(E(header)).Append("</th>");
+        return sb.Append("</tr></thead>\n<tbody>\n").ToString();
     }
 
     private static void Dl(StringBuilder sb, string term, string value) =>

@@ -35,17 +35,18 @@ internal sealed record ObservationRow(AdjustedObservation Source, ObservationTes
     /// <summary>The columns of a full listing; values and precisions take their unit from each row's kind.</summary>
     public static readonly IReadOnlyList<ReportColumn<ObservationRow>> Columns =
     [
-        new("number", "#", ColumnUnit.None, r => ReportCell.Of(r.Number)),
-        new("kind", "Kind", ColumnUnit.None, r => ReportCell.Of(ObservationLabels.Words(r.Input.Kind))),
-        new("at", "At", ColumnUnit.None, r => ReportCell.Of(r.Input.At ?? "")),
-        new("from", "From", ColumnUnit.None, r => ReportCell.Of(r.FromShown)),
-        new("to", "To", ColumnUnit.None, r => ReportCell.Of(r.Input.To)),
-        new("observed", "Observed", ColumnUnit.ObservedValue, r => ReportCell.Of(r.Input.Value)),
-        new("adjusted", "Adjusted", ColumnUnit.ObservedValue, r => ReportCell.Of(r.Source.Adjusted)),
-        new("residual", "Residual", ColumnUnit.ObservedPrecision, r => ReportCell.Of(r.Source.Residual)),
-        new("sd", "sd", ColumnUnit.ObservedPrecision, r => ReportCell.Of(r.Input.StandardDeviation)),
-        new("w", "w", ColumnUnit.None, r => ReportCell.Of(r.W)),
-        new("flag", "Flag", ColumnUnit.None, r => ReportCell.Of(r.Test.Flag.Name() ?? "")),
-        new("source", "Source", ColumnUnit.None, r => ReportCell.Of(r.Input.Source ?? "")),
+        new("number", "#", ColumnUnit.None, ValueKind.Number, r => ReportCell.Of(r.Number)),
+        new("kind", "Kind", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(ObservationLabels.Words(r.Input.Kind))),
+        new("at", "At", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Input.At ?? "")),
+        new("from", "From", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.FromShown)),
+        new("to", "To", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Input.To)),
+        new("observed", "Observed", ColumnUnit.ObservedValue, ValueKind.Number, r => ReportCell.Of(r.Input.Value)),
+        new("adjusted", "Adjusted", ColumnUnit.ObservedValue, ValueKind.Number, r => ReportCell.Of(r.Source.Adjusted)),
+        new("residual", "Residual", ColumnUnit.ObservedPrecision, ValueKind.Number,
+            r => ReportCell.Of(r.Source.Residual)),
+        new("sd", "sd", ColumnUnit.ObservedPrecision, ValueKind.Number, r => ReportCell.Of(r.Input.StandardDeviation)),
+        new("w", "w", ColumnUnit.None, ValueKind.Number, r => ReportCell.Of(r.W)),
+        new("flag", "Flag", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Test.Flag.Name() ?? "")),
+        new("source", "Source", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Input.Source ?? "")),
     ];
 }
