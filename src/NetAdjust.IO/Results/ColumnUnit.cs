@@ -17,4 +17,7 @@ internal enum ColumnUnit
 
     /// <summary>A residual or standard deviation of an observation: small angle (radians) or length, by kind.</summary>
     ObservedPrecision,
+
+    /// <summary>A dimensionless test statistic (e.g. the standardised residual w).</summary>
+    Statistic,
 }

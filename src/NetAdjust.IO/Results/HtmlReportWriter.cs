@@ -135,18 +135,21 @@ public static class HtmlReportWriter
           .Append(TableHead(ObservationRow.Columns.Select(col => (col.Header, col.Kind))));
         foreach (var row in report.Observations.Rows)
         {
-            var o = row.Source;
-            var i = o.Input;
-            double? wi = row.W;
-            bool failed = row.FailsWTest;
-            sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(ObservationLabels.Words(i.Kind)))
-              .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
-              .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
-            foreach (var v in new[] { u.ObservationValue(i.Kind, i.Value), u.ObservationValue(i.Kind, o.Adjusted), u.ObservationSmall(i.Kind, o.Residual),
-                                      u.ObservationSmall(i.Kind, i.StandardDeviation), wi is double wv ? F(wv, 2) + (failed ? " ✗" : "") : "-" })
-                sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
-            string flag = row.Test.Flag.Name() ?? "";
-            sb.Append("<td>").Append(E(flag)).Append("</td><td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
+            var kind = row.Input.Kind;
+            sb.Append("<tr").Append(row.FailsWTest ? " class=\"fail\"" : "").Append('>');
+            foreach (var col in ObservationRow.Columns)
+            {
+                var cell = col.Cell(row);
+                string text = cell.Number is not double x ? cell.Text ?? "-" : col.Unit switch
+                {
+                    ColumnUnit.ObservedValue => u.ObservationValue(kind, x),
+                    ColumnUnit.ObservedPrecision => u.ObservationSmall(kind, x),
+                    ColumnUnit.Statistic => F(x, 2) + (row.FailsWTest ? " ✗" : ""),
+                    _ => F(x, 0),
+                };
+                sb.Append("<td").Append(CellClass(col.Kind)).Append('>').Append(E(text)).Append("</td>");
+            }
+            sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
         if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(report.WCritical, 2)).Append(").</p>\n");
@@ -235,6 +238,15 @@ public static class HtmlReportWriter
         sb.Append("</svg>\n");
         return sb.ToString();
     }
+
+    /// <summary>The class attribute of a body cell: numbers right-aligned, point ids bold, references small.</summary>
+    private static string CellClass(ValueKind kind) => kind switch
+    {
+        ValueKind.Number => " class=\"num\"",
+        ValueKind.PointId => " class=\"id\"",
+        ValueKind.Reference => " class=\"src\"",
+        _ => "",
+    };
 
     /// <summary>The opening of a table with its header row: numeric columns right-aligned (class <c>num</c>).</summary>
     private static string TableHead(IEnumerable<(string Header, ValueKind Kind)> columns)

@@ -37,16 +37,16 @@ internal sealed record ObservationRow(AdjustedObservation Source, ObservationTes
     [
         new("number", "#", ColumnUnit.None, ValueKind.Number, r => ReportCell.Of(r.Number)),
         new("kind", "Kind", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(ObservationLabels.Words(r.Input.Kind))),
-        new("at", "At", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Input.At ?? "")),
-        new("from", "From", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.FromShown)),
-        new("to", "To", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Input.To)),
+        new("at", "At", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.Input.At ?? "")),
+        new("from", "From", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.FromShown)),
+        new("to", "To", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.Input.To)),
         new("observed", "Observed", ColumnUnit.ObservedValue, ValueKind.Number, r => ReportCell.Of(r.Input.Value)),
         new("adjusted", "Adjusted", ColumnUnit.ObservedValue, ValueKind.Number, r => ReportCell.Of(r.Source.Adjusted)),
         new("residual", "Residual", ColumnUnit.ObservedPrecision, ValueKind.Number,
             r => ReportCell.Of(r.Source.Residual)),
         new("sd", "sd", ColumnUnit.ObservedPrecision, ValueKind.Number, r => ReportCell.Of(r.Input.StandardDeviation)),
-        new("w", "w", ColumnUnit.None, ValueKind.Number, r => ReportCell.Of(r.W)),
+        new("w", "w", ColumnUnit.Statistic, ValueKind.Number, r => ReportCell.Of(r.W)),
         new("flag", "Flag", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Test.Flag.Name() ?? "")),
-        new("source", "Source", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Input.Source ?? "")),
+        new("source", "Source", ColumnUnit.None, ValueKind.Reference, r => ReportCell.Of(r.Input.Source ?? "")),
     ];
 }

@@ -24,9 +24,6 @@ internal sealed record PointRow(AdjustedPoint Source, double? SdE, double? SdN, 
     /// <summary>True when the point has a plan position.</summary>
     public bool HasPlan => ReportFigures.HasPlan(Source);
 
-    /// <summary>True when both plan coordinates are held.</summary>
-    public bool PlanFixed => ReportFigures.IsPlanFixed(Source);
-
     /// <summary>The row of one point.</summary>
     public static PointRow Of(AdjustmentResult r, AdjustedPoint p, SdBasis basis) =>
         new(p, basis.Sd(p.SdE), basis.Sd(p.SdN), basis.Sd(p.SdH), ReportFigures.Ellipse(r, p),
@@ -49,7 +46,7 @@ internal sealed record PointRow(AdjustedPoint Source, double? SdE, double? SdN, 
     /// <summary>The columns of a full listing (the coordinates CSV shows them all).</summary>
     public static readonly IReadOnlyList<ReportColumn<PointRow>> Columns =
     [
-        new("id", "Point", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(r.Id)),
+        new("id", "Point", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.Id)),
         new("easting", "Easting", ColumnUnit.Length, ValueKind.Number, r => ReportCell.Of(r.Source.E)),
         new("northing", "Northing", ColumnUnit.Length, ValueKind.Number, r => ReportCell.Of(r.Source.N)),
         new("height", "Height", ColumnUnit.Length, ValueKind.Number, r => ReportCell.Of(r.Source.H)),

@@ -12,7 +12,4 @@ internal readonly record struct ReportCell(string? Text, double? Number)
 
     /// <summary>A number cell, empty when the value is missing or not finite.</summary>
     public static ReportCell Of(double? number) => new(null, number is double x && double.IsFinite(x) ? x : null);
-
-    /// <summary>True when the cell holds neither text nor a number.</summary>
-    public bool IsEmpty => Text is null && Number is null;
 }
