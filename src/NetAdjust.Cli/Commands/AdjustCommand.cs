@@ -47,6 +47,7 @@ internal static class AdjustCommand
             string text;
             AdjustmentResult result;
             ReportContext context;
+            ResultReport? model = null;
             var files = new List<(string, string)>(); // all outputs or none: a failed write must not leave the others replaced
             if (parse.GetValue(sequence))
             {
@@ -61,10 +62,12 @@ internal static class AdjustCommand
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
-                text = TextReportWriter.Write(result, context);
-                if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(result, context)));
+                model = ResultReport.Build(result, context);
+                text = TextReportWriter.Write(model);
+                if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(model)));
             }
-            files.AddRange(exchange.Render(parse, result, context));
+            // One report model for every output of a result (for the sequence: the constrained solution's).
+            files.AddRange(exchange.Render(parse, model ?? ResultReport.Build(result, context)));
             if (reportPath is not null) files.Add((reportPath, text));
             SafeFileWriter.WriteAll(files);
             if (reportPath is null) console.Out.Write(text);

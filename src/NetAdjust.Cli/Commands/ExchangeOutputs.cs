@@ -12,9 +12,9 @@ namespace NetAdjust.Cli.Commands;
 /// </summary>
 internal sealed class ExchangeOutputs
 {
-    private readonly (Option<string?> Option, Func<AdjustmentResult, ReportContext, string> Render)[] _outputs;
+    private readonly (Option<string?> Option, Func<ResultReport, string> Render)[] _outputs;
 
-    private ExchangeOutputs((Option<string?>, Func<AdjustmentResult, ReportContext, string>)[] outputs) => _outputs = outputs;
+    private ExchangeOutputs((Option<string?>, Func<ResultReport, string>)[] outputs) => _outputs = outputs;
 
     public static ExchangeOutputs Create()
     {
@@ -38,14 +38,10 @@ internal sealed class ExchangeOutputs
     /// <summary>The output paths given on the command line.</summary>
     public IEnumerable<string> Paths(ParseResult parse) => _outputs.Select(t => parse.GetValue(t.Option)).OfType<string>();
 
-    /// <summary>Renders every requested output: (path, text) in option order, to be written all at once.</summary>
-    public IEnumerable<(string Path, string Text)> Render(ParseResult parse, AdjustmentResult result, ReportContext context)
+    /// <summary>Renders every requested output from one report model: (path, text) in option order.</summary>
+    public IEnumerable<(string Path, string Text)> Render(ParseResult parse, ResultReport report)
     {
         foreach (var (o, render) in _outputs)
-            if (parse.GetValue(o) is string path) yield return (path, render(result, context));
+            if (parse.GetValue(o) is string path) yield return (path, render(report));
     }
-
-    /// <summary>Renders and writes every requested output, all or none (<see cref="SafeFileWriter.WriteAll"/>).</summary>
-    public void Write(ParseResult parse, AdjustmentResult result, ReportContext context) =>
-        SafeFileWriter.WriteAll(Render(parse, result, context).ToList());
 }

@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text;
-using System.Text.Json;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
@@ -8,7 +7,9 @@ using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;
 
-/// <summary>Writes observations' error budgets: <c>sd_components</c> in JSON and the per-group summary of the text report.</summary>
+/// <summary>
+/// Writes observations' error budgets in the text report (the JSON <c>sd_components</c> name <see cref="Stated"/>).
+/// </summary>
 internal static class BudgetOutput
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
@@ -17,29 +18,15 @@ internal static class BudgetOutput
     public const string Stated = "stated";
 
     /// <summary>
-    /// Writes <c>"sd_components": {name: value}</c> in the observation's JSON units (metres, or arcsec for angles
-    /// via <paramref name="factor"/>). Their root-sum-square equals <c>sd</c>. A stated sd is one component, <c>stated</c>.
-    /// </summary>
-    public static void WriteComponents(Utf8JsonWriter w, Observation o, double factor)
-    {
-        w.WriteStartObject("sd_components");
-        if (o.Budget is null) w.WriteNumber(Stated, o.StandardDeviation * factor);
-        else
-            foreach (var c in o.Budget.Contributions) w.WriteNumber(c.Name, c.Value * factor);
-        w.WriteEndObject();
-    }
-
-    /// <summary>
     /// Appends the error-budget summary: per observation kind, each contribution's root-mean-square over the
     /// observations weighted from specifications, and its share of the mean variance. Nothing when no observation has a budget.
     /// </summary>
     public static void AppendSummary(StringBuilder sb, AdjustmentResult r, ReportContext c)
     {
-        var withBudget = r.Network.Observations.Where(o => o.Budget is not null).ToList();
+        var withBudget = r.Network.Observations.Where(o => ResultReport.BudgetOf(o) is not null).ToList();
         if (withBudget.Count == 0) return;
         var u = c.Units;
-        var sdLen = new LengthPattern(u.Length, 4);
-        double radPerUnit = u.AngleSd.RadiansPerUnit();
+        var units = new ReportUnits(u);
         void Line(string s = "") => sb.Append(s).Append('\n');
         Line($"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
         Line($"  Weights: {r.Options.WeightModel?.Description ?? "independent observations (diagonal weights)"}");
@@ -49,16 +36,16 @@ internal static class BudgetOutput
             var group = withBudget.Where(o => o.Kind == kind).ToList();
             if (group.Count == 0) continue;
             int all = r.Network.Observations.Count(o => o.Kind == kind);
-            Line($"  {kind.Name().Replace('_', ' ')} ({group.Count} of {all} observations)");
+            Line($"  {ObservationLabels.Words(kind)} ({group.Count} of {all} observations)");
             var names = new List<string>();
             foreach (var o in group)
-                foreach (var ct in o.Budget!.Contributions)
+                foreach (var ct in ResultReport.BudgetOf(o)!.Contributions)
                     if (!names.Contains(ct.Name)) names.Add(ct.Name);
             double meanVar = group.Average(o => o.StandardDeviation * o.StandardDeviation);
-            string Fmt(double si) => kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
+            string Fmt(double si) => units.ObservationSmall(kind, si);
             foreach (string name in names)
             {
-                double v = group.Average(o => Math.Pow(o.Budget!.ValueOf(name), 2));
+                double v = group.Average(o => Math.Pow(ResultReport.BudgetOf(o)!.ValueOf(name), 2));
                 Line($"    {name,-24} {Fmt(Math.Sqrt(v)),10} {(meanVar > 0 ? 100 * v / meanVar : 0).ToString("F1", Inv),7} %");
             }
             Line($"    {"total",-24} {Fmt(Math.Sqrt(meanVar)),10} {100.0.ToString("F1", Inv),7} %");
@@ -69,11 +56,11 @@ internal static class BudgetOutput
         foreach (var ao in r.Observations)
         {
             var o = ao.Input;
-            if (o.Budget is null) continue;
-            string Fmt(double si) => o.Kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
+            if (ResultReport.BudgetOf(o) is not { } budget) continue;
+            string Fmt(double si) => units.ObservationSmall(o.Kind, si);
             // Wrapped to the report's 100 columns: "   12 total 2.18 = name value, name value, ..."
             var line = new StringBuilder($"  {ao.Index + 1,4} total {Fmt(o.StandardDeviation)} =");
-            var items = o.Budget.Contributions.Select(x => $"{x.Name} {Fmt(x.Value)}").ToList();
+            var items = budget.Contributions.Select(x => $"{x.Name} {Fmt(x.Value)}").ToList();
             for (int k = 0; k < items.Count; k++)
             {
                 string piece = " " + items[k] + (k < items.Count - 1 ? "," : "");

@@ -1,7 +1,6 @@
 using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
-using NetAdjust.Statistics;
 
 namespace NetAdjust.IO.Results;
 
@@ -9,7 +8,8 @@ namespace NetAdjust.IO.Results;
 /// Writes the adjusted coordinates as CSV (RFC 4180: comma-separated, a header row, fields quoted only when needed,
 /// lines ending in LF) for spreadsheets, CAD and GIS. Lengths in the project's length unit, named in each header
 /// (e.g. <c>easting_m</c>); the ellipse azimuth in decimal degrees. Empty fields where a value does not exist
-/// (e.g. no easting for a levelling benchmark). Columns and rules: docs/output-format.md.
+/// (e.g. no easting for a levelling benchmark). Standard deviations and ellipses are at one variance factor, named
+/// on every row in the last column (<see cref="BasisColumn"/>). Columns and rules: docs/output-format.md.
 /// </summary>
 public static class CoordinateCsvWriter
 {
@@ -19,32 +19,42 @@ public static class CoordinateCsvWriter
     public const int LengthDecimals = 6;
 
     /// <summary>Decimals written for the ellipse azimuth (degrees).</summary>
-    public const int AzimuthDecimals = 4;
+    public const int AzimuthDecimals = PointRow.AzimuthDecimals;
+
+    /// <summary>The header of the last column: the variance factor of every standard deviation and ellipse.</summary>
+    public const string BasisColumn = "variance_factor_basis";
 
     /// <summary>Renders the CSV text.</summary>
     /// <param name="result">The result.</param>
     /// <param name="context">Run details; its length unit is used for every length.</param>
-    public static string Write(AdjustmentResult result, ReportContext context)
+    public static string Write(AdjustmentResult result, ReportContext context) =>
+        Write(ResultReport.Build(result, context));
+
+    /// <summary>Renders the CSV text of the report model's point table.</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report)
     {
-        var unit = context.Units.Length;
-        string u = unit.Symbol;
-        var sb = new StringBuilder();
-        sb.Append("id,easting_").Append(u).Append(",northing_").Append(u).Append(",height_").Append(u)
-          .Append(",sd_e_").Append(u).Append(",sd_n_").Append(u).Append(",sd_h_").Append(u)
-          .Append(",ellipse_a_").Append(u).Append(",ellipse_b_").Append(u).Append(",ellipse_azimuth_deg,held,weighted\n");
-        foreach (var p in result.Points)
+        ArgumentNullException.ThrowIfNull(report);
+        var unit = report.Context.Units.Length;
+        var table = report.Points;
+        string Header(ReportColumn<PointRow> c) => c.Key + c.Unit switch
         {
-            string L(double? metres) => metres is double m && double.IsFinite(m) ? (m / unit.MetresPerUnit).ToString("F" + LengthDecimals, Inv) : "";
-            var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(result, p);
-            sb.Append(Field(p.Id)).Append(',')
-              .Append(L(p.E)).Append(',').Append(L(p.N)).Append(',').Append(L(p.H)).Append(',')
-              .Append(L(p.SdE)).Append(',').Append(L(p.SdN)).Append(',').Append(L(p.SdH)).Append(',')
-              .Append(L(el?.A)).Append(',').Append(L(el?.B)).Append(',')
-              .Append(el is ErrorEllipse e ? e.AzimuthDegreesRounded(AzimuthDecimals).ToString("F" + AzimuthDecimals, Inv) : "").Append(',')
-              .Append(JsonResultWriter.FixityText(p.Input.Fixed)).Append(',')
-              .Append((p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : ""))
-              .Append('\n');
+            ColumnUnit.Length => "_" + unit.Symbol,
+            ColumnUnit.Degrees => "_deg",
+            _ => "",
+        };
+        string Cell(ReportColumn<PointRow> c, PointRow row)
+        {
+            var cell = c.Cell(row);
+            if (cell.Number is not double x) return cell.Text is string t ? Field(t) : "";
+            return c.Unit == ColumnUnit.Length ? (x / unit.MetresPerUnit).ToString("F" + LengthDecimals, Inv)
+                : x.ToString("F" + (c.Unit == ColumnUnit.Degrees ? AzimuthDecimals : LengthDecimals), Inv);
         }
+        var sb = new StringBuilder();
+        sb.AppendJoin(',', table.Columns.Select(Header)).Append(',').Append(BasisColumn).Append('\n');
+        foreach (var row in table.Rows)
+            sb.AppendJoin(',', table.Columns.Select(c => Cell(c, row)))
+              .Append(',').Append(report.Basis.Keyword).Append('\n');
         return sb.ToString();
     }
 

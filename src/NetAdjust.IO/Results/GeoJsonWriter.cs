@@ -1,5 +1,3 @@
-using System.Text;
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
@@ -31,13 +29,25 @@ public static class GeoJsonWriter
     /// <summary>Renders the GeoJSON text.</summary>
     /// <param name="result">The result.</param>
     /// <param name="context">Run details: the run date, the length unit and the coordinate reference system.</param>
-    public static string Write(AdjustmentResult result, ReportContext context)
+    public static string Write(AdjustmentResult result, ReportContext context) =>
+        Write(ResultReport.Build(result, context));
+
+    /// <summary>Renders the GeoJSON text of the report model.</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report) => JsonResultWriter.ToText(s => Write(s, report));
+
+    /// <summary>Writes the GeoJSON of the report model to a stream (UTF-8, ending with a line feed).</summary>
+    /// <param name="stream">The stream; left open.</param>
+    /// <param name="report">The report model.</param>
+    public static void Write(Stream stream, ResultReport report)
     {
+        ArgumentNullException.ThrowIfNull(stream);
+        ArgumentNullException.ThrowIfNull(report);
+        var result = report.Result;
+        var context = report.Context;
         var unit = context.Units.Length;
         double k = 1.0 / unit.MetresPerUnit;
-        var w = ReportFigures.StandardisedResiduals(result);
-        using var ms = new MemoryStream();
-        using (var j = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        using (var j = new Utf8JsonWriter(stream, JsonResultWriter.WriterOptions))
         {
             j.WriteStartObject();
             j.WriteString("type", "FeatureCollection");
@@ -58,17 +68,20 @@ public static class GeoJsonWriter
             j.WriteString("coordinates", context.Crs is null ? "local" : context.Crs);
             j.WriteString("axis_order", "easting, northing, height");
             j.WriteString("length_unit", unit.Symbol);
-            j.WriteString("ellipses", "standard (1 sigma) absolute error ellipses at true size, at " + ReportFigures.EllipseBasis(result));
+            j.WriteString("ellipses",
+                "standard (1 sigma) absolute error ellipses at true size, at " + report.Basis.Words);
+            j.WriteString("standard_deviations", "standard (1 sigma), at " + report.Basis.Words);
             j.WriteString("residual_units", "m for lengths, arcsec for angles");
             j.WriteEndObject();
 
             j.WriteStartArray("features");
             var plan = new Dictionary<string, AdjustedPoint>(StringComparer.Ordinal);
-            foreach (var p in result.Points)
+            foreach (var row in report.Points.Rows)
             {
-                if (!ReportFigures.HasPlan(p)) continue;
+                if (!row.HasPlan) continue;
+                var p = row.Source;
                 plan[p.Id] = p;
-                var el = ReportFigures.IsPlanFixed(p) ? null : ReportFigures.Ellipse(result, p);
+                var el = row.Ellipse;
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
                 j.WriteString("id", "point:" + p.Id);
@@ -82,25 +95,26 @@ public static class GeoJsonWriter
                 j.WriteStartObject("properties");
                 j.WriteString("feature", "point");
                 j.WriteString("id", p.Id);
-                j.WriteString("role", ReportFigures.RoleText(ReportFigures.Role(p)));
-                NumOrNull(j, "sd_e", p.SdE * k);
-                NumOrNull(j, "sd_n", p.SdN * k);
-                NumOrNull(j, "sd_h", p.SdH * k);
+                j.WriteString("role", ReportFigures.RoleText(row.Role));
+                NumOrNull(j, "sd_e", row.SdE * k);
+                NumOrNull(j, "sd_n", row.SdN * k);
+                NumOrNull(j, "sd_h", row.SdH * k);
                 NumOrNull(j, "ellipse_a", el?.A * k);
                 NumOrNull(j, "ellipse_b", el?.B * k);
-                NumOrNull(j, "ellipse_azimuth_deg", el is ErrorEllipse e1 ? e1.AzimuthDegreesRounded(4) : null);
+                NumOrNull(j, "ellipse_azimuth_deg", row.EllipseAzimuthDegrees);
                 j.WriteEndObject();
                 j.WriteEndObject();
             }
 
-            foreach (var o in result.Observations)
+            foreach (var row in report.Observations.Rows)
             {
+                var o = row.Source;
                 var i = o.Input;
                 string[] ids = i.Kind == ObservationKind.Angle ? [i.From, i.At!, i.To] : [i.From, i.To];
                 if (!ids.All(plan.ContainsKey)) continue;
-                bool ang = i.Kind.IsAngular();
-                double rk = ang ? Angle.ArcsecondsPerRadian : 1.0;
-                double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
+                bool ang = ObservationLabels.IsAngular(i.Kind);
+                double rk = ObservationLabels.JsonSmallFactor(i.Kind);
+                double? wi = row.W;
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
                 j.WriteString("id", "observation:" + (o.Index + 1).ToString(System.Globalization.CultureInfo.InvariantCulture));
@@ -118,21 +132,23 @@ public static class GeoJsonWriter
                 j.WriteStartObject("properties");
                 j.WriteString("feature", "observation");
                 j.WriteNumber("number", o.Index + 1);
-                j.WriteString("kind", i.Kind.Name());
+                j.WriteString("kind", ObservationLabels.Key(i.Kind));
                 if (i.At is null) j.WriteNull("at"); else j.WriteString("at", i.At);
                 j.WriteString("from", i.From);
                 j.WriteString("to", i.To);
                 j.WriteNumber("residual", Math.Round(o.Residual * rk, ang ? 3 : 6));
                 j.WriteNumber("sd", Math.Round(i.StandardDeviation * rk, ang ? 3 : 6));
                 NumOrNull(j, "w", wi is double x ? Math.Round(x, 3) : null);
-                if (wi is double x2) j.WriteBoolean("w_test_failed", Math.Abs(x2) > ReportFigures.WCritical(result)); else j.WriteNull("w_test_failed");
+                if (wi is not null) j.WriteBoolean("w_test_failed", row.FailsWTest);
+                else j.WriteNull("w_test_failed");
                 j.WriteEndObject();
                 j.WriteEndObject();
             }
 
-            foreach (var p in result.Points)
+            foreach (var row in report.Points.Rows)
             {
-                if (!ReportFigures.HasPlan(p) || ReportFigures.IsPlanFixed(p) || ReportFigures.Ellipse(result, p) is not ErrorEllipse el) continue;
+                if (row.Ellipse is not ErrorEllipse el) continue;
+                var p = row.Source;
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
                 j.WriteString("id", "ellipse:" + p.Id);
@@ -155,14 +171,14 @@ public static class GeoJsonWriter
                 j.WriteString("level", "standard (1 sigma)");
                 Num(j, "a", el.A * k);
                 Num(j, "b", el.B * k);
-                j.WriteNumber("azimuth_deg", el.AzimuthDegreesRounded(4));
+                j.WriteNumber("azimuth_deg", row.EllipseAzimuthDegrees!.Value);
                 j.WriteEndObject();
                 j.WriteEndObject();
             }
             j.WriteEndArray();
             j.WriteEndObject();
         }
-        return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
+        stream.WriteByte((byte)'\n');
     }
 
     /// <summary>

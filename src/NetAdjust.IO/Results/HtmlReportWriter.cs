@@ -22,11 +22,16 @@ public static class HtmlReportWriter
     /// <param name="result">The result.</param>
     /// <param name="context">Run details and units.</param>
     public static string Write(AdjustmentResult result, ReportContext context) =>
-        Write(result, context, ReportFigures.StandardisedResiduals(result));
+        Write(ResultReport.Build(result, context));
 
-    /// <summary>Renders the report with the given standardised residuals (null: none available).</summary>
-    internal static string Write(AdjustmentResult r, ReportContext c, IReadOnlyList<double?>? w)
+    /// <summary>Renders the report of a report model.</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report)
     {
+        ArgumentNullException.ThrowIfNull(report);
+        var w = report.W;
+        var r = report.Result;
+        var c = report.Context;
         var u = new ReportUnits(c.Units);
         var s = r.Statistics;
         var g = s.GlobalTest;
@@ -55,12 +60,12 @@ public static class HtmlReportWriter
         if (g.Lower is double lo && g.Upper is double hi)
             sb.Append(" — vᵀPv/σ0² = ").Append(F(g.Statistic, 3)).Append(", accepted ").Append(F(lo, 3)).Append(" to ").Append(F(hi, 3));
         sb.Append("</p>\n<table class=\"figures\">\n<tbody>\n");
-        int plan = r.Points.Count(ReportFigures.HasPlan);
+        var planRows = report.Points.Rows.Where(p => p.HasPlan).ToList();
+        int plan = planRows.Count;
         Tr(sb, "Points (with plan position / height only)", $"{r.Points.Count} ({plan} / {r.Points.Count - plan})");
         Tr(sb, "Fixed control / weighted control / new (plan)",
-            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.Fixed)} / " +
-            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.Weighted)} / " +
-            $"{r.Points.Count(p => ReportFigures.HasPlan(p) && ReportFigures.Role(p) == PointRole.New)}");
+            $"{planRows.Count(p => p.Role == PointRole.Fixed)} / {planRows.Count(p => p.Role == PointRole.Weighted)} / " +
+            $"{planRows.Count(p => p.Role == PointRole.New)}");
         Tr(sb, "Observations (n)", s.Observations.ToString(Inv));
         Tr(sb, "Unknowns (u)", s.Unknowns.ToString(Inv));
         Tr(sb, "Degrees of freedom (r)", s.DegreesOfFreedom.ToString(Inv));
@@ -75,9 +80,9 @@ public static class HtmlReportWriter
         {
             sb.Append("<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
             foreach (var (o, wi) in worst)
-                sb.Append("<tr").Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
+                sb.Append("<tr").Append(Math.Abs(wi) > report.WCritical ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
                   .Append(E(o.Input.Describe())).Append("</td><td class=\"num\">").Append(F(wi, 2)).Append("</td><td>")
-                  .Append(Math.Abs(wi) > ReportFigures.WCritical(r) ? "fails" : "passes").Append("</td></tr>\n");
+                  .Append(Math.Abs(wi) > report.WCritical ? "fails" : "passes").Append("</td></tr>\n");
             sb.Append("</tbody>\n</table>\n");
         }
         else
@@ -86,8 +91,9 @@ public static class HtmlReportWriter
 
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
-          .Append(NetworkPlotWriter.Render(r, c, w))
-          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append(", magnified as stated in the legend.")
+          .Append(NetworkPlotWriter.Render(report))
+          .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ")
+          .Append(report.Basis.Words).Append(", magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
           .Append("</figcaption>\n</figure>\n</section>\n");
 
@@ -95,23 +101,28 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"residuals\">\n<h2>Standardised residuals</h2>\n");
         var ws = w?.Where(x => x is double d && double.IsFinite(d)).Select(x => x!.Value).ToList();
         if (ws is { Count: > 0 })
-            sb.Append("<figure>\n").Append(Histogram(ws, ReportFigures.WCritical(r))).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
-              .Append(F(ReportFigures.WCritical(r), 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
+            sb.Append("<figure>\n").Append(Histogram(ws, report.WCritical)).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
+              .Append(F(report.WCritical, 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
         else
             sb.Append("<p class=\"note\">No standardised residuals are available (no observation can be tested): the histogram is left out.</p>\n");
         sb.Append("</section>\n");
 
         // Coordinates.
         sb.Append("<section id=\"coordinates\">\n<h2>Adjusted coordinates</h2>\n<p>Lengths in ").Append(u.LengthSymbol)
-          .Append("; standard deviations at the a-priori variance factor; standard (1σ) error ellipses at ").Append(ReportFigures.EllipseBasis(r)).Append("; azimuth of the semi-major axis from grid north.</p>\n")
-          .Append("<table>\n<thead><tr><th>Point</th><th>Role</th><th class=\"num\">Easting</th><th class=\"num\">Northing</th><th class=\"num\">Height</th>")
-          .Append("<th class=\"num\">sd E</th><th class=\"num\">sd N</th><th class=\"num\">sd H</th><th class=\"num\">a</th><th class=\"num\">b</th><th class=\"num\">Azimuth of a</th></tr></thead>\n<tbody>\n");
-        foreach (var p in r.Points)
+          .Append("; standard deviations at ").Append(report.Basis.Words)
+          .Append("; standard (1σ) error ellipses at ").Append(report.Basis.Words)
+          .Append("; azimuth of the semi-major axis from grid north.</p>\n")
+          .Append(TableHead(PointRow.Columns.Where(col => col.Key is not ("held" or "weighted"))
+              .SelectMany(col => col.Key == "id"
+                  ? new[] { (col.Header, col.Kind), ("Role", ValueKind.Text) } : [(col.Header, col.Kind)])));
+        foreach (var row in report.Points.Rows)
         {
-            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? ReportFigures.Ellipse(r, p) : null;
-            string role = ReportFigures.HasPlan(p) ? ReportFigures.RoleText(ReportFigures.Role(p)) : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
+            var p = row.Source;
+            var el = row.Ellipse;
+            string role = row.HasPlan ? ReportFigures.RoleText(row.Role)
+                : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
             sb.Append("<tr><td class=\"id\">").Append(E(p.Id)).Append("</td><td>").Append(role).Append("</td>");
-            foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(p.SdE), u.SmallLength(p.SdN), u.SmallLength(p.SdH),
+            foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(row.SdE), u.SmallLength(row.SdN), u.SmallLength(row.SdH),
                                       u.SmallLength(el?.A), u.SmallLength(el?.B), el is ErrorEllipse e ? u.Azimuth(e.Azimuth) : "-" })
                 sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
             sb.Append("</tr>\n");
@@ -121,24 +132,27 @@ public static class HtmlReportWriter
         // Observations.
         sb.Append("<section id=\"observations\">\n<h2>Observations</h2>\n<p>Residual v = adjusted − observed. Lengths in ").Append(u.LengthSymbol)
           .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
-          .Append("<table>\n<thead><tr><th class=\"num\">#</th><th>Kind</th><th>At</th><th>From</th><th>To</th><th class=\"num\">Observed</th><th class=\"num\">Adjusted</th>")
-          .Append("<th class=\"num\">Residual</th><th class=\"num\">sd</th><th class=\"num\">w</th><th>Flag</th><th>Source</th></tr></thead>\n<tbody>\n");
-        foreach (var o in r.Observations)
+          .Append(TableHead(ObservationRow.Columns.Select(col => (col.Header, col.Kind))));
+        foreach (var row in report.Observations.Rows)
         {
-            var i = o.Input;
-            double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(r);
-            sb.Append("<tr").Append(failed ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>").Append(E(i.Kind.Name().Replace('_', ' ')))
-              .Append("</td><td class=\"id\">").Append(E(i.At ?? "")).Append("</td><td class=\"id\">").Append(E(i.Kind == ObservationKind.Direction ? "" : i.From))
-              .Append("</td><td class=\"id\">").Append(E(i.To)).Append("</td>");
-            foreach (var v in new[] { u.ObservationValue(i.Kind, i.Value), u.ObservationValue(i.Kind, o.Adjusted), u.ObservationSmall(i.Kind, o.Residual),
-                                      u.ObservationSmall(i.Kind, i.StandardDeviation), wi is double wv ? F(wv, 2) + (failed ? " ✗" : "") : "-" })
-                sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
-            string flag = o.Index < r.Analysis.Observations.Count ? r.Analysis.Observations[o.Index].Flag.Name() ?? "" : "";
-            sb.Append("<td>").Append(E(flag)).Append("</td><td class=\"src\">").Append(E(i.Source ?? "")).Append("</td></tr>\n");
+            var kind = row.Input.Kind;
+            sb.Append("<tr").Append(row.FailsWTest ? " class=\"fail\"" : "").Append('>');
+            foreach (var col in ObservationRow.Columns)
+            {
+                var cell = col.Cell(row);
+                string text = cell.Number is not double x ? cell.Text ?? "-" : col.Unit switch
+                {
+                    ColumnUnit.ObservedValue => u.ObservationValue(kind, x),
+                    ColumnUnit.ObservedPrecision => u.ObservationSmall(kind, x),
+                    ColumnUnit.Statistic => F(x, 2) + (row.FailsWTest ? " ✗" : ""),
+                    _ => F(x, 0),
+                };
+                sb.Append("<td").Append(CellClass(col.Kind)).Append('>').Append(E(text)).Append("</td>");
+            }
+            sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
-        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(ReportFigures.WCritical(r), 2)).Append(").</p>\n");
+        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(report.WCritical, 2)).Append(").</p>\n");
         sb.Append("</section>\n");
 
         var budgets = new StringBuilder();
@@ -223,6 +237,24 @@ public static class HtmlReportWriter
         sb.Append("<text x=\"14\" y=\"").Append(N((y0 + y1) / 2)).Append("\" text-anchor=\"middle\" transform=\"rotate(-90 14 ").Append(N((y0 + y1) / 2)).Append(")\">density</text>\n");
         sb.Append("</svg>\n");
         return sb.ToString();
+    }
+
+    /// <summary>The class attribute of a body cell: numbers right-aligned, point ids bold, references small.</summary>
+    private static string CellClass(ValueKind kind) => kind switch
+    {
+        ValueKind.Number => " class=\"num\"",
+        ValueKind.PointId => " class=\"id\"",
+        ValueKind.Reference => " class=\"src\"",
+        _ => "",
+    };
+
+    /// <summary>The opening of a table with its header row: numeric columns right-aligned (class <c>num</c>).</summary>
+    private static string TableHead(IEnumerable<(string Header, ValueKind Kind)> columns)
+    {
+        var sb = new StringBuilder("<table>\n<thead><tr>");
+        foreach (var (header, kind) in columns)
+            sb.Append(kind == ValueKind.Number ? "<th class=\"num\">" : "<th>").Append(E(header)).Append("</th>");
+        return sb.Append("</tr></thead>\n<tbody>\n").ToString();
     }
 
     private static void Dl(StringBuilder sb, string term, string value) =>

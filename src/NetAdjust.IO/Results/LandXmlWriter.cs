@@ -10,7 +10,8 @@ namespace NetAdjust.IO.Results;
 /// Writes the adjusted points as LandXML 1.2 (the open LandXML schema, namespace
 /// <c>http://www.landxml.org/schema/LandXML-1.2</c>) for CAD: one <c>CgPoint</c> per point with plan coordinates,
 /// inside one <c>CgPoints</c> element, with the units declared and the standard deviations as the schema's
-/// <c>northingStdError</c>, <c>eastingStdError</c> and <c>elevationStdError</c> attributes.
+/// <c>northingStdError</c>, <c>eastingStdError</c> and <c>elevationStdError</c> attributes, at the variance factor the
+/// statistics use, named in the <c>desc</c> of <c>CgPoints</c>.
 /// Points with a height only (levelling benchmarks) are left out: a <c>CgPoint</c> needs a plan position.
 /// Element by element description: docs/output-format.md.
 /// </summary>
@@ -27,8 +28,16 @@ public static class LandXmlWriter
     /// <summary>Renders the LandXML document (UTF-8, LF line ends).</summary>
     /// <param name="result">The result.</param>
     /// <param name="context">Run details: the run date, the length unit and the coordinate reference system.</param>
-    public static string Write(AdjustmentResult result, ReportContext context)
+    public static string Write(AdjustmentResult result, ReportContext context) =>
+        Write(ResultReport.Build(result, context));
+
+    /// <summary>Renders the LandXML document of the report model's point table (UTF-8, LF line ends).</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report)
     {
+        ArgumentNullException.ThrowIfNull(report);
+        var result = report.Result;
+        var context = report.Context;
         var unit = context.Units.Length;
         string L(double metres) => (metres / unit.MetresPerUnit).ToString("F" + Decimals, Inv);
         var settings = new XmlWriterSettings
@@ -94,18 +103,19 @@ public static class LandXmlWriter
 
             w.WriteStartElement("CgPoints", Namespace);
             w.WriteAttributeString("name", "adjusted points");
-            w.WriteAttributeString("desc", "standard deviations at the a-priori variance factor");
-            foreach (var p in result.Points)
+            w.WriteAttributeString("desc", "standard deviations at " + report.Basis.Words);
+            foreach (var row in report.Points.Rows)
             {
-                if (!ReportFigures.HasPlan(p)) continue;
-                var role = ReportFigures.Role(p);
+                if (!row.HasPlan) continue;
+                var p = row.Source;
+                var role = row.Role;
                 w.WriteStartElement("CgPoint", Namespace);
                 w.WriteAttributeString("name", p.Id);
                 w.WriteAttributeString("desc", ReportFigures.RoleText(role));
                 w.WriteAttributeString("role", role == PointRole.New ? "calculated" : "control point");
-                if (p.SdN is double sn) w.WriteAttributeString("northingStdError", L(sn));
-                if (p.SdE is double se) w.WriteAttributeString("eastingStdError", L(se));
-                if (p.H is not null && p.SdH is double sh) w.WriteAttributeString("elevationStdError", L(sh));
+                if (row.SdN is double sn) w.WriteAttributeString("northingStdError", L(sn));
+                if (row.SdE is double se) w.WriteAttributeString("eastingStdError", L(se));
+                if (p.H is not null && row.SdH is double sh) w.WriteAttributeString("elevationStdError", L(sh));
                 // LandXML orders a point "northing easting [elevation]".
                 string text = L(p.N!.Value) + " " + L(p.E!.Value) + (p.H is double h ? " " + L(h) : "");
                 w.WriteString(text);

@@ -33,13 +33,25 @@ public static class NetworkPlotWriter
     /// <param name="result">The result.</param>
     /// <param name="context">Run details (units of the scale bars).</param>
     public static string WriteDocument(AdjustmentResult result, ReportContext context) =>
-        "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + Render(result, context, ReportFigures.StandardisedResiduals(result));
+        WriteDocument(ResultReport.Build(result, context));
+
+    /// <summary>Renders a standalone SVG document (with XML declaration) of the report model's network plot.</summary>
+    /// <param name="report">The report model.</param>
+    public static string WriteDocument(ResultReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        return "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + Render(report);
+    }
 
     /// <summary>Renders the plot as an <c>svg</c> element for embedding in HTML.</summary>
-    internal static string Render(AdjustmentResult result, ReportContext context, IReadOnlyList<double?>? w)
+    internal static string Render(ResultReport report)
     {
+        var w = report.W;
+        var result = report.Result;
+        var context = report.Context;
         var units = new ReportUnits(context.Units);
-        var pts = result.Points.Where(ReportFigures.HasPlan).ToList();
+        var rows = report.Points.Rows.Where(r => r.HasPlan).ToList();
+        var pts = rows.Select(r => r.Source).ToList();
         var sb = new StringBuilder();
         sb.Append("<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"network-plot\" viewBox=\"0 0 ").Append(N(Width)).Append(' ').Append(N(Height))
           .Append("\" width=\"").Append(N(Width)).Append("\" height=\"").Append(N(Height)).Append("\" role=\"img\" aria-labelledby=\"plot-title\"")
@@ -65,9 +77,7 @@ public static class NetworkPlotWriter
         double Y(double n) => cy - ((n - cn) * scale);
 
         // Ellipse magnification: a "nice" factor (1, 2, 5 × 10^k) making the largest ellipse about 40 px long.
-        var ellipses = pts.Where(p => !ReportFigures.IsPlanFixed(p))
-            .Select(p => (Point: p, El: ReportFigures.Ellipse(result, p)))
-            .Where(t => t.El is not null).Select(t => (t.Point, El: t.El!.Value)).ToList();
+        var ellipses = rows.Where(r => r.Ellipse is not null).Select(r => (Point: r.Source, El: r.Ellipse!.Value)).ToList();
         double aMax = ellipses.Count > 0 ? ellipses.Max(t => t.El.A) : 0;
         double mag = aMax > 0 ? NiceDown(40.0 / (aMax * scale)) : 1.0;
         if (mag < 1) mag = 1;
@@ -76,12 +86,13 @@ public static class NetworkPlotWriter
         var planIds = pts.ToDictionary(p => p.Id, StringComparer.Ordinal);
         var ok = new StringBuilder();
         var fail = new StringBuilder();
-        foreach (var o in result.Observations)
+        foreach (var row in report.Observations.Rows)
         {
+            var o = row.Source;
             var i = o.Input;
             var segs = i.Kind == ObservationKind.Angle ? new[] { (i.At!, i.From), (i.At!, i.To) } : new[] { (i.From, i.To) };
-            double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            bool failed = wi is double x && Math.Abs(x) > ReportFigures.WCritical(result);
+            double? wi = row.W;
+            bool failed = row.FailsWTest;
             foreach (var (a, b) in segs)
             {
                 if (!planIds.TryGetValue(a, out var pa) || !planIds.TryGetValue(b, out var pb)) continue;
@@ -113,10 +124,11 @@ public static class NetworkPlotWriter
 
         // Points and labels.
         sb.Append("<g class=\"points\">\n");
-        foreach (var p in pts)
+        foreach (var row in rows)
         {
+            var p = row.Source;
             double x = X(p.E!.Value), y = Y(p.N!.Value);
-            var role = ReportFigures.Role(p);
+            var role = row.Role;
             sb.Append(Symbol(role, x, y, E(p.Id)));
             sb.Append("<text class=\"label\" x=\"").Append(N(x + 9)).Append("\" y=\"").Append(N(y - 9)).Append("\" font-size=\"13\" font-weight=\"bold\" fill=\"#111111\"")
               .Append(" paint-order=\"stroke\" stroke=\"#FFFFFF\" stroke-width=\"3\">").Append(E(p.Id)).Append("</text>\n");
@@ -144,7 +156,7 @@ public static class NetworkPlotWriter
         Row($"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" stroke=\"{LineColour}\" stroke-width=\"1.2\"/>", "observation");
         if (w is not null)
             Row($"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" stroke=\"{FailColour}\" stroke-width=\"3\" stroke-dasharray=\"8 4\"/>",
-                $"fails the w-test (|w| > {ReportFigures.WCritical(result).ToString("F2", Inv)})");
+                $"fails the w-test (|w| > {report.WCritical.ToString("F2", Inv)})");
         else
             Row("", "w-test: not available");
         Row($"<ellipse cx=\"{N(lx + 9)}\" cy=\"{N(ly + 26)}\" rx=\"9\" ry=\"5\" fill=\"none\" stroke=\"{EllipseColour}\" stroke-width=\"1.8\"/>", "standard error ellipse (1σ)");

@@ -4,9 +4,9 @@ using NetAdjust.Statistics;
 namespace NetAdjust.IO.Results;
 
 /// <summary>
-/// What the report and exchange writers take from a result beyond its coordinates, all from the shared statistics
-/// (<see cref="AdjustmentResult.Analysis"/>), so that every output shows the same numbers: the error ellipses, the
-/// standardised residuals w and the w-test critical value; plus the roles of the points.
+/// What <see cref="ResultReport"/> takes from a result beyond its coordinates, all from the shared statistics
+/// (<see cref="AdjustmentResult.Analysis"/>), so that every output shows the same numbers: the error ellipses and the
+/// standardised residuals w; plus the roles of the points.
 /// </summary>
 internal static class ReportFigures
 {
@@ -26,15 +26,6 @@ internal static class ReportFigures
     /// <param name="r">The result.</param>
     public static IReadOnlyList<double?> StandardisedResiduals(AdjustmentResult r) =>
         r.Analysis.Observations.Select(t => t.Flag == ObservationFlag.Excluded ? null : t.W).ToList();
-
-    /// <summary>The critical value of the w-test, z(1 − α0/2) (Baarda 1968; 3.29 for α0 = 0.001).</summary>
-    /// <param name="r">The result.</param>
-    public static double WCritical(AdjustmentResult r) => r.Analysis.WCritical;
-
-    /// <summary>Which variance factor scales the ellipses, in words: "the a-priori variance factor" or "the estimated variance factor".</summary>
-    /// <param name="r">The result.</param>
-    public static string EllipseBasis(AdjustmentResult r) =>
-        r.Analysis.Basis == VarianceFactorBasis.Known ? "the a-priori variance factor" : "the estimated variance factor";
 
     /// <summary>True when the point is held fixed in both plan coordinates.</summary>
     /// <param name="p">The point.</param>

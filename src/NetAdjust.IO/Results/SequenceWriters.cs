@@ -1,7 +1,5 @@
 using System.Globalization;
 using System.Text;
-using System.Text.Encodings.Web;
-using System.Text.Json;
 using NetAdjust.Adjustment;
 using NetAdjust.Units;
 
@@ -20,74 +18,30 @@ public static class SequenceJsonWriter
     /// <summary>Renders the sequence as UTF-8 JSON text.</summary>
     /// <param name="s">The sequence result.</param>
     /// <param name="context">Run details.</param>
-    public static string Write(SequenceResult s, ReportContext context)
+    public static string Write(SequenceResult s, ReportContext context) =>
+        JsonResultWriter.ToText(stream => Write(stream, s, context));
+
+    /// <summary>Writes the sequence as UTF-8 JSON to a stream (ending with a line feed).</summary>
+    /// <param name="stream">The stream; left open.</param>
+    /// <param name="s">The sequence result.</param>
+    /// <param name="context">Run details.</param>
+    public static void Write(Stream stream, SequenceResult s, ReportContext context)
     {
-        using var ms = new MemoryStream();
-        using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
-        {
-            w.WriteStartObject();
-            w.WriteString("format", Format);
-            w.WriteString("minimal_datum", s.MinimalDatum);
-            w.WriteStartArray("solutions");
-            foreach (var r in new[] { s.Minimal, s.Constrained })
-            {
-                w.WriteStartObject();
-                JsonResultWriter.WriteBody(w, r, context);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-
-            var t = s.Test;
-            w.WriteStartObject("constraint_test");
-            w.WriteNumber("alpha", t.Alpha);
-            w.WriteNumber("added_constraints", t.AddedConstraints);
-            w.WriteNumber("vtpv_increase", t.VtpvIncrease);
-            w.WriteStartObject("chi_square");
-            w.WriteNumber("statistic", t.ChiSquare);
-            JsonResultWriter.NumberOrNull(w, "critical", t.ChiSquareCritical);
-            Bool(w, "passed", t.PassedChiSquare);
-            w.WriteEndObject();
-            w.WriteStartObject("f");
-            JsonResultWriter.NumberOrNull(w, "statistic", t.F);
-            JsonResultWriter.NumberOrNull(w, "critical", t.FCritical);
-            Bool(w, "passed", t.PassedF);
-            w.WriteEndObject();
-            w.WriteString("decided_by", t.SigmaEstimated ? "f" : "chi_square");
-            Bool(w, "passed", t.Passed);
-            w.WriteEndObject();
-
-            w.WriteStartArray("control_discrepancies");
-            foreach (var d in s.Discrepancies)
-            {
-                w.WriteStartObject();
-                w.WriteString("id", d.Id);
-                JsonResultWriter.NumberOrNull(w, "de", d.DE); JsonResultWriter.NumberOrNull(w, "dn", d.DN); JsonResultWriter.NumberOrNull(w, "dh", d.DH);
-                JsonResultWriter.NumberOrNull(w, "sd_de", d.SdE); JsonResultWriter.NumberOrNull(w, "sd_dn", d.SdN); JsonResultWriter.NumberOrNull(w, "sd_dh", d.SdH);
-                JsonResultWriter.NumberOrNull(w, "w_e", d.WE); JsonResultWriter.NumberOrNull(w, "w_n", d.WN); JsonResultWriter.NumberOrNull(w, "w_h", d.WH);
-                JsonResultWriter.NumberOrNull(w, "max_abs_w", d.MaxAbsW);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-
-            w.WriteStartArray("coordinate_shifts");
-            foreach (var c in s.Shifts)
-            {
-                w.WriteStartObject();
-                w.WriteString("id", c.Id);
-                JsonResultWriter.NumberOrNull(w, "de", c.DE); JsonResultWriter.NumberOrNull(w, "dn", c.DN); JsonResultWriter.NumberOrNull(w, "dh", c.DH); JsonResultWriter.NumberOrNull(w, "horizontal", c.Horizontal);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteEndObject();
-        }
-        return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
+        ArgumentNullException.ThrowIfNull(s);
+        var t = s.Test;
+        var document = new ResultJson.Sequence(Format, s.MinimalDatum,
+            new[] { s.Minimal, s.Constrained }.Select(r => JsonResultWriter.Document(ResultReport.Build(r, context))),
+            new ResultJson.ConstraintTest(t.Alpha, t.AddedConstraints, t.VtpvIncrease,
+                new(t.ChiSquare, JsonResultWriter.Finite(t.ChiSquareCritical), t.PassedChiSquare),
+                new(JsonResultWriter.Finite(t.F), JsonResultWriter.Finite(t.FCritical), t.PassedF),
+                t.SigmaEstimated ? "f" : "chi_square", t.Passed),
+            s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
+                F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
+            s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))));
+        JsonResultWriter.Serialise(stream, document);
     }
 
-    private static void Bool(Utf8JsonWriter w, string name, bool? v)
-    {
-        if (v is bool b) w.WriteBoolean(name, b);
-        else w.WriteNull(name);
-    }
+    private static double? F(double? v) => JsonResultWriter.Finite(v);
 }
 
 /// <summary>
@@ -106,9 +60,9 @@ public static class SequenceReportWriter
     {
         var sb = new StringBuilder();
         void Line(string text = "") => sb.Append(text).Append('\n');
-        var len = new LengthPattern(c.Units.Length, 4);
-        string lu = c.Units.Length.Symbol;
-        string L(double? v, int w) => v is double x ? len.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
+        var units = new ReportUnits(c.Units);
+        string lu = units.LengthSymbol;
+        string L(double? v, int w) => units.Length(v).PadLeft(w);
         string W(double? v, int w) => v is double x ? x.ToString("F2", Inv).PadLeft(w) : new string(' ', w - 1) + "-";
         string F(double v, int d) => v.ToString("F" + d, Inv);
 

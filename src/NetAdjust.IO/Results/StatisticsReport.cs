@@ -24,9 +24,10 @@ internal static class StatisticsReport
         var a = r.Analysis;
         string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
         double radPerSd = u.AngleSd.RadiansPerUnit();
-        string Len(double? m, int w) => m is double x && double.IsFinite(x) ? Length.FromMetres(x).In(u.Length).ToString("F4", Inv).PadLeft(w) : "-".PadLeft(w);
-        string Small(Observation o, double? si, int w) => si is not double x || !double.IsFinite(x) ? "-".PadLeft(w)
-            : o.Kind.IsAngular() ? (x / radPerSd).ToString("F2", Inv).PadLeft(w) : Len(x, w);
+        var units = new ReportUnits(u);
+        string Len(double? m, int w) => units.Length(m).PadLeft(w);
+        string Small(Observation o, double? si, int w) =>
+            (si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-").PadLeft(w);
         string Num(double? v, int d, int w) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv).PadLeft(w) : "-".PadLeft(w);
         bool gons = u.Angle == AngleFormat.Gons;
         string azUnit = gons ? "gon" : "deg";
@@ -71,7 +72,7 @@ internal static class StatisticsReport
                 _ => "",
             };
             if (i.SdFactor != 1.0) flag += (flag.Length > 0 ? " " : "") + $"sd x{i.SdFactor.ToString("0.###", Inv)}";
-            Line($"  {o.Index + 1,4} {Kind(i.Kind),-9} {TextReportWriter.Clip(i.At ?? "", 6),-6} {TextReportWriter.Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {TextReportWriter.Clip(i.To, 6),-6} " +
+            Line($"  {o.Index + 1,4} {ObservationLabels.Short(i.Kind),-9} {TextReportWriter.Clip(i.At ?? "", 6),-6} {TextReportWriter.Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {TextReportWriter.Clip(i.To, 6),-6} " +
                  $"{Small(i, o.Residual, 9)} {Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2, 5)} {Num(t.W, 2, 6)} {Num(t.Tau, 2, 6)} " +
                  $"{Small(i, t.Mdb, 8)} {Len(t.ExternalReliability, 8)} {flag}");
         }
@@ -126,7 +127,7 @@ internal static class StatisticsReport
             foreach (var rel in a.Relative)
                 Line($"  {TextReportWriter.Clip(rel.From, 8),-8} {TextReportWriter.Clip(rel.To, 8),-8} {Len(rel.Ellipse.A, 8)} {Len(rel.Ellipse.B, 8)} {Az(rel.Ellipse.Azimuth, 8)} " +
                      $"{Len(rel.Confidence.A, 8)} {Len(rel.Distance, 11)} {Len(rel.SdDistance, 8)} {(double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact"),9} " +
-                     $"{(rel.SdAzimuth / radPerSd).ToString("F2", Inv),7}{(rel.Observed ? "" : " *")}");
+                     $"{units.SmallAngle(rel.SdAzimuth),7}{(rel.Observed ? "" : " *")}");
             if (a.Relative.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
             Line();
         }
@@ -197,7 +198,7 @@ internal static class StatisticsReport
                     ? (u.Length == LengthUnit.Metre ? (ca * 1000).ToString("0.0", Inv) + " mm" : Length.FromMetres(ca).In(u.Length).ToString("0.0000", Inv) + " " + lu) + " + " + pb.ToString("0.0", Inv) + " ppm"
                     : g.ScaledSd is double sd && double.IsFinite(sd) ? (g.Kind.IsAngular() ? $"sd {(sd / radPerSd).ToString("0.00", Inv)} {au}" : $"sd {Length.FromMetres(sd).In(u.Length).ToString("0.0000", Inv)} {lu}")
                     : double.IsFinite(g.SdScale) ? $"given sd x {g.SdScale.ToString("0.000", Inv)}" : "not estimable";
-                Line($"  {Kind(g.Kind),-18} {g.Count,5} {Num(g.Redundancy, 2, 8)} {Num(g.VarianceFactor, 3, 10)} {Num(g.SdScale, 3, 9)}  {spec}");
+                Line($"  {ObservationLabels.Short(g.Kind),-18} {g.Count,5} {Num(g.Redundancy, 2, 8)} {Num(g.VarianceFactor, 3, 10)} {Num(g.SdScale, 3, 9)}  {spec}");
                 if (g.Note is not null) foreach (var part in Wrap("note: " + g.Note, 94)) Line("    " + part);
             }
             Line("  A variance factor of 1 means the group's given standard deviations fit its residuals.");
@@ -218,6 +219,4 @@ internal static class StatisticsReport
         }
         if (line.Length > 0) yield return line.ToString();
     }
-
-    private static string Kind(ObservationKind k) => k == ObservationKind.HeightDifference ? "height" : k.Name();
 }

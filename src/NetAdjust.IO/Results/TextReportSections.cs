@@ -23,28 +23,29 @@ internal static class TextReportSections
     /// <summary>"held A (en), B (h); weighted C (en)" for the points that define the datum.</summary>
     public static string DatumText(AdjustmentResult r)
     {
-        var held = r.Points.Where(p => p.Input.Fixed != Fixity.None).Select(p => $"{p.Id} ({JsonResultWriter.FixityText(p.Input.Fixed)})").ToList();
-        var weighted = r.Points.Where(p => p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.SdH.HasValue)
-            .Select(p => $"{p.Id} ({(p.Input.SdE.HasValue ? "e" : "")}{(p.Input.SdN.HasValue ? "n" : "")}{(p.Input.SdH.HasValue ? "h" : "")})").ToList();
+        var held = r.Points.Where(p => p.Input.Fixed != Fixity.None)
+            .Select(p => $"{p.Id} ({PointRow.Components(p.Input.Fixed)})").ToList();
+        var weighted = r.Points.Where(p => PointRow.Weights(p.Input).Length > 0)
+            .Select(p => $"{p.Id} ({PointRow.Weights(p.Input)})").ToList();
         // Minimal or inner constraints set the control aside: say which datum was used instead.
         if (r.Options.Datum.Mode != Adjustment.DatumMode.Control) return r.Options.Datum.Describe();
         return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 
     /// <summary>The observations with the largest |w| (when the result has standardised residuals).</summary>
-    public static void WorstResiduals(StringBuilder sb, AdjustmentResult r, int count)
+    public static void WorstResiduals(StringBuilder sb, ResultReport report, int count)
     {
-        var w = ReportFigures.StandardisedResiduals(r);
-        var worst = ReportFigures.Worst(r, w, count);
+        var r = report.Result;
+        var worst = ReportFigures.Worst(r, report.W, count);
         if (worst.Count == 0)
         {
             sb.Append("  Largest standardised residuals: none (no observation can be tested)\n");
             return;
         }
-        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(ReportFigures.WCritical(r), 2)).Append("):\n");
+        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(report.WCritical, 2)).Append("):\n");
         foreach (var (o, wi) in worst)
         {
-            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > ReportFigures.WCritical(r) ? "FAILS" : "passes")}  {o.Input.Describe()}";
+            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > report.WCritical ? "FAILS" : "passes")}  {o.Input.Describe()}";
             sb.Append(TextReportWriter.Clip(line, MaxWidth)).Append('\n');
         }
     }

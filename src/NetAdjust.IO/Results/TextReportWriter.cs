@@ -25,13 +25,17 @@ public static class TextReportWriter
     /// <summary>Renders the report.</summary>
     /// <param name="r">The result.</param>
     /// <param name="c">Run details and units.</param>
-    public static string Write(AdjustmentResult r, ReportContext c)
+    public static string Write(AdjustmentResult r, ReportContext c) => Write(ResultReport.Build(r, c));
+
+    /// <summary>Renders the report of a report model.</summary>
+    /// <param name="report">The report model.</param>
+    public static string Write(ResultReport report)
     {
+        ArgumentNullException.ThrowIfNull(report);
+        var r = report.Result;
+        var c = report.Context;
         var u = c.Units;
-        var len = new LengthPattern(u.Length, u.Length == LengthUnit.Metre ? 4 : 4);
-        var sdLen = new LengthPattern(u.Length, 4);
-        var ang = new AnglePattern(u.Angle, u.Angle switch { AngleFormat.Dms => 1, AngleFormat.Degrees => 5, _ => 5 });
-        double radPerSdUnit = u.AngleSd.RadiansPerUnit();
+        var units = new ReportUnits(u);
         string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
 
         var sb = new StringBuilder();
@@ -42,7 +46,7 @@ public static class TextReportWriter
         Line($"Project   : {r.Network.Name}");
         Line($"Input     : {c.InputName}");
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
-        Line($"Units     : lengths {u.Length.Name} ({lu}), angles {AngleName(u.Angle)}, angular sd and residuals {au}");
+        Line($"Units     : lengths {u.Length.Name} ({lu}), angles {units.AngleName}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
         TextReportSections.Datum(sb, r, c);
         Line();
@@ -65,31 +69,31 @@ public static class TextReportWriter
         }
         else
             Line("  Global test: not possible (no redundancy)");
-        TextReportSections.WorstResiduals(sb, r, 5);
+        TextReportSections.WorstResiduals(sb, report, 5);
         Line();
 
-        Line($"ADJUSTED COORDINATES ({lu}; standard deviations at the a-priori variance factor)");
+        Line($"ADJUSTED COORDINATES ({lu}; standard deviations at {report.Basis.Words})");
         Line($"  {"Point",-12} {"Easting",14} {"Northing",14} {"Height",11} {"sd E",8} {"sd N",8} {"sd H",8}  Held");
-        foreach (var p in r.Points)
+        foreach (var row in report.Points.Rows)
         {
-            string E(double? v, LengthPattern pat, int w) => v is double x ? pat.Format(Length.FromMetres(x)).PadLeft(w) : new string(' ', w - 1) + "-";
-            string held = JsonResultWriter.FixityText(p.Input.Fixed);
-            string weighted = (p.Input.SdE.HasValue ? "e" : "") + (p.Input.SdN.HasValue ? "n" : "") + (p.Input.SdH.HasValue ? "h" : "");
+            string E(double? v, int w) => units.Length(v).PadLeft(w);
+            var p = row.Source;
+            string held = row.Held, weighted = row.Weighted;
             string role = held + (weighted.Length > 0 ? (held.Length > 0 ? " " : "") + $"w:{weighted}" : "");
-            Line($"  {Clip(p.Id, 12),-12} {E(p.E, len, 14)} {E(p.N, len, 14)} {E(p.H, len, 11)} {E(p.SdE, sdLen, 8)} {E(p.SdN, sdLen, 8)} {E(p.SdH, sdLen, 8)}  {role}".TrimEnd());
+            Line(($"  {Clip(p.Id, 12),-12} {E(p.E, 14)} {E(p.N, 14)} {E(p.H, 11)} " +
+                  $"{E(row.SdE, 8)} {E(row.SdN, 8)} {E(row.SdH, 8)}  {role}").TrimEnd());
         }
         Line();
 
-        Line($"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {AngleName(u.Angle)}, angular sd {au})");
+        Line($"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {units.AngleName}, angular sd {au})");
         Line($"  {"#",4} {"Kind",-9} {"At",-8} {"From",-8} {"To",-8} {"Observed",14} {"Adjusted",14} {"Residual",9} {"sd",7}");
-        foreach (var o in r.Observations)
+        foreach (var row in report.Observations.Rows)
         {
-            var i = o.Input;
-            bool angular = i.Kind.IsAngular();
-            string Val(double si) => angular ? ang.FormatDirection(Angle.FromRadians(si)) : len.Format(Length.FromMetres(si));
-            string Small(double si) => angular ? F(si / radPerSdUnit, 2) : sdLen.Format(Length.FromMetres(si));
-            Line($"  {o.Index + 1,4} {ShortKind(i.Kind),-9} {Clip(i.At ?? "", 8),-8} {Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 8),-8} {Clip(i.To, 8),-8} " +
-                 $"{Val(i.Value),14} {Val(o.Adjusted),14} {Small(o.Residual),9} {Small(i.StandardDeviation),7}");
+            var i = row.Input;
+            var k = i.Kind;
+            Line($"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(i.At ?? "", 8),-8} {Clip(row.FromShown, 8),-8} " +
+                 $"{Clip(i.To, 8),-8} {units.ObservationValue(k, i.Value),14} {units.ObservationValue(k, row.Source.Adjusted),14} " +
+                 $"{units.ObservationSmall(k, row.Source.Residual),9} {units.ObservationSmall(k, i.StandardDeviation),7}");
         }
         Line();
 
@@ -100,7 +104,8 @@ public static class TextReportWriter
             Line($"ORIENTATION UNKNOWNS (one per direction set; azimuth of the circle zero, sd in {au})");
             Line($"  {"Set",-20} {"Station",-10} {"Orientation",14} {"sd",8}");
             foreach (var o in r.Orientations)
-                Line($"  {Clip(o.SetId, 20),-20} {Clip(o.Station, 10),-10} {ang.FormatDirection(Angle.FromRadians(o.Orientation)),14} {F(o.Sd / radPerSdUnit, 2),8}");
+                Line($"  {Clip(o.SetId, 20),-20} {Clip(o.Station, 10),-10} {units.AngleValue(o.Orientation),14} " +
+                     $"{units.SmallAngle(o.Sd),8}");
             Line();
         }
 
@@ -113,12 +118,4 @@ public static class TextReportWriter
 
     /// <summary>Cuts text to a column width, marking the cut with a tilde.</summary>
     internal static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
-
-    private static string AngleName(AngleFormat f) => f switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
-
-    private static string ShortKind(ObservationKind k) => k switch
-    {
-        ObservationKind.HeightDifference => "height",
-        _ => k.Name(),
-    };
 }

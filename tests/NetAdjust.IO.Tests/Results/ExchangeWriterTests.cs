@@ -24,7 +24,8 @@ public class CoordinateCsvTests
         double k = 1.0 / c.Units.Length.MetresPerUnit;
         string u = c.Units.Length.Symbol;
         using var reader = Sep.New(',').Reader(o => o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture }).FromText(text);
-        Assert.Equal(["id", $"easting_{u}", $"northing_{u}", $"height_{u}", $"sd_e_{u}", $"sd_n_{u}", $"sd_h_{u}", $"ellipse_a_{u}", $"ellipse_b_{u}", "ellipse_azimuth_deg", "held", "weighted"],
+        Assert.Equal(["id", $"easting_{u}", $"northing_{u}", $"height_{u}", $"sd_e_{u}", $"sd_n_{u}", $"sd_h_{u}", $"ellipse_a_{u}", $"ellipse_b_{u}", "ellipse_azimuth_deg", "held", "weighted",
+                      "variance_factor_basis"],
             reader.Header.ColNames);
         double tolL = 0.5 * Math.Pow(10, -CoordinateCsvWriter.LengthDecimals) + 1e-9;
         double tolA = 0.5 * Math.Pow(10, -CoordinateCsvWriter.AzimuthDecimals) + 1e-9;
@@ -35,6 +36,7 @@ public class CoordinateCsvTests
             var fields = new Dictionary<string, string>();
             foreach (string n in reader.Header.ColNames) fields[n] = rec[n].ToString();
             Assert.Equal(p.Id, fields["id"]);
+            Assert.Equal("known", fields["variance_factor_basis"]); // both projects keep the default basis
             void Check(string col, double? metres)
             {
                 string f = fields[col];

@@ -23,7 +23,7 @@ public sealed class HtmlReportBrowserTests : IDisposable
     {
         var (r, c) = TestProjects.Demo();
         string path = Path.Combine(_dir, "report.html");
-        File.WriteAllText(path, HtmlReportWriter.Write(r, c, w));
+        File.WriteAllText(path, HtmlReportWriter.Write(ResultReport.Build(r, c).WithStandardisedResiduals(w)));
         return path;
     }
 

@@ -90,7 +90,7 @@ public class HtmlReportTests
     public void WithoutStandardisedResidualsTheHistogramIsLeftOutWithANote()
     {
         var (r, c) = TestProjects.Demo();
-        string html = HtmlReportWriter.Write(r, c, null);
+        string html = HtmlReportWriter.Write(ResultReport.Build(r, c).WithStandardisedResiduals(null));
         Assert.DoesNotContain("class=\"histogram\"", html);
         Assert.Contains("No standardised residuals are available", html);
         Assert.DoesNotContain("obs-fail", html);

@@ -1,0 +1,31 @@
+using NetAdjust.Network;
+using NetAdjust.Units;
+
+namespace NetAdjust.IO.Results;
+
+/// <summary>
+/// What the report model needs to know about an observation kind: its names in the outputs and its unit class.
+/// The one place of the outputs that switches on the kind.
+/// </summary>
+internal static class ObservationLabels
+{
+    /// <summary>The machine name (JSON, GeoJSON), e.g. <c>height_difference</c>.</summary>
+    public static string Key(ObservationKind kind) => kind.Name();
+
+    /// <summary>The name in running text and HTML tables, e.g. <c>height difference</c>.</summary>
+    public static string Words(ObservationKind kind) => kind.Name().Replace('_', ' ');
+
+    /// <summary>The name in the text report's narrow Kind column, e.g. <c>height</c>.</summary>
+    public static string Short(ObservationKind kind) =>
+        kind == ObservationKind.HeightDifference ? "height" : kind.Name();
+
+    /// <summary>True when values are angles (radians), false when lengths (metres).</summary>
+    public static bool IsAngular(ObservationKind kind) => kind.IsAngular();
+
+    /// <summary>The factor from SI to the JSON unit of residuals and standard deviations (arcsec or metres).</summary>
+    public static double JsonSmallFactor(ObservationKind kind) => IsAngular(kind) ? Angle.ArcsecondsPerRadian : 1.0;
+
+    /// <summary>An observed or adjusted value in the JSON unit (decimal degrees or metres).</summary>
+    public static double JsonValue(ObservationKind kind, double si) =>
+        IsAngular(kind) ? Angle.FromRadians(si).Degrees : si;
+}
