@@ -128,6 +128,7 @@ public static partial class ProjectReader
                 observations.Add(ReadLevelling(ctx, node, lengths, units, defaults, specs));
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
+        var listedTwice = new List<string>();
         if (ctx.Child(root, "files") is YamlNode files)
         {
             foreach (var node in ctx.Sequence(files, "files"))
@@ -139,18 +140,23 @@ public static partial class ProjectReader
                 { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
                 catch (ProjectFileException e) when (e.Line == 0)
                 { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
+                if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
                 observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
             }
         }
 
+        CheckDatumPoints(ctx, root, points);
         InputChecks.Points(points, displayName);
         InputChecks.Observations(observations, displayName);
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var network = new SurveyNetwork(name, points, observations);
         StatisticsSection.CheckPairs(root, displayName, network);
-        return new SurveyProject(network, units, options, inputs) { Crs = ReadCrs(ctx, root) };
+        return new SurveyProject(network, units, options, inputs)
+        {
+            Crs = ReadCrs(ctx, root), Warnings = ProjectWarnings.Find(network, listedTwice),
+        };
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;

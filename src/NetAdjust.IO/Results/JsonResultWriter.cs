@@ -42,6 +42,7 @@ public static class JsonResultWriter
         w.WriteString("run_date", context.RunDate.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
         w.WriteString("solver", r.SolverName);
         w.WriteString("datum", r.Options.Datum.Describe());
+        ReportWarnings.WriteJson(w, context);
         w.WriteStartObject("units");
         w.WriteString("length", "m");
         w.WriteString("angle", "deg");
