@@ -115,6 +115,7 @@ public static partial class ProjectReader
         if (ctx.Child(root, "points") is YamlNode pts)
             foreach (var node in ctx.Sequence(pts, "points"))
                 points.Add(ReadPoint(ctx, node, lengths));
+        InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
         PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
@@ -147,7 +148,6 @@ public static partial class ProjectReader
         }
 
         CheckDatumPoints(ctx, root, points);
-        InputChecks.Points(points, displayName);
         InputChecks.Observations(observations, displayName);
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
@@ -287,6 +287,7 @@ public static partial class ProjectReader
     private static double ReadSd(Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, string item)
     {
         double v = ParseSd(ctx.Scalar(node, item), kind, units, out string? err);
+        err ??= InputLimits.SdProblem(v, kind.IsAngular());
         return err is null ? v : throw ctx.Error(node, item, err);
     }
 
