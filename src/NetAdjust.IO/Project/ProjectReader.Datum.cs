@@ -19,6 +19,15 @@ public static partial class ProjectReader
         foreach (var (node, key) in named)
             if (ctx.Scalar(node, "datum." + key) is var id && !ids.Contains(id))
                 throw ctx.Error(node, "datum." + key, $"point '{id}' is not defined under 'points'");
+        // A held coordinate needs a value to hold.
+        foreach (var (node, key) in named)
+        {
+            var p = points.First(q => q.Id == ctx.Scalar(node, key));
+            if (key == "hold" && (p.E is null || p.N is null))
+                throw ctx.Error(node, "datum.hold", $"point {p.Id} has no given easting and northing to hold (give e and n)");
+            if (key == "hold_height" && p.H is null)
+                throw ctx.Error(node, "datum.hold_height", $"point {p.Id} has no given height to hold (give h)");
+        }
     }
 
     private static DatumDefinition ReadDatum(Context ctx, YamlMappingNode root)

@@ -14,13 +14,14 @@ internal static class YamlGuard
     {
         var parser = new Parser(new StringReader(text));
         var anchors = new HashSet<string>(StringComparer.Ordinal);
-        int depth = 0, documents = 0;
+        int depth = 0, documents = 0, lastLine = 1;
         try
         {
             while (parser.MoveNext())
             {
                 var ev = parser.Current!;
                 int line = (int)ev.Start.Line;
+                lastLine = Math.Max(1, line);
                 switch (ev)
                 {
                     case DocumentStart:
@@ -56,6 +57,10 @@ internal static class YamlGuard
         catch (YamlException e)
         {
             throw Explain(file, text, e);
+        }
+        catch (InvalidOperationException) // YamlDotNet's scanner fails this way, e.g. on an unclosed '{' or '['
+        {
+            throw ProjectReader.UnclosedBracket(file, text, lastLine);
         }
 
         void Anchor(AnchorName name)
