@@ -121,6 +121,23 @@ public sealed class HardeningTests : IDisposable
         Assert.Contains("output path is empty", run.Err);
     }
 
+    [Fact]
+    public void AnEmptySimulateOutputPathIsRefused()
+    {
+        var run = CliTests.Run("simulate", "--points", "20", "--out", "");
+        Assert.Equal(ExitCodes.OutputFailed, run.Code);
+        Assert.Contains("output path is empty", run.Err);
+    }
+
+    [Fact]
+    public void AMessageQuotesOnlyAShortExcerptOfALongValue()
+    {
+        string f = Demo(y => Replace(y, "{to: S1, value: 189.9390}", "{to: S1, value: " + new string('7', 200) + "x}"));
+        var run = CliTests.Run("check", f);
+        Assert.Equal(ExitCodes.InvalidInput, run.Code);
+        Assert.DoesNotContain(new string('7', 41), run.Err);
+    }
+
     // 5. When one output failed, earlier outputs had already been renamed over existing files.
     public static TheoryData<int> OutputPositions() => new() { 0, 1, 2, 3, 4, 5, 6 };
 
