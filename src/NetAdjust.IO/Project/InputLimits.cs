@@ -2,7 +2,8 @@ namespace NetAdjust.IO.Project;
 
 /// <summary>
 /// The documented limits on project input (docs/input-format.md, "Limits"). Input beyond them is refused with
-/// file, line and item before it can exhaust the stack, memory or time.
+/// file, line and item before it can exhaust the stack, memory or time. The values are this project's choices
+/// (common practice: generous bounds around any real survey), not taken from a standard.
 /// </summary>
 public static class InputLimits
 {
