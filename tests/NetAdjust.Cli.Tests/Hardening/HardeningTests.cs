@@ -378,6 +378,11 @@ public sealed class HardeningTests : IDisposable
         Assert.Contains("Warning   : point LOST", File.ReadAllText(report));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
         Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("point LOST"));
+        string html = Path.Combine(_tmp, "r.html"), seq = Path.Combine(_tmp, "s.txt");
+        Assert.Equal(0, CliTests.Run("adjust", f, "--quiet", "--html", html).Code);
+        Assert.Contains("<dt>Warning</dt><dd>point LOST", File.ReadAllText(html));
+        Assert.Equal(0, CliTests.Run("adjust", f, "--quiet", "--sequence", "--report", seq).Code);
+        Assert.Contains("Warning   : point LOST", File.ReadAllText(seq));
     }
 
     [Fact]
