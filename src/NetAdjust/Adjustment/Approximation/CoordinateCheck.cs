@@ -15,13 +15,16 @@ internal static class CoordinateCheck
     /// <summary>How many spacings of doubles (at the largest coordinate) the length tolerance must span at least.</summary>
     public const double MinToleranceUlps = 32;
 
+    /// <summary>Largest magnitude of a coordinate the adjustment accepts (metres); beyond it differences lose all precision.</summary>
+    public const double MaxCoordinate = 1e10;
+
     /// <exception cref="InvalidInputException">When a coordinate is not finite or two joined points coincide.</exception>
     public static void Check(SurveyNetwork network, Dictionary<string, double> e, Dictionary<string, double> n)
     {
         foreach (var p in network.Points)
-            if (e.TryGetValue(p.Id, out double x) && n.TryGetValue(p.Id, out double y) && !(double.IsFinite(x) && double.IsFinite(y)))
+            if (e.TryGetValue(p.Id, out double x) && n.TryGetValue(p.Id, out double y) && !(Math.Abs(x) <= MaxCoordinate && Math.Abs(y) <= MaxCoordinate))
                 throw new InvalidInputException($"point {p.Id}{Where(p.Source)}: its {(p.E is null ? "approximate " : "")}coordinates " +
-                    $"({G(x)}, {G(y)}) are not finite numbers: give coordinates of a sensible size");
+                    $"({G(x)}, {G(y)}) are beyond ±1e10 m or not numbers: give coordinates of a sensible size");
         foreach (var o in network.Observations)
         {
             if (o.Excluded || !ObservationModels.IsHorizontal(o.Kind)) continue;
