@@ -76,7 +76,7 @@ public sealed class FuzzTests : IDisposable
         File.WriteAllText(target, text);
         var before = Snapshot(dir);
 
-        string[] extra = c.Extra switch { 0 => ["--snoop"], 1 => ["--sequence"], 2 => ["--components"], _ => [] };
+        string[] extra = c.Extra switch { 0 => ["--snoop"], 1 => ["--sequence"], 2 => ["--components"], 4 => ["--robust", "huber"], _ => [] };
         var watch = Stopwatch.StartNew();
         var (code, _, err) = CliTests.Run(
             [c.Extra == 3 ? "check" : "adjust", project, .. c.Extra == 3 ? [] : (string[])["--quiet", "--date", "2026-12-01",
