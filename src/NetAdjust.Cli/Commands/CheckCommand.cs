@@ -9,7 +9,8 @@ internal static class CheckCommand
     public static Command Create(CliConsole console)
     {
         var file = new Argument<string>("FILE") { Description = "The project file (YAML) to validate." };
-        var cmd = new Command("check", "Read and validate a project file and its CSV files, and check the datum as adjust does; adjust nothing.") { file };
+        var cmd = new Command("check", "Read and validate a project file and its CSV files, and check the datum " +
+            "as adjust does; adjust nothing.") { file };
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             var project = ProjectReader.Read(parse.GetValue(file)!);

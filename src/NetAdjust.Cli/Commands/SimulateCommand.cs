@@ -36,7 +36,8 @@ internal static class SimulateCommand
             var spec = new SyntheticNetworkSpec(networkKind, n, parse.GetValue(seed)) { Neighbours = nb };
             var network = SyntheticNetworks.Create(spec);
             string path = parse.GetValue(output)!;
-            NetAdjust.IO.SafeFileWriter.CheckPlan([path], []); // an empty or unusable path: exit 4, not an internal error
+            NetAdjust.IO.SafeFileWriter.CheckPlan([path],
+                []); // an empty or unusable path: exit 4, not an internal error
             ProjectFileWriter.Write(network, path, string.Create(CultureInfo.InvariantCulture,
                 $"Synthetic network written by: netadjust simulate --kind {k} --points {n} --seed {spec.Seed} --neighbours {nb}"));
             console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,

@@ -19,7 +19,8 @@ internal static class InputChecks
             foreach (var (key, v) in new[] { ("e", p.E), ("n", p.N), ("h", p.H) })
                 if (v is double x && !(Math.Abs(x) <= InputLimits.MaxCoordinate))
                     throw new ProjectFileException(f, line, "point " + p.Id,
-                        $"{key} = {G(x)} m is beyond the limit of ±1e8 m for coordinates and heights (docs/input-format.md, \"Limits\")");
+                        $"{key} = {G(x)} m is beyond the limit of ±1e8 m for coordinates and heights " +
+                            $"(docs/input-format.md, \"Limits\")");
             foreach (var (key, v) in new[] { ("sd_e", p.SdE), ("sd_n", p.SdN), ("sd_h", p.SdH) })
                 if (v is double sd && InputLimits.SdProblem(sd, angular: false) is string problem)
                     throw new ProjectFileException(f, line, "point " + p.Id, $"{key}: {problem}");
@@ -37,9 +38,11 @@ internal static class InputChecks
             if (InputLimits.SdProblem(o.StandardDeviation, o.Kind.IsAngular()) is string problem)
                 throw new ProjectFileException(f, line, item, problem);
             if (!o.Kind.IsAngular() && !(Math.Abs(o.Value) <= InputLimits.MaxCoordinate))
-                throw new ProjectFileException(f, line, item, $"the value {G(o.Value)} m is beyond the limit of ±1e8 m for lengths");
+                throw new ProjectFileException(f, line, item, $"the value {G(o.Value)} m is beyond the limit of " +
+                    $"±1e8 m for lengths");
             if (o is HeightDifferenceObservation { LineLength: { } len } && !(len.Metres <= InputLimits.MaxCoordinate))
-                throw new ProjectFileException(f, line, item, $"the section length {G(len.Metres)} m is beyond the limit of 1e8 m");
+                throw new ProjectFileException(f, line, item, $"the section length {G(len.Metres)} m is beyond " +
+                    $"the limit of 1e8 m");
         }
     }
 
@@ -49,7 +52,8 @@ internal static class InputChecks
     /// </summary>
     public static void Tolerance(double tolerance, IEnumerable<Point> points, string file, int line)
     {
-        double largest = points.SelectMany(p => new[] { p.E, p.N, p.H }).OfType<double>().Select(Math.Abs).DefaultIfEmpty(0).Max();
+        double largest = points.SelectMany(p => new[] { p.E, p.N,
+            p.H }).OfType<double>().Select(Math.Abs).DefaultIfEmpty(0).Max();
         double least = MinimumTolerance(largest);
         if (tolerance < least)
             throw new ProjectFileException(file, line, "adjustment.tolerance",
@@ -60,7 +64,8 @@ internal static class InputChecks
     /// <summary>How many spacings of doubles (at the largest coordinate) the tolerance must span at least.</summary>
     public const double MinToleranceUlps = 32;
 
-    /// <summary>The smallest tolerance accepted at coordinates of magnitude <paramref name="largest"/> (metres).</summary>
+    /// <summary>The smallest tolerance accepted at coordinates of magnitude <paramref name="largest"/>
+    /// (metres).</summary>
     public static double MinimumTolerance(double largest) =>
         MinToleranceUlps * (Math.BitIncrement(Math.Max(largest, 1.0)) - Math.Max(largest, 1.0));
 
@@ -69,7 +74,8 @@ internal static class InputChecks
     private static (string File, int Line) Where(string? source, string file)
     {
         int colon = source?.LastIndexOf(':') ?? -1;
-        return colon > 0 && int.TryParse(source![(colon + 1)..], NumberStyles.None, CultureInfo.InvariantCulture, out int line)
+        return colon > 0 && int.TryParse(source![(colon + 1)..], NumberStyles.None, CultureInfo.InvariantCulture,
+            out int line)
             ? (source[..colon], line) : (file, 0);
     }
 }

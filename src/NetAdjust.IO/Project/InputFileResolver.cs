@@ -19,7 +19,8 @@ public abstract class InputFileResolver
     /// <param name="baseDirectory">The folder of the file that names the path.</param>
     /// <param name="path">The path as written (relative or absolute).</param>
     /// <exception cref="UnauthorizedAccessException">When the resolver does not allow the path.</exception>
-    public virtual string Resolve(string baseDirectory, string path) => Path.GetFullPath(Path.Combine(baseDirectory, path));
+    public virtual string Resolve(string baseDirectory, string path) => Path.GetFullPath(Path.Combine(baseDirectory,
+        path));
 
     /// <summary>Opens a resolved file for reading.</summary>
     /// <param name="fullPath">A path returned by <see cref="Resolve"/>.</param>

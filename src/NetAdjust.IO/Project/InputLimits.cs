@@ -37,7 +37,8 @@ public static class InputLimits
     /// <summary>Number of characters of the input quoted in a message at most.</summary>
     public const int ExcerptLength = 40;
 
-    /// <summary>The text clipped to a short excerpt for a message (never more than <see cref="ExcerptLength"/> characters).</summary>
+    /// <summary>The text clipped to a short excerpt for a message (never more than <see cref="ExcerptLength"/>
+    /// characters).</summary>
     /// <param name="text">The input text.</param>
     /// <returns>The text, or its start followed by '…' and the full length.</returns>
     public static string Excerpt(string text) =>
@@ -46,7 +47,8 @@ public static class InputLimits
     /// <summary>A parser message clipped to 200 characters.</summary>
     internal static string Excerpt200(string text) => text.Length <= 200 ? text : text[..200] + "…";
 
-    /// <summary>Null when the standard deviation (metres or radians) is in the sane range, else what is wrong.</summary>
+    /// <summary>Null when the standard deviation (metres or radians) is in the sane range, else what is
+    /// wrong.</summary>
     /// <param name="sd">The standard deviation in SI units.</param>
     /// <param name="angular">True for an angular standard deviation (radians).</param>
     internal static string? SdProblem(double sd, bool angular)
@@ -55,6 +57,7 @@ public static class InputLimits
         if (double.IsFinite(sd) && sd >= lo && sd <= hi) return null;
         string range = angular ? "1e-9 rad (0.0002 arcsec) to 1 rad" : "1 µm to 1 km";
         string value = sd.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) + (angular ? " rad" : " m");
-        return $"the standard deviation {value} is outside the accepted range ({range}; docs/input-format.md, \"Limits\")";
+        return $"the standard deviation {value} is outside the accepted range ({range}; docs/input-format.md, " +
+            $"\"Limits\")";
     }
 }

@@ -5,9 +5,11 @@ namespace NetAdjust.IO.Project;
 /// <summary>Reads input files within <see cref="InputLimits.MaxFileBytes"/> and decodes them as strict UTF-8.</summary>
 internal static class InputText
 {
-    private static readonly UTF8Encoding Strict = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
+    private static readonly UTF8Encoding Strict = new(encoderShouldEmitUTF8Identifier: false,
+        throwOnInvalidBytes: true);
 
-    /// <summary>Reads at most the size limit from the stream; refuses a longer stream (also an endless one such as /dev/zero).</summary>
+    /// <summary>Reads at most the size limit from the stream; refuses a longer stream (also an endless one such
+    /// as /dev/zero).</summary>
     public static byte[] ReadBounded(Stream stream, string file)
     {
         using var buffer = new MemoryStream();
@@ -17,7 +19,8 @@ internal static class InputText
         {
             if (buffer.Length + n > InputLimits.MaxFileBytes)
                 throw new ProjectFileException(file, 0, "",
-                    $"the file is larger than the limit of {InputLimits.MaxFileBytes / (1024 * 1024)} MiB (docs/input-format.md, \"Limits\")");
+                    $"the file is larger than the limit of {InputLimits.MaxFileBytes / (1024 * 1024)} MiB " +
+                        $"(docs/input-format.md, \"Limits\")");
             buffer.Write(chunk, 0, n);
         }
         return buffer.ToArray();
@@ -48,7 +51,8 @@ internal static class InputText
         int i = start;
         while (i < b.Length)
         {
-            var status = System.Text.Unicode.Utf8.ToUtf16(b.AsSpan(i), new char[Math.Min(4096, (b.Length - i) * 2 + 2)], out int read, out _,
+            var chars = new char[Math.Min(4096, ((b.Length - i) * 2) + 2)];
+            var status = System.Text.Unicode.Utf8.ToUtf16(b.AsSpan(i), chars, out int read, out _,
                 replaceInvalidSequences: false, isFinalBlock: true);
             if (status == System.Buffers.OperationStatus.Done) return null;
             if (status is System.Buffers.OperationStatus.InvalidData or System.Buffers.OperationStatus.NeedMoreData) return i + read;

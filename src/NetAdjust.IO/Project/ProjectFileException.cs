@@ -19,7 +19,8 @@ public sealed class ProjectFileException : InvalidInputException
     /// <summary>Input quoted in a message is clipped to a short excerpt (docs/input-format.md, "Limits").</summary>
     private static string Clip(string text)
     {
-        text = System.Text.RegularExpressions.Regex.Replace(text, "'([^'\\s]{41,})'", m => "'" + InputLimits.Excerpt(m.Groups[1].Value) + "'");
+        text = System.Text.RegularExpressions.Regex.Replace(text, "'([^'\\s]{41,})'", m => "'"
+            + InputLimits.Excerpt(m.Groups[1].Value) + "'");
         return text.Length <= 600 ? text : text[..600] + "…";
     }
 

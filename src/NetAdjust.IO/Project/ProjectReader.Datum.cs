@@ -6,7 +6,8 @@ namespace NetAdjust.IO.Project;
 /// <summary>The <c>datum:</c> section of a project file (docs/input-format.md, "Datum").</summary>
 public static partial class ProjectReader
 {
-    /// <summary>Every point the <c>datum:</c> section names must be defined under <c>points</c> (error at its line).</summary>
+    /// <summary>Every point the <c>datum:</c> section names must be defined under <c>points</c> (error at its
+    /// line).</summary>
     private static void CheckDatumPoints(Context ctx, YamlMappingNode root, IEnumerable<NetAdjust.Network.Point> points)
     {
         if (ctx.Child(root, "datum") is not YamlMappingNode m) return;
@@ -24,7 +25,8 @@ public static partial class ProjectReader
         {
             var p = points.First(q => q.Id == ctx.Scalar(node, key));
             if (key == "hold" && (p.E is null || p.N is null))
-                throw ctx.Error(node, "datum.hold", $"point {p.Id} has no given easting and northing to hold (give e and n)");
+                throw ctx.Error(node, "datum.hold", $"point {p.Id} has no given easting and northing to hold " +
+                    $"(give e and n)");
             if (key == "hold_height" && p.H is null)
                 throw ctx.Error(node, "datum.hold_height", $"point {p.Id} has no given height to hold (give h)");
         }

@@ -26,7 +26,8 @@ public static partial class ProjectReader
         }
         return fallbackLine > 0
             ? new ProjectFileException(displayName, fallbackLine, "",
-                "this is not valid YAML at or after this line: check the indentation and that every '{' or '[' is closed")
+                "this is not valid YAML at or after this line: check the indentation and that every '{' or '[' " +
+                    "is closed")
             : new ProjectFileException(displayName, 0, "", "this is not valid YAML: a '{' or '[' is not closed");
     }
 }

@@ -22,7 +22,8 @@ public static partial class ProjectReader
     /// <exception cref="InvalidInputException">When the network as a whole is inconsistent.</exception>
     public static SurveyProject Read(string path) => Read(path, InputFileResolver.FileSystem);
 
-    /// <summary>Reads a project file and its CSV files through <paramref name="resolver"/> (the only way files are opened).</summary>
+    /// <summary>Reads a project file and its CSV files through <paramref name="resolver"/> (the only way files
+    /// are opened).</summary>
     /// <param name="path">Path of the YAML project file.</param>
     /// <param name="resolver">Finds and opens the files, e.g. <see cref="InputFileResolver.ConfinedTo"/>.</param>
     /// <returns>The project.</returns>
@@ -39,7 +40,8 @@ public static partial class ProjectReader
         return Parse(text, path, Path.GetDirectoryName(full)!, resolver);
     }
 
-    /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref name="resolver"/>.</summary>
+    /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref
+    /// name="resolver"/>.</summary>
     /// <param name="text">The YAML text.</param>
     /// <param name="displayName">The file name used in messages.</param>
     /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
@@ -71,10 +73,13 @@ public static partial class ProjectReader
     /// <param name="displayName">The file name used in messages.</param>
     /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
     /// <param name="readFile">Reads a file given its full path.</param>
-    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string, string> readFile) =>
-        Parse(text, displayName, baseDirectory, rel => Path.GetFullPath(Path.Combine(baseDirectory, rel)), (full, _) => readFile(full));
+    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
+        string> readFile) =>
+        Parse(text, displayName, baseDirectory, rel => Path.GetFullPath(Path.Combine(baseDirectory, rel)), (full, _)
+            => readFile(full));
 
-    private static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string, string> resolve,
+    private static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
+        string> resolve,
         Func<string, string, string> readFile)
     {
         var ctx = new Context(displayName);

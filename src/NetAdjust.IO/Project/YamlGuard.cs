@@ -5,7 +5,8 @@ namespace NetAdjust.IO.Project;
 
 /// <summary>
 /// Checks project YAML before the document model is built (which recurses once per nesting level): one document
-/// only, nesting within <see cref="InputLimits.MaxNestingDepth"/>, values within <see cref="InputLimits.MaxValueLength"/>,
+/// only, nesting within <see cref="InputLimits.MaxNestingDepth"/>, values within <see
+/// cref="InputLimits.MaxValueLength"/>,
 /// every alias defined earlier. Parser errors are given the line of the offending character.
 /// </summary>
 internal static class YamlGuard
@@ -27,7 +28,8 @@ internal static class YamlGuard
                     case DocumentStart:
                         if (++documents > 1)
                             throw new ProjectFileException(file, line, "",
-                                "a second YAML document ('---') follows the project: a project file holds one document");
+                                "a second YAML document ('---') follows the project: a project file holds one " +
+                                    "document");
                         break;
                     case MappingStart or SequenceStart:
                         if (++depth > InputLimits.MaxNestingDepth)
@@ -42,14 +44,16 @@ internal static class YamlGuard
                     case Scalar s:
                         if (s.Value.Length > InputLimits.MaxValueLength)
                             throw new ProjectFileException(file, line, "",
-                                $"a value of {s.Value.Length} characters is longer than the limit of {InputLimits.MaxValueLength} " +
+                                $"a value of {s.Value.Length} characters is longer than the limit of " +
+                                    $"{InputLimits.MaxValueLength} " +
                                 $"(it starts '{InputLimits.Excerpt(s.Value)}'; docs/input-format.md, \"Limits\")");
                         Anchor(s.Anchor);
                         break;
                     case AnchorAlias a:
                         if (!anchors.Contains(a.Value.Value))
                             throw new ProjectFileException(file, line, "",
-                                $"this is not valid YAML: the alias '*{InputLimits.Excerpt(a.Value.Value)}' names no anchor defined above");
+                                $"this is not valid YAML: the alias '*{InputLimits.Excerpt(a.Value.Value)}' " +
+                                    $"names no anchor defined above");
                         break;
                 }
             }
@@ -81,7 +85,8 @@ internal static class YamlGuard
             "this is not valid YAML: a value has no key (a line starts with ':'); write 'key: value'");
     }
 
-    /// <summary>The parser's error with the line of the offending character where the parser's own line is off.</summary>
+    /// <summary>The parser's error with the line of the offending character where the parser's own line is
+    /// off.</summary>
     private static ProjectFileException Explain(string file, string text, YamlException e)
     {
         string message = (e.InnerException?.Message ?? e.Message).Split('\n')[0].Trim();

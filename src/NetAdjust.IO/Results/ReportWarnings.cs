@@ -3,7 +3,8 @@ using System.Text.Json;
 
 namespace NetAdjust.IO.Results;
 
-/// <summary>The project's warnings in the text report and the JSON result; nothing at all when there are none.</summary>
+/// <summary>The project's warnings in the text report and the JSON result; nothing at all when there are
+/// none.</summary>
 internal static class ReportWarnings
 {
     public static void AppendText(StringBuilder sb, ReportContext c)

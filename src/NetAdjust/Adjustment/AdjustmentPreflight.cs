@@ -12,7 +12,8 @@ public static class AdjustmentPreflight
     /// <summary>Runs the checks; returns normally when the adjustment can start.</summary>
     /// <param name="network">The network.</param>
     /// <param name="options">Options; null for <see cref="AdjustmentOptions.Default"/>.</param>
-    /// <exception cref="InvalidInputException">When options, coordinates or the datum's named points are invalid.</exception>
+    /// <exception cref="InvalidInputException">When options, coordinates or the datum's named points are
+    /// invalid.</exception>
     /// <exception cref="DatumDefectException">When the observations and control leave the datum undefined.</exception>
     public static void Check(SurveyNetwork network, AdjustmentOptions? options = null)
     {

@@ -21,16 +21,20 @@ public sealed class FuzzTests : IDisposable
     /// <summary>Generous: a demo adjusts in well under a second; a hang shows as tens of seconds.</summary>
     private static readonly TimeSpan TimeLimit = TimeSpan.FromSeconds(30);
 
-    private static readonly string[] Projects = ["brackenmoor.yaml", "brackenmoor-auto.yaml", "harrowfield-blunder.yaml", "harrowgate-control.yaml"];
+    private static readonly string[] Projects = ["brackenmoor.yaml", "brackenmoor-auto.yaml",
+        "harrowfield-blunder.yaml", "harrowgate-control.yaml"];
 
     private static readonly string[] Extremes =
-        ["1e308", "-1e308", "1e-300", "0", "-0", "NaN", ".inf", "1e999", "99999999999", "-1", "0.0000001", "1e30", "7-99-99", ""];
+        ["1e308", "-1e308", "1e-300", "0", "-0", "NaN", ".inf", "1e999", "99999999999", "-1", "0.0000001", "1e30",
+            "7-99-99", ""];
 
-    private static readonly string[] Ids = ["ZZ99", "bk01", "", "S1 S2", "BK01", "S1", "BMK1", "T1", "\u0391\u0392", "#", "x: y"];
+    private static readonly string[] Ids = ["ZZ99", "bk01", "", "S1 S2", "BK01", "S1", "BMK1", "T1", "\u0391\u0392",
+        "#", "x: y"];
 
     private static readonly string[] Lines =
-        ["---", ":", "&a [*a]", "points: []", "  - {id: X}", "    exclude: true", "files: [brackenmoor.yaml]", "datum: {mode: free}",
-         "datum: {mode: minimal, hold: S1}", "  - {to: S1, value: 0-00-00, exclude: true}", "adjustment: {tolerance: 1e-12}", "\t"];
+        ["---", ":", "&a [*a]", "points: []", "  - {id: X}", "    exclude: true", "files: [brackenmoor.yaml]",
+         "datum: {mode: free}", "datum: {mode: minimal, hold: S1}", "  - {to: S1, value: 0-00-00, exclude: true}",
+         "adjustment: {tolerance: 1e-12}", "\t"];
 
     private static readonly char[] Chars =
         [':', '{', '}', '[', ']', '-', '#', '\t', '"', '\'', ',', ' ', 'x', '0', '9', '.', '*', '&', '!', '|', '>', '%', '@', '\u00e9', '\r', '\n', '\0'];
@@ -42,13 +46,15 @@ public sealed class FuzzTests : IDisposable
     /// <summary>One mutation: what to do and three free numbers that pick lines, positions and replacements.</summary>
     public sealed record Op(int Kind, int A, int B, int C);
 
-    /// <summary>A fuzz case: which project, whether its CSV or the project file is mutated, the mutations, the extra option.</summary>
+    /// <summary>A fuzz case: which project, whether its CSV or the project file is mutated, the mutations, the
+    /// extra option.</summary>
     public sealed record Case(int Project, bool Csv, Op[] Ops, int Extra);
 
     private static Gen<Case> Cases =>
         from project in Gen.Choose(0, Projects.Length - 1)
         from csv in Gen.Frequency((1, Gen.Constant(true)), (4, Gen.Constant(false)))
-        from ops in Gen.ArrayOf(from k in Gen.Choose(0, 6) from a in Gen.Choose(0, 100_000) from b in Gen.Choose(0, 100_000)
+        from ops in Gen.ArrayOf(from k in Gen.Choose(0, 6) from a in Gen.Choose(0, 100_000)
+                                from b in Gen.Choose(0, 100_000)
                                 from c in Gen.Choose(0, 100_000) select new Op(k, a, b, c))
                        .Where(a => a.Length is >= 1 and <= 3)
         from extra in Gen.Choose(0, 9)
@@ -57,7 +63,8 @@ public sealed class FuzzTests : IDisposable
     [Fact]
     public void MutatedDemoFilesAreRefusedCleanlyOrAdjusted()
     {
-        int n = int.TryParse(Environment.GetEnvironmentVariable("NETADJUST_FUZZ_CASES"), NumberStyles.None, CultureInfo.InvariantCulture, out int v)
+        int n = int.TryParse(Environment.GetEnvironmentVariable("NETADJUST_FUZZ_CASES"), NumberStyles.None,
+            CultureInfo.InvariantCulture, out int v)
             ? v : DefaultCases;
         Prop.ForAll(Arb.From(Cases), c => Holds(c)).Check(Config.QuickThrowOnFailure.WithMaxTest(n));
     }
@@ -68,7 +75,8 @@ public sealed class FuzzTests : IDisposable
         string outDir = Path.Combine(dir, "out");
         Directory.CreateDirectory(outDir);
         string data = Path.Combine(CliTests.RepoRoot(), "data");
-        foreach (var f in Projects.Append("brackenmoor-levels.csv")) File.Copy(Path.Combine(data, f), Path.Combine(dir, f));
+        foreach (var f in Projects.Append("brackenmoor-levels.csv")) File.Copy(Path.Combine(data, f),
+            Path.Combine(dir, f));
         string project = Path.Combine(dir, Projects[c.Project]);
         string target = c.Csv ? Path.Combine(dir, "brackenmoor-levels.csv") : project;
         string text = File.ReadAllText(target);
@@ -76,16 +84,21 @@ public sealed class FuzzTests : IDisposable
         File.WriteAllText(target, text);
         var before = Snapshot(dir);
 
-        string[] extra = c.Extra switch { 0 => ["--snoop"], 1 => ["--sequence"], 2 => ["--components"], 4 => ["--robust", "huber"], _ => [] };
+        string[] extra = c.Extra switch
+        {
+            0 => ["--snoop"], 1 => ["--sequence"], 2 => ["--components"], 4 => ["--robust", "huber"], _ => [],
+        };
         var watch = Stopwatch.StartNew();
         var (code, _, err) = CliTests.Run(
-            [c.Extra == 3 ? "check" : "adjust", project, .. c.Extra == 3 ? [] : (string[])["--quiet", "--date", "2026-12-01",
+            [c.Extra == 3 ? "check" : "adjust", project, .. c.Extra == 3 ? [] : (string[])["--quiet", "--date",
+                "2026-12-01",
                 "--json", Path.Combine(outDir, "r.json"), "--csv", Path.Combine(outDir, "p.csv"), .. extra]]);
         watch.Stop();
 
         string why = "";
         if (code is not (0 or 1 or 2 or 3 or 4)) why = $"exit {code} is not documented";
-        else if (err.Contains("   at ", StringComparison.Ordinal) || err.Contains("internal error", StringComparison.Ordinal)) why = "stack trace or internal error";
+        else if (err.Contains("   at ", StringComparison.Ordinal) || err.Contains("internal error",
+            StringComparison.Ordinal)) why = "stack trace or internal error";
         else if (code == 2 && !Regex.IsMatch(err, @"[\w.-]+\.(yaml|csv):\d+")) why = "exit 2 without file and line";
         else if (watch.Elapsed > TimeLimit) why = $"took {watch.Elapsed.TotalSeconds:F1} s";
         else if (!before.SequenceEqual(Snapshot(dir))) why = "an input file changed";
@@ -93,7 +106,8 @@ public sealed class FuzzTests : IDisposable
         {
             string keep = Path.Combine(Path.GetTempPath(), "netadjust-fuzz-failure-" + Path.GetFileName(target));
             File.WriteAllText(keep, text);
-            throw new InvalidOperationException($"{why} (mutated {Path.GetFileName(target)} kept at {keep}; exit {code}): {err}");
+            throw new InvalidOperationException($"{why} (mutated {Path.GetFileName(target)} kept at {keep}; exit " +
+                $"{code}): {err}");
         }
         Directory.Delete(dir, recursive: true);
         return true;
@@ -130,5 +144,6 @@ public sealed class FuzzTests : IDisposable
     /// <summary>Name and SHA-256 of every file under <paramref name="folder"/> except outputs, in name order.</summary>
     internal static List<string> Snapshot(string folder) =>
         Directory.GetFiles(folder).Order(StringComparer.Ordinal)
-            .Select(f => Path.GetFileName(f) + " " + Convert.ToHexString(SHA256.HashData(File.ReadAllBytes(f)))).ToList();
+            .Select(f => Path.GetFileName(f) + " "
+                + Convert.ToHexString(SHA256.HashData(File.ReadAllBytes(f)))).ToList();
 }

@@ -18,7 +18,8 @@ public sealed class HardeningTests : IDisposable
 
     private static string Data(string name) => Path.Combine(CliTests.RepoRoot(), "data", name);
 
-    /// <summary>A copy of the Brackenmoor demo (project and level CSV) in the temporary folder, edited by <paramref name="edit"/>.</summary>
+    /// <summary>A copy of the Brackenmoor demo (project and level CSV) in the temporary folder, edited by
+    /// <paramref name="edit"/>.</summary>
     private string Demo(Func<string, string>? edit = null, Func<string, string>? editCsv = null)
     {
         string yaml = File.ReadAllText(Data("brackenmoor.yaml"));
@@ -52,7 +53,8 @@ public sealed class HardeningTests : IDisposable
         return path;
     }
 
-    private static void AssertRefused(string file, int line, (int Code, string Out, string Err) run, int code = ExitCodes.InvalidInput)
+    private static void AssertRefused(string file, int line, (int Code, string Out, string Err) run,
+        int code = ExitCodes.InvalidInput)
     {
         Assert.True(run.Code == code, $"exit {run.Code}: {run.Err}");
         Assert.Contains($"{Path.GetFileName(file)}:{line}:", run.Err);
@@ -96,7 +98,8 @@ public sealed class HardeningTests : IDisposable
     [Fact]
     public void AStandardDeviationOutsideTheSaneRangeInACsvIsRefused()
     {
-        string f = Demo(editCsv: c => Replace(Replace(c, "kind,from,to,value,length,level", "kind,from,to,value,length,level,sd"),
+        string f = Demo(editCsv: c => Replace(Replace(c, "kind,from,to,value,length,level",
+            "kind,from,to,value,length,level,sd"),
             "-3.78618,610,DL10", "-3.78618,610,,1e-300").Replace("DL10\n", "DL10,\n"));
         var run = CliTests.Run("adjust", f, "--quiet");
         AssertRefused(Path.Combine(_tmp, "brackenmoor-levels.csv"), 6, run);
@@ -109,7 +112,8 @@ public sealed class HardeningTests : IDisposable
         var run = CliTests.Run("adjust", f, "--quiet");
         Assert.NotEqual(ExitCodes.InternalError, run.Code);
         Assert.Equal(ExitCodes.InvalidInput, run.Code);
-        Assert.Matches(@"site\.yaml:\d+: direction BK01→S1: the standard deviation .* is outside the accepted range", run.Err);
+        Assert.Matches(@"site\.yaml:\d+: direction BK01→S1: the standard deviation .* is outside the accepted range",
+            run.Err);
     }
 
     // 4. An empty output path gave exit 70.
@@ -168,7 +172,8 @@ public sealed class HardeningTests : IDisposable
     public void OutputsReplaceEarlierFilesWhenAllSucceed()
     {
         string json = Write("r.json", "earlier"), csv = Write("p.csv", "earlier");
-        var run = CliTests.Run("adjust", Data("brackenmoor.yaml"), "--quiet", "--json", json, "--csv", csv, "--report", Path.Combine(_tmp, "r.txt"));
+        var run = CliTests.Run("adjust", Data("brackenmoor.yaml"), "--quiet", "--json", json, "--csv", csv,
+            "--report", Path.Combine(_tmp, "r.txt"));
         Assert.True(run.Code == 0, run.Err);
         Assert.StartsWith("{", File.ReadAllText(json));
         Assert.NotEqual("earlier", File.ReadAllText(csv));
@@ -202,7 +207,8 @@ public sealed class HardeningTests : IDisposable
     [Fact]
     public void ATruncatedSequenceAtTheEndIsRefused()
     {
-        string f = WriteBytes("cut.yaml", Encoding.UTF8.GetBytes("points:\n  - {id: A, e: 1, n: 2, fix: en}\n# ").Concat(new byte[] { 0xE2, 0x82 }).ToArray());
+        string f = WriteBytes("cut.yaml", Encoding.UTF8.GetBytes("points:\n  - {id: A, e: 1, n: 2, fix: en}\n# " +
+            "").Concat(new byte[] { 0xE2, 0x82 }).ToArray());
         AssertRefused(f, 3, CliTests.Run("check", f));
     }
 
@@ -282,7 +288,8 @@ public sealed class HardeningTests : IDisposable
     [Fact]
     public void CheckFailsLikeAdjustWhenTheControlLeavesTheDatumUndefined()
     {
-        string f = Demo(y => Replace(y, "{id: BK01, e: 2150.000, n: 5320.000, fix: en}", "{id: BK01, e: 2150.000, n: 5320.000}"));
+        string f = Demo(y => Replace(y, "{id: BK01, e: 2150.000, n: 5320.000, fix: en}", "{id: BK01, e: " +
+            "2150.000, n: 5320.000}"));
         var check = CliTests.Run("check", f);
         var adjust = CliTests.Run("adjust", f, "--quiet");
         Assert.Equal(ExitCodes.AdjustmentFailed, adjust.Code);
@@ -294,7 +301,8 @@ public sealed class HardeningTests : IDisposable
     [Fact]
     public void ADirectionSetWhollySetAsideCreatesNoOrientationUnknown()
     {
-        string f = Demo(y => Replace(Replace(y, "{to: S1, value: 278-08-53.8}", "{to: S1, value: 278-08-53.8, exclude: true}"),
+        string f = Demo(y => Replace(Replace(y, "{to: S1, value: 278-08-53.8}", "{to: S1, value: 278-08-53.8, " +
+            "exclude: true}"),
             "{to: S3, value: 55-54-55.1}", "{to: S3, value: 55-54-55.1, exclude: true}"));
         string json = Path.Combine(_tmp, "r.json");
         var run = CliTests.Run("adjust", f, "--quiet", "--json", json);
@@ -345,7 +353,8 @@ public sealed class HardeningTests : IDisposable
     {
         // Northings of 5,500 km: doubles there are 9.3e-10 m apart (IEEE 754 binary64, common practice).
         string f = Demo(y => Regex.Replace(Replace(y, "  alpha: 0.05", "  alpha: 0.05\n  tolerance: 1e-10"),
-            @"n: (5\d\d\d\.\d+)", m => "n: " + (5_500_000 + double.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture))
+            @"n: (5\d\d\d\.\d+)", m => "n: " + (5_500_000 + double.Parse(m.Groups[1].Value,
+                System.Globalization.CultureInfo.InvariantCulture))
                 .ToString("F3", System.Globalization.CultureInfo.InvariantCulture)));
         var run = CliTests.Run("adjust", f, "--quiet");
         AssertRefused(f, LineOf(File.ReadAllText(f), "tolerance:"), run);
@@ -377,7 +386,8 @@ public sealed class HardeningTests : IDisposable
         Assert.Contains("warning: point LOST", run.Err);
         Assert.Contains("Warning   : point LOST", File.ReadAllText(report));
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
-        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("point LOST"));
+        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w
+            => w.GetString()!.Contains("point LOST"));
         string html = Path.Combine(_tmp, "r.html"), seq = Path.Combine(_tmp, "s.txt");
         Assert.Equal(0, CliTests.Run("adjust", f, "--quiet", "--html", html).Code);
         Assert.Contains("<dt>Warning</dt><dd>point LOST", File.ReadAllText(html));
@@ -404,7 +414,8 @@ public sealed class HardeningTests : IDisposable
         string f = which switch
         {
             "ids" => Demo(y => Replace(y, "  - {id: BMK5}\n", "  - {id: BMK5}\n  - {id: bmk5}\n")),
-            "twice" => Demo(y => Replace(y, "  - brackenmoor-levels.csv", "  - brackenmoor-levels.csv\n  - brackenmoor-levels.csv")),
+            "twice" => Demo(y => Replace(y, "  - brackenmoor-levels.csv", "  - brackenmoor-levels.csv\n  - " +
+                "brackenmoor-levels.csv")),
             _ => Write("empty.yaml", "points:\n  - {id: A, e: 1, n: 2, fix: en}\n"),
         };
         string expected = which switch
@@ -429,7 +440,8 @@ public sealed class HardeningTests : IDisposable
         Directory.CreateDirectory(inner);
         File.WriteAllText(Path.Combine(_tmp, "day1.csv"), "kind,from,to,value,sd\ndistance,A,B,100.0,0.003\n");
         string f = Path.Combine(inner, "p.yaml");
-        File.WriteAllText(f, "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 100, n: 0}\nfiles:\n  - ../day1.csv\n");
+        File.WriteAllText(f, "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 100, n: 0}\nfiles:\n  - " +
+            "../day1.csv\n");
         Assert.Single(ProjectReader.Read(f).Network.Observations);
         var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Read(f, InputFileResolver.ConfinedTo(inner)));
         Assert.Equal(5, e.Line);
@@ -441,7 +453,8 @@ public sealed class HardeningTests : IDisposable
     {
         var files = new Dictionary<string, string>
         {
-            ["/virtual/p.yaml"] = "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 100, n: 0}\nfiles: [obs.csv]\n",
+            ["/virtual/p.yaml"] = "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 100, n: 0}\nfiles: " +
+                "[obs.csv]\n",
             ["/virtual/obs.csv"] = "kind,from,to,value,sd\ndistance,A,B,100.0,0.003\n",
         };
         var project = ProjectReader.Read("/virtual/p.yaml", new MemoryResolver(files));
@@ -451,6 +464,7 @@ public sealed class HardeningTests : IDisposable
     private sealed class MemoryResolver(Dictionary<string, string> files) : InputFileResolver
     {
         public override Stream Open(string fullPath) =>
-            files.TryGetValue(fullPath, out var text) ? new MemoryStream(Encoding.UTF8.GetBytes(text)) : throw new FileNotFoundException(fullPath);
+            files.TryGetValue(fullPath, out var text) ? new MemoryStream(Encoding.UTF8.GetBytes(text))
+                : throw new FileNotFoundException(fullPath);
     }
 }

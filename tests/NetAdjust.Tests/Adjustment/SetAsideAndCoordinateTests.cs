@@ -58,7 +58,8 @@ public sealed class SetAsideAndCoordinateTests
         var net = TestNetworks.Horizontal(seed: 13);
         var p21 = net["P21"];
         var points = net.Points.Select(p => p.Id == "P22" ? p with { E = p21.E, N = p21.N } : p).ToList();
-        var e = Assert.Throws<InvalidInputException>(() => Adjuster.Adjust(new SurveyNetwork(net.Name, points, net.Observations)));
+        var e = Assert.Throws<InvalidInputException>(() => Adjuster.Adjust(new SurveyNetwork(net.Name, points,
+            net.Observations)));
         Assert.Contains("have the same coordinates", e.Message);
         Assert.Contains("P21", e.Message);
         Assert.Contains("P22", e.Message);
@@ -69,7 +70,8 @@ public sealed class SetAsideAndCoordinateTests
     {
         var net = TestNetworks.Horizontal(seed: 14);
         var points = net.Points.Select(p => p.Id == "P22" ? p with { E = 1e308 } : p).ToList();
-        var e = Assert.Throws<InvalidInputException>(() => Adjuster.Adjust(new SurveyNetwork(net.Name, points, net.Observations)));
+        var e = Assert.Throws<InvalidInputException>(() => Adjuster.Adjust(new SurveyNetwork(net.Name, points,
+            net.Observations)));
         Assert.Contains("point P22", e.Message);
     }
 
@@ -79,9 +81,11 @@ public sealed class SetAsideAndCoordinateTests
         // At northings of 5,500 km doubles are 2^-30 m ≈ 9.3e-10 m apart (IEEE 754 binary64, common practice).
         var net = TestNetworks.Horizontal(seed: 15);
         var far = new SurveyNetwork(net.Name, net.Points.Select(p => p with { N = p.N + 5_500_000 }), net.Observations);
-        var e = Assert.Throws<InvalidInputException>(() => Adjuster.Adjust(far, AdjustmentOptions.Default with { LengthTolerance = 1e-10 }));
+        var e = Assert.Throws<InvalidInputException>(() => Adjuster.Adjust(far,
+            AdjustmentOptions.Default with { LengthTolerance = 1e-10 }));
         Assert.Contains("can never be met", e.Message);
-        Assert.Throws<InvalidInputException>(() => AdjustmentPreflight.Check(far, AdjustmentOptions.Default with { LengthTolerance = 1e-10 }));
+        Assert.Throws<InvalidInputException>(() => AdjustmentPreflight.Check(far,
+            AdjustmentOptions.Default with { LengthTolerance = 1e-10 }));
         Assert.Equal(0, Adjuster.Adjust(far).Statistics.Unknowns - Adjuster.Adjust(net).Statistics.Unknowns);
     }
 }

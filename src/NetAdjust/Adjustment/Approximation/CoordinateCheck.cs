@@ -12,18 +12,23 @@ namespace NetAdjust.Adjustment.Approximation;
 /// </summary>
 internal static class CoordinateCheck
 {
-    /// <summary>How many spacings of doubles (at the largest coordinate) the length tolerance must span at least.</summary>
+    /// <summary>How many spacings of doubles (at the largest coordinate) the length tolerance must span at
+    /// least.</summary>
     public const double MinToleranceUlps = 32;
 
-    /// <summary>Largest magnitude of a coordinate the adjustment accepts (metres); beyond it differences lose all precision.</summary>
+    /// <summary>Largest magnitude of a coordinate the adjustment accepts (metres); beyond it differences lose
+    /// all precision.</summary>
     public const double MaxCoordinate = 1e10;
 
-    /// <exception cref="InvalidInputException">When a coordinate is not finite or two joined points coincide.</exception>
+    /// <exception cref="InvalidInputException">When a coordinate is not finite or two joined points
+    /// coincide.</exception>
     public static void Check(SurveyNetwork network, Dictionary<string, double> e, Dictionary<string, double> n)
     {
         foreach (var p in network.Points)
-            if (e.TryGetValue(p.Id, out double x) && n.TryGetValue(p.Id, out double y) && !(Math.Abs(x) <= MaxCoordinate && Math.Abs(y) <= MaxCoordinate))
-                throw new InvalidInputException($"point {p.Id}{Where(p.Source)}: its {(p.E is null ? "approximate " : "")}coordinates " +
+            if (e.TryGetValue(p.Id, out double x) && n.TryGetValue(p.Id, out double y)
+                && !(Math.Abs(x) <= MaxCoordinate && Math.Abs(y) <= MaxCoordinate))
+                throw new InvalidInputException($"point {p.Id}{Where(p.Source)}: its " +
+                    $"{(p.E is null ? "approximate " : "")}coordinates " +
                     $"({G(x)}, {G(y)}) are beyond ±1e10 m or not numbers: give coordinates of a sensible size");
         foreach (var o in network.Observations)
         {
@@ -38,9 +43,11 @@ internal static class CoordinateCheck
                     if (Math.Abs(ea - eb) + Math.Abs(na - nb) > 1e-12 * scale) continue;
                     bool given = network[ids[a]].E is not null && network[ids[b]].E is not null;
                     throw new InvalidInputException(
-                        $"{o.Describe()}: points {ids[a]} and {ids[b]} have the same {(given ? "" : "approximate ")}coordinates " +
+                        $"{o.Describe()}: points {ids[a]} and {ids[b]} have the same " +
+                            $"{(given ? "" : "approximate ")}coordinates " +
                         $"({G(ea)}, {G(na)}), so the direction between them is undefined. " +
-                        (given ? "Check the coordinates given for them (a copied line?)." : "Give approximate coordinates (e, n) for them."));
+                        (given ? "Check the coordinates given for them (a copied line?)." : "Give approximate " +
+                            "coordinates (e, n) for them."));
                 }
         }
     }
@@ -55,12 +62,14 @@ internal static class CoordinateCheck
         double largest = 1.0;
         foreach (var p in network.Points)
             foreach (var par in new[] { Parameter.E, Parameter.N, Parameter.H })
-                if (state.TryGet(p.Id, par, out double v) && double.IsFinite(v)) largest = Math.Max(largest, Math.Abs(v));
+                if (state.TryGet(p.Id, par, out double v) && double.IsFinite(v))
+                    largest = Math.Max(largest, Math.Abs(v));
         double least = MinToleranceUlps * (Math.BitIncrement(largest) - largest);
         if (tolerance < least)
             throw new InvalidInputException(
-                $"The convergence tolerance {G(tolerance)} m can never be met: at coordinates of {G(largest)} m doubles are " +
-                $"spaced {G(Math.BitIncrement(largest) - largest)} m apart. Give a tolerance of at least {G(least)} m.");
+                $"The convergence tolerance {G(tolerance)} m can never be met: at coordinates of {G(largest)} m " +
+                $"doubles are spaced {G(Math.BitIncrement(largest) - largest)} m apart. " +
+                $"Give a tolerance of at least {G(least)} m.");
     }
 
     private static string Where(string? source) => source is null ? "" : $" ({source})";
