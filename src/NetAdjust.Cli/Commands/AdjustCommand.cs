@@ -43,7 +43,11 @@ internal static class AdjustCommand
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
             if (!parse.GetValue(quiet)) project = project with { Options = project.Options with { Progress = new ProgressPrinter(console.Error) } };
-            var context0 = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
+            foreach (var w in project.Warnings) console.Error.WriteLine($"warning: {w}");
+            var context0 = new ReportContext(path, runDate, project.Units)
+            {
+                ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
+            };
             string text;
             AdjustmentResult result;
             ReportContext context;

@@ -20,14 +20,14 @@ internal static class CsvObservationReader
         IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null)
     {
         var result = new List<Observation>();
-        string[] lines = text.Split('\n');
+        string[] lines = text.Split(["\r\n", "\r", "\n"], StringSplitOptions.None); // CR, LF and CRLF alike
         Dictionary<string, int>? col = null;
         for (int i = 0; i < lines.Length; i++)
         {
             int lineNo = i + 1;
             string line = lines[i].TrimEnd('\r');
             if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
-            string[] f = line.Split(',').Select(s => s.Trim()).ToArray();
+            string[] f = CsvLimits.Fields(line, file, lineNo);
             if (col is null)
             {
                 col = new Dictionary<string, int>(StringComparer.Ordinal);

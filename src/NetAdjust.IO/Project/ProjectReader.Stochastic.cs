@@ -113,6 +113,12 @@ public static partial class ProjectReader
     {
         try { return make(); }
         catch (InvalidInputException e) when (e is not ProjectFileException) { throw ctx.Error(node, item, e.Message); } // already names file, line and item
+        catch (ArgumentException) // a contribution overflowed (e.g. centering over a sight of 1e-300 m)
+        {
+            throw ctx.Error(node, item, "the standard deviation derived from the specification is not a finite " +
+                "number " +
+                "(a sight length near zero?); see docs/input-format.md, \"Limits\"");
+        }
     }
 
     /// <summary>A length ≥ 0 in the project's unit (suffix allowed); 0 when the key is absent.</summary>

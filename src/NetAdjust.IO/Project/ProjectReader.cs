@@ -21,15 +21,52 @@ public static partial class ProjectReader
     /// <returns>The project.</returns>
     /// <exception cref="ProjectFileException">When a file is missing or invalid.</exception>
     /// <exception cref="InvalidInputException">When the network as a whole is inconsistent.</exception>
-    public static SurveyProject Read(string path)
+    public static SurveyProject Read(string path) => Read(path, InputFileResolver.FileSystem);
+
+    /// <summary>Reads a project file and its CSV files through <paramref name="resolver"/> (the only way files
+    /// are opened).</summary>
+    /// <param name="path">Path of the YAML project file.</param>
+    /// <param name="resolver">Finds and opens the files, e.g. <see cref="InputFileResolver.ConfinedTo"/>.</param>
+    /// <returns>The project.</returns>
+    /// <exception cref="ProjectFileException">When a file is missing, not allowed or invalid.</exception>
+    /// <exception cref="InvalidInputException">When the network as a whole is inconsistent.</exception>
+    public static SurveyProject Read(string path, InputFileResolver resolver)
     {
-        string full = Path.GetFullPath(path);
-        if (!File.Exists(full)) throw new ProjectFileException(path, 0, "", "the project file does not exist");
-        string text;
-        try { text = File.ReadAllText(full); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        { throw new ProjectFileException(path, 0, "", $"the project file cannot be read ({e.Message})"); }
-        return Parse(text, path, Path.GetDirectoryName(full)!, p => File.ReadAllText(p));
+        ArgumentNullException.ThrowIfNull(resolver);
+        string full;
+        try { full = resolver.Resolve(Directory.GetCurrentDirectory(), path); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        { throw new ProjectFileException(path, 0, "", $"the project file cannot be read ({FirstLine(e.Message)})"); }
+        string text = ReadText(resolver, full, path, "the project file");
+        return Parse(text, path, Path.GetDirectoryName(full)!, resolver);
+    }
+
+    /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref
+    /// name="resolver"/>.</summary>
+    /// <param name="text">The YAML text.</param>
+    /// <param name="displayName">The file name used in messages.</param>
+    /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
+    /// <param name="resolver">Finds and opens the CSV files.</param>
+    public static SurveyProject Parse(string text, string displayName, string baseDirectory, InputFileResolver resolver)
+    {
+        ArgumentNullException.ThrowIfNull(resolver);
+        return Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
+            (full, rel) => ReadText(resolver, full, rel, "the observation file"));
+    }
+
+    private static string ReadText(InputFileResolver resolver, string full, string shown, string what)
+    {
+        byte[] bytes;
+        try
+        {
+            using var stream = resolver.Open(full);
+            bytes = InputText.ReadBounded(stream, shown);
+        }
+        catch (FileNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
+        catch (DirectoryNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        { throw new ProjectFileException(shown, 0, "", $"{what} cannot be read ({FirstLine(e.Message)})"); }
+        return InputText.Decode(bytes, shown);
     }
 
     /// <summary>Parses project text. CSV files it names are read through <paramref name="readFile"/>.</summary>
@@ -37,12 +74,20 @@ public static partial class ProjectReader
     /// <param name="displayName">The file name used in messages.</param>
     /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
     /// <param name="readFile">Reads a file given its full path.</param>
-    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string, string> readFile)
+    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
+        string> readFile) =>
+        Parse(text, displayName, baseDirectory, rel => Path.GetFullPath(Path.Combine(baseDirectory, rel)), (full, _)
+            => readFile(full));
+
+    private static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
+        string> resolve,
+        Func<string, string, string> readFile)
     {
         var ctx = new Context(displayName);
         YamlMappingNode root;
         try
         {
+            YamlGuard.Check(text, displayName);
             var stream = new YamlStream();
             stream.Load(new StringReader(text));
             if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
@@ -52,6 +97,10 @@ public static partial class ProjectReader
         catch (YamlException e)
         {
             throw new ProjectFileException(displayName, (int)e.Start.Line, "", "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
+        }
+        catch (ArgumentException) // YamlDotNet's document model refuses some event orders the parser lets through
+        {
+            throw YamlGuard.Unreadable(displayName, text);
         }
         catch (InvalidOperationException) // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
         {
@@ -72,6 +121,7 @@ public static partial class ProjectReader
         if (ctx.Child(root, "points") is YamlNode pts)
             foreach (var node in ctx.Sequence(pts, "points"))
                 points.Add(ReadPoint(ctx, node, lengths));
+        InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
         PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
@@ -85,24 +135,34 @@ public static partial class ProjectReader
                 observations.Add(ReadLevelling(ctx, node, lengths, units, defaults, specs));
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
+        var listedTwice = new List<string>();
         if (ctx.Child(root, "files") is YamlNode files)
         {
             foreach (var node in ctx.Sequence(files, "files"))
             {
                 string rel = ctx.Scalar(node, "a CSV file path");
-                string full = Path.GetFullPath(Path.Combine(baseDirectory, rel));
-                string csv;
-                try { csv = readFile(full); }
-                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                string full, csv;
+                try { full = resolve(rel); csv = readFile(full, rel); }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
                 { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
+                catch (ProjectFileException e) when (e.Line == 0)
+                { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
+                if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
                 observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
             }
         }
 
+        CheckDatumPoints(ctx, root, points);
+        InputChecks.Observations(observations, displayName);
+        if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
+            InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var network = new SurveyNetwork(name, points, observations);
         StatisticsSection.CheckPairs(root, displayName, network);
-        return new SurveyProject(network, units, options, inputs) { Crs = ReadCrs(ctx, root) };
+        return new SurveyProject(network, units, options, inputs)
+        {
+            Crs = ReadCrs(ctx, root), Warnings = ProjectWarnings.Find(network, listedTwice),
+        };
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;
@@ -213,6 +273,7 @@ public static partial class ProjectReader
     private static double ReadSd(Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, string item)
     {
         double v = ParseSd(ctx.Scalar(node, item), kind, units, out string? err);
+        err ??= InputLimits.SdProblem(v, kind.IsAngular());
         return err is null ? v : throw ctx.Error(node, item, err);
     }
 

@@ -83,6 +83,7 @@ public static class JsonResultWriter
             RunDate = c.RunDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             Solver = r.SolverName,
             Datum = r.Options.Datum.Describe(),
+            Warnings = ReportWarnings.ForJson(c),
             Units = new("m", "deg", "arcsec"),
             Statistics = new(s.Observations, s.Unknowns, s.DegreesOfFreedom, s.Vtpv, s.AprioriVarianceFactor,
                 Finite(s.VarianceFactor), Finite(s.Sigma0), s.Iterations,

@@ -14,6 +14,10 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// <summary>The project's coordinate reference system (<c>EPSG:code</c>), or null for local coordinates.</summary>
     public string? Crs { get; init; }
 
+    /// <summary>Warnings about legal but suspicious data (<see cref="Project.SurveyProject.Warnings"/>); empty
+    /// for none.</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
+
     /// <summary>The blunder hunt that produced the result, when one was run (its log is reported).</summary>
     public NetAdjust.Statistics.BlunderHunt? Hunt { get; init; }
 

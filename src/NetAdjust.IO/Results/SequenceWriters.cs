@@ -73,6 +73,7 @@ public static class SequenceReportWriter
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
         Line($"Step 1    : {s.MinimalDatum}");
         Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");
+        ReportWarnings.AppendText(sb, c);
         Line();
         Line("SOLUTIONS");
         Line($"  {"",-24} {"r",6} {"vTPv",12} {"variance factor",16}  global test");

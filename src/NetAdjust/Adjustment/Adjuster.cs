@@ -1,3 +1,4 @@
+using NetAdjust.Adjustment.Approximation;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
@@ -26,6 +27,7 @@ public static partial class Adjuster
 
         var plan = DatumPlan.Create(network, options.Datum);
         var (index, state) = (plan.Index, plan.State);
+        CoordinateCheck.CheckTolerance(state, network, options.LengthTolerance);
         var control = plan.UsesControl ? ControlRows(network, index) : [];
         int n = network.Observations.Count + control.Count;
         int u = index.Count;
@@ -99,6 +101,8 @@ public static partial class Adjuster
         }
         var orientations = network.Observations.OfType<DirectionObservation>()
             .Select(d => (d.SetId, d.Station)).Distinct()
+            .Where(s => index.IndexOf(s.SetId,
+                Parameter.Orientation) >= 0) // a set wholly set aside has no orientation unknown
             .Select(s =>
             {
                 int j = index.IndexOf(s.SetId, Parameter.Orientation);
@@ -200,8 +204,10 @@ public static partial class Adjuster
         double? Value(Parameter par, double? given) => state.TryGet(p.Id, par, out double v) ? v : given;
         int ie = index.IndexOf(p.Id, Parameter.E), inn = index.IndexOf(p.Id, Parameter.N), ih = index.IndexOf(p.Id, Parameter.H);
         double? Sd(int i, bool inAdjustment) => i >= 0 && f is not null ? Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(i, i))) : inAdjustment ? 0.0 : null;
-        bool inPlane = state.TryGet(p.Id, Parameter.E, out _);
-        bool inHeight = state.TryGet(p.Id, Parameter.H, out _);
+        // A point reached only by set-aside observations is no unknown and no control: it gets no standard deviation.
+        bool inPlane = state.TryGet(p.Id, Parameter.E, out _) && (ie >= 0 || inn >= 0 || p.IsFixed(Fixity.E)
+            || p.IsFixed(Fixity.N));
+        bool inHeight = state.TryGet(p.Id, Parameter.H, out _) && (ih >= 0 || p.IsFixed(Fixity.H));
         double? cov = ie >= 0 && inn >= 0 && f is not null ? s0 * f.InverseEntry(ie, inn) : inPlane ? 0.0 : null;
         return new AdjustedPoint(p, Value(Parameter.E, p.E), Value(Parameter.N, p.N), Value(Parameter.H, p.H),
             Sd(ie, inPlane), Sd(inn, inPlane), Sd(ih, inHeight), cov);

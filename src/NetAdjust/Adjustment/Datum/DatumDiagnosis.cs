@@ -30,9 +30,9 @@ internal static class DatumDiagnosis
             return x;
         }
         // Set-aside observations carry no weight: they neither join parts nor fix scale or orientation.
-        var all = network.Observations.Where(o => ObservationModels.IsHorizontal(o.Kind) == plane).ToList();
-        var obs = all.Where(o => !o.Excluded).ToList();
-        foreach (var o in all)
+        var obs = network.Observations.Where(o => ObservationModels.IsHorizontal(o.Kind) == plane
+            && !o.Excluded).ToList();
+        foreach (var o in obs)
             foreach (var id in o.Points) parent.TryAdd(id, id);
         foreach (var o in obs)
         {

@@ -188,9 +188,15 @@ internal sealed class DatumPlan
         DatumDiagnosis.Check(network, definition);
         var plane = new HashSet<string>(StringComparer.Ordinal);
         var height = new HashSet<string>(StringComparer.Ordinal);
+        // Points and direction sets reached only by set-aside observations get no unknowns (they carry no weight);
+        // they keep their given or approximate values so that those observations are still reported.
+        var active = new HashSet<(string, bool)>();
         foreach (var o in network.Observations)
             foreach (var id in o.Points)
+            {
                 (ObservationModels.IsHorizontal(o.Kind) ? plane : height).Add(id);
+                if (!o.Excluded) active.Add((id, ObservationModels.IsHorizontal(o.Kind)));
+            }
 
         var e = new Dictionary<string, double>(StringComparer.Ordinal);
         var nn = new Dictionary<string, double>(StringComparer.Ordinal);
@@ -202,23 +208,24 @@ internal sealed class DatumPlan
         }
         ApproximateCoordinates.Plane(network, plane, e, nn, seedWhenNothingKnown: definition.Mode != DatumMode.Control);
         ApproximateCoordinates.Heights(network, height, h);
+        CoordinateCheck.Check(network, e, nn);
 
         bool control = definition.Mode == DatumMode.Control;
-        var planePoints = network.Points.Select(p => p.Id).Where(plane.Contains).ToList();
-        var heightPoints = network.Points.Select(p => p.Id).Where(height.Contains).ToList();
+        var planePoints = network.Points.Select(p => p.Id).Where(id => active.Contains((id, true))).ToList();
+        var heightPoints = network.Points.Select(p => p.Id).Where(id => active.Contains((id, false))).ToList();
         var sel = Select(network, definition, planePoints, heightPoints, e, nn);
         var index = new UnknownIndex();
         foreach (var p in network.Points)
         {
             bool heldInFull = sel.HeldPoints.Contains(p.Id);
-            if (plane.Contains(p.Id))
+            if (active.Contains((p.Id, true)))
             {
                 if (heldInFull && (p.E is null || p.N is null))
                     throw new InvalidInputException($"datum: point {p.Id} is held for the minimal constraints but has no given easting and northing");
                 if (!heldInFull && (!control || !p.IsFixed(Fixity.E))) index.Add(new Unknown(p.Id, Parameter.E));
                 if (!heldInFull && (!control || !p.IsFixed(Fixity.N))) index.Add(new Unknown(p.Id, Parameter.N));
             }
-            if (height.Contains(p.Id))
+            if (active.Contains((p.Id, false)))
             {
                 if (!control || !p.IsFixed(Fixity.H)) index.Add(new Unknown(p.Id, Parameter.H));
             }
@@ -231,7 +238,7 @@ internal sealed class DatumPlan
             orientation[set.Key] = SetOrientation.Mean(set.Select(d => PlaneGeometry.Azimuth(d.Station,
                 new PlanePoint(e[d.Station], nn[d.Station]), d.Target, new PlanePoint(e[d.Target], nn[d.Target])).Value
                 - d.Reading.Radians))!.Value;
-            index.Add(new Unknown(set.Key, Parameter.Orientation));
+            if (set.Any(d => !d.Excluded)) index.Add(new Unknown(set.Key, Parameter.Orientation));
         }
         var state = new ParameterState(e, nn, h, orientation);
         return new DatumPlan(network, definition, index, state, planePoints, heightPoints,
