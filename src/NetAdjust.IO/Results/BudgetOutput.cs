@@ -1,3 +1,4 @@
+using NetAdjust.Observations;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;

@@ -1,3 +1,4 @@
+using NetAdjust.Observations;
 using System.Globalization;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;

@@ -1,3 +1,4 @@
+using NetAdjust.Observations;
 using System.Text.Json;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;

@@ -1,3 +1,4 @@
+using NetAdjust.Observations;
 using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
@@ -219,5 +220,5 @@ internal static class StatisticsReport
         if (line.Length > 0) yield return line.ToString();
     }
 
-    private static string Kind(ObservationKind k) => k == ObservationKind.HeightDifference ? "height" : k.Name();
+    private static string Kind(ObservationKind k) => ObservationKindRegistry.Of(k).ReportLabel;
 }

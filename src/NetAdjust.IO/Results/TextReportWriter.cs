@@ -1,3 +1,4 @@
+using NetAdjust.Observations;
 using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
@@ -116,9 +117,5 @@ public static class TextReportWriter
 
     private static string AngleName(AngleFormat f) => f switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
 
-    private static string ShortKind(ObservationKind k) => k switch
-    {
-        ObservationKind.HeightDifference => "height",
-        _ => k.Name(),
-    };
+    private static string ShortKind(ObservationKind k) => ObservationKindRegistry.Of(k).ReportLabel;
 }

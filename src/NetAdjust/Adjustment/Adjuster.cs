@@ -2,6 +2,7 @@ using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment;
 
@@ -163,8 +164,8 @@ public static partial class Adjuster
         for (int i = 0; i < m; i++)
         {
             var o = network.Observations[i];
-            var eq = ObservationModels.Evaluate(o, state);
-            l[i] = -ObservationModels.Difference(o.Kind, eq.Value, o.Value);
+            var eq = ObservationKindRegistry.Evaluate(o, state);
+            l[i] = -ObservationKindRegistry.Difference(o.Kind, eq.Value, o.Value);
             var cols = new List<int>(eq.Partials.Length);
             var vals = new List<double>(eq.Partials.Length);
             foreach (var p in eq.Partials)

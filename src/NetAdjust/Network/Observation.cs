@@ -21,7 +21,10 @@ public enum ObservationKind
     HeightDifference,
 }
 
-/// <summary>Names and properties of observation kinds.</summary>
+/// <summary>
+/// The identity of observation kinds: their file and JSON names. Everything else about a kind is in its
+/// description in <c>NetAdjust.Observations</c> (see <c>ObservationKindRegistry</c>).
+/// </summary>
 public static class ObservationKinds
 {
     /// <summary>The snake_case name used in files and JSON (e.g. <c>height_difference</c>).</summary>
@@ -35,11 +38,6 @@ public static class ObservationKinds
         ObservationKind.HeightDifference => "height_difference",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
-
-    /// <summary>True for kinds whose values are angles (radians internally).</summary>
-    /// <param name="kind">The kind.</param>
-    public static bool IsAngular(this ObservationKind kind) =>
-        kind is ObservationKind.Direction or ObservationKind.Angle or ObservationKind.Azimuth;
 
     /// <summary>All kinds in documentation order.</summary>
     public static IReadOnlyList<ObservationKind> All { get; } = Enum.GetValues<ObservationKind>();

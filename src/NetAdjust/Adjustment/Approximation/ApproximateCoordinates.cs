@@ -2,6 +2,7 @@ using System.Runtime.CompilerServices;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
 using NetAdjust.Units;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment.Approximation;
 
@@ -270,7 +271,7 @@ internal static class ApproximateCoordinates
         var mine = ObservationsOf(network, first);
         var dist = mine.OfType<DistanceObservation>().FirstOrDefault();
         string? other = dist is null ? null : dist.From == first ? dist.To : dist.From;
-        other ??= mine.Where(o => ObservationModels.IsHorizontal(o.Kind))
+        other ??= mine.Where(o => ObservationKindRegistry.IsHorizontal(o.Kind))
             .SelectMany(o => o.Points).FirstOrDefault(p => p != first);
         if (other is null) return;
         double d = dist?.Value ?? 100.0;

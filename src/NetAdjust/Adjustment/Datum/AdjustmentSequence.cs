@@ -1,6 +1,7 @@
 using MathNet.Numerics.Distributions;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment;
 
@@ -168,7 +169,8 @@ public static class AdjustmentSequence
         var heightIds = heightParts.SelectMany(p => p.Points).ToHashSet(StringComparer.Ordinal);
         var planeControl = network.Points.Where(p => planeIds.Contains(p.Id) && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue)).ToList();
         var heightControl = network.Points.Where(p => heightIds.Contains(p.Id) && (p.IsFixed(Fixity.H) || p.SdH.HasValue)).ToList();
-        bool rotationOrScale = !network.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded) || !network.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
+        var fixes = ObservationKindRegistry.FixedBy(network.Observations);
+        bool rotationOrScale = !fixes.HasFlag(DatumElements.Orientation) || !fixes.HasFlag(DatumElements.Scale);
         bool planeOk = planeIds.Count == 0 || planeControl.Count >= (rotationOrScale ? 2 : 1);
         bool heightOk = heightIds.Count == 0 || heightControl.Count >= 1;
         // Reference objects (control placed by a sight line only) cannot float in a free network: hold them instead.

@@ -2,6 +2,7 @@ using NetAdjust.Adjustment.Approximation;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment;
 
@@ -87,8 +88,8 @@ internal sealed class DatumPlan
         var defects = new List<Defect>();
         var heldPoints = new HashSet<string>(StringComparer.Ordinal);
         if (definition.Mode == DatumMode.Control) return new Selection(defects, null, null, null, null, false, heldPoints);
-        bool azimuth = network.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded);
-        bool distance = network.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
+        var fixes = ObservationKindRegistry.FixedBy(network.Observations);
+        bool azimuth = fixes.HasFlag(DatumElements.Orientation), distance = fixes.HasFlag(DatumElements.Scale);
         if (planePoints.Count > 0)
         {
             defects.Add(Defect.East);
@@ -171,8 +172,8 @@ internal sealed class DatumPlan
         var rayStations = new HashSet<string>(StringComparer.Ordinal);
         foreach (var o in ApproximateCoordinates.ObservationsOf(network, id))
         {
-            if (!ObservationModels.IsHorizontal(o.Kind) || o.Excluded) continue;
-            if (o.Kind == ObservationKind.Distance) count += 2;
+            if (!ObservationKindRegistry.IsHorizontal(o.Kind) || o.Excluded) continue;
+            if (ObservationKindRegistry.Of(o).Fixes.HasFlag(DatumElements.Scale)) count += 2; // a measured length
             else if (o.At == id) count++;
             else rayStations.Add(o.At ?? (o.From == id ? o.To : o.From));
         }
@@ -189,7 +190,7 @@ internal sealed class DatumPlan
         var height = new HashSet<string>(StringComparer.Ordinal);
         foreach (var o in network.Observations)
             foreach (var id in o.Points)
-                (ObservationModels.IsHorizontal(o.Kind) ? plane : height).Add(id);
+                (ObservationKindRegistry.IsHorizontal(o.Kind) ? plane : height).Add(id);
 
         var e = new Dictionary<string, double>(StringComparer.Ordinal);
         var nn = new Dictionary<string, double>(StringComparer.Ordinal);

@@ -1,6 +1,7 @@
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment;
 
@@ -61,8 +62,8 @@ public static class STransformation
         var net = result.Network;
         var idx = result.Unknowns;
         var plane = result.Points.Where(p => idx.IndexOf(p.Id, Parameter.E) >= 0 || idx.IndexOf(p.Id, Parameter.N) >= 0).ToList();
-        bool rot = !net.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded);
-        bool scale = !net.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
+        var fixes = ObservationKindRegistry.FixedBy(net.Observations);
+        bool rot = !fixes.HasFlag(DatumElements.Orientation), scale = !fixes.HasFlag(DatumElements.Scale);
         bool height = idx.Unknowns.Any(x => x.Parameter == Parameter.H);
         var cols = new List<Func<Unknown, double>>();
         double ce = plane.Count > 0 ? plane.Average(p => p.E!.Value) : 0, cn = plane.Count > 0 ? plane.Average(p => p.N!.Value) : 0;
@@ -113,8 +114,8 @@ public static class STransformation
     {
         var net = result.Network;
         var idx = result.Unknowns;
-        bool rot = !net.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded);
-        bool scale = !net.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
+        var fixes = ObservationKindRegistry.FixedBy(net.Observations);
+        bool rot = !fixes.HasFlag(DatumElements.Orientation), scale = !fixes.HasFlag(DatumElements.Scale);
         bool height = idx.Unknowns.Any(x => x.Parameter == Parameter.H);
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
         PlanePoint At(string id) => new(byId[id].E!.Value, byId[id].N!.Value);
