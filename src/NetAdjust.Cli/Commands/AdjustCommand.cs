@@ -4,6 +4,7 @@ using NetAdjust.Adjustment;
 using NetAdjust.IO;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.Cli.Commands;
 

@@ -2,6 +2,7 @@ using System.CommandLine;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Cli.Commands;

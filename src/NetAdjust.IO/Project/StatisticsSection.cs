@@ -1,4 +1,5 @@
 using System.Globalization;
+using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
 using YamlDotNet.RepresentationModel;
 

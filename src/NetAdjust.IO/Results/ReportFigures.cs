@@ -5,7 +5,7 @@ namespace NetAdjust.IO.Results;
 
 /// <summary>
 /// What the report and exchange writers take from a result beyond its coordinates, all from the shared statistics
-/// (<see cref="AdjustmentResult.Analysis"/>), so that every output shows the same numbers: the error ellipses, the
+/// (<c>AdjustmentResult.Analysis</c>), so that every output shows the same numbers: the error ellipses, the
 /// standardised residuals w and the w-test critical value; plus the roles of the points.
 /// </summary>
 internal static class ReportFigures

@@ -3,6 +3,7 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using NetAdjust.Adjustment;
+using NetAdjust.Procedures;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;

@@ -2,6 +2,7 @@ using NetAdjust.Observations;
 using System.Text.Json;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
 

@@ -4,6 +4,7 @@ using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
 

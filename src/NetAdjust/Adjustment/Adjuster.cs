@@ -1,7 +1,6 @@
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
-using NetAdjust.Statistics;
 using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment;

@@ -24,8 +24,8 @@ public sealed record AdjustmentOptions
     /// <summary>How the datum is defined: by the control (default), by minimal constraints, or by inner constraints (free network).</summary>
     public DatumDefinition Datum { get; init; } = DatumDefinition.ByControl;
 
-    /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <see cref="AdjustmentResult.Analysis"/>.</summary>
-    public Statistics.AnalysisOptions Analysis { get; init; } = Statistics.AnalysisOptions.Default;
+    /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <c>AdjustmentResult.Analysis</c> (NetAdjust.Statistics).</summary>
+    public AnalysisOptions Analysis { get; init; } = AnalysisOptions.Default;
 
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }

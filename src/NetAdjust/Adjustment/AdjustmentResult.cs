@@ -1,7 +1,6 @@
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
-using NetAdjust.Statistics;
 
 namespace NetAdjust.Adjustment;
 
@@ -72,16 +71,7 @@ public sealed class AdjustmentResult
         Network = network; Options = options; Unknowns = unknowns; _factor = factor;
         Points = points; Observations = observations; Orientations = orientations; Statistics = statistics;
         SolverName = solverName; DesignRows = designRows; Weights = weights;
-        _analysis = new Lazy<NetworkAnalysis>(() => ResultAnalysis.Analyse(this, options.Analysis));
     }
-
-    private readonly Lazy<NetworkAnalysis> _analysis;
-
-    /// <summary>
-    /// The post-adjustment statistics (redundancy numbers, w and tau tests, MDB, external reliability, absolute and
-    /// relative ellipses) with <see cref="AdjustmentOptions.Analysis"/>; computed on first use, then kept.
-    /// </summary>
-    public NetworkAnalysis Analysis => _analysis.Value;
 
     /// <summary>True when the adjustment has unknowns, so that <see cref="Cofactor"/> and <see cref="Solve"/> can be used.</summary>
     public bool HasFactor => _factor is not null;

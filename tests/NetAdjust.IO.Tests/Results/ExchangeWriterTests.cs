@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Xml.Linq;
+using NetAdjust.Statistics;
 using nietras.SeparatedValues;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Results;

@@ -1,4 +1,5 @@
 using NetAdjust.IO.Project;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.IO.Tests.Review;
 

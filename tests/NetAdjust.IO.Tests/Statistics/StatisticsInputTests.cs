@@ -1,3 +1,4 @@
+using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
 using NetAdjust.Statistics;

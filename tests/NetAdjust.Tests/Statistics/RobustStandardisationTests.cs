@@ -1,5 +1,6 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Statistics;

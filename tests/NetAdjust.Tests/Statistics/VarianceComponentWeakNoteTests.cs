@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.RegularExpressions;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
 

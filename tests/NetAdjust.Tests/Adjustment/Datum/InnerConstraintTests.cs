@@ -3,6 +3,8 @@ using FsCheck.Xunit;
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Adjustment.Datum;
 

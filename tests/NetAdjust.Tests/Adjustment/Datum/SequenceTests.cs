@@ -2,6 +2,8 @@ using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Adjustment.Datum;
 
@@ -115,7 +117,7 @@ public class SequenceTests
     public void WithAnEstimatedVarianceFactorTheFTestDecides()
     {
         var sim = DatumNetworks.Grid(46, 4, Five, disturb: (12, 0.03, 0.04));
-        var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = NetAdjust.Statistics.VarianceFactorBasis.Estimated } };
+        var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = VarianceFactorBasis.Estimated } };
         var s = AdjustmentSequence.Run(sim.Network, options);
         Assert.True(s.Test.SigmaEstimated);
         Assert.Equal(s.Test.PassedF, s.Test.Passed);

@@ -1,7 +1,8 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Procedures;
 
 /// <summary>The estimated variance component(s) of one observation group.</summary>
 /// <param name="Kind">The observation kind of the group.</param>

@@ -1,9 +1,11 @@
 using MathNet.Numerics.Distributions;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
 using NetAdjust.Observations;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Procedures;
 
 /// <summary>
 /// The test of the added constraints: does the control fit the observations? T = (Ω_c − Ω_m)/σ0², the increase
@@ -115,7 +117,7 @@ public static class AdjustmentSequence
         int dr = sc.DegreesOfFreedom - sm.DegreesOfFreedom;
         double inc = sc.Vtpv - sm.Vtpv;
         double alpha = options.GlobalTestAlpha;
-        bool estimated = options.Analysis.VarianceFactor == Statistics.VarianceFactorBasis.Estimated;
+        bool estimated = options.Analysis.VarianceFactor == VarianceFactorBasis.Estimated;
         var test = dr <= 0
             ? new ConstraintTest(alpha, Math.Max(dr, 0), inc, inc / s2, null, null, null, estimated)
             : new ConstraintTest(alpha, dr, inc, inc / s2, ChiSquared.InvCDF(dr, 1 - alpha),

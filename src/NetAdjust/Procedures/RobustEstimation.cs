@@ -1,7 +1,8 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Procedures;
 
 /// <summary>The weight function of an iteratively re-weighted adjustment.</summary>
 public enum RobustMethod

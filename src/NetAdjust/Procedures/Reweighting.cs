@@ -1,6 +1,8 @@
+using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Procedures;
 
 /// <summary>Changes an observation's standard deviation for re-weighting, scaling its error budget with it.</summary>
 internal static class Reweighting
