@@ -1,9 +1,10 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
+using System.Text;
 using NetAdjust.IO.Project;
+using NetAdjust.Network;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 

@@ -1,7 +1,7 @@
-using NetAdjust.Observations;
 using System.Globalization;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 using YamlDotNet.Core;
 using YamlDotNet.RepresentationModel;
@@ -74,7 +74,6 @@ public static partial class ProjectReader
                 points.Add(ReadPoint(ctx, node, lengths));
 
         var specs = ReadSpecifications(ctx, root, units, points);
-        PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
@@ -96,7 +95,7 @@ public static partial class ProjectReader
                 catch (Exception e) when (e is IOException or UnauthorizedAccessException)
                 { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.WeightingOfLevel));
             }
         }
 
@@ -169,8 +168,8 @@ public static partial class ProjectReader
             string t = ctx.Scalar(cn, "adjustment.centering");
             o = t switch
             {
-                "independent" => o with { WeightModel = null },
-                "correlated" => o with { WeightModel = NetAdjust.Stochastic.SetupCenteringWeightModel.Instance },
+                "independent" => o with { Centering = NetAdjust.Stochastic.CenteringModel.Independent },
+                "correlated" => o with { Centering = NetAdjust.Stochastic.CenteringModel.Correlated },
                 _ => throw ctx.Error(cn, "adjustment.centering", $"'{t}' must be 'independent' (diagonal weights) or 'correlated' (one covariance block per setup)"),
             };
         }
@@ -319,7 +318,7 @@ public static partial class ProjectReader
         FinishSetup(ctx, at, spec, output, specs, setupOutput);
     }
 
-    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, NetAdjust.Stochastic.TargetSpecification? Target) ReadSighting(
+    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, TargetSpecification? Target) ReadSighting(
         Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem,
         SetupSpec spec, StochasticInputs specs)
     {
@@ -334,7 +333,7 @@ public static partial class ProjectReader
         // Precedence: explicit sd, then the setup's instrument specification (not for azimuths), then default_sd.
         bool fromSpec = spec.Instrument is not null && kind != ObservationKind.Azimuth && ctx.Child(m, "sd") is null;
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
-            : fromSpec ? 1.0 // replaced by the budget's total in FinishSetup
+            : fromSpec ? double.NaN // derived from the specifications by the stochastic model
             : defaults.TryGetValue(kind, out double d) ? d
             : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
         return (to, value, sd, $"{ctx.File}:{Line(node)}", fromSpec, target);
@@ -356,13 +355,13 @@ public static partial class ProjectReader
             if (!(l.Metres > 0)) throw ctx.Error(ln, item, "the section length must be positive");
             len = l;
         }
-        var budget = LevellingBudget(ctx, m, item, len, specs);
+        var weighting = LevellingWeighting(ctx, m, item, len, specs);
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
-            : budget is not null ? budget.Total
+            : weighting is not null ? double.NaN // derived from the level by the stochastic model
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
             : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
         var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
-        return ObservationMarks.Apply(budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o, node, ctx.File);
+        return ObservationMarks.Apply(weighting is not null && ctx.Child(m, "sd") is null ? o with { Weighting = weighting } : o, node, ctx.File);
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>

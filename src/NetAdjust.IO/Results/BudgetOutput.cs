@@ -1,10 +1,11 @@
-using NetAdjust.Observations;
 using System.Globalization;
-using System.Text;
 using System.Text.Json;
+using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
+using NetAdjust.Observations;
+using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;
@@ -21,10 +22,10 @@ internal static class BudgetOutput
     /// Writes <c>"sd_components": {name: value}</c> in the observation's JSON units (metres, or arcsec for angles
     /// via <paramref name="factor"/>). Their root-sum-square equals <c>sd</c>. A stated sd is one component, <c>stated</c>.
     /// </summary>
-    public static void WriteComponents(Utf8JsonWriter w, Observation o, double factor)
+    public static void WriteComponents(Utf8JsonWriter w, AdjustedObservation o, double factor)
     {
         w.WriteStartObject("sd_components");
-        if (o.Budget is null) w.WriteNumber(Stated, o.StandardDeviation * factor);
+        if (o.Budget is null) w.WriteNumber(Stated, o.Input.StandardDeviation * factor);
         else
             foreach (var c in o.Budget.Contributions) w.WriteNumber(c.Name, c.Value * factor);
         w.WriteEndObject();
@@ -36,18 +37,18 @@ internal static class BudgetOutput
     /// </summary>
     public static void AppendSummary(StringBuilder sb, AdjustmentResult r, ReportContext c)
     {
-        var withBudget = r.Network.Observations.Where(o => o.Budget is not null).ToList();
+        var withBudget = r.Observations.Where(o => o.Budget is not null).ToList();
         if (withBudget.Count == 0) return;
         var u = c.Units;
         var sdLen = new LengthPattern(u.Length, 4);
         double radPerUnit = u.AngleSd.RadiansPerUnit();
         void Line(string s = "") => sb.Append(s).Append('\n');
         Line($"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
-        Line($"  Weights: {r.Options.WeightModel?.Description ?? "independent observations (diagonal weights)"}");
+        Line($"  Weights: {StochasticModel.Describe(r.Options.Centering)}");
         Line("  Per group: root-mean-square of each contribution, and its share of the group's mean variance.");
         foreach (var kind in ObservationKinds.All)
         {
-            var group = withBudget.Where(o => o.Kind == kind).ToList();
+            var group = withBudget.Where(o => o.Input.Kind == kind).ToList();
             if (group.Count == 0) continue;
             int all = r.Network.Observations.Count(o => o.Kind == kind);
             Line($"  {kind.Name().Replace('_', ' ')} ({group.Count} of {all} observations)");
@@ -55,7 +56,7 @@ internal static class BudgetOutput
             foreach (var o in group)
                 foreach (var ct in o.Budget!.Contributions)
                     if (!names.Contains(ct.Name)) names.Add(ct.Name);
-            double meanVar = group.Average(o => o.StandardDeviation * o.StandardDeviation);
+            double meanVar = group.Average(o => o.Input.StandardDeviation * o.Input.StandardDeviation);
             string Fmt(double si) => kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
             foreach (string name in names)
             {
@@ -70,11 +71,11 @@ internal static class BudgetOutput
         foreach (var ao in r.Observations)
         {
             var o = ao.Input;
-            if (o.Budget is null) continue;
+            if (ao.Budget is null) continue;
             string Fmt(double si) => o.Kind.IsAngular() ? (si / radPerUnit).ToString("F2", Inv) : sdLen.Format(Length.FromMetres(si));
             // Wrapped to the report's 100 columns: "   12 total 2.18 = name value, name value, ..."
             var line = new StringBuilder($"  {ao.Index + 1,4} total {Fmt(o.StandardDeviation)} =");
-            var items = o.Budget.Contributions.Select(x => $"{x.Name} {Fmt(x.Value)}").ToList();
+            var items = ao.Budget.Contributions.Select(x => $"{x.Name} {Fmt(x.Value)}").ToList();
             for (int k = 0; k < items.Count; k++)
             {
                 string piece = " " + items[k] + (k < items.Count - 1 ? "," : "");

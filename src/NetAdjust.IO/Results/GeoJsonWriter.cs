@@ -1,10 +1,10 @@
-using NetAdjust.Observations;
-using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
+using System.Text;
 using NetAdjust.Adjustment;
-using NetAdjust.Statistics;
 using NetAdjust.Network;
+using NetAdjust.Observations;
+using NetAdjust.Statistics;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;

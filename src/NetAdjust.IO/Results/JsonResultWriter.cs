@@ -1,10 +1,10 @@
-using NetAdjust.Observations;
-using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
+using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;
@@ -104,7 +104,7 @@ public static class JsonResultWriter
             w.WriteNumber("adjusted", ang ? Angle.FromRadians(o.Adjusted).Degrees : o.Adjusted);
             w.WriteNumber("residual", o.Residual * k);
             w.WriteNumber("sd", i.StandardDeviation * k);
-            BudgetOutput.WriteComponents(w, i, k);
+            BudgetOutput.WriteComponents(w, o, k);
             w.WriteNumber("sd_adjusted", o.SdAdjusted * k);
             if (i.Source is not null) w.WriteString("source", i.Source);
             StatisticsJson.WriteObservation(w, r, o);

@@ -1,7 +1,7 @@
 using System.Globalization;
-using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
+using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.Procedures;
 using NetAdjust.Units;

@@ -1,7 +1,7 @@
-using NetAdjust.Observations;
 using System.Text.Json;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 using NetAdjust.Units;

@@ -1,9 +1,9 @@
-using NetAdjust.Observations;
 using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 using NetAdjust.Units;

@@ -31,10 +31,10 @@ public sealed record AdjustmentOptions
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
 
     /// <summary>
-    /// Builds the weight matrix; null for diagonal weights σ0²/σᵢ². <see cref="Stochastic.SetupCenteringWeightModel"/>
-    /// correlates the observations of one setup through the instrument's centering error.
+    /// How instrument centering enters the weights: independent (diagonal weights σ0²/σᵢ², the default) or
+    /// correlated within each setup (see <see cref="Stochastic.StochasticModel"/>).
     /// </summary>
-    public IWeightModel? WeightModel { get; init; }
+    public Stochastic.CenteringModel Centering { get; init; } = Stochastic.CenteringModel.Independent;
 
     /// <summary>Receives progress reports (phase and percent) during the adjustment; null for none. Called on the adjusting thread.</summary>
     public IProgress<AdjustmentProgress>? Progress { get; init; }

@@ -28,7 +28,14 @@ public sealed record AdjustedPoint(Point Input, double? E, double? N, double? H,
 /// <param name="Residual">v = adjusted − observed (reduced to (−π, π] for angles).</param>
 /// <param name="SdAdjusted">Standard deviation of the adjusted value, √(a Qxx aᵀ) scaled by σ0.</param>
 /// <param name="Index">Position in the network's observation list.</param>
-public sealed record AdjustedObservation(Observation Input, double Adjusted, double Residual, double SdAdjusted, int Index);
+public sealed record AdjustedObservation(Observation Input, double Adjusted, double Residual, double SdAdjusted, int Index)
+{
+    /// <summary>
+    /// The error budget behind the observation's standard deviation (named contributions whose root-sum-square is
+    /// it), at the adjusted coordinates; null when the standard deviation was given directly.
+    /// </summary>
+    public Stochastic.ErrorBudget? Budget { get; init; }
+}
 
 /// <summary>An adjusted orientation unknown of a direction set.</summary>
 /// <param name="SetId">The set id.</param>

@@ -25,6 +25,9 @@ public sealed class AngleKind : IObservationKind
     public DatumElements Fixes => DatumElements.None;
 
     /// <inheritdoc />
+    public Measurement Measurement => Measurement.CircleReadingDifference;
+
+    /// <inheritdoc />
     public ObservationColumns Columns { get; } =
         new("angles", ["from", "to", "value", "sd", "target"], ["at", "from", "to", "value", "sd"]);
 

@@ -28,6 +28,9 @@ public sealed class AzimuthKind : IObservationKind
     public DatumElements Fixes => DatumElements.Orientation;
 
     /// <inheritdoc />
+    public Measurement Measurement => Measurement.Given;
+
+    /// <inheritdoc />
     public ObservationColumns Columns { get; } = new("azimuths", ["to", "value", "sd"], ["from", "to", "value", "sd"]);
 
     /// <inheritdoc />

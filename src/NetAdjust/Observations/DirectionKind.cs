@@ -25,6 +25,9 @@ public sealed class DirectionKind : IObservationKind
     public DatumElements Fixes => DatumElements.None;
 
     /// <inheritdoc />
+    public Measurement Measurement => Measurement.CircleReading;
+
+    /// <inheritdoc />
     public ObservationColumns Columns { get; } =
         new("directions", ["to", "value", "sd", "target"], ["at", "to", "value", "sd", "set"]);
 

@@ -25,6 +25,9 @@ public sealed class DistanceKind : IObservationKind
     public DatumElements Fixes => DatumElements.Scale;
 
     /// <inheritdoc />
+    public Measurement Measurement => Measurement.ElectronicDistance;
+
+    /// <inheritdoc />
     public ObservationColumns Columns { get; } =
         new("distances", ["to", "value", "sd", "target"], ["from", "to", "value", "sd"]);
 

@@ -25,6 +25,9 @@ public sealed class HeightDifferenceKind : IObservationKind
     public DatumElements Fixes => DatumElements.None;
 
     /// <inheritdoc />
+    public Measurement Measurement => Measurement.Levelling;
+
+    /// <inheritdoc />
     public ObservationColumns Columns { get; } = new("levelling",
         ["from", "to", "value", "sd", "length", "level", "setups", "runs"],
         ["from", "to", "value", "sd", "length", "level", "setups", "runs"]);

@@ -29,6 +29,9 @@ public interface IObservationKind
     /// <summary>The datum elements an observation of this kind fixes on its own (beyond the shape of the network).</summary>
     DatumElements Fixes { get; }
 
+    /// <summary>How the kind is measured, which tells the stochastic model how to weight it from specifications.</summary>
+    Measurement Measurement { get; }
+
     /// <summary>The columns of the kind in the project file and in CSV observation files (read by the IO layer).</summary>
     ObservationColumns Columns { get; }
 
@@ -58,6 +61,25 @@ public enum UnitClass
 
     /// <summary>An angle: values and standard deviations in radians; differences reduced to (−π, π].</summary>
     Angle,
+}
+
+/// <summary>How an observation kind is measured, for weighting it from instrument or level specifications.</summary>
+public enum Measurement
+{
+    /// <summary>Given as data with its standard deviation (not weighted from specifications).</summary>
+    Given,
+
+    /// <summary>By an EDM: constant and distance-proportional parts, plus centering.</summary>
+    ElectronicDistance,
+
+    /// <summary>By pointing and reading the horizontal circle once per set, plus centering.</summary>
+    CircleReading,
+
+    /// <summary>As the difference of two circle readings, plus centering.</summary>
+    CircleReadingDifference,
+
+    /// <summary>By levelling: per km, or per rod reading.</summary>
+    Levelling,
 }
 
 /// <summary>The datum elements that observations can fix.</summary>

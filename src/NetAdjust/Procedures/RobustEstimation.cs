@@ -51,6 +51,7 @@ public static class RobustEstimation
         if (!(c > 0) || !double.IsFinite(c)) throw new InvalidInputException("the robust tuning constant must be positive");
         if (maxIterations < 1) throw new InvalidInputException("the robust estimation needs at least one iteration");
         var quick = options with { Analysis = options.Analysis with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
+        network = Reweighting.WithStandardDeviations(network, quick);
         int n = network.Observations.Count;
         var f = Enumerable.Repeat(1.0, n).ToArray();
         var u = new double[n];

@@ -1,8 +1,8 @@
 using System.Runtime.CompilerServices;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
-using NetAdjust.Units;
 using NetAdjust.Observations;
+using NetAdjust.Units;
 
 namespace NetAdjust.Adjustment.Approximation;
 

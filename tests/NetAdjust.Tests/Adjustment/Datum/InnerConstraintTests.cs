@@ -1,5 +1,5 @@
-using FsCheck;
 using FsCheck.Xunit;
+using FsCheck;
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
