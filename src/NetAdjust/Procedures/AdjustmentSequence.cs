@@ -124,6 +124,9 @@ public static class AdjustmentSequence
                 sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? inc / dr / (sm.Vtpv / sm.DegreesOfFreedom) : null,
                 sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? FisherSnedecor.InvCDF(dr, sm.DegreesOfFreedom, 1 - alpha) : null, estimated);
 
+        // The variance factor of the discrepancies' standard deviations: the a-priori one, or, when it is taken as
+        // estimated, that of the minimally-constrained run (the control takes no part in it), as in the statistics.
+        double basisFactor = estimated && sm.VarianceFactor is double vf && vf > 0 ? vf : s2;
         var discrepancies = new List<ControlDiscrepancy>();
         foreach (var p in minimal.Points)
         {
@@ -135,7 +138,7 @@ public static class AdjustmentSequence
                 if (!controlled || given is null || adjusted is null) return (null, null);
                 int j = minimal.Unknowns.IndexOf(pt.Id, par);
                 double q = j >= 0 ? minimal.Cofactor(j, j) : 0;
-                double sd = Math.Sqrt(Math.Max(0, (s2 * q) + (givenSd is double g ? g * g : 0)));
+                double sd = Math.Sqrt(Math.Max(0, (basisFactor * q) + (givenSd is double g ? g * g : 0)));
                 // A component held by the minimal constraints has zero variance up to rounding (~1e−10 m): no standardised value.
                 return (given - adjusted, sd < HeldSd ? 0 : sd);
             }
