@@ -14,9 +14,7 @@ namespace NetAdjust.Adjustment;
 /// </summary>
 internal sealed class DatumPlan
 {
-    private enum Defect { East, North, Rotation, Scale, Height }
-
-    private readonly List<Defect> _defects = [];
+    private readonly List<DatumDefect> _defects = [];
     private readonly int[] _held = [];
     private readonly string? _p0, _p1, _hp;
     private readonly HashSet<string>? _subset;
@@ -52,19 +50,19 @@ internal sealed class DatumPlan
         {
             switch (d)
             {
-                case Defect.East: held.Add(index.IndexOf(_p0!, Parameter.E)); break;
-                case Defect.North: held.Add(index.IndexOf(_p0!, Parameter.N)); break;
-                case Defect.Rotation:
+                case DatumDefect.East: held.Add(index.IndexOf(_p0!, Parameter.E)); break;
+                case DatumDefect.North: held.Add(index.IndexOf(_p0!, Parameter.N)); break;
+                case DatumDefect.Rotation:
                     // Rotation about p0 moves p1 by δ(ΔN, −ΔE): hold the larger component.
                     held.Add(index.IndexOf(_p1!, Math.Abs(n0[_p1!] - n0[_p0!]) >= Math.Abs(e0[_p1!] - e0[_p0!]) ? Parameter.E : Parameter.N));
                     break;
-                case Defect.Scale:
-                    var other = _defects.Contains(Defect.Rotation)
+                case DatumDefect.Scale:
+                    var other = _defects.Contains(DatumDefect.Rotation)
                         ? (index.IndexOf(_p1!, Parameter.E) == held[^1] ? Parameter.N : Parameter.E)
                         : (Math.Abs(e0[_p1!] - e0[_p0!]) >= Math.Abs(n0[_p1!] - n0[_p0!]) ? Parameter.E : Parameter.N);
                     held.Add(index.IndexOf(_p1!, other));
                     break;
-                case Defect.Height: held.Add(index.IndexOf(_hp!, Parameter.H)); break;
+                case DatumDefect.Height: held.Add(index.IndexOf(_hp!, Parameter.H)); break;
             }
         }
         _held = held.ToArray();
@@ -73,7 +71,7 @@ internal sealed class DatumPlan
     private static double Sq(double x) => x * x;
 
     /// <summary>The datum points chosen before the unknowns are numbered.</summary>
-    private sealed record Selection(List<Defect> Defects, string? P0, string? P1, string? Hp, HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints);
+    private sealed record Selection(List<DatumDefect> Defects, string? P0, string? P1, string? Hp, HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints);
 
     /// <summary>
     /// True when minimal constraints hold p0 and p1 in full: p1 is a reference object that the observations place
@@ -85,19 +83,10 @@ internal sealed class DatumPlan
     private static Selection Select(SurveyNetwork network, DatumDefinition definition, List<string> planePoints, List<string> heightPoints,
         Dictionary<string, double> e0, Dictionary<string, double> n0)
     {
-        var defects = new List<Defect>();
         var heldPoints = new HashSet<string>(StringComparer.Ordinal);
-        if (definition.Mode == DatumMode.Control) return new Selection(defects, null, null, null, null, false, heldPoints);
-        var fixes = ObservationKindRegistry.FixedBy(network.Observations);
-        bool azimuth = fixes.HasFlag(DatumElements.Orientation), distance = fixes.HasFlag(DatumElements.Scale);
-        if (planePoints.Count > 0)
-        {
-            defects.Add(Defect.East);
-            defects.Add(Defect.North);
-            if (!azimuth) defects.Add(Defect.Rotation);
-            if (!distance) defects.Add(Defect.Scale);
-        }
-        if (heightPoints.Count > 0) defects.Add(Defect.Height);
+        if (definition.Mode == DatumMode.Control) return new Selection([], null, null, null, null, false, heldPoints);
+        var defects = DatumConditions.Defects(ObservationKindRegistry.FixedBy(network.Observations), planePoints.Count > 0,
+            heightPoints.Count > 0);
 
         bool IsPlaneControl(string id) => network[id] is var p && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue);
         bool IsHeightControl(string id) => network[id] is var p && (p.IsFixed(Fixity.H) || p.SdH.HasValue);
@@ -114,7 +103,7 @@ internal sealed class DatumPlan
             var placed = planePoints.Where(id => IsPlaced(network, id)).ToList();
             p0 = minimal && definition.HoldPoint is string hp0 ? Check(hp0, planePoints, "the held point")
                 : (minimal ? placed.FirstOrDefault(IsPlaneControl) ?? planePoints.FirstOrDefault(IsPlaneControl) : null) ?? placed.FirstOrDefault() ?? planePoints[0];
-            bool needSecond = defects.Contains(Defect.Rotation) || defects.Contains(Defect.Scale);
+            bool needSecond = defects.Contains(DatumDefect.Rotation) || defects.Contains(DatumDefect.Scale);
             if (minimal && definition.AzimuthTo is string at)
             {
                 if (!needSecond)
@@ -139,7 +128,7 @@ internal sealed class DatumPlan
                 if (definition.AzimuthTo is null) p1 = objects[0];
                 heldPoints.Add(p0);
                 heldPoints.UnionWith(objects);
-                defects.RemoveAll(d => d != Defect.Height);
+                defects.RemoveAll(d => d != DatumDefect.Height);
             }
             else if (definition.Mode == DatumMode.InnerConstraints && planePoints.FirstOrDefault(id => !IsPlaced(network, id)) is string loose)
             {
@@ -325,80 +314,16 @@ internal sealed class DatumPlan
     private (double[][] G, double[][] B) Bases()
     {
         int u = Index.Count, d = ConditionCount;
-        var s = State;
-        double ce = 0, cn = 0;
-        foreach (var id in _planePoints) { var p = s.Plane(id); ce += p.E; cn += p.N; }
-        if (_planePoints.Count > 0) { ce /= _planePoints.Count; cn /= _planePoints.Count; }
-        double spread = 0;
-        foreach (var id in _planePoints) { var p = s.Plane(id); spread += Sq(p.E - ce) + Sq(p.N - cn); }
-        double len = _planePoints.Count > 0 ? Math.Max(1, Math.Sqrt(spread / _planePoints.Count)) : 1;
-
-        var g = new double[d][];
-        for (int k = 0; k < d; k++) g[k] = new double[u];
-        for (int j = 0; j < u; j++)
-        {
-            var unk = Index.Unknowns[j];
-            for (int k = 0; k < d; k++)
-            {
-                double v = 0;
-                if (unk.Parameter == Parameter.Orientation) v = _defects[k] == Defect.Rotation ? 1 / len : 0;
-                else if (unk.Parameter == Parameter.H) v = _defects[k] == Defect.Height ? 1 : 0;
-                else
-                {
-                    var p = s.Plane(unk.Owner);
-                    double de = (p.E - ce) / len, dn = (p.N - cn) / len;
-                    bool east = unk.Parameter == Parameter.E;
-                    v = _defects[k] switch
-                    {
-                        Defect.East => east ? 1 : 0,
-                        Defect.North => east ? 0 : 1,
-                        Defect.Rotation => east ? dn : -de,   // azimuths grow by δ: dE = δ ΔN, dN = −δ ΔE
-                        Defect.Scale => east ? de : dn,
-                        _ => 0,
-                    };
-                }
-                g[k][j] = v;
-            }
-        }
-
+        var g = DatumConditions.NullSpace(Index.Unknowns, _defects, State.Plane, _planePoints);
+        if (Definition.Mode == DatumMode.InnerConstraints) return (g, DatumConditions.Inner(g, Index.Unknowns, _subset));
         var b = new double[d][];
-        if (Definition.Mode == DatumMode.InnerConstraints)
+        for (int k = 0; k < d; k++)
         {
-            for (int k = 0; k < d; k++)
-            {
-                b[k] = new double[u];
-                for (int j = 0; j < u; j++)
-                {
-                    var unk = Index.Unknowns[j];
-                    if (unk.Parameter != Parameter.Orientation && (_subset is null || _subset.Contains(unk.Owner))) b[k][j] = g[k][j];
-                }
-            }
-        }
-        else
-        {
-            for (int k = 0; k < d; k++)
-            {
-                b[k] = new double[u];
-                foreach (var (owner, par, value) in MinimalConditionGradient(_defects[k])) b[k][Index.IndexOf(owner, par)] += value;
-            }
+            b[k] = new double[u];
+            foreach (var (owner, par, value) in DatumConditions.MinimalGradient(_defects[k], _p0, _p1, _hp, State.Plane))
+                b[k][Index.IndexOf(owner, par)] += value;
         }
         return (g, b);
-    }
-
-    /// <summary>The gradient of one minimal-constraint quantity (a held coordinate, azimuth or distance).</summary>
-    private IEnumerable<(string, Parameter, double)> MinimalConditionGradient(Defect d)
-    {
-        switch (d)
-        {
-            case Defect.East: return [(_p0!, Parameter.E, 1.0)];
-            case Defect.North: return [(_p0!, Parameter.N, 1.0)];
-            case Defect.Height: return [(_hp!, Parameter.H, 1.0)];
-            default:
-                var eq = d == Defect.Rotation
-                    ? PlaneGeometry.Azimuth(_p0!, State.Plane(_p0!), _p1!, State.Plane(_p1!))
-                    : PlaneGeometry.Distance(_p0!, State.Plane(_p0!), _p1!, State.Plane(_p1!));
-                return eq.Partials.Select(p => (p.Owner, p.Parameter, p.Derivative));
-        }
     }
 
     /// <summary>c: how far the current state is from meeting each datum condition.</summary>
@@ -429,10 +354,10 @@ internal sealed class DatumPlan
         {
             c[k] = _defects[k] switch
             {
-                Defect.East => _e0[_p0!] - State.Plane(_p0!).E,
-                Defect.North => _n0[_p0!] - State.Plane(_p0!).N,
-                Defect.Height => _h0[_hp!] - State.Height(_hp!),
-                Defect.Rotation => Units.Angle.ReduceSigned(
+                DatumDefect.East => _e0[_p0!] - State.Plane(_p0!).E,
+                DatumDefect.North => _n0[_p0!] - State.Plane(_p0!).N,
+                DatumDefect.Height => _h0[_hp!] - State.Height(_hp!),
+                DatumDefect.Rotation => Units.Angle.ReduceSigned(
                     PlaneGeometry.Azimuth(_p0!, new PlanePoint(_e0[_p0!], _n0[_p0!]), _p1!, new PlanePoint(_e0[_p1!], _n0[_p1!])).Value -
                     PlaneGeometry.Azimuth(_p0!, State.Plane(_p0!), _p1!, State.Plane(_p1!)).Value),
                 _ => PlaneGeometry.Distance(_p0!, new PlanePoint(_e0[_p0!], _n0[_p0!]), _p1!, new PlanePoint(_e0[_p1!], _n0[_p1!])).Value -
@@ -456,7 +381,7 @@ internal sealed class DatumPlan
     {
         DatumMode.MinimalConstraints => Definition with
         {
-            HoldPoint = _p0, AzimuthTo = _defects.Contains(Defect.Rotation) || _defects.Contains(Defect.Scale) || FullHold ? _p1 : null, HoldHeight = _hp,
+            HoldPoint = _p0, AzimuthTo = _defects.Contains(DatumDefect.Rotation) || _defects.Contains(DatumDefect.Scale) || FullHold ? _p1 : null, HoldHeight = _hp,
             ReferenceObjects = FullHold ? _heldPoints.Where(id => id != _p0).ToList() : null,
         },
         _ => Definition,
@@ -470,7 +395,7 @@ internal sealed class DatumPlan
         {
             FullHold ? $"{string.Join(", ", _heldPoints)} held in position (reference objects placed by a sight line only are held with {_p0})" : null,
             _p0 is null || FullHold ? null : $"position of {_p0} held",
-            _p1 is null || FullHold ? null : $"{(_defects.Contains(Defect.Rotation) ? "azimuth" : "")}{(_defects.Contains(Defect.Rotation) && _defects.Contains(Defect.Scale) ? " and " : "")}{(_defects.Contains(Defect.Scale) ? "distance" : "")} {_p0}→{_p1} held",
+            _p1 is null || FullHold ? null : $"{(_defects.Contains(DatumDefect.Rotation) ? "azimuth" : "")}{(_defects.Contains(DatumDefect.Rotation) && _defects.Contains(DatumDefect.Scale) ? " and " : "")}{(_defects.Contains(DatumDefect.Scale) ? "distance" : "")} {_p0}→{_p1} held",
             _hp is null ? null : $"height of {_hp} held",
         }.OfType<string>()),
         _ => Definition.Describe(),
