@@ -106,6 +106,9 @@ public static partial class ProjectReader
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;
 
+    /// <summary>The keys of one observation of a kind in the project file (the kind's column metadata).</summary>
+    private static string[] Keys(ObservationKind kind) => [.. ObservationKindRegistry.Of(kind).Columns.YamlKeys];
+
     /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g. <c>EPSG:27700</c>).</summary>
     private static string? ReadCrs(Context ctx, YamlMappingNode root)
     {
@@ -288,7 +291,7 @@ public static partial class ProjectReader
             string setId = $"{at}/{k}";
             foreach (var dn in ctx.Sequence(dirs, item + " directions"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, Keys(ObservationKind.Direction), item, spec, specs);
                 output.Add(new(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
                 { StandardDeviation = sd, Source = src }, budget, target, dn, $"direction to {to} in the {item}"));
             }
@@ -296,21 +299,21 @@ public static partial class ProjectReader
         if (ctx.Child(m, "distances") is YamlNode dists)
             foreach (var dn in ctx.Sequence(dists, item + " distances"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, Keys(ObservationKind.Distance), item, spec, specs);
                 output.Add(new(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, dn, $"distance to {to} in the {item}"));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
             foreach (var an in ctx.Sequence(azs, item + " azimuths"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, Keys(ObservationKind.Azimuth), item, spec, specs);
                 output.Add(new(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"azimuth to {to} in the {item}"));
             }
         if (ctx.Child(m, "angles") is YamlNode angs)
             foreach (var an in ctx.Sequence(angs, item + " angles"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, Keys(ObservationKind.Angle), item, spec, specs);
                 string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
                 output.Add(new(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"angle from {from} to {to} in the {item}"));
@@ -346,7 +349,7 @@ public static partial class ProjectReader
         string from = ctx.RequiredString(m, "from", "a levelling section");
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
-        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", "level", "setups", "runs", .. ObservationMarks.Keys], item);
+        ctx.CheckKeys(m, [.. Keys(ObservationKind.HeightDifference), .. ObservationMarks.Keys], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)

@@ -29,7 +29,7 @@ public sealed class HeightDifferenceKind : IObservationKind
 
     /// <inheritdoc />
     public ObservationColumns Columns { get; } = new("levelling",
-        ["from", "to", "value", "sd", "length", "level", "setups", "runs"],
+        ["from", "to", "dh", "length", "sd", "level", "setups", "runs"],
         ["from", "to", "value", "sd", "length", "level", "setups", "runs"]);
 
     /// <inheritdoc />
