@@ -1,4 +1,5 @@
 using System.Text;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 
@@ -27,7 +28,7 @@ internal static class TextReportSections
         var weighted = r.Points.Where(p => p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.SdH.HasValue)
             .Select(p => $"{p.Id} ({(p.Input.SdE.HasValue ? "e" : "")}{(p.Input.SdN.HasValue ? "n" : "")}{(p.Input.SdH.HasValue ? "h" : "")})").ToList();
         // Minimal or inner constraints set the control aside: say which datum was used instead.
-        if (r.Options.Datum.Mode != Adjustment.DatumMode.Control) return r.Options.Datum.Describe();
+        if (r.Options.Datum.Mode != Adjustment.Datum.DatumMode.Control) return r.Options.Datum.Describe();
         return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 

@@ -1,3 +1,4 @@
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;

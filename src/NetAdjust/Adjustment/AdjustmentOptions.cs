@@ -1,3 +1,5 @@
+using NetAdjust.Adjustment.Datum;
+
 namespace NetAdjust.Adjustment;
 
 /// <summary>Options of an adjustment. Immutable; use <c>with</c> to change one.</summary>

@@ -1,7 +1,8 @@
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>One element of a datum defect: a direction of the null space of the normal matrix.</summary>
 internal enum DatumDefect

@@ -1,7 +1,8 @@
+using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>
 /// Finds, before any solving, what the observations and the datum definition leave undetermined, and says so in

@@ -1,10 +1,11 @@
 using NetAdjust.Adjustment.Approximation;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>The datum plan, conditions: the datum step, and the conditions Bᵀx = c at the current state.</summary>
 internal sealed partial class DatumPlan

@@ -1,10 +1,11 @@
 using NetAdjust.Adjustment.Approximation;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>The datum plan, selection: the defect and the datum points chosen before the unknowns are numbered.</summary>
 internal sealed partial class DatumPlan

@@ -1,10 +1,11 @@
 using NetAdjust.Adjustment.Approximation;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>
 /// Prepares one adjustment's unknowns and datum: checks the datum (<see cref="DatumDiagnosis"/>), computes

@@ -1,9 +1,10 @@
 using MathNet.Numerics.LinearAlgebra;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>
 /// The S-transformation (Baarda 1973, <i>S-transformations and criterion matrices</i>, Netherlands Geodetic

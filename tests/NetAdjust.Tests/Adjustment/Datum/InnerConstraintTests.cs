@@ -1,6 +1,7 @@
 using FsCheck.Xunit;
 using FsCheck;
 using MathNet.Numerics.LinearAlgebra;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Procedures;

@@ -1,4 +1,5 @@
 using MathNet.Numerics.LinearAlgebra;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
