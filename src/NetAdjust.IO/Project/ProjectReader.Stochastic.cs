@@ -22,13 +22,19 @@ public static partial class ProjectReader
 
         public Dictionary<string, int> SetupsPerStation { get; } = new(StringComparer.Ordinal);
 
-        /// <summary>The weighting of a height difference from a named level (for CSV rows); throws InvalidInputException.</summary>
+        /// <summary>
+        /// The weighting of a height difference from a named level (for CSV rows); throws InvalidInputException.
+        /// </summary>
         public ObservationWeighting WeightingOfLevel(string id, Length? length, int? setups, int? runs)
         {
-            var level = Levels.TryGetValue(id, out var spec) ? spec : throw new InvalidInputException($"level '{id}' is not defined under 'levels'");
-            if (level.ReadingSd is not null && setups is null) throw new InvalidInputException($"level {id} is specified per reading: give the section's number of setups");
-            if (level.SdPerKm is not null && length is null) throw new InvalidInputException($"level {id} is specified per km, so the section needs its length");
-            if (length is Length l && !(l.Metres > 0)) throw new InvalidInputException("the section length must be positive");
+            var level = Levels.TryGetValue(id, out var spec) ? spec
+                : throw new InvalidInputException($"level '{id}' is not defined under 'levels'");
+            if (level.ReadingSd is not null && setups is null)
+                throw new InvalidInputException($"level {id} is specified per reading: give the section's number of setups");
+            if (level.SdPerKm is not null && length is null)
+                throw new InvalidInputException($"level {id} is specified per km, so the section needs its length");
+            if (length is Length l && !(l.Metres > 0))
+                throw new InvalidInputException("the section length must be positive");
             var procedure = new LevellingProcedure(setups ?? 1, runs ?? (level.SdPerKm is not null ? 2 : 1));
             return new ObservationWeighting { Level = level, Levelling = procedure };
         }
@@ -206,13 +212,15 @@ public static partial class ProjectReader
             if (p.NeedsBudget)
             {
                 if (o is DistanceObservation && ts.Edm is null)
-                    throw ctx.Error(p.Node, p.Item, $"instrument {ts.Id} has no EDM specification, so it cannot weight a distance");
+                    throw ctx.Error(p.Node, p.Item,
+                        $"instrument {ts.Id} has no EDM specification, so it cannot weight a distance");
                 o = o with
                 {
                     StandardDeviation = double.NaN,
                     Weighting = new ObservationWeighting
                     {
-                        Instrument = ts, Target = p.Target ?? spec.Target, Procedure = spec.Procedure, ObservedSights = observed,
+                        Instrument = ts, Target = p.Target ?? spec.Target, Procedure = spec.Procedure,
+                        ObservedSights = observed,
                     },
                 };
             }

@@ -38,7 +38,7 @@ public static partial class Adjuster
         // iterations continue with the new weights.
         var model = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
         var weights = Weights(network, model, control, options.AprioriVarianceFactor);
-        n -= network.Observations.Count(o => o.Excluded); // set-aside observations carry no weight and add no redundancy
+        n -= network.Observations.Count(o => o.Excluded); // set aside: no weight, no redundancy
 
         int iterations = 0;
         for (int round = 1; ; round++)
@@ -47,8 +47,9 @@ public static partial class Adjuster
             var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
             if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
             if (round == MaxStochasticRounds)
-                throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the sight " +
-                    "lengths taken from the coordinates keep changing. Check the approximate coordinates and the observations.");
+                throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
+                    "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and the " +
+                    "observations.");
             model = next;
             weights = Weights(network, model, control, options.AprioriVarianceFactor);
         }
@@ -74,7 +75,10 @@ public static partial class Adjuster
             double adjusted = o.Value + v;
             if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
             double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) : Quadratic(finalRows[i], finalFactor);
-            observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i) { Budget = model.Budgets[i] };
+            observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
+            {
+                Budget = model.Budgets[i],
+            };
         }
         var orientations = network.Observations.OfType<DirectionObservation>()
             .Select(d => (d.SetId, d.Station)).Distinct()
@@ -97,8 +101,10 @@ public static partial class Adjuster
     /// <summary>Rounds of re-weighting at the adjusted coordinates before giving up.</summary>
     private const int MaxStochasticRounds = 20;
 
-    /// <summary>P: the stochastic model's weights, weighted control rows after the observations, set-aside rows zero.</summary>
-    private static WeightMatrix Weights(SurveyNetwork network, StochasticModel model, List<ControlRow> control, double s0)
+    /// <summary>P: the stochastic model's weights; weighted control rows after the observations; set-aside rows zero.
+    /// </summary>
+    private static WeightMatrix Weights(SurveyNetwork network, StochasticModel model, List<ControlRow> control,
+        double s0)
     {
         int m = network.Observations.Count, n = m + control.Count;
         var diagonal = new double[n];

@@ -26,13 +26,16 @@ public interface IObservationKind
     /// <summary>The coordinates of its points that the equation uses.</summary>
     CoordinateAxes Axes { get; }
 
-    /// <summary>The datum elements an observation of this kind fixes on its own (beyond the shape of the network).</summary>
+    /// <summary>The datum elements an observation of this kind fixes on its own (beyond the shape of the
+    /// network).</summary>
     DatumElements Fixes { get; }
 
-    /// <summary>How the kind is measured, which tells the stochastic model how to weight it from specifications.</summary>
+    /// <summary>How the kind is measured, which tells the stochastic model how to weight it from
+    /// specifications.</summary>
     Measurement Measurement { get; }
 
-    /// <summary>The columns of the kind in the project file and in CSV observation files (read by the IO layer).</summary>
+    /// <summary>The columns of the kind in the project file and in CSV observation files (read by the IO
+    /// layer).</summary>
     ObservationColumns Columns { get; }
 
     /// <summary>Evaluates the observation equation at the given coordinates.</summary>
@@ -123,7 +126,8 @@ public enum CoordinateAxes
 /// <param name="YamlList">The key of the list that holds observations of the kind (e.g. <c>distances</c>).</param>
 /// <param name="YamlKeys">The keys of one observation in that list.</param>
 /// <param name="CsvColumns">The CSV columns a row of the kind uses besides <c>kind</c>.</param>
-public sealed record ObservationColumns(string YamlList, IReadOnlyList<string> YamlKeys, IReadOnlyList<string> CsvColumns);
+public sealed record ObservationColumns(
+    string YamlList, IReadOnlyList<string> YamlKeys, IReadOnlyList<string> CsvColumns);
 
 /// <summary>Coordinates at which observation equations are evaluated (SI: metres, radians).</summary>
 public interface ICoordinates

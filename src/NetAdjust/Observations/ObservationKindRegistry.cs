@@ -38,10 +38,12 @@ public static class ObservationKindRegistry
         return Of(observation.Kind);
     }
 
-    /// <summary>Evaluates the observation equation of <paramref name="observation"/> at the given coordinates.</summary>
+    /// <summary>Evaluates the observation equation of <paramref name="observation"/> at the given
+    /// coordinates.</summary>
     /// <param name="observation">The observation.</param>
     /// <param name="at">The coordinates.</param>
-    public static EquationValue Evaluate(Observation observation, ICoordinates at) => Of(observation).Evaluate(observation, at);
+    public static EquationValue Evaluate(Observation observation, ICoordinates at) =>
+        Of(observation).Evaluate(observation, at);
 
     /// <summary>True when the kind's values are angles (radians internally).</summary>
     /// <param name="kind">The kind.</param>
@@ -78,7 +80,8 @@ public static class ObservationKindRegistry
         var byEnum = new IObservationKind[values.Max(v => (int)v) + 1];
         foreach (var k in Kinds)
         {
-            if (byEnum[(int)k.Kind] is not null) throw new InvalidOperationException($"kind {k.Name} is registered twice");
+            if (byEnum[(int)k.Kind] is not null)
+                throw new InvalidOperationException($"kind {k.Name} is registered twice");
             byEnum[(int)k.Kind] = k;
         }
         return byEnum;

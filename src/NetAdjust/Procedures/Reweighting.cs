@@ -11,7 +11,8 @@ internal static class Reweighting
     /// weighting, whose error budget the stochastic model scales to the new σ (so a correlated weight model built
     /// from it stays positive definite).
     /// </summary>
-    public static Observation WithSd(Observation o, double sd) => sd == o.StandardDeviation ? o : o with { StandardDeviation = sd };
+    public static Observation WithSd(Observation o, double sd) =>
+        sd == o.StandardDeviation ? o : o with { StandardDeviation = sd };
 
     /// <summary>
     /// The network with the standard deviations derived from specifications filled in (at the adjusted coordinates
@@ -19,5 +20,6 @@ internal static class Reweighting
     /// is given.
     /// </summary>
     public static SurveyNetwork WithStandardDeviations(SurveyNetwork network, AdjustmentOptions options) =>
-        network.Observations.Any(o => double.IsNaN(o.StandardDeviation)) ? Adjuster.Adjust(network, options).Network : network;
+        network.Observations.Any(o => double.IsNaN(o.StandardDeviation))
+            ? Adjuster.Adjust(network, options).Network : network;
 }

@@ -10,7 +10,8 @@ namespace NetAdjust.Stochastic;
 /// </summary>
 public static class ObservationBudgets
 {
-    /// <summary>The budget before any re-weighting factor; null when the observation is not weighted from specifications.</summary>
+    /// <summary>The budget before any re-weighting factor; null when the observation is not weighted from
+    /// specifications.</summary>
     /// <param name="observation">The observation.</param>
     /// <param name="at">The coordinates for sight lengths.</param>
     /// <exception cref="InvalidInputException">When the specifications cannot weight the observation.</exception>
@@ -24,11 +25,13 @@ public static class ObservationBudgets
         {
             if (kind.Measurement == Measurement.Levelling)
             {
-                var level = w.Level ?? throw new InvalidInputException("a levelled height difference is weighted from a level");
+                var level = w.Level
+                    ?? throw new InvalidInputException("a levelled height difference is weighted from a level");
                 double? length = (observation as HeightDifferenceObservation)?.LineLength?.Metres;
                 return HeightDifferenceBudgetBuilder.Build(level, length, w.Levelling);
             }
-            var ts = w.Instrument ?? throw new InvalidInputException("the observation is weighted from an instrument that is not named");
+            var ts = w.Instrument
+                ?? throw new InvalidInputException("the observation is weighted from an instrument that is not named");
             string station = kind.Instrument(observation) ?? observation.From;
             double Sight(string target)
             {
@@ -40,10 +43,12 @@ public static class ObservationBudgets
             return kind.Measurement switch
             {
                 Measurement.ElectronicDistance => DistanceBudgetBuilder.Build(ts, w.Target, observation.Value),
-                Measurement.CircleReading => DirectionBudgetBuilder.Build(ts, w.Target, w.Procedure, Sight(observation.To)),
+                Measurement.CircleReading =>
+                    DirectionBudgetBuilder.Build(ts, w.Target, w.Procedure, Sight(observation.To)),
                 Measurement.CircleReadingDifference => AngleBudgetBuilder.Build(ts, w.Target, w.Target, w.Procedure,
                     Sight(observation.From), Sight(observation.To), observation.Value),
-                _ => throw new InvalidInputException($"a {kind.Name.Replace('_', ' ')} is not weighted from an instrument"),
+                _ => throw new InvalidInputException(
+                    $"a {kind.Name.Replace('_', ' ')} is not weighted from an instrument"),
             };
         }
         catch (InvalidInputException e)

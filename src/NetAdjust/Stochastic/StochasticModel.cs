@@ -33,10 +33,12 @@ public sealed class StochasticModel
     /// <summary>Each observation's a-priori standard deviation (SI), in network order.</summary>
     public IReadOnlyList<double> StandardDeviations => _sd;
 
-    /// <summary>Each observation's error budget as used (scaled by its re-weighting), or null when σ was given directly.</summary>
+    /// <summary>Each observation's error budget as used (scaled by its re-weighting), or null when σ was given
+    /// directly.</summary>
     public IReadOnlyList<ErrorBudget?> Budgets => _budgets;
 
-    /// <summary>The weight blocks σ0² Σ⁻¹ of the setups with correlated centering (none for independent centering).</summary>
+    /// <summary>The weight blocks σ0² Σ⁻¹ of the setups with correlated centering (none for independent
+    /// centering).</summary>
     public IReadOnlyList<CorrelatedBlock> Blocks => _blocks;
 
     /// <summary>True when some standard deviation was derived from specifications at the coordinates.</summary>

@@ -30,8 +30,10 @@ internal enum DatumDefect
 /// </summary>
 internal static class DatumConditions
 {
-    /// <summary>The datum defect: translation, plus rotation and scale unless the observations fix them; height.</summary>
-    /// <param name="fixedByObservations">The datum elements the observations fix (<see cref="ObservationKindRegistry.FixedBy"/>).</param>
+    /// <summary>The datum defect: translation, plus rotation and scale unless the observations fix them;
+    /// height.</summary>
+    /// <param name="fixedByObservations">The datum elements the observations fix (<see
+    /// cref="ObservationKindRegistry.FixedBy"/>).</param>
     /// <param name="plane">True when the network has plane unknowns.</param>
     /// <param name="height">True when it has height unknowns.</param>
     public static List<DatumDefect> Defects(DatumElements fixedByObservations, bool plane, bool height)
@@ -115,7 +117,8 @@ internal static class DatumConditions
             for (int j = 0; j < unknowns.Count; j++)
             {
                 var unk = unknowns[j];
-                if (unk.Parameter != Parameter.Orientation && (subset is null || subset.Contains(unk.Owner))) b[k][j] = g[k][j];
+                if (unk.Parameter != Parameter.Orientation && (subset is null || subset.Contains(unk.Owner)))
+                    b[k][j] = g[k][j];
             }
         }
         return b;
