@@ -1,9 +1,10 @@
 using System.CommandLine;
 using System.Globalization;
 using NetAdjust.Adjustment;
-using NetAdjust.IO;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.IO;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.Cli.Commands;
 

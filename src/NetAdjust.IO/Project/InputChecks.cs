@@ -1,4 +1,5 @@
 using System.Globalization;
+using NetAdjust.Observations;
 using NetAdjust.Network;
 
 namespace NetAdjust.IO.Project;
@@ -35,7 +36,10 @@ internal static class InputChecks
             string item = o.Describe();
             if (o.Source is not null && item.EndsWith($" ({o.Source})", StringComparison.Ordinal))
                 item = item[..^(o.Source.Length + 3)];
-            if (InputLimits.SdProblem(o.StandardDeviation, o.Kind.IsAngular()) is string problem)
+            // A standard deviation still to be derived from specifications (NaN) is checked where it is derived
+            // (Stochastic.StochasticModel), with the same limits.
+            bool derived = double.IsNaN(o.StandardDeviation) && o.Weighting is not null;
+            if (!derived && InputLimits.SdProblem(o.StandardDeviation, o.Kind.IsAngular()) is string problem)
                 throw new ProjectFileException(f, line, item, problem);
             if (!o.Kind.IsAngular() && !(Math.Abs(o.Value) <= InputLimits.MaxCoordinate))
                 throw new ProjectFileException(f, line, item, $"the value {G(o.Value)} m is beyond the limit of " +

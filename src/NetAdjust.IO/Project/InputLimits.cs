@@ -20,16 +20,16 @@ public static class InputLimits
     public const int MaxCsvLineLength = 4096;
 
     /// <summary>Smallest standard deviation of a length: 1 µm (no survey measures better).</summary>
-    public const double MinLengthSd = 1e-6;
+    public const double MinLengthSd = Stochastic.StandardDeviationLimits.MinLength;
 
     /// <summary>Largest standard deviation of a length: 1 km.</summary>
-    public const double MaxLengthSd = 1e3;
+    public const double MaxLengthSd = Stochastic.StandardDeviationLimits.MaxLength;
 
     /// <summary>Smallest angular standard deviation: 1e-9 rad (about 0.0002 arcsec).</summary>
-    public const double MinAngleSd = 1e-9;
+    public const double MinAngleSd = Stochastic.StandardDeviationLimits.MinAngle;
 
     /// <summary>Largest angular standard deviation: 1 rad (about 57°).</summary>
-    public const double MaxAngleSd = 1.0;
+    public const double MaxAngleSd = Stochastic.StandardDeviationLimits.MaxAngle;
 
     /// <summary>Largest magnitude of a coordinate, a height or a measured length: 1e8 m (100,000 km).</summary>
     public const double MaxCoordinate = 1e8;
@@ -51,13 +51,6 @@ public static class InputLimits
     /// wrong.</summary>
     /// <param name="sd">The standard deviation in SI units.</param>
     /// <param name="angular">True for an angular standard deviation (radians).</param>
-    internal static string? SdProblem(double sd, bool angular)
-    {
-        var (lo, hi) = angular ? (MinAngleSd, MaxAngleSd) : (MinLengthSd, MaxLengthSd);
-        if (double.IsFinite(sd) && sd >= lo && sd <= hi) return null;
-        string range = angular ? "1e-9 rad (0.0002 arcsec) to 1 rad" : "1 µm to 1 km";
-        string value = sd.ToString("G4", System.Globalization.CultureInfo.InvariantCulture) + (angular ? " rad" : " m");
-        return $"the standard deviation {value} is outside the accepted range ({range}; docs/input-format.md, " +
-            $"\"Limits\")";
-    }
+    internal static string? SdProblem(double sd, bool angular) =>
+        Stochastic.StandardDeviationLimits.Problem(sd, angular);
 }

@@ -2,6 +2,7 @@ using System.Globalization;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Text;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 using YamlDotNet.Core;
 using YamlDotNet.RepresentationModel;
@@ -124,7 +125,6 @@ public static partial class ProjectReader
         InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
-        PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
@@ -149,7 +149,7 @@ public static partial class ProjectReader
                 { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.WeightingOfLevel));
             }
         }
 
@@ -166,6 +166,9 @@ public static partial class ProjectReader
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;
+
+    /// <summary>The keys of one observation of a kind in the project file (the kind's column metadata).</summary>
+    private static string[] Keys(ObservationKind kind) => [.. ObservationKindRegistry.Of(kind).Columns.YamlKeys];
 
     /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g. <c>EPSG:27700</c>).</summary>
     private static string? ReadCrs(Context ctx, YamlMappingNode root)
@@ -212,7 +215,7 @@ public static partial class ProjectReader
         ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering"], "adjustment");
         if (ctx.Child(m, "centering") is YamlNode cn)
         {
-            o = o with { WeightModel = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
+            o = o with { Centering = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
         }
         if (ctx.Child(m, "max_iterations") is YamlNode it)
         {
@@ -321,7 +324,7 @@ public static partial class ProjectReader
             string setId = $"{at}/{k}";
             foreach (var dn in ctx.Sequence(dirs, item + " directions"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, Keys(ObservationKind.Direction), item, spec, specs);
                 output.Add(new(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
                 { StandardDeviation = sd, Source = src }, budget, target, dn, $"direction to {to} in the {item}"));
             }
@@ -329,21 +332,21 @@ public static partial class ProjectReader
         if (ctx.Child(m, "distances") is YamlNode dists)
             foreach (var dn in ctx.Sequence(dists, item + " distances"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, Keys(ObservationKind.Distance), item, spec, specs);
                 output.Add(new(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, dn, $"distance to {to} in the {item}"));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
             foreach (var an in ctx.Sequence(azs, item + " azimuths"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, Keys(ObservationKind.Azimuth), item, spec, specs);
                 output.Add(new(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"azimuth to {to} in the {item}"));
             }
         if (ctx.Child(m, "angles") is YamlNode angs)
             foreach (var an in ctx.Sequence(angs, item + " angles"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, Keys(ObservationKind.Angle), item, spec, specs);
                 string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
                 output.Add(new(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"angle from {from} to {to} in the {item}"));
@@ -351,7 +354,7 @@ public static partial class ProjectReader
         FinishSetup(ctx, at, spec, output, specs, setupOutput);
     }
 
-    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, NetAdjust.Stochastic.TargetSpecification? Target) ReadSighting(
+    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, TargetSpecification? Target) ReadSighting(
         Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem,
         SetupSpec spec, StochasticInputs specs)
     {
@@ -366,7 +369,7 @@ public static partial class ProjectReader
         // Precedence: explicit sd, then the setup's instrument specification (not for azimuths), then default_sd.
         bool fromSpec = spec.Instrument is not null && kind != ObservationKind.Azimuth && ctx.Child(m, "sd") is null;
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
-            : fromSpec ? 1.0 // replaced by the budget's total in FinishSetup
+            : fromSpec ? double.NaN // derived from the specifications by the stochastic model
             : defaults.TryGetValue(kind, out double d) ? d
             : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
         return (to, value, sd, $"{ctx.File}:{Line(node)}", fromSpec, target);
@@ -379,7 +382,7 @@ public static partial class ProjectReader
         string from = ctx.RequiredString(m, "from", "a levelling section");
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
-        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", "level", "setups", "runs", .. ObservationMarks.Keys], item);
+        ctx.CheckKeys(m, [.. Keys(ObservationKind.HeightDifference), .. ObservationMarks.Keys], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
@@ -388,13 +391,13 @@ public static partial class ProjectReader
             if (!(l.Metres > 0)) throw ctx.Error(ln, item, "the section length must be positive");
             len = l;
         }
-        var budget = LevellingBudget(ctx, m, item, len, specs);
+        var weighting = LevellingWeighting(ctx, m, item, len, specs);
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
-            : budget is not null ? budget.Total
+            : weighting is not null ? double.NaN // derived from the level by the stochastic model
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
             : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
         var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
-        return ObservationMarks.Apply(budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o, node, ctx.File);
+        return ObservationMarks.Apply(weighting is not null && ctx.Child(m, "sd") is null ? o with { Weighting = weighting } : o, node, ctx.File);
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>

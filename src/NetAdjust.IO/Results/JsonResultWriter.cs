@@ -3,6 +3,8 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Serialization.Metadata;
+using NetAdjust.Procedures;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
@@ -129,7 +131,7 @@ public static class JsonResultWriter
         var i = o.Input;
         double k = ObservationLabels.JsonSmallFactor(i.Kind);
         var components = new Dictionary<string, double>(StringComparer.Ordinal);
-        if (ResultReport.BudgetOf(i) is { } budget)
+        if (ResultReport.BudgetOf(o) is { } budget)
             foreach (var ct in budget.Contributions) components.Add(ct.Name, ct.Value * k);
         else components.Add(BudgetOutput.Stated, i.StandardDeviation * k);
         return Fill(new ResultJson.Observation

@@ -1,5 +1,7 @@
 using System.Globalization;
 using System.Text;
+using NetAdjust.Procedures;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Units;
 

@@ -1,3 +1,4 @@
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Network;
 
 namespace NetAdjust.Adjustment;

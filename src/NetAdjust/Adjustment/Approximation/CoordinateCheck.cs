@@ -1,6 +1,7 @@
 using System.Globalization;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment.Approximation;
 
@@ -32,7 +33,7 @@ internal static class CoordinateCheck
                     $"({G(x)}, {G(y)}) are beyond ±1e10 m or not numbers: give coordinates of a sensible size");
         foreach (var o in network.Observations)
         {
-            if (o.Excluded || !ObservationModels.IsHorizontal(o.Kind)) continue;
+            if (o.Excluded || !ObservationKindRegistry.IsHorizontal(o.Kind)) continue;
             var ids = o.Points.ToList();
             for (int a = 0; a < ids.Count; a++)
                 for (int b = a + 1; b < ids.Count; b++)

@@ -1,11 +1,11 @@
 using NetAdjust.Units;
 
-namespace NetAdjust.Stochastic;
+namespace NetAdjust.Network;
 
 /// <summary>
 /// The accuracy of an electronic distance meter as a constant part plus a part proportional to the distance
 /// (e.g. <c>3 mm + 2 ppm</c>). The two parts are combined as independent errors (root-sum-square) by
-/// <see cref="DistanceBudgetBuilder"/>.
+/// <c>Stochastic.DistanceBudgetBuilder</c>.
 /// </summary>
 public sealed record EdmSpecification
 {

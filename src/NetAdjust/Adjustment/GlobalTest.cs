@@ -1,6 +1,6 @@
 using MathNet.Numerics.Distributions;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Adjustment;
 
 /// <summary>
 /// The two-tailed χ² test of the variance factor ("global test"): the statistic T = vᵀPv / σ0² follows χ²(r)

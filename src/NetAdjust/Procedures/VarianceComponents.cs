@@ -1,7 +1,8 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Procedures;
 
 /// <summary>The estimated variance component(s) of one observation group.</summary>
 /// <param name="Kind">The observation kind of the group.</param>
@@ -58,6 +59,7 @@ public static class VarianceComponents
         options ??= AdjustmentOptions.Default;
         if (maxIterations < 1) throw new InvalidInputException("the variance component estimation needs at least one iteration");
         var quick = options with { Analysis = options.Analysis with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
+        network = Reweighting.WithStandardDeviations(network, quick);
         var obs = network.Observations;
         int n = obs.Count;
         var given = obs.Select(o => o.StandardDeviation * o.StandardDeviation).ToArray();

@@ -1,7 +1,8 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Procedures;
 
 /// <summary>The weight function of an iteratively re-weighted adjustment.</summary>
 public enum RobustMethod
@@ -50,6 +51,7 @@ public static class RobustEstimation
         if (!(c > 0) || !double.IsFinite(c)) throw new InvalidInputException("the robust tuning constant must be positive");
         if (maxIterations < 1) throw new InvalidInputException("the robust estimation needs at least one iteration");
         var quick = options with { Analysis = options.Analysis with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
+        network = Reweighting.WithStandardDeviations(network, quick);
         int n = network.Observations.Count;
         var f = Enumerable.Repeat(1.0, n).ToArray();
         var u = new double[n];

@@ -1,4 +1,4 @@
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Adjustment;
 
 /// <summary>Which variance factor the tests and confidence regions take as true.</summary>
 public enum VarianceFactorBasis

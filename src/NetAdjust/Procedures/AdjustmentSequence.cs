@@ -1,8 +1,12 @@
 using MathNet.Numerics.Distributions;
+using NetAdjust.Adjustment.Datum;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Procedures;
 
 /// <summary>
 /// The test of the added constraints: does the control fit the observations? T = (Ω_c − Ω_m)/σ0², the increase
@@ -114,13 +118,16 @@ public static class AdjustmentSequence
         int dr = sc.DegreesOfFreedom - sm.DegreesOfFreedom;
         double inc = sc.Vtpv - sm.Vtpv;
         double alpha = options.GlobalTestAlpha;
-        bool estimated = options.Analysis.VarianceFactor == Statistics.VarianceFactorBasis.Estimated;
+        bool estimated = options.Analysis.VarianceFactor == VarianceFactorBasis.Estimated;
         var test = dr <= 0
             ? new ConstraintTest(alpha, Math.Max(dr, 0), inc, inc / s2, null, null, null, estimated)
             : new ConstraintTest(alpha, dr, inc, inc / s2, ChiSquared.InvCDF(dr, 1 - alpha),
                 sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? inc / dr / (sm.Vtpv / sm.DegreesOfFreedom) : null,
                 sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? FisherSnedecor.InvCDF(dr, sm.DegreesOfFreedom, 1 - alpha) : null, estimated);
 
+        // The variance factor of the discrepancies' standard deviations: the a-priori one, or, when it is taken as
+        // estimated, that of the minimally-constrained run (the control takes no part in it), as in the statistics.
+        double basisFactor = estimated && sm.VarianceFactor is double vf && vf > 0 ? vf : s2;
         var discrepancies = new List<ControlDiscrepancy>();
         foreach (var p in minimal.Points)
         {
@@ -132,7 +139,7 @@ public static class AdjustmentSequence
                 if (!controlled || given is null || adjusted is null) return (null, null);
                 int j = minimal.Unknowns.IndexOf(pt.Id, par);
                 double q = j >= 0 ? minimal.Cofactor(j, j) : 0;
-                double sd = Math.Sqrt(Math.Max(0, (s2 * q) + (givenSd is double g ? g * g : 0)));
+                double sd = Math.Sqrt(Math.Max(0, (basisFactor * q) + (givenSd is double g ? g * g : 0)));
                 // A component held by the minimal constraints has zero variance up to rounding (~1e−10 m): no standardised value.
                 return (given - adjusted, sd < HeldSd ? 0 : sd);
             }
@@ -168,11 +175,12 @@ public static class AdjustmentSequence
         var heightIds = heightParts.SelectMany(p => p.Points).ToHashSet(StringComparer.Ordinal);
         var planeControl = network.Points.Where(p => planeIds.Contains(p.Id) && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue)).ToList();
         var heightControl = network.Points.Where(p => heightIds.Contains(p.Id) && (p.IsFixed(Fixity.H) || p.SdH.HasValue)).ToList();
-        bool rotationOrScale = !network.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded) || !network.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
+        var fixes = ObservationKindRegistry.FixedBy(network.Observations);
+        bool rotationOrScale = !fixes.HasFlag(DatumElements.Orientation) || !fixes.HasFlag(DatumElements.Scale);
         bool planeOk = planeIds.Count == 0 || planeControl.Count >= (rotationOrScale ? 2 : 1);
         bool heightOk = heightIds.Count == 0 || heightControl.Count >= 1;
         // Reference objects (control placed by a sight line only) cannot float in a free network: hold them instead.
-        var links = new Approximation.ObservationIndex(network);
+        var links = new Adjustment.Approximation.ObservationIndex(network);
         if (planeControl.Any(p => !DatumPlan.IsPlaced(links, p.Id))) return DatumDefinition.Minimal();
         if (!planeOk || !heightOk) return DatumDefinition.Free();
         return DatumDefinition.Free(planeControl.Concat(heightControl).Select(p => p.Id).Distinct(StringComparer.Ordinal).ToList());

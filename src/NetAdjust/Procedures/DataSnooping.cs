@@ -1,7 +1,8 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 
-namespace NetAdjust.Statistics;
+namespace NetAdjust.Procedures;
 
 /// <summary>One round of a blunder hunt: one adjustment, its worst test, and what was done.</summary>
 /// <param name="Round">1, 2, …</param>
