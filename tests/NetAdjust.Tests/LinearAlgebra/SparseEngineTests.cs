@@ -109,7 +109,7 @@ public class SparseEngineTests
         {
             var (n, rows, w) = RandomProblem(seed, u, blocks: false);
             var graph = AdjacencyGraph.FromNormalEquations(n, rows, w);
-            Assert.True(Permutation.IsPermutation(MinimumDegreeOrdering.Order(graph)));
+            Assert.True(Permutation.IsPermutation(ApproximateMinimumDegree.Order(graph)));
             var rng = new Random(seed);
             int groups = (n + 1) / 2;
             var geometry = new UnknownGeometry(Enumerable.Range(0, n).Select(j => j / 2).ToArray(),
@@ -128,7 +128,7 @@ public class SparseEngineTests
         {
             var (n, rows, w) = RandomProblem(seed, u, blocks: true);
             var graph = AdjacencyGraph.FromNormalEquations(n, rows, w);
-            var sym = SymbolicCholesky.Analyze(graph, MinimumDegreeOrdering.Order(graph));
+            var sym = SymbolicCholesky.Analyze(graph, ApproximateMinimumDegree.Order(graph));
             var p = sym.Permutation;
             var nDense = DenseNormal(n, rows, w);
             var c = Matrix<double>.Build.Dense(n, n, (i, j) => nDense[p[i], p[j]]);

@@ -78,10 +78,10 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
     private (int[] Perm, string Name) ChooseOrdering(AdjacencyGraph graph, UnknownGeometry? geometry)
     {
         bool geometric = geometry is not null && geometry.UnknownCount == graph.VertexCount && geometry.HasAllPositions;
-        if (Ordering == SparseOrdering.MinimumDegree || !geometric) return (MinimumDegreeOrdering.Order(graph), "minimum degree");
+        if (Ordering == SparseOrdering.MinimumDegree || !geometric) return (ApproximateMinimumDegree.Order(graph), "minimum degree");
         var nd = GeometricNestedDissection.Order(graph, geometry!);
         if (Ordering == SparseOrdering.NestedDissection || graph.VertexCount > MinimumDegreeLimit) return (nd, "nested dissection");
-        var md = MinimumDegreeOrdering.Order(graph);
+        var md = ApproximateMinimumDegree.Order(graph);
         return SymbolicCholesky.CountFill(graph, md) < SymbolicCholesky.CountFill(graph, nd)
             ? (md, "minimum degree")
             : (nd, "nested dissection");
