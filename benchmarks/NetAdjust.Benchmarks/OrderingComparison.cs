@@ -38,7 +38,8 @@ public static class OrderingComparison
         var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(kind, points, Seed: 1));
         var problem = SyntheticProblem.Linearise(network);
         var graph = AdjacencyGraph.FromNormalEquations(problem.Unknowns, problem.Rows, problem.Weights);
-        Console.WriteLine($"{kind} {points} points: {graph.VertexCount} unknowns, {graph.EdgeCount} off-diagonal pairs");
+        Console.WriteLine(
+            $"{kind} {points} points: {graph.VertexCount} unknowns, {graph.EdgeCount} off-diagonal pairs");
 
         var (ours, tOurs) = Timed(() => ApproximateMinimumDegree.Order(graph));
         var symOurs = SymbolicCholesky.Analyze(graph, ours, "amd");
@@ -79,15 +80,17 @@ public static class OrderingComparison
         return (result, best);
     }
 
-    /// <summary>SuiteSparse's amd_order on the full pattern of N (CSC without the diagonal), default controls.</summary>
+    /// <summary>SuiteSparse's amd_order on the full pattern of N (CSC, no diagonal), default controls.</summary>
     private static int[]? ReferenceAmd(AdjacencyGraph graph)
     {
         if (!NativeLibrary.TryLoad("libamd.so.2", out var handle)) return null;
         try
         {
-            var amdOrder = Marshal.GetDelegateForFunctionPointer<AmdOrder>(NativeLibrary.GetExport(handle, "amd_order"));
+            var amdOrder = Marshal.GetDelegateForFunctionPointer<AmdOrder>(
+                NativeLibrary.GetExport(handle, "amd_order"));
             var perm = new int[graph.VertexCount];
-            int status = amdOrder(graph.VertexCount, graph.Start, graph.Adjacent, perm, IntPtr.Zero, IntPtr.Zero);
+            int status = amdOrder(
+                graph.VertexCount, graph.Start, graph.Adjacent, perm, IntPtr.Zero, IntPtr.Zero);
             if (status < 0) throw new InvalidOperationException($"amd_order returned {status}");
             return perm;
         }
