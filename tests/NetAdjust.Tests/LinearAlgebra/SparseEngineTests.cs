@@ -186,6 +186,26 @@ public class SparseEngineTests
     }
 
     [Fact]
+    public void NetworkWithoutPositionsIsOrderedByApproximateMinimumDegree()
+    {
+        // Without positions (no geometry, or a point whose position is unknown) geometric nested dissection cannot
+        // run: the solver uses AMD (Amestoy, Davis & Duff 1996), and its analysis has AMD's fill.
+        var (n, rows, w) = RandomProblem(seed: 3, u: 120, blocks: true);
+        var graph = AdjacencyGraph.FromNormalEquations(n, rows, w);
+        long amdFill = SymbolicCholesky.CountFill(graph, ApproximateMinimumDegree.Order(graph));
+        var groups = Enumerable.Range(0, n).ToArray();
+        var x = Enumerable.Range(0, n).Select(j => j == 7 ? double.NaN : j * 10.0).ToArray();
+        foreach (var geometry in new[] { null, new UnknownGeometry(groups, x, x) })
+        {
+            var solver = new SparseNormalEquationsSolver();
+            solver.Factorize(n, rows, w, geometry);
+            Assert.Equal("approximate minimum degree", solver.Symbolic!.OrderingName);
+            Assert.Contains("approximate minimum degree", solver.Name, StringComparison.Ordinal);
+            Assert.Equal(amdFill, solver.Symbolic.FactorNonZeros);
+        }
+    }
+
+    [Fact]
     public void SingularMatrixNamesAnUnknownWithoutPivot()
     {
         // unknown 2 appears in no row: no pivot for it

@@ -42,14 +42,21 @@ internal static class ApproximateMinimumDegree
     /// <summary>A fill-reducing permutation p of the unknowns (p[k] = unknown eliminated k-th).</summary>
     /// <param name="graph">G(N): the full symmetric adjacency of N without its diagonal.</param>
     /// <returns>The permutation; unknowns without neighbours first, dense ones last.</returns>
-    public static int[] Order(AdjacencyGraph graph)
+    public static int[] Order(AdjacencyGraph graph) => Order(graph, -1, out _);
+
+    /// <summary>The ordering with a chosen workspace (to exercise the compaction in tests).</summary>
+    /// <param name="graph">G(N).</param>
+    /// <param name="elbowRoom">Workspace beyond nnz(N), at least n + 1; negative for the default nnz/5 + 2n + 16.</param>
+    /// <param name="compactions">How many times the workspace was compacted.</param>
+    internal static int[] Order(AdjacencyGraph graph, int elbowRoom, out int compactions)
     {
+        compactions = 0;
         int n = graph.VertexCount;
         if (n == 0) return [];
         int nz = graph.Adjacent.Length;
 
-        // Workspace iw: the adjacency lists of G(N), then elbow room for new elements.
-        long iwLong = nz + (nz / 5) + (2L * n) + 16;
+        // Workspace iw: the adjacency lists of G(N), then elbow room for new elements (at least n: one new element).
+        long iwLong = elbowRoom < 0 ? nz + (nz / 5) + (2L * n) + 16 : nz + (long)Math.Max(elbowRoom, n + 1);
         if (iwLong > Array.MaxLength) throw new InvalidOperationException("the graph of N is too large to order");
         int iwlen = (int)iwLong;
         var iw = new int[iwlen];
@@ -162,6 +169,7 @@ internal static class ApproximateMinimumDegree
                             len[e] = ln - knt2;
                             if (len[e] == 0) pe[e] = Empty;
                             (pme1, pfree) = Compact(iw, pe, len, n, pme1, pfree);
+                            compactions++;
                             pj = pe[e];
                             p = pe[me];
                         }
