@@ -53,7 +53,8 @@ public static class OrderingComparison
             Report("reference amd_order", symRef, tRef);
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"  ratio ours/reference: nnz(L) {(double)symOurs.FactorNonZeros / symRef.FactorNonZeros:F3}, " +
-                $"flops {symOurs.FactorFlops / symRef.FactorFlops:F3}, ordering time {tOurs / tRef:F2}"));
+                $"flops {symOurs.FactorFlops / symRef.FactorFlops:F3}, ordering time {tOurs / tRef:F2}; " +
+                $"same permutation: {ours.AsSpan().SequenceEqual(reference)}"));
         }
         if (problem.Geometry is { HasAllPositions: true } geometry)
         {
@@ -64,7 +65,8 @@ public static class OrderingComparison
 
     private static void Report(string name, SymbolicCholesky sym, double seconds) =>
         Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"  {name}: nnz(L) {sym.FactorNonZeros:E3}, flops {sym.FactorFlops:E3}, ordering {seconds * 1000:F0} ms"));
+            $"  {name}: nnz(L) {sym.FactorNonZeros} ({sym.FactorNonZeros:E3}), flops {sym.FactorFlops:E3}, " +
+            $"ordering {seconds * 1000:F0} ms"));
 
     /// <summary>Best of three wall-clock runs (the first includes JIT).</summary>
     private static (T Result, double Seconds) Timed<T>(Func<T> f)
