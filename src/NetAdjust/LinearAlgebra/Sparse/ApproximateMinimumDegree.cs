@@ -9,7 +9,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// </summary>
 /// <remarks>
 /// <para>Amestoy, Davis &amp; Duff 1996, "An approximate minimum degree ordering algorithm", SIAM J. Matrix Anal.
-/// Appl. 17(4):886–905 (their Algorithm 2 with the refinements of their §4–5), on the quotient graph of George
+/// Appl. 17(4):886–905 (with aggressive absorption and dense-row handling), on the quotient graph of George
 /// &amp; Liu 1981 ch. 5 (see also George &amp; Liu 1989, SIAM Review 31(1):1–19; Davis 2006, <i>Direct Methods for
 /// Sparse Linear Systems</i>, §7.1):</para>
 /// <list type="bullet">
@@ -26,8 +26,9 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// pivot.</item>
 /// <item>Approximate external degree: d̄_i = min(n − k − nv_i, d̄_i^old + |L_p \ i|,
 /// |A_i \ i| + |L_p \ i| + Σ_{e ∈ E_i \ p} |L_e \ L_p|), the |L_e \ L_p| obtained for all e in one scan of the
-/// lists of L_p (their Algorithm 2, eq. 4.1).</item>
-/// <item>Dense rows (more than max(16, 10·√n) neighbours) are set aside and ordered last, as in their §5.</item>
+/// lists of L_p.</item>
+/// <item>Dense rows (more than max(16, 10·√n) neighbours, the reference implementation's default) are set aside and
+/// ordered last.</item>
 /// </list>
 /// <para>Deterministic (no randomness; ties go to the unknown most recently placed in its degree list). Time about
 /// O(nnz(N)·small) in practice; memory O(nnz(N) + n) integers.</para>
