@@ -133,7 +133,7 @@ public class ApproximateMinimumDegreeTests
     public void PathGraphGivesNoFill()
     {
         // A path (a chain of levelled height differences) is a tree: eliminating leaves first never fills, so
-        // nnz(L) = n + (n − 1) edges (George & Liu 1981, ch. 3). Labels are shuffled so the natural order would fill.
+        // nnz(L) = n + (n − 1) edges (common practice). Labels are shuffled so the natural order would fill.
         const int n = 200;
         var label = Enumerable.Range(0, n).ToArray();
         new Random(5).Shuffle(label);
