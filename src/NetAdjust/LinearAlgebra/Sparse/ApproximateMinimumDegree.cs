@@ -47,7 +47,8 @@ internal static class ApproximateMinimumDegree
 
     /// <summary>The ordering with a chosen workspace (to exercise the compaction in tests).</summary>
     /// <param name="graph">G(N).</param>
-    /// <param name="elbowRoom">Workspace beyond nnz(N), at least n + 1; negative for the default nnz/5 + 2n + 16.</param>
+    /// <param name="elbowRoom">Workspace beyond nnz(N), at least n + 1; negative for the default
+    /// nnz/5 + 2n + 16.</param>
     /// <param name="compactions">How many times the workspace was compacted.</param>
     internal static int[] Order(AdjacencyGraph graph, int elbowRoom, out int compactions)
     {
