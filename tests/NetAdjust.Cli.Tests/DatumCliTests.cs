@@ -100,7 +100,7 @@ public sealed class DatumCliTests : IDisposable
     [Fact]
     public void TheControlCheckDemoFlagsTheDisturbedMark()
     {
-        // data/harrowgate-control.yaml: HV03 was moved 5 cm in the simulation (data/tools/simulate_control_check.py).
+        // data/harrowgate-control.yaml: HV03 was moved 5 cm in the simulation (the harrowgate scenario of NetAdjust.Simulation.DemoScenarios).
         string json = Path.Combine(_tmp, "hv.json");
         var (code, stdout, stderr) = CliHarness.Run("adjust", CliHarness.DataFile("harrowgate-control.yaml"),
             "--sequence", "--json", json, "--date", "2026-12-01");

@@ -8,7 +8,7 @@ public class BlunderHuntReportTests
     [Fact]
     public void TheHuntLogNamesTheObservationUnclippedAndListsWhereToMarkIt()
     {
-        // The demo plants one blunder, +40 mm on the distance H3→H4 (data/tools/simulate_blunder_demo.py). The log
+        // The demo plants one blunder, +40 mm on the distance H3→H4 (the harrowfield scenario of NetAdjust.Simulation.DemoScenarios). The log
         // column showed "#26 distance H3→H4 (data/harrowfi~": the observation must be readable in the table, and the
         // file and line where the surveyor marks it 'exclude: true' must be given in full.
         string demo = CliHarness.DataFile("harrowfield-blunder.yaml");

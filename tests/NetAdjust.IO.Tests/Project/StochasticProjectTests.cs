@@ -151,7 +151,7 @@ public class StochasticProjectTests
     }
 
     [Fact]
-    public void CenteringOptionSelectsTheCorrelatedWeightModel()
+    public void CenteringOptionSelectsCorrelatedCentering()
     {
         var p = Parse(Head.Replace("default_sd:", "adjustment: {centering: correlated}\ndefault_sd:"));
         Assert.Equal(CenteringModel.Correlated, p.Options.Centering);

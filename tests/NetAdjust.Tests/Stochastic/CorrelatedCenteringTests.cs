@@ -8,7 +8,7 @@ using NetAdjust.Units;
 
 namespace NetAdjust.Tests.Stochastic;
 
-public class SetupCenteringWeightModelTests
+public class CorrelatedCenteringTests
 {
     // Own scenario (invented): two held points and two new points, three setups with directions and distances,
     // observations computed from the coordinates below and disturbed by fixed small amounts.
