@@ -20,6 +20,7 @@ public sealed class ResultReport
         Points = new ReportTable<PointRow>(PointRow.Columns,
             result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
         Observations = new ReportTable<ObservationRow>(ObservationRow.Columns, ObservationRow.Of(result, W));
+        Sections = StatisticsReport.Build(result, context);
     }
 
     /// <summary>Builds the model.</summary>
@@ -46,6 +47,12 @@ public sealed class ResultReport
 
     /// <summary>The observation table: observed and adjusted values, residuals, tests, in input order.</summary>
     internal ReportTable<ObservationRow> Observations { get; }
+
+    /// <summary>
+    /// The table sections after the observations: tests of the observations and of the weighted control, error
+    /// ellipses, relative precision, and the blunder hunt, robust estimation and variance components when run.
+    /// </summary>
+    internal IReadOnlyList<ReportSection> Sections { get; }
 
     /// <summary>
     /// Standardised residuals w by observation index (null where an observation cannot be tested or is set aside);

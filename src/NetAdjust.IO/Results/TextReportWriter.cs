@@ -110,7 +110,7 @@ public static class TextReportWriter
             Line();
         }
 
-        StatisticsReport.Append(sb, r, c);
+        StatisticsReport.Append(sb, report.Sections);
         Line(Caution);
         return sb.ToString();
     }

@@ -148,4 +148,50 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Equal(failing, highlighted);
         Assert.Contains("class=\"histogram\"", dom);
     }
+
+    [ChromiumFact]
+    public void StatisticsSectionsAreTablesWithUnitsCountedAgainstTheJson()
+    {
+        // data/harrowfield-blunder.yaml (invented demo) with the blunder hunt: its simulated blunder is set aside.
+        var project = NetAdjust.IO.Project.ProjectReader.Read(
+            Path.Combine(TestProjects.RepoRoot, "data", "harrowfield-blunder.yaml"));
+        var hunt = NetAdjust.Statistics.DataSnooping.Run(project.Network, project.Options);
+        var c = new ReportContext("data/harrowfield-blunder.yaml", TestProjects.RunDate, project.Units) { Hunt = hunt };
+        var model = ResultReport.Build(hunt.Final, c);
+        string path = Path.Combine(_dir, "tables.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(model));
+        var run = Chromium.Open(path, "--dump-dom");
+        Chromium.Open(path, "--screenshot=" + Path.Combine(_dir, "tables.png"), "--window-size=1100,4000");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        Assert.DoesNotContain("<pre", dom);
+
+        using var json = System.Text.Json.JsonDocument.Parse(JsonResultWriter.Write(model));
+        var root = json.RootElement;
+        int Rows(string id)
+        {
+            var section = Regex.Match(dom, $"<section id=\"{id}\"[^>]*>.*?</section>", RegexOptions.Singleline).Value;
+            Assert.True(section.Length > 0, "no section " + id);
+            Assert.Contains("<table", section);
+            return Regex.Matches(Regex.Match(section, "<tbody>.*?</tbody>", RegexOptions.Singleline).Value, "<tr[ >]").Count;
+        }
+        Assert.Equal(root.GetProperty("observations").GetArrayLength(), Rows("observation-tests"));
+        Assert.Equal(root.GetProperty("relative").GetArrayLength(), Rows("relative"));
+        Assert.Equal(root.GetProperty("blunder_hunt").GetProperty("rounds").GetArrayLength(), Rows("blunder-hunt"));
+        Assert.True(Rows("ellipses") > 0);
+
+        // Units sit in the column headers; numbers are right-aligned.
+        var tests = Regex.Match(dom, "<section id=\"observation-tests\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<th class=\"num\">Residual (m or arcsec)</th>", tests);
+        Assert.Contains("<th class=\"num\">Ext.rel. (m)</th>", tests);
+        var ellipses = Regex.Match(dom, "<section id=\"ellipses\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<th class=\"num\">Azimuth (deg)</th>", ellipses);
+
+        // The round that set the blunder aside is marked by a symbol, not by colour alone.
+        var rounds = Regex.Match(dom, "<section id=\"blunder-hunt\".*?</section>", RegexOptions.Singleline).Value;
+        int setAside = hunt.Rounds.Count(x => x.SetAside);
+        Assert.True(setAside > 0);
+        Assert.Equal(setAside, Regex.Matches(rounds, "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>").Count);
+        Assert.Equal(hunt.Rounds.Count - setAside, Regex.Matches(rounds, "<tr><td class=\"mark\"></td>").Count);
+    }
 }
