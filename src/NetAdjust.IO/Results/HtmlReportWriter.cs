@@ -50,6 +50,8 @@ public static class HtmlReportWriter
         Dl(sb, "Datum", TextReportSections.DatumText(r));
         Dl(sb, "Coordinates", c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
         Dl(sb, "Solver", r.SolverName);
+        if (c.Solution is string solution)
+            Dl(sb, "Solution", $"the {solution} solution of the datum sequence (tables below the comparison)");
         foreach (var warning in c.Warnings) Dl(sb, "Warning", warning);
         sb.Append("</dl>\n</header>\n");
 
@@ -89,6 +91,8 @@ public static class HtmlReportWriter
         else
             sb.Append("<p class=\"note\">No observation can be tested (no redundancy, or none controlled): there are no standardised residuals.</p>\n");
         sb.Append("</section>\n");
+
+        foreach (var section in report.Leading) AppendSection(sb, section);
 
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
@@ -244,12 +248,18 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"").Append(section.Id).Append("\" class=\"table-section\">\n<h2>")
           .Append(E(section.Heading)).Append("</h2>\n");
         foreach (var line in Paragraphs(section.Before)) sb.Append("<p>").Append(E(line)).Append("</p>\n");
+        if (section.HtmlSummary is string summary)
+        {
+            bool failed = section.Rows.Any(row => row.State == RowState.Fail);
+            sb.Append("<p class=\"verdict ").Append(failed ? "fail" : "pass").Append("\"><strong>")
+              .Append(failed ? "✗ " : "✓ ").Append(E(summary)).Append("</strong></p>\n");
+        }
         bool marks = section.Rows.Any(row => row.State != RowState.Normal);
         // a column without a heading (a marker) is shown only when some row uses it
         var columns = Enumerable.Range(0, section.Columns.Count).Where(i => section.Columns[i].Header.Length > 0
             || section.Rows.Any(row => row.Cells[i].Trim().Length > 0)).ToList();
         sb.Append("<table class=\"model\">\n<thead><tr>");
-        if (marks) sb.Append("<th class=\"mark\" title=\"test\">Test</th>");
+        if (marks) sb.Append("<th class=\"mark\" title=\"failing rows are marked\">Mark</th>");
         foreach (var col in columns.Select(i => section.Columns[i]))
             sb.Append(col.Kind == ValueKind.Number ? "<th class=\"num\">" : "<th>")
               .Append(E(col.Header.Length > 0 ? col.HeaderWithUnit : "Note")).Append("</th>");
@@ -274,8 +284,8 @@ public static class HtmlReportWriter
         var notes = section.Rows.SelectMany(row => row.After ?? []).Concat(section.After).ToList();
         foreach (var line in Paragraphs(notes)) sb.Append("<p class=\"note\">").Append(E(line.Trim())).Append("</p>\n");
         if (marks)
-            sb.Append("<p class=\"note\">Rows marked ✗ fail their test (or were set aside for failing it); ")
-              .Append("rows marked ! are weakly controlled or uncontrolled.</p>\n");
+            sb.Append("<p class=\"note\">").Append(E(section.MarkNote ?? "Rows marked ✗ fail their test (or were set " +
+                "aside for failing it); rows marked ! are weakly controlled or uncontrolled.")).Append("</p>\n");
         sb.Append("</section>\n");
     }
 

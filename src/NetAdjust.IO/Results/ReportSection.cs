@@ -26,6 +26,9 @@ internal enum RowState
 internal sealed record SectionColumn(string Header, string? Unit, ValueKind Kind, int Width, bool Left = false,
     string Gap = " ", bool Clip = false)
 {
+    /// <summary>The heading of the text report when it differs from <see cref="Header"/> (e.g. blank).</summary>
+    public string? TextHeading { get; init; }
+
     /// <summary>The heading with its unit in brackets, as tables for people show it.</summary>
     public string HeaderWithUnit => Unit is null ? Header : $"{Header} ({Unit})";
 }
@@ -59,6 +62,12 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
     /// <summary>A layout of one row for the text report other than the column layout, or null.</summary>
     public Func<IReadOnlyList<string>, string>? TextLayout { get; init; }
 
+    /// <summary>A sentence the HTML report shows above the table (e.g. the decision of a test), or null.</summary>
+    public string? HtmlSummary { get; init; }
+
+    /// <summary>What the marks of failing rows mean, when not the general note of the HTML report.</summary>
+    public string? MarkNote { get; init; }
+
     /// <summary>The symbol that marks a row in the given state where colour cannot be seen.</summary>
     public static string Symbol(RowState state) => state switch
     {
@@ -73,7 +82,7 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
         void Line(string s) => sb.Append(s.TrimEnd()).Append('\n');
         Line(Title);
         foreach (var line in Before) Line(line);
-        if (TextHeader) Line(Layout(Columns.Select(c => c.Header).ToList(), clip: false));
+        if (TextHeader) Line(Layout(Columns.Select(c => c.TextHeading ?? c.Header).ToList(), clip: false));
         foreach (var row in Rows)
         {
             Line(TextLayout is null ? Layout(row.Cells, clip: true) : TextLayout(row.Cells));

@@ -33,6 +33,27 @@ public sealed class ResultReport
         return new ResultReport(result, context, ReportFigures.StandardisedResiduals(result));
     }
 
+    /// <summary>
+    /// Builds the model of one solution of a datum sequence: that solution's tables, led by the sections that
+    /// compare the two (solutions, test of the added constraints, control discrepancies, coordinate shifts) and the
+    /// coordinates of the other solution. The context's <see cref="ReportContext.Solution"/> is set to say which
+    /// solution the outputs hold.
+    /// </summary>
+    /// <param name="sequence">The sequence result.</param>
+    /// <param name="context">Run details.</param>
+    /// <param name="minimal">True for the minimally-constrained solution, false for the constrained one.</param>
+    public static ResultReport Build(SequenceResult sequence, ReportContext context, bool minimal)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        ArgumentNullException.ThrowIfNull(context);
+        var (shown, other) = minimal ? (sequence.Minimal, sequence.Constrained) : (sequence.Constrained, sequence.Minimal);
+        var c = context with { Solution = minimal ? ReportContext.MinimalSolution : ReportContext.ConstrainedSolution };
+        var leading = SequenceSections.Build(sequence, context).ToList();
+        leading.Add(SequenceSections.Coordinates(ResultReport.Build(other, context),
+            minimal ? ReportContext.ConstrainedSolution : ReportContext.MinimalSolution));
+        return new ResultReport(shown, c, ReportFigures.StandardisedResiduals(shown)) { Leading = leading };
+    }
+
     /// <summary>The result the model shows.</summary>
     public AdjustmentResult Result { get; }
 
@@ -54,6 +75,10 @@ public sealed class ResultReport
     /// </summary>
     internal IReadOnlyList<ReportSection> Sections { get; }
 
+    /// <summary>Sections shown before the model's own tables (the comparison of a datum sequence); empty for none.
+    /// </summary>
+    internal IReadOnlyList<ReportSection> Leading { get; private init; } = [];
+
     /// <summary>
     /// Standardised residuals w by observation index (null where an observation cannot be tested or is set aside);
     /// null when the outputs are to show none.
@@ -61,7 +86,8 @@ public sealed class ResultReport
     internal IReadOnlyList<double?>? W { get; }
 
     /// <summary>The same model with other standardised residuals (null: none), e.g. for the no-w layout.</summary>
-    internal ResultReport WithStandardisedResiduals(IReadOnlyList<double?>? w) => new(Result, Context, w);
+    internal ResultReport WithStandardisedResiduals(IReadOnlyList<double?>? w) =>
+        new(Result, Context, w) { Leading = Leading };
 
     /// <summary>The critical value of the w-test.</summary>
     internal double WCritical => Result.Analysis.WCritical;
