@@ -56,6 +56,7 @@ internal static class AdjustCommand
             var context0 = new ReportContext(path, runDate, project.Units)
             {
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
+                Particulars = project.Particulars,
             };
             string text;
             AdjustmentResult result;

@@ -18,6 +18,10 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// for none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
 
+    /// <summary>The survey's particulars (<see cref="SurveyProject.Particulars"/>), or null when none are given.
+    /// </summary>
+    public SurveyParticulars? Particulars { get; init; }
+
     /// <summary>The words for the constrained solution of a datum sequence.</summary>
     public const string ConstrainedSolution = "constrained";
 

@@ -67,6 +67,7 @@ public static class SequenceReportWriter
         Line($"Project   : {s.Constrained.Network.Name}");
         Line($"Input     : {c.InputName}");
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        TextReportSections.Particulars(sb, c);
         Line($"Step 1    : {s.MinimalDatum}");
         Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");
         ReportWarnings.AppendText(sb, c);
