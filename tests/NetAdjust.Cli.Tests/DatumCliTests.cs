@@ -126,7 +126,8 @@ public sealed class DatumCliTests : IDisposable
     public void SequenceOutputsCarryTheComparisonAndNameTheirSolution()
     {
         // data/harrowgate-control.yaml (invented demo, HV03 moved in the simulation): the control test fails.
-        string html = Path.Combine(_tmp, "seq.html"), csv = Path.Combine(_tmp, "seq.csv"), geo = Path.Combine(_tmp, "seq.geojson");
+        string html = Path.Combine(_tmp, "seq.html"), csv = Path.Combine(_tmp, "seq.csv");
+        string geo = Path.Combine(_tmp, "seq.geojson");
         string csvMin = Path.Combine(_tmp, "min.csv"), xmlMin = Path.Combine(_tmp, "min.xml");
         string demo = CliHarness.DataFile("harrowgate-control.yaml");
         var (code, _, stderr) = CliHarness.Run("adjust", demo, "--sequence", "--quiet", "--html", html, "--csv", csv,

@@ -10,8 +10,8 @@ public static partial class ProjectReader
     {
         if (ctx.Child(root, "survey") is not YamlNode node) return null;
         var m = ctx.Mapping(node, "survey");
-        ctx.CheckKeys(m, ["client", "site", "reference", "surveyor", "firm", "observed", "equipment", "weather", "note"],
-            "survey");
+        ctx.CheckKeys(m,
+            ["client", "site", "reference", "surveyor", "firm", "observed", "equipment", "weather", "note"], "survey");
         DateOnly Date(YamlNode n, string item)
         {
             string s = ctx.Scalar(n, item).Trim();

@@ -49,5 +49,6 @@ public sealed record SurveyEquipment(string Item, string? Serial, DateOnly? Cali
 {
     /// <summary>"item, serial S, calibrated YYYY-MM-DD".</summary>
     public string Describe() => Item + (Serial is null ? "" : $", serial {Serial}") +
-        (Calibrated is DateOnly d ? $", calibrated {d.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture)}" : "");
+        (Calibrated is DateOnly d
+            ? $", calibrated {d.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture)}" : "");
 }

@@ -46,7 +46,8 @@ public sealed class ResultReport
     {
         ArgumentNullException.ThrowIfNull(sequence);
         ArgumentNullException.ThrowIfNull(context);
-        var (shown, other) = minimal ? (sequence.Minimal, sequence.Constrained) : (sequence.Constrained, sequence.Minimal);
+        var (shown, other) = minimal
+            ? (sequence.Minimal, sequence.Constrained) : (sequence.Constrained, sequence.Minimal);
         var c = context with { Solution = minimal ? ReportContext.MinimalSolution : ReportContext.ConstrainedSolution };
         var leading = SequenceSections.Build(sequence, context).ToList();
         leading.Add(SequenceSections.Coordinates(ResultReport.Build(other, context),

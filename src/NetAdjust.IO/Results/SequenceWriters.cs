@@ -131,11 +131,13 @@ internal static class SequenceSections
         var testAfter = new List<string>();
         if (t.PassedChiSquare is bool ok)
         {
-            testRows.Add(new SectionRow(["Chi-square (sigma0 known)", F(t.ChiSquare, 3), F(t.ChiSquareCritical!.Value, 3),
-                ok ? "PASSED" : "FAILED", t.SigmaEstimated ? "" : "decides"], ok ? RowState.Normal : RowState.Fail));
+            testRows.Add(new SectionRow(["Chi-square (sigma0 known)", F(t.ChiSquare, 3),
+                F(t.ChiSquareCritical!.Value, 3), ok ? "PASSED" : "FAILED", t.SigmaEstimated ? "" : "decides"],
+                ok ? RowState.Normal : RowState.Fail));
             if (t.PassedF is bool okF)
                 testRows.Add(new SectionRow(["F (sigma0 from step 1)", F(t.F!.Value, 3), F(t.FCritical!.Value, 3),
-                    okF ? "PASSED" : "FAILED", t.SigmaEstimated ? "decides" : ""], okF ? RowState.Normal : RowState.Fail));
+                    okF ? "PASSED" : "FAILED", t.SigmaEstimated ? "decides" : ""],
+                    okF ? RowState.Normal : RowState.Fail));
         }
         else testAfter.Add("  Not possible: the control adds no constraint beyond the minimum.");
         sections.Add(new ReportSection("sequence-test",
@@ -200,7 +202,8 @@ internal static class SequenceSections
         var units = new ReportUnits(other.Context.Units);
         string lu = units.LengthSymbol;
         static SectionColumn Nr(string header, string unit) => new(header, unit, ValueKind.Number, 0);
-        return new ReportSection("sequence-other-solution", $"COORDINATES OF THE {solution.ToUpperInvariant()} SOLUTION",
+        return new ReportSection("sequence-other-solution",
+            $"COORDINATES OF THE {solution.ToUpperInvariant()} SOLUTION",
             $"Coordinates of the {solution} solution",
             [$"  Standard deviations at {other.Basis.Words}."],
             [

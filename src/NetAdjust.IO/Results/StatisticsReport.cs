@@ -47,7 +47,8 @@ internal static class StatisticsReport
         string Basis() => a.Basis == VarianceFactorBasis.Known
             ? $"variance factor known (a priori {F(a.VarianceFactor, 4)})"
             : $"variance factor estimated ({F(a.VarianceFactor, 4)})";
-        static SectionColumn Id(string header, int width) => new(header, null, ValueKind.PointId, width, true, Clip: true);
+        static SectionColumn Id(string header, int width) =>
+            new(header, null, ValueKind.PointId, width, true, Clip: true);
         static SectionColumn Txt(string header, int width, bool clip = false, string gap = " ") =>
             new(header, null, ValueKind.Text, width, true, gap, clip);
         static SectionColumn Nr(string header, string? unit, int width, string gap = " ") =>
@@ -96,7 +97,8 @@ internal static class StatisticsReport
         };
         if (excluded > 0)
         {
-            after.Add("  Set-aside observations carry no weight: their residual is the misclosure against the adjusted");
+            after.Add(
+                "  Set-aside observations carry no weight: their residual is the misclosure against the adjusted");
             after.Add("  coordinates, and w its standardised value.");
         }
         sections.Add(new ReportSection("observation-tests",
@@ -185,7 +187,8 @@ internal static class StatisticsReport
                 a.Relative.Select(rel => new SectionRow([
                     rel.From, rel.To, Len(rel.Ellipse.A), Len(rel.Ellipse.B), Az(rel.Ellipse.Azimuth),
                     Len(rel.Confidence.A), Len(rel.Distance), Len(rel.SdDistance),
-                    double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact", units.SmallAngle(rel.SdAzimuth),
+                    double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact",
+                    units.SmallAngle(rel.SdAzimuth),
                     rel.Observed ? "" : " *",
                 ])).ToList(),
                 a.Relative.Any(x => !x.Observed)
@@ -202,7 +205,8 @@ internal static class StatisticsReport
                     Txt("", 0, gap: ""),
                 ],
                 a.RelativeHeights.Select(rh => new SectionRow([
-                    rh.From, rh.To, Len(rh.Difference), Len(rh.SdDifference), Len(rh.Confidence), rh.Observed ? "" : " *",
+                    rh.From, rh.To, Len(rh.Difference), Len(rh.SdDifference), Len(rh.Confidence),
+                    rh.Observed ? "" : " *",
                 ])).ToList(),
                 a.RelativeHeights.Any(x => !x.Observed)
                     ? ["  * pair listed in the project file (not joined by an observation)"] : []));
@@ -229,7 +233,8 @@ internal static class StatisticsReport
                 foreach (int i in h.SetAside)
                     foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94))
                         huntAfter.Add("    " + part);
-                huntAfter.Add("  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
+                huntAfter.Add(
+                    "  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
                 huntAfter.Add("  'sd_factor') in the project file, or re-measure.");
             }
             sections.Add(new ReportSection("blunder-hunt",
@@ -261,10 +266,12 @@ internal static class StatisticsReport
             foreach (int i in rb.Suspected)
                 foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94))
                     robustAfter.Add("    " + part);
-            robustAfter.Add("  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
+            robustAfter.Add(
+                "  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
             sections.Add(new ReportSection("robust",
                 $"ROBUST ESTIMATION ({(rb.Method == RobustMethod.Huber ? "Huber" : "Danish method")}, " +
-                $"c = {F(rb.Tuning, 2)}; {rb.Iterations} re-weightings, {(rb.Converged ? "converged" : "NOT converged")})",
+                $"c = {F(rb.Tuning, 2)}; {rb.Iterations} re-weightings, " +
+                $"{(rb.Converged ? "converged" : "NOT converged")})",
                 "Robust estimation",
                 [
                     "  Observations down-weighted (weight factor below 1), with |u| = the |w| each would get at full",
@@ -277,7 +284,8 @@ internal static class StatisticsReport
                 robust, robustAfter)
             {
                 TextHeader = false,
-                TextLayout = cells => $"  #{cells[0],-4} {TextReportWriter.Clip(cells[1], 34),-34} factor {cells[2]}  " +
+                TextLayout = cells =>
+                    $"  #{cells[0],-4} {TextReportWriter.Clip(cells[1], 34),-34} factor {cells[2]}  " +
                                       $"|u| {cells[3],6}{(cells[4].Length > 0 ? "  " + cells[4] : "")}",
             });
         }

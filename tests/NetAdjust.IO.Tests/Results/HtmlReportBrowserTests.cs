@@ -173,7 +173,8 @@ public sealed class HtmlReportBrowserTests : IDisposable
             var section = Regex.Match(dom, $"<section id=\"{id}\"[^>]*>.*?</section>", RegexOptions.Singleline).Value;
             Assert.True(section.Length > 0, "no section " + id);
             Assert.Contains("<table", section);
-            return Regex.Matches(Regex.Match(section, "<tbody>.*?</tbody>", RegexOptions.Singleline).Value, "<tr[ >]").Count;
+            var body = Regex.Match(section, "<tbody>.*?</tbody>", RegexOptions.Singleline).Value;
+            return Regex.Matches(body, "<tr[ >]").Count;
         }
         Assert.Equal(root.GetProperty("observations").GetArrayLength(), Rows("observation-tests"));
         Assert.Equal(root.GetProperty("relative").GetArrayLength(), Rows("relative"));
@@ -191,7 +192,38 @@ public sealed class HtmlReportBrowserTests : IDisposable
         var rounds = Regex.Match(dom, "<section id=\"blunder-hunt\".*?</section>", RegexOptions.Singleline).Value;
         int setAside = hunt.Rounds.Count(x => x.SetAside);
         Assert.True(setAside > 0);
-        Assert.Equal(setAside, Regex.Matches(rounds, "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>").Count);
+        const string failMark = "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>";
+        Assert.Equal(setAside, Regex.Matches(rounds, failMark).Count);
         Assert.Equal(hunt.Rounds.Count - setAside, Regex.Matches(rounds, "<tr><td class=\"mark\"></td>").Count);
+    }
+
+    [ChromiumFact]
+    public void SequenceReportShowsTheComparisonAsTables()
+    {
+        // data/harrowgate-control.yaml (invented demo): one mark was moved in the simulation, so the control fails.
+        var project = NetAdjust.IO.Project.ProjectReader.Read(
+            Path.Combine(TestProjects.RepoRoot, "data", "harrowgate-control.yaml"));
+        var seq = NetAdjust.Adjustment.AdjustmentSequence.Run(project.Network, project.Options);
+        var c = new ReportContext("data/harrowgate-control.yaml", TestProjects.RunDate, project.Units);
+        string path = Path.Combine(_dir, "sequence.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(ResultReport.Build(seq, c, minimal: false)));
+        var run = Chromium.Open(path, "--dump-dom");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        int Rows(string id) => Regex.Matches(Regex.Match(dom, $"<section id=\"{id}\"[^>]*>.*?</section>",
+            RegexOptions.Singleline).Value, "<tr[ >]").Count - 1;
+        Assert.Equal(2, Rows("sequence-solutions"));
+        Assert.Equal(seq.Discrepancies.Count, Rows("sequence-discrepancies"));
+        Assert.Equal(seq.Shifts.Count, Rows("sequence-shifts"));
+        Assert.Equal(seq.Minimal.Points.Count, Rows("sequence-other-solution"));
+        Assert.False(seq.Test.Passed);
+        Assert.Contains("<p class=\"verdict fail\"><strong>✗ Decision: the control does not fit", dom);
+        // every discrepancy row above the w-test's critical value carries the symbol as well as the class
+        int failing = seq.Discrepancies.Count(d => d.MaxAbsW > seq.Minimal.Analysis.WCritical);
+        var discrepancies = Regex.Match(dom, "<section id=\"sequence-discrepancies\".*?</section>",
+            RegexOptions.Singleline).Value;
+        Assert.True(failing > 0);
+        const string failMark = "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>";
+        Assert.Equal(failing, Regex.Matches(discrepancies, failMark).Count);
     }
 }

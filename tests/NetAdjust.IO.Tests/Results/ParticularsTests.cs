@@ -28,7 +28,8 @@ public sealed class ParticularsTests
 
     private static ResultReport Model(string text)
     {
-        var project = ProjectReader.Parse(text, "ashgrove.yaml", "/nonexistent", _ => throw new IOException("no files"));
+        var project = ProjectReader.Parse(text, "ashgrove.yaml", "/nonexistent",
+            _ => throw new IOException("no files"));
         var r = Adjuster.Adjust(project.Network, project.Options);
         var c = new ReportContext("ashgrove.yaml", TestProjects.RunDate, project.Units)
         {
@@ -50,7 +51,8 @@ public sealed class ParticularsTests
         Assert.Contains("\nEquipment : prism pole\n", text);
         Assert.Contains("\nNote      : S3 re-occupied on the second day.\n", text);
         // at the top: before the summary
-        Assert.True(text.IndexOf("Client    :", StringComparison.Ordinal) < text.IndexOf("SUMMARY", StringComparison.Ordinal));
+        Assert.True(text.IndexOf("Client    :", StringComparison.Ordinal)
+            < text.IndexOf("SUMMARY", StringComparison.Ordinal));
 
         string html = HtmlReportWriter.Write(model);
         Assert.Contains("<dt>Site</dt><dd>Ashgrove yard &amp; gate</dd>", html);
@@ -62,7 +64,8 @@ public sealed class ParticularsTests
         var survey = json.RootElement.GetProperty("survey");
         Assert.Equal("Fernleigh Parish Council", survey.GetProperty("client").GetString());
         Assert.Equal("Example Survey Partnership", survey.GetProperty("firm").GetString());
-        Assert.Equal(["2026-11-03", "2026-11-04"], survey.GetProperty("observed").EnumerateArray().Select(e => e.GetString()));
+        Assert.Equal(["2026-11-03", "2026-11-04"],
+            survey.GetProperty("observed").EnumerateArray().Select(e => e.GetString()));
         var equipment = survey.GetProperty("equipment");
         Assert.Equal("TS-40417", equipment[0].GetProperty("serial").GetString());
         Assert.Equal("2026-09-14", equipment[0].GetProperty("calibrated").GetString());
@@ -85,7 +88,8 @@ public sealed class ParticularsTests
     public void BadParticularsNameLineAndItem(string survey, int line, string item)
     {
         var e = Assert.Throws<ProjectFileException>(() =>
-            ProjectReader.Parse(survey + TestProjects.Ashgrove, "ashgrove.yaml", "/nonexistent", _ => throw new IOException()));
+            ProjectReader.Parse(survey + TestProjects.Ashgrove, "ashgrove.yaml", "/nonexistent",
+                _ => throw new IOException()));
         Assert.Equal(line, e.Line);
         Assert.Contains(item, e.Message);
     }
