@@ -179,13 +179,13 @@ public static class HtmlReportWriter
 
         foreach (var section in report.Sections) AppendSection(sb, section);
 
-        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n</section>\n");
-        // The block the surveyor in charge signs on the printed report.
-        sb.Append("<section id=\"signature\">\n<h2>Surveyor in charge</h2>\n<table class=\"signature\">\n<tbody>\n")
+        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n");
+        // The block the surveyor in charge signs, on the page of the caution it is signed under.
+        sb.Append("<div id=\"signature\">\n<h3>Surveyor in charge</h3>\n<table class=\"signature\">\n<tbody>\n")
           .Append("<tr><th scope=\"row\">Name</th><td>").Append(E(c.Particulars?.Surveyor ?? "")).Append("</td></tr>\n")
           .Append("<tr><th scope=\"row\">Firm</th><td>").Append(E(c.Particulars?.Firm ?? "")).Append("</td></tr>\n")
           .Append("<tr><th scope=\"row\">Signature</th><td></td></tr>\n")
-          .Append("<tr><th scope=\"row\">Date</th><td></td></tr>\n</tbody>\n</table>\n</section>\n");
+          .Append("<tr><th scope=\"row\">Date</th><td></td></tr>\n</tbody>\n</table>\n</div>\n</section>\n");
         sb.Append("<footer>Report written by NetAdjust on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
         return sb.ToString();
     }
@@ -359,7 +359,7 @@ public static class HtmlReportWriter
         tr.fail td { background: #fbe3d6; font-weight: bold; }
         tr.warn td { background: #fff4cc; font-style: italic; }
         td.mark, th.mark { text-align: center; width: 1.5em; }
-        table.signature { width: 60%; }
+        table.signature { width: 60%; break-inside: avoid; }
         table.signature td { height: 2.2em; min-width: 20em; }
         table.figures th { font-weight: normal; background: #f6f6f6; }
         .verdict { font-size: 16px; padding: 6px 10px; border-left: 6px solid #999; background: #f6f6f6; }
@@ -376,7 +376,7 @@ public static class HtmlReportWriter
         @media print {
           body { margin: 0; max-width: none; font-size: 11px; }
           section { break-before: page; }
-          section#summary, section#signature { break-before: auto; }
+          section#summary { break-before: auto; }
           h2 { break-after: avoid; }
           thead { display: table-header-group; }
           tr { break-inside: avoid; }

@@ -57,7 +57,7 @@ public sealed class ParticularsTests
         string html = HtmlReportWriter.Write(model);
         Assert.Contains("<dt>Site</dt><dd>Ashgrove yard &amp; gate</dd>", html);
         Assert.Contains("<dt>Weather</dt><dd>overcast, light wind</dd>", html);
-        Assert.Contains("<section id=\"signature\">", html);
+        Assert.Contains("<div id=\"signature\">", html);
         Assert.Contains("<th scope=\"row\">Name</th><td>A. N. Example</td>", html);
 
         using var json = JsonDocument.Parse(JsonResultWriter.Write(model));
