@@ -141,7 +141,11 @@ internal static class ResultJson
     /// <summary>The sequence document: both solutions, the constraint test, discrepancies and shifts.</summary>
     internal sealed record Sequence(string Format, string MinimalDatum, IEnumerable<Document> Solutions,
         ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies,
-        IEnumerable<Shift> CoordinateShifts);
+        IEnumerable<Shift> CoordinateShifts, IEnumerable<Testability> ControlTestability);
+
+    /// <summary>Whether the observations can check one part (plan, height) of a control mark.</summary>
+    internal sealed record Testability(string Id, string Part, bool? Testable,
+        IEnumerable<string> CannotBeToldApartFrom);
 
     internal sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, TestValue ChiSquare,
         [property: JsonPropertyName("f")] TestValue FTest, string DecidedBy, bool? Passed);

@@ -37,7 +37,9 @@ public static class SequenceJsonWriter
                 t.SigmaEstimated ? "f" : "chi_square", t.Passed),
             s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
                 F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
-            s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))));
+            s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))),
+            ControlTestability.Of(s).Select(x => new ResultJson.Testability(x.Id, x.Part, x.Testable,
+                x.Testable == false ? x.Neighbours : [])));
         JsonResultWriter.Serialise(stream, document);
     }
 
@@ -182,6 +184,30 @@ internal static class SequenceSections
         {
             MarkNote = $"Rows marked ✗ have a standardised discrepancy |w| above {F(critical, 2)}, " +
                        "the critical value of the w-test.",
+        });
+
+        var testability = ControlTestability.Of(s);
+        sections.Add(new ReportSection("sequence-testability",
+            "CONTROL TESTABILITY (can the observations fix each control mark without its given coordinates?)",
+            "Control testability",
+            [
+                "  A mark they cannot fix cannot be checked: an error in its given coordinates goes unseen or is",
+                "  blamed on another mark. It cannot be told apart from the marks it is joined to (docs/methods.md).",
+            ],
+            [
+                new SectionColumn("Point", null, ValueKind.PointId, 12, true, Clip: true),
+                new SectionColumn("Part", null, ValueKind.Text, 6, true),
+                new SectionColumn("Testable", null, ValueKind.Text, 8, true),
+                new SectionColumn("Cannot be told apart from", null, ValueKind.Text, 0, true),
+            ],
+            testability.Select(x => new SectionRow([x.Id, x.Part,
+                x.Testable switch { true => "yes", false => "NO", null => "unknown" },
+                x.Testable == false ? string.Join(", ", x.Neighbours) : ""],
+                x.Testable == false ? RowState.Warn : RowState.Normal)).ToList(),
+            testability.Any(x => x.Testable is null)
+                ? ["  unknown: the trial adjustment without the mark's given coordinates did not succeed."] : [])
+        {
+            MarkNote = "Rows marked ! are control the observations cannot check.",
         });
 
         sections.Add(new ReportSection("sequence-shifts",
