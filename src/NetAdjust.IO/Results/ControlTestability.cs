@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 
@@ -18,9 +19,14 @@ namespace NetAdjust.IO.Results;
 /// <param name="Neighbours">The points joined to the mark by an observation, in input order.</param>
 internal sealed record ControlTestability(string Id, string Part, bool? Testable, IReadOnlyList<string> Neighbours)
 {
+    // One trial adjustment per control mark and part: computed once per sequence, whichever outputs show it.
+    private static readonly ConditionalWeakTable<SequenceResult, IReadOnlyList<ControlTestability>> Computed = new();
+
     /// <summary>One entry per controlled part (plan, height) of each control mark of the sequence, in input order.
     /// </summary>
-    public static IReadOnlyList<ControlTestability> Of(SequenceResult s)
+    public static IReadOnlyList<ControlTestability> Of(SequenceResult s) => Computed.GetValue(s, Compute);
+
+    private static IReadOnlyList<ControlTestability> Compute(SequenceResult s)
     {
         var network = s.Constrained.Network;
         var options = s.Constrained.Options with { Datum = DatumDefinition.ByControl, Progress = null };
