@@ -122,4 +122,47 @@ public sealed class DatumCliTests : IDisposable
         Assert.True(code == 0, err);
         Assert.Contains("Global test", report);
     }
+
+    [Fact]
+    public void SequenceOutputsCarryTheComparisonAndNameTheirSolution()
+    {
+        // data/harrowgate-control.yaml (invented demo, HV03 moved in the simulation): the control test fails.
+        string html = Path.Combine(_tmp, "seq.html"), csv = Path.Combine(_tmp, "seq.csv");
+        string geo = Path.Combine(_tmp, "seq.geojson");
+        string csvMin = Path.Combine(_tmp, "min.csv"), xmlMin = Path.Combine(_tmp, "min.xml");
+        string demo = CliHarness.DataFile("harrowgate-control.yaml");
+        var (code, _, stderr) = CliHarness.Run("adjust", demo, "--sequence", "--quiet", "--html", html, "--csv", csv,
+            "--geojson", geo, "--date", "2026-12-01");
+        Assert.True(code == ExitCodes.Success, stderr);
+        string page = File.ReadAllText(html);
+        foreach (var id in new[] { "sequence-solutions", "sequence-test", "sequence-discrepancies", "sequence-shifts",
+                                   "sequence-other-solution" })
+            Assert.Contains($"<section id=\"{id}\"", page);
+        Assert.Contains("Decision: the control does not fit the observations (FAILED).", page);
+        Assert.Contains("<th class=\"num\">sd dE (m)</th>", page);
+        Assert.Contains("<th class=\"num\">wE</th>", page);
+        Assert.Contains("<dt>Solution</dt><dd>the constrained solution", page);
+        Assert.All(File.ReadAllLines(csv).Skip(1), l => Assert.EndsWith(",constrained", l));
+        Assert.Contains("\"solution\": \"constrained\"", File.ReadAllText(geo));
+
+        (code, _, stderr) = CliHarness.Run("adjust", demo, "--sequence", "--quiet", "--exchange-solution", "minimal",
+            "--csv", csvMin, "--landxml", xmlMin, "--date", "2026-12-01");
+        Assert.True(code == ExitCodes.Success, stderr);
+        var lines = File.ReadAllLines(csvMin);
+        Assert.EndsWith(",solution", lines[0]);
+        Assert.All(lines.Skip(1), l => Assert.EndsWith(",minimally constrained", l));
+        // HV03 is held in the constrained solution but free in the minimal one: its coordinates differ.
+        Assert.NotEqual(File.ReadAllLines(csv).Single(l => l.StartsWith("HV03,", StringComparison.Ordinal)),
+            lines.Single(l => l.StartsWith("HV03,", StringComparison.Ordinal)));
+        Assert.Contains("the minimally constrained solution of the datum sequence", File.ReadAllText(xmlMin));
+    }
+
+    [Fact]
+    public void ExchangeSolutionWithoutSequenceIsRefused()
+    {
+        var (code, _, stderr) = CliHarness.Run("adjust", CliHarness.DataFile("brackenmoor.yaml"),
+            "--exchange-solution", "minimal", "--date", "2026-12-01");
+        Assert.NotEqual(ExitCodes.Success, code);
+        Assert.Contains("--exchange-solution applies only with --sequence", stderr);
+    }
 }

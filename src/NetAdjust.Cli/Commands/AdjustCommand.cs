@@ -25,19 +25,28 @@ internal static class AdjustCommand
         {
             Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
         };
+        var solution = new Option<string?>("--exchange-solution")
+        {
+            Description = "With --sequence: the solution the HTML report, plot, CSV, LandXML and GeoJSON hold: " +
+                          "constrained (default) or minimal (the minimally-constrained one). Each says which it holds.",
+            HelpName = "constrained|minimal",
+        };
+        solution.AcceptOnlyFromAmong("constrained", "minimal");
         var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress on standard error (progress is shown only for runs longer than a second)." };
         var stats = new StatisticsCliOptions();
         var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
-            file, json, report, date, budgets, sequence, quiet,
+            file, json, report, date, budgets, sequence, solution, quiet,
         };
         stats.AddTo(cmd);
         exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(file)!;
+            if (parse.GetValue(solution) is not null && !parse.GetValue(sequence))
+                throw new InvalidInputException("--exchange-solution applies only with --sequence");
             string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
             var runDate = ParseDate(parse.GetValue(date));
             var project = ProjectReader.Read(path);
@@ -48,6 +57,7 @@ internal static class AdjustCommand
             var context0 = new ReportContext(path, runDate, project.Units)
             {
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
+                Particulars = project.Particulars,
             };
             string text;
             AdjustmentResult result;
@@ -62,6 +72,7 @@ internal static class AdjustCommand
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
                 (result, context) = (seq.Constrained, context0);
                 text = SequenceReportWriter.Write(seq, context);
+                model = ResultReport.Build(seq, context, minimal: parse.GetValue(solution) == "minimal");
                 if (jsonPath is not null) files.Add((jsonPath, SequenceJsonWriter.Write(seq, context)));
             }
             else
@@ -71,7 +82,7 @@ internal static class AdjustCommand
                 text = TextReportWriter.Write(model);
                 if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(model)));
             }
-            // One report model for every output of a result (for the sequence: the constrained solution's).
+            // One report model for every output of a result (for the sequence: the chosen solution's).
             files.AddRange(exchange.Render(parse, model ?? ResultReport.Build(result, context)));
             if (reportPath is not null) files.Add((reportPath, text));
             SafeFileWriter.WriteAll(files);

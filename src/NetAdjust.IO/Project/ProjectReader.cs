@@ -15,7 +15,7 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs", "datum"];
+    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs", "datum", "survey"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -162,6 +162,7 @@ public static partial class ProjectReader
         return new SurveyProject(network, units, options, inputs)
         {
             Crs = ReadCrs(ctx, root), Warnings = ProjectWarnings.Find(network, listedTwice),
+            Particulars = ReadParticulars(ctx, root),
         };
     }
 

@@ -13,6 +13,9 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>The coordinate reference system the coordinates are in, as <c>EPSG:code</c> (key <c>crs</c>); null when the project declares none (local coordinates).</summary>
     public string? Crs { get; init; }
 
+    /// <summary>The survey's particulars (key <c>survey</c>), or null when the project gives none.</summary>
+    public SurveyParticulars? Particulars { get; init; }
+
     /// <summary>Warnings about legal but suspicious data (docs/input-format.md, "Warnings"); empty when there
     /// are none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];

@@ -24,6 +24,9 @@ public static class CoordinateCsvWriter
     /// <summary>The header of the last column: the variance factor of every standard deviation and ellipse.</summary>
     public const string BasisColumn = "variance_factor_basis";
 
+    /// <summary>The header of the column, written in a datum sequence only, that names the solution.</summary>
+    public const string SolutionColumn = "solution";
+
     /// <summary>Renders the CSV text.</summary>
     /// <param name="result">The result.</param>
     /// <param name="context">Run details; its length unit is used for every length.</param>
@@ -51,10 +54,13 @@ public static class CoordinateCsvWriter
                 : x.ToString("F" + (c.Unit == ColumnUnit.Degrees ? AzimuthDecimals : LengthDecimals), Inv);
         }
         var sb = new StringBuilder();
-        sb.AppendJoin(',', table.Columns.Select(Header)).Append(',').Append(BasisColumn).Append('\n');
+        // in a datum sequence, a last column names the solution the file holds
+        string? solution = report.Context.Solution;
+        sb.AppendJoin(',', table.Columns.Select(Header)).Append(',').Append(BasisColumn)
+          .Append(solution is null ? "" : "," + SolutionColumn).Append('\n');
         foreach (var row in table.Rows)
             sb.AppendJoin(',', table.Columns.Select(c => Cell(c, row)))
-              .Append(',').Append(report.Basis.Keyword).Append('\n');
+              .Append(',').Append(report.Basis.Keyword).Append(solution is null ? "" : "," + solution).Append('\n');
         return sb.ToString();
     }
 

@@ -68,6 +68,7 @@ public static class GeoJsonWriter
             j.WriteString("coordinates", context.Crs is null ? "local" : context.Crs);
             j.WriteString("axis_order", "easting, northing, height");
             j.WriteString("length_unit", unit.Symbol);
+            if (context.Solution is string solution) j.WriteString("solution", solution);
             j.WriteString("ellipses",
                 "standard (1 sigma) absolute error ellipses at true size, at " + report.Basis.Words);
             j.WriteString("standard_deviations", "standard (1 sigma), at " + report.Basis.Words);

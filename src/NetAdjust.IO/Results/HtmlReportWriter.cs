@@ -44,12 +44,16 @@ public static class HtmlReportWriter
           .Append("<title>").Append(E(title)).Append("</title>\n<style>\n").Append(Css).Append("</style>\n</head>\n<body>\n");
 
         sb.Append("<header>\n<h1>").Append(E(title)).Append("</h1>\n<dl class=\"run\">\n");
+        if (c.Particulars is not null)
+            foreach (var (label, text) in c.Particulars.Lines()) Dl(sb, label, text);
         Dl(sb, "Input", c.InputName);
         Dl(sb, "Run date", c.RunDate.ToString("yyyy-MM-dd", Inv));
         Dl(sb, "Units", $"lengths {c.Units.Length.Name} ({u.LengthSymbol}); angles {u.AngleName}; angular sd and residuals {u.SmallAngleSymbol}");
         Dl(sb, "Datum", TextReportSections.DatumText(r));
         Dl(sb, "Coordinates", c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
         Dl(sb, "Solver", r.SolverName);
+        if (c.Solution is string solution)
+            Dl(sb, "Solution", $"the {solution} solution of the datum sequence (tables below the comparison)");
         foreach (var warning in c.Warnings) Dl(sb, "Warning", warning);
         sb.Append("</dl>\n</header>\n");
 
@@ -89,6 +93,8 @@ public static class HtmlReportWriter
         else
             sb.Append("<p class=\"note\">No observation can be tested (no redundancy, or none controlled): there are no standardised residuals.</p>\n");
         sb.Append("</section>\n");
+
+        foreach (var section in report.Leading) AppendSection(sb, section);
 
         // Plot.
         sb.Append("<section id=\"plot\">\n<h2>Network plot</h2>\n<figure>\n")
@@ -171,15 +177,15 @@ public static class HtmlReportWriter
             sb.Append("</tbody>\n</table>\n</section>\n");
         }
 
-        var statistics = new StringBuilder();
-        StatisticsReport.Append(statistics, r, c);
-        if (statistics.ToString().Trim().Length > 0)
-            sb.Append("<section id=\"statistics\">\n<h2>Tests, reliability and precision</h2>\n")
-              .Append("<p>The statistics sections of the text report: tests of the observations (redundancy numbers, w, tau, MDB, external reliability), ")
-              .Append("tests of weighted control, standard and 95% error ellipses, relative precision, and the blunder hunt, robust estimation and variance components when run.</p>\n")
-              .Append("<pre class=\"budget\">").Append(E(statistics.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+        foreach (var section in report.Sections) AppendSection(sb, section);
 
-        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n</section>\n");
+        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n");
+        // The block the surveyor in charge signs, on the page of the caution it is signed under.
+        sb.Append("<div id=\"signature\">\n<h3>Surveyor in charge</h3>\n<table class=\"signature\">\n<tbody>\n")
+          .Append("<tr><th scope=\"row\">Name</th><td>").Append(E(c.Particulars?.Surveyor ?? "")).Append("</td></tr>\n")
+          .Append("<tr><th scope=\"row\">Firm</th><td>").Append(E(c.Particulars?.Firm ?? "")).Append("</td></tr>\n")
+          .Append("<tr><th scope=\"row\">Signature</th><td></td></tr>\n")
+          .Append("<tr><th scope=\"row\">Date</th><td></td></tr>\n</tbody>\n</table>\n</div>\n</section>\n");
         sb.Append("<footer>Report written by NetAdjust on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
         return sb.ToString();
     }
@@ -240,6 +246,71 @@ public static class HtmlReportWriter
         return sb.ToString();
     }
 
+    /// <summary>
+    /// Writes one table section of the model: units in the column headers, numbers right-aligned, and a first
+    /// column that marks failing rows with a symbol (✗ fails, ! weak) besides the row's class, so that they stand
+    /// out without colour.
+    /// </summary>
+    internal static void AppendSection(StringBuilder sb, ReportSection section)
+    {
+        sb.Append("<section id=\"").Append(section.Id).Append("\" class=\"table-section\">\n<h2>")
+          .Append(E(section.Heading)).Append("</h2>\n");
+        foreach (var line in Paragraphs(section.Before)) sb.Append("<p>").Append(E(line)).Append("</p>\n");
+        if (section.HtmlSummary is string summary)
+        {
+            bool failed = section.Rows.Any(row => row.State == RowState.Fail);
+            sb.Append("<p class=\"verdict ").Append(failed ? "fail" : "pass").Append("\"><strong>")
+              .Append(failed ? "✗ " : "✓ ").Append(E(summary)).Append("</strong></p>\n");
+        }
+        bool marks = section.Rows.Any(row => row.State != RowState.Normal);
+        // a column without a heading (a marker) is shown only when some row uses it
+        var columns = Enumerable.Range(0, section.Columns.Count).Where(i => section.Columns[i].Header.Length > 0
+            || section.Rows.Any(row => row.Cells[i].Trim().Length > 0)).ToList();
+        sb.Append("<table class=\"model\">\n<thead><tr>");
+        if (marks) sb.Append("<th class=\"mark\" title=\"failing rows are marked\">Mark</th>");
+        foreach (var col in columns.Select(i => section.Columns[i]))
+            sb.Append(col.Kind == ValueKind.Number ? "<th class=\"num\">" : "<th>")
+              .Append(E(col.Header.Length > 0 ? col.HeaderWithUnit : "Note")).Append("</th>");
+        sb.Append("</tr></thead>\n<tbody>\n");
+        foreach (var row in section.Rows)
+        {
+            sb.Append(row.State switch { RowState.Fail => "<tr class=\"fail\">", RowState.Warn => "<tr class=\"warn\">",
+                _ => "<tr>" });
+            if (marks)
+                sb.Append("<td class=\"mark\">").Append(row.State switch
+                {
+                    RowState.Fail => "<span title=\"fails\">✗</span>",
+                    RowState.Warn => "<span title=\"weak\">!</span>",
+                    _ => "",
+                }).Append("</td>");
+            foreach (int i in columns)
+                sb.Append("<td").Append(CellClass(section.Columns[i].Kind)).Append('>')
+                  .Append(E(row.Cells[i].Trim())).Append("</td>");
+            sb.Append("</tr>\n");
+        }
+        sb.Append("</tbody>\n</table>\n");
+        var notes = section.Rows.SelectMany(row => row.After ?? []).Concat(section.After).ToList();
+        foreach (var line in Paragraphs(notes)) sb.Append("<p class=\"note\">").Append(E(line.Trim())).Append("</p>\n");
+        if (marks)
+            sb.Append("<p class=\"note\">").Append(E(section.MarkNote ?? "Rows marked ✗ fail their test (or were set " +
+                "aside for failing it); rows marked ! are weakly controlled or uncontrolled.")).Append("</p>\n");
+        sb.Append("</section>\n");
+    }
+
+    /// <summary>The text report's lines as paragraphs: a line wrapped on from the one before joins it.</summary>
+    private static List<string> Paragraphs(IEnumerable<string> lines)
+    {
+        var paragraphs = new List<string>();
+        foreach (var line in lines.Select(l => l.Trim()).Where(l => l.Length > 0))
+        {
+            bool goesOn = paragraphs.Count > 0 && !paragraphs[^1].EndsWith('.') && !paragraphs[^1].EndsWith(':')
+                && !paragraphs[^1].EndsWith(')') && (char.IsLower(line[0]) || line[0] == '\'');
+            if (goesOn) paragraphs[^1] += " " + line;
+            else paragraphs.Add(line);
+        }
+        return paragraphs;
+    }
+
     /// <summary>The class attribute of a body cell: numbers right-aligned, point ids bold, references small.</summary>
     private static string CellClass(ValueKind kind) => kind switch
     {
@@ -286,6 +357,10 @@ public static class HtmlReportWriter
         td.id { font-weight: bold; white-space: nowrap; }
         td.src { color: #555; font-size: 11px; }
         tr.fail td { background: #fbe3d6; font-weight: bold; }
+        tr.warn td { background: #fff4cc; font-style: italic; }
+        td.mark, th.mark { text-align: center; width: 1.5em; }
+        table.signature { width: 60%; break-inside: avoid; }
+        table.signature td { height: 2.2em; min-width: 20em; }
         table.figures th { font-weight: normal; background: #f6f6f6; }
         .verdict { font-size: 16px; padding: 6px 10px; border-left: 6px solid #999; background: #f6f6f6; }
         .verdict.pass { border-left-color: #009E73; }

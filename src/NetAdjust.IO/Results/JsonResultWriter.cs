@@ -70,6 +70,8 @@ public static class JsonResultWriter
         return Encoding.UTF8.GetString(ms.GetBuffer(), 0, (int)ms.Length);
     }
 
+    private static string Day(DateOnly d) => d.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+
     /// <summary>The JSON document of one result.</summary>
     internal static ResultJson.Document Document(ResultReport report)
     {
@@ -85,6 +87,9 @@ public static class JsonResultWriter
             RunDate = c.RunDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             Solver = r.SolverName,
             Datum = r.Options.Datum.Describe(),
+            Survey = c.Particulars is { } sp ? new(sp.Client, sp.Site, sp.Reference, sp.Surveyor, sp.Firm,
+                sp.Observed.Select(Day), sp.Equipment.Select(e => new ResultJson.Equipment(e.Item, e.Serial,
+                    e.Calibrated is DateOnly d ? Day(d) : null)), sp.Weather, sp.Note) : null,
             Warnings = ReportWarnings.ForJson(c),
             Units = new("m", "deg", "arcsec"),
             Statistics = new(s.Observations, s.Unknowns, s.DegreesOfFreedom, s.Vtpv, s.AprioriVarianceFactor,

@@ -103,7 +103,8 @@ public static class LandXmlWriter
 
             w.WriteStartElement("CgPoints", Namespace);
             w.WriteAttributeString("name", "adjusted points");
-            w.WriteAttributeString("desc", "standard deviations at " + report.Basis.Words);
+            w.WriteAttributeString("desc", "standard deviations at " + report.Basis.Words +
+                (context.Solution is string solution ? $"; the {solution} solution of the datum sequence" : ""));
             foreach (var row in report.Points.Rows)
             {
                 if (!row.HasPlan) continue;

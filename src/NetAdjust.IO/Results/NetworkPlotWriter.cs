@@ -56,7 +56,8 @@ public static class NetworkPlotWriter
         sb.Append("<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"network-plot\" viewBox=\"0 0 ").Append(N(Width)).Append(' ').Append(N(Height))
           .Append("\" width=\"").Append(N(Width)).Append("\" height=\"").Append(N(Height)).Append("\" role=\"img\" aria-labelledby=\"plot-title\"")
           .Append(" font-family=\"Helvetica, Arial, sans-serif\" font-size=\"12\">\n");
-        sb.Append("<title id=\"plot-title\">Network plot: ").Append(E(result.Network.Name)).Append("</title>\n");
+        sb.Append("<title id=\"plot-title\">Network plot: ").Append(E(result.Network.Name))
+          .Append(context.Solution is string solution ? E($" ({solution} solution)") : "").Append("</title>\n");
         sb.Append("<rect x=\"0\" y=\"0\" width=\"").Append(N(Width)).Append("\" height=\"").Append(N(Height)).Append("\" fill=\"#FFFFFF\"/>\n");
         sb.Append("<rect x=\"").Append(N(MapX0)).Append("\" y=\"").Append(N(MapY0)).Append("\" width=\"").Append(N(MapX1 - MapX0))
           .Append("\" height=\"").Append(N(MapY1 - MapY0)).Append("\" fill=\"none\" stroke=\"#BBBBBB\" stroke-width=\"1\"/>\n");

@@ -19,6 +19,22 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// for none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
 
+    /// <summary>The survey's particulars (<see cref="SurveyProject.Particulars"/>), or null when none are given.
+    /// </summary>
+    public SurveyParticulars? Particulars { get; init; }
+
+    /// <summary>The words for the constrained solution of a datum sequence.</summary>
+    public const string ConstrainedSolution = "constrained";
+
+    /// <summary>The words for the minimally-constrained solution of a datum sequence.</summary>
+    public const string MinimalSolution = "minimally constrained";
+
+    /// <summary>
+    /// Which solution of a datum sequence the outputs hold (<see cref="ConstrainedSolution"/> or
+    /// <see cref="MinimalSolution"/>), named in every output; null outside a sequence.
+    /// </summary>
+    public string? Solution { get; init; }
+
     /// <summary>The blunder hunt that produced the result, when one was run (its log is reported).</summary>
     public BlunderHunt? Hunt { get; init; }
 

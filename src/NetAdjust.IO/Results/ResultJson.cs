@@ -11,6 +11,13 @@ namespace NetAdjust.IO.Results;
 /// </summary>
 internal static class ResultJson
 {
+    /// <summary>The survey's particulars (key <c>survey</c>; items not given are null).</summary>
+    internal sealed record Particulars(string? Client, string? Site, string? Reference, string? Surveyor, string? Firm,
+        IEnumerable<string> Observed, IEnumerable<Equipment> Equipment, string? Weather, string? Note);
+
+    /// <summary>One item of equipment.</summary>
+    internal sealed record Equipment(string Item, string? Serial, string? Calibrated);
+
     /// <summary>One result: the whole <c>netadjust-result/1</c> document, or one of a sequence's solutions.</summary>
     internal sealed class Document
     {
@@ -20,6 +27,9 @@ internal static class ResultJson
         public required string RunDate { get; init; }
         public required string Solver { get; init; }
         public required string Datum { get; init; }
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public Particulars? Survey { get; init; }
+
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
         public IReadOnlyList<string>? Warnings { get; init; }
         public required Units Units { get; init; }
@@ -131,7 +141,11 @@ internal static class ResultJson
     /// <summary>The sequence document: both solutions, the constraint test, discrepancies and shifts.</summary>
     internal sealed record Sequence(string Format, string MinimalDatum, IEnumerable<Document> Solutions,
         ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies,
-        IEnumerable<Shift> CoordinateShifts);
+        IEnumerable<Shift> CoordinateShifts, IEnumerable<Testability> ControlTestability);
+
+    /// <summary>Whether the observations can check one part (plan, height) of a control mark.</summary>
+    internal sealed record Testability(string Id, string Part, bool? Testable,
+        IEnumerable<string> CannotBeToldApartFrom);
 
     internal sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, TestValue ChiSquare,
         [property: JsonPropertyName("f")] TestValue FTest, string DecidedBy, bool? Passed);

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using NetAdjust.Statistics;
 using NetAdjust.Procedures;
 using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
@@ -39,7 +40,9 @@ public static class SequenceJsonWriter
                 t.SigmaEstimated ? "f" : "chi_square", t.Passed),
             s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
                 F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
-            s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))));
+            s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))),
+            s.Testability.Select(x => new ResultJson.Testability(x.Id, x.Part, x.Testable,
+                x.Testable == false ? x.Neighbours : [])));
         JsonResultWriter.Serialise(stream, document);
     }
 
@@ -60,61 +63,21 @@ public static class SequenceReportWriter
     /// <param name="c">Run details and units.</param>
     public static string Write(SequenceResult s, ReportContext c)
     {
+        ArgumentNullException.ThrowIfNull(s);
+        ArgumentNullException.ThrowIfNull(c);
         var sb = new StringBuilder();
         void Line(string text = "") => sb.Append(text).Append('\n');
-        var units = new ReportUnits(c.Units);
-        string lu = units.LengthSymbol;
-        string L(double? v, int w) => units.Length(v).PadLeft(w);
-        string W(double? v, int w) => v is double x ? x.ToString("F2", Inv).PadLeft(w) : new string(' ', w - 1) + "-";
-        string F(double v, int d) => v.ToString("F" + d, Inv);
-
         Line("NetAdjust datum sequence: minimally constrained, then constrained");
         Line(new string('=', 66));
         Line($"Project   : {s.Constrained.Network.Name}");
         Line($"Input     : {c.InputName}");
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        TextReportSections.Particulars(sb, c);
         Line($"Step 1    : {s.MinimalDatum}");
         Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");
         ReportWarnings.AppendText(sb, c);
         Line();
-        Line("SOLUTIONS");
-        Line($"  {"",-24} {"r",6} {"vTPv",12} {"variance factor",16}  global test");
-        foreach (var (name, r) in new[] { ("1 minimally constrained", s.Minimal), ("2 constrained", s.Constrained) })
-        {
-            var st = r.Statistics;
-            var g = st.GlobalTest;
-            string test = g.Passed is bool p ? $"{F(g.Statistic, 3)} in [{F(g.Lower!.Value, 3)}, {F(g.Upper!.Value, 3)}] {(p ? "PASSED" : "FAILED")}" : "not possible (r = 0)";
-            Line($"  {name,-24} {st.DegreesOfFreedom,6} {F(st.Vtpv, 4),12} {(st.VarianceFactor is double vf ? F(vf, 4) : "n/a"),16}  {test}");
-        }
-        Line();
-
-        var t = s.Test;
-        Line($"TEST OF THE ADDED CONSTRAINTS (does the control fit the observations? alpha {F(t.Alpha, 3)}, one-tailed)");
-        Line($"  Added constraints                 {t.AddedConstraints,8}");
-        Line($"  Increase of vTPv                  {F(t.VtpvIncrease, 4),12}");
-        if (t.PassedChiSquare is bool ok)
-        {
-            string chi = t.SigmaEstimated ? "" : "  (decides)", fd = t.SigmaEstimated ? "  (decides)" : "";
-            Line($"  Chi-square (sigma0 known)         {F(t.ChiSquare, 3)}, critical {F(t.ChiSquareCritical!.Value, 3)}: {(ok ? "PASSED" : "FAILED")}{chi}");
-            if (t.PassedF is bool okF)
-                Line($"  F (sigma0 from step 1)            {F(t.F!.Value, 3)}, critical {F(t.FCritical!.Value, 3)}: {(okF ? "PASSED" : "FAILED")}{fd}");
-        }
-        else Line("  Not possible: the control adds no constraint beyond the minimum.");
-        Line();
-
-        Line($"CONTROL DISCREPANCIES (given - minimally constrained, {lu}; w = discrepancy / its standard deviation)");
-        Line($"  {"Point",-12} {"dE",9} {"dN",9} {"dH",9} {"sd dE",8} {"sd dN",8} {"sd dH",8} {"wE",7} {"wN",7} {"wH",7}");
-        double worst = s.Discrepancies.Select(d => d.MaxAbsW ?? 0).DefaultIfEmpty(0).Max();
-        foreach (var d in s.Discrepancies)
-            Line(($"  {TextReportWriter.Clip(d.Id, 12),-12} {L(d.DE, 9)} {L(d.DN, 9)} {L(d.DH, 9)} {L(d.SdE, 8)} {L(d.SdN, 8)} {L(d.SdH, 8)} {W(d.WE, 7)} {W(d.WN, 7)} {W(d.WH, 7)}" +
-                  (d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "")).TrimEnd());
-        Line();
-
-        Line($"COORDINATE SHIFTS (constrained - minimally constrained, {lu})");
-        Line($"  {"Point",-12} {"dE",9} {"dN",9} {"horiz.",9} {"dH",9}");
-        foreach (var sh in s.Shifts)
-            Line($"  {TextReportWriter.Clip(sh.Id, 12),-12} {L(sh.DE, 9)} {L(sh.DN, 9)} {L(sh.Horizontal, 9)} {L(sh.DH, 9)}".TrimEnd());
-        Line();
+        foreach (var section in SequenceSections.Build(s, c)) section.AppendText(sb);
 
         Line("STEP 1: MINIMALLY CONSTRAINED SOLUTION");
         Line(new string('-', 38));
@@ -124,5 +87,161 @@ public static class SequenceReportWriter
         Line(new string('-', 28));
         sb.Append(TextReportWriter.Write(s.Constrained, c));
         return sb.ToString();
+    }
+}
+
+/// <summary>
+/// The sections of the report model that compare the two solutions of a datum sequence: the solutions, the test of
+/// the added constraints with its decision, the control discrepancies (with their standard deviations and
+/// standardised values) and the coordinate shifts. The text and HTML reports show the same cells.
+/// </summary>
+internal static class SequenceSections
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Builds the sections.</summary>
+    public static IReadOnlyList<ReportSection> Build(SequenceResult s, ReportContext c)
+    {
+        var units = new ReportUnits(c.Units);
+        string lu = units.LengthSymbol;
+        string L(double? v) => units.Length(v);
+        static string W(double? v) => v is double x ? x.ToString("F2", Inv) : "-";
+        static string F(double v, int d) => v.ToString("F" + d, Inv);
+        static SectionColumn Nr(string header, string? unit, int width, string gap = " ") =>
+            new(header, unit, ValueKind.Number, width, false, gap);
+        var sections = new List<ReportSection>();
+
+        var solutions = new List<SectionRow>();
+        foreach (var (name, r) in new[] { ("1 minimally constrained", s.Minimal), ("2 constrained", s.Constrained) })
+        {
+            var st = r.Statistics;
+            var g = st.GlobalTest;
+            string test = g.Passed is bool p
+                ? $"{F(g.Statistic, 3)} in [{F(g.Lower!.Value, 3)}, {F(g.Upper!.Value, 3)}] {(p ? "PASSED" : "FAILED")}"
+                : "not possible (r = 0)";
+            solutions.Add(new SectionRow([
+                name, st.DegreesOfFreedom.ToString(Inv), F(st.Vtpv, 4),
+                st.VarianceFactor is double vf ? F(vf, 4) : "n/a", test,
+            ], g.Passed == false ? RowState.Fail : RowState.Normal));
+        }
+        sections.Add(new ReportSection("sequence-solutions", "SOLUTIONS", "Datum sequence: the two solutions", [],
+            [
+                new SectionColumn("Solution", null, ValueKind.Text, 24, true) { TextHeading = "" },
+                Nr("r", null, 6), Nr("vTPv", null, 12), Nr("variance factor", null, 16),
+                new SectionColumn("global test", null, ValueKind.Text, 0, true, "  "),
+            ], solutions, []));
+
+        var t = s.Test;
+        var testRows = new List<SectionRow>();
+        var testAfter = new List<string>();
+        if (t.PassedChiSquare is bool ok)
+        {
+            testRows.Add(new SectionRow(["Chi-square (sigma0 known)", F(t.ChiSquare, 3),
+                F(t.ChiSquareCritical!.Value, 3), ok ? "PASSED" : "FAILED", t.SigmaEstimated ? "" : "decides"],
+                ok ? RowState.Normal : RowState.Fail));
+            if (t.PassedF is bool okF)
+                testRows.Add(new SectionRow(["F (sigma0 from step 1)", F(t.F!.Value, 3), F(t.FCritical!.Value, 3),
+                    okF ? "PASSED" : "FAILED", t.SigmaEstimated ? "decides" : ""],
+                    okF ? RowState.Normal : RowState.Fail));
+        }
+        else testAfter.Add("  Not possible: the control adds no constraint beyond the minimum.");
+        sections.Add(new ReportSection("sequence-test",
+            $"TEST OF THE ADDED CONSTRAINTS (does the control fit the observations? alpha {F(t.Alpha, 3)}, one-tailed)",
+            "Test of the added constraints",
+            [
+                $"  Added constraints                 {t.AddedConstraints,8}",
+                $"  Increase of vTPv                  {F(t.VtpvIncrease, 4),12}",
+            ],
+            [
+                new SectionColumn("Test", null, ValueKind.Text, 34, true), Nr("Statistic", null, 0),
+                Nr("Critical value", null, 0), new SectionColumn("Decision", null, ValueKind.Text, 0, true),
+                new SectionColumn("Deciding test", null, ValueKind.Text, 0, true),
+            ], testRows, testAfter)
+        {
+            TextHeader = false,
+            TextLayout = cells => $"  {cells[0],-34}{cells[1]}, critical {cells[2]}: {cells[3]}" +
+                                  (cells[4].Length > 0 ? "  (" + cells[4] + ")" : ""),
+            HtmlSummary = t.Passed switch
+            {
+                true => "Decision: the control fits the observations (PASSED).",
+                false => "Decision: the control does not fit the observations (FAILED).",
+                _ => "Decision: nothing to test (the control adds no constraint beyond the minimum).",
+            },
+        });
+
+        double worst = s.Discrepancies.Select(d => d.MaxAbsW ?? 0).DefaultIfEmpty(0).Max();
+        double critical = s.Minimal.Analysis.WCritical;
+        sections.Add(new ReportSection("sequence-discrepancies",
+            $"CONTROL DISCREPANCIES (given - minimally constrained, {lu}; w = discrepancy / its standard deviation)",
+            "Control discrepancies (given − minimally constrained)", [],
+            [
+                new SectionColumn("Point", null, ValueKind.PointId, 12, true, Clip: true), Nr("dE", lu, 9),
+                Nr("dN", lu, 9), Nr("dH", lu, 9), Nr("sd dE", lu, 8), Nr("sd dN", lu, 8), Nr("sd dH", lu, 8),
+                Nr("wE", null, 7), Nr("wN", null, 7), Nr("wH", null, 7),
+                new SectionColumn("", null, ValueKind.Text, 0, true, ""),
+            ],
+            s.Discrepancies.Select(d => new SectionRow([
+                d.Id, L(d.DE), L(d.DN), L(d.DH), L(d.SdE), L(d.SdN), L(d.SdH), W(d.WE), W(d.WN), W(d.WH),
+                d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "",
+            ], d.MaxAbsW > critical ? RowState.Fail : RowState.Normal)).ToList(), [])
+        {
+            MarkNote = $"Rows marked ✗ have a standardised discrepancy |w| above {F(critical, 2)}, " +
+                       "the critical value of the w-test.",
+        });
+
+        var testability = s.Testability;
+        sections.Add(new ReportSection("sequence-testability",
+            "CONTROL TESTABILITY (can the observations fix each control mark without its given coordinates?)",
+            "Control testability",
+            [
+                "  A mark they cannot fix cannot be checked: an error in its given coordinates goes unseen or is",
+                "  blamed on another mark. It cannot be told apart from the marks it is joined to (docs/methods.md).",
+            ],
+            [
+                new SectionColumn("Point", null, ValueKind.PointId, 12, true, Clip: true),
+                new SectionColumn("Part", null, ValueKind.Text, 6, true),
+                new SectionColumn("Testable", null, ValueKind.Text, 8, true),
+                new SectionColumn("Cannot be told apart from", null, ValueKind.Text, 0, true),
+            ],
+            testability.Select(x => new SectionRow([x.Id, x.Part,
+                x.Testable switch { true => "yes", false => "NO", null => "unknown" },
+                x.Testable == false ? string.Join(", ", x.Neighbours) : ""],
+                x.Testable == false ? RowState.Warn : RowState.Normal)).ToList(),
+            testability.Any(x => x.Testable is null)
+                ? ["  unknown: the trial adjustment without the mark's given coordinates did not succeed."] : [])
+        {
+            MarkNote = "Rows marked ! are control the observations cannot check.",
+        });
+
+        sections.Add(new ReportSection("sequence-shifts",
+            $"COORDINATE SHIFTS (constrained - minimally constrained, {lu})",
+            "Coordinate shifts (constrained − minimally constrained)", [],
+            [
+                new SectionColumn("Point", null, ValueKind.PointId, 12, true, Clip: true), Nr("dE", lu, 9),
+                Nr("dN", lu, 9), Nr("horiz.", lu, 9), Nr("dH", lu, 9),
+            ],
+            s.Shifts.Select(sh => new SectionRow([sh.Id, L(sh.DE), L(sh.DN), L(sh.Horizontal), L(sh.DH)])).ToList(),
+            []));
+        return sections;
+    }
+
+    /// <summary>The coordinates and standard deviations of one solution, as a section.</summary>
+    public static ReportSection Coordinates(ResultReport other, string solution)
+    {
+        var units = new ReportUnits(other.Context.Units);
+        string lu = units.LengthSymbol;
+        static SectionColumn Nr(string header, string unit) => new(header, unit, ValueKind.Number, 0);
+        return new ReportSection("sequence-other-solution",
+            $"COORDINATES OF THE {solution.ToUpperInvariant()} SOLUTION",
+            $"Coordinates of the {solution} solution",
+            [$"  Standard deviations at {other.Basis.Words}."],
+            [
+                new SectionColumn("Point", null, ValueKind.PointId, 0, true), Nr("Easting", lu), Nr("Northing", lu),
+                Nr("Height", lu), Nr("sd E", lu), Nr("sd N", lu), Nr("sd H", lu),
+            ],
+            other.Points.Rows.Select(p => new SectionRow([
+                p.Source.Id, units.Length(p.Source.E), units.Length(p.Source.N), units.Length(p.Source.H),
+                units.Length(p.SdE), units.Length(p.SdN), units.Length(p.SdH),
+            ])).ToList(), []);
     }
 }

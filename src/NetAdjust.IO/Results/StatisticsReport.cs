@@ -19,40 +19,46 @@ internal static class StatisticsReport
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Append(StringBuilder sb, AdjustmentResult r, ReportContext c)
+    /// <summary>Appends the sections of the model to the text report.</summary>
+    public static void Append(StringBuilder sb, IEnumerable<ReportSection> sections)
     {
-        void Line(string s = "") => sb.Append(s.TrimEnd()).Append('\n');
+        foreach (var section in sections) section.AppendText(sb);
+    }
+
+    /// <summary>Builds the statistics sections of the report model (only those with something to show).</summary>
+    public static IReadOnlyList<ReportSection> Build(AdjustmentResult r, ReportContext c)
+    {
+        var sections = new List<ReportSection>();
         var u = c.Units;
         var a = r.Analysis;
         string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
         double radPerSd = u.AngleSd.RadiansPerUnit();
         var units = new ReportUnits(u);
-        string Len(double? m, int w) => units.Length(m).PadLeft(w);
-        string Small(Observation o, double? si, int w) =>
-            (si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-").PadLeft(w);
-        string Num(double? v, int d, int w) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv).PadLeft(w) : "-".PadLeft(w);
+        string Len(double? m) => units.Length(m);
+        string Small(Observation o, double? si) =>
+            si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-";
+        string Num(double? v, int d) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv) : "-";
         bool gons = u.Angle == AngleFormat.Gons;
         string azUnit = gons ? "gon" : "deg";
-        string Az(double rad, int w)
+        string Az(double rad)
         {
             // [0, half turn) also after rounding: 179.997° prints as 0.00, never as 180.00
             double half = gons ? 200 : 180, x = Math.Round(rad * half / Math.PI, 2, MidpointRounding.AwayFromZero);
-            return (x >= half ? x - half : x).ToString("F2", Inv).PadLeft(w);
+            return (x >= half ? x - half : x).ToString("F2", Inv);
         }
         string Basis() => a.Basis == VarianceFactorBasis.Known
             ? $"variance factor known (a priori {F(a.VarianceFactor, 4)})"
             : $"variance factor estimated ({F(a.VarianceFactor, 4)})";
+        static SectionColumn Id(string header, int width) =>
+            new(header, null, ValueKind.PointId, width, true, Clip: true);
+        static SectionColumn Txt(string header, int width, bool clip = false, string gap = " ") =>
+            new(header, null, ValueKind.Text, width, true, gap, clip);
+        static SectionColumn Nr(string header, string? unit, int width, string gap = " ") =>
+            new(header, unit, ValueKind.Number, width, false, gap);
+        string mixed = $"{lu} or {au}";
 
-        Line("TESTS OF THE OBSERVATIONS (redundancy numbers, w-test, tau test, internal and external reliability)");
-        Line($"  Deciding test: {(a.Basis == VarianceFactorBasis.Known ? "w-test (Baarda)" : "tau test (Pope)")}; {Basis()}");
-        Line($"  w-test: alpha0 {F(a.Options.WTestAlpha, 4)} two-sided, critical value {F(a.WCritical, 3)}; " +
-             $"MDB for power {F(1 - a.Options.TypeIIError, 2)}: delta0 {F(a.Delta0, 3)}");
-        Line($"  Tau test: overall alpha {F(a.Options.TauAlpha, 3)}, {(a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "Sidak" : "Bonferroni")} " +
-             $"split over {r.Statistics.Observations} observations, critical value {(a.TauCritical is double tc ? F(tc, 3) : "n/a (r < 2)")}");
-        Line($"  Sum of redundancy numbers {F(Math.Round(a.RedundancySum, 3) + 0.0, 3)} (degrees of freedom {r.Statistics.DegreesOfFreedom})");
-        Line($"  Residuals and MDB in {lu} or {au}; ext. rel. = largest point shift ({lu}) from an undetected MDB" +
-             (a.ExternalReliabilityComputed ? "" : " (not computed)"));
-        Line($"  {"#",4} {"Kind",-9} {"At",-6} {"From",-6} {"To",-6} {"Residual",9} {"r",5} {"w",6} {"tau",6} {"MDB",8} {"Ext.rel.",8} Flag");
+        // Tests of the observations.
+        var rows = new List<SectionRow>();
         int rejected = 0, uncontrolled = 0, weak = 0, excluded = 0;
         foreach (var o in r.Observations)
         {
@@ -74,38 +80,71 @@ internal static class StatisticsReport
                 _ => "",
             };
             if (i.SdFactor != 1.0) flag += (flag.Length > 0 ? " " : "") + $"sd x{i.SdFactor.ToString("0.###", Inv)}";
-            Line($"  {o.Index + 1,4} {ObservationLabels.Short(i.Kind),-9} {TextReportWriter.Clip(i.At ?? "", 6),-6} {TextReportWriter.Clip(i.Kind == ObservationKind.Direction ? "" : i.From, 6),-6} {TextReportWriter.Clip(i.To, 6),-6} " +
-                 $"{Small(i, o.Residual, 9)} {Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2, 5)} {Num(t.W, 2, 6)} {Num(t.Tau, 2, 6)} " +
-                 $"{Small(i, t.Mdb, 8)} {Len(t.ExternalReliability, 8)} {flag}");
+            var state = t.Flag switch
+            {
+                ObservationFlag.Rejected => RowState.Fail,
+                ObservationFlag.Uncontrolled or ObservationFlag.Weak => RowState.Warn,
+                _ => RowState.Normal,
+            };
+            rows.Add(new SectionRow([
+                (o.Index + 1).ToString(Inv), ObservationLabels.Short(i.Kind), i.At ?? "",
+                i.Kind == ObservationKind.Direction ? "" : i.From, i.To, Small(i, o.Residual),
+                Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2), Num(t.W, 2), Num(t.Tau, 2),
+                Small(i, t.Mdb), Len(t.ExternalReliability), flag], state));
         }
-        Line($"  Rejected: {rejected}; uncontrolled (r < {F(a.Options.UncontrolledRedundancy, 2)}): {uncontrolled}; " +
-             $"weakly controlled (r < {F(a.Options.WeakRedundancy, 2)}): {weak}; set aside: {excluded}");
+        var after = new List<string>
+        {
+            $"  Rejected: {rejected}; uncontrolled (r < {F(a.Options.UncontrolledRedundancy, 2)}): {uncontrolled}; " +
+            $"weakly controlled (r < {F(a.Options.WeakRedundancy, 2)}): {weak}; set aside: {excluded}",
+        };
         if (excluded > 0)
         {
-            Line("  Set-aside observations carry no weight: their residual is the misclosure against the adjusted");
-            Line("  coordinates, and w its standardised value.");
+            after.Add(
+                "  Set-aside observations carry no weight: their residual is the misclosure against the adjusted");
+            after.Add("  coordinates, and w its standardised value.");
         }
-        Line();
+        sections.Add(new ReportSection("observation-tests",
+            "TESTS OF THE OBSERVATIONS (redundancy numbers, w-test, tau test, internal and external reliability)",
+            "Tests of the observations",
+            [
+                $"  Deciding test: {(a.Basis == VarianceFactorBasis.Known ? "w-test (Baarda)" : "tau test (Pope)")}; " +
+                Basis(),
+                $"  w-test: alpha0 {F(a.Options.WTestAlpha, 4)} two-sided, critical value {F(a.WCritical, 3)}; " +
+                $"MDB for power {F(1 - a.Options.TypeIIError, 2)}: delta0 {F(a.Delta0, 3)}",
+                $"  Tau test: overall alpha {F(a.Options.TauAlpha, 3)}, " +
+                $"{(a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "Sidak" : "Bonferroni")} " +
+                $"split over {r.Statistics.Observations} observations, critical value " +
+                (a.TauCritical is double tc ? F(tc, 3) : "n/a (r < 2)"),
+                $"  Sum of redundancy numbers {F(Math.Round(a.RedundancySum, 3) + 0.0, 3)} " +
+                $"(degrees of freedom {r.Statistics.DegreesOfFreedom})",
+                $"  Residuals and MDB in {lu} or {au}; ext. rel. = largest point shift ({lu}) from an undetected MDB" +
+                (a.ExternalReliabilityComputed ? "" : " (not computed)"),
+            ],
+            [
+                Nr("#", null, 4), Txt("Kind", 9), Id("At", 6), Id("From", 6), Id("To", 6), Nr("Residual", mixed, 9),
+                Nr("r", null, 5), Nr("w", null, 6), Nr("tau", null, 6), Nr("MDB", mixed, 8), Nr("Ext.rel.", lu, 8),
+                Txt("Flag", 0),
+            ],
+            rows, after));
 
         if (a.Control.Count > 0)
         {
-            Line($"TESTS OF THE WEIGHTED CONTROL ({lu})");
-            Line($"  {"Point",-12} {"Comp.",5} {"Residual",9} {"r",5} {"w",7} {"tau",7} {"MDB",9} Flag");
-            foreach (var ct in a.Control)
-                Line($"  {TextReportWriter.Clip(ct.PointId, 12),-12} {ct.Component,5} {Len(ct.Residual, 9)} {Num(ct.Test.Redundancy, 2, 5)} {Num(ct.Test.W, 2, 7)} " +
-                     $"{Num(ct.Test.Tau, 2, 7)} {Len(ct.Test.Mdb, 9)} {ct.Test.Flag.Name() ?? ""}");
-            Line();
+            sections.Add(new ReportSection("control-tests", $"TESTS OF THE WEIGHTED CONTROL ({lu})",
+                "Tests of the weighted control", [],
+                [
+                    Id("Point", 12), Txt("Comp.", 5) with { Left = false }, Nr("Residual", lu, 9), Nr("r", null, 5),
+                    Nr("w", null, 7), Nr("tau", null, 7), Nr("MDB", lu, 9), Txt("Flag", 0),
+                ],
+                a.Control.Select(ct => new SectionRow([
+                    ct.PointId, ct.Component.ToString(), Len(ct.Residual), Num(ct.Test.Redundancy, 2),
+                    Num(ct.Test.W, 2), Num(ct.Test.Tau, 2), Len(ct.Test.Mdb), ct.Test.Flag.Name() ?? "",
+                ], StateOf(ct.Test.Flag))).ToList(), []));
         }
 
         string level = (a.Options.ConfidenceLevel * 100).ToString("0.#", Inv) + "%";
         if (a.Points.Any(p => p.Ellipse is not null || p.SdHeight is not null))
         {
-            Line($"ERROR ELLIPSES ({lu}; azimuth of the semi-major axis in {azUnit} from north)");
-            Line($"  {char.ToUpperInvariant(Basis()[0])}{Basis()[1..]}");
-            Line($"  Confidence scale for {level}: {F(a.EllipseScale, 4)} " +
-                 (a.Basis == VarianceFactorBasis.Known ? "(sqrt of chi-square, 2 dof)" : $"(sqrt(2 F(2, {r.Statistics.DegreesOfFreedom})))") +
-                 $"; heights {F(a.IntervalScale, 4)}");
-            Line($"  {"Point",-12} {"a",9} {"b",9} {"Azimuth",8} {"a " + level,9} {"b " + level,9} {"sd H",9} {"H " + level,9}");
+            var ellipses = new List<SectionRow>();
             foreach (var p in a.Points)
             {
                 if (p.Ellipse is null && p.SdHeight is null) continue;
@@ -113,100 +152,184 @@ internal static class StatisticsReport
                 var input = r.Network[p.Id];
                 if ((e is null || input.IsFixed(Fixity.EN)) && (p.SdHeight is null || input.IsFixed(Fixity.H)))
                 {
-                    Line($"  {TextReportWriter.Clip(p.Id, 12),-12} {"held",9}");
+                    ellipses.Add(new SectionRow([p.Id, "held", "", "", "", "", "", ""]));
                     continue;
                 }
-                Line($"  {TextReportWriter.Clip(p.Id, 12),-12} {Len(e?.A, 9)} {Len(e?.B, 9)} {(e is ErrorEllipse ee ? Az(ee.Azimuth, 8) : "-".PadLeft(8))} " +
-                     $"{Len(k?.A, 9)} {Len(k?.B, 9)} {Len(p.SdHeight, 9)} {Len(p.HeightConfidence, 9)}");
+                ellipses.Add(new SectionRow([
+                    p.Id, Len(e?.A), Len(e?.B), e is ErrorEllipse ee ? Az(ee.Azimuth) : "-", Len(k?.A), Len(k?.B),
+                    Len(p.SdHeight), Len(p.HeightConfidence),
+                ]));
             }
-            Line();
+            sections.Add(new ReportSection("ellipses",
+                $"ERROR ELLIPSES ({lu}; azimuth of the semi-major axis in {azUnit} from north)", "Error ellipses",
+                [
+                    $"  {char.ToUpperInvariant(Basis()[0])}{Basis()[1..]}",
+                    $"  Confidence scale for {level}: {F(a.EllipseScale, 4)} " +
+                    (a.Basis == VarianceFactorBasis.Known ? "(sqrt of chi-square, 2 dof)"
+                        : $"(sqrt(2 F(2, {r.Statistics.DegreesOfFreedom})))") +
+                    $"; heights {F(a.IntervalScale, 4)}",
+                ],
+                [
+                    Id("Point", 12), Nr("a", lu, 9), Nr("b", lu, 9), Nr("Azimuth", azUnit, 8), Nr("a " + level, lu, 9),
+                    Nr("b " + level, lu, 9), Nr("sd H", lu, 9), Nr("H " + level, lu, 9),
+                ],
+                ellipses, []));
         }
 
         if (a.Relative.Count > 0)
         {
-            Line($"RELATIVE ERROR ELLIPSES ({lu}; azimuth in {azUnit}; relative distance precision 1:k; azimuth sd in {au})");
-            Line($"  {"From",-8} {"To",-8} {"a",8} {"b",8} {"Azimuth",8} {"a " + level,8} {"Distance",11} {"sd dist",8} {"1:k",9} {"sd az",7}");
-            foreach (var rel in a.Relative)
-                Line($"  {TextReportWriter.Clip(rel.From, 8),-8} {TextReportWriter.Clip(rel.To, 8),-8} {Len(rel.Ellipse.A, 8)} {Len(rel.Ellipse.B, 8)} {Az(rel.Ellipse.Azimuth, 8)} " +
-                     $"{Len(rel.Confidence.A, 8)} {Len(rel.Distance, 11)} {Len(rel.SdDistance, 8)} {(double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact"),9} " +
-                     $"{units.SmallAngle(rel.SdAzimuth),7}{(rel.Observed ? "" : " *")}");
-            if (a.Relative.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
-            Line();
+            sections.Add(new ReportSection("relative",
+                $"RELATIVE ERROR ELLIPSES ({lu}; azimuth in {azUnit}; relative distance precision 1:k; " +
+                $"azimuth sd in {au})", "Relative precision", [],
+                [
+                    Id("From", 8), Id("To", 8), Nr("a", lu, 8), Nr("b", lu, 8), Nr("Azimuth", azUnit, 8),
+                    Nr("a " + level, lu, 8), Nr("Distance", lu, 11), Nr("sd dist", lu, 8), Nr("1:k", null, 9),
+                    Nr("sd az", au, 7), Txt("", 0, gap: ""),
+                ],
+                a.Relative.Select(rel => new SectionRow([
+                    rel.From, rel.To, Len(rel.Ellipse.A), Len(rel.Ellipse.B), Az(rel.Ellipse.Azimuth),
+                    Len(rel.Confidence.A), Len(rel.Distance), Len(rel.SdDistance),
+                    double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact",
+                    units.SmallAngle(rel.SdAzimuth),
+                    rel.Observed ? "" : " *",
+                ])).ToList(),
+                a.Relative.Any(x => !x.Observed)
+                    ? ["  * pair listed in the project file (not joined by an observation)"] : []));
         }
 
         if (a.RelativeHeights.Count > 0)
         {
-            Line($"RELATIVE HEIGHT PRECISION ({lu}; standard deviation of the height difference and its {level} half-width)");
-            Line($"  {"From",-10} {"To",-10} {"dH",11} {"sd dH",9} {"dH " + level,9}");
-            foreach (var rh in a.RelativeHeights)
-                Line($"  {TextReportWriter.Clip(rh.From, 10),-10} {TextReportWriter.Clip(rh.To, 10),-10} {Len(rh.Difference, 11)} {Len(rh.SdDifference, 9)} {Len(rh.Confidence, 9)}{(rh.Observed ? "" : " *")}");
-            if (a.RelativeHeights.Any(x => !x.Observed)) Line("  * pair listed in the project file (not joined by an observation)");
-            Line();
+            sections.Add(new ReportSection("relative-heights",
+                $"RELATIVE HEIGHT PRECISION ({lu}; standard deviation of the height difference and its {level} " +
+                "half-width)", "Relative height precision", [],
+                [
+                    Id("From", 10), Id("To", 10), Nr("dH", lu, 11), Nr("sd dH", lu, 9), Nr("dH " + level, lu, 9),
+                    Txt("", 0, gap: ""),
+                ],
+                a.RelativeHeights.Select(rh => new SectionRow([
+                    rh.From, rh.To, Len(rh.Difference), Len(rh.SdDifference), Len(rh.Confidence),
+                    rh.Observed ? "" : " *",
+                ])).ToList(),
+                a.RelativeHeights.Any(x => !x.Observed)
+                    ? ["  * pair listed in the project file (not joined by an observation)"] : []));
         }
 
         if (c.Hunt is BlunderHunt h)
         {
-            Line("BLUNDER HUNT (iterative data snooping: one observation set aside per round)");
-            Line($"  {"Round",5} {"r",5} {"Var.factor",10} {"Global",7} {"Worst observation",-34} {"Statistic",9} {"Critical",8}  Action");
+            var hunt = new List<SectionRow>();
             foreach (var round in h.Rounds)
             {
                 // without its source, so that the kind and points fit the column; the sources are listed below
-                string worst = round.WorstIndex is int wi ? $"#{wi + 1} {(r.Network.Observations[wi] with { Source = null }).Describe()}" : "-";
-                Line($"  {round.Round,5} {round.DegreesOfFreedom,5} {Num(round.VarianceFactor, 4, 10)} {(round.GlobalTestPassed is bool g ? (g ? "passed" : "FAILED") : "n/a"),7} " +
-                     $"{TextReportWriter.Clip(worst, 34),-34} {Num(round.WorstStatistic, 2, 9)} {Num(round.Critical, 2, 8)}  {(round.SetAside ? "set aside" : "-")}");
+                string worst = round.WorstIndex is int wi
+                    ? $"#{wi + 1} {(r.Network.Observations[wi] with { Source = null }).Describe()}" : "-";
+                hunt.Add(new SectionRow([
+                    round.Round.ToString(Inv), round.DegreesOfFreedom.ToString(Inv), Num(round.VarianceFactor, 4),
+                    round.GlobalTestPassed is bool g ? (g ? "passed" : "FAILED") : "n/a", worst,
+                    Num(round.WorstStatistic, 2), Num(round.Critical, 2), round.SetAside ? "set aside" : "-",
+                ], round.SetAside ? RowState.Fail : RowState.Normal));
             }
-            Line($"  Stopped: {h.StopReason}.");
+            var huntAfter = new List<string> { $"  Stopped: {h.StopReason}." };
             if (h.SetAside.Count > 0)
             {
-                Line("  Set aside, in the order found:");
+                huntAfter.Add("  Set aside, in the order found:");
                 foreach (int i in h.SetAside)
-                    foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94)) Line("    " + part);
-                Line("  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
-                Line("  'sd_factor') in the project file, or re-measure.");
+                    foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94))
+                        huntAfter.Add("    " + part);
+                huntAfter.Add(
+                    "  To keep these decisions, mark the observations 'exclude: true' (or re-weight them with");
+                huntAfter.Add("  'sd_factor') in the project file, or re-measure.");
             }
-            Line();
+            sections.Add(new ReportSection("blunder-hunt",
+                "BLUNDER HUNT (iterative data snooping: one observation set aside per round)", "Blunder hunt", [],
+                [
+                    Nr("Round", null, 5), Nr("r", null, 5), Nr("Var.factor", null, 10), Txt("Global", 7) with
+                    { Left = false }, Txt("Worst observation", 34, clip: true), Nr("Statistic", null, 9),
+                    Nr("Critical", null, 8), Txt("Action", 0, gap: "  "),
+                ],
+                hunt, huntAfter));
         }
 
         if (c.Robust is RobustEstimate rb)
         {
-            Line($"ROBUST ESTIMATION ({(rb.Method == RobustMethod.Huber ? "Huber" : "Danish method")}, c = {F(rb.Tuning, 2)}; " +
-                 $"{rb.Iterations} re-weightings, {(rb.Converged ? "converged" : "NOT converged")})");
-            Line("  Observations down-weighted (weight factor below 1), with |u| = the |w| each would get at full");
-            Line("  weight against the others as re-weighted (docs/methods.md):");
-            int shown = 0;
+            var robust = new List<SectionRow>();
             for (int i = 0; i < rb.WeightFactors.Count; i++)
             {
                 if (rb.WeightFactors[i] >= 1) continue;
-                shown++;
                 bool sus = rb.Suspected.Contains(i);
-                Line($"  #{i + 1,-4} {TextReportWriter.Clip((r.Network.Observations[i] with { Source = null }).Describe(), 34),-34} factor {rb.WeightFactors[i].ToString("0.0000", Inv)}  " +
-                     $"|u| {Num(rb.Standardised[i], 2, 6)}{(sus ? "  SUSPECTED" : "")}");
+                robust.Add(new SectionRow([
+                    (i + 1).ToString(Inv), (r.Network.Observations[i] with { Source = null }).Describe(),
+                    rb.WeightFactors[i].ToString("0.0000", Inv), Num(rb.Standardised[i], 2), sus ? "SUSPECTED" : "",
+                ], sus ? RowState.Fail : RowState.Normal));
             }
-            if (shown == 0) Line("  none");
-            Line($"  Suspected blunders (|u| above {F(a.WCritical, 2)}): {(rb.Suspected.Count == 0 ? "none" : string.Join(", ", rb.Suspected.Select(i => "#" + (i + 1))))}");
+            var robustAfter = new List<string>();
+            if (robust.Count == 0) robustAfter.Add("  none");
+            robustAfter.Add($"  Suspected blunders (|u| above {F(a.WCritical, 2)}): " +
+                (rb.Suspected.Count == 0 ? "none" : string.Join(", ", rb.Suspected.Select(i => "#" + (i + 1)))));
             foreach (int i in rb.Suspected)
-                foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94)) Line("    " + part);
-            Line("  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
-            Line();
+                foreach (var part in Wrap($"#{i + 1} {r.Network.Observations[i].Describe()}", 94))
+                    robustAfter.Add("    " + part);
+            robustAfter.Add(
+                "  The robust solution only locates suspects: exclude or re-measure them, then adjust as usual.");
+            sections.Add(new ReportSection("robust",
+                $"ROBUST ESTIMATION ({(rb.Method == RobustMethod.Huber ? "Huber" : "Danish method")}, " +
+                $"c = {F(rb.Tuning, 2)}; {rb.Iterations} re-weightings, " +
+                $"{(rb.Converged ? "converged" : "NOT converged")})",
+                "Robust estimation",
+                [
+                    "  Observations down-weighted (weight factor below 1), with |u| = the |w| each would get at full",
+                    "  weight against the others as re-weighted (docs/methods.md):",
+                ],
+                [
+                    Nr("#", null, 4), Txt("Observation", 34, clip: true), Nr("Weight factor", null, 0),
+                    Nr("|u|", null, 6), Txt("Suspect", 0),
+                ],
+                robust, robustAfter)
+            {
+                TextHeader = false,
+                TextLayout = cells =>
+                    $"  #{cells[0],-4} {TextReportWriter.Clip(cells[1], 34),-34} factor {cells[2]}  " +
+                                      $"|u| {cells[3],6}{(cells[4].Length > 0 ? "  " + cells[4] : "")}",
+            });
         }
 
         if (c.Components is VarianceComponentEstimate vc)
         {
-            Line($"VARIANCE COMPONENTS PER OBSERVATION GROUP (Foerstner; {vc.Iterations} iterations, {(vc.Converged ? "converged" : "NOT converged")})");
-            Line($"  {"Group",-18} {"n",5} {"Redund.",8} {"Var.factor",10} {"sd scale",9}  Implied specification");
+            var groups = new List<SectionRow>();
             foreach (var g in vc.Groups)
             {
                 string spec = g.ConstantPart is double ca && g.PpmPart is double pb
-                    ? (u.Length == LengthUnit.Metre ? (ca * 1000).ToString("0.0", Inv) + " mm" : Length.FromMetres(ca).In(u.Length).ToString("0.0000", Inv) + " " + lu) + " + " + pb.ToString("0.0", Inv) + " ppm"
-                    : g.ScaledSd is double sd && double.IsFinite(sd) ? (g.Kind.IsAngular() ? $"sd {(sd / radPerSd).ToString("0.00", Inv)} {au}" : $"sd {Length.FromMetres(sd).In(u.Length).ToString("0.0000", Inv)} {lu}")
+                    ? (u.Length == LengthUnit.Metre ? (ca * 1000).ToString("0.0", Inv) + " mm"
+                        : Length.FromMetres(ca).In(u.Length).ToString("0.0000", Inv) + " " + lu) +
+                      " + " + pb.ToString("0.0", Inv) + " ppm"
+                    : g.ScaledSd is double sd && double.IsFinite(sd)
+                        ? (g.Kind.IsAngular() ? $"sd {(sd / radPerSd).ToString("0.00", Inv)} {au}"
+                            : $"sd {Length.FromMetres(sd).In(u.Length).ToString("0.0000", Inv)} {lu}")
                     : double.IsFinite(g.SdScale) ? $"given sd x {g.SdScale.ToString("0.000", Inv)}" : "not estimable";
-                Line($"  {ObservationLabels.Short(g.Kind),-18} {g.Count,5} {Num(g.Redundancy, 2, 8)} {Num(g.VarianceFactor, 3, 10)} {Num(g.SdScale, 3, 9)}  {spec}");
-                if (g.Note is not null) foreach (var part in Wrap("note: " + g.Note, 94)) Line("    " + part);
+                List<string> notes = g.Note is null ? [] : Wrap("note: " + g.Note, 94).Select(p => "    " + p).ToList();
+                groups.Add(new SectionRow([
+                    ObservationLabels.Short(g.Kind), g.Count.ToString(Inv), Num(g.Redundancy, 2),
+                    Num(g.VarianceFactor, 3), Num(g.SdScale, 3), spec,
+                ], After: notes));
             }
-            Line("  A variance factor of 1 means the group's given standard deviations fit its residuals.");
-            Line();
+            sections.Add(new ReportSection("variance-components",
+                $"VARIANCE COMPONENTS PER OBSERVATION GROUP (Foerstner; {vc.Iterations} iterations, " +
+                $"{(vc.Converged ? "converged" : "NOT converged")})", "Variance components per observation group", [],
+                [
+                    Txt("Group", 18), Nr("n", null, 5), Nr("Redund.", null, 8), Nr("Var.factor", null, 10),
+                    Nr("sd scale", null, 9), Txt("Implied specification", 0, gap: "  "),
+                ],
+                groups, ["  A variance factor of 1 means the group's given standard deviations fit its residuals."]));
         }
+        return sections;
     }
+
+    /// <summary>The state of a row by the flag of its test.</summary>
+    internal static RowState StateOf(ObservationFlag flag) => flag switch
+    {
+        ObservationFlag.Rejected => RowState.Fail,
+        ObservationFlag.Uncontrolled or ObservationFlag.Weak => RowState.Warn,
+        _ => RowState.Normal,
+    };
 
     private static string F(double v, int d) => v.ToString("F" + d, Inv);
 

@@ -33,6 +33,14 @@ internal static class TextReportSections
         return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 
+    /// <summary>The survey's particulars, one "Label     : text" line each (wrapped), when the project gives them.
+    /// </summary>
+    public static void Particulars(StringBuilder sb, ReportContext c)
+    {
+        if (c.Particulars is null) return;
+        foreach (var (label, text) in c.Particulars.Lines()) Wrapped(sb, $"{label,-10}: ", text);
+    }
+
     /// <summary>The observations with the largest |w| (when the result has standardised residuals).</summary>
     public static void WorstResiduals(StringBuilder sb, ResultReport report, int count)
     {

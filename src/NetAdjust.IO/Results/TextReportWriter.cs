@@ -46,6 +46,7 @@ public static class TextReportWriter
         Line($"Project   : {r.Network.Name}");
         Line($"Input     : {c.InputName}");
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        TextReportSections.Particulars(sb, c);
         Line($"Units     : lengths {u.Length.Name} ({lu}), angles {units.AngleName}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
         TextReportSections.Datum(sb, r, c);
@@ -110,7 +111,7 @@ public static class TextReportWriter
             Line();
         }
 
-        StatisticsReport.Append(sb, r, c);
+        StatisticsReport.Append(sb, report.Sections);
         Line(Caution);
         return sb.ToString();
     }

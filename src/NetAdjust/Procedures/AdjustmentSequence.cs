@@ -88,7 +88,12 @@ public sealed record CoordinateShift(string Id, double? DE, double? DN, double? 
 /// <param name="Discrepancies">Per control point, in input order.</param>
 /// <param name="Shifts">Per point, in input order.</param>
 public sealed record SequenceResult(AdjustmentResult Minimal, AdjustmentResult Constrained, string MinimalDatum, ConstraintTest Test,
-    IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts);
+    IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts)
+{
+    /// <summary>Per control mark and part, whether the observations can check it (<see cref="ControlTestability"/>).
+    /// </summary>
+    public IReadOnlyList<ControlTestability> Testability { get; init; } = [];
+}
 
 /// <summary>
 /// Good practice for control surveys: adjust first with minimal constraints, to test the observations alone,
@@ -160,7 +165,10 @@ public static class AdjustmentSequence
             if (!inPlane && !inHeight) continue;
             shifts.Add(new CoordinateShift(a.Id, inPlane ? D(a.E, b.E) : null, inPlane ? D(a.N, b.N) : null, inHeight ? D(a.H, b.H) : null));
         }
-        return new SequenceResult(minimal, constrained, minimal.Options.Datum.Describe(), test, discrepancies, shifts);
+        return new SequenceResult(minimal, constrained, minimal.Options.Datum.Describe(), test, discrepancies, shifts)
+        {
+            Testability = ControlTestability.Of(constrained, discrepancies),
+        };
     }
 
     /// <summary>Standard deviations below this (m) are those of components held by the minimal constraints: zero.</summary>

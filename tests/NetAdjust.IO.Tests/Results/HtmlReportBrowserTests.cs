@@ -149,4 +149,82 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Equal(failing, highlighted);
         Assert.Contains("class=\"histogram\"", dom);
     }
+
+    [ChromiumFact]
+    public void StatisticsSectionsAreTablesWithUnitsCountedAgainstTheJson()
+    {
+        // data/harrowfield-blunder.yaml (invented demo) with the blunder hunt: its simulated blunder is set aside.
+        var project = NetAdjust.IO.Project.ProjectReader.Read(
+            Path.Combine(TestProjects.RepoRoot, "data", "harrowfield-blunder.yaml"));
+        var hunt = NetAdjust.Procedures.DataSnooping.Run(project.Network, project.Options);
+        var c = new ReportContext("data/harrowfield-blunder.yaml", TestProjects.RunDate, project.Units) { Hunt = hunt };
+        var model = ResultReport.Build(hunt.Final, c);
+        string path = Path.Combine(_dir, "tables.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(model));
+        var run = Chromium.Open(path, "--dump-dom");
+        Chromium.Open(path, "--screenshot=" + Path.Combine(_dir, "tables.png"), "--window-size=1100,4000");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        Assert.DoesNotContain("<pre", dom);
+
+        using var json = System.Text.Json.JsonDocument.Parse(JsonResultWriter.Write(model));
+        var root = json.RootElement;
+        int Rows(string id)
+        {
+            var section = Regex.Match(dom, $"<section id=\"{id}\"[^>]*>.*?</section>", RegexOptions.Singleline).Value;
+            Assert.True(section.Length > 0, "no section " + id);
+            Assert.Contains("<table", section);
+            var body = Regex.Match(section, "<tbody>.*?</tbody>", RegexOptions.Singleline).Value;
+            return Regex.Matches(body, "<tr[ >]").Count;
+        }
+        Assert.Equal(root.GetProperty("observations").GetArrayLength(), Rows("observation-tests"));
+        Assert.Equal(root.GetProperty("relative").GetArrayLength(), Rows("relative"));
+        Assert.Equal(root.GetProperty("blunder_hunt").GetProperty("rounds").GetArrayLength(), Rows("blunder-hunt"));
+        Assert.True(Rows("ellipses") > 0);
+
+        // Units sit in the column headers; numbers are right-aligned.
+        var tests = Regex.Match(dom, "<section id=\"observation-tests\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<th class=\"num\">Residual (m or arcsec)</th>", tests);
+        Assert.Contains("<th class=\"num\">Ext.rel. (m)</th>", tests);
+        var ellipses = Regex.Match(dom, "<section id=\"ellipses\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<th class=\"num\">Azimuth (deg)</th>", ellipses);
+
+        // The round that set the blunder aside is marked by a symbol, not by colour alone.
+        var rounds = Regex.Match(dom, "<section id=\"blunder-hunt\".*?</section>", RegexOptions.Singleline).Value;
+        int setAside = hunt.Rounds.Count(x => x.SetAside);
+        Assert.True(setAside > 0);
+        const string failMark = "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>";
+        Assert.Equal(setAside, Regex.Matches(rounds, failMark).Count);
+        Assert.Equal(hunt.Rounds.Count - setAside, Regex.Matches(rounds, "<tr><td class=\"mark\"></td>").Count);
+    }
+
+    [ChromiumFact]
+    public void SequenceReportShowsTheComparisonAsTables()
+    {
+        // data/harrowgate-control.yaml (invented demo): one mark was moved in the simulation, so the control fails.
+        var project = NetAdjust.IO.Project.ProjectReader.Read(
+            Path.Combine(TestProjects.RepoRoot, "data", "harrowgate-control.yaml"));
+        var seq = NetAdjust.Procedures.AdjustmentSequence.Run(project.Network, project.Options);
+        var c = new ReportContext("data/harrowgate-control.yaml", TestProjects.RunDate, project.Units);
+        string path = Path.Combine(_dir, "sequence.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(ResultReport.Build(seq, c, minimal: false)));
+        var run = Chromium.Open(path, "--dump-dom");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        int Rows(string id) => Regex.Matches(Regex.Match(dom, $"<section id=\"{id}\"[^>]*>.*?</section>",
+            RegexOptions.Singleline).Value, "<tr[ >]").Count - 1;
+        Assert.Equal(2, Rows("sequence-solutions"));
+        Assert.Equal(seq.Discrepancies.Count, Rows("sequence-discrepancies"));
+        Assert.Equal(seq.Shifts.Count, Rows("sequence-shifts"));
+        Assert.Equal(seq.Minimal.Points.Count, Rows("sequence-other-solution"));
+        Assert.False(seq.Test.Passed);
+        Assert.Contains("<p class=\"verdict fail\"><strong>✗ Decision: the control does not fit", dom);
+        // every discrepancy row above the w-test's critical value carries the symbol as well as the class
+        int failing = seq.Discrepancies.Count(d => d.MaxAbsW > seq.Minimal.Analysis.WCritical);
+        var discrepancies = Regex.Match(dom, "<section id=\"sequence-discrepancies\".*?</section>",
+            RegexOptions.Singleline).Value;
+        Assert.True(failing > 0);
+        const string failMark = "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>";
+        Assert.Equal(failing, Regex.Matches(discrepancies, failMark).Count);
+    }
 }
