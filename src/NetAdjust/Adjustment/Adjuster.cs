@@ -53,8 +53,7 @@ public static partial class Adjuster
             if (round == MaxStochasticRounds)
                 throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
                     "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and " +
-                        "the " +
-                    "observations.");
+                    "the observations.");
             model = next;
             weights = Weights(network, model, control, options.AprioriVarianceFactor);
         }
