@@ -12,7 +12,8 @@ namespace NetAdjust.Benchmarks;
 /// </summary>
 public static class Crossover
 {
-    /// <summary>One cold dense adjustment of a plane network of the given size, timed (for sizes past BenchmarkDotNet's in-process limit).</summary>
+    /// <summary>One cold dense adjustment of a plane network of the given size, timed (for sizes past BenchmarkDotNet's
+    /// in-process limit).</summary>
     /// <param name="points">The number of points.</param>
     public static void DenseOnce(int points)
     {
@@ -27,7 +28,8 @@ public static class Crossover
     {
         foreach (int points in new[] { 20, 40, 70, 100, 150, 200, 300 })
         {
-            var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, points, Seed: 1));
+            var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, points,
+                Seed: 1));
             double Best(Func<INormalEquationsSolver> solver)
             {
                 double best = double.MaxValue;

@@ -9,6 +9,7 @@ internal static class DemoData
     {
         var d = new DirectoryInfo(AppContext.BaseDirectory);
         while (d is not null && !System.IO.File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
-        return Path.Combine(d?.FullName ?? throw new InvalidOperationException("NetAdjust.sln not found above the benchmark folder"), "data", name);
+        return Path.Combine(d?.FullName ??
+            throw new InvalidOperationException("NetAdjust.sln not found above the benchmark folder"), "data", name);
     }
 }

@@ -17,7 +17,10 @@ public static class Program
         if (args.Length > 0 && args[0] == "orderings") { OrderingComparison.Run(args); return; }
         if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
         if (args.Length > 0 && args[0] == "crossover") { Crossover.Run(); return; }
-        if (args.Length > 1 && args[0] == "dense") { Crossover.DenseOnce(int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture)); return; }
+        if (args.Length > 1 && args[0] == "dense")
+        {
+            Crossover.DenseOnce(int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture)); return;
+        }
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }

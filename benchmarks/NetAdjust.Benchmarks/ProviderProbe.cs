@@ -16,18 +16,25 @@ public static class ProviderProbe
         string native;
         try
         {
-            native = Control.TryUseNativeOpenBLAS() ? "native OpenBLAS loaded" : "native OpenBLAS did not load (the provider package ships no native library for this platform)";
+            native =
+                Control.TryUseNativeOpenBLAS() ? "native OpenBLAS loaded" : "native OpenBLAS did not load (the " +
+                "provider package ships no native library for this platform)";
         }
         catch (Exception e)
         {
             native = $"native OpenBLAS did not load: {e.GetType().Name}: {e.Message}";
         }
-        Console.WriteLine($"MathNet provider probe: {native}; provider in use: {MathNet.Numerics.Providers.LinearAlgebra.LinearAlgebraControl.Provider}");
+        Console.WriteLine(
+            $"MathNet provider probe: {native}; provider in use: " +
+            $"{MathNet.Numerics.Providers.LinearAlgebra.LinearAlgebraControl.Provider}");
         var rng = new Random(1);
         var b = Matrix<double>.Build.Dense(2000, 2000, (_, _) => rng.NextDouble());
         var spd = b.TransposeThisAndMultiply(b) + Matrix<double>.Build.DenseIdentity(2000);
         var sw = Stopwatch.StartNew();
         var chol = spd.Cholesky();
-        Console.WriteLine($"dense Cholesky of order 2000 with {MathNet.Numerics.Providers.LinearAlgebra.LinearAlgebraControl.Provider}: {sw.Elapsed.TotalSeconds:F2} s (det sign check {Math.Sign(chol.DeterminantLn)})");
+        Console.WriteLine(
+            $"dense Cholesky of order 2000 with " +
+            $"{MathNet.Numerics.Providers.LinearAlgebra.LinearAlgebraControl.Provider}: {sw.Elapsed.TotalSeconds:F2} " +
+            $"s (det sign check {Math.Sign(chol.DeterminantLn)})");
     }
 }

@@ -39,7 +39,8 @@ public class SparseEngineBenchmarks
         _network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, Points, Seed: 1));
         _problem = SyntheticProblem.Linearise(_network);
         _graph = AdjacencyGraph.FromNormalEquations(_problem.Unknowns, _problem.Rows, _problem.Weights);
-        _symbolic = SymbolicCholesky.Analyze(_graph, GeometricNestedDissection.Order(_graph, _problem.Geometry), "nested dissection");
+        _symbolic = SymbolicCholesky.Analyze(_graph, GeometricNestedDissection.Order(_graph, _problem.Geometry),
+            "nested dissection");
         _assembly = new NormalMatrixAssembly(_symbolic, _problem.Rows);
         _factor = SparseCholeskyFactor.Factorize(_symbolic, _assembly, _problem.Rows, _problem.Weights);
         _rhs = Enumerable.Range(0, _problem.Unknowns).Select(i => Math.Sin(i)).ToArray();
@@ -53,14 +54,17 @@ public class SparseEngineBenchmarks
         return (g, new NormalMatrixAssembly(_symbolic, _problem.Rows).Assemble(_problem.Rows, _problem.Weights));
     }
 
-    /// <summary>Geometric nested dissection and the symbolic analysis (elimination tree, counts, supernodes, patterns).</summary>
+    /// <summary>Geometric nested dissection and the symbolic analysis (elimination tree, counts, supernodes,
+    /// patterns).</summary>
     [Benchmark]
     public object OrderingAndSymbolic() =>
-        SymbolicCholesky.Analyze(_graph, GeometricNestedDissection.Order(_graph, _problem.Geometry), "nested dissection");
+        SymbolicCholesky.Analyze(_graph, GeometricNestedDissection.Order(_graph, _problem.Geometry),
+            "nested dissection");
 
     /// <summary>Numeric phase on the analysed pattern: values of N and the supernodal factorisation.</summary>
     [Benchmark]
-    public object NumericFactorisation() => SparseCholeskyFactor.Factorize(_symbolic, _assembly, _problem.Rows, _problem.Weights);
+    public object NumericFactorisation() =>
+        SparseCholeskyFactor.Factorize(_symbolic, _assembly, _problem.Rows, _problem.Weights);
 
     /// <summary>Forward and back substitution.</summary>
     [Benchmark]
@@ -89,10 +93,12 @@ public class SparseEngineBenchmarks
     /// analysis (redundancy numbers, w and tau tests, MDB, point ellipses, relative ellipses of observed pairs).
     /// </summary>
     [Benchmark]
-    public NetAdjust.Statistics.NetworkAnalysis FullAdjustment() => NetAdjust.Statistics.ResultAnalysis.Analyse(Adjuster.Adjust(_network));
+    public NetAdjust.Statistics.NetworkAnalysis FullAdjustment() =>
+        NetAdjust.Statistics.ResultAnalysis.Analyse(Adjuster.Adjust(_network));
 }
 
-/// <summary>Level networks (height differences to 6 nearest neighbours): the whole adjustment at 10,000 and 100,000 benchmarks.</summary>
+/// <summary>Level networks (height differences to 6 nearest neighbours): the whole adjustment at 10,000 and 100,000
+/// benchmarks.</summary>
 [Config(typeof(LargeNetworkConfig))]
 public class LevelNetworkBenchmarks
 {
@@ -104,11 +110,14 @@ public class LevelNetworkBenchmarks
 
     /// <summary>Generates the network.</summary>
     [GlobalSetup]
-    public void Setup() => _network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Levels, Points, Seed: 1));
+    public void Setup() =>
+        _network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Levels, Points, Seed: 1));
 
-    /// <summary>The whole adjustment with all statistics (as <see cref="SparseEngineBenchmarks.FullAdjustment"/>).</summary>
+    /// <summary>The whole adjustment with all statistics (as <see
+    /// cref="SparseEngineBenchmarks.FullAdjustment"/>).</summary>
     [Benchmark]
-    public NetAdjust.Statistics.NetworkAnalysis FullAdjustment() => NetAdjust.Statistics.ResultAnalysis.Analyse(Adjuster.Adjust(_network));
+    public NetAdjust.Statistics.NetworkAnalysis FullAdjustment() =>
+        NetAdjust.Statistics.ResultAnalysis.Analyse(Adjuster.Adjust(_network));
 }
 
 /// <summary>
@@ -127,24 +136,29 @@ public class DenseVersusSparseBenchmarks
 
     /// <summary>Generates the network.</summary>
     [GlobalSetup]
-    public void Setup() => _network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, Points, Seed: 1));
+    public void Setup() =>
+        _network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, Points, Seed: 1));
 
     /// <summary>Dense Cholesky (managed).</summary>
     [Benchmark(Baseline = true)]
-    public AdjustmentResult Dense() => Adjuster.Adjust(_network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
+    public AdjustmentResult Dense() =>
+        Adjuster.Adjust(_network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
 
     /// <summary>Sparse supernodal Cholesky with selected inversion.</summary>
     [Benchmark]
-    public AdjustmentResult Sparse() => Adjuster.Adjust(_network, AdjustmentOptions.Default with { Solver = new SparseNormalEquationsSolver() });
+    public AdjustmentResult Sparse() =>
+        Adjuster.Adjust(_network, AdjustmentOptions.Default with { Solver = new SparseNormalEquationsSolver() });
 }
 
-/// <summary>Monitoring strategy, 1 warm-up and 3 measured calls, in process (large networks take seconds per call).</summary>
+/// <summary>Monitoring strategy, 1 warm-up and 3 measured calls, in process (large networks take seconds per
+/// call).</summary>
 public sealed class LargeNetworkConfig : ManualConfig
 {
     /// <summary>Creates the configuration.</summary>
     public LargeNetworkConfig()
     {
-        AddJob(Job.Default.WithStrategy(RunStrategy.Monitoring).WithLaunchCount(1).WithWarmupCount(1).WithIterationCount(3)
+        AddJob(Job.Default.WithStrategy(RunStrategy.Monitoring).WithLaunchCount(1).WithWarmupCount(
+            1).WithIterationCount(3)
             .WithToolchain(InProcessEmitToolchain.Instance).WithId("Monitoring3"));
         AddDiagnoser(MemoryDiagnoser.Default);
     }

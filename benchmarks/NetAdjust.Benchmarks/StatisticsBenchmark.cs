@@ -6,7 +6,8 @@ using NetAdjust.Statistics;
 
 namespace NetAdjust.Benchmarks;
 
-/// <summary>The post-adjustment statistics and the blunder-hunt tools on the demo projects (small-network baseline).</summary>
+/// <summary>The post-adjustment statistics and the blunder-hunt tools on the demo projects (small-network
+/// baseline).</summary>
 [MemoryDiagnoser]
 public class StatisticsBenchmark
 {
@@ -22,9 +23,12 @@ public class StatisticsBenchmark
         _blunder = ProjectReader.Read(DemoData.File("harrowfield-blunder.yaml"));
     }
 
-    /// <summary>Full analysis (tests, reliability with one solve per observation, ellipses, relative ellipses).</summary>
+    /// <summary>Full analysis (tests, reliability with one solve per observation, ellipses, relative
+    /// ellipses).</summary>
     [Benchmark]
-    public NetworkAnalysis Analyse() => ResultAnalysis.Analyse(_result!, AnalysisOptions.Default with { ExternalReliability = ExternalReliabilityMode.Always });
+    public NetworkAnalysis Analyse() =>
+        ResultAnalysis.Analyse(_result!,
+        AnalysisOptions.Default with { ExternalReliability = ExternalReliabilityMode.Always });
 
     /// <summary>Data snooping on the demo with a planted blunder (two rounds).</summary>
     [Benchmark]

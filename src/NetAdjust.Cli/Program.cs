@@ -12,8 +12,10 @@ public static class Program
     /// <returns>The exit code (see <see cref="ExitCodes"/>).</returns>
     public static int Main(string[] args)
     {
-        var stdout = new StreamWriter(Console.OpenStandardOutput(), new System.Text.UTF8Encoding(false)) { AutoFlush = true, NewLine = "\n" };
-        var stderr = new StreamWriter(Console.OpenStandardError(), new System.Text.UTF8Encoding(false)) { AutoFlush = true, NewLine = "\n" };
+        var stdout = new StreamWriter(Console.OpenStandardOutput(), new System.Text.UTF8Encoding(false)) { AutoFlush =
+            true, NewLine = "\n" };
+        var stderr = new StreamWriter(Console.OpenStandardError(), new System.Text.UTF8Encoding(false)) { AutoFlush =
+            true, NewLine = "\n" };
         return Run(args, new CliConsole(stdout, stderr));
     }
 
@@ -25,7 +27,9 @@ public static class Program
     {
         // A plain command named "netadjust" as the root, so help shows the tool's name however it was started
         // (dotnet run, the packed tool, or a test host); it gets the help and version options a RootCommand has.
-        var root = new Command("netadjust", "NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal networks, level networks).")
+        var root = new Command("netadjust",
+            "NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal networks, level " +
+            "networks).")
         {
             new HelpOption { Recursive = true },
             new VersionOption(),
@@ -35,7 +39,8 @@ public static class Program
         root.Subcommands.Add(BudgetCommand.Create(console));
         root.Subcommands.Add(SimulateCommand.Create(console));
         var parse = root.Parse(args);
-        var config = new InvocationConfiguration { Output = console.Out, Error = console.Error, EnableDefaultExceptionHandler = false };
+        var config = new InvocationConfiguration { Output = console.Out, Error = console.Error,
+            EnableDefaultExceptionHandler = false };
         try
         {
             return parse.Invoke(config);

@@ -32,7 +32,8 @@ public static class SafeFileWriter
             try { full = Path.GetFullPath(o); }
             catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
             { throw new OutputException($"'{o}' is not a usable file path ({e.Message})", e); }
-            if (ins.Contains(full)) throw new OutputException($"{o}: refusing to overwrite an input file; choose another output path");
+            if (ins.Contains(full))
+                throw new OutputException($"{o}: refusing to overwrite an input file; choose another output path");
             if (!seen.Add(full)) throw new OutputException($"{o}: named for two outputs; choose distinct paths");
         }
     }
@@ -66,12 +67,14 @@ public static class SafeFileWriter
         finally
         {
             foreach (var (tmp, _, _) in staged)
-                try { if (File.Exists(tmp)) File.Delete(tmp); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+                try { if (File.Exists(tmp)) File.Delete(tmp); }
+                catch (IOException) { } catch (UnauthorizedAccessException) { }
         }
     }
 
     private static string TemporaryPath(string full) =>
-        Path.Combine(Path.GetDirectoryName(full) ?? ".", "." + Path.GetFileName(full) + "." + Guid.NewGuid().ToString("N")[..8] + ".tmp");
+        Path.Combine(Path.GetDirectoryName(full) ?? ".",
+            "." + Path.GetFileName(full) + "." + Guid.NewGuid().ToString("N")[..8] + ".tmp");
 
     /// <summary>Writes text (UTF-8, no byte-order mark) to a file through a temporary file and a rename.</summary>
     /// <param name="path">The target path.</param>
@@ -89,7 +92,8 @@ public static class SafeFileWriter
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
         {
-            try { if (File.Exists(tmp)) File.Delete(tmp); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+            try { if (File.Exists(tmp)) File.Delete(tmp); }
+            catch (IOException) { } catch (UnauthorizedAccessException) { }
             throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
         }
     }

@@ -39,7 +39,8 @@ public sealed class DatumDefectException : AdjustmentFailedException
     /// <summary>Creates the exception.</summary>
     /// <param name="message">Which unknowns are undetermined and what to add.</param>
     /// <param name="undetermined">Descriptions of the unknowns found undetermined (e.g. "easting of T4").</param>
-    public DatumDefectException(string message, IReadOnlyList<string> undetermined) : base(message) => Undetermined = undetermined;
+    public DatumDefectException(string message, IReadOnlyList<string> undetermined) : base(message) =>
+        Undetermined = undetermined;
 
     /// <summary>Descriptions of the unknowns found undetermined.</summary>
     public IReadOnlyList<string> Undetermined { get; }

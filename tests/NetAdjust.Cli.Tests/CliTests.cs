@@ -24,7 +24,8 @@ public sealed class CliTests : IDisposable
         var root = doc.RootElement;
         Assert.Equal("netadjust-result/1", root.GetProperty("format").GetString());
         var st = root.GetProperty("statistics");
-        Assert.Equal(st.GetProperty("observations").GetInt32() - st.GetProperty("unknowns").GetInt32(), st.GetProperty("degrees_of_freedom").GetInt32());
+        Assert.Equal(st.GetProperty("observations").GetInt32() - st.GetProperty("unknowns").GetInt32(),
+            st.GetProperty("degrees_of_freedom").GetInt32());
         // Every observation of the input is in the JSON under its kind: counted by hand in data/brackenmoor.yaml
         // (13 directions, 7 distances, 1 angle) and data/brackenmoor-levels.csv (5 height differences).
         var kinds = root.GetProperty("observations").EnumerateArray().GroupBy(o => o.GetProperty("kind").GetString()!)
@@ -52,7 +53,9 @@ public sealed class CliTests : IDisposable
     public void CheckRejectsABrokenFileNamingFileLineAndItem()
     {
         string f = Path.Combine(_tmp, "broken.yaml");
-        File.WriteAllText(f, "default_sd: {direction: 2}\npoints:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 9, n: 9}\nsetups:\n  - at: A\n    directions:\n      - {to: B, value: 12-75-00}\n");
+        File.WriteAllText(f,
+            "default_sd: {direction: 2}\npoints:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 9, n: " +
+            "9}\nsetups:\n  - at: A\n    directions:\n      - {to: B, value: 12-75-00}\n");
         var (code, _, stderr) = CliHarness.Run("check", f);
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("broken.yaml:8: direction A→B: minutes must be below 60 in '12-75-00'", stderr);
@@ -78,7 +81,9 @@ public sealed class CliTests : IDisposable
     public void DatumDefectIsAFailedAdjustment()
     {
         string f = Path.Combine(_tmp, "free.yaml");
-        File.WriteAllText(f, "default_sd: {distance: 0.003}\npoints:\n  - {id: A, e: 0, n: 0}\n  - {id: B, e: 9, n: 9}\nsetups:\n  - at: A\n    distances:\n      - {to: B, value: 12.7}\n");
+        File.WriteAllText(f,
+            "default_sd: {distance: 0.003}\npoints:\n  - {id: A, e: 0, n: 0}\n  - {id: B, e: 9, n: 9}\nsetups:\n  - " +
+            "at: A\n    distances:\n      - {to: B, value: 12.7}\n");
         var (code, _, stderr) = CliHarness.Run("adjust", f);
         Assert.Equal(ExitCodes.AdjustmentFailed, code);
         Assert.Contains("datum is not defined", stderr);
@@ -114,8 +119,11 @@ public sealed class CliTests : IDisposable
     {
         // σ far too optimistic for the demo's observations: the global test fails, exit code still 0.
         string f = Path.Combine(_tmp, "tight.yaml");
-        File.WriteAllText(f, File.ReadAllText(Demo).Replace("direction: 2.0", "direction: 0.05").Replace("angle: 2.8", "angle: 0.07")
-            .Replace("direction_sd: 3,", "direction_sd: 0.05,").Replace("edm: 2 mm + 2 ppm", "edm: 0.05 mm").Replace("centering: 1.0 mm", "centering: 0 mm").Replace("  - brackenmoor-levels.csv\n", ""));
+        File.WriteAllText(f,
+            File.ReadAllText(Demo).Replace("direction: 2.0", "direction: 0.05").Replace("angle: 2.8", "angle: 0.07")
+            .Replace("direction_sd: 3,", "direction_sd: 0.05,").Replace("edm: 2 mm + 2 ppm",
+                "edm: 0.05 mm").Replace("centering: 1.0 mm", "centering: 0 mm").Replace("  - brackenmoor-levels.csv\n",
+                ""));
         var (code, stdout, stderr) = CliHarness.Run("adjust", f, "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("FAILED", stdout);

@@ -4,7 +4,8 @@ using NetAdjust.Procedures;
 
 namespace NetAdjust.Cli.Tests;
 
-/// <summary>Datum defects end with exit code 3 and their own message; the sequence option writes both solutions.</summary>
+/// <summary>Datum defects end with exit code 3 and their own message; the sequence option writes both
+/// solutions.</summary>
 public sealed class DatumCliTests : IDisposable
 {
     private readonly string _tmp = Directory.CreateTempSubdirectory("netadjust-datum-").FullName;
@@ -12,7 +13,8 @@ public sealed class DatumCliTests : IDisposable
     public void Dispose() => Directory.Delete(_tmp, recursive: true);
 
     // A triangle A, B, C (invented), directions at each corner; distances optional; control and extras per case.
-    private static string Triangle(string fixA, string fixB, bool distances, string extraPoints = "", string extraSetups = "") => $"""
+    private static string Triangle(string fixA, string fixB, bool distances, string extraPoints = "",
+        string extraSetups = "") => $"""
         default_sd: {"{"}direction: 2, distance: 0.003, azimuth: 3{"}"}
         units: {"{"}angle: deg{"}"}
         points:
@@ -23,7 +25,9 @@ public sealed class DatumCliTests : IDisposable
         setups:
           - at: A
             directions: [{"{"}to: B, value: 90{"}"}, {"{"}to: C, value: 32.0054{"}"}]
-        {(distances ? "    distances: [{to: B, value: 100.0}, {to: C, value: 94.3398}]" : "    azimuths: [{to: B, value: 90}]")}
+        {(distances
+            ? "    distances: [{to: B, value: 100.0}, {to: C, value: 94.3398}]"
+            : "    azimuths: [{to: B, value: 90}]")}
           - at: B
             directions: [{"{"}to: A, value: 270{"}"}, {"{"}to: C, value: 327.9946{"}"}]
           - at: C
@@ -49,7 +53,8 @@ public sealed class DatumCliTests : IDisposable
             (Triangle(", fix: en", "", true), "The datum is not defined: no orientation."),
             (Triangle(", fix: en", "", false), "The datum is not defined: no distance."),
             (Triangle(", fix: en", ", fix: en", true, "  - {id: X, e: 2000, n: 2000}\n  - {id: Y, e: 2100, n: 2000}",
-                "  - at: X\n    distances: [{to: Y, value: 100.0}]"), "The datum is not defined: the plane network falls apart into 2 parts"),
+                "  - at: X\n    distances: [{to: Y, value: 100.0}]"),
+                    "The datum is not defined: the plane network falls apart into 2 parts"),
         };
         var seen = new HashSet<string>();
         foreach (var (yaml, expected) in cases)
@@ -77,7 +82,8 @@ public sealed class DatumCliTests : IDisposable
     {
         string demo = CliHarness.DataFile("brackenmoor.yaml");
         string json = Path.Combine(_tmp, "seq.json");
-        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--sequence", "--json", json, "--date", "2026-12-01");
+        var (code, stdout, stderr) =
+            CliHarness.Run("adjust", demo, "--sequence", "--json", json, "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("TEST OF THE ADDED CONSTRAINTS", stdout);
         Assert.Contains("CONTROL DISCREPANCIES", stdout);
@@ -100,7 +106,8 @@ public sealed class DatumCliTests : IDisposable
     [Fact]
     public void TheControlCheckDemoFlagsTheDisturbedMark()
     {
-        // data/harrowgate-control.yaml: HV03 was moved 5 cm in the simulation (the harrowgate scenario of NetAdjust.Simulation.DemoScenarios).
+        // data/harrowgate-control.yaml: HV03 was moved 5 cm in the simulation (the harrowgate scenario of
+        // NetAdjust.Simulation.DemoScenarios).
         string json = Path.Combine(_tmp, "hv.json");
         var (code, stdout, stderr) = CliHarness.Run("adjust", CliHarness.DataFile("harrowgate-control.yaml"),
             "--sequence", "--json", json, "--date", "2026-12-01");
@@ -108,17 +115,21 @@ public sealed class DatumCliTests : IDisposable
         using var doc = JsonDocument.Parse(File.ReadAllText(json));
         var root = doc.RootElement;
         Assert.False(root.GetProperty("constraint_test").GetProperty("passed").GetBoolean());
-        Assert.True(root.GetProperty("solutions")[0].GetProperty("statistics").GetProperty("global_test").GetProperty("passed").GetBoolean());
-        var worst = root.GetProperty("control_discrepancies").EnumerateArray().OrderByDescending(d => d.GetProperty("max_abs_w").GetDouble()).First();
+        Assert.True(root.GetProperty("solutions")[0].GetProperty("statistics").GetProperty("global_test").GetProperty(
+            "passed").GetBoolean());
+        var worst = root.GetProperty("control_discrepancies").EnumerateArray().OrderByDescending(d =>
+            d.GetProperty("max_abs_w").GetDouble()).First();
         Assert.Equal("HV03", worst.GetProperty("id").GetString());
-        Assert.StartsWith("  HV03 ", stdout.Split('\n').Single(l => l.EndsWith("<- largest", StringComparison.Ordinal)));
+        Assert.StartsWith("  HV03 ",
+            stdout.Split('\n').Single(l => l.EndsWith("<- largest", StringComparison.Ordinal)));
     }
 
     [Fact]
     public void TheDemoWithoutApproximateCoordinatesAdjusts()
     {
         // Equality with the given approximations is tested in NetAdjust.IO.Tests (same stochastic model).
-        var (code, report, err) = CliHarness.Run("adjust", CliHarness.DataFile("brackenmoor-auto.yaml"), "--date", "2026-12-01");
+        var (code, report, err) =
+            CliHarness.Run("adjust", CliHarness.DataFile("brackenmoor-auto.yaml"), "--date", "2026-12-01");
         Assert.True(code == 0, err);
         Assert.Contains("Global test", report);
     }

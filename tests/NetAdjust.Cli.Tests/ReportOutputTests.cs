@@ -88,7 +88,8 @@ public sealed class ReportOutputTests : IDisposable
     {
         File.WriteAllText(P("old.csv"), "OLD");
         string yaml = File.ReadAllText(P("brackenmoor.yaml")), levels = File.ReadAllText(P("brackenmoor-levels.csv"));
-        var r = CliHarness.Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--csv", P("old.csv"), option, P(input));
+        var r = CliHarness.Run("adjust", P("brackenmoor.yaml"), "--date", "2026-12-01", "--csv", P("old.csv"), option,
+            P(input));
         Assert.Equal(ExitCodes.OutputFailed, r.Code);
         Assert.Contains("refusing to overwrite an input file", r.Err);
         Assert.Equal(yaml, File.ReadAllText(P("brackenmoor.yaml")));

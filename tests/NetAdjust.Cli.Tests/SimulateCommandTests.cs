@@ -1,6 +1,7 @@
 namespace NetAdjust.Cli.Tests;
 
-/// <summary><c>netadjust simulate</c>: the written project reads back, adjusts (on the sparse path) and is reproducible.</summary>
+/// <summary><c>netadjust simulate</c>: the written project reads back, adjusts (on the sparse path) and is
+/// reproducible.</summary>
 public sealed class SimulateCommandTests : IDisposable
 {
     private readonly string _tmp = Directory.CreateTempSubdirectory("netadjust-sim-").FullName;
@@ -13,7 +14,8 @@ public sealed class SimulateCommandTests : IDisposable
     public void WritesAProjectThatReadsBackAndAdjusts(string kind)
     {
         string yaml = Path.Combine(_tmp, $"net-{kind}.yaml");
-        var (code, stdout, stderr) = CliHarness.Run("simulate", "--kind", kind, "--points", "400", "--seed", "5", "--out", yaml);
+        var (code, stdout, stderr) =
+            CliHarness.Run("simulate", "--kind", kind, "--points", "400", "--seed", "5", "--out", yaml);
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.True(File.Exists(Path.Combine(_tmp, $"net-{kind}-observations.csv")));
         string counts = stdout.Split(": ", 2)[1].Split(" (", 2)[0]; // "400 points, N observations"
@@ -29,7 +31,8 @@ public sealed class SimulateCommandTests : IDisposable
 
         // Same seed, same files.
         string again = Path.Combine(_tmp, $"again-{kind}.yaml");
-        Assert.Equal(ExitCodes.Success, CliHarness.Run("simulate", "--kind", kind, "--points", "400", "--seed", "5", "--out", again).Code);
+        Assert.Equal(ExitCodes.Success,
+            CliHarness.Run("simulate", "--kind", kind, "--points", "400", "--seed", "5", "--out", again).Code);
         Assert.Equal(File.ReadAllText(Path.Combine(_tmp, $"net-{kind}-observations.csv")).Split('\n', 2)[1],
                      File.ReadAllText(Path.Combine(_tmp, $"again-{kind}-observations.csv")).Split('\n', 2)[1]);
     }
@@ -37,7 +40,8 @@ public sealed class SimulateCommandTests : IDisposable
     [Fact]
     public void RejectsAnUnknownKindWithInvalidInputCode()
     {
-        var (code, _, stderr) = CliHarness.Run("simulate", "--kind", "spiral", "--points", "10", "--out", Path.Combine(_tmp, "x.yaml"));
+        var (code, _, stderr) =
+            CliHarness.Run("simulate", "--kind", "spiral", "--points", "10", "--out", Path.Combine(_tmp, "x.yaml"));
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("--kind", stderr);
         Assert.False(File.Exists(Path.Combine(_tmp, "x.yaml")));

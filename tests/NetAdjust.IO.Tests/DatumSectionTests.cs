@@ -4,10 +4,12 @@ using NetAdjust.IO.Project;
 
 namespace NetAdjust.IO.Tests;
 
-/// <summary>The <c>datum:</c> section of project files, and the demo adjusted without approximate coordinates.</summary>
+/// <summary>The <c>datum:</c> section of project files, and the demo adjusted without approximate
+/// coordinates.</summary>
 public class DatumSectionTests
 {
-    private static SurveyProject Parse(string yaml) => ProjectReader.Parse(yaml, "site.yaml", "/proj", p => throw new FileNotFoundException("no such file", p));
+    private static SurveyProject Parse(string yaml) =>
+        ProjectReader.Parse(yaml, "site.yaml", "/proj", p => throw new FileNotFoundException("no such file", p));
 
     private const string Points = """
         default_sd: {distance: 0.003}

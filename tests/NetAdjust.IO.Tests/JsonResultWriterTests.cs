@@ -41,14 +41,18 @@ public class JsonResultWriterTests
         var root = doc.RootElement;
         Assert.Equal("netadjust-result/1", root.GetProperty("format").GetString());
         var s = root.GetProperty("statistics");
-        foreach (var key in new[] { "observations", "unknowns", "degrees_of_freedom", "vtpv", "variance_factor", "sigma0", "iterations" })
+        foreach (var key in new[] { "observations", "unknowns", "degrees_of_freedom", "vtpv", "variance_factor",
+            "sigma0", "iterations" })
             Assert.True(s.TryGetProperty(key, out _), key);
         var g = s.GetProperty("global_test");
-        foreach (var key in new[] { "alpha", "lower", "upper", "passed" }) Assert.True(g.TryGetProperty(key, out _), key);
-        Assert.Equal(s.GetProperty("observations").GetInt32() - s.GetProperty("unknowns").GetInt32(), s.GetProperty("degrees_of_freedom").GetInt32());
+        foreach (var key in new[] { "alpha", "lower", "upper", "passed" })
+            Assert.True(g.TryGetProperty(key, out _), key);
+        Assert.Equal(s.GetProperty("observations").GetInt32() - s.GetProperty("unknowns").GetInt32(),
+            s.GetProperty("degrees_of_freedom").GetInt32());
 
         var p = root.GetProperty("points")[0];
-        foreach (var key in new[] { "id", "e", "n", "h", "fixed", "sd_e", "sd_n", "sd_h" }) Assert.True(p.TryGetProperty(key, out _), key);
+        foreach (var key in new[] { "id", "e", "n", "h", "fixed", "sd_e", "sd_n", "sd_h" })
+            Assert.True(p.TryGetProperty(key, out _), key);
         Assert.Equal("en", p.GetProperty("fixed").GetString());
         Assert.Equal(JsonValueKind.Null, p.GetProperty("h").ValueKind);
 

@@ -7,7 +7,8 @@ namespace NetAdjust.IO.Tests;
 public class ProjectReaderTests
 {
     private static SurveyProject Parse(string yaml, Dictionary<string, string>? files = null) =>
-        ProjectReader.Parse(yaml, "site.yaml", "/proj", p => files is not null && files.TryGetValue(Path.GetFileName(p), out var t)
+        ProjectReader.Parse(yaml, "site.yaml", "/proj", p => files is not null &&
+            files.TryGetValue(Path.GetFileName(p), out var t)
             ? t : throw new FileNotFoundException("no such file", p));
 
     private const string Valid = """
@@ -96,16 +97,21 @@ public class ProjectReaderTests
     [Fact]
     public void MissingStandardDeviationIsExplained()
     {
-        string yaml = "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 5, n: 0}\nsetups:\n  - at: A\n    distances:\n      - {to: B, value: 5}\n";
+        string yaml =
+            "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 5, n: 0}\nsetups:\n  - at: A\n    " +
+            "distances:\n      - {to: B, value: 5}\n";
         var e = Assert.Throws<ProjectFileException>(() => Parse(yaml));
-        Assert.Equal("site.yaml:7: distance to B in the setup at A: no standard deviation: give 'sd' or a default under default_sd.distance", e.Message);
+        Assert.Equal(
+            "site.yaml:7: distance to B in the setup at A: no standard deviation: give 'sd' or a default under " +
+            "default_sd.distance", e.Message);
     }
 
     [Fact]
     public void CsvObservationsAreReadWithTheirLines()
     {
         string yaml = Valid + "\nfiles:\n  - obs.csv\n";
-        string csv = "# comment\nkind,at,from,to,value,sd,length,set\n\ndistance,,A,B,300.01,,,\nangle,A,B,C,10-00-00,3,,\nheight_difference,,A,B,1.49,0.002,1000,\ndirection,A,,B,0-00-00,2,,r2\n";
+        string csv = "# comment\nkind,at,from,to,value,sd,length,set\n\ndistance,,A,B,300.01,,,\n" +
+            "angle,A,B,C,10-00-00,3,,\nheight_difference,,A,B,1.49,0.002,1000,\ndirection,A,,B,0-00-00,2,,r2\n";
         var p = Parse(yaml, new() { ["obs.csv"] = csv });
         var fromCsv = p.Network.Observations.Where(o => o.Source!.StartsWith("obs.csv")).ToList();
         Assert.Equal(["obs.csv:4", "obs.csv:5", "obs.csv:6", "obs.csv:7"], fromCsv.Select(o => o.Source));
@@ -146,7 +152,9 @@ public class ProjectReaderTests
     [Fact]
     public void UnknownPointInAnObservationNamesItsLine()
     {
-        string yaml = "default_sd: {distance: 0.003}\npoints:\n  - {id: A, e: 0, n: 0, fix: en}\nsetups:\n  - at: A\n    distances:\n      - {to: Z9, value: 5}\n";
+        string yaml =
+            "default_sd: {distance: 0.003}\npoints:\n  - {id: A, e: 0, n: 0, fix: en}\nsetups:\n  - at: A\n    " +
+            "distances:\n      - {to: Z9, value: 5}\n";
         var e = Assert.ThrowsAny<InvalidInputException>(() => Parse(yaml));
         Assert.Contains("distance A→Z9 (site.yaml:7): point Z9 is not defined", e.Message);
     }

@@ -14,16 +14,22 @@ internal static class AdjustCommand
     public static Command Create(CliConsole console)
     {
         var file = new Argument<string>("FILE") { Description = "The project file (YAML)." };
-        var json = new Option<string?>("--json") { Description = "Write the result as JSON to this path.", HelpName = "PATH" };
-        var report = new Option<string?>("--report") { Description = "Write the text report to this path instead of standard output.", HelpName = "PATH" };
+        var json = new Option<string?>("--json") { Description = "Write the result as JSON to this path.", HelpName =
+            "PATH" };
+        var report = new Option<string?>("--report") { Description =
+            "Write the text report to this path instead of standard output.", HelpName = "PATH" };
         var date = new Option<string?>("--date")
         {
-            Description = "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical reports.",
+            Description =
+                "The run date stated in the outputs (YYYY-MM-DD); default: today (UTC). Fix it for byte-identical " +
+                "reports.",
             HelpName = "YYYY-MM-DD",
         };
         var sequence = new Option<bool>("--sequence")
         {
-            Description = "Adjust twice: minimally constrained (the observations alone), then with all control; test whether the control fits.",
+            Description =
+                "Adjust twice: minimally constrained (the observations alone), then with all control; test whether " +
+                "the control fits.",
         };
         var solution = new Option<string?>("--exchange-solution")
         {
@@ -32,11 +38,14 @@ internal static class AdjustCommand
             HelpName = "constrained|minimal",
         };
         solution.AcceptOnlyFromAmong("constrained", "minimal");
-        var budgets = new Option<bool>("--budgets") { Description = "List each observation's error budget in the text report (the summary per group is always shown)." };
-        var quiet = new Option<bool>("--quiet") { Description = "Print no progress on standard error (progress is shown only for runs longer than a second)." };
+        var budgets = new Option<bool>("--budgets") { Description =
+            "List each observation's error budget in the text report (the summary per group is always shown)." };
+        var quiet = new Option<bool>("--quiet") { Description =
+            "Print no progress on standard error (progress is shown only for runs longer than a second)." };
         var stats = new StatisticsCliOptions();
         var exchange = ExchangeOutputs.Create();
-        var cmd = new Command("adjust", "Adjust a project by least squares and report coordinates, residuals and the global test.")
+        var cmd = new Command("adjust",
+            "Adjust a project by least squares and report coordinates, residuals and the global test.")
         {
             file, json, report, date, budgets, sequence, solution, quiet,
         };
@@ -50,9 +59,12 @@ internal static class AdjustCommand
             string? jsonPath = parse.GetValue(json), reportPath = parse.GetValue(report);
             var runDate = ParseDate(parse.GetValue(date));
             var project = ProjectReader.Read(path);
-            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
+            SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)),
+                project.InputFiles);
 
-            if (!parse.GetValue(quiet)) project = project with { Options = project.Options with { Progress = new ProgressPrinter(console.Error) } };
+            if (!parse.GetValue(quiet))
+                project = project with { Options = project.Options with { Progress =
+                    new ProgressPrinter(console.Error) } };
             foreach (var w in project.Warnings) console.Error.WriteLine($"warning: {w}");
             var context0 = new ReportContext(path, runDate, project.Units)
             {
@@ -63,12 +75,16 @@ internal static class AdjustCommand
             AdjustmentResult result;
             ReportContext context;
             ResultReport? model = null;
-            var files = new List<(string, string)>(); // all outputs or none: a failed write must not leave the others replaced
+            // all outputs or none: a failed write must not leave the others replaced
+            var files = new List<(string, string)>();
             if (parse.GetValue(sequence))
             {
-                // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply to it.
-                var clash = parse.Tokens.Select(t => t.Value).FirstOrDefault(t => t is "--snoop" or "--robust" or "--components");
-                if (clash is not null) throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
+                // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply
+                // to it.
+                var clash = parse.Tokens.Select(t => t.Value).FirstOrDefault(t =>
+                    t is "--snoop" or "--robust" or "--components");
+                if (clash is not null)
+                    throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
                 (result, context) = (seq.Constrained, context0);
                 text = SequenceReportWriter.Write(seq, context);

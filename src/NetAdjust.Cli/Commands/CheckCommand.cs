@@ -17,7 +17,8 @@ internal static class CheckCommand
             NetAdjust.Adjustment.AdjustmentPreflight.Check(project.Network, project.Options); // fails as adjust would
             foreach (var w in project.Warnings) console.Error.WriteLine($"warning: {w}");
             var n = project.Network;
-            console.Out.WriteLine($"{parse.GetValue(file)}: valid: {n.Points.Count} points, {n.Observations.Count} observations " +
+            console.Out.WriteLine(
+                $"{parse.GetValue(file)}: valid: {n.Points.Count} points, {n.Observations.Count} observations " +
                                   $"from {project.InputFiles.Count} file(s).");
             return ExitCodes.Success;
         }));

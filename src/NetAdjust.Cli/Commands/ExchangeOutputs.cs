@@ -18,14 +18,22 @@ internal sealed class ExchangeOutputs
 
     public static ExchangeOutputs Create()
     {
-        static Option<string?> Opt(string name, string description) => new(name) { Description = description, HelpName = "PATH" };
+        static Option<string?> Opt(string name, string description) =>
+            new(name) { Description = description, HelpName = "PATH" };
         return new ExchangeOutputs(
         [
-            (Opt("--html", "Write the report as one self-contained HTML file (summary, network plot, tables) to this path."), HtmlReportWriter.Write),
-            (Opt("--svg", "Write the network plot alone as an SVG file to this path."), NetworkPlotWriter.WriteDocument),
-            (Opt("--csv", "Write the adjusted coordinates, standard deviations and error ellipses as CSV to this path."), CoordinateCsvWriter.Write),
-            (Opt("--landxml", "Write the adjusted points as LandXML 1.2 (CgPoints) to this path, for CAD."), LandXmlWriter.Write),
-            (Opt("--geojson", "Write points, observation lines and error ellipses as GeoJSON to this path, for GIS."), GeoJsonWriter.Write),
+            (Opt("--html",
+                "Write the report as one self-contained HTML file (summary, network plot, tables) to this path."),
+                HtmlReportWriter.Write),
+            (Opt("--svg", "Write the network plot alone as an SVG file to this path."),
+                NetworkPlotWriter.WriteDocument),
+            (Opt("--csv",
+                "Write the adjusted coordinates, standard deviations and error ellipses as CSV to this path."),
+                CoordinateCsvWriter.Write),
+            (Opt("--landxml", "Write the adjusted points as LandXML 1.2 (CgPoints) to this path, for CAD."),
+                LandXmlWriter.Write),
+            (Opt("--geojson", "Write points, observation lines and error ellipses as GeoJSON to this path, for GIS."),
+                GeoJsonWriter.Write),
         ]);
     }
 
@@ -36,7 +44,8 @@ internal sealed class ExchangeOutputs
     }
 
     /// <summary>The output paths given on the command line.</summary>
-    public IEnumerable<string> Paths(ParseResult parse) => _outputs.Select(t => parse.GetValue(t.Option)).OfType<string>();
+    public IEnumerable<string> Paths(ParseResult parse) =>
+        _outputs.Select(t => parse.GetValue(t.Option)).OfType<string>();
 
     /// <summary>Renders every requested output from one report model: (path, text) in option order.</summary>
     public IEnumerable<(string Path, string Text)> Render(ParseResult parse, ResultReport report)

@@ -35,9 +35,12 @@ internal static class SimulateCommand
             Description = "Random seed; the same seed gives the same network (default 1, or the scenario's own seed).",
             DefaultValueFactory = _ => 1,
         };
-        var neighbours = new Option<int>("--neighbours") { Description = "Nearest neighbours each point is joined to.", DefaultValueFactory = _ => 6 };
-        var output = new Option<string>("--out") { Description = "The project file to write (YAML); the CSV file is written beside it.", Required = true };
-        var cmd = new Command("simulate", "Write a synthetic network (seeded, reproducible) as a project file and CSV observations.")
+        var neighbours = new Option<int>("--neighbours") { Description = "Nearest neighbours each point is joined to.",
+            DefaultValueFactory = _ => 6 };
+        var output = new Option<string>("--out") { Description =
+            "The project file to write (YAML); the CSV file is written beside it.", Required = true };
+        var cmd = new Command("simulate",
+            "Write a synthetic network (seeded, reproducible) as a project file and CSV observations.")
             { points, kind, scenario, seed, neighbours, output };
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
@@ -66,13 +69,17 @@ internal static class SimulateCommand
             var networkKind = CliChoice.Parse(k, "--kind", OptionGrammars.SyntheticKinds);
             int nb = parse.GetValue(neighbours);
             if (n < 3) throw new InvalidInputException($"--points must be at least 3, not {n}");
-            if (nb < 2 || nb >= n) throw new InvalidInputException($"--neighbours must be at least 2 and below the number of points, not {nb}");
+            if (nb < 2 || nb >= n)
+                throw new InvalidInputException(
+                    $"--neighbours must be at least 2 and below the number of points, not {nb}");
             var spec = new SyntheticNetworkSpec(networkKind, n, parse.GetValue(seed)) { Neighbours = nb };
             var network = SyntheticNetworks.Create(spec);
             ProjectFileWriter.Write(network, path, string.Create(CultureInfo.InvariantCulture,
-                $"Synthetic network written by: netadjust simulate --kind {k} --points {n} --seed {spec.Seed} --neighbours {nb}"));
+                $"Synthetic network written by: netadjust simulate --kind {k} --points {n} --seed {spec.Seed} " +
+                    $"--neighbours {nb}"));
             console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"{path}: {network.Points.Count} points, {network.Observations.Count} observations (seed {spec.Seed})."));
+                $"{path}: {network.Points.Count} points, {network.Observations.Count} observations (seed " +
+                    $"{spec.Seed})."));
             return ExitCodes.Success;
         }));
         return cmd;

@@ -11,12 +11,15 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 internal static class CsvObservationReader
 {
-    private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor"];
+    private static readonly string[] Columns =
+        ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor"];
 
-    /// <summary>Weighting of a height difference from a named level: (level id, section length, setups, runs) → weighting; throws <see cref="InvalidInputException"/>.</summary>
+    /// <summary>Weighting of a height difference from a named level: (level id, section length, setups, runs) →
+    /// weighting; throws <see cref="InvalidInputException"/>.</summary>
     internal delegate ObservationWeighting LevelBudget(string level, Length? length, int? setups, int? runs);
 
-    public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
+    public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles,
+        ProjectUnits units,
         IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null)
     {
         var result = new List<Observation>();
@@ -33,20 +36,30 @@ internal static class CsvObservationReader
                 col = new Dictionary<string, int>(StringComparer.Ordinal);
                 for (int k = 0; k < f.Length; k++)
                 {
-                    if (!Columns.Contains(f[k])) throw new ProjectFileException(file, lineNo, "header", $"unknown column '{f[k]}' (expected some of: {string.Join(", ", Columns)})");
-                    if (!col.TryAdd(f[k], k)) throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
+                    if (!Columns.Contains(f[k]))
+                        throw new ProjectFileException(file, lineNo, "header",
+                            $"unknown column '{f[k]}' (expected some of: {string.Join(", ", Columns)})");
+                    if (!col.TryAdd(f[k], k))
+                        throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
                 }
                 foreach (var need in new[] { "kind", "value" })
-                    if (!col.ContainsKey(need)) throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
+                    if (!col.ContainsKey(need))
+                        throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
                 continue;
             }
-            if (f.Length != col.Count) throw new ProjectFileException(file, lineNo, "", $"expected {col.Count} fields as in the header, found {f.Length}");
+            if (f.Length != col.Count)
+                throw new ProjectFileException(file, lineNo, "",
+                    $"expected {col.Count} fields as in the header, found {f.Length}");
             string Get(string name) => col.TryGetValue(name, out int k) ? f[k] : "";
             string kindText = Get("kind");
             var kind = ObservationKinds.All.Cast<ObservationKind?>().FirstOrDefault(k => k!.Value.Name() == kindText)
-                ?? throw new ProjectFileException(file, lineNo, kindText, $"unknown observation kind (expected one of: {string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");
+                ?? throw new ProjectFileException(file, lineNo, kindText,
+                    $"unknown observation kind (expected one of: " +
+                    $"{string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");
             string at = Get("at"), from = Get("from"), to = Get("to"), value = Get("value");
-            string Need(string name, string v) => v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, kindText, $"the '{name}' field is empty");
+            string Need(string name, string v) =>
+                v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, kindText,
+                $"the '{name}' field is empty");
             string item = kind switch
             {
                 ObservationKind.Angle => $"angle at {at} from {from} to {to}",
@@ -57,16 +70,20 @@ internal static class CsvObservationReader
             string sdText = Get("sd");
             ObservationWeighting? budget = null;
             string levelText = Get("level");
-            if (kind != ObservationKind.HeightDifference && (levelText.Length > 0 || Get("setups").Length > 0 || Get("runs").Length > 0))
-                throw new ProjectFileException(file, lineNo, item, "the 'level', 'setups' and 'runs' fields are for height differences only");
+            if (kind != ObservationKind.HeightDifference &&
+                (levelText.Length > 0 || Get("setups").Length > 0 || Get("runs").Length > 0))
+                throw new ProjectFileException(file, lineNo, item,
+                    "the 'level', 'setups' and 'runs' fields are for height differences only");
             if (sdText.Length == 0 && levelText.Length > 0)
             {
                 int? Count(string name, int max)
                 {
                     string t = Get(name);
                     if (t.Length == 0) return null;
-                    return int.TryParse(t, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int n) && n >= 1 && n <= max
-                        ? n : throw new ProjectFileException(file, lineNo, item, $"'{name}' must be a whole number from 1 to {max}");
+                    return int.TryParse(t, System.Globalization.NumberStyles.None,
+                        System.Globalization.CultureInfo.InvariantCulture, out int n) && n >= 1 && n <= max
+                        ? n : throw new ProjectFileException(file, lineNo, item,
+                            $"'{name}' must be a whole number from 1 to {max}");
                 }
                 Length? len = null;
                 if (Get("length").Length > 0)
@@ -74,8 +91,12 @@ internal static class CsvObservationReader
                     var lr = lengths.Parse(Get("length"));
                     len = lr.Success ? lr.Value : throw new ProjectFileException(file, lineNo, item, lr.Error!);
                 }
-                try { budget = (levelBudget ?? throw new InvalidInputException($"level '{levelText}' is not defined under 'levels'"))(levelText, len, Count("setups", 100000), Count("runs", 100)); }
-                catch (InvalidInputException e) when (e is not ProjectFileException) { throw new ProjectFileException(file, lineNo, item, e.Message); }
+                try { budget = (levelBudget ??
+                    throw new InvalidInputException($"level '{levelText}' is not defined under 'levels'"))(levelText,
+                    len, Count("setups", 100000), Count("runs", 100)); }
+                catch (InvalidInputException e)
+                    when (e is not ProjectFileException) { throw new ProjectFileException(file, lineNo, item,
+                        e.Message); }
                 sd = double.NaN; // derived from the level by the stochastic model
             }
             else if (sdText.Length > 0)
@@ -84,21 +105,34 @@ internal static class CsvObservationReader
                 if (err is not null) throw new ProjectFileException(file, lineNo, item, err);
             }
             else if (!defaults.TryGetValue(kind, out sd))
-                throw new ProjectFileException(file, lineNo, item, $"no standard deviation: fill the 'sd' column or give default_sd.{kind.Name()} in the project file");
-            Angle A() { var r = angles.Parse(value); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item, r.Error!); }
-            Length L(string v) { var r = lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item, r.Error!); }
+                throw new ProjectFileException(file, lineNo, item,
+                    $"no standard deviation: fill the 'sd' column or give default_sd.{kind.Name()} in the project " +
+                    $"file");
+            Angle A() { var r = angles.Parse(value); return r.Success ? r.Value : throw new ProjectFileException(file,
+                lineNo, item, r.Error!); }
+            Length L(string v) { var r =
+                lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item,
+                r.Error!); }
             string source = $"{file}:{lineNo}";
             Observation o = kind switch
             {
-                ObservationKind.Distance => new DistanceObservation(Need("from", from), Need("to", to), L(Need("value", value))) { StandardDeviation = sd, Source = source },
-                ObservationKind.Azimuth => new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd, Source = source },
-                ObservationKind.Angle => new AngleObservation(Need("at", at), Need("from", from), Need("to", to), A()) { StandardDeviation = sd, Source = source },
+                ObservationKind.Distance =>
+                    new DistanceObservation(Need("from", from), Need("to", to),
+                    L(Need("value", value))) { StandardDeviation = sd, Source = source },
+                ObservationKind.Azimuth =>
+                    new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
+                    Source = source },
+                ObservationKind.Angle =>
+                    new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
+                    A()) { StandardDeviation = sd, Source = source },
                 ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
-                    $"{Need("at", at)}/{file}#{(Get("set").Length > 0 ? Get("set") : "1")}") { StandardDeviation = sd, Source = source },
+                    $"{Need("at", at)}/{file}#{(Get("set").Length > 0 ? Get("set") : "1")}") { StandardDeviation = sd,
+                        Source = source },
                 _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
                     Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
             };
-            result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"), Get("sd_factor"), file, lineNo, item));
+            result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"),
+                Get("sd_factor"), file, lineNo, item));
         }
         return result;
     }

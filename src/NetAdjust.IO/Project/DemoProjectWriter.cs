@@ -21,7 +21,8 @@ public static class DemoProjectWriter
     public static IReadOnlyList<(string Name, string Text)> Format(DemoSurvey survey, string baseName)
     {
         string how = string.Create(Inv,
-            $"netadjust simulate --scenario {OptionGrammars.DemoScenarios.Format(survey.Scenario)} --seed {survey.Seed}");
+            $"netadjust simulate --scenario {OptionGrammars.DemoScenarios.Format(survey.Scenario)} --seed " +
+                $"{survey.Seed}");
         return survey.Scenario switch
         {
             DemoScenario.Brackenmoor => Brackenmoor(survey, baseName, how),

@@ -55,7 +55,8 @@ internal static class InputText
             var status = System.Text.Unicode.Utf8.ToUtf16(b.AsSpan(i), chars, out int read, out _,
                 replaceInvalidSequences: false, isFinalBlock: true);
             if (status == System.Buffers.OperationStatus.Done) return null;
-            if (status is System.Buffers.OperationStatus.InvalidData or System.Buffers.OperationStatus.NeedMoreData) return i + read;
+            if (status is System.Buffers.OperationStatus.InvalidData or System.Buffers.OperationStatus.NeedMoreData)
+                return i + read;
             i += read; // destination too small: go on
         }
         return null;

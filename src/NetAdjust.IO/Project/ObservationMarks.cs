@@ -39,9 +39,13 @@ internal static class ObservationMarks
         double factor = 1.0;
         if (sdFactor.Trim().Length > 0)
         {
-            if (!double.TryParse(sdFactor, NumberStyles.Float, CultureInfo.InvariantCulture, out factor) || !double.IsFinite(factor))
+            if (!double.TryParse(sdFactor, NumberStyles.Float, CultureInfo.InvariantCulture, out factor) ||
+                !double.IsFinite(factor))
                 throw new ProjectFileException(file, line, item, $"sd_factor '{sdFactor}' is not a number");
-            if (!(factor > 0)) throw new ProjectFileException(file, line, item, "sd_factor must be positive: it multiplies the standard deviation (e.g. 3 makes σ three times larger)");
+            if (!(factor > 0))
+                throw new ProjectFileException(file, line, item,
+                    "sd_factor must be positive: it multiplies the standard deviation (e.g. 3 makes σ three times " +
+                    "larger)");
         }
         if (!excluded && factor == 1.0) return o;
         // A standard deviation derived from specifications (NaN here) is multiplied by the factor when it is derived.

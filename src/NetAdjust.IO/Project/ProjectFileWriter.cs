@@ -16,7 +16,8 @@ public static class ProjectFileWriter
 
     /// <summary>Writes the project file and its CSV file (beside it) safely: both or neither.</summary>
     /// <param name="network">The network.</param>
-    /// <param name="projectPath">The YAML file to write; the CSV file takes its name with <c>-observations.csv</c>.</param>
+    /// <param name="projectPath">The YAML file to write; the CSV file takes its name with
+    /// <c>-observations.csv</c>.</param>
     /// <param name="comment">A comment line for the head of both files (how they were made).</param>
     /// <exception cref="OutputException">When a file cannot be written or would overwrite an input.</exception>
     public static void Write(SurveyNetwork network, string projectPath, string comment)
@@ -63,11 +64,16 @@ public static class ProjectFileWriter
             string sdLength() => o.StandardDeviation.ToString("F6", Inv);
             string line = o switch
             {
-                DirectionObservation d => $"direction,{d.Station},,{d.Target},{Degrees(d.Reading)},{sdAngle()},,{SetLabel(d)}",
-                DistanceObservation d => $"distance,,{d.From},{d.To},{d.Distance.Metres.ToString("F5", Inv)},{sdLength()},,",
-                AngleObservation a => $"angle,{a.Station},{a.Backsight},{a.Foresight},{Degrees(a.Measured)},{sdAngle()},,",
+                DirectionObservation d =>
+                    $"direction,{d.Station},,{d.Target},{Degrees(d.Reading)},{sdAngle()},,{SetLabel(d)}",
+                DistanceObservation d =>
+                    $"distance,,{d.From},{d.To},{d.Distance.Metres.ToString("F5", Inv)},{sdLength()},,",
+                AngleObservation a =>
+                    $"angle,{a.Station},{a.Backsight},{a.Foresight},{Degrees(a.Measured)},{sdAngle()},,",
                 AzimuthObservation a => $"azimuth,,{a.From},{a.To},{Degrees(a.Azimuth)},{sdAngle()},,",
-                HeightDifferenceObservation h => $"height_difference,,{h.From},{h.To},{h.Difference.Metres.ToString("F6", Inv)},{sdLength()},{h.LineLength?.Metres.ToString("F1", Inv)},",
+                HeightDifferenceObservation h =>
+                    $"height_difference,,{h.From},{h.To},{h.Difference.Metres.ToString("F6", Inv)},{sdLength()}," +
+                    $"{h.LineLength?.Metres.ToString("F1", Inv)},",
                 _ => throw new OutputException($"observation kind {o.Kind} cannot be written to CSV"),
             };
             c.Append(line).Append('\n');
@@ -81,9 +87,11 @@ public static class ProjectFileWriter
     {
         // The reader names a set "<station>/<file>#<set>"; keep the part a CSV row can carry.
         int hash = d.SetId.LastIndexOf('#');
-        string label = hash >= 0 ? d.SetId[(hash + 1)..] : d.SetId.StartsWith(d.Station + "/", StringComparison.Ordinal) ? d.SetId[(d.Station.Length + 1)..] : d.SetId;
+        string label = hash >= 0 ? d.SetId[(hash + 1)..] : d.SetId.StartsWith(d.Station + "/",
+            StringComparison.Ordinal) ? d.SetId[(d.Station.Length + 1)..] : d.SetId;
         return label.Replace(',', '_');
     }
 
-    private static string Quote(string s) => s.All(ch => char.IsLetterOrDigit(ch) || ch is '_' or '-' or '.') ? s : "'" + s.Replace("'", "''") + "'";
+    private static string Quote(string s) =>
+        s.All(ch => char.IsLetterOrDigit(ch) || ch is '_' or '-' or '.') ? s : "'" + s.Replace("'", "''") + "'";
 }

@@ -41,12 +41,14 @@ public static partial class ProjectReader
         ctx.CheckKeys(m, ["mode", "hold", "azimuth_to", "hold_height", "points"], "datum");
         var mode = ctx.Child(m, "mode") is YamlNode mn
             ? ctx.Choice(mn, "datum.mode", OptionGrammars.DatumModes) : DatumMode.Control;
-        string? hold = ctx.OptionalString(m, "hold"), azimuthTo = ctx.OptionalString(m, "azimuth_to"), holdHeight = ctx.OptionalString(m, "hold_height");
+        string? hold = ctx.OptionalString(m, "hold"), azimuthTo = ctx.OptionalString(m, "azimuth_to"), holdHeight =
+            ctx.OptionalString(m, "hold_height");
         List<string>? points = null;
         if (ctx.Child(m, "points") is YamlNode pn)
         {
             points = ctx.Sequence(pn, "datum.points").Select(x => ctx.Scalar(x, "datum.points")).ToList();
-            if (points.Count == 0) throw ctx.Error(pn, "datum.points", "list at least one point, or leave the key out to use all points");
+            if (points.Count == 0)
+                throw ctx.Error(pn, "datum.points", "list at least one point, or leave the key out to use all points");
         }
         void Only(string key, string allowedMode)
         {
@@ -57,7 +59,8 @@ public static partial class ProjectReader
         switch (mode)
         {
             case DatumMode.Control:
-                Only("hold", "minimal"); Only("azimuth_to", "minimal"); Only("hold_height", "minimal"); Only("points", "free");
+                Only("hold", "minimal"); Only("azimuth_to", "minimal"); Only("hold_height", "minimal"); Only("points",
+                    "free");
                 return DatumDefinition.ByControl;
             case DatumMode.MinimalConstraints:
                 Only("points", "free");

@@ -7,7 +7,8 @@ using YamlDotNet.RepresentationModel;
 
 namespace NetAdjust.IO.Project;
 
-/// <summary>The stochastic part of the project file: instruments, targets, levels, and per-setup procedure (docs/input-format.md).</summary>
+/// <summary>The stochastic part of the project file: instruments, targets, levels, and per-setup procedure
+/// (docs/input-format.md).</summary>
 public static partial class ProjectReader
 {
     /// <summary>Specifications declared at the top level.</summary>
@@ -31,7 +32,8 @@ public static partial class ProjectReader
             var level = Levels.TryGetValue(id, out var spec) ? spec
                 : throw new InvalidInputException($"level '{id}' is not defined under 'levels'");
             if (level.ReadingSd is not null && setups is null)
-                throw new InvalidInputException($"level {id} is specified per reading: give the section's number of setups");
+                throw new InvalidInputException(
+                    $"level {id} is specified per reading: give the section's number of setups");
             if (level.SdPerKm is not null && length is null)
                 throw new InvalidInputException($"level {id} is specified per km, so the section needs its length");
             if (length is Length l && !(l.Metres > 0))
@@ -41,13 +43,17 @@ public static partial class ProjectReader
         }
     }
 
-    /// <summary>The instrument, default target and procedure of one setup; Instrument null when the setup names none.</summary>
-    private sealed record SetupSpec(TotalStationSpecification? Instrument, TargetSpecification? Target, ObservingProcedure Procedure);
+    /// <summary>The instrument, default target and procedure of one setup; Instrument null when the setup names
+    /// none.</summary>
+    private sealed record SetupSpec(TotalStationSpecification? Instrument, TargetSpecification? Target,
+        ObservingProcedure Procedure);
 
     /// <summary>An observation read in a setup, waiting for its budget.</summary>
-    private sealed record Pending(Observation Observation, bool NeedsBudget, TargetSpecification? Target, YamlNode Node, string Item);
+    private sealed record Pending(Observation Observation, bool NeedsBudget, TargetSpecification? Target, YamlNode Node,
+        string Item);
 
-    private static StochasticInputs ReadSpecifications(Context ctx, YamlMappingNode root, ProjectUnits units, IEnumerable<Point> points)
+    private static StochasticInputs ReadSpecifications(Context ctx, YamlMappingNode root, ProjectUnits units,
+        IEnumerable<Point> points)
     {
         var s = new StochasticInputs();
         foreach (var p in points) s.Points.TryAdd(p.Id, p);
@@ -58,7 +64,9 @@ public static partial class ProjectReader
                 string id = ctx.RequiredString(m, "id", "an instrument");
                 string item = "instrument " + id;
                 ctx.CheckKeys(m, ["id", "direction_sd", "zenith_sd", "edm", "centering", "height"], item);
-                if (ctx.Child(m, "direction_sd") is null) throw ctx.Error(m, item, "'direction_sd' is missing (the ISO 17123-3 standard deviation of a direction in both faces)");
+                if (ctx.Child(m, "direction_sd") is null)
+                    throw ctx.Error(m, item,
+                        "'direction_sd' is missing (the ISO 17123-3 standard deviation of a direction in both faces)");
                 double dir = SpecAngle(ctx, m, "direction_sd", item, units, positive: true);
                 double zen = SpecAngle(ctx, m, "zenith_sd", item, units, positive: false);
                 EdmSpecification? edm = null;
@@ -78,7 +86,8 @@ public static partial class ProjectReader
                 string id = ctx.RequiredString(m, "id", "a target");
                 string item = "target " + id;
                 ctx.CheckKeys(m, ["id", "centering", "height"], item);
-                var spec = Wrap(ctx, m, item, () => new TargetSpecification(id, SpecLength(ctx, m, "centering", item, units), SpecLength(ctx, m, "height", item, units)));
+                var spec = Wrap(ctx, m, item, () => new TargetSpecification(id, SpecLength(ctx, m, "centering", item,
+                    units), SpecLength(ctx, m, "height", item, units)));
                 if (!s.Targets.TryAdd(id, spec)) throw ctx.Error(node, item, "is defined twice");
             }
         if (ctx.Child(root, "levels") is YamlNode lvs)
@@ -90,14 +99,19 @@ public static partial class ProjectReader
                 ctx.CheckKeys(m, ["id", "sd_per_km", "reading_sd", "resolution", "rounding"], item);
                 bool perKm = ctx.Child(m, "sd_per_km") is not null, perReading = ctx.Child(m, "reading_sd") is not null;
                 if (perKm == perReading)
-                    throw ctx.Error(m, item, "give either 'sd_per_km' (ISO 17123-2, 1 km double-run) or 'reading_sd' (one rod reading), not both or neither");
+                    throw ctx.Error(m, item,
+                        "give either 'sd_per_km' (ISO 17123-2, 1 km double-run) or 'reading_sd' (one rod reading), " +
+                        "not both or neither");
                 LevelSpecification spec;
                 if (perKm)
                 {
                     foreach (var k in new[] { "resolution", "rounding" })
                         if (ctx.Child(m, k) is YamlNode bad)
-                            throw ctx.Error(bad, item, $"'{k}' belongs to the per-reading model; the ISO 17123-2 figure per km already includes the reading errors");
-                    spec = Wrap(ctx, m, item, () => LevelSpecification.PerKm(id, SpecLength(ctx, m, "sd_per_km", item, units)));
+                            throw ctx.Error(bad, item,
+                                $"'{k}' belongs to the per-reading model; the ISO 17123-2 figure per km already " +
+                                $"includes the reading errors");
+                    spec = Wrap(ctx, m, item, () => LevelSpecification.PerKm(id, SpecLength(ctx, m, "sd_per_km", item,
+                        units)));
                 }
                 else
                 {
@@ -106,7 +120,8 @@ public static partial class ProjectReader
                     {
                         rounding = ctx.Choice(rn, item, OptionGrammars.Rounding, "rounding");
                     }
-                    spec = Wrap(ctx, m, item, () => LevelSpecification.PerReading(id, SpecLength(ctx, m, "reading_sd", item, units),
+                    spec = Wrap(ctx, m, item, () => LevelSpecification.PerReading(id, SpecLength(ctx, m, "reading_sd",
+                        item, units),
                         SpecLength(ctx, m, "resolution", item, units), rounding));
                 }
                 if (!s.Levels.TryAdd(id, spec)) throw ctx.Error(node, item, "is defined twice");
@@ -117,7 +132,8 @@ public static partial class ProjectReader
     private static T Wrap<T>(Context ctx, YamlNode node, string item, Func<T> make)
     {
         try { return make(); }
-        catch (InvalidInputException e) when (e is not ProjectFileException) { throw ctx.Error(node, item, e.Message); } // already names file, line and item
+        // already names file, line and item
+        catch (InvalidInputException e) when (e is not ProjectFileException) { throw ctx.Error(node, item, e.Message); }
         catch (ArgumentException) // a contribution overflowed (e.g. centering over a sight of 1e-300 m)
         {
             throw ctx.Error(node, item, "the standard deviation derived from the specification is not a finite " +
@@ -137,13 +153,15 @@ public static partial class ProjectReader
     }
 
     /// <summary>An angular standard deviation in units.angle_sd; 0 when the key is absent.</summary>
-    private static double SpecAngle(Context ctx, YamlMappingNode m, string key, string item, ProjectUnits units, bool positive)
+    private static double SpecAngle(Context ctx, YamlMappingNode m, string key, string item, ProjectUnits units,
+        bool positive)
     {
         if (ctx.Child(m, key) is not YamlNode n) return 0;
         string t = ctx.Scalar(n, $"{item} {key}");
         if (!double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v))
             throw ctx.Error(n, item, $"{key} '{t}' is not a number of {units.AngleSd.Symbol()}");
-        if (positive ? !(v > 0) : v < 0) throw ctx.Error(n, item, $"{key} must be {(positive ? "positive" : "zero or positive")}");
+        if (positive ? !(v > 0) : v < 0)
+            throw ctx.Error(n, item, $"{key} must be {(positive ? "positive" : "zero or positive")}");
         return v * units.AngleSd.RadiansPerUnit();
     }
 
@@ -161,7 +179,8 @@ public static partial class ProjectReader
         if (ctx.Child(m, "sets") is YamlNode sn)
         {
             double v = ctx.Number(sn, item + " sets");
-            if (v != Math.Floor(v) || v < 1 || v > 1000) throw ctx.Error(sn, item, "sets must be a whole number from 1 to 1000");
+            if (v != Math.Floor(v) || v < 1 || v > 1000)
+                throw ctx.Error(sn, item, "sets must be a whole number from 1 to 1000");
             sets = (int)v;
         }
         var faces = Faces.Both;
@@ -172,7 +191,9 @@ public static partial class ProjectReader
         if (instrument is null)
             foreach (var k in new[] { "target", "sets", "faces" })
                 if (ctx.Child(m, k) is YamlNode bad)
-                    throw ctx.Error(bad, item, $"'{k}' is used to weight observations from an instrument specification: name the setup's 'instrument' too");
+                    throw ctx.Error(bad, item,
+                        $"'{k}' is used to weight observations from an instrument specification: name the setup's " +
+                        $"'instrument' too");
         return new SetupSpec(instrument, target, new ObservingProcedure(sets, faces));
     }
 
@@ -180,7 +201,8 @@ public static partial class ProjectReader
     {
         if (ctx.Child(m, "target") is not YamlNode t) return null;
         string id = ctx.Scalar(t, item + " target");
-        return s.Targets.TryGetValue(id, out var spec) ? spec : throw ctx.Error(t, item, $"target '{id}' is not defined under 'targets'");
+        return s.Targets.TryGetValue(id, out var spec) ? spec : throw ctx.Error(t, item,
+            $"target '{id}' is not defined under 'targets'");
     }
 
     /// <summary>
@@ -188,7 +210,8 @@ public static partial class ProjectReader
     /// its weighting (instrument, target, procedure, and the distances observed in the setup as sight lengths; other
     /// sight lengths are taken from the adjustment's coordinates), and appends it to the output.
     /// </summary>
-    private static void FinishSetup(Context ctx, string at, SetupSpec spec, List<Pending> pending, StochasticInputs s, List<Observation> output)
+    private static void FinishSetup(Context ctx, string at, SetupSpec spec, List<Pending> pending, StochasticInputs s,
+        List<Observation> output)
     {
         if (spec.Instrument is not TotalStationSpecification ts)
         {
@@ -223,19 +246,24 @@ public static partial class ProjectReader
         }
     }
 
-    /// <summary>The weighting of a levelling section from its 'level', 'setups' and 'runs' keys; null when it names no level.</summary>
-    private static ObservationWeighting? LevellingWeighting(Context ctx, YamlMappingNode m, string item, Length? length, StochasticInputs s)
+    /// <summary>The weighting of a levelling section from its 'level', 'setups' and 'runs' keys; null when it names no
+    /// level.</summary>
+    private static ObservationWeighting? LevellingWeighting(Context ctx, YamlMappingNode m, string item, Length? length,
+        StochasticInputs s)
     {
         int? Count(string key, int max)
         {
             if (ctx.Child(m, key) is not YamlNode n) return null;
             double v = ctx.Number(n, $"{item} {key}");
-            return v == Math.Floor(v) && v >= 1 && v <= max ? (int)v : throw ctx.Error(n, item, $"{key} must be a whole number from 1 to {max}");
+            return v == Math.Floor(v) && v >= 1 &&
+                v <= max ? (int)v : throw ctx.Error(n, item, $"{key} must be a whole number from 1 to {max}");
         }
         int? setups = Count("setups", 100000), runs = Count("runs", 100);
         if (ctx.Child(m, "level") is not YamlNode ln)
         {
-            if (setups is not null || runs is not null) throw ctx.Error(m, item, "'setups' and 'runs' weight the section from a level specification: name its 'level' too");
+            if (setups is not null || runs is not null)
+                throw ctx.Error(m, item,
+                    "'setups' and 'runs' weight the section from a level specification: name its 'level' too");
             return null;
         }
         string id = ctx.Scalar(ln, item + " level");

@@ -22,7 +22,8 @@ public static partial class ProjectReader
                 else if (ch is '}' or ']') depth--;
             }
             if (depth > 0)
-                return new ProjectFileException(displayName, i + 1, "", "this is not valid YAML: a '{' or '[' is not closed on this line (write {id: A, e: 1, n: 2})");
+                return new ProjectFileException(displayName, i + 1, "",
+                    "this is not valid YAML: a '{' or '[' is not closed on this line (write {id: A, e: 1, n: 2})");
         }
         return fallbackLine > 0
             ? new ProjectFileException(displayName, fallbackLine, "",

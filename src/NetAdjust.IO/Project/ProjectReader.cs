@@ -15,7 +15,10 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    private static readonly string[] TopKeys = ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments", "targets", "levels", "statistics", "crs", "datum", "survey"];
+    private static readonly string[] TopKeys =
+        ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
+        "targets", "levels", "statistics", "crs", "datum",
+        "survey"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -36,7 +39,8 @@ public static partial class ProjectReader
         ArgumentNullException.ThrowIfNull(resolver);
         string full;
         try { full = resolver.Resolve(Directory.GetCurrentDirectory(), path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        catch (Exception e)
+            when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         { throw new ProjectFileException(path, 0, "", $"the project file cannot be read ({FirstLine(e.Message)})"); }
         string text = ReadText(resolver, full, path, "the project file");
         return Parse(text, path, Path.GetDirectoryName(full)!, resolver);
@@ -65,7 +69,8 @@ public static partial class ProjectReader
         }
         catch (FileNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
         catch (DirectoryNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        catch (Exception e)
+            when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         { throw new ProjectFileException(shown, 0, "", $"{what} cannot be read ({FirstLine(e.Message)})"); }
         return InputText.Decode(bytes, shown);
     }
@@ -92,18 +97,21 @@ public static partial class ProjectReader
             var stream = new YamlStream();
             stream.Load(new StringReader(text));
             if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
-                throw new ProjectFileException(displayName, 1, "", "the project file must be a YAML mapping with keys such as 'points' and 'setups'");
+                throw new ProjectFileException(displayName, 1, "",
+                    "the project file must be a YAML mapping with keys such as 'points' and 'setups'");
             root = m;
         }
         catch (YamlException e)
         {
-            throw new ProjectFileException(displayName, (int)e.Start.Line, "", "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
+            throw new ProjectFileException(displayName, (int)e.Start.Line, "",
+                "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
         }
         catch (ArgumentException) // YamlDotNet's document model refuses some event orders the parser lets through
         {
             throw YamlGuard.Unreadable(displayName, text);
         }
-        catch (InvalidOperationException) // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
+        // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
+        catch (InvalidOperationException)
         {
             throw UnclosedBracket(displayName, text);
         }
@@ -143,13 +151,16 @@ public static partial class ProjectReader
                 string rel = ctx.Scalar(node, "a CSV file path");
                 string full, csv;
                 try { full = resolve(rel); csv = readFile(full, rel); }
-                catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-                { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
+                catch (Exception e)
+                    when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+                { throw new ProjectFileException(displayName, Line(node), rel,
+                    $"the observation file cannot be read ({FirstLine(e.Message)})"); }
                 catch (ProjectFileException e) when (e.Line == 0)
                 { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.WeightingOfLevel));
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
+                    specs.WeightingOfLevel));
             }
         }
 
@@ -171,7 +182,8 @@ public static partial class ProjectReader
     /// <summary>The keys of one observation of a kind in the project file (the kind's column metadata).</summary>
     private static string[] Keys(ObservationKind kind) => [.. ObservationKindRegistry.Of(kind).Columns.YamlKeys];
 
-    /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g. <c>EPSG:27700</c>).</summary>
+    /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g.
+    /// <c>EPSG:27700</c>).</summary>
     private static string? ReadCrs(Context ctx, YamlMappingNode root)
     {
         if (ctx.Child(root, "crs") is not YamlNode node) return null;
@@ -179,7 +191,8 @@ public static partial class ProjectReader
         const string prefix = "EPSG:";
         string code = s.StartsWith(prefix, StringComparison.OrdinalIgnoreCase) ? s[prefix.Length..] : "";
         if (code.Length is < 4 or > 6 || !code.All(char.IsAsciiDigit))
-            throw ctx.Error(node, "crs", $"'{s}' is not a coordinate reference system: write EPSG: and its code, e.g. EPSG:27700");
+            throw ctx.Error(node, "crs",
+                $"'{s}' is not a coordinate reference system: write EPSG: and its code, e.g. EPSG:27700");
         return prefix + code;
     }
 
@@ -221,7 +234,8 @@ public static partial class ProjectReader
         if (ctx.Child(m, "max_iterations") is YamlNode it)
         {
             double v = ctx.Number(it, "adjustment.max_iterations");
-            if (v != Math.Floor(v) || v < 1 || v > 1000) throw ctx.Error(it, "adjustment.max_iterations", "must be a whole number from 1 to 1000");
+            if (v != Math.Floor(v) || v < 1 || v > 1000)
+                throw ctx.Error(it, "adjustment.max_iterations", "must be a whole number from 1 to 1000");
             o = o with { MaxIterations = (int)v };
         }
         if (ctx.Child(m, "tolerance") is YamlNode tol)
@@ -233,19 +247,22 @@ public static partial class ProjectReader
         if (ctx.Child(m, "alpha") is YamlNode al)
         {
             double v = ctx.Number(al, "adjustment.alpha");
-            if (!(v > 0 && v < 1)) throw ctx.Error(al, "adjustment.alpha", "the significance level must be between 0 and 1 (e.g. 0.05)");
+            if (!(v > 0 && v < 1))
+                throw ctx.Error(al, "adjustment.alpha", "the significance level must be between 0 and 1 (e.g. 0.05)");
             o = o with { GlobalTestAlpha = v };
         }
         if (ctx.Child(m, "variance_factor") is YamlNode vf)
         {
             double v = ctx.Number(vf, "adjustment.variance_factor");
-            if (!(v > 0)) throw ctx.Error(vf, "adjustment.variance_factor", "the a-priori variance factor must be positive");
+            if (!(v > 0))
+                throw ctx.Error(vf, "adjustment.variance_factor", "the a-priori variance factor must be positive");
             o = o with { AprioriVarianceFactor = v };
         }
         return o;
     }
 
-    private static Dictionary<ObservationKind, double> ReadDefaults(Context ctx, YamlMappingNode root, ProjectUnits units)
+    private static Dictionary<ObservationKind,
+        double> ReadDefaults(Context ctx, YamlMappingNode root, ProjectUnits units)
     {
         var d = new Dictionary<ObservationKind, double>();
         if (ctx.Child(root, "default_sd") is not YamlNode node) return d;
@@ -257,13 +274,15 @@ public static partial class ProjectReader
         return d;
     }
 
-    /// <summary>Reads a standard deviation in the project's units: a length (unit suffix allowed) or an angle in angle_sd units.</summary>
+    /// <summary>Reads a standard deviation in the project's units: a length (unit suffix allowed) or an angle in
+    /// angle_sd units.</summary>
     internal static double ParseSd(string text, ObservationKind kind, ProjectUnits units, out string? error)
     {
         error = null;
         if (kind.IsAngular())
         {
-            if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double a) || !double.IsFinite(a))
+            if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double a) ||
+                !double.IsFinite(a))
             { error = $"'{text}' is not a standard deviation in {units.AngleSd.Symbol()}"; return 0; }
             if (!(a > 0)) { error = "a standard deviation must be positive"; return 0; }
             return a * units.AngleSd.RadiansPerUnit();
@@ -308,13 +327,16 @@ public static partial class ProjectReader
         return p;
     }
 
-    private static void ReadSetup(Context ctx, YamlNode node, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
-        Dictionary<ObservationKind, double> defaults, Dictionary<string, int> setsPerStation, List<Observation> setupOutput, StochasticInputs specs)
+    private static void ReadSetup(Context ctx, YamlNode node, LengthPattern lengths, AnglePattern angles,
+        ProjectUnits units,
+        Dictionary<ObservationKind, double> defaults, Dictionary<string, int> setsPerStation,
+            List<Observation> setupOutput, StochasticInputs specs)
     {
         var m = ctx.Mapping(node, "a setup");
         string at = ctx.RequiredString(m, "at", "a setup");
         string item = "setup at " + at;
-        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets", "faces"], item);
+        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets",
+            "faces"], item);
         var spec = ReadSetupSpec(ctx, m, item, specs);
         var output = new List<Pending>();
 
@@ -325,38 +347,54 @@ public static partial class ProjectReader
             string setId = $"{at}/{k}";
             foreach (var dn in ctx.Sequence(dirs, item + " directions"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, Keys(ObservationKind.Direction), item, spec, specs);
-                output.Add(new(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
+                var (to, value, sd, src, budget, target) =
+                    ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, Keys(ObservationKind.Direction),
+                    item, spec, specs);
+                output.Add(new(new DirectionObservation(at, to,
+                    ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
                 { StandardDeviation = sd, Source = src }, budget, target, dn, $"direction to {to} in the {item}"));
             }
         }
         if (ctx.Child(m, "distances") is YamlNode dists)
             foreach (var dn in ctx.Sequence(dists, item + " distances"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, Keys(ObservationKind.Distance), item, spec, specs);
-                output.Add(new(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src },
+                var (to, value, sd, src, budget, target) =
+                    ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, Keys(ObservationKind.Distance),
+                    item, spec, specs);
+                output.Add(new(new DistanceObservation(at, to,
+                    ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source =
+                    src },
                     budget, target, dn, $"distance to {to} in the {item}"));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
             foreach (var an in ctx.Sequence(azs, item + " azimuths"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, Keys(ObservationKind.Azimuth), item, spec, specs);
-                output.Add(new(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src },
+                var (to, value, sd, src, budget, target) =
+                    ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, Keys(ObservationKind.Azimuth), item,
+                    spec, specs);
+                output.Add(new(new AzimuthObservation(at, to,
+                    ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"azimuth to {to} in the {item}"));
             }
         if (ctx.Child(m, "angles") is YamlNode angs)
             foreach (var an in ctx.Sequence(angs, item + " angles"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, Keys(ObservationKind.Angle), item, spec, specs);
+                var (to, value, sd, src, budget, target) =
+                    ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, Keys(ObservationKind.Angle), item,
+                    spec, specs);
                 string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
-                output.Add(new(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src },
+                output.Add(new(new AngleObservation(at, from, to,
+                    ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd,
+                    Source = src },
                     budget, target, an, $"angle from {from} to {to} in the {item}"));
             }
         FinishSetup(ctx, at, spec, output, specs, setupOutput);
     }
 
-    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, TargetSpecification? Target) ReadSighting(
-        Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem,
+    private static (string To, string Value, double Sd, string Source, bool NeedsBudget,
+        TargetSpecification? Target) ReadSighting(
+        Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, Dictionary<ObservationKind,
+            double> defaults, string[] keys, string setupItem,
         SetupSpec spec, StochasticInputs specs)
     {
         var m = ctx.Mapping(node, $"a {kind.Name()} in the {setupItem}");
@@ -366,17 +404,21 @@ public static partial class ProjectReader
         string value = ctx.RequiredString(m, "value", item);
         var target = TargetOf(ctx, m, item, specs);
         if (target is not null && spec.Instrument is null)
-            throw ctx.Error(m, item, "'target' is used to weight observations from an instrument specification: name the setup's 'instrument' too");
+            throw ctx.Error(m, item,
+                "'target' is used to weight observations from an instrument specification: name the setup's " +
+                "'instrument' too");
         // Precedence: explicit sd, then the setup's instrument specification (not for azimuths), then default_sd.
         bool fromSpec = spec.Instrument is not null && kind != ObservationKind.Azimuth && ctx.Child(m, "sd") is null;
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
             : fromSpec ? double.NaN // derived from the specifications by the stochastic model
             : defaults.TryGetValue(kind, out double d) ? d
-            : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
+            : throw ctx.Error(node, item,
+                $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
         return (to, value, sd, $"{ctx.File}:{Line(node)}", fromSpec, target);
     }
 
-    private static Observation ReadLevelling(Context ctx, YamlNode node, LengthPattern lengths, ProjectUnits units, Dictionary<ObservationKind, double> defaults,
+    private static Observation ReadLevelling(Context ctx, YamlNode node, LengthPattern lengths, ProjectUnits units,
+        Dictionary<ObservationKind, double> defaults,
         StochasticInputs specs)
     {
         var m = ctx.Mapping(node, "a levelling section");
@@ -393,12 +435,16 @@ public static partial class ProjectReader
             len = l;
         }
         var weighting = LevellingWeighting(ctx, m, item, len, specs);
-        double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
+        double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item +
+            " sd")
             : weighting is not null ? double.NaN // derived from the level by the stochastic model
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
-            : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
-        var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
-        return ObservationMarks.Apply(weighting is not null && ctx.Child(m, "sd") is null ? o with { Weighting = weighting } : o, node, ctx.File);
+            : throw ctx.Error(node, item,
+                "no standard deviation: give 'sd' or a default under default_sd.height_difference");
+        var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source =
+            $"{ctx.File}:{Line(node)}" };
+        return ObservationMarks.Apply(weighting is not null &&
+            ctx.Child(m, "sd") is null ? o with { Weighting = weighting } : o, node, ctx.File);
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>
@@ -406,10 +452,12 @@ public static partial class ProjectReader
     {
         public string File { get; } = file;
 
-        public ProjectFileException Error(YamlNode node, string item, string problem) => new(File, Line(node), item, problem);
+        public ProjectFileException Error(YamlNode node, string item, string problem) =>
+            new(File, Line(node), item, problem);
 
         public YamlNode? Child(YamlMappingNode m, string key) =>
-            m.Children.TryGetValue(new YamlScalarNode(key), out var v) && !(v is YamlScalarNode s && s.Value is null or "" && s.Style == ScalarStyle.Plain) ? v : null;
+            m.Children.TryGetValue(new YamlScalarNode(key), out var v) &&
+                !(v is YamlScalarNode s && s.Value is null or "" && s.Style == ScalarStyle.Plain) ? v : null;
 
         public YamlMappingNode Mapping(YamlNode node, string what) =>
             node as YamlMappingNode ?? throw Error(node, "", $"expected {what} written as a mapping (key: value)");
@@ -418,9 +466,11 @@ public static partial class ProjectReader
             node as YamlSequenceNode ?? throw Error(node, what, "expected a list (items starting with '-')");
 
         public string Scalar(YamlNode node, string item) =>
-            node is YamlScalarNode s && s.Value is not null ? s.Value : throw Error(node, item, "expected a single value here");
+            node is YamlScalarNode s &&
+                s.Value is not null ? s.Value : throw Error(node, item, "expected a single value here");
 
-        public string? OptionalString(YamlMappingNode m, string key) => Child(m, key) is YamlNode n ? Scalar(n, key) : null;
+        public string? OptionalString(YamlMappingNode m, string key) => Child(m, key) is YamlNode n ? Scalar(n, key) :
+            null;
 
         public string RequiredString(YamlMappingNode m, string key, string item) =>
             Child(m, key) is YamlNode n ? Scalar(n, item) : throw Error(m, item, $"'{key}' is missing");
@@ -428,7 +478,8 @@ public static partial class ProjectReader
         public double Number(YamlNode node, string item)
         {
             string s = Scalar(node, item);
-            return double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && double.IsFinite(v)
+            return double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) &&
+                double.IsFinite(v)
                 ? v : throw Error(node, item, $"'{s}' is not a number");
         }
 

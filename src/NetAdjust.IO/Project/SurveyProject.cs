@@ -3,14 +3,18 @@ using NetAdjust.Network;
 
 namespace NetAdjust.IO.Project;
 
-/// <summary>A project as read from its file: the network, the declared units, the adjustment options, and the files read.</summary>
+/// <summary>A project as read from its file: the network, the declared units, the adjustment options, and the files
+/// read.</summary>
 /// <param name="Network">The network.</param>
 /// <param name="Units">The declared units.</param>
 /// <param name="Options">Adjustment options from the file.</param>
-/// <param name="InputFiles">Full paths of every file read (the project file first), so that no output overwrites one.</param>
-public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, AdjustmentOptions Options, IReadOnlyList<string> InputFiles)
+/// <param name="InputFiles">Full paths of every file read (the project file first), so that no output overwrites
+/// one.</param>
+public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, AdjustmentOptions Options,
+    IReadOnlyList<string> InputFiles)
 {
-    /// <summary>The coordinate reference system the coordinates are in, as <c>EPSG:code</c> (key <c>crs</c>); null when the project declares none (local coordinates).</summary>
+    /// <summary>The coordinate reference system the coordinates are in, as <c>EPSG:code</c> (key <c>crs</c>); null when
+    /// the project declares none (local coordinates).</summary>
     public string? Crs { get; init; }
 
     /// <summary>The survey's particulars (key <c>survey</c>), or null when the project gives none.</summary>

@@ -19,8 +19,10 @@ public static partial class Adjuster
     /// <param name="network">The network (validated on construction).</param>
     /// <param name="options">Options; null for <see cref="AdjustmentOptions.Default"/>.</param>
     /// <returns>The result.</returns>
-    /// <exception cref="InvalidInputException">When free points lack approximate coordinates or options are invalid.</exception>
-    /// <exception cref="DatumDefectException">When the observations and control leave unknowns undetermined.</exception>
+    /// <exception cref="InvalidInputException">When free points lack approximate coordinates or options are
+    /// invalid.</exception>
+    /// <exception cref="DatumDefectException">When the observations and control leave unknowns
+    /// undetermined.</exception>
     /// <exception cref="NoConvergenceException">When the iteration limit is reached.</exception>
     public static AdjustmentResult Adjust(SurveyNetwork network, AdjustmentOptions? options = null)
     {
@@ -50,8 +52,8 @@ public static partial class Adjuster
             if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
             if (round == MaxStochasticRounds)
                 throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
-                    "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and the " +
-                    "observations.");
+                    "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and " +
+                    "the observations.");
             model = next;
             weights = Weights(network, model, control, options.AprioriVarianceFactor);
         }
@@ -67,16 +69,20 @@ public static partial class Adjuster
             GlobalTest.Compute(vtpv, options.AprioriVarianceFactor, dof, options.GlobalTestAlpha));
 
         double s0 = options.AprioriVarianceFactor;
-        var points = network.Points.Select(p => AdjustedPointOf(plan.AsUsed(p), index, state, finalFactor, s0)).ToArray();
+        var points = network.Points.Select(p => AdjustedPointOf(plan.AsUsed(p), index, state, finalFactor,
+            s0)).ToArray();
         var observations = new AdjustedObservation[network.Observations.Count];
         for (int i = 0; i < observations.Length; i++)
         {
-            if (options.Progress is not null && i % 65536 == 0) options.Progress.Report(new AdjustmentProgress("statistics of the observations", 100.0 * i / observations.Length));
+            if (options.Progress is not null && i % 65536 == 0)
+                options.Progress.Report(new AdjustmentProgress("statistics of the observations",
+                    100.0 * i / observations.Length));
             var o = network.Observations[i];
             double v = -finalL[i];
             double adjusted = o.Value + v;
             if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
-            double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) : Quadratic(finalRows[i], finalFactor);
+            double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) :
+                Quadratic(finalRows[i], finalFactor);
             observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
             {
                 Budget = model.Budgets[i],
@@ -90,10 +96,12 @@ public static partial class Adjuster
             {
                 int j = index.IndexOf(s.SetId, Parameter.Orientation);
                 double sd = finalFactor is null ? 0 : Math.Sqrt(Math.Max(0, s0 * finalFactor.InverseEntry(j, j)));
-                return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)), sd);
+                return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)),
+                    sd);
             }).ToArray();
 
-        return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points, observations, orientations, stats,
+        return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points,
+            observations, orientations, stats,
             solver.Name, finalRows, weights);
     }
 
@@ -159,12 +167,16 @@ public static partial class Adjuster
             {
                 if (!double.IsFinite(lastDx[j]))
                     throw new NoConvergenceException(
-                        $"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a finite number.");
-                double tol = index.Unknowns[j].Parameter == Parameter.Orientation ? options.AngleTolerance : options.LengthTolerance;
+                        $"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a " +
+                            $"finite number.");
+                double tol = index.Unknowns[j].Parameter == Parameter.Orientation
+                    ? options.AngleTolerance
+                    : options.LengthTolerance;
                 if (Math.Abs(lastDx[j]) >= tol) converged = false;
             }
             // Step control: halve the step while vᵀPv grows (see StepControl).
-            if (StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () => weights.Quadratic(Linearise(network, index, state, control).L)) < 1)
+            if (StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () =>
+                weights.Quadratic(Linearise(network, index, state, control).L)) < 1)
                 converged = false;
         }
         return iterations;
@@ -180,7 +192,8 @@ public static partial class Adjuster
         return s;
     }
 
-    /// <summary>a Qxx aᵀ by one solve, for a row whose unknowns need not lie on the pattern of N (a set-aside observation).</summary>
+    /// <summary>a Qxx aᵀ by one solve, for a row whose unknowns need not lie on the pattern of N (a set-aside
+    /// observation).</summary>
     internal static double QuadraticBySolve(SparseRow a, INormalFactor f)
     {
         var rhs = new double[f.Size];
@@ -193,8 +206,11 @@ public static partial class Adjuster
         var worst = Enumerable.Range(0, dx.Length)
             .Where(j => index.Unknowns[j].Parameter != Parameter.Orientation)
             .OrderByDescending(j => Math.Abs(dx[j])).Take(3)
-            .Select(j => $"{index.Unknowns[j].Describe()} ({dx[j].ToString("G4", System.Globalization.CultureInfo.InvariantCulture)} m)");
-        return $"The adjustment did not converge in {options.MaxIterations} iterations. Largest last corrections: {string.Join(", ", worst)}. " +
+            .Select(j =>
+                $"{index.Unknowns[j].Describe()} " +
+                $"({dx[j].ToString("G4", System.Globalization.CultureInfo.InvariantCulture)} m)");
+        return $"The adjustment did not converge in {options.MaxIterations} iterations. Largest last corrections: " +
+            $"{string.Join(", ", worst)}. " +
                "Check the approximate coordinates of those points and the observations that reach them.";
     }
 
@@ -205,15 +221,19 @@ public static partial class Adjuster
         var rows = new List<ControlRow>();
         foreach (var p in network.Points)
         {
-            if (p.SdE is double se && index.IndexOf(p.Id, Parameter.E) >= 0) rows.Add(new(p.Id, Parameter.E, p.E!.Value, se));
-            if (p.SdN is double sn && index.IndexOf(p.Id, Parameter.N) >= 0) rows.Add(new(p.Id, Parameter.N, p.N!.Value, sn));
-            if (p.SdH is double sh && index.IndexOf(p.Id, Parameter.H) >= 0) rows.Add(new(p.Id, Parameter.H, p.H!.Value, sh));
+            if (p.SdE is double se && index.IndexOf(p.Id, Parameter.E) >= 0)
+                rows.Add(new(p.Id, Parameter.E, p.E!.Value, se));
+            if (p.SdN is double sn && index.IndexOf(p.Id, Parameter.N) >= 0)
+                rows.Add(new(p.Id, Parameter.N, p.N!.Value, sn));
+            if (p.SdH is double sh && index.IndexOf(p.Id, Parameter.H) >= 0)
+                rows.Add(new(p.Id, Parameter.H, p.H!.Value, sh));
         }
         return rows;
     }
 
     /// <summary>Rows of A and misclosures l = observed − computed at the current state.</summary>
-    private static (SparseRow[] Rows, double[] L) Linearise(SurveyNetwork network, UnknownIndex index, ParameterState state, List<ControlRow> control)
+    private static (SparseRow[] Rows, double[] L) Linearise(SurveyNetwork network, UnknownIndex index,
+        ParameterState state, List<ControlRow> control)
     {
         int m = network.Observations.Count;
         var rows = new SparseRow[m + control.Count];
@@ -246,18 +266,22 @@ public static partial class Adjuster
         return (rows, l);
     }
 
-    /// <summary>Unknowns and start values with the datum by the control (datum check and approximate coordinates included).</summary>
+    /// <summary>Unknowns and start values with the datum by the control (datum check and approximate coordinates
+    /// included).</summary>
     private static (UnknownIndex, ParameterState) Setup(SurveyNetwork network)
     {
         var plan = DatumPlan.Create(network, DatumDefinition.ByControl);
         return (plan.Index, plan.State);
     }
 
-    private static AdjustedPoint AdjustedPointOf(Point p, UnknownIndex index, ParameterState state, INormalFactor? f, double s0)
+    private static AdjustedPoint AdjustedPointOf(Point p, UnknownIndex index, ParameterState state, INormalFactor? f,
+        double s0)
     {
         double? Value(Parameter par, double? given) => state.TryGet(p.Id, par, out double v) ? v : given;
-        int ie = index.IndexOf(p.Id, Parameter.E), inn = index.IndexOf(p.Id, Parameter.N), ih = index.IndexOf(p.Id, Parameter.H);
-        double? Sd(int i, bool inAdjustment) => i >= 0 && f is not null ? Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(i, i))) : inAdjustment ? 0.0 : null;
+        int ie = index.IndexOf(p.Id, Parameter.E), inn = index.IndexOf(p.Id, Parameter.N), ih =
+            index.IndexOf(p.Id, Parameter.H);
+        double? Sd(int i, bool inAdjustment) => i >= 0 &&
+            f is not null ? Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(i, i))) : inAdjustment ? 0.0 : null;
         // A point reached only by set-aside observations is no unknown and no control: it gets no standard deviation.
         bool inPlane = state.TryGet(p.Id, Parameter.E, out _) && (ie >= 0 || inn >= 0 || p.IsFixed(Fixity.E)
             || p.IsFixed(Fixity.N));

@@ -9,14 +9,16 @@ namespace NetAdjust.Adjustment;
 /// the a-posteriori variance factor is reported beside them in <see cref="AdjustmentStatistics"/>.
 /// </summary>
 /// <param name="Input">The point as given.</param>
-/// <param name="E">Adjusted (or held) easting, m; null when the point takes no part in the plane adjustment and gave none.</param>
+/// <param name="E">Adjusted (or held) easting, m; null when the point takes no part in the plane adjustment and gave
+/// none.</param>
 /// <param name="N">Adjusted (or held) northing, m.</param>
 /// <param name="H">Adjusted (or held) height, m.</param>
 /// <param name="SdE">Standard deviation of the easting, m (0 when held; null when not adjusted).</param>
 /// <param name="SdN">Standard deviation of the northing, m.</param>
 /// <param name="SdH">Standard deviation of the height, m.</param>
 /// <param name="CovEN">Covariance of easting and northing, m² (0 when held; null when not adjusted).</param>
-public sealed record AdjustedPoint(Point Input, double? E, double? N, double? H, double? SdE, double? SdN, double? SdH, double? CovEN)
+public sealed record AdjustedPoint(Point Input, double? E, double? N, double? H, double? SdE, double? SdN, double? SdH,
+    double? CovEN)
 {
     /// <summary>The point id.</summary>
     public string Id => Input.Id;
@@ -28,7 +30,8 @@ public sealed record AdjustedPoint(Point Input, double? E, double? N, double? H,
 /// <param name="Residual">v = adjusted − observed (reduced to (−π, π] for angles).</param>
 /// <param name="SdAdjusted">Standard deviation of the adjusted value, √(a Qxx aᵀ) scaled by σ0.</param>
 /// <param name="Index">Position in the network's observation list.</param>
-public sealed record AdjustedObservation(Observation Input, double Adjusted, double Residual, double SdAdjusted, int Index)
+public sealed record AdjustedObservation(Observation Input, double Adjusted, double Residual, double SdAdjusted,
+    int Index)
 {
     /// <summary>
     /// The error budget behind the observation's standard deviation (named contributions whose root-sum-square is
@@ -40,7 +43,8 @@ public sealed record AdjustedObservation(Observation Input, double Adjusted, dou
 /// <summary>An adjusted orientation unknown of a direction set.</summary>
 /// <param name="SetId">The set id.</param>
 /// <param name="Station">The station of the set.</param>
-/// <param name="Orientation">The adjusted orientation (circle reading of grid north... as azimuth − reading), rad in [0, 2π).</param>
+/// <param name="Orientation">The adjusted orientation (circle reading of grid north... as azimuth − reading), rad in
+/// [0, 2π).</param>
 /// <param name="Sd">Its standard deviation, rad.</param>
 public sealed record AdjustedOrientation(string SetId, string Station, double Orientation, double Sd);
 
@@ -70,7 +74,8 @@ public sealed class AdjustmentResult
 {
     private readonly INormalFactor? _factor;
 
-    internal AdjustmentResult(SurveyNetwork network, AdjustmentOptions options, UnknownIndex unknowns, INormalFactor? factor,
+    internal AdjustmentResult(SurveyNetwork network, AdjustmentOptions options, UnknownIndex unknowns,
+        INormalFactor? factor,
         IReadOnlyList<AdjustedPoint> points, IReadOnlyList<AdjustedObservation> observations,
         IReadOnlyList<AdjustedOrientation> orientations, AdjustmentStatistics statistics, string solverName,
         IReadOnlyList<SparseRow> designRows, WeightMatrix weights)
@@ -80,13 +85,15 @@ public sealed class AdjustmentResult
         SolverName = solverName; DesignRows = designRows; Weights = weights;
     }
 
-    /// <summary>True when the adjustment has unknowns, so that <see cref="Cofactor"/> and <see cref="Solve"/> can be used.</summary>
+    /// <summary>True when the adjustment has unknowns, so that <see cref="Cofactor"/> and <see cref="Solve"/> can be
+    /// used.</summary>
     public bool HasFactor => _factor is not null;
 
     /// <summary>Solves N x = b with the factor of the normal matrix N at the solution, i.e. x = Qxx b.</summary>
     /// <param name="rhs">b, one entry per unknown.</param>
     /// <returns>x = Qxx b.</returns>
-    public double[] Solve(ReadOnlySpan<double> rhs) => _factor is null ? throw new InvalidOperationException("There are no unknowns.") : _factor.Solve(rhs);
+    public double[] Solve(ReadOnlySpan<double> rhs) =>
+        _factor is null ? throw new InvalidOperationException("There are no unknowns.") : _factor.Solve(rhs);
 
     /// <summary>The network adjusted.</summary>
     public SurveyNetwork Network { get; }
@@ -118,11 +125,13 @@ public sealed class AdjustmentResult
     /// </summary>
     public IReadOnlyList<SparseRow> DesignRows { get; }
 
-    /// <summary>The weight matrix P (σ0² Σ⁻¹; diagonal σ0²/σ² for uncorrelated observations) of <see cref="DesignRows"/>.</summary>
+    /// <summary>The weight matrix P (σ0² Σ⁻¹; diagonal σ0²/σ² for uncorrelated observations) of <see
+    /// cref="DesignRows"/>.</summary>
     public WeightMatrix Weights { get; }
 
     /// <summary>The cofactor Qxx(i, j) = (N⁻¹)ᵢⱼ of two unknowns (multiply by σ0² for covariance).</summary>
     /// <param name="i">Unknown index.</param>
     /// <param name="j">Unknown index.</param>
-    public double Cofactor(int i, int j) => _factor is null ? throw new InvalidOperationException("There are no unknowns.") : _factor.InverseEntry(i, j);
+    public double Cofactor(int i, int j) =>
+        _factor is null ? throw new InvalidOperationException("There are no unknowns.") : _factor.InverseEntry(i, j);
 }

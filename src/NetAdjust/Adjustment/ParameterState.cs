@@ -11,7 +11,8 @@ public sealed class ParameterState : ICoordinates
 {
     private readonly Dictionary<string, double> _e, _n, _h, _orientation;
 
-    internal ParameterState(Dictionary<string, double> e, Dictionary<string, double> n, Dictionary<string, double> h, Dictionary<string, double> orientation)
+    internal ParameterState(Dictionary<string, double> e, Dictionary<string, double> n, Dictionary<string, double> h,
+        Dictionary<string, double> orientation)
     {
         _e = e; _n = n; _h = h; _orientation = orientation;
     }

@@ -17,7 +17,8 @@ internal static class SolverChoice
     /// <summary>The solver for an adjustment.</summary>
     public static INormalEquationsSolver For(AdjustmentOptions options, SurveyNetwork network, UnknownIndex index)
     {
-        var solver = options.Solver ?? (index.Count <= DenseUnknownLimit ? new DenseNormalEquationsSolver() : new SparseNormalEquationsSolver());
+        var solver = options.Solver ??
+            (index.Count <= DenseUnknownLimit ? new DenseNormalEquationsSolver() : new SparseNormalEquationsSolver());
         return solver is IGeometryAwareSolver aware ? new WithGeometry(aware, GeometryOf(network, index)) : solver;
     }
 

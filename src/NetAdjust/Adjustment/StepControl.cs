@@ -21,7 +21,8 @@ internal static class StepControl
     /// <param name="before">vᵀPv at the current state.</param>
     /// <param name="vtpvAtState">Computes vᵀPv at the state as it is now.</param>
     /// <returns>The factor λ applied (1 for a full step).</returns>
-    public static double Apply(ParameterState state, UnknownIndex index, double[] dx, double before, Func<double> vtpvAtState)
+    public static double Apply(ParameterState state, UnknownIndex index, double[] dx, double before,
+        Func<double> vtpvAtState)
     {
         double lambda = 1;
         Move(state, index, dx, 1);

@@ -2,7 +2,8 @@ using NetAdjust.Geometry;
 
 namespace NetAdjust.Adjustment;
 
-/// <summary>One unknown parameter of the adjustment: a coordinate component of a point, or a set's orientation.</summary>
+/// <summary>One unknown parameter of the adjustment: a coordinate component of a point, or a set's
+/// orientation.</summary>
 /// <param name="Owner">The point id, or the direction set id for an orientation.</param>
 /// <param name="Parameter">Which parameter.</param>
 public readonly record struct Unknown(string Owner, Parameter Parameter)
@@ -36,7 +37,8 @@ public sealed class UnknownIndex
     /// <summary>The index of an unknown, or −1 when that parameter is held fixed or not in the adjustment.</summary>
     /// <param name="owner">Point id or set id.</param>
     /// <param name="parameter">The parameter.</param>
-    public int IndexOf(string owner, Parameter parameter) => _map.TryGetValue(new Unknown(owner, parameter), out int i) ? i : -1;
+    public int IndexOf(string owner, Parameter parameter) =>
+        _map.TryGetValue(new Unknown(owner, parameter), out int i) ? i : -1;
 
     internal void Add(Unknown u)
     {

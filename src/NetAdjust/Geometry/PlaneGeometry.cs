@@ -58,7 +58,8 @@ public static class PlaneGeometry
         ]);
     }
 
-    /// <summary>Grid azimuth t = atan2(ΔE, ΔN) in [0, 2π) and its derivatives ∂t/∂E_to = ΔN/d², ∂t/∂N_to = −ΔE/d².</summary>
+    /// <summary>Grid azimuth t = atan2(ΔE, ΔN) in [0, 2π) and its derivatives ∂t/∂E_to = ΔN/d², ∂t/∂N_to =
+    /// −ΔE/d².</summary>
     /// <param name="fromId">Id of the from point.</param>
     /// <param name="from">Coordinates of the from point.</param>
     /// <param name="toId">Id of the to point.</param>
@@ -84,7 +85,8 @@ public static class PlaneGeometry
     /// <param name="target">Coordinates of the target.</param>
     /// <param name="setId">Id of the direction set.</param>
     /// <param name="orientation">Current value of the orientation unknown (radians).</param>
-    public static EquationValue Direction(string stationId, PlanePoint station, string targetId, PlanePoint target, string setId, double orientation)
+    public static EquationValue Direction(string stationId, PlanePoint station, string targetId, PlanePoint target,
+        string setId, double orientation)
     {
         var az = Azimuth(stationId, station, targetId, target);
         var partials = new Partial[az.Partials.Length + 1];
@@ -100,7 +102,8 @@ public static class PlaneGeometry
     /// <param name="back">Coordinates of the backsight.</param>
     /// <param name="foreId">Id of the foresight.</param>
     /// <param name="fore">Coordinates of the foresight.</param>
-    public static EquationValue Angle(string atId, PlanePoint at, string backId, PlanePoint back, string foreId, PlanePoint fore)
+    public static EquationValue Angle(string atId, PlanePoint at, string backId, PlanePoint back, string foreId,
+        PlanePoint fore)
     {
         var tf = Azimuth(atId, at, foreId, fore);
         var tb = Azimuth(atId, at, backId, back);

@@ -14,7 +14,8 @@ public interface INormalEquationsSolver
     /// <param name="rows">The rows of A.</param>
     /// <param name="weights">The weight matrix P (block diagonal), one row per row of A.</param>
     /// <returns>The factor, able to solve with N and to give entries of N⁻¹.</returns>
-    /// <exception cref="SingularNormalMatrixException">When N is numerically singular; names the first failing column.</exception>
+    /// <exception cref="SingularNormalMatrixException">When N is numerically singular; names the first failing
+    /// column.</exception>
     INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights);
 }
 
@@ -35,12 +36,14 @@ public interface INormalFactor
     double InverseEntry(int i, int j);
 }
 
-/// <summary>The normal matrix is numerically singular: some unknown is not determined by the observations and constraints.</summary>
+/// <summary>The normal matrix is numerically singular: some unknown is not determined by the observations and
+/// constraints.</summary>
 public sealed class SingularNormalMatrixException : Exception
 {
     /// <summary>Creates the exception.</summary>
     /// <param name="column">The column at which the factorisation found no usable pivot.</param>
-    public SingularNormalMatrixException(int column) : base($"The normal matrix is singular at column {column}.") => Column = column;
+    public SingularNormalMatrixException(int column) : base($"The normal matrix is singular at column {column}.") =>
+        Column = column;
 
     /// <summary>The column at which the factorisation found no usable pivot.</summary>
     public int Column { get; }

@@ -37,11 +37,13 @@ public sealed class WeightMatrix
         for (int b = 0; b < blocks.Length; b++)
         {
             var blk = blocks[b];
-            if (blk.Matrix.Length != blk.Size * blk.Size) throw new ArgumentException($"weight block {b} has {blk.Matrix.Length} entries for {blk.Size} rows");
+            if (blk.Matrix.Length != blk.Size * blk.Size)
+                throw new ArgumentException($"weight block {b} has {blk.Matrix.Length} entries for {blk.Size} rows");
             for (int k = 0; k < blk.Size; k++)
             {
                 int row = blk.Rows[k];
-                if (row < 0 || row >= rowCount) throw new ArgumentException($"weight block {b} names row {row}, outside 0..{rowCount - 1}");
+                if (row < 0 || row >= rowCount)
+                    throw new ArgumentException($"weight block {b} names row {row}, outside 0..{rowCount - 1}");
                 if (_blockOfRow[row] >= 0) throw new ArgumentException($"row {row} is in two weight blocks");
                 _blockOfRow[row] = b;
                 _positionInBlock[row] = k;
@@ -59,7 +61,8 @@ public sealed class WeightMatrix
         var blocks = new WeightBlock[weights.Length];
         for (int i = 0; i < weights.Length; i++)
         {
-            if (!(weights[i] > 0) || !double.IsFinite(weights[i])) throw new ArgumentOutOfRangeException(nameof(weights), $"weight {i} must be positive and finite");
+            if (!(weights[i] > 0) || !double.IsFinite(weights[i]))
+                throw new ArgumentOutOfRangeException(nameof(weights), $"weight {i} must be positive and finite");
             blocks[i] = new WeightBlock([i], [weights[i]]);
         }
         return new WeightMatrix(weights.Length, blocks);
@@ -69,12 +72,14 @@ public sealed class WeightMatrix
     /// <param name="rowCount">The number of rows.</param>
     /// <param name="blocks">The blocks; every row in exactly one.</param>
     /// <exception cref="ArgumentException">When the blocks do not cover each row exactly once.</exception>
-    public static WeightMatrix FromBlocks(int rowCount, IEnumerable<WeightBlock> blocks) => new(rowCount, blocks.ToArray());
+    public static WeightMatrix FromBlocks(int rowCount, IEnumerable<WeightBlock> blocks) =>
+        new(rowCount, blocks.ToArray());
 
     /// <summary>
     /// The weight matrix with some rows set aside: those rows get weight zero (they stay in the matrix so row numbers
     /// keep their meaning) and the other rows of their blocks get the weight of the remaining observations alone,
-    /// (Σ_kept)⁻¹ = P_kk − P_ke P_ee⁻¹ P_ek (the Schur complement). Diagonal blocks simply lose the excluded rows' weight.
+    /// (Σ_kept)⁻¹ = P_kk − P_ke P_ee⁻¹ P_ek (the Schur complement). Diagonal blocks simply lose the excluded rows'
+    /// weight.
     /// </summary>
     /// <param name="rows">Rows to set aside (duplicates allowed).</param>
     /// <returns>A new matrix; this one when <paramref name="rows"/> is empty.</returns>
@@ -126,7 +131,10 @@ public sealed class WeightMatrix
                 if (r == c) continue;
                 double f = m[(r * n) + c];
                 if (f == 0) continue;
-                for (int j = 0; j < n; j++) { m[(r * n) + j] -= f * m[(c * n) + j]; inv[(r * n) + j] -= f * inv[(c * n) + j]; }
+                for (int j = 0; j < n; j++)
+                {
+                    m[(r * n) + j] -= f * m[(c * n) + j]; inv[(r * n) + j] -= f * inv[(c * n) + j];
+                }
             }
         }
         return inv;

@@ -22,8 +22,10 @@ namespace NetAdjust.Procedures;
 /// <param name="ChiSquareCritical">χ²(1 − α; Δr); null when Δr = 0.</param>
 /// <param name="F">The F statistic; null when Δr = 0 or r_m = 0.</param>
 /// <param name="FCritical">F(1 − α; Δr, r_m); null with <paramref name="F"/>.</param>
-/// <param name="SigmaEstimated">True when the variance factor is taken as estimated (statistics option): the F test decides.</param>
-public sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, double ChiSquare, double? ChiSquareCritical,
+/// <param name="SigmaEstimated">True when the variance factor is taken as estimated (statistics option): the F test
+/// decides.</param>
+public sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, double ChiSquare,
+    double? ChiSquareCritical,
     double? F, double? FCritical, bool SigmaEstimated = false)
 {
     /// <summary>The χ² decision (σ0 known): true when the control fits, null when there is nothing to test.</summary>
@@ -35,7 +37,8 @@ public sealed record ConstraintTest(double Alpha, int AddedConstraints, double V
     /// </summary>
     public bool? Passed => SigmaEstimated ? PassedF : PassedChiSquare;
 
-    /// <summary>The same decision by the F test (σ0 estimated from the minimally-constrained solution); null when not possible.</summary>
+    /// <summary>The same decision by the F test (σ0 estimated from the minimally-constrained solution); null when not
+    /// possible.</summary>
     public bool? PassedF => F is double f && FCritical is double c ? f <= c : null;
 }
 
@@ -52,7 +55,8 @@ public sealed record ConstraintTest(double Alpha, int AddedConstraints, double V
 /// <param name="SdE">Its standard deviation (m).</param>
 /// <param name="SdN">Its standard deviation (m).</param>
 /// <param name="SdH">Its standard deviation (m).</param>
-public sealed record ControlDiscrepancy(string Id, double? DE, double? DN, double? DH, double? SdE, double? SdN, double? SdH)
+public sealed record ControlDiscrepancy(string Id, double? DE, double? DN, double? DH, double? SdE, double? SdN,
+    double? SdH)
 {
     /// <summary>Standardised easting discrepancy d/σ_d.</summary>
     public double? WE => Standardise(DE, SdE);
@@ -64,12 +68,16 @@ public sealed record ControlDiscrepancy(string Id, double? DE, double? DN, doubl
     public double? WH => Standardise(DH, SdH);
 
     /// <summary>The largest absolute standardised discrepancy of the point; null when none can be formed.</summary>
-    public double? MaxAbsW => new[] { WE, WN, WH }.Where(w => w.HasValue).Select(w => Math.Abs(w!.Value)).DefaultIfEmpty(double.NaN).Max() is double m && !double.IsNaN(m) ? m : null;
+    public double? MaxAbsW =>
+        new[] { WE, WN, WH }.Where(w => w.HasValue).Select(w =>
+        Math.Abs(w!.Value)).DefaultIfEmpty(double.NaN).Max() is double m && !double.IsNaN(m) ? m : null;
 
-    private static double? Standardise(double? d, double? sd) => d is double x && sd is double s && s > 0 ? x / s : null;
+    private static double? Standardise(double? d, double? sd) => d is double x && sd is double s &&
+        s > 0 ? x / s : null;
 }
 
-/// <summary>The change of a point's coordinates from the minimally-constrained to the constrained solution (constrained − minimal), m.</summary>
+/// <summary>The change of a point's coordinates from the minimally-constrained to the constrained solution (constrained
+/// − minimal), m.</summary>
 /// <param name="Id">The point.</param>
 /// <param name="DE">Easting shift.</param>
 /// <param name="DN">Northing shift.</param>
@@ -87,8 +95,8 @@ public sealed record CoordinateShift(string Id, double? DE, double? DN, double? 
 /// <param name="Test">The test of the added constraints.</param>
 /// <param name="Discrepancies">Per control point, in input order.</param>
 /// <param name="Shifts">Per point, in input order.</param>
-public sealed record SequenceResult(AdjustmentResult Minimal, AdjustmentResult Constrained, string MinimalDatum, ConstraintTest Test,
-    IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts)
+public sealed record SequenceResult(AdjustmentResult Minimal, AdjustmentResult Constrained, string MinimalDatum,
+    ConstraintTest Test, IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts)
 {
     /// <summary>Per control mark and part, whether the observations can check it (<see cref="ControlTestability"/>).
     /// </summary>
@@ -128,7 +136,8 @@ public static class AdjustmentSequence
             ? new ConstraintTest(alpha, Math.Max(dr, 0), inc, inc / s2, null, null, null, estimated)
             : new ConstraintTest(alpha, dr, inc, inc / s2, ChiSquared.InvCDF(dr, 1 - alpha),
                 sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? inc / dr / (sm.Vtpv / sm.DegreesOfFreedom) : null,
-                sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? FisherSnedecor.InvCDF(dr, sm.DegreesOfFreedom, 1 - alpha) : null, estimated);
+                sm.DegreesOfFreedom > 0 && sm.Vtpv > 0 ? FisherSnedecor.InvCDF(dr, sm.DegreesOfFreedom, 1 - alpha) :
+                    null, estimated);
 
         // The variance factor of the discrepancies' standard deviations: the a-priori one, or, when it is taken as
         // estimated, that of the minimally-constrained run (the control takes no part in it), as in the statistics.
@@ -137,7 +146,8 @@ public static class AdjustmentSequence
         foreach (var p in minimal.Points)
         {
             var pt = network[p.Id]; // as given: the minimal solution reports its points without control
-            bool ce = pt.IsFixed(Fixity.E) || pt.SdE.HasValue, cn = pt.IsFixed(Fixity.N) || pt.SdN.HasValue, ch = pt.IsFixed(Fixity.H) || pt.SdH.HasValue;
+            bool ce = pt.IsFixed(Fixity.E) || pt.SdE.HasValue, cn = pt.IsFixed(Fixity.N) || pt.SdN.HasValue, ch =
+                pt.IsFixed(Fixity.H) || pt.SdH.HasValue;
             if (!ce && !cn && !ch) continue;
             (double?, double?) One(bool controlled, double? given, double? adjusted, Parameter par, double? givenSd)
             {
@@ -145,7 +155,8 @@ public static class AdjustmentSequence
                 int j = minimal.Unknowns.IndexOf(pt.Id, par);
                 double q = j >= 0 ? minimal.Cofactor(j, j) : 0;
                 double sd = Math.Sqrt(Math.Max(0, (basisFactor * q) + (givenSd is double g ? g * g : 0)));
-                // A component held by the minimal constraints has zero variance up to rounding (~1e−10 m): no standardised value.
+                // A component held by the minimal constraints has zero variance up to rounding (~1e−10 m): no
+                // standardised value.
                 return (given - adjusted, sd < HeldSd ? 0 : sd);
             }
             var (de, sde) = One(ce, pt.E, p.E, Parameter.E, pt.SdE);
@@ -163,7 +174,8 @@ public static class AdjustmentSequence
             double? D(double? x, double? y) => x is double u && y is double v ? v - u : null;
             bool inPlane = a.SdE.HasValue || b.SdE.HasValue, inHeight = a.SdH.HasValue || b.SdH.HasValue;
             if (!inPlane && !inHeight) continue;
-            shifts.Add(new CoordinateShift(a.Id, inPlane ? D(a.E, b.E) : null, inPlane ? D(a.N, b.N) : null, inHeight ? D(a.H, b.H) : null));
+            shifts.Add(new CoordinateShift(a.Id, inPlane ? D(a.E, b.E) : null, inPlane ? D(a.N, b.N) : null,
+                inHeight ? D(a.H, b.H) : null));
         }
         return new SequenceResult(minimal, constrained, minimal.Options.Datum.Describe(), test, discrepancies, shifts)
         {
@@ -171,18 +183,22 @@ public static class AdjustmentSequence
         };
     }
 
-    /// <summary>Standard deviations below this (m) are those of components held by the minimal constraints: zero.</summary>
+    /// <summary>Standard deviations below this (m) are those of components held by the minimal constraints:
+    /// zero.</summary>
     private const double HeldSd = 1e-8;
 
-    /// <summary>Inner constraints over the control points when they can fix the datum, otherwise over all points.</summary>
+    /// <summary>Inner constraints over the control points when they can fix the datum, otherwise over all
+    /// points.</summary>
     internal static DatumDefinition DefaultMinimal(SurveyNetwork network)
     {
         var planeParts = DatumDiagnosis.Parts(network, plane: true);
         var heightParts = DatumDiagnosis.Parts(network, plane: false);
         var planeIds = planeParts.SelectMany(p => p.Points).ToHashSet(StringComparer.Ordinal);
         var heightIds = heightParts.SelectMany(p => p.Points).ToHashSet(StringComparer.Ordinal);
-        var planeControl = network.Points.Where(p => planeIds.Contains(p.Id) && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue)).ToList();
-        var heightControl = network.Points.Where(p => heightIds.Contains(p.Id) && (p.IsFixed(Fixity.H) || p.SdH.HasValue)).ToList();
+        var planeControl = network.Points.Where(p => planeIds.Contains(p.Id) && (p.IsFixed(Fixity.E) ||
+            p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue)).ToList();
+        var heightControl = network.Points.Where(p => heightIds.Contains(p.Id) && (p.IsFixed(Fixity.H) ||
+            p.SdH.HasValue)).ToList();
         var fixes = ObservationKindRegistry.FixedBy(network.Observations);
         bool rotationOrScale = !fixes.HasFlag(DatumElements.Orientation) || !fixes.HasFlag(DatumElements.Scale);
         bool planeOk = planeIds.Count == 0 || planeControl.Count >= (rotationOrScale ? 2 : 1);
@@ -191,6 +207,7 @@ public static class AdjustmentSequence
         var links = new Adjustment.Approximation.ObservationIndex(network);
         if (planeControl.Any(p => !DatumPlan.IsPlaced(links, p.Id))) return DatumDefinition.Minimal();
         if (!planeOk || !heightOk) return DatumDefinition.Free();
-        return DatumDefinition.Free(planeControl.Concat(heightControl).Select(p => p.Id).Distinct(StringComparer.Ordinal).ToList());
+        return DatumDefinition.Free(planeControl.Concat(heightControl).Select(p =>
+            p.Id).Distinct(StringComparer.Ordinal).ToList());
     }
 }

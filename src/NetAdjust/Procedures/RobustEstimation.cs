@@ -10,7 +10,8 @@ public enum RobustMethod
     /// <summary>Huber (1964): weight factor min(1, c/|u|); default c = 1.5.</summary>
     Huber,
 
-    /// <summary>Danish method (Krarup &amp; Kubik): weight factor 1 for |u| ≤ c, exp(1 − (u/c)²) above; default c = 2.</summary>
+    /// <summary>Danish method (Krarup &amp; Kubik): weight factor 1 for |u| ≤ c, exp(1 − (u/c)²) above; default c =
+    /// 2.</summary>
     Danish,
 }
 
@@ -20,12 +21,16 @@ public enum RobustMethod
 /// <param name="Iterations">Re-weighting iterations made.</param>
 /// <param name="Converged">True when the weight factors settled (largest change below 0.001).</param>
 /// <param name="WeightFactors">The final weight factor of each observation (1 = full weight), in network order.</param>
-/// <param name="Standardised">The final robust standardised residual |u| (<see cref="RobustEstimation.Standardised"/>): the |w| each
-/// observation would get at full weight against the others as finally weighted (|v| / (σ √r) instead where the others leave
+/// <param name="Standardised">The final robust standardised residual |u| (<see cref="RobustEstimation.Standardised"/>):
+/// the |w| each
+/// observation would get at full weight against the others as finally weighted (|v| / (σ √r) instead where the others
+/// leave
 /// it uncontrolled), in network order (NaN when not tested).</param>
-/// <param name="Suspected">Observations whose robust standardised residual exceeds the w-test critical value, largest first.</param>
+/// <param name="Suspected">Observations whose robust standardised residual exceeds the w-test critical value, largest
+/// first.</param>
 /// <param name="Final">The last re-weighted adjustment (standard deviations inflated by 1/√factor).</param>
-public sealed record RobustEstimate(RobustMethod Method, double Tuning, int Iterations, bool Converged, IReadOnlyList<double> WeightFactors,
+public sealed record RobustEstimate(RobustMethod Method, double Tuning, int Iterations, bool Converged,
+    IReadOnlyList<double> WeightFactors,
     IReadOnlyList<double> Standardised, IReadOnlyList<int> Suspected, AdjustmentResult Final);
 
 /// <summary>
@@ -44,13 +49,16 @@ public static class RobustEstimation
     /// <param name="maxIterations">Largest number of re-weightings, ≥ 1 (default 30).</param>
     /// <exception cref="InvalidInputException">When a setting is invalid.</exception>
     /// <exception cref="AdjustmentFailedException">When an adjustment fails.</exception>
-    public static RobustEstimate Run(SurveyNetwork network, RobustMethod method, AdjustmentOptions? options = null, double? tuning = null, int maxIterations = 30)
+    public static RobustEstimate Run(SurveyNetwork network, RobustMethod method, AdjustmentOptions? options = null,
+        double? tuning = null, int maxIterations = 30)
     {
         options ??= AdjustmentOptions.Default;
         double c = tuning ?? (method == RobustMethod.Huber ? 1.5 : 2.0);
-        if (!(c > 0) || !double.IsFinite(c)) throw new InvalidInputException("the robust tuning constant must be positive");
+        if (!(c > 0) || !double.IsFinite(c))
+            throw new InvalidInputException("the robust tuning constant must be positive");
         if (maxIterations < 1) throw new InvalidInputException("the robust estimation needs at least one iteration");
-        var quick = options with { Analysis = options.Analysis with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
+        var quick = options with { Analysis = options.Analysis with { ExternalReliability =
+            ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
         network = Reweighting.WithStandardDeviations(network, quick);
         int n = network.Observations.Count;
         var f = Enumerable.Repeat(1.0, n).ToArray();
@@ -61,24 +69,31 @@ public static class RobustEstimation
         bool converged = false;
         while (true)
         {
-            var obs = network.Observations.Select((o, i) => f[i] == 1.0 ? o : Reweighting.WithSd(o, o.StandardDeviation / Math.Sqrt(f[i]))).ToArray();
+            var obs = network.Observations.Select((o, i) => f[i] == 1.0 ? o : Reweighting.WithSd(o,
+                o.StandardDeviation / Math.Sqrt(f[i]))).ToArray();
             result = Adjuster.Adjust(new SurveyNetwork(network.Name, network.Points, obs), quick);
             // u of this adjustment, so that the reported u, suspects and final result belong together
             var a = result.Analysis;
             for (int i = 0; i < n; i++)
             {
                 var t = a.Observations[i];
-                double r = Math.Max(t.Redundancy, 1e-3), v = result.Observations[i].Residual, sd = network.Observations[i].StandardDeviation;
+                double r = Math.Max(t.Redundancy, 1e-3), v = result.Observations[i].Residual, sd =
+                    network.Observations[i].StandardDeviation;
                 bool untested = t.Flag is ObservationFlag.Excluded or ObservationFlag.Uncontrolled;
-                // The weight function is driven by |v| / (σ √r) with the given σ and r of the current weighting: it keeps
-                // a blunder down-weighted once found (u, which ignores the observation's own weight, lets the weights of
-                // a direction set swing from round to round). Suspects are decided by u, the w the observation would get
+                // The weight function is driven by |v| / (σ √r) with the given σ and r of the current weighting: it
+                // keeps
+                // a blunder down-weighted once found (u, which ignores the observation's own weight, lets the weights
+                // of
+                // a direction set swing from round to round). Suspects are decided by u, the w the observation would
+                // get
                 // at full weight against the others; when the others as re-weighted leave it uncontrolled (its
                 // redundancy at full weight below the uncontrolled threshold, e.g. one of two directions of a set that
                 // are both down-weighted) u cannot test it and the driving value stands in.
                 drive[i] = untested ? double.NaN : Math.Abs(v) / (sd * Math.Sqrt(r));
                 double rFull = 1 / (1 + (((1 / r) - 1) / f[i]));
-                u[i] = untested ? double.NaN : rFull < options.Analysis.UncontrolledRedundancy ? drive[i] : Standardised(v, sd, r, f[i]);
+                u[i] =
+                    untested ? double.NaN : rFull < options.Analysis.UncontrolledRedundancy ? drive[i] : Standardised(v,
+                    sd, r, f[i]);
             }
             if (converged || it >= maxIterations) break;
             it++;
@@ -93,12 +108,14 @@ public static class RobustEstimation
             converged = change < 1e-3;
         }
         double crit = result.Analysis.WCritical;
-        var suspected = Enumerable.Range(0, n).Where(i => u[i] > crit).OrderByDescending(i => u[i]).ThenBy(i => i).ToArray();
+        var suspected = Enumerable.Range(0, n).Where(i => u[i] > crit).OrderByDescending(i => u[i]).ThenBy(i =>
+            i).ToArray();
         return new RobustEstimate(method, c, it, converged, f, u, suspected, result);
     }
 
     /// <summary>
-    /// The robust standardised residual |u| of an observation: the w-test statistic it would get at full weight, with the
+    /// The robust standardised residual |u| of an observation: the w-test statistic it would get at full weight, with
+    /// the
     /// other observations weighted as they are now. With the current weight factor f and redundancy number r
     /// (r = 1/(1 + f pᵢ hᵢ), hᵢ = aᵢ Q′ aᵢᵀ with Q′ the cofactor matrix of the others), the misclosure of the
     /// observation against the others is eᵢ = vᵢ / r, with variance σᵢ² + σ0² hᵢ = σᵢ² (1 + (1/r − 1)/f); so

@@ -8,21 +8,26 @@ namespace NetAdjust.Procedures;
 /// <param name="Kind">The observation kind of the group.</param>
 /// <param name="Count">Observations in the group (not excluded).</param>
 /// <param name="Redundancy">The group's share of the redundancy, Σ rᵢ over the group, in the final adjustment.</param>
-/// <param name="VarianceFactor">The group's variance factor against the standard deviations given: Σ vᵢ²/σᵢ² / Σ rᵢ (1 means the given σ fit).</param>
+/// <param name="VarianceFactor">The group's variance factor against the standard deviations given: Σ vᵢ²/σᵢ² / Σ rᵢ (1
+/// means the given σ fit).</param>
 /// <param name="SdScale">√ of <see cref="VarianceFactor"/>: multiply the given standard deviations by this.</param>
-/// <param name="ScaledSd">When every observation of the group had the same σ: that σ times <see cref="SdScale"/> (m or rad); else null.</param>
+/// <param name="ScaledSd">When every observation of the group had the same σ: that σ times <see cref="SdScale"/> (m or
+/// rad); else null.</param>
 /// <param name="ConstantPart">Distances with a fitted spec: the constant part a (m); else null.</param>
 /// <param name="PpmPart">Distances with a fitted spec: the proportional part b (ppm); else null.</param>
 /// <param name="Note">Why a spec was not fitted or why the estimate is weak; null when none.</param>
-public sealed record VarianceComponent(ObservationKind Kind, int Count, double Redundancy, double VarianceFactor, double SdScale,
+public sealed record VarianceComponent(ObservationKind Kind, int Count, double Redundancy, double VarianceFactor,
+    double SdScale,
     double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note);
 
 /// <summary>The outcome of a variance component estimation.</summary>
 /// <param name="Groups">One entry per observation kind present, in kind order.</param>
 /// <param name="Iterations">Iterations made.</param>
-/// <param name="Converged">True when no observation's standard deviation changed by more than 0.005% in the last iteration.</param>
+/// <param name="Converged">True when no observation's standard deviation changed by more than 0.005% in the last
+/// iteration.</param>
 /// <param name="Final">The adjustment with the re-estimated standard deviations.</param>
-public sealed record VarianceComponentEstimate(IReadOnlyList<VarianceComponent> Groups, int Iterations, bool Converged, AdjustmentResult Final);
+public sealed record VarianceComponentEstimate(IReadOnlyList<VarianceComponent> Groups, int Iterations, bool Converged,
+    AdjustmentResult Final);
 
 /// <summary>
 /// Variance component estimation per observation group by Förstner's iterative estimator (Förstner 1979; Koch 1999
@@ -54,11 +59,14 @@ public static class VarianceComponents
     /// linearly, slowly when two components are hard to tell apart, as a and b ppm often are).</param>
     /// <exception cref="InvalidInputException">When a setting is invalid.</exception>
     /// <exception cref="AdjustmentFailedException">When an adjustment fails.</exception>
-    public static VarianceComponentEstimate Estimate(SurveyNetwork network, AdjustmentOptions? options = null, bool fitDistanceSpec = true, int maxIterations = 300)
+    public static VarianceComponentEstimate Estimate(SurveyNetwork network, AdjustmentOptions? options = null,
+        bool fitDistanceSpec = true, int maxIterations = 300)
     {
         options ??= AdjustmentOptions.Default;
-        if (maxIterations < 1) throw new InvalidInputException("the variance component estimation needs at least one iteration");
-        var quick = options with { Analysis = options.Analysis with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
+        if (maxIterations < 1)
+            throw new InvalidInputException("the variance component estimation needs at least one iteration");
+        var quick = options with { Analysis = options.Analysis with { ExternalReliability =
+            ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
         network = Reweighting.WithStandardDeviations(network, quick);
         var obs = network.Observations;
         int n = obs.Count;
@@ -87,7 +95,10 @@ public static class VarianceComponents
                     fitted.Add(kind);
                     continue;
                 }
-                notes[kind] = $"no a + b ppm fit: it needs at least {MinimumDistancesForSpecFit} distances whose longest is at least {MinimumLengthRatioForSpecFit:0}× the shortest; the given standard deviations were scaled instead";
+                notes[kind] =
+                    $"no a + b ppm fit: it needs at least {MinimumDistancesForSpecFit} distances whose longest is at " +
+                    $"least {MinimumLengthRatioForSpecFit:0}× the shortest; the given standard deviations were " +
+                    $"scaled instead";
             }
             var t = new double[n];
             foreach (int i in members) t[i] = given[i];
@@ -110,7 +121,8 @@ public static class VarianceComponents
         while (true)
         {
             var s2 = Variances();
-            var net = new SurveyNetwork(network.Name, network.Points, obs.Select((o, i) => Reweighting.WithSd(o, Math.Sqrt(s2[i]))));
+            var net = new SurveyNetwork(network.Name, network.Points, obs.Select((o, i) => Reweighting.WithSd(o,
+                Math.Sqrt(s2[i]))));
             result = Adjuster.Adjust(net, quick);
             if (converged || it >= maxIterations) break;
             it++;
@@ -147,7 +159,8 @@ public static class VarianceComponents
             var members = Enumerable.Range(0, n).Where(i => obs[i].Kind == kind && !obs[i].Excluded).ToArray();
             if (members.Length == 0) continue;
             double r = members.Sum(i => fin.Observations[i].Redundancy);
-            double sumSq = members.Sum(i => result.Observations[i].Residual * result.Observations[i].Residual / given[i]);
+            double sumSq = members.Sum(i => result.Observations[i].Residual *
+                result.Observations[i].Residual / given[i]);
             double vf = r > 1e-6 ? sumSq / r : double.NaN;
             double? same = members.All(i => given[i] == given[members[0]]) ? Math.Sqrt(given[members[0]]) : null;
             double? aPart = null, bPart = null;
@@ -160,9 +173,12 @@ public static class VarianceComponents
                 bPart = Math.Sqrt(cb.Theta) * 1e6;
             }
             if (r < WeakGroupRedundancy) note = (note is null ? "" : note + "; ") + (r > 1e-6
-                ? $"the group's redundancy is only {r.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}: the estimate is weak" + WeakInterval(vf, r)
+                ? $"the group's redundancy is only " +
+                    $"{r.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}: the estimate is weak" +
+                    WeakInterval(vf, r)
                 : "the group has no redundancy: its variance factor cannot be estimated");
-            groups.Add(new VarianceComponent(kind, members.Length, r, vf, Math.Sqrt(vf), same * Math.Sqrt(vf), aPart, bPart, note));
+            groups.Add(new VarianceComponent(kind, members.Length, r, vf, Math.Sqrt(vf), same * Math.Sqrt(vf), aPart,
+                bPart, note));
         }
         return new VarianceComponentEstimate(groups, it, converged, result);
     }

@@ -38,7 +38,8 @@ internal static class GridNetworks
     /// <param name="distances">Include the distances (without them and an azimuth, scale is a defect too).</param>
     /// <param name="layout">Origin, point names and network name; null for the default layout.</param>
     public static SimulatedNetwork Grid(int seed, int side, IReadOnlyDictionary<int, Fixity> control,
-        double? approx = 0.05, bool levelling = false, bool azimuth = false, (int Index, double DE, double DN)? disturb = null,
+        double? approx = 0.05, bool levelling = false, bool azimuth = false,
+            (int Index, double DE, double DN)? disturb = null,
         double noise = 1.0, bool distances = true, Layout? layout = null)
     {
         layout ??= new Layout();

@@ -6,7 +6,8 @@ namespace NetAdjust.Simulation;
 /// <param name="Seed">The random seed.</param>
 public sealed record SyntheticNetworkSpec(SyntheticNetworkKind Kind, int Points, int Seed = 1)
 {
-    /// <summary>Nearest neighbours each point is joined to. Default 6 (plane) — about 9 observations per point.</summary>
+    /// <summary>Nearest neighbours each point is joined to. Default 6 (plane) — about 9 observations per
+    /// point.</summary>
     public int Neighbours { get; init; } = 6;
 
     /// <summary>Mean distance between neighbouring points, m. Default 300 m.</summary>

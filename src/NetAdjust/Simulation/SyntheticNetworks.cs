@@ -13,7 +13,8 @@ namespace NetAdjust.Simulation;
 /// Plane networks: per point one direction set to its <see cref="SyntheticNetworkSpec.Neighbours"/> nearest points
 /// (σ = 1″), and a distance to each of them measured once per pair (σ = 2 mm + 2 ppm); three unknowns per point
 /// (E, N, orientation), about 9 observations per point with 6 neighbours. Level networks: a height difference per
-/// neighbour pair (σ = 1 mm/√km). Every <see cref="SyntheticNetworkSpec.ControlEvery"/>-th point (at least two) is held.
+/// neighbour pair (σ = 1 mm/√km). Every <see cref="SyntheticNetworkSpec.ControlEvery"/>-th point (at least two) is
+/// held.
 /// </remarks>
 public static class SyntheticNetworks
 {
@@ -23,7 +24,8 @@ public static class SyntheticNetworks
     public static SurveyNetwork Create(SyntheticNetworkSpec spec)
     {
         if (spec.Points < 3) throw new ArgumentException("a synthetic network needs at least 3 points");
-        if (spec.Neighbours < 2 || spec.Neighbours >= spec.Points) throw new ArgumentException("neighbours must be at least 2 and fewer than the points");
+        if (spec.Neighbours < 2 || spec.Neighbours >= spec.Points)
+            throw new ArgumentException("neighbours must be at least 2 and fewer than the points");
         if (!(spec.Spacing > 0)) throw new ArgumentException("the spacing must be positive");
         if (spec.ControlEvery < 1) throw new ArgumentException("the control interval must be at least 1");
 
@@ -52,10 +54,12 @@ public static class SyntheticNetworks
             if (spec.Kind == SyntheticNetworkKind.Plane)
                 points[i] = control[i]
                     ? new Point(Id(i)) { E = Math.Round(e[i], 4), N = Math.Round(nn[i], 4), Fixed = Fixity.EN }
-                    : new Point(Id(i)) { E = Math.Round(e[i] + (Gauss() * spec.ApproximateOffset), 3), N = Math.Round(nn[i] + (Gauss() * spec.ApproximateOffset), 3) };
+                    : new Point(Id(i)) { E = Math.Round(e[i] + (Gauss() * spec.ApproximateOffset), 3),
+                        N = Math.Round(nn[i] + (Gauss() * spec.ApproximateOffset), 3) };
             else
                 points[i] = control[i]
-                    ? new Point(Id(i)) { E = Math.Round(e[i], 1), N = Math.Round(nn[i], 1), H = Math.Round(h[i], 4), Fixed = Fixity.H }
+                    ? new Point(Id(i)) { E = Math.Round(e[i], 1), N = Math.Round(nn[i], 1), H = Math.Round(h[i], 4),
+                        Fixed = Fixity.H }
                     : new Point(Id(i)) { E = Math.Round(e[i], 1), N = Math.Round(nn[i], 1) };
         }
 
@@ -71,7 +75,8 @@ public static class SyntheticNetworks
                 {
                     double az = Math.Atan2(e[j] - e[i], nn[j] - nn[i]);
                     double reading = Angle.Reduce0To2Pi(az - zero + (Gauss() * sDir));
-                    obs.Add(new DirectionObservation(Id(i), Id(j), Angle.FromRadians(Math.Round(reading, 9)), Id(i) + "/1") { StandardDeviation = sDir });
+                    obs.Add(new DirectionObservation(Id(i), Id(j), Angle.FromRadians(Math.Round(reading, 9)),
+                        Id(i) + "/1") { StandardDeviation = sDir });
                 }
             }
             foreach (int j in neighbours[i])
@@ -82,16 +87,21 @@ public static class SyntheticNetworks
                 if (spec.Kind == SyntheticNetworkKind.Plane)
                 {
                     double sd = 0.002 + (2e-6 * d);
-                    obs.Add(new DistanceObservation(Id(i), Id(j), Length.FromMetres(Math.Round(d + (Gauss() * sd), 5))) { StandardDeviation = sd });
+                    obs.Add(new DistanceObservation(Id(i), Id(j),
+                        Length.FromMetres(Math.Round(d + (Gauss() * sd), 5))) { StandardDeviation = sd });
                 }
                 else
                 {
                     double sd = 0.001 * Math.Sqrt(d / 1000.0);
-                    obs.Add(new HeightDifferenceObservation(Id(i), Id(j), Length.FromMetres(Math.Round(h[j] - h[i] + (Gauss() * sd), 6)), Length.FromMetres(Math.Round(d, 1))) { StandardDeviation = sd });
+                    obs.Add(new HeightDifferenceObservation(Id(i), Id(j),
+                        Length.FromMetres(Math.Round(h[j] - h[i] + (Gauss() * sd), 6)),
+                        Length.FromMetres(Math.Round(d, 1))) { StandardDeviation = sd });
                 }
             }
         }
-        return new SurveyNetwork(spec.Name ?? $"synthetic {spec.Kind.ToString().ToLowerInvariant()} network of {n} points (seed {spec.Seed})", points, obs);
+        return new SurveyNetwork(spec.Name ??
+            $"synthetic {spec.Kind.ToString().ToLowerInvariant()} network of {n} points (seed {spec.Seed})", points,
+            obs);
     }
 
     /// <summary>The k nearest other points of each point, by a bucket grid (O(n k) expected).</summary>
@@ -121,7 +131,8 @@ public static class SyntheticNetworks
                         for (int t = bucketStart[(gy * cols) + gx]; t < bucketStart[(gy * cols) + gx + 1]; t++)
                         {
                             int j = bucket[t];
-                            if (j != i) cand.Add((((x[j] - x[i]) * (x[j] - x[i])) + ((y[j] - y[i]) * (y[j] - y[i])), j));
+                            if (j != i)
+                                cand.Add((((x[j] - x[i]) * (x[j] - x[i])) + ((y[j] - y[i]) * (y[j] - y[i])), j));
                         }
                 // Enough candidates, and the k-th lies within the searched square's inscribed radius: exact.
                 cand.Sort();

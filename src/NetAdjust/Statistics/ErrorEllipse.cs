@@ -44,7 +44,8 @@ public readonly record struct ErrorEllipse(double A, double B, double Azimuth)
         return new ErrorEllipse(Math.Sqrt(Math.Max(0, l1)), Math.Sqrt(l2), az);
     }
 
-    /// <summary>The ellipse with both semi-axes multiplied by k (e.g. the 95% confidence ellipse from the standard one).</summary>
+    /// <summary>The ellipse with both semi-axes multiplied by k (e.g. the 95% confidence ellipse from the standard
+    /// one).</summary>
     /// <param name="k">The scale, positive.</param>
     public ErrorEllipse Scaled(double k) => new(A * k, B * k, Azimuth);
 

@@ -9,13 +9,16 @@ public enum ObservationFlag
     /// <summary>Controlled and accepted.</summary>
     None,
 
-    /// <summary>Redundancy number below <see cref="AnalysisOptions.WeakRedundancy"/>: weakly controlled, large MDB.</summary>
+    /// <summary>Redundancy number below <see cref="AnalysisOptions.WeakRedundancy"/>: weakly controlled, large
+    /// MDB.</summary>
     Weak,
 
-    /// <summary>The deciding test (w-test when the variance factor is known, tau test when estimated) rejects it: suspected blunder.</summary>
+    /// <summary>The deciding test (w-test when the variance factor is known, tau test when estimated) rejects it:
+    /// suspected blunder.</summary>
     Rejected,
 
-    /// <summary>Redundancy number below <see cref="AnalysisOptions.UncontrolledRedundancy"/>: no test is possible, a blunder would go unseen.</summary>
+    /// <summary>Redundancy number below <see cref="AnalysisOptions.UncontrolledRedundancy"/>: no test is possible, a
+    /// blunder would go unseen.</summary>
     Uncontrolled,
 
     /// <summary>Set aside by the user or a blunder hunt: no weight; its w is its standardised misclosure.</summary>
@@ -43,16 +46,20 @@ public static class ObservationFlags
 /// </summary>
 /// <param name="Index">Position in the result's observation list (or in the control list).</param>
 /// <param name="Redundancy">Redundancy number rᵢ = (Qvv P)ᵢᵢ in [0, 1]; 0 for excluded.</param>
-/// <param name="W">Standardised residual wᵢ (Baarda); for an excluded observation its standardised misclosure; null when uncontrolled.</param>
+/// <param name="W">Standardised residual wᵢ (Baarda); for an excluded observation its standardised misclosure; null
+/// when uncontrolled.</param>
 /// <param name="Tau">Pope's τᵢ = wᵢ σ0/σ̂0; null when uncontrolled, excluded or r = 0.</param>
 /// <param name="Mdb">Minimal detectable bias (m or rad); null when uncontrolled or excluded.</param>
-/// <param name="ExternalReliability">Largest coordinate shift (m) an undetected MDB would cause; null when not computed.</param>
+/// <param name="ExternalReliability">Largest coordinate shift (m) an undetected MDB would cause; null when not
+/// computed.</param>
 /// <param name="ExternalReliabilityPoint">The point that shift falls on; null when not computed.</param>
-/// <param name="BiasToNoiseRatio">λ̄ᵢ = δ0 √((1 − rᵢ)/rᵢ): the effect of an MDB on any estimated quantity, in its standard deviations.</param>
+/// <param name="BiasToNoiseRatio">λ̄ᵢ = δ0 √((1 − rᵢ)/rᵢ): the effect of an MDB on any estimated quantity, in its
+/// standard deviations.</param>
 /// <param name="WPassed">The w-test outcome; null when not possible.</param>
 /// <param name="TauPassed">The tau-test outcome; null when not possible.</param>
 /// <param name="Flag">The summary flag.</param>
-public sealed record ObservationTest(int Index, double Redundancy, double? W, double? Tau, double? Mdb, double? ExternalReliability,
+public sealed record ObservationTest(int Index, double Redundancy, double? W, double? Tau, double? Mdb,
+    double? ExternalReliability,
     string? ExternalReliabilityPoint, double? BiasToNoiseRatio, bool? WPassed, bool? TauPassed, ObservationFlag Flag);
 
 /// <summary>A weighted-control component treated as an observation, with its test.</summary>
@@ -65,10 +72,12 @@ public sealed record ControlTest(string PointId, string Component, double Residu
 /// <summary>The precision of one adjusted point.</summary>
 /// <param name="Id">The point id.</param>
 /// <param name="Ellipse">The standard error ellipse (m); null when the point has no adjusted plane coordinates.</param>
-/// <param name="Confidence">The confidence ellipse (the standard one scaled by <see cref="NetworkAnalysis.EllipseScale"/>); null likewise.</param>
+/// <param name="Confidence">The confidence ellipse (the standard one scaled by <see
+/// cref="NetworkAnalysis.EllipseScale"/>); null likewise.</param>
 /// <param name="SdHeight">Standard deviation of the height (m); null when the height is not adjusted.</param>
 /// <param name="HeightConfidence">Half-width of the height confidence interval (m); null likewise.</param>
-public sealed record PointPrecision(string Id, ErrorEllipse? Ellipse, ErrorEllipse? Confidence, double? SdHeight, double? HeightConfidence);
+public sealed record PointPrecision(string Id, ErrorEllipse? Ellipse, ErrorEllipse? Confidence, double? SdHeight,
+    double? HeightConfidence);
 
 /// <summary>The relative precision of two points: the ellipse of the coordinate difference (to − from).</summary>
 /// <param name="From">First point.</param>
@@ -79,10 +88,12 @@ public sealed record PointPrecision(string Id, ErrorEllipse? Ellipse, ErrorEllip
 /// <param name="SdDistance">Standard deviation of that distance (m).</param>
 /// <param name="SdAzimuth">Standard deviation of the azimuth from → to (rad).</param>
 /// <param name="Observed">True when the pair is joined by an observation; false when listed by the user.</param>
-public sealed record RelativePrecision(string From, string To, ErrorEllipse Ellipse, ErrorEllipse Confidence, double Distance,
+public sealed record RelativePrecision(string From, string To, ErrorEllipse Ellipse, ErrorEllipse Confidence,
+    double Distance,
     double SdDistance, double SdAzimuth, bool Observed)
 {
-    /// <summary>Relative distance precision as the denominator of 1 : k (distance / its standard deviation); infinite when exact.</summary>
+    /// <summary>Relative distance precision as the denominator of 1 : k (distance / its standard deviation); infinite
+    /// when exact.</summary>
     public double Ratio => SdDistance > 0 ? Distance / SdDistance : double.PositiveInfinity;
 }
 
@@ -93,7 +104,8 @@ public sealed record RelativePrecision(string From, string To, ErrorEllipse Elli
 /// <param name="SdDifference">Its standard deviation (m).</param>
 /// <param name="Confidence">Half-width of its confidence interval (m).</param>
 /// <param name="Observed">True when the pair is joined by a height difference; false when listed by the user.</param>
-public sealed record RelativeHeightPrecision(string From, string To, double Difference, double SdDifference, double Confidence, bool Observed);
+public sealed record RelativeHeightPrecision(string From, string To, double Difference, double SdDifference,
+    double Confidence, bool Observed);
 
 /// <summary>
 /// The statistics of one adjustment (see docs/methods.md): observation tests and reliability, absolute and relative
@@ -140,7 +152,8 @@ public sealed record NetworkAnalysis
     /// <summary>Relative precision of observed pairs (first appearance order) then user-listed pairs.</summary>
     public required IReadOnlyList<RelativePrecision> Relative { get; init; }
 
-    /// <summary>Relative height precision of pairs joined by a height difference (first appearance order) then user-listed pairs with heights.</summary>
+    /// <summary>Relative height precision of pairs joined by a height difference (first appearance order) then
+    /// user-listed pairs with heights.</summary>
     public IReadOnlyList<RelativeHeightPrecision> RelativeHeights { get; init; } = [];
 
     /// <summary>Σ rᵢ over all weighted rows (equals the degrees of freedom up to rounding).</summary>

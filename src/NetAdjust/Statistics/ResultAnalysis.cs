@@ -21,7 +21,8 @@ public static class ResultAnalysis
     /// <param name="result">The adjustment result.</param>
     /// <param name="options">The options; null for <see cref="AnalysisOptions.Default"/>.</param>
     /// <returns>The analysis.</returns>
-    /// <exception cref="InvalidInputException">When an option is out of range or a listed pair names an unknown point.</exception>
+    /// <exception cref="InvalidInputException">When an option is out of range or a listed pair names an unknown
+    /// point.</exception>
     public static NetworkAnalysis Analyse(AdjustmentResult result, AnalysisOptions? options = null)
     {
         options ??= AnalysisOptions.Default;
@@ -42,7 +43,8 @@ public static class ResultAnalysis
         int m = rows.Count, nObs = result.Observations.Count;
         var control = ControlComponents(result);
         if (nObs + control.Count != m)
-            throw new InvalidOperationException($"the result has {m} design rows for {nObs} observations and {control.Count} control components");
+            throw new InvalidOperationException(
+                $"the result has {m} design rows for {nObs} observations and {control.Count} control components");
         var v = new double[m];
         for (int i = 0; i < nObs; i++) v[i] = result.Observations[i].Residual;
         for (int k = 0; k < control.Count; k++) v[nObs + k] = control[k].Residual;
@@ -64,7 +66,8 @@ public static class ResultAnalysis
         var weighted = new bool[m];
         foreach (var blk in weights.Blocks)
         {
-            var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)).ToArray();
+            var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a,
+                b] != 0)).ToArray();
             int k = kept.Length;
             if (k == 0) continue;
             var pk = new double[k, k];
@@ -111,11 +114,13 @@ public static class ResultAnalysis
                 double aqa = hasFactor ? rows[row].Dot(result.Solve(Dense(rows[row], result.Unknowns.Count))) : 0;
                 double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
                 double? wx = denom > 0 ? v[row] / denom : null;
-                return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null, ObservationFlag.Excluded);
+                return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null,
+                    ObservationFlag.Excluded);
             }
             double ri = Math.Clamp(red[row], 0, 1);
             if (ri < options.UncontrolledRedundancy || !(pqp[row] > 0))
-                return new ObservationTest(index, ri, null, null, null, null, null, null, null, null, ObservationFlag.Uncontrolled);
+                return new ObservationTest(index, ri, null, null, null, null, null, null, null, null,
+                    ObservationFlag.Uncontrolled);
             double w = pv[row] / (Math.Sqrt(s0sq) * Math.Sqrt(pqp[row]));
             double? tau = sigmaHat is double s ? pv[row] / (s * Math.Sqrt(pqp[row])) : null;
             double mdb = delta0 * Math.Sqrt(s0sq) / Math.Sqrt(pqp[row]);
@@ -123,7 +128,9 @@ public static class ResultAnalysis
             bool wPassed = Math.Abs(w) <= wCrit;
             bool? tauPassed = tau is double t && tauCrit is double tc ? Math.Abs(t) <= tc : null;
             bool rejected = basis == VarianceFactorBasis.Known ? !wPassed : tauPassed == false;
-            var flag = rejected ? ObservationFlag.Rejected : ri < options.WeakRedundancy ? ObservationFlag.Weak : ObservationFlag.None;
+            var flag = rejected ? ObservationFlag.Rejected
+                : ri < options.WeakRedundancy ? ObservationFlag.Weak
+                : ObservationFlag.None;
             double? ext = null; string? extPoint = null;
             if (external) (ext, extPoint) = ExternalShift(result, rows, weights, row, mdb, pointCols);
             return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag);
@@ -137,7 +144,8 @@ public static class ResultAnalysis
         }
         var controlTests = new ControlTest[control.Count];
         for (int k = 0; k < control.Count; k++)
-            controlTests[k] = new ControlTest(control[k].PointId, control[k].Component, control[k].Residual, TestRow(nObs + k, k, false, control[k].Sd));
+            controlTests[k] = new ControlTest(control[k].PointId, control[k].Component, control[k].Residual,
+                TestRow(nObs + k, k, false, control[k].Sd));
 
         double kEllipse = CriticalValues.Ellipse(options.ConfidenceLevel, basis, Math.Max(1, dof));
         double kInterval = CriticalValues.Interval(options.ConfidenceLevel, basis, Math.Max(1, dof));
@@ -165,15 +173,19 @@ public static class ResultAnalysis
         for (int i = 0; i < m; i++) if (weighted[i]) sumR += red[i];
         return new NetworkAnalysis
         {
-            Options = options, Basis = basis, VarianceFactor = vf, WCritical = wCrit, Delta0 = delta0, TauCritical = tauCrit,
+            Options = options, Basis = basis, VarianceFactor = vf, WCritical = wCrit, Delta0 = delta0, TauCritical =
+                tauCrit,
             EllipseScale = kEllipse, IntervalScale = kInterval, ExternalReliabilityComputed = external,
-            Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RelativeHeights = relativeHeights,
+            Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RelativeHeights =
+                relativeHeights,
             RedundancySum = sumR,
         };
     }
 
-    /// <summary>∇x = Qxx Aᵀ P eᵢ ∇ᵢ by one solve; the largest point shift (horizontal or height) and its point.</summary>
-    private static (double?, string?) ExternalShift(AdjustmentResult result, IReadOnlyList<SparseRow> rows, WeightMatrix weights, int row,
+    /// <summary>∇x = Qxx Aᵀ P eᵢ ∇ᵢ by one solve; the largest point shift (horizontal or height) and its
+    /// point.</summary>
+    private static (double?, string?) ExternalShift(AdjustmentResult result, IReadOnlyList<SparseRow> rows,
+        WeightMatrix weights, int row,
         double bias, Dictionary<string, (int E, int N, int H)> pointCols)
     {
         var rhs = new double[result.Unknowns.Count];
@@ -208,27 +220,33 @@ public static class ResultAnalysis
     {
         var d = new Dictionary<string, (int, int, int)>(StringComparer.Ordinal);
         foreach (var p in result.Points)
-            d[p.Id] = (result.Unknowns.IndexOf(p.Id, Parameter.E), result.Unknowns.IndexOf(p.Id, Parameter.N), result.Unknowns.IndexOf(p.Id, Parameter.H));
+            d[p.Id] = (result.Unknowns.IndexOf(p.Id, Parameter.E), result.Unknowns.IndexOf(p.Id, Parameter.N),
+                result.Unknowns.IndexOf(p.Id, Parameter.H));
         return d;
     }
 
     private sealed record ControlComponent(string PointId, string Component, double Residual, double Sd);
 
-    /// <summary>The weighted-control rows in the adjuster's order (each point in input order: E, N, H when weighted and free).</summary>
+    /// <summary>The weighted-control rows in the adjuster's order (each point in input order: E, N, H when weighted and
+    /// free).</summary>
     private static List<ControlComponent> ControlComponents(AdjustmentResult result)
     {
         var list = new List<ControlComponent>();
         foreach (var ap in result.Points)
         {
             var p = ap.Input;
-            if (p.SdE is double se && result.Unknowns.IndexOf(p.Id, Parameter.E) >= 0) list.Add(new(p.Id, "e", ap.E!.Value - p.E!.Value, se));
-            if (p.SdN is double sn && result.Unknowns.IndexOf(p.Id, Parameter.N) >= 0) list.Add(new(p.Id, "n", ap.N!.Value - p.N!.Value, sn));
-            if (p.SdH is double sv && result.Unknowns.IndexOf(p.Id, Parameter.H) >= 0) list.Add(new(p.Id, "h", ap.H!.Value - p.H!.Value, sv));
+            if (p.SdE is double se && result.Unknowns.IndexOf(p.Id, Parameter.E) >= 0)
+                list.Add(new(p.Id, "e", ap.E!.Value - p.E!.Value, se));
+            if (p.SdN is double sn && result.Unknowns.IndexOf(p.Id, Parameter.N) >= 0)
+                list.Add(new(p.Id, "n", ap.N!.Value - p.N!.Value, sn));
+            if (p.SdH is double sv && result.Unknowns.IndexOf(p.Id, Parameter.H) >= 0)
+                list.Add(new(p.Id, "h", ap.H!.Value - p.H!.Value, sv));
         }
         return list;
     }
 
-    private static List<RelativePrecision> Relative(AdjustmentResult result, AnalysisOptions options, double vf, double k,
+    private static List<RelativePrecision> Relative(AdjustmentResult result, AnalysisOptions options, double vf,
+        double k,
         Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
     {
         var network = result.Network;
@@ -251,7 +269,9 @@ public static class ResultAnalysis
         foreach (var (a, b) in options.RelativePairs)
         {
             foreach (var id in new[] { a, b })
-                if (!network.Contains(id)) throw new InvalidInputException($"the relative-precision pair {a}–{b} names point {id}, which is not in the network");
+                if (!network.Contains(id))
+                    throw new InvalidInputException(
+                        $"the relative-precision pair {a}–{b} names point {id}, which is not in the network");
             Add(a, b, false);
         }
 
@@ -265,7 +285,8 @@ public static class ResultAnalysis
             {
                 if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
                 foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
-                    if (result.Unknowns.Unknowns[c].Parameter != Parameter.Orientation) owners.Add(result.Unknowns.Unknowns[c].Owner);
+                    if (result.Unknowns.Unknowns[c].Parameter != Parameter.Orientation)
+                        owners.Add(result.Unknowns.Unknowns[c].Owner);
             }
             foreach (var x in owners) foreach (var y in owners) onPattern.Add((x, y));
         }
@@ -275,7 +296,8 @@ public static class ResultAnalysis
         foreach (var (from, to, observed) in pairs)
         {
             var pa = byId[from]; var pb = byId[to];
-            if (pa.E is null || pa.N is null || pb.E is null || pb.N is null || pa.SdE is null || pb.SdE is null) continue;
+            if (pa.E is null || pa.N is null || pb.E is null || pb.N is null || pa.SdE is null || pb.SdE is null)
+                continue;
             var ca = cols[from]; var cb = cols[to];
             int[] ia = [ca.E, ca.N], ib = [cb.E, cb.N];
             if (ia.All(c => c < 0) && ib.All(c => c < 0)) continue; // both held: nothing to report
@@ -318,7 +340,8 @@ public static class ResultAnalysis
         return list;
     }
 
-    private static List<RelativeHeightPrecision> RelativeHeights(AdjustmentResult result, AnalysisOptions options, double vf, double k,
+    private static List<RelativeHeightPrecision> RelativeHeights(AdjustmentResult result, AnalysisOptions options,
+        double vf, double k,
         Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
     {
         var pairs = new List<(string From, string To, bool Observed)>();
@@ -341,7 +364,8 @@ public static class ResultAnalysis
             for (int a = 0; a < blk.Size; a++)
             {
                 if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
-                hs.AddRange(result.DesignRows[blk.Rows[a]].Columns.Where(c => result.Unknowns.Unknowns[c].Parameter == Parameter.H));
+                hs.AddRange(result.DesignRows[blk.Rows[a]].Columns.Where(c =>
+                    result.Unknowns.Unknowns[c].Parameter == Parameter.H));
             }
             foreach (int x in hs) foreach (int y in hs) onPattern.Add((x, y));
         }
@@ -355,7 +379,8 @@ public static class ResultAnalysis
             if (ia < 0 && ib < 0) continue;
             double cross = 0;
             if (ia >= 0 && ib >= 0)
-                cross = onPattern.Contains((ia, ib)) ? q(ia, ib) : result.Solve(UnitVector(ib, result.Unknowns.Count))[ia];
+                cross = onPattern.Contains((ia, ib)) ? q(ia, ib) :
+                    result.Solve(UnitVector(ib, result.Unknowns.Count))[ia];
             double var = vf * ((ia >= 0 ? q(ia, ia) : 0) + (ib >= 0 ? q(ib, ib) : 0) - (2 * cross));
             double sd = Math.Sqrt(Math.Max(0, var));
             list.Add(new RelativeHeightPrecision(from, to, pb.H.Value - pa.H.Value, sd, k * sd, observed));
@@ -382,7 +407,10 @@ public static class ResultAnalysis
             for (int r = c + 1; r < n; r++) if (Math.Abs(m[r, c]) > Math.Abs(m[p, c])) p = r;
             if (m[p, c] == 0) throw new InvalidOperationException("a weight block is singular");
             if (p != c)
-                for (int j = 0; j < n; j++) { (m[p, j], m[c, j]) = (m[c, j], m[p, j]); (inv[p, j], inv[c, j]) = (inv[c, j], inv[p, j]); }
+                for (int j = 0; j < n; j++)
+                {
+                    (m[p, j], m[c, j]) = (m[c, j], m[p, j]); (inv[p, j], inv[c, j]) = (inv[c, j], inv[p, j]);
+                }
             double piv = m[c, c];
             for (int j = 0; j < n; j++) { m[c, j] /= piv; inv[c, j] /= piv; }
             for (int r = 0; r < n; r++)

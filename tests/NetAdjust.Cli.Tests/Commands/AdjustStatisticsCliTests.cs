@@ -13,10 +13,12 @@ public class AdjustStatisticsCliTests
         try
         {
             string json = Path.Combine(dir, "r.json");
-            var (code, text, err) = CliHarness.Run("adjust", CliHarness.DataFile("harrowfield-blunder.yaml"), "--date", "2026-12-01",
+            var (code, text, err) =
+                CliHarness.Run("adjust", CliHarness.DataFile("harrowfield-blunder.yaml"), "--date", "2026-12-01",
                 "--snoop", "--robust", "danish", "--components", "--json", json);
             Assert.True(code == 0, err);
-            foreach (var section in new[] { "TESTS OF THE OBSERVATIONS", "ERROR ELLIPSES", "RELATIVE ERROR ELLIPSES", "BLUNDER HUNT", "ROBUST ESTIMATION", "VARIANCE COMPONENTS" })
+            foreach (var section in new[] { "TESTS OF THE OBSERVATIONS", "ERROR ELLIPSES", "RELATIVE ERROR ELLIPSES",
+                "BLUNDER HUNT", "ROBUST ESTIMATION", "VARIANCE COMPONENTS" })
                 Assert.Contains(section, text);
 
             using var doc = JsonDocument.Parse(File.ReadAllText(json));
@@ -34,23 +36,28 @@ public class AdjustStatisticsCliTests
             foreach (var p in root.GetProperty("points").EnumerateArray())
             {
                 var e = p.GetProperty("ellipse");
-                foreach (var key in new[] { "a", "b", "azimuth", "a95", "b95" }) Assert.True(e.TryGetProperty(key, out _));
+                foreach (var key in new[] { "a", "b", "azimuth", "a95", "b95" })
+                    Assert.True(e.TryGetProperty(key, out _));
                 Assert.InRange(e.GetProperty("azimuth").GetDouble(), 0, 180);
             }
             var rel = root.GetProperty("relative");
-            Assert.Contains(rel.EnumerateArray(), r => r.GetProperty("from").GetString() == "H1" && r.GetProperty("to").GetString() == "H4");
+            Assert.Contains(rel.EnumerateArray(), r => r.GetProperty("from").GetString() == "H1" &&
+                r.GetProperty("to").GetString() == "H4");
             foreach (var r in rel.EnumerateArray())
-                foreach (var key in new[] { "from", "to", "a", "b", "azimuth", "a95", "b95", "distance", "sd_distance" })
+                foreach (var key in new[] { "from", "to", "a", "b", "azimuth", "a95", "b95", "distance",
+                    "sd_distance" })
                     Assert.True(r.TryGetProperty(key, out _));
             Assert.Equal("known", root.GetProperty("testing").GetProperty("variance_factor_basis").GetString());
-            Assert.Contains(root.GetProperty("robust").GetProperty("suspected").EnumerateArray(), x => x.GetInt32() == 25);
+            Assert.Contains(root.GetProperty("robust").GetProperty("suspected").EnumerateArray(), x =>
+                x.GetInt32() == 25);
         }
         finally { Directory.Delete(dir, true); }
     }
 
     [Theory]
     [InlineData("--robust", "median", "--robust: 'median' is not a robust method: use huber or danish")]
-    [InlineData("--variance-factor", "guessed", "--variance-factor: 'guessed' is not a variance-factor basis: use known")]
+    [InlineData("--variance-factor", "guessed",
+        "--variance-factor: 'guessed' is not a variance-factor basis: use known")]
     [InlineData("--snoop-limit", "0", "--snoop-limit 0 must be at least 1")]
     public void BadStatisticsOptionsAreInvalidInput(string option, string value, string message)
     {
@@ -62,7 +69,9 @@ public class AdjustStatisticsCliTests
     [Fact]
     public void EstimatedVarianceFactorSwitchesToTheTauTestAndTheFScale()
     {
-        var (code, text, _) = CliHarness.Run("adjust", CliHarness.DataFile("harrowfield-blunder.yaml"), "--date", "2026-12-01", "--variance-factor", "estimated");
+        var (code, text, _) =
+            CliHarness.Run("adjust", CliHarness.DataFile("harrowfield-blunder.yaml"), "--date", "2026-12-01",
+            "--variance-factor", "estimated");
         Assert.Equal(0, code);
         Assert.Contains("Deciding test: tau test (Pope)", text);
         Assert.Contains("sqrt(2 F(2, 15))", text);

@@ -37,7 +37,8 @@ public sealed class FuzzTests : IDisposable
          "adjustment: {tolerance: 1e-12}", "\t"];
 
     private static readonly char[] Chars =
-        [':', '{', '}', '[', ']', '-', '#', '\t', '"', '\'', ',', ' ', 'x', '0', '9', '.', '*', '&', '!', '|', '>', '%', '@', '\u00e9', '\r', '\n', '\0'];
+        [':', '{', '}', '[', ']', '-', '#', '\t', '"', '\'', ',', ' ', 'x', '0', '9', '.', '*', '&', '!', '|', '>', '%',
+            '@', '\u00e9', '\r', '\n', '\0'];
 
     private readonly string _tmp = Directory.CreateTempSubdirectory("netadjust-fuzz-").FullName;
 

@@ -1,6 +1,7 @@
 namespace NetAdjust.Cli.Tests.Commands;
 
-/// <summary>Review regression: a non-numeric --snoop-limit is a usage error with a plain message (docs/cli.md).</summary>
+/// <summary>Review regression: a non-numeric --snoop-limit is a usage error with a plain message
+/// (docs/cli.md).</summary>
 public class OptionValueTests
 {
     [Theory]
@@ -20,7 +21,8 @@ public class OptionValueTests
     public void AWholeSnoopLimitStillWorksAndTheDefaultIsTen()
     {
         string demo = CliHarness.DataFile("harrowfield-blunder.yaml");
-        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--snoop-limit", "1", "--date", "2026-12-01");
+        var (code, stdout, stderr) =
+            CliHarness.Run("adjust", demo, "--snoop", "--snoop-limit", "1", "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Contains("BLUNDER HUNT", stdout);
         (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--date", "2026-12-01");

@@ -9,7 +9,8 @@ public sealed class OptionalAnalysisFailureTests : IDisposable
 
     public void Dispose() => Directory.Delete(_tmp, recursive: true);
 
-    // Test data only: a grossly inconsistent network (the free points' approximate coordinates are hundreds of metres off
+    // Test data only: a grossly inconsistent network (the free points' approximate coordinates are hundreds of metres
+    // off
     // what the observations say). The ordinary adjustment converges (with a failed global test); the re-adjustments
     // of the variance component estimation, from the same approximate coordinates, do not.
     private const string Inconsistent = """
@@ -54,7 +55,8 @@ public sealed class OptionalAnalysisFailureTests : IDisposable
         Assert.Contains("FAILED", stdout); // the global test: a result, not an error
         (code, stdout, stderr) = CliHarness.Run("adjust", f, "--components", "--date", "2026-12-01");
         Assert.True(code == ExitCodes.AdjustmentFailed,
-            "the re-adjustments of this test network were expected not to converge; if the solver now copes, this test needs another failing case");
+            "the re-adjustments of this test network were expected not to converge; if the solver now copes, this " +
+                "test needs another failing case");
         Assert.Equal("", stdout);
         Assert.Contains("--components", stderr);
         Assert.Contains("variance component estimation", stderr);

@@ -37,7 +37,9 @@ public sealed class OutputAtomicityTests : IDisposable
         string csv = Path.Combine(_tmp, "earlier.csv"), json = Path.Combine(_tmp, "earlier.json");
         File.WriteAllText(csv, "earlier csv\n");
         File.WriteAllText(json, "earlier json\n");
-        var (code, _, stderr) = CliHarness.Run("adjust", Demo, "--json", json, "--csv", csv, "--html", Path.Combine(_tmp, "no-such-folder", "r.html"),
+        var (code, _, stderr) =
+            CliHarness.Run("adjust", Demo, "--json", json, "--csv", csv, "--html",
+            Path.Combine(_tmp, "no-such-folder", "r.html"),
             "--date", "2026-12-01");
         Assert.Equal(ExitCodes.OutputFailed, code);
         Assert.Contains("cannot write", stderr);
@@ -51,7 +53,8 @@ public sealed class OutputAtomicityTests : IDisposable
     {
         string json = Path.Combine(_tmp, "r.json"), report = Path.Combine(_tmp, "r.txt");
         File.WriteAllText(json, "earlier\n");
-        var (code, stdout, stderr) = CliHarness.Run("adjust", Demo, "--json", json, "--report", report, "--date", "2026-12-01");
+        var (code, stdout, stderr) =
+            CliHarness.Run("adjust", Demo, "--json", json, "--report", report, "--date", "2026-12-01");
         Assert.True(code == ExitCodes.Success, stderr);
         Assert.Equal("", stdout);
         Assert.StartsWith("{", File.ReadAllText(json));

@@ -144,7 +144,8 @@ public class DemoScenarioTests
     };
 
     private static void Within(double misfit, double expected, double sd) =>
-        Assert.True(Math.Abs(misfit - expected) <= 4.5 * sd, $"misfit {misfit} not within 4.5 sigma ({sd}) of {expected}");
+        Assert.True(Math.Abs(misfit - expected) <= 4.5 * sd,
+            $"misfit {misfit} not within 4.5 sigma ({sd}) of {expected}");
 
     /// <summary>Masks numbers and the generator's name, which differ between draws and generators.</summary>
     private static string Mask(string text) => Regex.Replace(

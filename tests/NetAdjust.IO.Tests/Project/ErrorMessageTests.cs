@@ -49,7 +49,8 @@ public class ErrorMessageTests
                 distances:
                   - {to: B, value: 99, {{mark}}}
             """;
-        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(), File.ReadAllText));
+        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(),
+            File.ReadAllText));
         Assert.StartsWith("p.yaml:9: distance A→B: ", e.Message);
         Assert.Contains(problem, e.Message);
         Assert.Equal(1, CountOf(e.Message, "p.yaml"));
@@ -58,12 +59,15 @@ public class ErrorMessageTests
     [Theory]
     [InlineData("units: {length: m, angle: dms}\npoints:\n  - {id: A, e: 1, n: 2\n  - {id: B, e: 3, n: 4}\n", 3)]
     [InlineData("units: {length: m, angle: dms\npoints:\n  - {id: A, e: 1, n: 2}\n", 1)]
-    [InlineData("project: 'a {b' # [c\nunits: {length: m, angle: dms}\npoints:\n  - {id: A, e: 1, n: 2\n  - {id: B, e: 3, n: 4}\n", 4)]
+    [InlineData(
+        "project: 'a {b' # [c\nunits: {length: m, angle: dms}\npoints:\n  - {id: A, e: 1, n: 2\n  - {id: B, e: 3, n: " +
+        "4}\n", 4)]
     public void AnUnclosedBraceIsInvalidInputNamingTheLineNotAnInternalError(string yaml, int line)
     {
         // Regression: YamlDotNet throws InvalidOperationException (not YamlException) for an unclosed flow mapping,
         // which reached the user as "internal error" (exit 70). A missing '}' is the commonest typo in this format.
-        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(), File.ReadAllText));
+        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(),
+            File.ReadAllText));
         Assert.Equal(line, e.Line);
         Assert.StartsWith($"p.yaml:{line}: this is not valid YAML", e.Message);
     }
@@ -71,7 +75,9 @@ public class ErrorMessageTests
     private static int CountOf(string text, string part)
     {
         int n = 0;
-        for (int i = text.IndexOf(part, StringComparison.Ordinal); i >= 0; i = text.IndexOf(part, i + part.Length, StringComparison.Ordinal)) n++;
+        for (int i = text.IndexOf(part, StringComparison.Ordinal); i >= 0; i =
+            text.IndexOf(part, i + part.Length, StringComparison.Ordinal))
+            n++;
         return n;
     }
 }

@@ -89,12 +89,14 @@ public class StatisticsInputTests
     }
 
     [Theory]
-    [InlineData("{to: B, value: 100.001, exclude: maybe}", 11, "exclude: 'maybe' is not true or false: use true or false")]
+    [InlineData("{to: B, value: 100.001, exclude: maybe}", 11,
+        "exclude: 'maybe' is not true or false: use true or false")]
     [InlineData("{to: B, value: 100.001, sd_factor: -1}", 11, "sd_factor must be positive")]
     [InlineData("{to: B, value: 100.001, sd_factor: x}", 11, "sd_factor 'x' is not a number")]
     public void BadMarksNameFileLineAndItem(string item, int line, string message)
     {
-        var e = Assert.Throws<ProjectFileException>(() => Parse(Head + $"\nsetups:\n  - at: A\n    distances:\n      - {item}\n"));
+        var e = Assert.Throws<ProjectFileException>(() => Parse(Head +
+            $"\nsetups:\n  - at: A\n    distances:\n      - {item}\n"));
         Assert.Equal("t.yaml", e.File);
         Assert.Equal(line, e.Line);
         Assert.Contains("A→B", e.Item);
@@ -104,7 +106,8 @@ public class StatisticsInputTests
     [Fact]
     public void BadCsvMarkNamesTheLine()
     {
-        var e = Assert.Throws<ProjectFileException>(() => Parse(Head + "\nfiles: [obs.csv]\n", "kind,from,to,value,sd_factor\ndistance,A,B,100,0\n"));
+        var e = Assert.Throws<ProjectFileException>(() => Parse(Head + "\nfiles: [obs.csv]\n",
+            "kind,from,to,value,sd_factor\ndistance,A,B,100,0\n"));
         Assert.Equal(2, e.Line);
         Assert.Equal("obs.csv", e.File);
     }
@@ -141,7 +144,8 @@ public class StatisticsInputTests
 
     [Theory]
     [InlineData("statistics:\n  w_alpha: 2\n", 9, "must be a probability")]
-    [InlineData("statistics:\n  tau_adjustment: holm\n", 9, "'holm' is not a tau-test adjustment: use sidak or bonferroni")]
+    [InlineData("statistics:\n  tau_adjustment: holm\n", 9,
+        "'holm' is not a tau-test adjustment: use sidak or bonferroni")]
     [InlineData("statistics:\n  colour: red\n", 9, "unknown key 'colour'")]
     [InlineData("statistics:\n  relative_pairs:\n    - [A]\n", 10, "two point ids")]
     [InlineData("statistics:\n  relative_pairs:\n    - [A, Z9]\n", 10, "point Z9 is not defined")]

@@ -65,7 +65,8 @@ public class StochasticProjectTests
                   - {to: C, value: 90-00-00}
             """.Replace("D2", "C"));
         var model = StochasticModel.Build(p.Network, new GivenCoordinates(p.Network), CenteringModel.Independent, 1.0);
-        var o = p.Network.Observations.Select((x, i) => x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
+        var o = p.Network.Observations.Select((x, i) =>
+            x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
         // Direction to B: pointing 5"/√4 = 2.5"; centering at the observed distance 200.004 m.
         var b = model.Budgets[0]!;
         Assert.Equal(2.5, b.ValueOf(ContributionNames.PointingReading) * Angle.ArcsecondsPerRadian, 12);
@@ -78,7 +79,8 @@ public class StochasticProjectTests
         Assert.Null(model.Budgets[2]);
         Assert.Equal(1.5 / Angle.ArcsecondsPerRadian, o[2].StandardDeviation, 15);
         // Distance: 2 mm + 2 ppm, 1 mm and 0.5 mm centering.
-        Assert.Equal(Math.Sqrt(Math.Pow(0.002, 2) + Math.Pow(2e-6 * 200.004, 2) + Math.Pow(0.001, 2) + Math.Pow(0.0005, 2)), o[3].StandardDeviation, 15);
+        Assert.Equal(Math.Sqrt(Math.Pow(0.002, 2) + Math.Pow(2e-6 * 200.004, 2) + Math.Pow(0.001, 2) +
+            Math.Pow(0.0005, 2)), o[3].StandardDeviation, 15);
         // Azimuths are not weighted from the instrument: default_sd.
         Assert.Null(model.Budgets[4]);
         Assert.Equal(4 / Angle.ArcsecondsPerRadian, o[4].StandardDeviation, 15);
@@ -96,35 +98,44 @@ public class StochasticProjectTests
               - {from: A, to: D, dh: 1.0}
             """);
         var model = StochasticModel.Build(p.Network, new GivenCoordinates(p.Network), CenteringModel.Independent, 1.0);
-        var o = p.Network.Observations.Select((x, i) => x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
+        var o = p.Network.Observations.Select((x, i) =>
+            x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
         Assert.Equal(0.0007 * Math.Sqrt(0.64), o[0].StandardDeviation, 15);
         Assert.Equal(0.0007 * Math.Sqrt(0.64) * Math.Sqrt(2), o[1].StandardDeviation, 15);
         // 6 setups → 12 readings; mean of 2 runs. Rounding 'half': 0.05 mm per reading.
-        Assert.Equal(0.0003 * Math.Sqrt(12) / Math.Sqrt(2), model.Budgets[2]!.ValueOf(ContributionNames.RodReadings), 15);
-        Assert.Equal(0.00005 * Math.Sqrt(12) / Math.Sqrt(2), model.Budgets[2]!.ValueOf(ContributionNames.RodRounding), 15);
+        Assert.Equal(0.0003 * Math.Sqrt(12) / Math.Sqrt(2), model.Budgets[2]!.ValueOf(ContributionNames.RodReadings),
+            15);
+        Assert.Equal(0.00005 * Math.Sqrt(12) / Math.Sqrt(2), model.Budgets[2]!.ValueOf(ContributionNames.RodRounding),
+            15);
         Assert.Equal(0.005, o[3].StandardDeviation, 15);
     }
 
     [Fact]
     public void CsvHeightDifferencesMayNameALevel()
     {
-        string csv = "kind,from,to,value,length,level,setups,runs\nheight_difference,A,D,1.0,250,ISO,,\nheight_difference,A,D,1.0,,DIGI,5,1\n";
-        var p = ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => f.EndsWith("lev.csv") ? csv : throw new IOException("no"));
+        string csv = "kind,from,to,value,length,level,setups,runs\nheight_difference,A,D,1.0,250,ISO,,\n" +
+            "height_difference,A,D,1.0,,DIGI,5,1\n";
+        var p = ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f =>
+            f.EndsWith("lev.csv") ? csv : throw new IOException("no"));
         var model = StochasticModel.Build(p.Network, new GivenCoordinates(p.Network), CenteringModel.Independent, 1.0);
-        var o = p.Network.Observations.Select((x, i) => x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
+        var o = p.Network.Observations.Select((x, i) =>
+            x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
         Assert.Equal(0.0007 * Math.Sqrt(0.25), o[0].StandardDeviation, 15);
         Assert.Equal(Math.Sqrt(10) * Math.Sqrt((0.0003 * 0.0003) + (0.00005 * 0.00005)), o[1].StandardDeviation, 15);
         var bad = csv.Replace(",DIGI,5,1", ",DIGI,,1");
-        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => bad));
+        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(Head + "files:\n  - lev.csv\n",
+            "test.yaml", "/x", f => bad));
         Assert.Contains("lev.csv:3", e.Message);
         Assert.Contains("number of setups", e.Message);
         var unknown = csv.Replace(",ISO,", ",NOPE,");
-        e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => unknown));
+        e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml",
+            "/x", f => unknown));
         Assert.Contains("level 'NOPE' is not defined", e.Message);
     }
 
     [Theory]
-    [InlineData("  - {id: TS2, direction_sd: 5, edm: 3 mm + x ppm}", "test.yaml:", "'x' in '3 mm + x ppm' is not a number of ppm")]
+    [InlineData("  - {id: TS2, direction_sd: 5, edm: 3 mm + x ppm}", "test.yaml:",
+        "'x' in '3 mm + x ppm' is not a number of ppm")]
     [InlineData("  - {id: TS2, direction_sd: -5}", "instrument TS2", "direction_sd must be positive")]
     [InlineData("  - {id: TS2, direction_sd: 5, centering: -1 mm}", "instrument TS2", "centering must not be negative")]
     [InlineData("  - {id: TS2, edm: 3 mm + 2 ppm}", "instrument TS2", "'direction_sd' is missing")]
@@ -140,7 +151,8 @@ public class StochasticProjectTests
     [Theory]
     [InlineData("    instrument: NOPE\n", "instrument 'NOPE' is not defined")]
     [InlineData("    sets: 2\n", "name the setup's 'instrument'")]
-    [InlineData("    instrument: TS\n    faces: two\n", "faces: 'two' is not a choice of faces: use both (face left and face right) or one")]
+    [InlineData("    instrument: TS\n    faces: two\n",
+        "faces: 'two' is not a choice of faces: use both (face left and face right) or one")]
     [InlineData("    instrument: TS\n    sets: 0\n", "sets must be a whole number")]
     public void BadSetupProceduresAreReported(string keys, string what)
     {
@@ -155,8 +167,10 @@ public class StochasticProjectTests
     {
         var p = Parse(Head.Replace("default_sd:", "adjustment: {centering: correlated}\ndefault_sd:"));
         Assert.Equal(CenteringModel.Correlated, p.Options.Centering);
-        var e = Assert.Throws<ProjectFileException>(() => Parse(Head.Replace("default_sd:", "adjustment: {centering: maybe}\ndefault_sd:")));
-        Assert.Contains("'maybe' is not a centering model: use independent (diagonal weights) or correlated", e.Message);
+        var e = Assert.Throws<ProjectFileException>(() => Parse(Head.Replace("default_sd:",
+            "adjustment: {centering: maybe}\ndefault_sd:")));
+        Assert.Contains("'maybe' is not a centering model: use independent (diagonal weights) or correlated",
+            e.Message);
     }
 
     [Fact]
@@ -166,7 +180,8 @@ public class StochasticProjectTests
         var p = ProjectReader.Read(Path.Combine(dir, "brackenmoor.yaml"));
         Assert.All(p.Network.Observations, o => Assert.NotNull(o.Weighting));
         // The level loop (CSV) uses level DL10, 1.0 mm per km double run: section BMK1-BMK2 of 420 m.
-        var first = Adjuster.Adjust(p.Network, p.Options).Network.Observations.OfType<HeightDifferenceObservation>().First();
+        var first = Adjuster.Adjust(p.Network,
+            p.Options).Network.Observations.OfType<HeightDifferenceObservation>().First();
         Assert.Equal(0.001 * Math.Sqrt(0.42), first.StandardDeviation, 15);
         foreach (var options in new[] { p.Options, p.Options with { Centering = CenteringModel.Correlated } })
         {
@@ -175,7 +190,8 @@ public class StochasticProjectTests
         }
     }
 
-    private sealed record Spec(double DirSd, double EdmA, double EdmB, double Ci, double Ct, int Sets, bool OneFace, bool Correlated);
+    private sealed record Spec(double DirSd, double EdmA, double EdmB, double Ci, double Ct, int Sets, bool OneFace,
+        bool Correlated);
 
     private static readonly Gen<Spec> Specs =
         from dir in Gen.Choose(5, 200)          // 0.5" .. 20"
@@ -201,16 +217,20 @@ public class StochasticProjectTests
         {
             string yaml = Regex.Replace(demo, @"  - \{id: TS3,[^\n]*", string.Create(Inv,
                 $"  - {{id: TS3, direction_sd: {s.DirSd}, edm: {s.EdmA} mm + {s.EdmB} ppm, centering: {s.Ci} mm}}"));
-            yaml = Regex.Replace(yaml, @"  - \{id: TRIBRACH,[^\n]*", string.Create(Inv, $"  - {{id: TRIBRACH, centering: {s.Ct} mm}}"));
-            yaml = yaml.Replace("    sets: 2", $"    sets: {s.Sets}").Replace("    faces: both", s.OneFace ? "    faces: one" : "    faces: both")
+            yaml = Regex.Replace(yaml, @"  - \{id: TRIBRACH,[^\n]*", string.Create(Inv,
+                $"  - {{id: TRIBRACH, centering: {s.Ct} mm}}"));
+            yaml = yaml.Replace("    sets: 2", $"    sets: {s.Sets}").Replace("    faces: both",
+                s.OneFace ? "    faces: one" : "    faces: both")
                 .Replace("centering: independent", s.Correlated ? "centering: correlated" : "centering: independent");
             var p = ProjectReader.Parse(yaml, "brackenmoor.yaml", dir, f => File.ReadAllText(f));
             var r = Adjuster.Adjust(p.Network, p.Options);
-            using var json = JsonDocument.Parse(JsonResultWriter.Write(r, new ReportContext("brackenmoor.yaml", new DateOnly(2026, 12, 1), p.Units)));
+            using var json = JsonDocument.Parse(JsonResultWriter.Write(r, new ReportContext("brackenmoor.yaml",
+                new DateOnly(2026, 12, 1), p.Units)));
             foreach (var o in json.RootElement.GetProperty("observations").EnumerateArray())
             {
                 double sd = o.GetProperty("sd").GetDouble();
-                double rss = Math.Sqrt(o.GetProperty("sd_components").EnumerateObject().Sum(c => c.Value.GetDouble() * c.Value.GetDouble()));
+                double rss = Math.Sqrt(o.GetProperty("sd_components").EnumerateObject().Sum(c => c.Value.GetDouble() *
+                    c.Value.GetDouble()));
                 if (!(Math.Abs(rss - sd) <= 1e-12 * sd)) return false;
             }
             return true;

@@ -17,10 +17,12 @@ internal static class Chromium
 
     private static string? Find()
     {
-        // NETADJUST_CHROMIUM names the browser to use; a path that does not exist means "no browser" (to check the skip rule).
+        // NETADJUST_CHROMIUM names the browser to use; a path that does not exist means "no browser" (to check the skip
+        // rule).
         string? env = Environment.GetEnvironmentVariable("NETADJUST_CHROMIUM");
         if (!string.IsNullOrEmpty(env)) return File.Exists(env) ? env : null;
-        foreach (var dir in (Environment.GetEnvironmentVariable("PATH") ?? "").Split(Path.PathSeparator).Append("/usr/bin"))
+        foreach (var dir in (Environment.GetEnvironmentVariable("PATH") ??
+            "").Split(Path.PathSeparator).Append("/usr/bin"))
             foreach (var name in new[] { "chromium", "chromium-browser" })
             {
                 if (dir.Length == 0) continue;
@@ -34,20 +36,25 @@ internal static class Chromium
     {
         /// <summary>Console messages the page produced (errors, warnings, logs, CSP violations).</summary>
         public IReadOnlyList<string> ConsoleMessages =>
-            Stderr.Split('\n').Where(l => l.Contains(":CONSOLE", StringComparison.Ordinal) || l.Contains("CONSOLE(", StringComparison.Ordinal)).ToList();
+            Stderr.Split('\n').Where(l => l.Contains(":CONSOLE", StringComparison.Ordinal) ||
+                l.Contains("CONSOLE(", StringComparison.Ordinal)).ToList();
     }
 
     /// <summary>Runs the browser headless on a local file with extra arguments (e.g. --dump-dom).</summary>
     public static Run Open(string file, params string[] extra)
     {
         string exe = Executable ?? throw new InvalidOperationException(
-            "chromium is not installed, and the browser tests must run here (CI is set): install it with .ci/install-system-packages");
+            "chromium is not installed, and the browser tests must run here (CI is set): install it with " +
+                ".ci/install-system-packages");
         string profile = Directory.CreateTempSubdirectory("netadjust-chromium-").FullName;
         try
         {
-            var psi = new ProcessStartInfo(exe) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
-            foreach (var a in new[] { "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
-                                      "--disable-sync", "--no-first-run", "--disable-extensions", "--hide-scrollbars", "--enable-logging=stderr", "--v=0",
+            var psi = new ProcessStartInfo(exe) { RedirectStandardOutput = true, RedirectStandardError = true,
+                UseShellExecute = false };
+            foreach (var a in new[] { "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking",
+                "--disable-component-update",
+                                      "--disable-sync", "--no-first-run", "--disable-extensions", "--hide-scrollbars",
+                                          "--enable-logging=stderr", "--v=0",
                                       "--user-data-dir=" + profile })
                 psi.ArgumentList.Add(a);
             foreach (var a in extra) psi.ArgumentList.Add(a);
@@ -65,7 +72,8 @@ internal static class Chromium
         }
         finally
         {
-            try { Directory.Delete(profile, recursive: true); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+            try { Directory.Delete(profile,
+                recursive: true); } catch (IOException) { } catch (UnauthorizedAccessException) { }
         }
     }
 }
@@ -80,6 +88,8 @@ public sealed class ChromiumFactAttribute : FactAttribute
     public ChromiumFactAttribute()
     {
         if (Chromium.Executable is null && !Chromium.InCi)
-            Skip = "chromium is not installed (apt-get install chromium, or run .ci/install-system-packages); browser tests skipped locally. CI runs them.";
+            Skip =
+                "chromium is not installed (apt-get install chromium, or run .ci/install-system-packages); browser " +
+                "tests skipped locally. CI runs them.";
     }
 }

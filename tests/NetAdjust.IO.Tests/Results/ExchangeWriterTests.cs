@@ -12,9 +12,11 @@ public class CoordinateCsvTests
 {
     public static TheoryData<string> Projects => new() { "demo", "ashgrove" };
 
-    private static (AdjustmentResult R, ReportContext C) Load(string name) => name == "demo" ? TestProjects.Demo() : TestProjects.AshgroveFeet();
+    private static (AdjustmentResult R, ReportContext C) Load(string name) => name == "demo" ? TestProjects.Demo() :
+        TestProjects.AshgroveFeet();
 
-    // The CSV is read back with Sep (an independent RFC 4180 reader, unescaping quoted fields) and every number must come back to
+    // The CSV is read back with Sep (an independent RFC 4180 reader, unescaping quoted fields) and every number must
+    // come back to
     // within half a unit of the last written decimal of the value in the result (converted to the file's unit).
     [Theory]
     [MemberData(nameof(Projects))]
@@ -24,8 +26,10 @@ public class CoordinateCsvTests
         string text = CoordinateCsvWriter.Write(r, c);
         double k = 1.0 / c.Units.Length.MetresPerUnit;
         string u = c.Units.Length.Symbol;
-        using var reader = Sep.New(',').Reader(o => o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture }).FromText(text);
-        Assert.Equal(["id", $"easting_{u}", $"northing_{u}", $"height_{u}", $"sd_e_{u}", $"sd_n_{u}", $"sd_h_{u}", $"ellipse_a_{u}", $"ellipse_b_{u}", "ellipse_azimuth_deg", "held", "weighted",
+        using var reader = Sep.New(',').Reader(o =>
+            o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture }).FromText(text);
+        Assert.Equal(["id", $"easting_{u}", $"northing_{u}", $"height_{u}", $"sd_e_{u}", $"sd_n_{u}", $"sd_h_{u}",
+            $"ellipse_a_{u}", $"ellipse_b_{u}", "ellipse_azimuth_deg", "held", "weighted",
                       "variance_factor_basis"],
             reader.Header.ColNames);
         double tolL = 0.5 * Math.Pow(10, -CoordinateCsvWriter.LengthDecimals) + 1e-9;
@@ -47,7 +51,8 @@ public class CoordinateCsvTests
             Check($"easting_{u}", p.E); Check($"northing_{u}", p.N); Check($"height_{u}", p.H);
             Check($"sd_e_{u}", p.SdE); Check($"sd_n_{u}", p.SdN); Check($"sd_h_{u}", p.SdH);
             // The ellipse columns carry the statistics' ellipse (the shared NetAdjust.Statistics.ErrorEllipse).
-            var el = ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p) ? r.Analysis.Points[row - 1].Ellipse : null;
+            var el = ReportFigures.HasPlan(p) &&
+                !ReportFigures.IsPlanFixed(p) ? r.Analysis.Points[row - 1].Ellipse : null;
             Check($"ellipse_a_{u}", el?.A); Check($"ellipse_b_{u}", el?.B);
             string az = fields["ellipse_azimuth_deg"];
             if (el is null) Assert.Equal("", az);
@@ -86,7 +91,8 @@ public class LandXmlTests
         Assert.Equal("2026-12-01", (string?)root.Attribute("date"));
         Assert.Matches(@"^\d\d:\d\d:\d\d$", (string?)root.Attribute("time"));
 
-        Assert.Equal([Ns + "Units", Ns + "Project", Ns + "Application", Ns + "CgPoints"], root.Elements().Select(e => e.Name));
+        Assert.Equal([Ns + "Units", Ns + "Project", Ns + "Application", Ns + "CgPoints"],
+            root.Elements().Select(e => e.Name));
         var metric = Assert.Single(root.Element(Ns + "Units")!.Elements());
         Assert.Equal(Ns + "Metric", metric.Name);
         Assert.Equal("meter", (string?)metric.Attribute("linearUnit"));
@@ -111,8 +117,10 @@ public class LandXmlTests
             Assert.Equal(p.H is null ? 2 : 3, parts.Length);
             Assert.Equal(p.N!.Value, parts[0], 1e-6); // northing first
             Assert.Equal(p.E!.Value, parts[1], 1e-6);
-            Assert.Equal(p.SdN!.Value, double.Parse((string)cg[i].Attribute("northingStdError")!, CultureInfo.InvariantCulture), 1e-6);
-            Assert.Equal(p.SdE!.Value, double.Parse((string)cg[i].Attribute("eastingStdError")!, CultureInfo.InvariantCulture), 1e-6);
+            Assert.Equal(p.SdN!.Value,
+                double.Parse((string)cg[i].Attribute("northingStdError")!, CultureInfo.InvariantCulture), 1e-6);
+            Assert.Equal(p.SdE!.Value,
+                double.Parse((string)cg[i].Attribute("eastingStdError")!, CultureInfo.InvariantCulture), 1e-6);
             Assert.Contains((string)cg[i].Attribute("role")!, allowedRoles);
         }
         Assert.Equal("control point", (string?)cg[0].Attribute("role")); // BK01 is held
@@ -126,7 +134,8 @@ public class LandXmlTests
         var root = XDocument.Parse(LandXmlWriter.Write(r, c)).Root!;
         var imp = Assert.Single(root.Element(Ns + "Units")!.Elements());
         Assert.Equal(Ns + "Imperial", imp.Name);
-        // LandXML-1.2.xsd imperial linear units include "foot" and "USSurveyFoot" (from memory of the schema's enumeration).
+        // LandXML-1.2.xsd imperial linear units include "foot" and "USSurveyFoot" (from memory of the schema's
+        // enumeration).
         Assert.Equal("foot", (string?)imp.Attribute("linearUnit"));
         var cs = root.Element(Ns + "CoordinateSystem")!;
         Assert.Equal("27700", (string?)cs.Attribute("epsgCode"));
@@ -162,7 +171,8 @@ public class GeoJsonTests
         var (r, c) = TestProjects.AshgroveFeet();
         using var doc = JsonDocument.Parse(GeoJsonWriter.Write(r, c));
         var root = doc.RootElement;
-        Assert.Equal("urn:ogc:def:crs:EPSG::27700", root.GetProperty("crs").GetProperty("properties").GetProperty("name").GetString());
+        Assert.Equal("urn:ogc:def:crs:EPSG::27700",
+            root.GetProperty("crs").GetProperty("properties").GetProperty("name").GetString());
         Assert.Equal("EPSG:27700", root.GetProperty("netadjust").GetProperty("coordinates").GetString());
         Assert.Equal("ft", root.GetProperty("netadjust").GetProperty("length_unit").GetString());
     }
@@ -211,8 +221,10 @@ public class EdgeCaseWriterTests
 
     private static (AdjustmentResult, ReportContext) Load(string yaml)
     {
-        var project = NetAdjust.IO.Project.ProjectReader.Parse(yaml, "t.yaml", "/nonexistent", _ => throw new IOException());
-        return (Adjuster.Adjust(project.Network, project.Options), new ReportContext("t.yaml", TestProjects.RunDate, project.Units) { Crs = project.Crs });
+        var project = NetAdjust.IO.Project.ProjectReader.Parse(yaml, "t.yaml", "/nonexistent", _ =>
+            throw new IOException());
+        return (Adjuster.Adjust(project.Network, project.Options),
+            new ReportContext("t.yaml", TestProjects.RunDate, project.Units) { Crs = project.Crs });
     }
 
     [Fact]
@@ -235,7 +247,8 @@ public class EdgeCaseWriterTests
     public void UsSurveyFeetAreDeclaredAsSuch()
     {
         var (r, c) = Load(TestProjects.Ashgrove.Replace("length: ft", "length: usft"));
-        var imp = XDocument.Parse(LandXmlWriter.Write(r, c)).Root!.Element(XName.Get("Units", LandXmlWriter.Namespace))!.Elements().Single();
+        var imp = XDocument.Parse(LandXmlWriter.Write(r, c)).Root!.Element(XName.Get("Units",
+            LandXmlWriter.Namespace))!.Elements().Single();
         Assert.Equal("USSurveyFoot", (string?)imp.Attribute("linearUnit"));
         Assert.StartsWith("id,easting_usft,", CoordinateCsvWriter.Write(r, c));
         // 1000 usft held: 1000 × 1200/3937 m (24 FR 5348, 1959) written back as 1000 usft.

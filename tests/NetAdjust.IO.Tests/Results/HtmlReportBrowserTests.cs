@@ -15,7 +15,8 @@ public sealed class HtmlReportBrowserTests : IDisposable
         if (Environment.GetEnvironmentVariable("NETADJUST_KEEP_BROWSER_OUTPUT") is { Length: > 0 } keep)
         {
             Directory.CreateDirectory(keep);
-            foreach (var f in Directory.GetFiles(_dir)) File.Copy(f, Path.Combine(keep, Path.GetFileName(f)), overwrite: true);
+            foreach (var f in Directory.GetFiles(_dir))
+                File.Copy(f, Path.Combine(keep, Path.GetFileName(f)), overwrite: true);
         }
         try { Directory.Delete(_dir, recursive: true); } catch (IOException) { }
     }
@@ -34,7 +35,9 @@ public sealed class HtmlReportBrowserTests : IDisposable
         // Control for the check below: a page that loads an outside image under the report's own policy must
         // produce a console message, or the "no console errors" check could not fail.
         string path = Path.Combine(_dir, "control.html");
-        File.WriteAllText(path, "<!DOCTYPE html><html><head><meta charset=\"utf-8\"><meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'\">" +
+        File.WriteAllText(path,
+            "<!DOCTYPE html><html><head><meta charset=\"utf-8\"><meta http-equiv=\"Content-Security-Policy\" " +
+            "content=\"default-src 'none'\">" +
                                 "</head><body><img src=\"https://example.invalid/x.png\" alt=\"\"></body></html>");
         var run = Chromium.Open(path, "--dump-dom");
         Assert.NotEmpty(run.ConsoleMessages);
@@ -51,8 +54,10 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Contains("<svg", dom);
 
         // One ellipse element per point not held in plan (the 8 plan points less the 2 held).
-        var unfixed = r.Points.Where(p => ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p)).Select(p => p.Id).ToList();
-        var drawn = Regex.Matches(dom, "<ellipse class=\"ellipse\" data-point=\"([^\"]+)\"").Select(m => m.Groups[1].Value).ToList();
+        var unfixed = r.Points.Where(p => ReportFigures.HasPlan(p) && !ReportFigures.IsPlanFixed(p)).Select(p =>
+            p.Id).ToList();
+        var drawn = Regex.Matches(dom, "<ellipse class=\"ellipse\" data-point=\"([^\"]+)\"").Select(m =>
+            m.Groups[1].Value).ToList();
         Assert.Equal(unfixed, drawn);
         Assert.Equal(6, drawn.Count);
 
@@ -60,7 +65,8 @@ public sealed class HtmlReportBrowserTests : IDisposable
         foreach (var p in r.Points) Assert.Contains($"<td class=\"id\">{p.Id}</td>", dom);
         var coordinates = Regex.Match(dom, "<section id=\"coordinates\">.*?</section>", RegexOptions.Singleline).Value;
         Assert.Equal(r.Points.Count, Regex.Matches(coordinates, "<tr>").Count - 1);
-        var observations = Regex.Match(dom, "<section id=\"observations\">.*?</section>", RegexOptions.Singleline).Value;
+        var observations = Regex.Match(dom, "<section id=\"observations\">.*?</section>",
+            RegexOptions.Singleline).Value;
         Assert.Equal(r.Observations.Count, Regex.Matches(observations, "<tr[ >]").Count - 1);
     }
 
@@ -76,8 +82,11 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Empty(run.ConsoleMessages);
         Assert.Contains("class=\"histogram\"", run.Stdout);
         Assert.Contains("class=\"normal-curve\"", run.Stdout);
-        var observations = Regex.Match(run.Stdout, "<section id=\"observations\">.*?</section>", RegexOptions.Singleline).Value;
-        Assert.Equal(["11"], Regex.Matches(observations, "<tr class=\"fail\"><td class=\"num\">(\\d+)</td>").Select(m => m.Groups[1].Value));
+        var observations = Regex.Match(run.Stdout, "<section id=\"observations\">.*?</section>",
+            RegexOptions.Singleline).Value;
+        Assert.Equal(["11"],
+            Regex.Matches(observations, "<tr class=\"fail\"><td class=\"num\">(\\d+)</td>").Select(m =>
+            m.Groups[1].Value));
         var summary = Regex.Match(run.Stdout, "<section id=\"summary\">.*?</section>", RegexOptions.Singleline).Value;
         Assert.Contains("<td class=\"num\">4.20</td><td>fails</td>", summary);
         Assert.Contains("obs-fail", run.Stdout);
@@ -95,11 +104,14 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Empty(run.ConsoleMessages);
         var img = PngImage.Read(File.ReadAllBytes(png));
         Assert.Equal(960, img.Width);
-        Assert.True(img.LuminanceVariance() > 50, $"screenshot looks blank (luminance variance {img.LuminanceVariance():F1})");
+        Assert.True(img.LuminanceVariance() > 50,
+            $"screenshot looks blank (luminance variance {img.LuminanceVariance():F1})");
         // The six new points and their ellipses are drawn in their own colours (anti-aliasing: tolerance 12).
         Assert.True(img.CountNear(NetworkPlotWriter.NewColour, 12) > 6 * 30, "too few pixels of the new-point colour");
-        Assert.True(img.CountNear(NetworkPlotWriter.EllipseColour, 12) > 6 * 20, "too few pixels of the ellipse colour");
-        Assert.True(img.CountNear(NetworkPlotWriter.FixedColour, 12) > 2 * 30, "too few pixels of the fixed-control colour");
+        Assert.True(img.CountNear(NetworkPlotWriter.EllipseColour, 12) > 6 * 20,
+            "too few pixels of the ellipse colour");
+        Assert.True(img.CountNear(NetworkPlotWriter.FixedColour, 12) > 2 * 30,
+            "too few pixels of the fixed-control colour");
     }
 
     [ChromiumFact]
@@ -110,7 +122,8 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.True(File.Exists(png), "no screenshot written: " + run.Stderr);
         var img = PngImage.Read(File.ReadAllBytes(png));
         Assert.True(img.LuminanceVariance() > 50);
-        Assert.True(img.CountNear(NetworkPlotWriter.EllipseColour, 12) > 6 * 20, "the plot's ellipses are not visible in the report");
+        Assert.True(img.CountNear(NetworkPlotWriter.EllipseColour, 12) > 6 * 20,
+            "the plot's ellipses are not visible in the report");
     }
 
     [ChromiumFact]
@@ -132,10 +145,12 @@ public sealed class HtmlReportBrowserTests : IDisposable
     public void BlunderDemoHighlightsTheObservationsFailingTheWTest()
     {
         // data/harrowfield-blunder.yaml (invented demo) carries a simulated blunder: the statistics reject it.
-        var project = NetAdjust.IO.Project.ProjectReader.Read(Path.Combine(TestProjects.RepoRoot, "data", "harrowfield-blunder.yaml"));
+        var project = NetAdjust.IO.Project.ProjectReader.Read(Path.Combine(TestProjects.RepoRoot, "data",
+            "harrowfield-blunder.yaml"));
         var r = NetAdjust.Adjustment.Adjuster.Adjust(project.Network, project.Options);
         var c = new ReportContext("data/harrowfield-blunder.yaml", TestProjects.RunDate, project.Units);
-        var failing = r.Analysis.Observations.Where(t => t.WPassed == false && t.Flag != NetAdjust.Statistics.ObservationFlag.Excluded)
+        var failing = r.Analysis.Observations.Where(t => t.WPassed == false &&
+            t.Flag != NetAdjust.Statistics.ObservationFlag.Excluded)
             .Select(t => (t.Index + 1).ToString(System.Globalization.CultureInfo.InvariantCulture)).ToList();
         Assert.NotEmpty(failing);
         string path = Path.Combine(_dir, "blunder.html");
@@ -143,9 +158,13 @@ public sealed class HtmlReportBrowserTests : IDisposable
         var run = Chromium.Open(path, "--dump-dom");
         Assert.Empty(run.ConsoleMessages);
         string dom = run.Stdout;
-        var observations = Regex.Match(dom, "<section id=\"observations\">.*?</section>", RegexOptions.Singleline).Value;
-        Assert.Equal(failing, Regex.Matches(observations, "<tr class=\"fail\"><td class=\"num\">(\\d+)</td>").Select(m => m.Groups[1].Value));
-        var highlighted = Regex.Matches(dom, "<line class=\"obs obs-fail\"[^>]*><title>#(\\d+) ").Select(m => m.Groups[1].Value).Distinct().ToList();
+        var observations = Regex.Match(dom, "<section id=\"observations\">.*?</section>",
+            RegexOptions.Singleline).Value;
+        Assert.Equal(failing,
+            Regex.Matches(observations, "<tr class=\"fail\"><td class=\"num\">(\\d+)</td>").Select(m =>
+            m.Groups[1].Value));
+        var highlighted = Regex.Matches(dom, "<line class=\"obs obs-fail\"[^>]*><title>#(\\d+) ").Select(m =>
+            m.Groups[1].Value).Distinct().ToList();
         Assert.Equal(failing, highlighted);
         Assert.Contains("class=\"histogram\"", dom);
     }

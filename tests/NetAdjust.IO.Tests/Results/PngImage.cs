@@ -41,7 +41,8 @@ internal sealed class PngImage
                 int depth = data[8];
                 colourType = data[9];
                 if (depth != 8 || (colourType != 2 && colourType != 6) || data[12] != 0)
-                    throw new NotSupportedException($"PNG with depth {depth}, colour type {colourType}, interlace {data[12]} is not supported");
+                    throw new NotSupportedException(
+                        $"PNG with depth {depth}, colour type {colourType}, interlace {data[12]} is not supported");
             }
             else if (type == "IDAT") idat.Write(data);
             else if (type == "IEND") break;
@@ -112,7 +113,9 @@ internal sealed class PngImage
         int r = Convert.ToInt32(hex[1..3], 16), g = Convert.ToInt32(hex[3..5], 16), b = Convert.ToInt32(hex[5..7], 16);
         int count = 0;
         for (int i = 0; i < Width * Height; i++)
-            if (Math.Abs(Rgba[4 * i] - r) <= tolerance && Math.Abs(Rgba[(4 * i) + 1] - g) <= tolerance && Math.Abs(Rgba[(4 * i) + 2] - b) <= tolerance) count++;
+            if (Math.Abs(Rgba[4 * i] - r) <= tolerance && Math.Abs(Rgba[(4 * i) + 1] - g) <= tolerance &&
+                Math.Abs(Rgba[(4 * i) + 2] - b) <= tolerance)
+                count++;
         return count;
     }
 }

@@ -18,7 +18,8 @@ public class ReportFormatTests
     [Theory]
     [InlineData("dms", "3", "359-59-50", "180.00")]
     [InlineData("gon", "1", "399.9970", "200.00")]
-    public void AnEllipseAzimuthJustBelowAHalfTurnPrintsAsZero(string angle, string azimuthSd, string azimuth, string forbidden)
+    public void AnEllipseAzimuthJustBelowAHalfTurnPrintsAsZero(string angle, string azimuthSd, string azimuth,
+        string forbidden)
     {
         // Convention (docs/methods.md, docs/glossary.md): the azimuth of the semi-major axis is in [0°, 180°)
         // ([0, 200) gon).
@@ -39,8 +40,10 @@ public class ReportFormatTests
                   - {to: B, value: {{azimuth}}}
             """;
         var lines = Report(yaml).Split('\n');
-        string ellipse = lines.SkipWhile(l => !l.StartsWith("ERROR ELLIPSES", StringComparison.Ordinal)).First(l => l.StartsWith("  B ", StringComparison.Ordinal));
-        string relative = lines.SkipWhile(l => !l.StartsWith("RELATIVE ERROR ELLIPSES", StringComparison.Ordinal)).First(l => l.StartsWith("  A ", StringComparison.Ordinal));
+        string ellipse = lines.SkipWhile(l => !l.StartsWith("ERROR ELLIPSES", StringComparison.Ordinal)).First(l =>
+            l.StartsWith("  B ", StringComparison.Ordinal));
+        string relative = lines.SkipWhile(l => !l.StartsWith("RELATIVE ERROR ELLIPSES",
+            StringComparison.Ordinal)).First(l => l.StartsWith("  A ", StringComparison.Ordinal));
         foreach (var line in new[] { ellipse, relative })
         {
             Assert.DoesNotContain(forbidden, line);

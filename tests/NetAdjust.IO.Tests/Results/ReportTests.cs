@@ -13,7 +13,8 @@ public class HtmlReportTests
         var (r, c) = TestProjects.Demo();
         string html = HtmlReportWriter.Write(r, c);
         Assert.StartsWith("<!DOCTYPE html>", html);
-        foreach (var banned in new[] { "<script", "<link", "@import", "url(", " src=", "<iframe", "<object", "<embed", "@font-face" })
+        foreach (var banned in new[] { "<script", "<link", "@import", "url(", " src=", "<iframe", "<object", "<embed",
+            "@font-face" })
             Assert.DoesNotContain(banned, html, StringComparison.OrdinalIgnoreCase);
         // The only absolute URIs are the SVG namespace names (names, never fetched).
         var uris = Regex.Matches(html, "(https?|ftp)://[^\"' <]+").Select(m => m.Value).Distinct().ToList();
@@ -29,7 +30,8 @@ public class HtmlReportTests
         string html = HtmlReportWriter.Write(r, c);
         Assert.Contains("@media print", html);
         Assert.Matches(@"@media print \{[^@]*section \{ break-before: page; \}", html);
-        foreach (var id in new[] { "summary", "plot", "residuals", "coordinates", "observations", "orientations", "caution" })
+        foreach (var id in new[] { "summary", "plot", "residuals", "coordinates", "observations", "orientations",
+            "caution" })
             Assert.Contains($"<section id=\"{id}\">", html);
     }
 
@@ -38,7 +40,8 @@ public class HtmlReportTests
     {
         var (r, c) = TestProjects.AshgroveFeet();
         string svg = NetworkPlotWriter.WriteDocument(r, c);
-        Assert.Equal(["B", "C"], Regex.Matches(svg, "<ellipse class=\"ellipse\" data-point=\"([^\"]+)\"").Select(m => m.Groups[1].Value));
+        Assert.Equal(["B", "C"],
+            Regex.Matches(svg, "<ellipse class=\"ellipse\" data-point=\"([^\"]+)\"").Select(m => m.Groups[1].Value));
         Assert.Matches("Ellipses magnified ×[0-9,]+", svg);
         Assert.Contains("class=\"scale-bar-map\"", svg);
         Assert.Contains("class=\"scale-bar-ellipses\"", svg);
@@ -61,7 +64,8 @@ public class HtmlReportTests
         var el = ReportFigures.Ellipse(r, r.Points.Single(p => p.Id == "C"))!.Value;
         // SVG rotates clockwise on screen; the x axis (east) turned by θ − 90° points along azimuth θ.
         var rot = Regex.Match((string)e.Attribute("transform")!, @"rotate\(([-0-9.]+) ").Groups[1].Value;
-        Assert.Equal((el.Azimuth * 180 / Math.PI) - 90, double.Parse(rot, System.Globalization.CultureInfo.InvariantCulture), 0.01);
+        Assert.Equal((el.Azimuth * 180 / Math.PI) - 90,
+            double.Parse(rot, System.Globalization.CultureInfo.InvariantCulture), 0.01);
         double rx = double.Parse((string)e.Attribute("rx")!, System.Globalization.CultureInfo.InvariantCulture);
         double ry = double.Parse((string)e.Attribute("ry")!, System.Globalization.CultureInfo.InvariantCulture);
         Assert.Equal(el.A / el.B, rx / ry, 0.01 * (el.A / el.B));
@@ -72,7 +76,8 @@ public class HtmlReportTests
     {
         var w = new[] { -5.1, -1.2, -0.3, 0.0, 0.2, 0.49, 0.5, 1.7, 3.3, 4.9 };
         string svg = HtmlReportWriter.Histogram(w, 3.29);
-        int total = Regex.Matches(svg, @"<title>(\d+) in \[").Sum(m => int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
+        int total = Regex.Matches(svg, @"<title>(\d+) in \[").Sum(m => int.Parse(m.Groups[1].Value,
+            System.Globalization.CultureInfo.InvariantCulture));
         Assert.Equal(w.Length, total);
         Assert.Contains("class=\"normal-curve\"", svg);
         Assert.Equal(2, Regex.Matches(svg, "class=\"critical\"").Count);
@@ -129,7 +134,8 @@ public class TextReportTests
     {
         var (r, c) = TestProjects.Demo();
         string t = TextReportWriter.Write(r, c);
-        int[] at = [t.IndexOf("SUMMARY\n"), t.IndexOf("Largest standardised residuals"), t.IndexOf("ADJUSTED COORDINATES"),
+        int[] at = [t.IndexOf("SUMMARY\n"), t.IndexOf("Largest standardised residuals"),
+            t.IndexOf("ADJUSTED COORDINATES"),
                     t.IndexOf("OBSERVATIONS ("), t.IndexOf("ERROR ELLIPSES"), t.IndexOf("CAUTION:")];
         Assert.All(at, i => Assert.True(i >= 0));
         Assert.Equal(at.Order(), at);
@@ -141,13 +147,17 @@ public class TextReportTests
     {
         var (r, c) = TestProjects.Demo();
         string t = TextReportWriter.Write(r, c);
-        var listed = System.Text.RegularExpressions.Regex.Matches(t, @"\n    #(\d+) +w = +(-?\d+\.\d\d)  (passes|FAILS)  ").ToList();
+        var listed = System.Text.RegularExpressions.Regex.Matches(t,
+            @"\n    #(\d+) +w = +(-?\d+\.\d\d)  (passes|FAILS)  ").ToList();
         Assert.Equal(5, listed.Count);
-        var expected = r.Analysis.Observations.Where(o => o.W is not null).OrderByDescending(o => Math.Abs(o.W!.Value)).ThenBy(o => o.Index).Take(5).ToList();
+        var expected = r.Analysis.Observations.Where(o => o.W is not null).OrderByDescending(o =>
+            Math.Abs(o.W!.Value)).ThenBy(o => o.Index).Take(5).ToList();
         for (int k = 0; k < 5; k++)
         {
-            Assert.Equal(expected[k].Index + 1, int.Parse(listed[k].Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
-            Assert.Equal(expected[k].W!.Value, double.Parse(listed[k].Groups[2].Value, System.Globalization.CultureInfo.InvariantCulture), 0.005);
+            Assert.Equal(expected[k].Index + 1,
+                int.Parse(listed[k].Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
+            Assert.Equal(expected[k].W!.Value,
+                double.Parse(listed[k].Groups[2].Value, System.Globalization.CultureInfo.InvariantCulture), 0.005);
             Assert.Equal(expected[k].WPassed == false ? "FAILS" : "passes", listed[k].Groups[3].Value);
         }
     }
@@ -167,7 +177,8 @@ public class TextReportTests
 public class CrsKeyTests
 {
     private static SurveyProject Parse(string crsLine) => ProjectReader.Parse(
-        "project: t\n" + crsLine + "\npoints:\n  - {id: A, e: 0, n: 0, fix: en}\n", "t.yaml", "/nonexistent", _ => throw new IOException());
+        "project: t\n" + crsLine + "\npoints:\n  - {id: A, e: 0, n: 0, fix: en}\n", "t.yaml", "/nonexistent", _ =>
+            throw new IOException());
 
     [Fact]
     public void ReadsAnEpsgCode() => Assert.Equal("EPSG:27700", Parse("crs: epsg:27700").Crs);

@@ -56,12 +56,15 @@ internal static class TestProjects
     public static (AdjustmentResult Result, ReportContext Context) Demo()
     {
         var project = ProjectReader.Read(Path.Combine(RepoRoot, "data", "brackenmoor.yaml"));
-        return (Adjuster.Adjust(project.Network, project.Options), new ReportContext("data/brackenmoor.yaml", RunDate, project.Units) { Crs = project.Crs });
+        return (Adjuster.Adjust(project.Network, project.Options),
+            new ReportContext("data/brackenmoor.yaml", RunDate, project.Units) { Crs = project.Crs });
     }
 
     public static (AdjustmentResult Result, ReportContext Context) AshgroveFeet()
     {
-        var project = ProjectReader.Parse(Ashgrove, "ashgrove.yaml", "/nonexistent", _ => throw new IOException("no files"));
-        return (Adjuster.Adjust(project.Network, project.Options), new ReportContext("ashgrove.yaml", RunDate, project.Units) { Crs = project.Crs });
+        var project = ProjectReader.Parse(Ashgrove, "ashgrove.yaml", "/nonexistent", _ =>
+            throw new IOException("no files"));
+        return (Adjuster.Adjust(project.Network, project.Options),
+            new ReportContext("ashgrove.yaml", RunDate, project.Units) { Crs = project.Crs });
     }
 }

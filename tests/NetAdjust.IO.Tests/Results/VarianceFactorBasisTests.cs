@@ -72,7 +72,8 @@ public class VarianceFactorBasisTests
     {
         var (r, c) = Load();
         using var reader = Sep.New(',')
-            .Reader(o => o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture }).FromText(CoordinateCsvWriter.Write(r, c));
+            .Reader(o => o with { Unescape = true, CultureInfo = CultureInfo.InvariantCulture })
+            .FromText(CoordinateCsvWriter.Write(r, c));
         int checkedRows = 0;
         foreach (var rec in reader)
         {

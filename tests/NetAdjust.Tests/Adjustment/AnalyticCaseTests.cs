@@ -22,7 +22,8 @@ public class AnalyticCaseTests
             new Point("A") { E = 1000, N = 2000, Fixed = Fixity.EN },
             new Point("B") { E = 1100.5, N = 2000, Fixed = Fixity.N },
         };
-        var obs = d.Select((x, i) => (Observation)new DistanceObservation("A", "B", Length.FromMetres(x)) { StandardDeviation = s[i] });
+        var obs = d.Select((x, i) => (Observation)new DistanceObservation("A", "B",
+            Length.FromMetres(x)) { StandardDeviation = s[i] });
         var r = Adjuster.Adjust(new SurveyNetwork("mean", points, obs));
 
         double sw = s.Sum(x => 1 / (x * x));
@@ -38,8 +39,10 @@ public class AnalyticCaseTests
     {
         // Error of redundant measurement: the mean of n equal-weight measurements has σ/√n (common practice).
         const double sigma = 0.003;
-        var points = new[] { new Point("A") { E = 0, N = 0, Fixed = Fixity.EN }, new Point("B") { E = 50, N = 0, Fixed = Fixity.N } };
-        var obs = Enumerable.Range(0, 9).Select(i => (Observation)new DistanceObservation("A", "B", Length.FromMetres(50 + ((i - 4) * 0.001))) { StandardDeviation = sigma });
+        var points = new[] { new Point("A") { E = 0, N = 0, Fixed = Fixity.EN }, new Point("B") { E = 50, N = 0, Fixed =
+            Fixity.N } };
+        var obs = Enumerable.Range(0, 9).Select(i => (Observation)new DistanceObservation("A", "B",
+            Length.FromMetres(50 + ((i - 4) * 0.001))) { StandardDeviation = sigma });
         var r = Adjuster.Adjust(new SurveyNetwork("n", points, obs));
         Assert.Equal(50.0, r.Points[1].E!.Value, 10);
         Assert.Equal(sigma / 3.0, r.Points[1].SdE!.Value, 12);
@@ -54,8 +57,10 @@ public class AnalyticCaseTests
         double w = dh.Sum();
         Assert.NotEqual(0, w, 6);
         string[] ids = ["BM", "P1", "P2", "P3"];
-        var points = new[] { new Point("BM") { H = 50, Fixed = Fixity.H }, new Point("P1"), new Point("P2"), new Point("P3") };
-        var obs = dh.Select((x, i) => (Observation)new HeightDifferenceObservation(ids[i], ids[(i + 1) % 4], Length.FromMetres(x)) { StandardDeviation = 0.001 });
+        var points = new[] { new Point("BM") { H = 50, Fixed = Fixity.H }, new Point("P1"), new Point("P2"),
+            new Point("P3") };
+        var obs = dh.Select((x, i) => (Observation)new HeightDifferenceObservation(ids[i], ids[(i + 1) % 4],
+            Length.FromMetres(x)) { StandardDeviation = 0.001 });
         var r = Adjuster.Adjust(new SurveyNetwork("loop", points, obs));
         foreach (var o in r.Observations) Assert.Equal(-w / 4, o.Residual, 12);
         Assert.Equal(1, r.Statistics.DegreesOfFreedom);
@@ -82,9 +87,12 @@ public class AnalyticCaseTests
         Assert.Equal(180.0, atA + atB + atC, 9);
         var obs = new Observation[]
         {
-            new AngleObservation("A", "C", "B", Angle.FromDegrees(atA) + Angle.FromArcseconds(4)) { StandardDeviation = Arcsec(3) },
-            new AngleObservation("B", "A", "C", Angle.FromDegrees(atB) + Angle.FromArcseconds(-1)) { StandardDeviation = Arcsec(3) },
-            new AngleObservation("C", "B", "A", Angle.FromDegrees(atC) + Angle.FromArcseconds(3)) { StandardDeviation = Arcsec(3) },
+            new AngleObservation("A", "C", "B",
+                Angle.FromDegrees(atA) + Angle.FromArcseconds(4)) { StandardDeviation = Arcsec(3) },
+            new AngleObservation("B", "A", "C",
+                Angle.FromDegrees(atB) + Angle.FromArcseconds(-1)) { StandardDeviation = Arcsec(3) },
+            new AngleObservation("C", "B", "A",
+                Angle.FromDegrees(atC) + Angle.FromArcseconds(3)) { StandardDeviation = Arcsec(3) },
         };
         var r = Adjuster.Adjust(new SurveyNetwork("triangle", pts, obs));
         foreach (var o in r.Observations) Assert.Equal(-2.0, o.Residual * Angle.ArcsecondsPerRadian, 6);

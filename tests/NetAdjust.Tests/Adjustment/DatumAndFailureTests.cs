@@ -10,7 +10,8 @@ public class DatumAndFailureTests
     public void NetworkWithoutControlReportsAnUndefinedDatumNotASingularMatrix()
     {
         var pts = new[] { new Point("A") { E = 0, N = 0 }, new Point("B") { E = 100, N = 0 } };
-        var obs = new Observation[] { new DistanceObservation("A", "B", Length.FromMetres(100)) { StandardDeviation = 0.002 } };
+        var obs = new Observation[] { new DistanceObservation("A", "B", Length.FromMetres(100)) { StandardDeviation =
+            0.002 } };
         var e = Assert.Throws<DatumDefectException>(() => Adjuster.Adjust(new SurveyNetwork("free", pts, obs)));
         Assert.Contains("datum is not defined", e.Message);
         Assert.DoesNotContain("singular", e.Message, StringComparison.OrdinalIgnoreCase);
@@ -21,7 +22,8 @@ public class DatumAndFailureTests
     public void LevelNetworkWithoutAHeldHeightReportsTheDatum()
     {
         var pts = new[] { new Point("A"), new Point("B") };
-        var obs = new Observation[] { new HeightDifferenceObservation("A", "B", Length.FromMetres(1)) { StandardDeviation = 0.001 } };
+        var obs = new Observation[] { new HeightDifferenceObservation("A", "B",
+            Length.FromMetres(1)) { StandardDeviation = 0.001 } };
         var e = Assert.Throws<DatumDefectException>(() => Adjuster.Adjust(new SurveyNetwork("lev", pts, obs)));
         Assert.Contains("height of", e.Message);
     }
@@ -66,8 +68,10 @@ public class DatumAndFailureTests
     [Fact]
     public void InvalidNetworksListEveryProblemWithItsSource()
     {
-        var pts = new[] { new Point("A") { Fixed = Fixity.E, Source = "f.yaml:3" }, new Point("A") { Source = "f.yaml:4" } };
-        var obs = new Observation[] { new DistanceObservation("A", "Z", Length.FromMetres(-1)) { StandardDeviation = 0, Source = "f.yaml:7" } };
+        var pts = new[] { new Point("A") { Fixed = Fixity.E, Source = "f.yaml:3" }, new Point("A") { Source =
+            "f.yaml:4" } };
+        var obs = new Observation[] { new DistanceObservation("A", "Z", Length.FromMetres(-1)) { StandardDeviation = 0,
+            Source = "f.yaml:7" } };
         var e = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("bad", pts, obs));
         Assert.Contains("f.yaml:3: point A holds its easting fixed but gives no easting", e.Message);
         Assert.Contains("f.yaml:4: point A is defined twice", e.Message);

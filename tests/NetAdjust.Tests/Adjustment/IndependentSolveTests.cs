@@ -44,14 +44,16 @@ public class IndependentSolveTests
         }
         var xNe = factor.Solve(rhs);
         double scale = xQr.AbsoluteMaximum();
-        for (int j = 0; j < u; j++) Assert.True(Math.Abs(xNe[j] - xQr[j]) <= 1e-9 * scale, $"unknown {j}: {xNe[j]} vs {xQr[j]}");
+        for (int j = 0; j < u; j++)
+            Assert.True(Math.Abs(xNe[j] - xQr[j]) <= 1e-9 * scale, $"unknown {j}: {xNe[j]} vs {xQr[j]}");
 
         // Qxx = (R⁻¹)(R⁻¹)ᵀ from the QR factor, against the normal-equation inverse, entry by entry.
         var rInv = a.QR().R.SubMatrix(0, u, 0, u).Inverse();
         var q = rInv * rInv.Transpose();
         for (int i = 0; i < u; i++)
             for (int j = 0; j < u; j++)
-                Assert.True(Math.Abs(factor.InverseEntry(i, j) - q[i, j]) <= 1e-9 * Math.Sqrt(q[i, i] * q[j, j]), $"Qxx({i},{j})");
+                Assert.True(Math.Abs(factor.InverseEntry(i, j) - q[i, j]) <= 1e-9 * Math.Sqrt(q[i, i] * q[j, j]),
+                    $"Qxx({i},{j})");
     }
 
     [Fact]
@@ -65,7 +67,8 @@ public class IndependentSolveTests
         for (int i = 0; i < v.Length; i++)
             for (int k = 0; k < r.DesignRows[i].Columns.Length; k++)
                 atpv[r.DesignRows[i].Columns[k]] += r.DesignRows[i].Values[k] * pv[i];
-        double scale = r.DesignRows.Take(v.Length).Select((row, i) => row.Values.DefaultIfEmpty(0).Max(Math.Abs) * Math.Abs(pv[i])).Max();
+        double scale = r.DesignRows.Take(v.Length).Select((row, i) => row.Values.DefaultIfEmpty(0).Max(Math.Abs) *
+            Math.Abs(pv[i])).Max();
         Assert.All(atpv, x => Assert.True(Math.Abs(x) < 1e-8 * scale, $"AᵀPv component {x}"));
     }
 

@@ -16,7 +16,8 @@ namespace NetAdjust.Tests.LinearAlgebra;
 /// </summary>
 public class SparseEngineTests
 {
-    /// <summary>A random sparse least-squares problem: rows touching 1–5 unknowns near each other, some correlated weight blocks.</summary>
+    /// <summary>A random sparse least-squares problem: rows touching 1–5 unknowns near each other, some correlated
+    /// weight blocks.</summary>
     internal static (int U, SparseRow[] Rows, WeightMatrix W) RandomProblem(int seed, int u, bool blocks)
     {
         var rng = new Random(seed);
@@ -64,7 +65,8 @@ public class SparseEngineTests
             for (int k = 0; k < rows[i].Columns.Length; k++) a[i, rows[i].Columns[k]] += rows[i].Values[k];
         var p = Matrix<double>.Build.Dense(rows.Length, rows.Length);
         foreach (var blk in w.Blocks)
-            for (int s = 0; s < blk.Size; s++) for (int t = 0; t < blk.Size; t++) p[blk.Rows[s], blk.Rows[t]] = blk[s, t];
+            for (int s = 0; s < blk.Size; s++)
+                for (int t = 0; t < blk.Size; t++) p[blk.Rows[s], blk.Rows[t]] = blk[s, t];
         return a.TransposeThisAndMultiply(p * a);
     }
 
@@ -72,7 +74,8 @@ public class SparseEngineTests
 
     [Property(MaxTest = 25)]
     public Property SolveAndSelectedInverseEqualMathNetDenseOracle() =>
-        Prop.ForAll(Seeds, Gen.Choose(2, 60).ToArbitrary(), Gen.Elements(SparseOrdering.MinimumDegree, SparseOrdering.Automatic).ToArbitrary(), (seed, u, ordering) =>
+        Prop.ForAll(Seeds, Gen.Choose(2, 60).ToArbitrary(),
+            Gen.Elements(SparseOrdering.MinimumDegree, SparseOrdering.Automatic).ToArbitrary(), (seed, u, ordering) =>
         {
             var (n, rows, w) = RandomProblem(seed, u, blocks: seed % 2 == 0);
             var nDense = DenseNormal(n, rows, w);
@@ -84,7 +87,8 @@ public class SparseEngineTests
             var factor = (SparseCholeskyFactor)new SparseNormalEquationsSolver(ordering).Factorize(n, rows, w);
             var x = factor.Solve(b.ToArray());
             double scale = xRef.AbsoluteMaximum();
-            for (int i = 0; i < n; i++) Assert.True(Math.Abs(x[i] - xRef[i]) <= 1e-9 * scale, $"x[{i}] {x[i]} vs {xRef[i]}");
+            for (int i = 0; i < n; i++)
+                Assert.True(Math.Abs(x[i] - xRef[i]) <= 1e-9 * scale, $"x[{i}] {x[i]} vs {xRef[i]}");
 
             // Every entry on the pattern of L equals the dense inverse (MathNet Inverse as the oracle).
             int onPattern = 0;
@@ -94,7 +98,8 @@ public class SparseEngineTests
                     if (factor.IsOnPattern(i, j))
                     {
                         onPattern++;
-                        Assert.True(Math.Abs(factor.InverseEntry(i, j) - inv[i, j]) <= 1e-9 * invScale, $"Z[{i},{j}] {factor.InverseEntry(i, j)} vs {inv[i, j]}");
+                        Assert.True(Math.Abs(factor.InverseEntry(i, j) - inv[i, j]) <= 1e-9 * invScale,
+                            $"Z[{i},{j}] {factor.InverseEntry(i, j)} vs {inv[i, j]}");
                     }
             Assert.True(onPattern >= n);
             // An entry off the pattern falls back to a solve and still equals the oracle.
@@ -141,7 +146,8 @@ public class SparseEngineTests
                     if (Math.Abs(l[i, j]) > 1e-13 * Math.Sqrt(c[i, i] * c[j, j]))
                     {
                         count++;
-                        Assert.True(sym.TryLocate(i, j, out _), $"L({i},{j}) = {l[i, j]} is outside the symbolic pattern");
+                        Assert.True(sym.TryLocate(i, j, out _),
+                            $"L({i},{j}) = {l[i, j]} is outside the symbolic pattern");
                     }
                 Assert.True(count <= sym.ColumnCounts[j]);
                 nonzeros += count;
@@ -155,7 +161,8 @@ public class SparseEngineTests
     {
         var (n, rows, w1) = RandomProblem(7, 120, blocks: true);
         var rng = new Random(8);
-        var w2 = WeightMatrix.FromBlocks(rows.Length, w1.Blocks.Select(b => b with { Matrix = b.Matrix.Select(v => v * (1 + rng.NextDouble())).ToArray() })
+        var w2 = WeightMatrix.FromBlocks(rows.Length, w1.Blocks.Select(b => b with { Matrix = b.Matrix.Select(v => v *
+            (1 + rng.NextDouble())).ToArray() })
             .Select(b => Symmetrised(b)));
         var reused = new SparseNormalEquationsSolver();
         reused.Factorize(n, rows, w1);
@@ -209,19 +216,24 @@ public class SparseEngineTests
     public void SingularMatrixNamesAnUnknownWithoutPivot()
     {
         // unknown 2 appears in no row: no pivot for it
-        var rows = new[] { new SparseRow([0, 1], [1.0, -1.0]), new SparseRow([0], [1.0]), new SparseRow([1, 3], [1.0, 1.0]), new SparseRow([3], [2.0]) };
+        var rows = new[] { new SparseRow([0, 1], [1.0, -1.0]), new SparseRow([0], [1.0]), new SparseRow([1, 3], [1.0,
+            1.0]), new SparseRow([3], [2.0]) };
         var w = WeightMatrix.Diagonal([1.0, 1.0, 1.0, 1.0]);
-        var e = Assert.Throws<SingularNormalMatrixException>(() => new SparseNormalEquationsSolver().Factorize(4, rows, w));
+        var e = Assert.Throws<SingularNormalMatrixException>(() => new SparseNormalEquationsSolver().Factorize(4, rows,
+            w));
         Assert.Equal(2, e.Column);
     }
 
     [Property(MaxTest = 12)]
     public Property SparseAndDenseAdjustmentsAgree() =>
-        Prop.ForAll(Seeds, Gen.Choose(3, 5).ToArbitrary(), Gen.Elements(true, false).ToArbitrary(), (seed, side, levels) =>
+        Prop.ForAll(Seeds, Gen.Choose(3, 5).ToArbitrary(), Gen.Elements(true, false).ToArbitrary(),
+            (seed, side, levels) =>
         {
             var network = GridNetworks.Horizontal(seed, side, levelling: levels);
-            var dense = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
-            var sparse = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new SparseNormalEquationsSolver() });
+            var dense = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver =
+                new DenseNormalEquationsSolver() });
+            var sparse = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver =
+                new SparseNormalEquationsSolver() });
             AssertAgree(dense, sparse);
         });
 
@@ -231,13 +243,16 @@ public class SparseEngineTests
         foreach (var kind in new[] { SyntheticNetworkKind.Plane, SyntheticNetworkKind.Levels })
         {
             var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(kind, 150, Seed: 3) { ControlEvery = 40 });
-            var dense = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
-            var sparse = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new SparseNormalEquationsSolver() });
+            var dense = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver =
+                new DenseNormalEquationsSolver() });
+            var sparse = Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver =
+                new SparseNormalEquationsSolver() });
             AssertAgree(dense, sparse);
         }
     }
 
-    /// <summary>Coordinates, point sd and covariance, orientation sd, adjusted-observation sd, redundancy numbers, w-values, MDB, relative precision and Qxx on the pattern agree.</summary>
+    /// <summary>Coordinates, point sd and covariance, orientation sd, adjusted-observation sd, redundancy numbers,
+    /// w-values, MDB, relative precision and Qxx on the pattern agree.</summary>
     internal static void AssertAgree(AdjustmentResult dense, AdjustmentResult sparse)
     {
         const double rel = 1e-9;
@@ -245,7 +260,8 @@ public class SparseEngineTests
         {
             Assert.Equal(a is null, b is null);
             if (a is null) return;
-            Assert.True(Math.Abs(a.Value - b!.Value) <= rel * Math.Max(scale, Math.Abs(a.Value)), $"{what}: dense {a} sparse {b}");
+            Assert.True(Math.Abs(a.Value - b!.Value) <= rel * Math.Max(scale, Math.Abs(a.Value)),
+                $"{what}: dense {a} sparse {b}");
         }
         Assert.Equal(dense.Statistics.Iterations, sparse.Statistics.Iterations);
         Close(dense.Statistics.Vtpv, sparse.Statistics.Vtpv, 1e-6, "vᵀPv");
@@ -254,11 +270,13 @@ public class SparseEngineTests
             var a = dense.Points[i]; var b = sparse.Points[i];
             // coordinates: relative to the 1 km extent of the network (a correction of 1e-6 m shows)
             Close(a.E, b.E, 1, $"E {a.Id}"); Close(a.N, b.N, 1, $"N {a.Id}"); Close(a.H, b.H, 1, $"H {a.Id}");
-            Close(a.SdE, b.SdE, 1e-4, $"sdE {a.Id}"); Close(a.SdN, b.SdN, 1e-4, $"sdN {a.Id}"); Close(a.SdH, b.SdH, 1e-4, $"sdH {a.Id}");
+            Close(a.SdE, b.SdE, 1e-4, $"sdE {a.Id}"); Close(a.SdN, b.SdN, 1e-4, $"sdN {a.Id}"); Close(a.SdH, b.SdH,
+                1e-4, $"sdH {a.Id}");
             Close(a.CovEN, b.CovEN, 1e-8, $"covEN {a.Id}");
         }
         for (int i = 0; i < dense.Observations.Count; i++)
-            Close(dense.Observations[i].SdAdjusted, sparse.Observations[i].SdAdjusted, 1e-6, $"sd of adjusted observation {i}");
+            Close(dense.Observations[i].SdAdjusted, sparse.Observations[i].SdAdjusted, 1e-6,
+                $"sd of adjusted observation {i}");
         for (int i = 0; i < dense.Orientations.Count; i++)
             Close(dense.Orientations[i].Sd, sparse.Orientations[i].Sd, 1e-9, $"orientation sd {i}");
         // Statistics from Qxx on the pattern: redundancy numbers, w-values, MDB, absolute and relative ellipses.
@@ -273,16 +291,19 @@ public class SparseEngineTests
             // (more where rᵢ is small). w is a unit-variance statistic; 1e-7 still exposes any wrong Qxx entry.
             Assert.Equal(da.Observations[i].W is null, sa.Observations[i].W is null);
             if (da.Observations[i].W is double wd)
-                Assert.True(Math.Abs(wd - sa.Observations[i].W!.Value) <= 1e-7, $"w-value {i}: dense {wd} sparse {sa.Observations[i].W}");
+                Assert.True(Math.Abs(wd - sa.Observations[i].W!.Value) <= 1e-7,
+                    $"w-value {i}: dense {wd} sparse {sa.Observations[i].W}");
             Close(da.Observations[i].Mdb, sa.Observations[i].Mdb, 1e-6, $"MDB {i}");
         }
         Assert.Equal(da.Relative.Count, sa.Relative.Count);
         for (int i = 0; i < da.Relative.Count; i++)
-            Close(da.Relative[i].SdDistance, sa.Relative[i].SdDistance, 1e-6, $"relative sd {da.Relative[i].From}-{da.Relative[i].To}");
+            Close(da.Relative[i].SdDistance, sa.Relative[i].SdDistance, 1e-6,
+                $"relative sd {da.Relative[i].From}-{da.Relative[i].To}");
         // every Qxx entry between unknowns of one design row
         foreach (var row in sparse.DesignRows)
             foreach (int i in row.Columns)
                 foreach (int j in row.Columns)
-                    Close(dense.Cofactor(i, j), sparse.Cofactor(i, j), Math.Sqrt(Math.Abs(dense.Cofactor(i, i) * dense.Cofactor(j, j))), $"Qxx({i},{j})");
+                    Close(dense.Cofactor(i, j), sparse.Cofactor(i, j),
+                        Math.Sqrt(Math.Abs(dense.Cofactor(i, i) * dense.Cofactor(j, j))), $"Qxx({i},{j})");
     }
 }

@@ -21,7 +21,8 @@ public class BlockWeightTests
         int m = rows.Count, u = baseResult.Unknowns.Count;
         var blocks = new List<WeightBlock>();
         var cov = Matrix<double>.Build.Dense(m, m);
-        foreach (var set in Enumerable.Range(0, m).GroupBy(i => net.Observations[i] is NetAdjust.Network.DirectionObservation d ? d.SetId : "#" + i))
+        foreach (var set in Enumerable.Range(0, m).GroupBy(i =>
+            net.Observations[i] is NetAdjust.Network.DirectionObservation d ? d.SetId : "#" + i))
         {
             var idx = set.ToArray();
             var c = Matrix<double>.Build.Dense(idx.Length, idx.Length, (a, b) =>
@@ -40,18 +41,21 @@ public class BlockWeightTests
         var l = baseResult.Observations.Select(o => -o.Residual).ToArray();
         var pl = weights.Multiply(l);
         var rhs = new double[u];
-        for (int i = 0; i < m; i++) for (int k = 0; k < rows[i].Columns.Length; k++) rhs[rows[i].Columns[k]] += rows[i].Values[k] * pl[i];
+        for (int i = 0; i < m; i++)
+            for (int k = 0; k < rows[i].Columns.Length; k++) rhs[rows[i].Columns[k]] += rows[i].Values[k] * pl[i];
         var x = factor.Solve(rhs);
         var v = Enumerable.Range(0, m).Select(i => rows[i].Dot(x) - l[i]).ToArray();
         var obs = baseResult.Observations.Select((o, i) => o with { Residual = v[i] }).ToArray();
         int dof = m - u;
         double vtpv = weights.Quadratic(v);
         var stats = new AdjustmentStatistics(m, u, dof, vtpv, 1.0, 1, GlobalTest.Compute(vtpv, 1.0, dof, 0.05));
-        var result = new AdjustmentResult(net, AdjustmentOptions.Default, baseResult.Unknowns, factor, baseResult.Points, obs,
+        var result = new AdjustmentResult(net, AdjustmentOptions.Default, baseResult.Unknowns, factor,
+            baseResult.Points, obs,
             baseResult.Orientations, stats, "dense", rows, weights);
 
         var A = Matrix<double>.Build.Dense(m, u);
-        for (int i = 0; i < m; i++) for (int k = 0; k < rows[i].Columns.Length; k++) A[i, rows[i].Columns[k]] = rows[i].Values[k];
+        for (int i = 0; i < m; i++)
+            for (int k = 0; k < rows[i].Columns.Length; k++) A[i, rows[i].Columns[k]] = rows[i].Values[k];
         var P = cov.Inverse();
         var Qvv = cov - (A * (A.Transpose() * P * A).Inverse() * A.Transpose());
         var R = Qvv * P; var PQP = P * Qvv * P; var Pv = P * Vector<double>.Build.DenseOfArray(v);
@@ -61,7 +65,8 @@ public class BlockWeightTests
         {
             Assert.Equal(R[i, i], an.Observations[i].Redundancy, 9);
             Assert.Equal(Pv[i] / Math.Sqrt(PQP[i, i]), an.Observations[i].W!.Value, 6);
-            Assert.Equal(CriticalValues.NonCentrality(0.001, 0.2) / Math.Sqrt(PQP[i, i]), an.Observations[i].Mdb!.Value, 9);
+            Assert.Equal(CriticalValues.NonCentrality(0.001, 0.2) / Math.Sqrt(PQP[i, i]), an.Observations[i].Mdb!.Value,
+                9);
         }
     }
 }

@@ -71,7 +71,8 @@ public class CriticalValuesTests
     }
 
     [Fact]
-    public void TauNeedsTwoDegreesOfFreedom() => Assert.Null(CriticalValues.Tau(1, 10, 0.05, MultipleTestAdjustment.Sidak));
+    public void TauNeedsTwoDegreesOfFreedom() =>
+        Assert.Null(CriticalValues.Tau(1, 10, 0.05, MultipleTestAdjustment.Sidak));
 
     [Fact]
     public void EllipseScalesMatchTheComputedValues()

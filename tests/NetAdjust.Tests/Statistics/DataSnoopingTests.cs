@@ -71,12 +71,14 @@ public class DataSnoopingTests
         var clean = Adjuster.Adjust(net, Quick);
         var strong = clean.Analysis.Observations.Where(t => t.Redundancy > 0.5).Select(t => t.Index).ToList();
         int i = strong[1], j = strong[^2];
-        var biased = BracedNetworks.WithBias(BracedNetworks.WithBias(net, i, 25 * net.Observations[i].StandardDeviation), j, -25 * net.Observations[j].StandardDeviation);
+        var biased = BracedNetworks.WithBias(BracedNetworks.WithBias(net, i, 25 *
+            net.Observations[i].StandardDeviation), j, -25 * net.Observations[j].StandardDeviation);
         var rb = RobustEstimation.Run(biased, method, Quick);
         Assert.True(rb.Converged);
         Assert.Equal(new[] { i, j }.Order(), rb.Suspected.Take(2).Order());
         Assert.True(rb.WeightFactors[i] < 0.2 && rb.WeightFactors[j] < 0.2);
-        int others = Enumerable.Range(0, net.Observations.Count).Count(k => k != i && k != j && rb.WeightFactors[k] < 0.5);
+        int others = Enumerable.Range(0, net.Observations.Count).Count(k => k != i && k != j &&
+            rb.WeightFactors[k] < 0.5);
         Assert.True(others <= 1, $"{others} clean observations were strongly down-weighted");
     }
 

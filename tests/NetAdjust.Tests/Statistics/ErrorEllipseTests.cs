@@ -25,7 +25,8 @@ public class ErrorEllipseTests
             var evd = m.Evd(Symmetricity.Symmetric);
             var ev = evd.EigenValues.Select(z => z.Real).OrderByDescending(x => x).ToArray();
             double scale = ev[0];
-            bool axes = Math.Abs((e.A * e.A) - ev[0]) <= 1e-12 * scale && Math.Abs((e.B * e.B) - ev[1]) <= 1e-11 * scale;
+            bool axes = Math.Abs((e.A * e.A) - ev[0]) <= 1e-12 * scale &&
+                Math.Abs((e.B * e.B) - ev[1]) <= 1e-11 * scale;
             int major = evd.EigenValues[0].Real >= evd.EigenValues[1].Real ? 0 : 1;
             var vec = evd.EigenVectors.Column(major); // (E, N) components
             double dot = Math.Abs((vec[0] * Math.Sin(e.Azimuth)) + (vec[1] * Math.Cos(e.Azimuth)));

@@ -22,16 +22,19 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
     {
         var options = AdjustmentOptions.Default with
         {
-            Analysis = AnalysisOptions.Default with { ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false },
+            Analysis = AnalysisOptions.Default with { ExternalReliability = ExternalReliabilityMode.Never,
+                RelativeForObservedPairs = false },
         };
         var (exact, truth) = BracedNetworks.Horizontal(2026, 3, noise: 0.0);
         var reference = Adjuster.Adjust(exact, options);
         int r = reference.Statistics.DegreesOfFreedom;
         var free = reference.Points.Where(p => p.SdE > 0).Select(p => p.Id).ToArray();
-        var cols = free.SelectMany(id => new[] { reference.Unknowns.IndexOf(id, Parameter.E), reference.Unknowns.IndexOf(id, Parameter.N) }).ToArray();
+        var cols = free.SelectMany(id => new[] { reference.Unknowns.IndexOf(id, Parameter.E),
+            reference.Unknowns.IndexOf(id, Parameter.N) }).ToArray();
         int q = cols.Length, nObs = reference.Observations.Count;
         var cov = new double[q, q];
-        for (int j = 0; j < q; j++) for (int k = 0; k < q; k++) cov[j, k] = reference.Cofactor(cols[j], cols[k]); // σ0² = 1
+        // σ0² = 1
+        for (int j = 0; j < q; j++) for (int k = 0; k < q; k++) cov[j, k] = reference.Cofactor(cols[j], cols[k]);
 
         double sumVf = 0; int rejected = 0;
         var wSum = new double[nObs]; var wSq = new double[nObs];
@@ -54,7 +57,8 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
             if (res.Statistics.GlobalTest.Passed == false) rejected++;
             var a = res.Analysis;
             for (int i = 0; i < nObs; i++) { double w = a.Observations[i].W!.Value; wSum[i] += w; wSq[i] += w * w; }
-            var x = free.SelectMany(id => { var p = res.Points.Single(pp => pp.Id == id); return new[] { p.E!.Value, p.N!.Value }; }).ToArray();
+            var x = free.SelectMany(id => { var p = res.Points.Single(pp => pp.Id == id); return new[] { p.E!.Value,
+                p.N!.Value }; }).ToArray();
             var est = ResultAnalysis.Analyse(res, estimatedOptions);
             for (int f = 0; f < free.Length; f++)
             {
@@ -78,7 +82,8 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
 
         // Global test (two-tailed, α = 0.05): rejection rate ≈ α, binomial sd √(α(1−α)/N).
         double alpha = options.GlobalTestAlpha;
-        Assert.InRange(rejected / n - alpha, -4.5 * Math.Sqrt(alpha * (1 - alpha) / n), 4.5 * Math.Sqrt(alpha * (1 - alpha) / n));
+        Assert.InRange(rejected / n - alpha, -4.5 * Math.Sqrt(alpha * (1 - alpha) / n),
+            4.5 * Math.Sqrt(alpha * (1 - alpha) / n));
 
         // Each observation's w: mean 0 (sd of the mean 1/√N) and standard deviation 1 (sd of a sample sd ≈ 1/√(2N)).
         for (int i = 0; i < nObs; i++)
@@ -95,7 +100,9 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
         double cover = 4.5 * Math.Sqrt(0.95 * 0.05 / n);
         for (int f = 0; f < free.Length; f++)
         {
-            output.WriteLine($"{free[f]}: 95% ellipse coverage known {insideKnown[f] / n:F4}, estimated {insideEstimated[f] / n:F4}");
+            output.WriteLine(
+                $"{free[f]}: 95% ellipse coverage known {insideKnown[f] / n:F4}, estimated " +
+                $"{insideEstimated[f] / n:F4}");
             Assert.InRange(insideKnown[f] / n - 0.95, -cover, cover);
             Assert.InRange(insideEstimated[f] / n - 0.95, -cover, cover);
         }
@@ -117,13 +124,15 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
     [Fact]
     public void TauTestRejectsACleanNetworkAtAboutTheChosenLevel()
     {
-        // Pope (1976): with α′ from Šidák, the chance that any |τᵢ| exceeds τ_crit in a clean network is at most about α
+        // Pope (1976): with α′ from Šidák, the chance that any |τᵢ| exceeds τ_crit in a clean network is at most about
+        // α
         // (the τᵢ are correlated, so the family-wise rate is ≤ α). Binomial sd √(α(1−α)/N).
         var options = AdjustmentOptions.Default with
         {
             Analysis = AnalysisOptions.Default with
             {
-                VarianceFactor = VarianceFactorBasis.Estimated, ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false,
+                VarianceFactor = VarianceFactorBasis.Estimated, ExternalReliability = ExternalReliabilityMode.Never,
+                    RelativeForObservedPairs = false,
             },
         };
         int any = 0; const int runs = 600;
@@ -145,9 +154,11 @@ public class MonteCarloCalibrationTests(Xunit.Abstractions.ITestOutputHelper out
         var exact = Adjuster.Adjust(net); // any consistent set of heights serves as the truth
         var h = exact.Points.ToDictionary(p => p.Id, p => p.H!.Value);
         var rnd = new Random(seed);
-        var obs = net.Observations.Select(o => (NetAdjust.Network.Observation)((NetAdjust.Network.HeightDifferenceObservation)o with
+        var obs = net.Observations.Select(o =>
+            (NetAdjust.Network.Observation)((NetAdjust.Network.HeightDifferenceObservation)o with
         {
-            Difference = NetAdjust.Units.Length.FromMetres(h[o.To] - h[o.From] + (o.StandardDeviation * Normal.Sample(rnd, 0, 1))),
+            Difference = NetAdjust.Units.Length.FromMetres(h[o.To] - h[o.From] + (o.StandardDeviation *
+                Normal.Sample(rnd, 0, 1))),
         }));
         return new NetAdjust.Network.SurveyNetwork(net.Name, net.Points, obs);
     }

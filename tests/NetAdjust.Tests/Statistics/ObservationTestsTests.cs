@@ -28,7 +28,8 @@ public class ObservationTestsTests
         Prop.ForAll(Arb.From(gen), t =>
         {
             var net = t.lev ? BracedNetworks.Levelling(t.seed, t.free + 2, t.free + 1).Network
-                            : BracedNetworks.Horizontal(t.seed, t.free, allPairs: false, pairProbability: t.Item3).Network;
+                            : BracedNetworks.Horizontal(t.seed, t.free, allPairs: false,
+                                pairProbability: t.Item3).Network;
             var res = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never));
             var a = res.Analysis;
             bool sum = Math.Abs(a.RedundancySum - res.Statistics.DegreesOfFreedom) < 1e-8;
@@ -47,7 +48,8 @@ public class ObservationTestsTests
         int m = res.DesignRows.Count, u = res.Unknowns.Count;
         var A = Matrix<double>.Build.Dense(m, u);
         for (int i = 0; i < m; i++)
-            for (int k = 0; k < res.DesignRows[i].Columns.Length; k++) A[i, res.DesignRows[i].Columns[k]] = res.DesignRows[i].Values[k];
+            for (int k = 0; k < res.DesignRows[i].Columns.Length; k++)
+                A[i, res.DesignRows[i].Columns[k]] = res.DesignRows[i].Values[k];
         var P = Matrix<double>.Build.Diagonal(m, m, i => res.Weights.DiagonalEntry(i));
         var Qxx = (A.Transpose() * P * A).Inverse();
         var Qvv = P.Inverse() - (A * Qxx * A.Transpose());
@@ -73,11 +75,13 @@ public class ObservationTestsTests
         foreach (int i in new[] { 0, 4, 9, res.Observations.Count - 1 })
         {
             var t = res.Analysis.Observations[i];
-            var biased = Adjuster.Adjust(BracedNetworks.WithBias(net, i, t.Mdb!.Value), Opt(ExternalReliabilityMode.Never));
+            var biased = Adjuster.Adjust(BracedNetworks.WithBias(net, i, t.Mdb!.Value),
+                Opt(ExternalReliabilityMode.Never));
             double best = 0;
             for (int p = 0; p < res.Points.Count; p++)
             {
-                double de = biased.Points[p].E!.Value - res.Points[p].E!.Value, dn = biased.Points[p].N!.Value - res.Points[p].N!.Value;
+                double de = biased.Points[p].E!.Value - res.Points[p].E!.Value, dn =
+                    biased.Points[p].N!.Value - res.Points[p].N!.Value;
                 best = Math.Max(best, Math.Sqrt((de * de) + (dn * dn)));
             }
             Assert.Equal(best, t.ExternalReliability!.Value, 6); // metres; linearisation error ≪ 1 µm
@@ -88,13 +92,15 @@ public class ObservationTestsTests
     public void ASetAsideObservationGetsTheWItWouldHaveIfPutBack()
     {
         // For a diagonal weight, the standardised misclosure l / √(σ² + σ0² a Qxx aᵀ) of an observation left out
-        // equals its w-test value in the adjustment that includes it (common practice; follows from the update formulas).
+        // equals its w-test value in the adjustment that includes it (common practice; follows from the update
+        // formulas).
         var (net, _) = BracedNetworks.Horizontal(11, 3, noise: 1.0);
         var biasedNet = BracedNetworks.WithBias(net, 6, 0.03);
         var full = Adjuster.Adjust(biasedNet, Opt(ExternalReliabilityMode.Never));
         var obs = biasedNet.Observations.ToArray();
         obs[6] = obs[6] with { Excluded = true };
-        var without = Adjuster.Adjust(new SurveyNetwork("x", biasedNet.Points, obs), Opt(ExternalReliabilityMode.Never));
+        var without = Adjuster.Adjust(new SurveyNetwork("x", biasedNet.Points, obs),
+            Opt(ExternalReliabilityMode.Never));
         var t = without.Analysis.Observations[6];
         Assert.Equal(ObservationFlag.Excluded, t.Flag);
         // Exact in the linear model; here the two adjustments are linearised at points a few centimetres apart and
@@ -114,14 +120,17 @@ public class ObservationTestsTests
     public void RelativeEllipsesAgreeWithTheFullCovarianceForObservedAndListedPairs()
     {
         // Relative covariance D = Q_bb + Q_aa − Q_ab − Q_ba (Mikhail & Ackermann 1976); the full Qxx from MathNet's
-        // dense inverse is the independent reference, for a pair read from the factor's pattern and one found by solves.
+        // dense inverse is the independent reference, for a pair read from the factor's pattern and one found by
+        // solves.
         var (net, _) = BracedNetworks.Horizontal(23, 4, allPairs: false, pairProbability: 0.0);
-        var options = Opt() with { Analysis = AnalysisOptions.Default with { RelativePairs = [("P1", "P2"), ("P3", "P4")] } };
+        var options = Opt() with { Analysis = AnalysisOptions.Default with { RelativePairs = [("P1", "P2"), ("P3",
+            "P4")] } };
         var res = Adjuster.Adjust(net, options);
         int m = res.DesignRows.Count, u = res.Unknowns.Count;
         var A = Matrix<double>.Build.Dense(m, u);
         for (int i = 0; i < m; i++)
-            for (int k = 0; k < res.DesignRows[i].Columns.Length; k++) A[i, res.DesignRows[i].Columns[k]] = res.DesignRows[i].Values[k];
+            for (int k = 0; k < res.DesignRows[i].Columns.Length; k++)
+                A[i, res.DesignRows[i].Columns[k]] = res.DesignRows[i].Values[k];
         var P = Matrix<double>.Build.Diagonal(m, m, i => res.Weights.DiagonalEntry(i));
         var Qxx = (A.Transpose() * P * A).Inverse();
         var listed = res.Analysis.Relative.Where(r => !r.Observed).ToList();
@@ -130,7 +139,8 @@ public class ObservationTestsTests
         {
             int Col(string id, Parameter p) => res.Unknowns.IndexOf(id, p);
             double C(int i, int j) => i < 0 || j < 0 ? 0 : Qxx[i, j];
-            int ae = Col(rel.From, Parameter.E), an = Col(rel.From, Parameter.N), be = Col(rel.To, Parameter.E), bn = Col(rel.To, Parameter.N);
+            int ae = Col(rel.From, Parameter.E), an = Col(rel.From, Parameter.N), be = Col(rel.To, Parameter.E), bn =
+                Col(rel.To, Parameter.N);
             double dee = C(be, be) + C(ae, ae) - (2 * C(ae, be));
             double dnn = C(bn, bn) + C(an, an) - (2 * C(an, bn));
             double den = C(be, bn) + C(ae, an) - C(ae, bn) - C(an, be);
@@ -159,12 +169,14 @@ public class ObservationTestsTests
     {
         var (net, _) = BracedNetworks.Horizontal(8, 3, noise: 2.0);
         var known = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never));
-        var est = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never) with { Analysis = AnalysisOptions.Default with { VarianceFactor = VarianceFactorBasis.Estimated } });
+        var est = Adjuster.Adjust(net, Opt(ExternalReliabilityMode.Never) with { Analysis =
+            AnalysisOptions.Default with { VarianceFactor = VarianceFactorBasis.Estimated } });
         double s0 = known.Statistics.Sigma0!.Value;
         int r = known.Statistics.DegreesOfFreedom;
         var k = known.Analysis.Points[2].Ellipse!.Value; var e = est.Analysis.Points[2].Ellipse!.Value;
         Assert.Equal(k.A * s0, e.A, 12);
-        Assert.Equal(Math.Sqrt(2 * MathNet.Numerics.Distributions.FisherSnedecor.InvCDF(2, r, 0.95)), est.Analysis.EllipseScale, 12);
+        Assert.Equal(Math.Sqrt(2 * MathNet.Numerics.Distributions.FisherSnedecor.InvCDF(2, r, 0.95)),
+            est.Analysis.EllipseScale, 12);
         Assert.Equal(VarianceFactorBasis.Estimated, est.Analysis.Basis);
     }
 
@@ -172,7 +184,8 @@ public class ObservationTestsTests
     public void AnObservationThatAloneFixesAnUnknownIsUncontrolled()
     {
         // A single distance to a point with no other observation: r = 0, no test possible (Baarda 1968).
-        var pts = new[] { new Point("A") { E = 0, N = 0, Fixed = Fixity.EN }, new Point("B") { E = 100, N = 0, Fixed = Fixity.EN }, new Point("C") { E = 50, N = 80 } };
+        var pts = new[] { new Point("A") { E = 0, N = 0, Fixed = Fixity.EN }, new Point("B") { E = 100, N = 0, Fixed =
+            Fixity.EN }, new Point("C") { E = 50, N = 80 } };
         var obs = new Observation[]
         {
             new DistanceObservation("A", "C", NetAdjust.Units.Length.FromMetres(94.34)) { StandardDeviation = 0.003 },
@@ -190,7 +203,8 @@ public class ObservationTestsTests
     [Fact]
     public void ExcludingRowsOfACorrelatedBlockGivesTheInverseOfTheRemainingCovariance()
     {
-        // (Σ_kept)⁻¹ = P_kk − P_ke P_ee⁻¹ P_ek (Schur complement), against MathNet's inverse of the covariance sub-block.
+        // (Σ_kept)⁻¹ = P_kk − P_ke P_ee⁻¹ P_ek (Schur complement), against MathNet's inverse of the covariance
+        // sub-block.
         var cov = Matrix<double>.Build.DenseOfArray(new[,] { { 4.0, 1.0, 0.5 }, { 1.0, 3.0, 0.2 }, { 0.5, 0.2, 2.0 } });
         var p = cov.Inverse();
         var wm = WeightMatrix.FromBlocks(3, [new WeightBlock([0, 1, 2], p.ToRowMajorArray())]).Excluding([1]);

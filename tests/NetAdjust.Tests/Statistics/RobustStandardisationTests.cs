@@ -40,7 +40,8 @@ public class RobustStandardisationTests
         var biased = BracedNetworks.WithBias(net, i0, 20 * net.Observations[i0].StandardDeviation);
         var rb = RobustEstimation.Run(biased, method, Quick);
         Assert.True(rb.Converged);
-        var reweighted = biased.Observations.Select((o, k) => Reweighting.WithSd(o, o.StandardDeviation / Math.Sqrt(rb.WeightFactors[k]))).ToArray();
+        var reweighted = biased.Observations.Select((o, k) => Reweighting.WithSd(o,
+            o.StandardDeviation / Math.Sqrt(rb.WeightFactors[k]))).ToArray();
         int checkedCount = 0;
         for (int i = 0; i < reweighted.Length; i++)
         {
@@ -49,10 +50,12 @@ public class RobustStandardisationTests
             obs[i] = biased.Observations[i] with { Excluded = true }; // given σ, no weight
             var loo = Adjuster.Adjust(new SurveyNetwork(biased.Name, biased.Points, obs), Quick);
             double sd = biased.Observations[i].StandardDeviation, sdOthers = loo.Observations[i].SdAdjusted;
-            if (sd * sd / ((sd * sd) + (sdOthers * sdOthers)) < 0.01) continue; // uncontrolled by the others: not tested by u
+            // uncontrolled by the others: not tested by u
+            if (sd * sd / ((sd * sd) + (sdOthers * sdOthers)) < 0.01) continue;
             double expected = Math.Abs(loo.Analysis.Observations[i].W!.Value);
             // both adjustments iterate until corrections are below 1e-6 m: they agree to about 1e-7 relative
-            Assert.True(Math.Abs(rb.Standardised[i] - expected) <= 1e-6 * expected, $"#{i}: u {rb.Standardised[i]} against {expected}");
+            Assert.True(Math.Abs(rb.Standardised[i] - expected) <= 1e-6 * expected,
+                $"#{i}: u {rb.Standardised[i]} against {expected}");
             checkedCount++;
         }
         Assert.True(checkedCount >= 1);
@@ -74,7 +77,8 @@ public class RobustStandardisationTests
         Assert.True(candidates.Count > 10);
         foreach (int i in candidates)
         {
-            var rb = RobustEstimation.Run(BracedNetworks.WithBias(net, i, 20 * net.Observations[i].StandardDeviation), method, Quick);
+            var rb = RobustEstimation.Run(BracedNetworks.WithBias(net, i, 20 * net.Observations[i].StandardDeviation),
+                method, Quick);
             Assert.Equal(new[] { i }, rb.Suspected);
         }
     }

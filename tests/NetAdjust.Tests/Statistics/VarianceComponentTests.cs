@@ -45,8 +45,10 @@ public class VarianceComponentTests(Xunit.Abstractions.ITestOutputHelper output)
         var fin = vc.Final;
         foreach (var kind in new[] { ObservationKind.Distance, ObservationKind.Direction })
         {
-            var idx = Enumerable.Range(0, fin.Observations.Count).Where(i => fin.Network.Observations[i].Kind == kind).ToList();
-            double q = idx.Sum(i => Math.Pow(fin.Observations[i].Residual / fin.Network.Observations[i].StandardDeviation, 2));
+            var idx = Enumerable.Range(0, fin.Observations.Count).Where(i =>
+                fin.Network.Observations[i].Kind == kind).ToList();
+            double q = idx.Sum(i =>
+                Math.Pow(fin.Observations[i].Residual / fin.Network.Observations[i].StandardDeviation, 2));
             double r = idx.Sum(i => fin.Analysis.Observations[i].Redundancy);
             Assert.Equal(1.0, q / r, 3);
         }

@@ -21,11 +21,13 @@ public class VarianceComponentWeakNoteTests
         // Test data only: one closed loop of five sections, one held benchmark: the height group has r = 1 exactly.
         var points = new[]
         {
-            new Point("B1") { H = 50.0, Fixed = Fixity.H }, new Point("B2"), new Point("B3"), new Point("B4"), new Point("B5"),
+            new Point("B1") { H = 50.0, Fixed = Fixity.H }, new Point("B2"), new Point("B3"), new Point("B4"),
+                new Point("B5"),
         };
         double[] dh = [1.2031, -0.4406, 2.0109, -1.5502, -1.2210]; // misclosure +2.2 mm
         string[] ids = ["B1", "B2", "B3", "B4", "B5"];
-        var obs = Enumerable.Range(0, 5).Select(k => (Observation)new HeightDifferenceObservation(ids[k], ids[(k + 1) % 5], Length.FromMetres(dh[k]))
+        var obs = Enumerable.Range(0, 5).Select(k => (Observation)new HeightDifferenceObservation(ids[k], ids[(k +
+            1) % 5], Length.FromMetres(dh[k]))
         { StandardDeviation = 0.001 }).ToArray();
         var vc = VarianceComponents.Estimate(new SurveyNetwork("loop", points, obs));
         var g = vc.Groups.Single();
@@ -36,7 +38,8 @@ public class VarianceComponentWeakNoteTests
         Assert.Contains("weak", g.Note);
         var m = Regex.Match(g.Note!, @"roughly ([0-9.E+\-]+) to ([0-9.E+\-]+)\)");
         Assert.True(m.Success, g.Note);
-        double lo = double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), hi = double.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture);
+        double lo = double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), hi =
+            double.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture);
         // χ²(0.975; 1) = 5.0239 (NIST/SEMATECH e-Handbook, table of χ² critical values, seen in a reproduction) and
         // χ²(0.025; 1) = 0.000982 (computed); docs/references.md §2. The note prints three significant digits.
         Assert.InRange(lo / (g.VarianceFactor / 5.0239), 0.995, 1.005);
@@ -50,6 +53,7 @@ public class VarianceComponentWeakNoteTests
         var vc = VarianceComponents.Estimate(net, fitDistanceSpec: false);
         Assert.Contains(vc.Groups, g => g.Redundancy >= VarianceComponents.WeakGroupRedundancy);
         foreach (var g in vc.Groups)
-            Assert.Equal(g.Redundancy < VarianceComponents.WeakGroupRedundancy, g.Note?.Contains("weak", StringComparison.Ordinal) == true);
+            Assert.Equal(g.Redundancy < VarianceComponents.WeakGroupRedundancy,
+                g.Note?.Contains("weak", StringComparison.Ordinal) == true);
     }
 }

@@ -10,7 +10,8 @@ public class BudgetBuilderTests
 {
     private static double Arcsec(double rad) => rad * Angle.ArcsecondsPerRadian;
 
-    private static TotalStationSpecification Station(double isoArcsec, double centering = 0, EdmSpecification? edm = null) =>
+    private static TotalStationSpecification Station(double isoArcsec, double centering = 0,
+        EdmSpecification? edm = null) =>
         new("T", Angle.FromArcseconds(isoArcsec).Radians, 0, edm, centering, 0);
 
     // Rules of thumb of the trade (common practice), for a 5" instrument in the sense of ISO 17123-3
@@ -36,9 +37,13 @@ public class BudgetBuilderTests
     public void DirectionSetsAndFaces()
     {
         // ISO 17123-3 σ is for one direction in both faces: n sets → σ/√n; one face → σ√2/√n (common practice).
-        Assert.Equal(5.0, Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians, ObservingProcedure.Default)), 12);
-        Assert.Equal(5.0 / 2, Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians, new ObservingProcedure(4, Faces.Both))), 12);
-        Assert.Equal(5.0, Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians, new ObservingProcedure(2, Faces.One))), 12);
+        Assert.Equal(5.0, Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians,
+            ObservingProcedure.Default)), 12);
+        Assert.Equal(5.0 / 2,
+            Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians,
+            new ObservingProcedure(4, Faces.Both))), 12);
+        Assert.Equal(5.0, Arcsec(DirectionBudgetBuilder.PointingReading(Angle.FromArcseconds(5).Radians,
+            new ObservingProcedure(2, Faces.One))), 12);
     }
 
     [Fact]
@@ -73,9 +78,11 @@ public class BudgetBuilderTests
         double dN = eq.Partials.Where(p => p.Owner == "A" && p.Parameter == Parameter.N).Sum(p => p.Derivative);
         double sigmaI = 0.0012;
         var j = Matrix<double>.Build.DenseOfArray(new[,] { { dE, dN } });
-        double expected = Math.Sqrt(ErrorPropagation.Propagate(j, Matrix<double>.Build.DiagonalIdentity(2) * (sigmaI * sigmaI))[0, 0]);
+        double expected = Math.Sqrt(ErrorPropagation.Propagate(j, Matrix<double>.Build.DiagonalIdentity(2) * (sigmaI *
+            sigmaI))[0, 0]);
 
-        var b = AngleBudgetBuilder.Build(Station(1, sigmaI), null, null, ObservingProcedure.Default, 120, 85, 1.9 - 0.3);
+        var b = AngleBudgetBuilder.Build(Station(1, sigmaI), null, null, ObservingProcedure.Default, 120, 85, 1.9 -
+            0.3);
         Assert.Equal(expected, b.ValueOf(ContributionNames.InstrumentCentering), 12);
         // And the law of cosines form: D3 = distance between the targets.
         double d3 = Math.Sqrt(Math.Pow(fore.E - back.E, 2) + Math.Pow(fore.N - back.N, 2));
@@ -85,7 +92,8 @@ public class BudgetBuilderTests
     [Fact]
     public void DirectionCenteringIsSigmaOverDistance()
     {
-        var b = DirectionBudgetBuilder.Build(Station(1, 0.001), new TargetSpecification("P", 0.002, 0), ObservingProcedure.Default, 200);
+        var b = DirectionBudgetBuilder.Build(Station(1, 0.001), new TargetSpecification("P", 0.002, 0),
+            ObservingProcedure.Default, 200);
         Assert.Equal(0.001 / 200, b.ValueOf(ContributionNames.InstrumentCentering), 15);
         Assert.Equal(0.002 / 200, b.ValueOf(ContributionNames.TargetCentering), 15);
     }
@@ -102,7 +110,8 @@ public class BudgetBuilderTests
         Assert.Equal(0.0004 * Math.Sqrt(32), s16, 15);
         Assert.Equal(2.0, s16 / s4, 12);
         // The mean of a double run divides by √2 (error of redundant measurement).
-        Assert.Equal(s16 / Math.Sqrt(2), HeightDifferenceBudgetBuilder.Build(level, null, new LevellingProcedure(16, 2)).Total, 15);
+        Assert.Equal(s16 / Math.Sqrt(2),
+            HeightDifferenceBudgetBuilder.Build(level, null, new LevellingProcedure(16, 2)).Total, 15);
     }
 
     [Fact]
@@ -112,7 +121,8 @@ public class BudgetBuilderTests
         // docs/references.md §9).
         var level = LevelSpecification.PerKm("L", 0.001);
         Assert.Equal(0.001 * Math.Sqrt(0.42), HeightDifferenceBudgetBuilder.Build(level, 420, null).Total, 15);
-        Assert.Equal(0.001 * Math.Sqrt(0.42) * Math.Sqrt(2), HeightDifferenceBudgetBuilder.Build(level, 420, new LevellingProcedure(1, 1)).Total, 15);
+        Assert.Equal(0.001 * Math.Sqrt(0.42) * Math.Sqrt(2),
+            HeightDifferenceBudgetBuilder.Build(level, 420, new LevellingProcedure(1, 1)).Total, 15);
         Assert.Throws<InvalidInputException>(() => HeightDifferenceBudgetBuilder.Build(level, null, null));
     }
 
@@ -122,8 +132,10 @@ public class BudgetBuilderTests
         // GUM, JCGM 100:2008 §F.2.2.1 (u = δx/√12) and §4.3.7 (section number from memory): reading to 0.01 →
         // σ = 0.01/√12 = 0.0028868 (computed; certainty in docs/references.md §12).
         Assert.Equal(0.0028868, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.Uniform).RoundingSd, 7);
-        Assert.Equal(0.005, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.HalfResolution).RoundingSd, 15);
-        var b = HeightDifferenceBudgetBuilder.Build(LevelSpecification.PerReading("L", 0, 0.001, RoundingTreatment.Uniform), null, new LevellingProcedure(3, 1));
+        Assert.Equal(0.005, LevelSpecification.PerReading("L", 0, 0.01, RoundingTreatment.HalfResolution).RoundingSd,
+            15);
+        var b = HeightDifferenceBudgetBuilder.Build(LevelSpecification.PerReading("L", 0, 0.001,
+            RoundingTreatment.Uniform), null, new LevellingProcedure(3, 1));
         Assert.Equal(0.001 / Math.Sqrt(12) * Math.Sqrt(6), b.ValueOf(ContributionNames.RodRounding), 15);
     }
 

@@ -22,10 +22,12 @@ public class CorrelatedCenteringTests
         ("A", ["B", "C", "D"]), ("B", ["A", "C", "D"]), ("C", ["A", "B", "D"]), ("D", ["A", "B"]),
     ];
 
-    private static SurveyNetwork Network(double instrumentCentering, double targetCentering, double approximationError = 0.3)
+    private static SurveyNetwork Network(double instrumentCentering, double targetCentering,
+        double approximationError = 0.3)
     {
         double x = approximationError;
-        var ts = new TotalStationSpecification("T", Angle.FromArcseconds(2).Radians, 0, new EdmSpecification(0.002, 2), instrumentCentering, 0);
+        var ts = new TotalStationSpecification("T", Angle.FromArcseconds(2).Radians, 0, new EdmSpecification(0.002, 2),
+            instrumentCentering, 0);
         var tg = new TargetSpecification("P", targetCentering, 0);
         var points = new List<Point>
         {
@@ -49,15 +51,18 @@ public class CorrelatedCenteringTests
                 {
                     Instrument = ts, Target = tg, ObservedSights = new Dictionary<string, double> { [to] = dist },
                 };
-                obs.Add(new DirectionObservation(at, to, Angle.FromRadians(Angle.Reduce0To2Pi(az - 0.7 + noiseRad)), setup)
+                obs.Add(new DirectionObservation(at, to, Angle.FromRadians(Angle.Reduce0To2Pi(az - 0.7 + noiseRad)),
+                    setup)
                 { SetupId = setup, Weighting = weighting });
-                obs.Add(new DistanceObservation(at, to, Length.FromMetres(dist + noiseM)) { SetupId = setup, Weighting = weighting });
+                obs.Add(new DistanceObservation(at, to, Length.FromMetres(dist + noiseM)) { SetupId = setup,
+                    Weighting = weighting });
             }
         }
         return new SurveyNetwork("centering test", points, obs);
     }
 
-    private static AdjustmentOptions Correlated => AdjustmentOptions.Default with { Centering = CenteringModel.Correlated };
+    private static AdjustmentOptions Correlated =>
+        AdjustmentOptions.Default with { Centering = CenteringModel.Correlated };
 
     [Fact]
     public void CorrelatedAndDiagonalAgreeWhenInstrumentCenteringIsZero()
@@ -93,7 +98,8 @@ public class CorrelatedCenteringTests
         // Independent check: Σ = D + J (σ_i² I) Jᵀ where J holds each observation's partial derivatives with
         // respect to the station's easting and northing (PlaneGeometry), D the other contributions squared.
         double sigmaI = 0.0015;
-        var net = Network(sigmaI, 0.001, approximationError: 0); // the model takes its geometry from the approximate coordinates
+        // the model takes its geometry from the approximate coordinates
+        var net = Network(sigmaI, 0.001, approximationError: 0);
         var model = StochasticModel.Build(net, new GivenCoordinates(net), CenteringModel.Correlated, 1.0);
         var block = model.Blocks[0];
         int k = block.Rows.Count;

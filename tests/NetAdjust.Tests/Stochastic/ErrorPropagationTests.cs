@@ -70,7 +70,8 @@ public class ErrorPropagationTests
         Assert.Throws<ArgumentOutOfRangeException>(() => ErrorPropagation.Series(1, 0));
         Assert.Throws<ArgumentOutOfRangeException>(() => ErrorPropagation.Mean(double.NaN, 2));
         Assert.Throws<ArgumentOutOfRangeException>(() => ErrorPropagation.Sum(1, -0.1));
-        Assert.Throws<ArgumentException>(() => ErrorPropagation.Propagate(Matrix<double>.Build.Dense(1, 3), Matrix<double>.Build.Dense(2, 2)));
+        Assert.Throws<ArgumentException>(() =>
+            ErrorPropagation.Propagate(Matrix<double>.Build.Dense(1, 3), Matrix<double>.Build.Dense(2, 2)));
     }
 
     [Fact]

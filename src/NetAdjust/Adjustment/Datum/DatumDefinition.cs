@@ -31,7 +31,8 @@ public sealed record DatumDefinition
     /// <summary>Which kind of datum.</summary>
     public DatumMode Mode { get; init; } = DatumMode.Control;
 
-    /// <summary>Minimal constraints: the point whose easting and northing are held; null for the first control point.</summary>
+    /// <summary>Minimal constraints: the point whose easting and northing are held; null for the first control
+    /// point.</summary>
     public string? HoldPoint { get; init; }
 
     /// <summary>
@@ -40,7 +41,8 @@ public sealed record DatumDefinition
     /// </summary>
     public string? AzimuthTo { get; init; }
 
-    /// <summary>Minimal constraints: the point whose height is held; null for the first point with a held or weighted height.</summary>
+    /// <summary>Minimal constraints: the point whose height is held; null for the first point with a held or weighted
+    /// height.</summary>
     public string? HoldHeight { get; init; }
 
     /// <summary>
@@ -56,8 +58,10 @@ public sealed record DatumDefinition
     /// <param name="holdPoint">Point whose position is held (null: first control point).</param>
     /// <param name="azimuthTo">Second point of the held azimuth (null: farthest control point).</param>
     /// <param name="holdHeight">Point whose height is held (null: first height control point).</param>
-    public static DatumDefinition Minimal(string? holdPoint = null, string? azimuthTo = null, string? holdHeight = null) =>
-        new() { Mode = DatumMode.MinimalConstraints, HoldPoint = holdPoint, AzimuthTo = azimuthTo, HoldHeight = holdHeight };
+    public static DatumDefinition Minimal(string? holdPoint = null, string? azimuthTo = null,
+        string? holdHeight = null) =>
+        new() { Mode = DatumMode.MinimalConstraints, HoldPoint = holdPoint, AzimuthTo = azimuthTo,
+            HoldHeight = holdHeight };
 
     /// <summary>A free network with inner constraints.</summary>
     /// <param name="points">The points over which the covariance trace is minimised; null for all points.</param>
@@ -71,7 +75,8 @@ public sealed record DatumDefinition
         DatumMode.MinimalConstraints =>
             "minimal constraints" + (HoldPoint is null ? "" : $": position of {HoldPoint}") +
             (ReferenceObjects is { Count: > 0 } ro ? $" and of the reference object(s) {string.Join(", ", ro)}"
-                : AzimuthTo is null ? "" : $", azimuth to {AzimuthTo}") + (HoldHeight is null ? "" : $", height of {HoldHeight}"),
+                : AzimuthTo is null ? "" : $", azimuth to {AzimuthTo}") +
+                    (HoldHeight is null ? "" : $", height of {HoldHeight}"),
         _ => InnerPoints is null
             ? "free network, inner constraints over all points"
             : $"free network, inner constraints over {string.Join(", ", InnerPoints)}",

@@ -22,7 +22,8 @@ internal static class DatumDiagnosis
     /// <param name="HasDistance">A distance is observed in it.</param>
     internal sealed record Part(List<string> Points, bool HasAzimuth, bool HasDistance);
 
-    /// <summary>The connected parts over the observations of one kind (plane or height), in input order of their first point.</summary>
+    /// <summary>The connected parts over the observations of one kind (plane or height), in input order of their first
+    /// point.</summary>
     internal static List<Part> Parts(SurveyNetwork network, bool plane)
     {
         var parent = new Dictionary<string, string>(StringComparer.Ordinal);
@@ -94,7 +95,8 @@ internal static class DatumDiagnosis
             int needed = 2 + (part.HasAzimuth ? 0 : 1) + (part.HasDistance ? 0 : 1);
             if (components == 0 || !pts.Any(HasE) || !pts.Any(HasN)) planeProblems.Add((part, "position"));
             else if (components < needed || (needed > 2 && controlPoints < 2))
-                planeProblems.Add((part, !part.HasDistance && (part.HasAzimuth || components >= 3) ? "scale" : "orientation"));
+                planeProblems.Add((part,
+                    !part.HasDistance && (part.HasAzimuth || components >= 3) ? "scale" : "orientation"));
         }
         var heightProblems = height.Where(part => !part.Points.Any(id => HasH(network[id]))).ToList();
 
@@ -113,22 +115,26 @@ internal static class DatumDiagnosis
             {
                 case "position":
                     throw new DatumDefectException(Prefix +
-                        $"no fixed point. No point of the network ({all}) has a held or weighted easting and northing, so its position " +
-                        "(the translation in easting and northing) is undetermined" +
+                        $"no fixed point. No point of the network ({all}) has a held or weighted easting and " +
+                        "northing, so its position (the translation in easting and northing) is undetermined" +
                         (part.HasAzimuth ? "" : ", and so is its rotation") + ". " +
-                        "Hold one point (fix: en) or weight its coordinates (sd_e, sd_n); without an observed azimuth hold a second point too. " +
+                        "Hold one point (fix: en) or weight its coordinates (sd_e, sd_n); without an observed " +
+                        "azimuth hold a second point too. " +
                         "To test the observations alone, adjust it as a free network (datum: {mode: free}).",
-                        ["translation in easting", "translation in northing", .. part.HasAzimuth ? Array.Empty<string>() : ["rotation"]]);
+                        ["translation in easting", "translation in northing",
+                            .. part.HasAzimuth ? Array.Empty<string>() : ["rotation"]]);
                 case "scale":
                     throw new DatumDefectException(Prefix +
-                        $"no distance. No distance is observed between the points {all}, and the control ({List(control)}) does not fix " +
-                        "the size of the network, so its scale is undetermined. Observe at least one distance, or hold a second point.",
+                        $"no distance. No distance is observed between the points {all}, and the control " +
+                        $"({List(control)}) does not fix the size of the network, so its scale is undetermined. " +
+                        "Observe at least one distance, or hold a second point.",
                         ["scale"]);
                 default:
                     throw new DatumDefectException(Prefix +
-                        $"no orientation. The network ({all}) has no observed azimuth and only one control point ({List(control)}), " +
-                        "so it may turn freely about it: its rotation is undetermined. Hold a second point (fix: en), or observe an azimuth " +
-                        "(azimuths: in a setup), or hold an azimuth as a minimal constraint (datum: {mode: minimal, azimuth_to: ...}).",
+                        $"no orientation. The network ({all}) has no observed azimuth and only one control point " +
+                        $"({List(control)}), so it may turn freely about it: its rotation is undetermined. " +
+                        "Hold a second point (fix: en), or observe an azimuth (azimuths: in a setup), " +
+                        "or hold an azimuth as a minimal constraint (datum: {mode: minimal, azimuth_to: ...}).",
                         ["rotation"]);
             }
         }
@@ -136,20 +142,25 @@ internal static class DatumDiagnosis
         {
             var part = heightProblems[0];
             throw new DatumDefectException(Prefix +
-                $"no height datum. No point of the level network has a held or weighted height, so the height of every point " +
-                $"({List(part.Points)}) is undetermined. Hold the height of one benchmark (fix: h) or weight it (sd_h).",
+                $"no height datum. No point of the level network has a held or weighted height, so the height of " +
+                $"every point ({List(part.Points)}) is undetermined. Hold the height of one benchmark (fix: h) or " +
+                "weight it (sd_h).",
                 ["height datum"]);
         }
     }
 
-    private static DatumDefectException Disconnected(string what, List<Part> parts, List<Part> bad, SurveyNetwork network, string needs)
+    private static DatumDefectException Disconnected(string what, List<Part> parts, List<Part> bad,
+        SurveyNetwork network, string needs)
     {
         var lines = parts.Select((p, k) =>
-            $"  part {k + 1}: {List(p.Points)}" + (bad.Contains(p) ? " — has no datum of its own" : " — has its datum"));
+            $"  part {k + 1}: {List(p.Points)}" +
+                (bad.Contains(p) ? " — has no datum of its own" : " — has its datum"));
         return new DatumDefectException(Prefix +
-            $"the {what} network falls apart into {parts.Count} parts that no observation joins:" + Environment.NewLine +
+            $"the {what} network falls apart into {parts.Count} parts that no observation joins:" +
+            Environment.NewLine +
             string.Join(Environment.NewLine, lines) + Environment.NewLine +
-            $"Join the parts by observations (a distance and a direction between them), or give each part its own datum: {needs}.",
+            "Join the parts by observations (a distance and a direction between them), or give each part its own " +
+            $"datum: {needs}.",
             bad.Select((p, k) => $"{what} network part with {p.Points[0]}").ToList());
     }
 
@@ -163,9 +174,11 @@ internal static class DatumDiagnosis
     }
 
     private static DatumDefectException DisconnectedFree(string what, List<Part> parts, string mode) =>
-        new(Prefix + $"the {what} network falls apart into {parts.Count} parts that no observation joins:" + Environment.NewLine +
-            string.Join(Environment.NewLine, parts.Select((p, k) => $"  part {k + 1}: {List(p.Points)}")) + Environment.NewLine +
-            $"Their relative position is undetermined, and {mode} can define the datum of one connected network only. " +
-            "Join the parts by observations, or adjust each part on its own.",
+        new(Prefix + $"the {what} network falls apart into {parts.Count} parts that no observation joins:" +
+            Environment.NewLine +
+            string.Join(Environment.NewLine, parts.Select((p, k) => $"  part {k + 1}: {List(p.Points)}")) +
+            Environment.NewLine +
+            $"Their relative position is undetermined, and {mode} can define the datum of one connected network " +
+            "only. Join the parts by observations, or adjust each part on its own.",
             parts.Select(p => $"{what} network part with {p.Points[0]}").ToList());
 }

@@ -11,7 +11,8 @@ namespace NetAdjust.Adjustment.Datum;
 /// M = N + E_K W E_Kᵀ is positive definite, has the sparsity pattern and the unknowns of N, so any
 /// <see cref="INormalEquationsSolver"/> (dense or sparse Cholesky) factorises it. For a consistent right-hand side
 /// M⁻¹b is the minimal-constraint solution (x_K = 0), and M⁻¹ = Q_m + H_K W⁻¹ H_Kᵀ with H_K = G (E_KᵀG)⁻¹, which
-/// gives the minimal-constraint cofactor Q_m (zero rows and columns at K) entry by entry. The S-transformation S = I − G (BᵀG)⁻¹ Bᵀ then moves both to the wanted datum:
+/// gives the minimal-constraint cofactor Q_m (zero rows and columns at K) entry by entry. The S-transformation S = I −
+/// G (BᵀG)⁻¹ Bᵀ then moves both to the wanted datum:
 /// x_B = S x_m, Q_B = S Q_m Sᵀ (Baarda 1973, <i>S-transformations and criterion matrices</i>, Netherlands Geodetic
 /// Commission, Publ. on Geodesy, New Series 5(1); Koch 1999, §3.4; Caspary 1987, §2.5). With B = G over all
 /// coordinates this is the inner-constraint (minimum-trace, pseudo-inverse) solution; with B = E G for a
@@ -33,7 +34,8 @@ internal sealed class DatumFactor : INormalFactor
     private double[,]? _wq;                // Q_m B, u×d
     private double[,]? _k;                 // Bᵀ Q_m B, d×d
 
-    public DatumFactor(INormalFactor inner, double[][] g, double[][] b, double[,] btgInverse, double[,] ekgInverse, double[] w)
+    public DatumFactor(INormalFactor inner, double[][] g, double[][] b, double[,] btgInverse, double[,] ekgInverse,
+        double[] w)
     {
         _inner = inner; _g = g; _b = b; _w = w;
         int u = inner.Size, d = g.Length;

@@ -51,15 +51,18 @@ internal sealed partial class DatumPlan
         var m = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfArray(btg);
         if (m.ConditionNumber() > 1e12)
             throw new DatumDefectException(
-                "The datum is not defined: the points chosen for the inner constraints (" + string.Join(", ", Definition.InnerPoints ?? []) +
-                ") do not fix the position, orientation and scale of the network. Choose at least two points of the plane network " +
+                "The datum is not defined: the points chosen for the inner constraints (" +
+                    string.Join(", ", Definition.InnerPoints ?? []) +
+                ") do not fix the position, orientation and scale of the network. Choose at least two points of the " +
+                    "plane network " +
                 "and one of the level network, or use all points.", ["inner-constraint points"]);
         // E_KᵀG: the rows of G at the held unknowns (regular by the choice of K).
         var gk = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(d, d, (k, l) => g[l][_held[k]]);
         return new DatumFactor(inner, g, b, m.Inverse().ToArray(), gk.Inverse().ToArray(), w);
     }
 
-    private INormalFactor FactorizeOrExplain(INormalEquationsSolver solver, int size, IReadOnlyList<SparseRow> rows, WeightMatrix weights, Func<int, int> toFull)
+    private INormalFactor FactorizeOrExplain(INormalEquationsSolver solver, int size, IReadOnlyList<SparseRow> rows,
+        WeightMatrix weights, Func<int, int> toFull)
     {
         try
         {
@@ -70,7 +73,8 @@ internal sealed partial class DatumPlan
             var what = Index.Unknowns[toFull(e.Column)];
             throw new DatumDefectException(
                 $"The datum is not defined: the observations and control do not determine the {what.Describe()}. " +
-                "The network holds its datum, but the geometry there is too weak: a point reached by a single distance or direction, " +
+                "The network holds its datum, but the geometry there is too weak: a point reached by a single " +
+                    "distance or direction, " +
                 "points on one straight line, or a direction set with a single target. " +
                 "Hold or weight more control, or add observations that connect it to the rest of the network.",
                 [what.Describe()]);

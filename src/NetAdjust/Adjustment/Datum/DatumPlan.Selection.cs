@@ -7,11 +7,13 @@ using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment.Datum;
 
-/// <summary>The datum plan, selection: the defect and the datum points chosen before the unknowns are numbered.</summary>
+/// <summary>The datum plan, selection: the defect and the datum points chosen before the unknowns are
+/// numbered.</summary>
 internal sealed partial class DatumPlan
 {
     /// <summary>The datum points chosen before the unknowns are numbered.</summary>
-    private sealed record Selection(List<DatumDefect> Defects, string? P0, string? P1, string? Hp, HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints);
+    private sealed record Selection(List<DatumDefect> Defects, string? P0, string? P1, string? Hp,
+        HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints);
 
     /// <summary>
     /// True when minimal constraints hold p0 and p1 in full: p1 is a reference object that the observations place
@@ -20,20 +22,24 @@ internal sealed partial class DatumPlan
     /// </summary>
     public bool FullHold { get; }
 
-    private static Selection Select(SurveyNetwork network, DatumDefinition definition, List<string> planePoints, List<string> heightPoints,
+    private static Selection Select(SurveyNetwork network, DatumDefinition definition, List<string> planePoints,
+        List<string> heightPoints,
         Dictionary<string, double> e0, Dictionary<string, double> n0)
     {
         var heldPoints = new HashSet<string>(StringComparer.Ordinal);
         if (definition.Mode == DatumMode.Control) return new Selection([], null, null, null, null, false, heldPoints);
-        var defects = DatumConditions.Defects(ObservationKindRegistry.FixedBy(network.Observations), planePoints.Count > 0,
+        var defects = DatumConditions.Defects(ObservationKindRegistry.FixedBy(network.Observations),
+            planePoints.Count > 0,
             heightPoints.Count > 0);
 
-        bool IsPlaneControl(string id) => network[id] is var p && (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue);
+        bool IsPlaneControl(string id) => network[id] is var p &&
+            (p.IsFixed(Fixity.E) || p.IsFixed(Fixity.N) || p.SdE.HasValue || p.SdN.HasValue);
         bool IsHeightControl(string id) => network[id] is var p && (p.IsFixed(Fixity.H) || p.SdH.HasValue);
         bool minimal = definition.Mode == DatumMode.MinimalConstraints;
         string Check(string id, List<string> among, string role) =>
             among.Contains(id) ? id : throw new InvalidInputException(
-                $"datum: {role} {id} is not a point of the {(among == heightPoints ? "level" : "plane")} network (no observation of that kind reaches it)");
+                $"datum: {role} {id} is not a point of the {(among == heightPoints ? "level" : "plane")} network (no " +
+                    $"observation of that kind reaches it)");
 
         string? p0 = null, p1 = null, hp = null;
         HashSet<string>? subset = null;
@@ -43,14 +49,19 @@ internal sealed partial class DatumPlan
             var links = new ObservationIndex(network);
             var placed = planePoints.Where(id => IsPlaced(links, id)).ToList();
             p0 = minimal && definition.HoldPoint is string hp0 ? Check(hp0, planePoints, "the held point")
-                : (minimal ? placed.FirstOrDefault(IsPlaneControl) ?? planePoints.FirstOrDefault(IsPlaneControl) : null) ?? placed.FirstOrDefault() ?? planePoints[0];
+                : (minimal ? placed.FirstOrDefault(IsPlaneControl) ?? planePoints.FirstOrDefault(IsPlaneControl) :
+                    null) ?? placed.FirstOrDefault() ?? planePoints[0];
             bool needSecond = defects.Contains(DatumDefect.Rotation) || defects.Contains(DatumDefect.Scale);
             if (minimal && definition.AzimuthTo is string at)
             {
                 if (!needSecond)
-                    throw new InvalidInputException($"datum: azimuth_to {at}: the observed azimuths and distances already fix the orientation and scale, so no azimuth may be held as well");
+                    throw new InvalidInputException(
+                        $"datum: azimuth_to {at}: the observed azimuths and distances already fix the orientation " +
+                        $"and scale, so no azimuth may be held as well");
                 p1 = Check(at, planePoints, "the azimuth point");
-                if (p1 == p0) throw new InvalidInputException($"datum: azimuth_to must name a point other than the held point {p0}");
+                if (p1 == p0)
+                    throw new InvalidInputException(
+                        $"datum: azimuth_to must name a point other than the held point {p0}");
             }
             else if (needSecond)
             {
@@ -58,7 +69,8 @@ internal sealed partial class DatumPlan
                 var control = candidates.Where(IsPlaneControl).ToList();
                 if (minimal && control.Count > 0) candidates = control;
                 // Prefer points the observations place; among those, the farthest.
-                p1 = candidates.OrderByDescending(id => IsPlaced(links, id)).ThenByDescending(id => Sq(e0[id] - e0[p0]) + Sq(n0[id] - n0[p0])).First();
+                p1 = candidates.OrderByDescending(id => IsPlaced(links, id)).ThenByDescending(id => Sq(e0[id] -
+                    e0[p0]) + Sq(n0[id] - n0[p0])).First();
             }
             // Control points that no observation places but a sight line (reference objects) are held in full, with p0.
             var objects = planePoints.Where(id => IsPlaneControl(id) && !IsPlaced(links, id) && id != p0).ToList();
@@ -71,12 +83,16 @@ internal sealed partial class DatumPlan
                 heldPoints.UnionWith(objects);
                 defects.RemoveAll(d => d != DatumDefect.Height);
             }
-            else if (definition.Mode == DatumMode.InnerConstraints && planePoints.FirstOrDefault(id => !IsPlaced(links, id)) is string loose)
+            else if (definition.Mode == DatumMode.InnerConstraints &&
+                planePoints.FirstOrDefault(id => !IsPlaced(links, id)) is string loose)
             {
                 throw new DatumDefectException(
-                    $"The datum is not defined: in a free network point {loose} is placed by no observation but a single sight line " +
-                    "(no distance reaches it and it is seen from one station only), so its distance is undetermined once the control is set aside. " +
-                    "Use minimal constraints (datum: {mode: minimal}), which hold it as a reference object, or add observations to it.",
+                    $"The datum is not defined: in a free network point {loose} is placed by no observation but a " +
+                        $"single sight line " +
+                    "(no distance reaches it and it is seen from one station only), so its distance is undetermined " +
+                        "once the control is set aside. " +
+                    "Use minimal constraints (datum: {mode: minimal}), which hold it as a reference object, or add " +
+                        "observations to it.",
                     [$"position of {loose}"]);
             }
         }
@@ -86,7 +102,9 @@ internal sealed partial class DatumPlan
         if (definition.Mode == DatumMode.InnerConstraints && definition.InnerPoints is { } list)
         {
             foreach (var id in list)
-                if (!network.Contains(id)) throw new InvalidInputException($"datum: inner-constraint point {id} is not defined in the points list");
+                if (!network.Contains(id))
+                    throw new InvalidInputException(
+                        $"datum: inner-constraint point {id} is not defined in the points list");
             subset = new HashSet<string>(list, StringComparer.Ordinal);
         }
         return new Selection(defects, p0, p1, hp, subset, fullHold, heldPoints);

@@ -37,14 +37,16 @@ internal sealed partial class DatumPlan
     public int ConditionCount => _defects.Count;
 
     private DatumPlan(SurveyNetwork network, DatumDefinition definition, UnknownIndex index, ParameterState state,
-        List<string> planePoints, List<string> heightPoints, Dictionary<string, double> e0, Dictionary<string, double> n0, Dictionary<string, double> h0,
+        List<string> planePoints, List<string> heightPoints, Dictionary<string, double> e0, Dictionary<string,
+            double> n0, Dictionary<string, double> h0,
         Selection sel)
     {
         Definition = definition; Index = index; State = state;
         _planePoints = planePoints; _e0 = e0; _n0 = n0; _h0 = h0;
         if (UsesControl) return;
         _defects = sel.Defects;
-        (_p0, _p1, _hp, _subset, FullHold, _heldPoints) = (sel.P0, sel.P1, sel.Hp, sel.Subset, sel.FullHold, sel.HeldPoints);
+        (_p0, _p1, _hp, _subset, FullHold, _heldPoints) =
+            (sel.P0, sel.P1, sel.Hp, sel.Subset, sel.FullHold, sel.HeldPoints);
 
         // Held unknowns of the internal solve: the translation at p0, rotation and scale at p1, height at hp.
         var held = new List<int>();
@@ -56,7 +58,8 @@ internal sealed partial class DatumPlan
                 case DatumDefect.North: held.Add(index.IndexOf(_p0!, Parameter.N)); break;
                 case DatumDefect.Rotation:
                     // Rotation about p0 moves p1 by δ(ΔN, −ΔE): hold the larger component.
-                    held.Add(index.IndexOf(_p1!, Math.Abs(n0[_p1!] - n0[_p0!]) >= Math.Abs(e0[_p1!] - e0[_p0!]) ? Parameter.E : Parameter.N));
+                    held.Add(index.IndexOf(_p1!,
+                        Math.Abs(n0[_p1!] - n0[_p0!]) >= Math.Abs(e0[_p1!] - e0[_p0!]) ? Parameter.E : Parameter.N));
                     break;
                 case DatumDefect.Scale:
                     var other = _defects.Contains(DatumDefect.Rotation)
@@ -74,7 +77,8 @@ internal sealed partial class DatumPlan
 
     /// <summary>Checks the datum, computes approximate values and numbers the unknowns.</summary>
     /// <exception cref="DatumDefectException">When the datum is not defined.</exception>
-    /// <exception cref="InvalidInputException">When a point cannot be given approximate coordinates, or the datum names unknown points.</exception>
+    /// <exception cref="InvalidInputException">When a point cannot be given approximate coordinates, or the datum names
+    /// unknown points.</exception>
     public static DatumPlan Create(SurveyNetwork network, DatumDefinition definition)
     {
         DatumDiagnosis.Check(network, definition);
@@ -116,7 +120,9 @@ internal sealed partial class DatumPlan
             if (active.Contains((p.Id, true)))
             {
                 if (heldInFull && (p.E is null || p.N is null))
-                    throw new InvalidInputException($"datum: point {p.Id} is held for the minimal constraints but has no given easting and northing");
+                    throw new InvalidInputException(
+                        $"datum: point {p.Id} is held for the minimal constraints but has no given easting and " +
+                        $"northing");
                 if (!heldInFull && (!control || !p.IsFixed(Fixity.E))) index.Add(new Unknown(p.Id, Parameter.E));
                 if (!heldInFull && (!control || !p.IsFixed(Fixity.N))) index.Add(new Unknown(p.Id, Parameter.N));
             }
@@ -137,7 +143,8 @@ internal sealed partial class DatumPlan
         }
         var state = new ParameterState(e, nn, h, orientation);
         return new DatumPlan(network, definition, index, state, planePoints, heightPoints,
-            new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string, double>(nn, StringComparer.Ordinal),
+            new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string,
+                double>(nn, StringComparer.Ordinal),
             new Dictionary<string, double>(h, StringComparer.Ordinal), sel);
     }
 
@@ -155,7 +162,8 @@ internal sealed partial class DatumPlan
     {
         DatumMode.MinimalConstraints => Definition with
         {
-            HoldPoint = _p0, AzimuthTo = _defects.Contains(DatumDefect.Rotation) || _defects.Contains(DatumDefect.Scale) || FullHold ? _p1 : null, HoldHeight = _hp,
+            HoldPoint = _p0, AzimuthTo = _defects.Contains(DatumDefect.Rotation) ||
+                _defects.Contains(DatumDefect.Scale) || FullHold ? _p1 : null, HoldHeight = _hp,
             ReferenceObjects = FullHold ? _heldPoints.Where(id => id != _p0).ToList() : null,
         },
         _ => Definition,
@@ -167,9 +175,13 @@ internal sealed partial class DatumPlan
         DatumMode.Control => Definition.Describe(),
         DatumMode.MinimalConstraints => "minimal constraints: " + string.Join(", ", new[]
         {
-            FullHold ? $"{string.Join(", ", _heldPoints)} held in position (reference objects placed by a sight line only are held with {_p0})" : null,
+            FullHold ? $"{string.Join(", ", _heldPoints)} held in position (reference objects placed by a sight line " +
+                $"only are held with {_p0})" : null,
             _p0 is null || FullHold ? null : $"position of {_p0} held",
-            _p1 is null || FullHold ? null : $"{(_defects.Contains(DatumDefect.Rotation) ? "azimuth" : "")}{(_defects.Contains(DatumDefect.Rotation) && _defects.Contains(DatumDefect.Scale) ? " and " : "")}{(_defects.Contains(DatumDefect.Scale) ? "distance" : "")} {_p0}→{_p1} held",
+            _p1 is null || FullHold ? null :
+                $"{(_defects.Contains(DatumDefect.Rotation) ? "azimuth" : "")}" +
+                $"{(_defects.Contains(DatumDefect.Rotation) && _defects.Contains(DatumDefect.Scale) ? " and " : "")}" +
+                $"{(_defects.Contains(DatumDefect.Scale) ? "distance" : "")} {_p0}→{_p1} held",
             _hp is null ? null : $"height of {_hp} held",
         }.OfType<string>()),
         _ => Definition.Describe(),

@@ -37,7 +37,8 @@ internal sealed class AdjacencyGraph
     /// <param name="unknownCount">Number of unknowns (columns of A).</param>
     /// <param name="rows">The rows of A.</param>
     /// <param name="weights">The block-diagonal P.</param>
-    public static AdjacencyGraph FromNormalEquations(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
+    public static AdjacencyGraph FromNormalEquations(int unknownCount, IReadOnlyList<SparseRow> rows,
+        WeightMatrix weights)
     {
         // Cliques: one per weight block, its vertices the union of the block's rows' columns.
         var cliqueStart = new List<int>(weights.Blocks.Count + 1) { 0 };

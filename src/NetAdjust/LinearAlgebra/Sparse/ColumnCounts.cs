@@ -15,7 +15,8 @@ internal static class ColumnCounts
     /// <summary>Counts per column of L.</summary>
     /// <param name="upper">Strictly upper pattern of C by columns.</param>
     /// <param name="parent">The elimination tree.</param>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static int[] Compute(ColumnPattern upper, int[] parent)
     {
         int n = parent.Length;

@@ -12,7 +12,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 internal static class DenseKernels
 {
     /// <summary>Σ_t a[t] b[t] over n entries.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b, int n)
     {
         int w = Vector<double>.Count, t = 0;
@@ -34,7 +35,8 @@ internal static class DenseKernels
     }
 
     /// <summary>y[0..n) −= α x[0..n).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void SubtractScaled(Span<double> y, ReadOnlySpan<double> x, double alpha, int n)
     {
         int w = Vector<double>.Count, t = 0;
@@ -53,7 +55,8 @@ internal static class DenseKernels
     /// U(a, b) −= L(r0 + a, :) · L(r0 + b, :) for 0 ≤ b ≤ a &lt; mu, rows a in [a0, a1): the lower triangle of
     /// U −= L₂ L₂ᵀ, with L₂ the rows r0.. of a row-major block of row length k and U row-major of order mu.
     /// </summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void SyrkLowerRows(double[] l, long lOffset, int k, int r0, double[] u, int mu, int a0, int a1)
     {
         var ls = l.AsSpan();
@@ -88,8 +91,10 @@ internal static class DenseKernels
         }
     }
 
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    private static void Dot2x2(ReadOnlySpan<double> a0, ReadOnlySpan<double> a1, ReadOnlySpan<double> b0, ReadOnlySpan<double> b1, int n,
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    private static void Dot2x2(ReadOnlySpan<double> a0, ReadOnlySpan<double> a1, ReadOnlySpan<double> b0,
+        ReadOnlySpan<double> b1, int n,
         out double s00, out double s01, out double s10, out double s11)
     {
         int w = Vector<double>.Count, t = 0;
@@ -125,7 +130,8 @@ internal static class DenseKernels
         var cuts = new int[parts + 1];
         double total = (double)mu * (mu + 1) / 2;
         for (int p = 1; p < parts; p++)
-            cuts[p] = Math.Clamp((int)Math.Sqrt(2 * total * p / parts) & ~1, cuts[p - 1], mu); // even: rows pair as in the serial loop
+            // even: rows pair as in the serial loop
+            cuts[p] = Math.Clamp((int)Math.Sqrt(2 * total * p / parts) & ~1, cuts[p - 1], mu);
         cuts[parts] = mu;
         return cuts;
     }

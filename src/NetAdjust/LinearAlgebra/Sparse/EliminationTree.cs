@@ -12,7 +12,8 @@ internal static class EliminationTree
 {
     /// <summary>The parent of each column.</summary>
     /// <param name="upper">The strictly upper pattern by columns: upper.Rows(k) = { i &lt; k : C(i, k) ≠ 0 }.</param>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static int[] Compute(ColumnPattern upper)
     {
         int n = upper.Count;

@@ -22,8 +22,10 @@ internal static class GeometricNestedDissection
     public static int[] Order(AdjacencyGraph graph, UnknownGeometry geometry)
     {
         int n = graph.VertexCount;
-        if (geometry.UnknownCount != n) throw new ArgumentException("the geometry describes another number of unknowns");
-        if (!geometry.HasAllPositions) throw new ArgumentException("every group needs a position for geometric nested dissection");
+        if (geometry.UnknownCount != n)
+            throw new ArgumentException("the geometry describes another number of unknowns");
+        if (!geometry.HasAllPositions)
+            throw new ArgumentException("every group needs a position for geometric nested dissection");
         int g = geometry.GroupCount;
 
         // Members of each group, and the group graph.
@@ -85,7 +87,10 @@ internal static class GeometricNestedDissection
             {
                 int v = adj[p];
                 if (side[v] != 2 || !visited.Add(v)) continue;
-                if (!matchOfB.TryGetValue(v, out int w) || Augment(w)) { matchOfB[v] = u; matchOfA[u] = v; return true; }
+                if (!matchOfB.TryGetValue(v, out int w) || Augment(w))
+                {
+                    matchOfB[v] = u; matchOfA[u] = v; return true;
+                }
             }
             return false;
         }
@@ -112,7 +117,8 @@ internal static class GeometricNestedDissection
         return cover;
     }
 
-    private static void Dissect(int[] part, double[] x, double[] y, int[] gStart, int[] adj, int[] weight, int[] side, List<int> order)
+    private static void Dissect(int[] part, double[] x, double[] y, int[] gStart, int[] adj, int[] weight, int[] side,
+        List<int> order)
     {
         if (part.Length <= LeafGroups) { order.AddRange(part); return; }
         double minX = double.MaxValue, maxX = double.MinValue, minY = double.MaxValue, maxY = double.MinValue;

@@ -20,7 +20,8 @@ internal static class MultifrontalCholesky
     private const double ParallelWork = 4e5; // flops above which a front's loops run in parallel
 
     /// <summary>Factorises; returns the supernodal values of L and the scale S.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static (double[] L, double[] Scale) Factorize(SymbolicCholesky sym, double[] lowerValues)
     {
         int n = sym.Size;
@@ -75,8 +76,10 @@ internal static class MultifrontalCholesky
         return (L, scale);
     }
 
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    private static void ExtendAddChildren(SymbolicCholesky sym, int s, double[]?[] updates, int[] relpos, double[] L, long off, int k,
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    private static void ExtendAddChildren(SymbolicCholesky sym, int s, double[]?[] updates, int[] relpos, double[] L,
+        long off, int k,
         double[]? U, int mu, int[] rowMap, ArrayPool<double> pool)
     {
         for (int c = sym.SnChildHead[s]; c >= 0; c = sym.SnChildNext[c])
@@ -114,7 +117,8 @@ internal static class MultifrontalCholesky
     }
 
     /// <summary>L₁₁ L₁₁ᵀ = F₁₁ in place (rows 0..k−1 of the block, row length k): row-oriented Cholesky.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void FactorPivotBlock(SymbolicCholesky sym, double[] L, long off, int k, int f)
     {
         var ls = L.AsSpan();
@@ -128,13 +132,15 @@ internal static class MultifrontalCholesky
                 ri[c] = (ri[c] - DenseKernels.Dot(ri, rc, c)) / rc[c];
             }
             double d = ri[i] - DenseKernels.Dot(ri, ri, i);
-            if (!(d > DenseNormalEquationsSolver.PivotTolerance)) throw new SingularNormalMatrixException(sym.Perm[f + i]);
+            if (!(d > DenseNormalEquationsSolver.PivotTolerance))
+                throw new SingularNormalMatrixException(sym.Perm[f + i]);
             ri[i] = Math.Sqrt(d);
         }
     }
 
     /// <summary>L₂₁ = F₂₁ L₁₁⁻ᵀ, row by row (each row solves x L₁₁ᵀ = f by forward substitution).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void SolveOffDiagonal(double[] L, long off, int k, int m)
     {
         int rows = m - k;
@@ -155,15 +161,20 @@ internal static class MultifrontalCholesky
         double work = (double)rows * k * k;
         if (work < ParallelWork || Environment.ProcessorCount == 1) { RowRange(k, m); return; }
         int parts = Math.Min(Environment.ProcessorCount * 4, rows);
-        Parallel.For(0, parts, p => RowRange(k + (int)((long)rows * p / parts), k + (int)((long)rows * (p + 1) / parts)));
+        Parallel.For(0, parts, p =>
+            RowRange(k + (int)((long)rows * p / parts), k + (int)((long)rows * (p + 1) / parts)));
     }
 
     /// <summary>U −= L₂₁ L₂₁ᵀ (lower triangle).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void DenseUpdate(double[] L, long off, int k, double[] U, int mu)
     {
         double work = (double)mu * mu * k;
-        if (work < ParallelWork || Environment.ProcessorCount == 1) { DenseKernels.SyrkLowerRows(L, off, k, k, U, mu, 0, mu); return; }
+        if (work < ParallelWork || Environment.ProcessorCount == 1)
+        {
+            DenseKernels.SyrkLowerRows(L, off, k, k, U, mu, 0, mu); return;
+        }
         int parts = Math.Min(Environment.ProcessorCount * 4, mu);
         var cuts = DenseKernels.BalancedTriangleSplit(mu, parts);
         Parallel.For(0, parts, p =>

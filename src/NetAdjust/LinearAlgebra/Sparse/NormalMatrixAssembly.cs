@@ -45,8 +45,10 @@ internal sealed class NormalMatrixAssembly
     /// <param name="rows">The rows of A, with the analysed pattern.</param>
     /// <param name="weights">The block-diagonal P.</param>
     /// <returns>Values aligned with the lower pattern of C (diagonal first in each column).</returns>
-    /// <exception cref="InvalidOperationException">When the rows or blocks reach outside the analysed pattern.</exception>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    /// <exception cref="InvalidOperationException">When the rows or blocks reach outside the analysed
+    /// pattern.</exception>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public double[] Assemble(IReadOnlyList<SparseRow> rows, WeightMatrix weights)
     {
         var lower = _symbolic.LowerC;
@@ -59,7 +61,10 @@ internal sealed class NormalMatrixAssembly
         Array.Fill(stamp, -1);
         for (int k = 0; k < n; k++)
         {
-            for (int p = lower.Start[k]; p < lower.Start[k + 1]; p++) { position[lower.Index[p]] = p; stamp[lower.Index[p]] = k; }
+            for (int p = lower.Start[k]; p < lower.Start[k + 1]; p++)
+            {
+                position[lower.Index[p]] = p; stamp[lower.Index[p]] = k;
+            }
             int j = perm[k];
             for (int e = _atStart[j]; e < _atStart[j + 1]; e++)
             {
@@ -75,7 +80,9 @@ internal sealed class NormalMatrixAssembly
                     {
                         int i = iperm[rt.Columns[q]];
                         if (i < k) continue;
-                        if (stamp[i] != k) throw new InvalidOperationException("The design rows reach outside the analysed pattern of the normal matrix.");
+                        if (stamp[i] != k)
+                            throw new InvalidOperationException(
+                                "The design rows reach outside the analysed pattern of the normal matrix.");
                         values[position[i]] += c * rt.Values[q];
                     }
                 }

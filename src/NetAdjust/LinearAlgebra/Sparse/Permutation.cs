@@ -17,7 +17,8 @@ internal static class Permutation
         for (int k = 0; k < p.Length; k++)
         {
             int v = p[k];
-            if ((uint)v >= (uint)p.Length || q[v] >= 0) throw new ArgumentException($"not a permutation: entry {k} = {v}");
+            if ((uint)v >= (uint)p.Length || q[v] >= 0)
+                throw new ArgumentException($"not a permutation: entry {k} = {v}");
             q[v] = k;
         }
         return q;

@@ -17,7 +17,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 internal static class SelectedInversion
 {
     /// <summary>Z on the supernodal layout of L (rows 0..k−1 of each block: Z_JJ, full; rows k..m−1: Z_RJ).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static double[] Compute(SymbolicCholesky sym, double[] L)
     {
         var Z = new double[L.Length];
@@ -94,7 +95,8 @@ internal static class SelectedInversion
     }
 
     /// <summary>The dense symmetric Z_RR for the sorted rows R = SnRows[rStart .. rStart + mu).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static double[] GatherZrr(SymbolicCholesky sym, double[] Z, int rStart, int mu)
     {
         var zrr = System.Buffers.ArrayPool<double>.Shared.Rent(mu * mu);
@@ -118,7 +120,9 @@ internal static class SelectedInversion
                 else
                 {
                     int at = Array.BinarySearch(rows, tr0 + Math.Max(lo, kt), tm - Math.Max(lo, kt), ra);
-                    if (at < 0) throw new InvalidOperationException("selected inversion: a row of the clique is missing from an ancestor's pattern");
+                    if (at < 0)
+                        throw new InvalidOperationException(
+                            "selected inversion: a row of the clique is missing from an ancestor's pattern");
                     pa = at - tr0;
                     lo = pa + 1;
                 }

@@ -32,7 +32,8 @@ internal sealed class SparseCholeskyFactor : INormalFactor
     /// <param name="weights">The weights.</param>
     /// <exception cref="SingularNormalMatrixException">When a scaled pivot is not above
     /// <see cref="DenseNormalEquationsSolver.PivotTolerance"/>; names the original column.</exception>
-    public static SparseCholeskyFactor Factorize(SymbolicCholesky symbolic, NormalMatrixAssembly assembly, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
+    public static SparseCholeskyFactor Factorize(SymbolicCholesky symbolic, NormalMatrixAssembly assembly,
+        IReadOnlyList<SparseRow> rows, WeightMatrix weights)
     {
         var values = assembly.Assemble(rows, weights);
         var (l, scale) = MultifrontalCholesky.Factorize(symbolic, values);
@@ -49,7 +50,8 @@ internal sealed class SparseCholeskyFactor : INormalFactor
     public double[] Solve(ReadOnlySpan<double> rhs)
     {
         int n = Size;
-        if (rhs.Length != n) throw new ArgumentException($"the right-hand side has {rhs.Length} entries for {n} unknowns");
+        if (rhs.Length != n)
+            throw new ArgumentException($"the right-hand side has {rhs.Length} entries for {n} unknowns");
         var perm = Symbolic.Perm;
         var y = new double[n];
         for (int k = 0; k < n; k++) y[k] = rhs[perm[k]] * _scale[k];      // y = S P b
@@ -60,7 +62,8 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         return x;
     }
 
-    /// <summary>True when (i, j) of Qxx lies on the pattern of the factor (an O(log m) look-up, no inverse needed).</summary>
+    /// <summary>True when (i, j) of Qxx lies on the pattern of the factor (an O(log m) look-up, no inverse
+    /// needed).</summary>
     /// <param name="i">Unknown index.</param>
     /// <param name="j">Unknown index.</param>
     public bool IsOnPattern(int i, int j)
@@ -93,7 +96,8 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         }
     }
 
-    /// <summary>Computes the selected inverse now (otherwise done on the first <see cref="InverseEntry"/> on the pattern).</summary>
+    /// <summary>Computes the selected inverse now (otherwise done on the first <see cref="InverseEntry"/> on the
+    /// pattern).</summary>
     public void ComputeSelectedInverse()
     {
         lock (_gate) _z ??= SelectedInversion.Compute(Symbolic, _l);

@@ -3,7 +3,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// <summary>Which fill-reducing ordering the sparse solver uses.</summary>
 public enum SparseOrdering
 {
-    /// <summary>Try the available orderings and keep the one with the least fill nnz(L) (see the solver's remarks).</summary>
+    /// <summary>Try the available orderings and keep the one with the least fill nnz(L) (see the solver's
+    /// remarks).</summary>
     Automatic,
 
     /// <summary>
@@ -32,7 +33,8 @@ public enum SparseOrdering
 /// </remarks>
 public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
 {
-    /// <summary>Above this many unknowns the automatic choice does not try minimum degree when nested dissection is available.</summary>
+    /// <summary>Above this many unknowns the automatic choice does not try minimum degree when nested dissection is
+    /// available.</summary>
     public const int MinimumDegreeLimit = 10_000;
 
     private const string AmdName = "approximate minimum degree";
@@ -64,9 +66,11 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
         Factorize(unknownCount, rows, weights, null);
 
     /// <inheritdoc />
-    public INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights, UnknownGeometry? geometry)
+    public INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights,
+        UnknownGeometry? geometry)
     {
-        if (weights.RowCount != rows.Count) throw new ArgumentException($"{rows.Count} design rows but {weights.RowCount} weighted rows");
+        if (weights.RowCount != rows.Count)
+            throw new ArgumentException($"{rows.Count} design rows but {weights.RowCount} weighted rows");
         if (_pattern is null || !_pattern.Matches(unknownCount, rows, weights))
         {
             var graph = AdjacencyGraph.FromNormalEquations(unknownCount, rows, weights);
@@ -85,7 +89,8 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
         if (Ordering == SparseOrdering.MinimumDegree || !geometric)
             return (ApproximateMinimumDegree.Order(graph), AmdName);
         var nd = GeometricNestedDissection.Order(graph, geometry!);
-        if (Ordering == SparseOrdering.NestedDissection || graph.VertexCount > MinimumDegreeLimit) return (nd, "nested dissection");
+        if (Ordering == SparseOrdering.NestedDissection || graph.VertexCount > MinimumDegreeLimit)
+            return (nd, "nested dissection");
         var md = ApproximateMinimumDegree.Order(graph);
         return SymbolicCholesky.CountFill(graph, md) < SymbolicCholesky.CountFill(graph, nd)
             ? (md, AmdName)
@@ -106,18 +111,26 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
             _columns = new int[_rowStart[rows.Count]];
             for (int s = 0; s < rows.Count; s++) rows[s].Columns.CopyTo(_columns, _rowStart[s]);
             _blockOfRowStart = new int[weights.Blocks.Count + 1];
-            for (int b = 0; b < weights.Blocks.Count; b++) _blockOfRowStart[b + 1] = _blockOfRowStart[b] + weights.Blocks[b].Size;
+            for (int b = 0; b < weights.Blocks.Count; b++)
+                _blockOfRowStart[b + 1] = _blockOfRowStart[b] + weights.Blocks[b].Size;
             _blockRows = new int[_blockOfRowStart[weights.Blocks.Count]];
-            for (int b = 0; b < weights.Blocks.Count; b++) weights.Blocks[b].Rows.CopyTo(_blockRows, _blockOfRowStart[b]);
+            for (int b = 0; b < weights.Blocks.Count; b++)
+                weights.Blocks[b].Rows.CopyTo(_blockRows, _blockOfRowStart[b]);
         }
 
         public bool Matches(int unknowns, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
         {
-            if (unknowns != _unknowns || rows.Count + 1 != _rowStart.Length || weights.Blocks.Count + 1 != _blockOfRowStart.Length) return false;
+            if (unknowns != _unknowns || rows.Count + 1 != _rowStart.Length ||
+                weights.Blocks.Count + 1 != _blockOfRowStart.Length)
+                return false;
             for (int s = 0; s < rows.Count; s++)
-                if (!rows[s].Columns.AsSpan().SequenceEqual(_columns.AsSpan(_rowStart[s], _rowStart[s + 1] - _rowStart[s]))) return false;
+                if (!rows[s].Columns.AsSpan().SequenceEqual(_columns.AsSpan(_rowStart[s],
+                    _rowStart[s + 1] - _rowStart[s])))
+                    return false;
             for (int b = 0; b < weights.Blocks.Count; b++)
-                if (!weights.Blocks[b].Rows.AsSpan().SequenceEqual(_blockRows.AsSpan(_blockOfRowStart[b], _blockOfRowStart[b + 1] - _blockOfRowStart[b]))) return false;
+                if (!weights.Blocks[b].Rows.AsSpan().SequenceEqual(_blockRows.AsSpan(_blockOfRowStart[b],
+                    _blockOfRowStart[b + 1] - _blockOfRowStart[b])))
+                    return false;
             return true;
         }
     }

@@ -4,11 +4,13 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// Forward and back substitution with the supernodal factor: x = L \ b then x = Lᵀ \ x, in place, permuted and
 /// scaled numbering.
 /// </summary>
-/// <remarks>Davis 2006, <i>Direct Methods for Sparse Linear Systems</i>, §3.1 (cs_lsolve, cs_ltsolve), by supernodal blocks. O(nnz(L)).</remarks>
+/// <remarks>Davis 2006, <i>Direct Methods for Sparse Linear Systems</i>, §3.1 (cs_lsolve, cs_ltsolve), by supernodal
+/// blocks. O(nnz(L)).</remarks>
 internal static class SupernodalTriangularSolve
 {
     /// <summary>x = L \ x.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void Forward(SymbolicCholesky sym, double[] L, Span<double> x)
     {
         for (int s = 0; s < sym.SupernodeCount; s++)
@@ -28,7 +30,8 @@ internal static class SupernodalTriangularSolve
     }
 
     /// <summary>x = Lᵀ \ x.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void Backward(SymbolicCholesky sym, double[] L, Span<double> x)
     {
         for (int s = sym.SupernodeCount - 1; s >= 0; s--)

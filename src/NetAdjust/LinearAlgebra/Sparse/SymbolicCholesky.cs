@@ -34,13 +34,15 @@ internal sealed class SymbolicCholesky
 
     internal int[] Counts { get; private init; } = [];
 
-    /// <summary>nnz(L): the exact number of nonzeros of the factor, diagonal included (explicit zeros of amalgamated supernodes not counted).</summary>
+    /// <summary>nnz(L): the exact number of nonzeros of the factor, diagonal included (explicit zeros of amalgamated
+    /// supernodes not counted).</summary>
     public long FactorNonZeros { get; private init; }
 
     /// <summary>The number of values stored for L, explicit zeros of amalgamated supernodes included.</summary>
     public long StoredEntries { get; private init; }
 
-    /// <summary>Floating-point operations of one numeric factorisation, Σ_j c_j² with c_j the column counts (Davis 2006, §4.6).</summary>
+    /// <summary>Floating-point operations of one numeric factorisation, Σ_j c_j² with c_j the column counts (Davis
+    /// 2006, §4.6).</summary>
     public double FactorFlops { get; private init; }
 
     /// <summary>The number of supernodes.</summary>
@@ -55,7 +57,8 @@ internal sealed class SymbolicCholesky
     internal int[] SnStart { get; private init; } = [];      // first column of each supernode, n at the end
     internal int[] SnOf { get; private init; } = [];          // supernode of each column
     internal int[] SnParent { get; private init; } = [];      // supernodal elimination tree
-    internal int[] SnRowStart { get; private init; } = [];    // rows of supernode s: SnRows[SnRowStart[s]..SnRowStart[s+1]]
+    // rows of supernode s: SnRows[SnRowStart[s]..SnRowStart[s+1]]
+    internal int[] SnRowStart { get; private init; } = [];
     internal int[] SnRows { get; private init; } = [];        // sorted; first the supernode's own columns
     internal long[] SnValueStart { get; private init; } = []; // offset of the m×k row-major block of s
     internal int[] SnChildHead { get; private init; } = [];   // first child of each supernode, −1 if none
@@ -69,10 +72,12 @@ internal sealed class SymbolicCholesky
     /// <param name="ordering">A fill-reducing permutation p of the unknowns (p[k] = unknown placed k-th).</param>
     /// <param name="orderingName">A name for reports.</param>
     /// <exception cref="ArgumentException">When the ordering is not a permutation of the graph's vertices.</exception>
-    public static SymbolicCholesky Analyze(AdjacencyGraph graph, IReadOnlyList<int> ordering, string orderingName = "given")
+    public static SymbolicCholesky Analyze(AdjacencyGraph graph, IReadOnlyList<int> ordering,
+        string orderingName = "given")
     {
         int n = graph.VertexCount;
-        if (ordering.Count != n) throw new ArgumentException($"the ordering has {ordering.Count} entries for {n} unknowns");
+        if (ordering.Count != n)
+            throw new ArgumentException($"the ordering has {ordering.Count} entries for {n} unknowns");
         var perm0 = ordering.ToArray();
         var iperm0 = LinearAlgebra.Sparse.Permutation.Invert(perm0);
 
@@ -142,7 +147,9 @@ internal sealed class SymbolicCholesky
         }
         valueStart[ns] = stored;
         if (stored > Array.MaxLength)
-            throw new InvalidOperationException($"The factor would need {stored} stored values, more than one array can hold; the network is too large for this engine.");
+            throw new InvalidOperationException(
+                $"The factor would need {stored} stored values, more than one array can hold; the network is too " +
+                $"large for this engine.");
 
         return new SymbolicCholesky
         {

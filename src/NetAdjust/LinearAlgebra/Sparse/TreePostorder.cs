@@ -4,7 +4,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// A postorder of a forest (children numbered before their parent, each subtree contiguous). Renumbering the
 /// columns of C in a postorder of its elimination tree leaves the fill unchanged and makes supernodes contiguous.
 /// </summary>
-/// <remarks>Liu 1990 (SIAM J. Matrix Anal. Appl. 11(1)), §3; Davis 2006, §4.3 (cs_post). Non-recursive depth-first search; O(n).</remarks>
+/// <remarks>Liu 1990 (SIAM J. Matrix Anal. Appl. 11(1)), §3; Davis 2006, §4.3 (cs_post). Non-recursive depth-first
+/// search; O(n).</remarks>
 internal static class TreePostorder
 {
     /// <summary>post[k] = the node numbered k-th.</summary>

@@ -15,8 +15,10 @@ public sealed class UnknownGeometry
     /// <param name="groupOfUnknown">For each unknown, its group in [0, group count).</param>
     /// <param name="groupX">Easting (m) of each group; NaN when not known.</param>
     /// <param name="groupY">Northing (m) of each group; NaN when not known.</param>
-    /// <exception cref="ArgumentException">When a group index is out of range or the position arrays differ in length.</exception>
-    public UnknownGeometry(IReadOnlyList<int> groupOfUnknown, IReadOnlyList<double> groupX, IReadOnlyList<double> groupY)
+    /// <exception cref="ArgumentException">When a group index is out of range or the position arrays differ in
+    /// length.</exception>
+    public UnknownGeometry(IReadOnlyList<int> groupOfUnknown, IReadOnlyList<double> groupX,
+        IReadOnlyList<double> groupY)
     {
         if (groupX.Count != groupY.Count) throw new ArgumentException("the group position arrays differ in length");
         _group = groupOfUnknown.ToArray();
@@ -58,5 +60,6 @@ public interface IGeometryAwareSolver : INormalEquationsSolver
     /// <param name="geometry">Positions and grouping of the unknowns; null when not known.</param>
     /// <returns>The factor.</returns>
     /// <exception cref="SingularNormalMatrixException">When N is numerically singular.</exception>
-    INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights, UnknownGeometry? geometry);
+    INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights,
+        UnknownGeometry? geometry);
 }

@@ -16,9 +16,11 @@ namespace NetAdjust.Tests.Adjustment.Approximation;
 /// </summary>
 public class ApproximateCoordinatesTests
 {
-    private static double Az(double e1, double n1, double e2, double n2) => Angle.Reduce0To2Pi(Math.Atan2(e2 - e1, n2 - n1));
+    private static double Az(double e1, double n1, double e2, double n2) =>
+        Angle.Reduce0To2Pi(Math.Atan2(e2 - e1, n2 - n1));
 
-    private static double Dist(double e1, double n1, double e2, double n2) => Math.Sqrt(Math.Pow(e2 - e1, 2) + Math.Pow(n2 - n1, 2));
+    private static double Dist(double e1, double n1, double e2, double n2) =>
+        Math.Sqrt(Math.Pow(e2 - e1, 2) + Math.Pow(n2 - n1, 2));
 
     private static (Dictionary<string, double> E, Dictionary<string, double> N) Run(SurveyNetwork net)
     {
@@ -32,10 +34,13 @@ public class ApproximateCoordinatesTests
     private static readonly (string Id, double E, double N)[] Known =
         [("A", 1000, 2000), ("B", 1400, 2100), ("C", 1250, 1650), ("D", 900, 1800)];
 
-    private static Point Held(string id) { var k = Known.Single(x => x.Id == id); return new Point(id) { E = k.E, N = k.N, Fixed = Fixity.EN }; }
+    private static Point Held(string id) { var k =
+        Known.Single(x => x.Id == id); return new Point(id) { E = k.E, N = k.N, Fixed = Fixity.EN }; }
 
-    private static DirectionObservation Dir(string at, (double E, double N) from, string to, (double E, double N) target, double zero, string set) =>
-        new(at, to, Angle.FromRadians(Angle.Reduce0To2Pi(Az(from.E, from.N, target.E, target.N) - zero)), set) { StandardDeviation = 1e-5 };
+    private static DirectionObservation Dir(string at, (double E, double N) from, string to,
+        (double E, double N) target, double zero, string set) =>
+        new(at, to, Angle.FromRadians(Angle.Reduce0To2Pi(Az(from.E, from.N, target.E, target.N) - zero)),
+            set) { StandardDeviation = 1e-5 };
 
     [Fact]
     public void ResectionFromDirectionsToThreeKnownPointsIsExact()
@@ -45,7 +50,8 @@ public class ApproximateCoordinatesTests
         var pts = new[] { Held("A"), Held("B"), Held("C"), new Point("P") };
         var obs = new Observation[]
         {
-            Dir("P", p, "A", (1000, 2000), 0.7, "P/1"), Dir("P", p, "B", (1400, 2100), 0.7, "P/1"), Dir("P", p, "C", (1250, 1650), 0.7, "P/1"),
+            Dir("P", p, "A", (1000, 2000), 0.7, "P/1"), Dir("P", p, "B", (1400, 2100), 0.7, "P/1"),
+                Dir("P", p, "C", (1250, 1650), 0.7, "P/1"),
         };
         var (e, n) = Run(new SurveyNetwork("res", pts, obs));
         Assert.Equal(p.E, e["P"], 6);
@@ -97,8 +103,10 @@ public class ApproximateCoordinatesTests
         var pts = new[] { Held("A"), Held("B"), Held("D"), new Point("P") };
         var obs = new Observation[]
         {
-            new DistanceObservation("A", "P", Length.FromMetres(Dist(1000, 2000, pe, pn))) { StandardDeviation = 0.002 },
-            new DistanceObservation("B", "P", Length.FromMetres(Dist(1400, 2100, pe, pn))) { StandardDeviation = 0.002 },
+            new DistanceObservation("A", "P",
+                Length.FromMetres(Dist(1000, 2000, pe, pn))) { StandardDeviation = 0.002 },
+            new DistanceObservation("B", "P",
+                Length.FromMetres(Dist(1400, 2100, pe, pn))) { StandardDeviation = 0.002 },
             new DistanceObservation("D", "P", Length.FromMetres(Dist(900, 1800, pe, pn))) { StandardDeviation = 0.002 },
         };
         var (e, n) = Run(new SurveyNetwork("dd", pts, obs));
@@ -115,7 +123,8 @@ public class ApproximateCoordinatesTests
         var obs = new Observation[]
         {
             new AngleObservation("A", "B", "P", Angle.FromRadians(ang)) { StandardDeviation = 1e-5 },
-            new DistanceObservation("A", "P", Length.FromMetres(Dist(1000, 2000, p.E, p.N))) { StandardDeviation = 0.002 },
+            new DistanceObservation("A", "P",
+                Length.FromMetres(Dist(1000, 2000, p.E, p.N))) { StandardDeviation = 0.002 },
         };
         var (e, n) = Run(new SurveyNetwork("polar", pts, obs));
         Assert.Equal(p.E, e["P"], 6);
@@ -131,7 +140,8 @@ public class ApproximateCoordinatesTests
         double d = Dist(1000, 2000, p.E, p.N);
         var obs = new Observation[]
         {
-            new DistanceObservation("A", "P", Length.FromMetres(d + 100)) { StandardDeviation = 0.002, Excluded = true },
+            new DistanceObservation("A", "P", Length.FromMetres(d + 100)) { StandardDeviation = 0.002,
+                Excluded = true },
             Dir("A", (1000, 2000), "B", (1400, 2100), 0.3, "A/1"), Dir("A", (1000, 2000), "P", p, 0.3, "A/1"),
             new DistanceObservation("A", "P", Length.FromMetres(d)) { StandardDeviation = 0.002 },
         };
@@ -143,7 +153,8 @@ public class ApproximateCoordinatesTests
     [Fact]
     public void HeightsFollowTheLevellingFromTheBenchmark()
     {
-        var pts = new[] { new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"), new Point("L3") };
+        var pts = new[] { new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"),
+            new Point("L3") };
         var obs = new Observation[]
         {
             new HeightDifferenceObservation("BM", "L1", Length.FromMetres(1.25)) { StandardDeviation = 0.001 },
@@ -198,7 +209,8 @@ public class ApproximateCoordinatesTests
         // Gauss-Newton with step halving (Hartley 1961, from memory): start values off by up to 25 m on 200 m lines.
         var control = GridNetworks.TwoHeld(15, levelling: false);
         var near = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: 0).Network);
-        var far = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: offset).Network, AdjustmentOptions.Default with { MaxIterations = 50 });
+        var far = Adjuster.Adjust(GridNetworks.Grid(seed, 4, control, approx: offset).Network,
+            AdjustmentOptions.Default with { MaxIterations = 50 });
         for (int i = 0; i < near.Points.Count; i++)
         {
             Assert.Equal(near.Points[i].E!.Value, far.Points[i].E!.Value, 7);

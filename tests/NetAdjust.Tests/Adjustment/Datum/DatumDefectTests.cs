@@ -12,9 +12,11 @@ namespace NetAdjust.Tests.Adjustment.Datum;
 /// </summary>
 public class DatumDefectTests
 {
-    private static Observation D(string a, string b, double m) => new DistanceObservation(a, b, Length.FromMetres(m)) { StandardDeviation = 0.002 };
+    private static Observation D(string a, string b, double m) =>
+        new DistanceObservation(a, b, Length.FromMetres(m)) { StandardDeviation = 0.002 };
 
-    private static Observation R(string at, string to, double deg, string set) => new DirectionObservation(at, to, Angle.FromDegrees(deg), set) { StandardDeviation = 1e-5 };
+    private static Observation R(string at, string to, double deg, string set) =>
+        new DirectionObservation(at, to, Angle.FromDegrees(deg), set) { StandardDeviation = 1e-5 };
 
     private static readonly Point[] Triangle =
     [
@@ -56,7 +58,8 @@ public class DatumDefectTests
     {
         // One held point and an observed azimuth fix position and rotation, but nothing fixes the size.
         var pts = Triangle.Select((p, k) => k == 0 ? p with { Fixed = Fixity.EN } : p);
-        var obs = TriangleObs(distances: false).Append(new AzimuthObservation("A", "B", Angle.FromDegrees(90)) { StandardDeviation = 1e-5 });
+        var obs = TriangleObs(distances: false).Append(new AzimuthObservation("A", "B",
+            Angle.FromDegrees(90)) { StandardDeviation = 1e-5 });
         var e = Defect(pts, obs);
         Assert.StartsWith("The datum is not defined: no distance.", e.Message);
         Assert.Equal(["scale"], e.Undetermined);
@@ -96,8 +99,11 @@ public class DatumDefectTests
             Defect(Triangle, TriangleObs()).Message,
             Defect(Triangle.Select((p, k) => k == 0 ? p with { Fixed = Fixity.EN } : p), TriangleObs()).Message,
             Defect(Triangle.Select((p, k) => k == 0 ? p with { Fixed = Fixity.EN } : p),
-                TriangleObs(false).Append(new AzimuthObservation("A", "B", Angle.FromDegrees(90)) { StandardDeviation = 1e-5 })).Message,
-            Defect(Triangle.Select((p, k) => k < 2 ? p with { Fixed = Fixity.EN } : p).Concat([new Point("X") { E = 5, N = 5 }, new Point("Y") { E = 6, N = 5 }]),
+                TriangleObs(false).Append(new AzimuthObservation("A", "B",
+                    Angle.FromDegrees(90)) { StandardDeviation = 1e-5 })).Message,
+            Defect(Triangle.Select((p, k) =>
+                k < 2 ? p with { Fixed = Fixity.EN } : p).Concat([new Point("X") { E = 5, N = 5 },
+                new Point("Y") { E = 6, N = 5 }]),
                 TriangleObs().Append(D("X", "Y", 1))).Message,
         };
         Assert.Equal(4, messages.Select(m => m.Split('.')[0] + m.Split('.')[1]).Distinct().Count());
@@ -109,7 +115,8 @@ public class DatumDefectTests
     {
         var pts = Triangle.Concat([new Point("X") { E = 500, N = 500 }, new Point("Y") { E = 600, N = 500 }]);
         var obs = TriangleObs().Append(D("X", "Y", 100));
-        var e = Assert.Throws<DatumDefectException>(() => Adjuster.Adjust(new SurveyNetwork("t", pts, obs), AdjustmentOptions.Default with { Datum = DatumDefinition.Free() }));
+        var e = Assert.Throws<DatumDefectException>(() => Adjuster.Adjust(new SurveyNetwork("t", pts, obs),
+            AdjustmentOptions.Default with { Datum = DatumDefinition.Free() }));
         Assert.Contains("falls apart into 2 parts", e.Message);
         Assert.Contains("a free network can define the datum of one connected network only", e.Message);
     }
@@ -117,8 +124,10 @@ public class DatumDefectTests
     [Fact]
     public void TheFreeNetworkNeedsNoControlAtAll()
     {
-        // The triangle without a fixed point adjusts as a free network: r = n − u + 3 (translation in E and N, rotation).
-        var r = Adjuster.Adjust(new SurveyNetwork("t", Triangle, TriangleObs()), AdjustmentOptions.Default with { Datum = DatumDefinition.Free() });
+        // The triangle without a fixed point adjusts as a free network: r = n − u + 3 (translation in E and N,
+        // rotation).
+        var r = Adjuster.Adjust(new SurveyNetwork("t", Triangle, TriangleObs()),
+            AdjustmentOptions.Default with { Datum = DatumDefinition.Free() });
         Assert.Equal(r.Statistics.Observations - r.Statistics.Unknowns + 3, r.Statistics.DegreesOfFreedom);
     }
 }

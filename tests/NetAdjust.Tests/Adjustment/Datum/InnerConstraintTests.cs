@@ -22,7 +22,8 @@ public class InnerConstraintTests
     // The dense solver gives every entry of Qxx, which the oracles below compare in full.
     private static readonly AdjustmentOptions Tight = AdjustmentOptions.Default with
     {
-        LengthTolerance = 1e-10, AngleTolerance = 1e-12, MaxIterations = 50, Solver = new NetAdjust.LinearAlgebra.DenseNormalEquationsSolver(),
+        LengthTolerance = 1e-10, AngleTolerance = 1e-12, MaxIterations = 50, Solver =
+            new NetAdjust.LinearAlgebra.DenseNormalEquationsSolver(),
     };
 
     private static Matrix<double> Normal(AdjustmentResult r)
@@ -50,15 +51,19 @@ public class InnerConstraintTests
         return m.Inverse().SubMatrix(0, u, 0, u);
     }
 
-    private static void AssertCofactorsEqual(Matrix<double> expected, Func<int, int, double> actual, double rel, string what)
+    private static void AssertCofactorsEqual(Matrix<double> expected, Func<int, int, double> actual, double rel,
+        string what)
     {
-        // Entries are compared relative to √(Qii Qjj); held unknowns (Qii = 0) against a floor of 1e−6 of the largest variance (rounding of the oracle is ~1e−16 of it).
+        // Entries are compared relative to √(Qii Qjj); held unknowns (Qii = 0) against a floor of 1e−6 of the largest
+        // variance (rounding of the oracle is ~1e−16 of it).
         double floor = 1e-6 * expected.Diagonal().AbsoluteMaximum();
         for (int i = 0; i < expected.RowCount; i++)
             for (int j = 0; j < expected.ColumnCount; j++)
             {
-                double scale = Math.Sqrt(Math.Max(Math.Abs(expected[i, i]), floor) * Math.Max(Math.Abs(expected[j, j]), floor));
-                Assert.True(Math.Abs(expected[i, j] - actual(i, j)) <= rel * scale, $"{what} ({i},{j}): {expected[i, j]} vs {actual(i, j)}");
+                double scale = Math.Sqrt(Math.Max(Math.Abs(expected[i, i]), floor) * Math.Max(Math.Abs(expected[j, j]),
+                    floor));
+                Assert.True(Math.Abs(expected[i, j] - actual(i, j)) <= rel * scale,
+                    $"{what} ({i},{j}): {expected[i, j]} vs {actual(i, j)}");
             }
     }
 
@@ -93,8 +98,10 @@ public class InnerConstraintTests
         return b;
     }
 
-    private static SurveyNetwork Net(int seed, bool levelling, bool azimuth = false, Dictionary<int, Fixity>? control = null) =>
-        GridNetworks.Grid(seed, 3, control ?? new Dictionary<int, Fixity> { [0] = levelling ? Fixity.ENH : Fixity.EN, [8] = Fixity.E },
+    private static SurveyNetwork Net(int seed, bool levelling, bool azimuth = false, Dictionary<int,
+        Fixity>? control = null) =>
+        GridNetworks.Grid(seed, 3, control ?? new Dictionary<int,
+            Fixity> { [0] = levelling ? Fixity.ENH : Fixity.EN, [8] = Fixity.E },
             approx: 0.05, levelling: levelling, azimuth: azimuth).Network;
 
     [Property(MaxTest = 10)]
@@ -113,18 +120,23 @@ public class InnerConstraintTests
         foreach (var other in new[] { minimal, free })
         {
             Assert.Equal(held.Statistics.DegreesOfFreedom, other.Statistics.DegreesOfFreedom);
-            Assert.True(Math.Abs(held.Statistics.Vtpv - other.Statistics.Vtpv) <= 1e-9 * held.Statistics.Vtpv, $"vtpv {held.Statistics.Vtpv} vs {other.Statistics.Vtpv}");
+            Assert.True(Math.Abs(held.Statistics.Vtpv - other.Statistics.Vtpv) <= 1e-9 * held.Statistics.Vtpv,
+                $"vtpv {held.Statistics.Vtpv} vs {other.Statistics.Vtpv}");
             for (int i = 0; i < held.Observations.Count; i++)
             {
                 var a = held.Observations[i];
                 var b = other.Observations[i];
                 Assert.True(Math.Abs(a.Residual - b.Residual) <= 1e-9, $"residual {i}: {a.Residual} vs {b.Residual}");
-                Assert.True(Math.Abs(a.SdAdjusted - b.SdAdjusted) <= 1e-9 * a.Input.StandardDeviation, $"sd {i}: {a.SdAdjusted} vs {b.SdAdjusted}");
-                // Redundancy numbers rᵢ = (Qvv P)ᵢᵢ and w-values (Baarda 1968) depend on A Qxx Aᵀ only: datum invariant.
+                Assert.True(Math.Abs(a.SdAdjusted - b.SdAdjusted) <= 1e-9 * a.Input.StandardDeviation,
+                    $"sd {i}: {a.SdAdjusted} vs {b.SdAdjusted}");
+                // Redundancy numbers rᵢ = (Qvv P)ᵢᵢ and w-values (Baarda 1968) depend on A Qxx Aᵀ only: datum
+                // invariant.
                 var ta = held.Analysis.Observations[i];
                 var tb = other.Analysis.Observations[i];
-                Assert.True(Math.Abs(ta.Redundancy - tb.Redundancy) <= 1e-9, $"r {i}: {ta.Redundancy} vs {tb.Redundancy}");
-                // w is v/σ: the iterations stop at 1e−10 m, i.e. ~1e−8 σ for these distances, so w agrees to 1e−6 (not 1e−9).
+                Assert.True(Math.Abs(ta.Redundancy - tb.Redundancy) <= 1e-9,
+                    $"r {i}: {ta.Redundancy} vs {tb.Redundancy}");
+                // w is v/σ: the iterations stop at 1e−10 m, i.e. ~1e−8 σ for these distances, so w agrees to 1e−6 (not
+                // 1e−9).
                 if (ta.W is double wa) Assert.True(Math.Abs(wa - tb.W!.Value) <= 1e-6, $"w {i}: {wa} vs {tb.W}");
             }
             Assert.Equal(held.Analysis.RedundancySum, other.Analysis.RedundancySum, 9);
@@ -167,7 +179,8 @@ public class InnerConstraintTests
         // Bᵀ Q_B = 0: the datum conditions hold for the covariance.
         Assert.True((b.Transpose() * q).FrobeniusNorm() <= 1e-9 * q.FrobeniusNorm());
         AssertCofactorsEqual(Bordered(n, b), sub.Cofactor, 1e-9, "Q subset");
-        double Trace(AdjustmentResult r) => r.Unknowns.Unknowns.Select((x, i) => subset.Contains(x.Owner) ? r.Cofactor(i, i) : 0).Sum();
+        double Trace(AdjustmentResult r) =>
+            r.Unknowns.Unknowns.Select((x, i) => subset.Contains(x.Owner) ? r.Cofactor(i, i) : 0).Sum();
         double min = Trace(sub);
         Assert.True(min < Trace(all), $"{min} vs all-points datum {Trace(all)}");
         var minimal = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q22") });
@@ -177,7 +190,8 @@ public class InnerConstraintTests
     [Theory]
     [InlineData(31, false)]
     [InlineData(32, true)]
-    public void STransformOfTheFreeCovarianceEqualsTheCovarianceComputedInThePointAndAzimuthDatum(int seed, bool levelling)
+    public void STransformOfTheFreeCovarianceEqualsTheCovarianceComputedInThePointAndAzimuthDatum(int seed,
+        bool levelling)
     {
         var net = Net(seed, levelling);
         var free = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Free() });
@@ -189,7 +203,8 @@ public class InnerConstraintTests
         AssertCofactorsEqual(direct, (i, j) => moved[i, j], 1e-9, "S-transformed");
 
         // And the adjuster's own minimal-constraint solution, against the oracle at its own linearisation.
-        var minimal = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q22", levelling ? "Q00" : null) });
+        var minimal = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q22",
+            levelling ? "Q00" : null) });
         var bm = STransformation.MinimalConstraints(minimal, "Q00", "Q22", levelling ? "Q00" : null);
         AssertCofactorsEqual(Bordered(Normal(minimal), bm), minimal.Cofactor, 1e-9, "Q minimal");
         // The held point has no variance in that datum.
@@ -200,7 +215,8 @@ public class InnerConstraintTests
     [Fact]
     public void WeightedControlIsSetAsideInAFreeNetworkAndTheAnalysisStillRuns()
     {
-        var net = Net(25, levelling: false, control: new Dictionary<int, Fixity> { [0] = Fixity.EN, [8] = Fixity.None });
+        var net = Net(25, levelling: false, control: new Dictionary<int, Fixity> { [0] = Fixity.EN, [8] =
+            Fixity.None });
         var weighted = new NetAdjust.Network.SurveyNetwork(net.Name,
             net.Points.Select((p, k) => k == 8 ? p with { SdE = 0.01, SdN = 0.01 } : p), net.Observations);
         var free = Adjuster.Adjust(weighted, Tight with { Datum = DatumDefinition.Free() });
@@ -222,7 +238,8 @@ public class InnerConstraintTests
         var minimal = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Minimal("Q00", "Q22") });
         var free = Adjuster.Adjust(net, Tight with { Datum = DatumDefinition.Free() });
         int defect = azimuth ? 3 : 4;
-        Assert.Equal(free.Statistics.Observations - free.Statistics.Unknowns + defect, free.Statistics.DegreesOfFreedom);
+        Assert.Equal(free.Statistics.Observations - free.Statistics.Unknowns + defect,
+            free.Statistics.DegreesOfFreedom);
         foreach (var other in new[] { minimal, free })
         {
             Assert.Equal(held.Statistics.DegreesOfFreedom, other.Statistics.DegreesOfFreedom);

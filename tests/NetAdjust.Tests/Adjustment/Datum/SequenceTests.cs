@@ -18,12 +18,14 @@ namespace NetAdjust.Tests.Adjustment.Datum;
 /// </summary>
 public class SequenceTests
 {
-    private static readonly Dictionary<int, Fixity> Five = new() { [0] = Fixity.EN, [3] = Fixity.EN, [5] = Fixity.EN, [12] = Fixity.EN, [15] = Fixity.EN };
+    private static readonly Dictionary<int, Fixity> Five =
+        new() { [0] = Fixity.EN, [3] = Fixity.EN, [5] = Fixity.EN, [12] = Fixity.EN, [15] = Fixity.EN };
 
     // The dense solver gives every entry of Qxx, which the oracles below compare in full.
     private static readonly AdjustmentOptions Tight = AdjustmentOptions.Default with
     {
-        LengthTolerance = 1e-10, AngleTolerance = 1e-12, MaxIterations = 50, Solver = new NetAdjust.LinearAlgebra.DenseNormalEquationsSolver(),
+        LengthTolerance = 1e-10, AngleTolerance = 1e-12, MaxIterations = 50, Solver =
+            new NetAdjust.LinearAlgebra.DenseNormalEquationsSolver(),
     };
 
     private static double QuadraticForm(SequenceResult s)
@@ -67,7 +69,8 @@ public class SequenceTests
     [InlineData(41, 12, 0.03, 0.04)]
     [InlineData(42, 5, -0.05, 0.0)]
     [InlineData(43, 3, 0.0, -0.05)]
-    public void AControlMarkDisturbedByFiveCentimetresFailsTheTestAndStandsOut(int seed, int disturbed, double de, double dn)
+    public void AControlMarkDisturbedByFiveCentimetresFailsTheTestAndStandsOut(int seed, int disturbed, double de,
+        double dn)
     {
         var sim = GridNetworks.Grid(seed, 4, Five, disturb: (disturbed, de, dn));
         var s = AdjustmentSequence.Run(sim.Network, Tight);
@@ -78,7 +81,8 @@ public class SequenceTests
         Assert.Equal(id, worst.Id);
         Assert.Equal(QuadraticForm(s), s.Test.VtpvIncrease, 1e-3 * s.Test.VtpvIncrease);
         // The minimally-constrained solution tests the observations alone: its global test is not affected.
-        Assert.Equal(s.Minimal.Statistics.Vtpv, AdjustmentSequence.Run(GridNetworks.Grid(seed, 4, Five).Network, Tight).Minimal.Statistics.Vtpv, 6);
+        Assert.Equal(s.Minimal.Statistics.Vtpv,
+            AdjustmentSequence.Run(GridNetworks.Grid(seed, 4, Five).Network, Tight).Minimal.Statistics.Vtpv, 6);
         // Shifts: the constrained solution moves the points near the disturbed mark most.
         Assert.Contains(s.Shifts, x => x.Id == id && x.Horizontal > 0.01);
     }
@@ -98,8 +102,10 @@ public class SequenceTests
             if (s.Test.Passed == false) rejected++;
         }
         double mean = t.Average();
-        Assert.InRange(mean, 7 - (4 * Math.Sqrt(14.0 / runs)), 7 + (4 * Math.Sqrt(14.0 / runs)));   // ±4 standard errors
-        Assert.InRange(rejected, 3, 30);                                                            // 15 expected; binomial(300, 0.05) ±4σ
+        // ±4 standard errors
+        Assert.InRange(mean, 7 - (4 * Math.Sqrt(14.0 / runs)), 7 + (4 * Math.Sqrt(14.0 / runs)));
+        // 15 expected; binomial(300, 0.05) ±4σ
+        Assert.InRange(rejected, 3, 30);
     }
 
     [Fact]
