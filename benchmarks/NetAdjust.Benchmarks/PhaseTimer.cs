@@ -48,7 +48,7 @@ public static class PhaseTimer
             if (o == SparseOrdering.MinimumDegree && u > 400_000) continue;
             sw.Restart();
             var perm = o == SparseOrdering.MinimumDegree || prepared.Geometry is null || !prepared.Geometry.HasAllPositions
-                ? MinimumDegreeOrdering.Order(graph) : GeometricNestedDissection.Order(graph, prepared.Geometry);
+                ? ApproximateMinimumDegree.Order(graph) : GeometricNestedDissection.Order(graph, prepared.Geometry);
             double tOrder = sw.Elapsed.TotalSeconds;
             sw.Restart();
             var sym = SymbolicCholesky.Analyze(graph, perm, o.ToString());

@@ -4,7 +4,8 @@ namespace NetAdjust.Benchmarks;
 
 /// <summary>
 /// Runs the benchmarks: <c>dotnet run -c Release --project benchmarks/NetAdjust.Benchmarks -- --filter '*'</c>;
-/// or a one-shot phase timing: <c>... -- phases plane|levels POINTS [auto|nd|md]</c>.
+/// or a one-shot phase timing: <c>... -- phases plane|levels POINTS [auto|nd|md]</c>;
+/// or the orderings against the reference AMD: <c>... -- orderings [plane|levels POINTS]...</c>.
 /// </summary>
 public static class Program
 {
@@ -13,6 +14,7 @@ public static class Program
     public static void Main(string[] args)
     {
         if (args.Length > 0 && args[0] == "phases") { PhaseTimer.Run(args); return; }
+        if (args.Length > 0 && args[0] == "orderings") { OrderingComparison.Run(args); return; }
         if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
         if (args.Length > 0 && args[0] == "crossover") { Crossover.Run(); return; }
         if (args.Length > 1 && args[0] == "dense") { Crossover.DenseOnce(int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture)); return; }

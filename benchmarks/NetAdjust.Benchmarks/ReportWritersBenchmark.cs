@@ -2,6 +2,7 @@ using BenchmarkDotNet.Attributes;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.Benchmarks;
 

@@ -1,6 +1,7 @@
 using BenchmarkDotNet.Attributes;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Benchmarks;

@@ -27,7 +27,11 @@ public static class SafeFileWriter
         var seen = new HashSet<string>(StringComparer.Ordinal);
         foreach (var o in outputs)
         {
-            string full = Path.GetFullPath(o);
+            if (string.IsNullOrWhiteSpace(o)) throw new OutputException("an output path is empty: name a file");
+            string full;
+            try { full = Path.GetFullPath(o); }
+            catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
+            { throw new OutputException($"'{o}' is not a usable file path ({e.Message})", e); }
             if (ins.Contains(full)) throw new OutputException($"{o}: refusing to overwrite an input file; choose another output path");
             if (!seen.Add(full)) throw new OutputException($"{o}: named for two outputs; choose distinct paths");
         }
@@ -57,14 +61,7 @@ public static class SafeFileWriter
                     throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
                 }
             }
-            foreach (var (tmp, full, given) in staged)
-            {
-                try { File.Move(tmp, full, overwrite: true); }
-                catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
-                {
-                    throw new OutputException($"{given}: cannot write the file ({e.Message})", e);
-                }
-            }
+            OutputCommit.RenameAll(staged.Select(t => (t.Tmp, t.Full, t.Given)).ToList());
         }
         finally
         {

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using NetAdjust.Cli;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.Cli.Tests;
 

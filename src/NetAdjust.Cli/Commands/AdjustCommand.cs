@@ -1,9 +1,10 @@
 using System.CommandLine;
 using System.Globalization;
 using NetAdjust.Adjustment;
-using NetAdjust.IO;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.IO;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.Cli.Commands;
 
@@ -43,7 +44,11 @@ internal static class AdjustCommand
             SafeFileWriter.CheckPlan(new[] { jsonPath, reportPath }.OfType<string>().Concat(exchange.Paths(parse)), project.InputFiles);
 
             if (!parse.GetValue(quiet)) project = project with { Options = project.Options with { Progress = new ProgressPrinter(console.Error) } };
-            var context0 = new ReportContext(path, runDate, project.Units) { ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs };
+            foreach (var w in project.Warnings) console.Error.WriteLine($"warning: {w}");
+            var context0 = new ReportContext(path, runDate, project.Units)
+            {
+                ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
+            };
             string text;
             AdjustmentResult result;
             ReportContext context;

@@ -1,10 +1,11 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
+using System.Text;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Text;
+using NetAdjust.Network;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 

@@ -42,6 +42,7 @@ internal static class SimulateCommand
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
             string path = parse.GetValue(output)!;
+            SafeFileWriter.CheckPlan([path], []); // an empty or unusable path: exit 4, not an internal error
             if (parse.GetValue(scenario) is string name)
             {
                 var clash = parse.Tokens.Select(t => t.Value)

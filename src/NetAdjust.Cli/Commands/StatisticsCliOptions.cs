@@ -3,6 +3,7 @@ using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Text;
 using NetAdjust.IO.Results;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Cli.Commands;

@@ -13,21 +13,21 @@ internal static class CsvObservationReader
 {
     private static readonly string[] Columns = ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor"];
 
-    /// <summary>Budget of a height difference from a named level: (level id, section length, setups, runs) → budget; throws <see cref="InvalidInputException"/>.</summary>
-    internal delegate NetAdjust.Stochastic.ErrorBudget LevelBudget(string level, Length? length, int? setups, int? runs);
+    /// <summary>Weighting of a height difference from a named level: (level id, section length, setups, runs) → weighting; throws <see cref="InvalidInputException"/>.</summary>
+    internal delegate ObservationWeighting LevelBudget(string level, Length? length, int? setups, int? runs);
 
     public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles, ProjectUnits units,
         IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null)
     {
         var result = new List<Observation>();
-        string[] lines = text.Split('\n');
+        string[] lines = text.Split(["\r\n", "\r", "\n"], StringSplitOptions.None); // CR, LF and CRLF alike
         Dictionary<string, int>? col = null;
         for (int i = 0; i < lines.Length; i++)
         {
             int lineNo = i + 1;
             string line = lines[i].TrimEnd('\r');
             if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
-            string[] f = line.Split(',').Select(s => s.Trim()).ToArray();
+            string[] f = CsvLimits.Fields(line, file, lineNo);
             if (col is null)
             {
                 col = new Dictionary<string, int>(StringComparer.Ordinal);
@@ -55,7 +55,7 @@ internal static class CsvObservationReader
             };
             double sd;
             string sdText = Get("sd");
-            NetAdjust.Stochastic.ErrorBudget? budget = null;
+            ObservationWeighting? budget = null;
             string levelText = Get("level");
             if (kind != ObservationKind.HeightDifference && (levelText.Length > 0 || Get("setups").Length > 0 || Get("runs").Length > 0))
                 throw new ProjectFileException(file, lineNo, item, "the 'level', 'setups' and 'runs' fields are for height differences only");
@@ -76,7 +76,7 @@ internal static class CsvObservationReader
                 }
                 try { budget = (levelBudget ?? throw new InvalidInputException($"level '{levelText}' is not defined under 'levels'"))(levelText, len, Count("setups", 100000), Count("runs", 100)); }
                 catch (InvalidInputException e) when (e is not ProjectFileException) { throw new ProjectFileException(file, lineNo, item, e.Message); }
-                sd = budget.Total;
+                sd = double.NaN; // derived from the level by the stochastic model
             }
             else if (sdText.Length > 0)
             {
@@ -98,7 +98,7 @@ internal static class CsvObservationReader
                 _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
                     Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
             };
-            result.Add(ObservationMarks.Apply(budget is null ? o : o.WithBudget(budget), Get("exclude"), Get("sd_factor"), file, lineNo, item));
+            result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"), Get("sd_factor"), file, lineNo, item));
         }
         return result;
     }

@@ -44,7 +44,7 @@ internal static class ObservationMarks
             if (!(factor > 0)) throw new ProjectFileException(file, line, item, "sd_factor must be positive: it multiplies the standard deviation (e.g. 3 makes σ three times larger)");
         }
         if (!excluded && factor == 1.0) return o;
-        // An error budget is scaled with the standard deviation, so that its total stays equal to it.
-        return o with { Excluded = excluded, SdFactor = factor, StandardDeviation = o.StandardDeviation * factor, Budget = o.Budget?.Scaled(factor) };
+        // A standard deviation derived from specifications (NaN here) is multiplied by the factor when it is derived.
+        return o with { Excluded = excluded, SdFactor = factor, StandardDeviation = o.StandardDeviation * factor };
     }
 }

@@ -11,9 +11,17 @@ public sealed class ProjectFileException : InvalidInputException
     /// <param name="item">The point, observation or key concerned (may be empty).</param>
     /// <param name="problem">What is wrong, in the surveyor's terms.</param>
     public ProjectFileException(string file, int line, string item, string problem)
-        : base(Compose(file, line, item, problem))
+        : base(Compose(file, line, Clip(item), Clip(problem)))
     {
-        File = file; Line = line; Item = item; Problem = problem;
+        File = file; Line = line; Item = Clip(item); Problem = Clip(problem);
+    }
+
+    /// <summary>Input quoted in a message is clipped to a short excerpt (docs/input-format.md, "Limits").</summary>
+    private static string Clip(string text)
+    {
+        text = System.Text.RegularExpressions.Regex.Replace(text, "'([^'\\s]{41,})'", m => "'"
+            + InputLimits.Excerpt(m.Groups[1].Value) + "'");
+        return text.Length <= 600 ? text : text[..600] + "…";
     }
 
     /// <summary>The file concerned.</summary>

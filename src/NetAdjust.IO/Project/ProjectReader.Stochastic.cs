@@ -10,7 +10,7 @@ namespace NetAdjust.IO.Project;
 /// <summary>The stochastic part of the project file: instruments, targets, levels, and per-setup procedure (docs/input-format.md).</summary>
 public static partial class ProjectReader
 {
-    /// <summary>Specifications declared at the top level, and the points for sight lengths from approximate coordinates.</summary>
+    /// <summary>Specifications declared at the top level.</summary>
     private sealed class StochasticInputs
     {
         public Dictionary<string, TotalStationSpecification> Instruments { get; } = new(StringComparer.Ordinal);
@@ -23,16 +23,21 @@ public static partial class ProjectReader
 
         public Dictionary<string, int> SetupsPerStation { get; } = new(StringComparer.Ordinal);
 
-        /// <summary>Distances observed anywhere in the file, by (from, to): sight lengths of points given no coordinates.</summary>
-        public Dictionary<(string, string), double> DistancesElsewhere { get; } = new();
-
-        /// <summary>The budget of a height difference from a named level (for CSV rows); throws InvalidInputException.</summary>
-        public ErrorBudget BudgetOfLevel(string id, Length? length, int? setups, int? runs)
+        /// <summary>
+        /// The weighting of a height difference from a named level (for CSV rows); throws InvalidInputException.
+        /// </summary>
+        public ObservationWeighting WeightingOfLevel(string id, Length? length, int? setups, int? runs)
         {
-            var level = Levels.TryGetValue(id, out var spec) ? spec : throw new InvalidInputException($"level '{id}' is not defined under 'levels'");
-            if (level.ReadingSd is not null && setups is null) throw new InvalidInputException($"level {id} is specified per reading: give the section's number of setups");
+            var level = Levels.TryGetValue(id, out var spec) ? spec
+                : throw new InvalidInputException($"level '{id}' is not defined under 'levels'");
+            if (level.ReadingSd is not null && setups is null)
+                throw new InvalidInputException($"level {id} is specified per reading: give the section's number of setups");
+            if (level.SdPerKm is not null && length is null)
+                throw new InvalidInputException($"level {id} is specified per km, so the section needs its length");
+            if (length is Length l && !(l.Metres > 0))
+                throw new InvalidInputException("the section length must be positive");
             var procedure = new LevellingProcedure(setups ?? 1, runs ?? (level.SdPerKm is not null ? 2 : 1));
-            return HeightDifferenceBudgetBuilder.Build(level, length?.Metres, procedure);
+            return new ObservationWeighting { Level = level, Levelling = procedure };
         }
     }
 
@@ -113,6 +118,12 @@ public static partial class ProjectReader
     {
         try { return make(); }
         catch (InvalidInputException e) when (e is not ProjectFileException) { throw ctx.Error(node, item, e.Message); } // already names file, line and item
+        catch (ArgumentException) // a contribution overflowed (e.g. centering over a sight of 1e-300 m)
+        {
+            throw ctx.Error(node, item, "the standard deviation derived from the specification is not a finite " +
+                "number " +
+                "(a sight length near zero?); see docs/input-format.md, \"Limits\"");
+        }
     }
 
     /// <summary>A length ≥ 0 in the project's unit (suffix allowed); 0 when the key is absent.</summary>
@@ -173,9 +184,9 @@ public static partial class ProjectReader
     }
 
     /// <summary>
-    /// Gives each pending observation of a setup its budget (from the setup's instrument, target and procedure) and the
-    /// setup's id, and appends it to the output. Sight lengths: the distance observed in the same setup, else computed
-    /// from the given or approximate coordinates.
+    /// Gives each pending observation of a setup the setup's id and, when it is weighted from the setup's instrument,
+    /// its weighting (instrument, target, procedure, and the distances observed in the setup as sight lengths; other
+    /// sight lengths are taken from the adjustment's coordinates), and appends it to the output.
     /// </summary>
     private static void FinishSetup(Context ctx, string at, SetupSpec spec, List<Pending> pending, StochasticInputs s, List<Observation> output)
     {
@@ -190,39 +201,30 @@ public static partial class ProjectReader
         var observed = new Dictionary<string, double>(StringComparer.Ordinal);
         foreach (var p in pending)
             if (p.Observation is DistanceObservation d) observed.TryAdd(d.To, d.Distance.Metres);
-        double Sight(Pending p, string to)
-        {
-            if (observed.TryGetValue(to, out double d)) return d;
-            if (s.Points.TryGetValue(at, out var a) && s.Points.TryGetValue(to, out var b) && a.E is double ae && a.N is double an && b.E is double be && b.N is double bn)
-            {
-                double len = Math.Sqrt(((be - ae) * (be - ae)) + ((bn - an) * (bn - an)));
-                if (len > 0) return len;
-            }
-            if (s.DistancesElsewhere.TryGetValue((at, to), out double e) || s.DistancesElsewhere.TryGetValue((to, at), out e)) return e;
-            throw ctx.Error(p.Node, p.Item, $"the sight length to {to} is needed to weight this observation from the instrument specification: " +
-                "observe the distance in the same setup or give approximate coordinates of both points (or give 'sd')");
-        }
         foreach (var p in pending)
         {
             var o = p.Observation with { SetupId = setupId };
             if (p.NeedsBudget)
             {
-                var target = p.Target ?? spec.Target;
-                o = Wrap(ctx, p.Node, p.Item, () => o switch
+                if (o is DistanceObservation && ts.Edm is null)
+                    throw ctx.Error(p.Node, p.Item,
+                        $"instrument {ts.Id} has no EDM specification, so it cannot weight a distance");
+                o = o with
                 {
-                    DistanceObservation d => o.WithBudget(DistanceBudgetBuilder.Build(ts, target, d.Distance.Metres)),
-                    DirectionObservation d => o.WithBudget(DirectionBudgetBuilder.Build(ts, target, spec.Procedure, Sight(p, d.Target))),
-                    AngleObservation a => o.WithBudget(AngleBudgetBuilder.Build(ts, target, target, spec.Procedure,
-                        Sight(p, a.Backsight), Sight(p, a.Foresight), a.Measured.Radians)),
-                    _ => o,
-                });
+                    StandardDeviation = double.NaN,
+                    Weighting = new ObservationWeighting
+                    {
+                        Instrument = ts, Target = p.Target ?? spec.Target, Procedure = spec.Procedure,
+                        ObservedSights = observed,
+                    },
+                };
             }
             output.Add(ObservationMarks.Apply(o, p.Node, ctx.File)); // re-weighting marks scale the budget too
         }
     }
 
-    /// <summary>The budget of a levelling section from its 'level', 'setups' and 'runs' keys; null when it names no level.</summary>
-    private static ErrorBudget? LevellingBudget(Context ctx, YamlMappingNode m, string item, Length? length, StochasticInputs s)
+    /// <summary>The weighting of a levelling section from its 'level', 'setups' and 'runs' keys; null when it names no level.</summary>
+    private static ObservationWeighting? LevellingWeighting(Context ctx, YamlMappingNode m, string item, Length? length, StochasticInputs s)
     {
         int? Count(string key, int max)
         {
@@ -239,6 +241,6 @@ public static partial class ProjectReader
         string id = ctx.Scalar(ln, item + " level");
         if (!s.Levels.ContainsKey(id)) throw ctx.Error(ln, item, $"level '{id}' is not defined under 'levels'");
         // Runs meaned: default 2 for the per-km model (the ISO 17123-2 figure is for a double run), 1 per reading.
-        return Wrap(ctx, m, item, () => s.BudgetOfLevel(id, length, setups, runs));
+        return Wrap(ctx, m, item, () => s.WeightingOfLevel(id, length, setups, runs));
     }
 }

@@ -6,7 +6,7 @@ public static partial class ProjectReader
     /// The error for YAML that the parser could not read because a flow mapping or sequence was left open: it names the
     /// first line whose '{' / '[' are not closed on the same line (comments and quoted text ignored), or the file.
     /// </summary>
-    private static ProjectFileException UnclosedBracket(string displayName, string text)
+    internal static ProjectFileException UnclosedBracket(string displayName, string text, int fallbackLine = 0)
     {
         var lines = text.Split('\n');
         for (int i = 0; i < lines.Length; i++)
@@ -24,6 +24,10 @@ public static partial class ProjectReader
             if (depth > 0)
                 return new ProjectFileException(displayName, i + 1, "", "this is not valid YAML: a '{' or '[' is not closed on this line (write {id: A, e: 1, n: 2})");
         }
-        return new ProjectFileException(displayName, 0, "", "this is not valid YAML: a '{' or '[' is not closed");
+        return fallbackLine > 0
+            ? new ProjectFileException(displayName, fallbackLine, "",
+                "this is not valid YAML at or after this line: check the indentation and that every '{' or '[' " +
+                    "is closed")
+            : new ProjectFileException(displayName, 0, "", "this is not valid YAML: a '{' or '[' is not closed");
     }
 }

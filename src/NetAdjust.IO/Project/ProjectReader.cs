@@ -2,6 +2,7 @@ using System.Globalization;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Text;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 using YamlDotNet.Core;
 using YamlDotNet.RepresentationModel;
@@ -21,15 +22,52 @@ public static partial class ProjectReader
     /// <returns>The project.</returns>
     /// <exception cref="ProjectFileException">When a file is missing or invalid.</exception>
     /// <exception cref="InvalidInputException">When the network as a whole is inconsistent.</exception>
-    public static SurveyProject Read(string path)
+    public static SurveyProject Read(string path) => Read(path, InputFileResolver.FileSystem);
+
+    /// <summary>Reads a project file and its CSV files through <paramref name="resolver"/> (the only way files
+    /// are opened).</summary>
+    /// <param name="path">Path of the YAML project file.</param>
+    /// <param name="resolver">Finds and opens the files, e.g. <see cref="InputFileResolver.ConfinedTo"/>.</param>
+    /// <returns>The project.</returns>
+    /// <exception cref="ProjectFileException">When a file is missing, not allowed or invalid.</exception>
+    /// <exception cref="InvalidInputException">When the network as a whole is inconsistent.</exception>
+    public static SurveyProject Read(string path, InputFileResolver resolver)
     {
-        string full = Path.GetFullPath(path);
-        if (!File.Exists(full)) throw new ProjectFileException(path, 0, "", "the project file does not exist");
-        string text;
-        try { text = File.ReadAllText(full); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        { throw new ProjectFileException(path, 0, "", $"the project file cannot be read ({e.Message})"); }
-        return Parse(text, path, Path.GetDirectoryName(full)!, p => File.ReadAllText(p));
+        ArgumentNullException.ThrowIfNull(resolver);
+        string full;
+        try { full = resolver.Resolve(Directory.GetCurrentDirectory(), path); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        { throw new ProjectFileException(path, 0, "", $"the project file cannot be read ({FirstLine(e.Message)})"); }
+        string text = ReadText(resolver, full, path, "the project file");
+        return Parse(text, path, Path.GetDirectoryName(full)!, resolver);
+    }
+
+    /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref
+    /// name="resolver"/>.</summary>
+    /// <param name="text">The YAML text.</param>
+    /// <param name="displayName">The file name used in messages.</param>
+    /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
+    /// <param name="resolver">Finds and opens the CSV files.</param>
+    public static SurveyProject Parse(string text, string displayName, string baseDirectory, InputFileResolver resolver)
+    {
+        ArgumentNullException.ThrowIfNull(resolver);
+        return Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
+            (full, rel) => ReadText(resolver, full, rel, "the observation file"));
+    }
+
+    private static string ReadText(InputFileResolver resolver, string full, string shown, string what)
+    {
+        byte[] bytes;
+        try
+        {
+            using var stream = resolver.Open(full);
+            bytes = InputText.ReadBounded(stream, shown);
+        }
+        catch (FileNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
+        catch (DirectoryNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        { throw new ProjectFileException(shown, 0, "", $"{what} cannot be read ({FirstLine(e.Message)})"); }
+        return InputText.Decode(bytes, shown);
     }
 
     /// <summary>Parses project text. CSV files it names are read through <paramref name="readFile"/>.</summary>
@@ -37,12 +75,20 @@ public static partial class ProjectReader
     /// <param name="displayName">The file name used in messages.</param>
     /// <param name="baseDirectory">The folder that relative CSV paths start from.</param>
     /// <param name="readFile">Reads a file given its full path.</param>
-    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string, string> readFile)
+    public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
+        string> readFile) =>
+        Parse(text, displayName, baseDirectory, rel => Path.GetFullPath(Path.Combine(baseDirectory, rel)), (full, _)
+            => readFile(full));
+
+    private static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
+        string> resolve,
+        Func<string, string, string> readFile)
     {
         var ctx = new Context(displayName);
         YamlMappingNode root;
         try
         {
+            YamlGuard.Check(text, displayName);
             var stream = new YamlStream();
             stream.Load(new StringReader(text));
             if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
@@ -52,6 +98,10 @@ public static partial class ProjectReader
         catch (YamlException e)
         {
             throw new ProjectFileException(displayName, (int)e.Start.Line, "", "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
+        }
+        catch (ArgumentException) // YamlDotNet's document model refuses some event orders the parser lets through
+        {
+            throw YamlGuard.Unreadable(displayName, text);
         }
         catch (InvalidOperationException) // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
         {
@@ -72,9 +122,9 @@ public static partial class ProjectReader
         if (ctx.Child(root, "points") is YamlNode pts)
             foreach (var node in ctx.Sequence(pts, "points"))
                 points.Add(ReadPoint(ctx, node, lengths));
+        InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
-        PrescanDistances(ctx, root, lengths, specs.DistancesElsewhere);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
@@ -85,27 +135,40 @@ public static partial class ProjectReader
                 observations.Add(ReadLevelling(ctx, node, lengths, units, defaults, specs));
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
+        var listedTwice = new List<string>();
         if (ctx.Child(root, "files") is YamlNode files)
         {
             foreach (var node in ctx.Sequence(files, "files"))
             {
                 string rel = ctx.Scalar(node, "a CSV file path");
-                string full = Path.GetFullPath(Path.Combine(baseDirectory, rel));
-                string csv;
-                try { csv = readFile(full); }
-                catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                string full, csv;
+                try { full = resolve(rel); csv = readFile(full, rel); }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
                 { throw new ProjectFileException(displayName, Line(node), rel, $"the observation file cannot be read ({FirstLine(e.Message)})"); }
+                catch (ProjectFileException e) when (e.Line == 0)
+                { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
+                if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.BudgetOfLevel));
+                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults, specs.WeightingOfLevel));
             }
         }
 
+        CheckDatumPoints(ctx, root, points);
+        InputChecks.Observations(observations, displayName);
+        if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
+            InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var network = new SurveyNetwork(name, points, observations);
         StatisticsSection.CheckPairs(root, displayName, network);
-        return new SurveyProject(network, units, options, inputs) { Crs = ReadCrs(ctx, root) };
+        return new SurveyProject(network, units, options, inputs)
+        {
+            Crs = ReadCrs(ctx, root), Warnings = ProjectWarnings.Find(network, listedTwice),
+        };
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;
+
+    /// <summary>The keys of one observation of a kind in the project file (the kind's column metadata).</summary>
+    private static string[] Keys(ObservationKind kind) => [.. ObservationKindRegistry.Of(kind).Columns.YamlKeys];
 
     /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g. <c>EPSG:27700</c>).</summary>
     private static string? ReadCrs(Context ctx, YamlMappingNode root)
@@ -152,7 +215,7 @@ public static partial class ProjectReader
         ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering"], "adjustment");
         if (ctx.Child(m, "centering") is YamlNode cn)
         {
-            o = o with { WeightModel = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
+            o = o with { Centering = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
         }
         if (ctx.Child(m, "max_iterations") is YamlNode it)
         {
@@ -213,6 +276,7 @@ public static partial class ProjectReader
     private static double ReadSd(Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, string item)
     {
         double v = ParseSd(ctx.Scalar(node, item), kind, units, out string? err);
+        err ??= InputLimits.SdProblem(v, kind.IsAngular());
         return err is null ? v : throw ctx.Error(node, item, err);
     }
 
@@ -260,7 +324,7 @@ public static partial class ProjectReader
             string setId = $"{at}/{k}";
             foreach (var dn in ctx.Sequence(dirs, item + " directions"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Direction, units, defaults, Keys(ObservationKind.Direction), item, spec, specs);
                 output.Add(new(new DirectionObservation(at, to, ctx.ParseAngle(dn, angles, value, $"direction {at}→{to}"), setId)
                 { StandardDeviation = sd, Source = src }, budget, target, dn, $"direction to {to} in the {item}"));
             }
@@ -268,21 +332,21 @@ public static partial class ProjectReader
         if (ctx.Child(m, "distances") is YamlNode dists)
             foreach (var dn in ctx.Sequence(dists, item + " distances"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, ["to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, Keys(ObservationKind.Distance), item, spec, specs);
                 output.Add(new(new DistanceObservation(at, to, ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, dn, $"distance to {to} in the {item}"));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
             foreach (var an in ctx.Sequence(azs, item + " azimuths"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, ["to", "value", "sd"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Azimuth, units, defaults, Keys(ObservationKind.Azimuth), item, spec, specs);
                 output.Add(new(new AzimuthObservation(at, to, ctx.ParseAngle(an, angles, value, $"azimuth {at}→{to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"azimuth to {to} in the {item}"));
             }
         if (ctx.Child(m, "angles") is YamlNode angs)
             foreach (var an in ctx.Sequence(angs, item + " angles"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, ["from", "to", "value", "sd", "target"], item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, Keys(ObservationKind.Angle), item, spec, specs);
                 string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
                 output.Add(new(new AngleObservation(at, from, to, ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd, Source = src },
                     budget, target, an, $"angle from {from} to {to} in the {item}"));
@@ -290,7 +354,7 @@ public static partial class ProjectReader
         FinishSetup(ctx, at, spec, output, specs, setupOutput);
     }
 
-    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, NetAdjust.Stochastic.TargetSpecification? Target) ReadSighting(
+    private static (string To, string Value, double Sd, string Source, bool NeedsBudget, TargetSpecification? Target) ReadSighting(
         Context ctx, YamlNode node, ObservationKind kind, ProjectUnits units, Dictionary<ObservationKind, double> defaults, string[] keys, string setupItem,
         SetupSpec spec, StochasticInputs specs)
     {
@@ -305,7 +369,7 @@ public static partial class ProjectReader
         // Precedence: explicit sd, then the setup's instrument specification (not for azimuths), then default_sd.
         bool fromSpec = spec.Instrument is not null && kind != ObservationKind.Azimuth && ctx.Child(m, "sd") is null;
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, kind, units, item + " sd")
-            : fromSpec ? 1.0 // replaced by the budget's total in FinishSetup
+            : fromSpec ? double.NaN // derived from the specifications by the stochastic model
             : defaults.TryGetValue(kind, out double d) ? d
             : throw ctx.Error(node, item, $"no standard deviation: give 'sd' or a default under default_sd.{kind.Name()}");
         return (to, value, sd, $"{ctx.File}:{Line(node)}", fromSpec, target);
@@ -318,7 +382,7 @@ public static partial class ProjectReader
         string from = ctx.RequiredString(m, "from", "a levelling section");
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
-        ctx.CheckKeys(m, ["from", "to", "dh", "length", "sd", "level", "setups", "runs", .. ObservationMarks.Keys], item);
+        ctx.CheckKeys(m, [.. Keys(ObservationKind.HeightDifference), .. ObservationMarks.Keys], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
@@ -327,13 +391,13 @@ public static partial class ProjectReader
             if (!(l.Metres > 0)) throw ctx.Error(ln, item, "the section length must be positive");
             len = l;
         }
-        var budget = LevellingBudget(ctx, m, item, len, specs);
+        var weighting = LevellingWeighting(ctx, m, item, len, specs);
         double sd = ctx.Child(m, "sd") is YamlNode s ? ReadSd(ctx, s, ObservationKind.HeightDifference, units, item + " sd")
-            : budget is not null ? budget.Total
+            : weighting is not null ? double.NaN // derived from the level by the stochastic model
             : defaults.TryGetValue(ObservationKind.HeightDifference, out double d) ? d
             : throw ctx.Error(node, item, "no standard deviation: give 'sd' or a default under default_sd.height_difference");
         var o = new HeightDifferenceObservation(from, to, dh, len) { StandardDeviation = sd, Source = $"{ctx.File}:{Line(node)}" };
-        return ObservationMarks.Apply(budget is not null && ctx.Child(m, "sd") is null ? o.WithBudget(budget) : o, node, ctx.File);
+        return ObservationMarks.Apply(weighting is not null && ctx.Child(m, "sd") is null ? o with { Weighting = weighting } : o, node, ctx.File);
     }
 
     /// <summary>Helpers that read YAML nodes and raise errors with file and line.</summary>

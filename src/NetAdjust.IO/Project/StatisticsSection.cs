@@ -1,5 +1,6 @@
 using System.Globalization;
 using NetAdjust.IO.Text;
+using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
 using YamlDotNet.RepresentationModel;
 

@@ -12,4 +12,8 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
 {
     /// <summary>The coordinate reference system the coordinates are in, as <c>EPSG:code</c> (key <c>crs</c>); null when the project declares none (local coordinates).</summary>
     public string? Crs { get; init; }
+
+    /// <summary>Warnings about legal but suspicious data (docs/input-format.md, "Warnings"); empty when there
+    /// are none.</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
 }

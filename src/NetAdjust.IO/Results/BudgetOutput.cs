@@ -1,3 +1,4 @@
+using NetAdjust.Stochastic;
 using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
@@ -23,17 +24,17 @@ internal static class BudgetOutput
     /// </summary>
     public static void AppendSummary(StringBuilder sb, AdjustmentResult r, ReportContext c)
     {
-        var withBudget = r.Network.Observations.Where(o => ResultReport.BudgetOf(o) is not null).ToList();
+        var withBudget = r.Observations.Where(o => ResultReport.BudgetOf(o) is not null).ToList();
         if (withBudget.Count == 0) return;
         var u = c.Units;
         var units = new ReportUnits(u);
         void Line(string s = "") => sb.Append(s).Append('\n');
         Line($"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
-        Line($"  Weights: {r.Options.WeightModel?.Description ?? "independent observations (diagonal weights)"}");
+        Line($"  Weights: {StochasticModel.Describe(r.Options.Centering)}");
         Line("  Per group: root-mean-square of each contribution, and its share of the group's mean variance.");
         foreach (var kind in ObservationKinds.All)
         {
-            var group = withBudget.Where(o => o.Kind == kind).ToList();
+            var group = withBudget.Where(o => o.Input.Kind == kind).ToList();
             if (group.Count == 0) continue;
             int all = r.Network.Observations.Count(o => o.Kind == kind);
             Line($"  {ObservationLabels.Words(kind)} ({group.Count} of {all} observations)");
@@ -41,7 +42,7 @@ internal static class BudgetOutput
             foreach (var o in group)
                 foreach (var ct in ResultReport.BudgetOf(o)!.Contributions)
                     if (!names.Contains(ct.Name)) names.Add(ct.Name);
-            double meanVar = group.Average(o => o.StandardDeviation * o.StandardDeviation);
+            double meanVar = group.Average(o => o.Input.StandardDeviation * o.Input.StandardDeviation);
             string Fmt(double si) => units.ObservationSmall(kind, si);
             foreach (string name in names)
             {
@@ -56,7 +57,7 @@ internal static class BudgetOutput
         foreach (var ao in r.Observations)
         {
             var o = ao.Input;
-            if (ResultReport.BudgetOf(o) is not { } budget) continue;
+            if (ResultReport.BudgetOf(ao) is not { } budget) continue;
             string Fmt(double si) => units.ObservationSmall(o.Kind, si);
             // Wrapped to the report's 100 columns: "   12 total 2.18 = name value, name value, ..."
             var line = new StringBuilder($"  {ao.Index + 1,4} total {Fmt(o.StandardDeviation)} =");

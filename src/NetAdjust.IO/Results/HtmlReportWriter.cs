@@ -50,6 +50,7 @@ public static class HtmlReportWriter
         Dl(sb, "Datum", TextReportSections.DatumText(r));
         Dl(sb, "Coordinates", c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
         Dl(sb, "Solver", r.SolverName);
+        foreach (var warning in c.Warnings) Dl(sb, "Warning", warning);
         sb.Append("</dl>\n</header>\n");
 
         // Summary.

@@ -3,6 +3,8 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Serialization.Metadata;
+using NetAdjust.Procedures;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
@@ -84,6 +86,7 @@ public static class JsonResultWriter
             RunDate = c.RunDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
             Solver = r.SolverName,
             Datum = r.Options.Datum.Describe(),
+            Warnings = ReportWarnings.ForJson(c),
             Units = new("m", "deg", "arcsec"),
             Statistics = new(s.Observations, s.Unknowns, s.DegreesOfFreedom, s.Vtpv, s.AprioriVarianceFactor,
                 Finite(s.VarianceFactor), Finite(s.Sigma0), s.Iterations,
@@ -129,7 +132,7 @@ public static class JsonResultWriter
         var i = o.Input;
         double k = ObservationLabels.JsonSmallFactor(i.Kind);
         var components = new Dictionary<string, double>(StringComparer.Ordinal);
-        if (ResultReport.BudgetOf(i) is { } budget)
+        if (ResultReport.BudgetOf(o) is { } budget)
             foreach (var ct in budget.Contributions) components.Add(ct.Name, ct.Value * k);
         else components.Add(BudgetOutput.Stated, i.StandardDeviation * k);
         return Fill(new ResultJson.Observation

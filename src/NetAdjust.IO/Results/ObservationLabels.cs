@@ -1,4 +1,5 @@
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;
@@ -10,17 +11,16 @@ namespace NetAdjust.IO.Results;
 internal static class ObservationLabels
 {
     /// <summary>The machine name (JSON, GeoJSON), e.g. <c>height_difference</c>.</summary>
-    public static string Key(ObservationKind kind) => kind.Name();
+    public static string Key(ObservationKind kind) => ObservationKindRegistry.Of(kind).Name;
 
     /// <summary>The name in running text and HTML tables, e.g. <c>height difference</c>.</summary>
-    public static string Words(ObservationKind kind) => kind.Name().Replace('_', ' ');
+    public static string Words(ObservationKind kind) => Key(kind).Replace('_', ' ');
 
     /// <summary>The name in the text report's narrow Kind column, e.g. <c>height</c>.</summary>
-    public static string Short(ObservationKind kind) =>
-        kind == ObservationKind.HeightDifference ? "height" : kind.Name();
+    public static string Short(ObservationKind kind) => ObservationKindRegistry.Of(kind).ReportLabel;
 
     /// <summary>True when values are angles (radians), false when lengths (metres).</summary>
-    public static bool IsAngular(ObservationKind kind) => kind.IsAngular();
+    public static bool IsAngular(ObservationKind kind) => ObservationKindRegistry.Of(kind).Unit == UnitClass.Angle;
 
     /// <summary>The factor from SI to the JSON unit of residuals and standard deviations (arcsec or metres).</summary>
     public static double JsonSmallFactor(ObservationKind kind) => IsAngular(kind) ? Angle.ArcsecondsPerRadian : 1.0;

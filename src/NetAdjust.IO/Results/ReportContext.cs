@@ -1,4 +1,5 @@
 using NetAdjust.IO.Project;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.IO.Results;
 
@@ -14,12 +15,16 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// <summary>The project's coordinate reference system (<c>EPSG:code</c>), or null for local coordinates.</summary>
     public string? Crs { get; init; }
 
+    /// <summary>Warnings about legal but suspicious data (<see cref="Project.SurveyProject.Warnings"/>); empty
+    /// for none.</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
+
     /// <summary>The blunder hunt that produced the result, when one was run (its log is reported).</summary>
-    public NetAdjust.Statistics.BlunderHunt? Hunt { get; init; }
+    public BlunderHunt? Hunt { get; init; }
 
     /// <summary>The robust estimation run beside the result, when one was run.</summary>
-    public NetAdjust.Statistics.RobustEstimate? Robust { get; init; }
+    public RobustEstimate? Robust { get; init; }
 
     /// <summary>The variance component estimation run beside the result, when one was run.</summary>
-    public NetAdjust.Statistics.VarianceComponentEstimate? Components { get; init; }
+    public VarianceComponentEstimate? Components { get; init; }
 }

@@ -5,7 +5,7 @@ namespace NetAdjust.IO.Results;
 
 /// <summary>
 /// What <see cref="ResultReport"/> takes from a result beyond its coordinates, all from the shared statistics
-/// (<see cref="AdjustmentResult.Analysis"/>), so that every output shows the same numbers: the error ellipses and the
+/// (<c>AdjustmentResult.Analysis</c>), so that every output shows the same numbers: the error ellipses and the
 /// standardised residuals w; plus the roles of the points.
 /// </summary>
 internal static class ReportFigures

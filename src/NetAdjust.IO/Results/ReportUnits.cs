@@ -1,6 +1,7 @@
 using System.Globalization;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;

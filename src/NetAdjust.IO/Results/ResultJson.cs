@@ -21,6 +21,8 @@ internal static class ResultJson
         public required string RunDate { get; init; }
         public required string Solver { get; init; }
         public required string Datum { get; init; }
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public IReadOnlyList<string>? Warnings { get; init; }
         public required Units Units { get; init; }
         public required Statistics Statistics { get; init; }
         public required IEnumerable<Point> Points { get; init; }

@@ -1,3 +1,4 @@
+using NetAdjust.Statistics;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Stochastic;
@@ -63,5 +64,5 @@ public sealed class ResultReport
     /// The error budget an observation's standard deviation was built from, or null for a stated one. The one place
     /// where the report reads budgets, so that their home can move without touching the writers.
     /// </summary>
-    internal static ErrorBudget? BudgetOf(Observation o) => o.Budget;
+    internal static ErrorBudget? BudgetOf(AdjustedObservation o) => o.Budget;
 }

@@ -1,5 +1,7 @@
 using System.Globalization;
 using System.Text;
+using NetAdjust.Procedures;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Units;
 
@@ -74,6 +76,7 @@ public static class SequenceReportWriter
         Line($"Generator : {Generator.Name}");
         Line($"Step 1    : {s.MinimalDatum}");
         Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");
+        ReportWarnings.AppendText(sb, c);
         Line();
         Line("SOLUTIONS");
         Line($"  {"",-24} {"r",6} {"vTPv",12} {"variance factor",16}  global test");

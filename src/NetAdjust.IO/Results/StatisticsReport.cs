@@ -1,5 +1,7 @@
 using System.Globalization;
 using System.Text;
+using NetAdjust.Observations;
+using NetAdjust.Procedures;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;

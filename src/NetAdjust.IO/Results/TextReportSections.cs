@@ -1,4 +1,5 @@
 using System.Text;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 
@@ -28,7 +29,7 @@ internal static class TextReportSections
         var weighted = r.Points.Where(p => PointRow.Weights(p.Input).Length > 0)
             .Select(p => $"{p.Id} ({PointRow.Weights(p.Input)})").ToList();
         // Minimal or inner constraints set the control aside: say which datum was used instead.
-        if (r.Options.Datum.Mode != Adjustment.DatumMode.Control) return r.Options.Datum.Describe();
+        if (r.Options.Datum.Mode != Adjustment.Datum.DatumMode.Control) return r.Options.Datum.Describe();
         return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 

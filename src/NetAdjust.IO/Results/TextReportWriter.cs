@@ -50,6 +50,7 @@ public static class TextReportWriter
         Line($"Units     : lengths {u.Length.Name} ({lu}), angles {units.AngleName}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
         TextReportSections.Datum(sb, r, c);
+        ReportWarnings.AppendText(sb, c);
         Line();
 
         var s = r.Statistics;

@@ -1,3 +1,5 @@
+using NetAdjust.Procedures;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Simulation;
 using NetAdjust.IO.Project;
@@ -34,7 +36,7 @@ public static class OptionGrammars
     /// <summary>The faces observed in each set (<c>faces</c> of a setup, <c>--faces</c>).</summary>
     public static TextChoice<Faces> Faces { get; } = new("a choice of faces",
         "both (face left and face right) or one (one face only)", false,
-        ("both", Stochastic.Faces.Both), ("one", Stochastic.Faces.One));
+        ("both", Network.Faces.Both), ("one", Network.Faces.One));
 
     /// <summary>How the rounding of a rod reading is counted (<c>rounding</c> of a level, <c>--rounding</c>).</summary>
     public static TextChoice<RoundingTreatment> Rounding { get; } = new("a rounding treatment",
@@ -42,12 +44,12 @@ public static class OptionGrammars
         ("uniform", RoundingTreatment.Uniform), ("half", RoundingTreatment.HalfResolution));
 
     /// <summary>
-    /// The weight model of instrument and target centering (<c>adjustment.centering</c>): null for independent
-    /// (diagonal) weights, the per-setup covariance model for correlated ones.
+    /// How instrument centering enters the weights (<c>adjustment.centering</c>): independent (diagonal) weights,
+    /// or one covariance block per setup.
     /// </summary>
-    public static TextChoice<IWeightModel?> Centering { get; } = new("a centering model",
+    public static TextChoice<CenteringModel> Centering { get; } = new("a centering model",
         "independent (diagonal weights) or correlated (one covariance block per setup)", false,
-        ("independent", null), ("correlated", SetupCenteringWeightModel.Instance));
+        ("independent", CenteringModel.Independent), ("correlated", CenteringModel.Correlated));
 
     /// <summary>The kind of datum (<c>datum.mode</c>).</summary>
     public static TextChoice<DatumMode> DatumModes { get; } = new("a datum mode", "control, minimal or free", false,
@@ -60,7 +62,7 @@ public static class OptionGrammars
     /// </summary>
     public static TextChoice<VarianceFactorBasis> VarianceFactorBasis { get; } = new("a variance-factor basis",
         "known (w-test, chi-square scale) or estimated (tau test, F scale)", false,
-        ("known", Statistics.VarianceFactorBasis.Known), ("estimated", Statistics.VarianceFactorBasis.Estimated));
+        ("known", Adjustment.VarianceFactorBasis.Known), ("estimated", Adjustment.VarianceFactorBasis.Estimated));
 
     /// <summary>How the tau test splits its level over the observations (<c>statistics.tau_adjustment</c>).</summary>
     public static TextChoice<MultipleTestAdjustment> TauAdjustment { get; } = new("a tau-test adjustment",

@@ -1,7 +1,10 @@
+using NetAdjust.Adjustment.Approximation;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
-using NetAdjust.Statistics;
+using NetAdjust.Observations;
+using NetAdjust.Stochastic;
 
 namespace NetAdjust.Adjustment;
 
@@ -26,54 +29,33 @@ public static partial class Adjuster
 
         var plan = DatumPlan.Create(network, options.Datum);
         var (index, state) = (plan.Index, plan.State);
+        CoordinateCheck.CheckTolerance(state, network, options.LengthTolerance);
         var control = plan.UsesControl ? ControlRows(network, index) : [];
         int n = network.Observations.Count + control.Count;
         int u = index.Count;
         var solver = SolverChoice.For(options, network, index);
 
-        var diagonal = new double[n];
-        for (int i = 0; i < network.Observations.Count; i++)
-            diagonal[i] = options.AprioriVarianceFactor / Sq(network.Observations[i].StandardDeviation);
-        for (int k = 0; k < control.Count; k++)
-            diagonal[network.Observations.Count + k] = options.AprioriVarianceFactor / Sq(control[k].Sd);
-        var excluded = Enumerable.Range(0, network.Observations.Count).Where(i => network.Observations[i].Excluded).ToArray();
-        var weights = (options.WeightModel?.Build(network, diagonal, options.AprioriVarianceFactor) ?? WeightMatrix.Diagonal(diagonal)).Excluding(excluded);
-        n -= excluded.Length; // set-aside observations carry no weight and add no redundancy
+        // The weights come from the stochastic model at the current coordinates (sight lengths and centering
+        // sensitivities); once converged it is evaluated again at the adjusted coordinates, and while it changes the
+        // iterations continue with the new weights.
+        var model = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
+        var weights = Weights(network, model, control, options.AprioriVarianceFactor);
+        n -= network.Observations.Count(o => o.Excluded); // set aside: no weight, no redundancy
 
         int iterations = 0;
-        if (u > 0)
+        for (int round = 1; ; round++)
         {
-            bool converged = false;
-            double[] lastDx = [];
-            while (!converged)
-            {
-                if (iterations == options.MaxIterations)
-                    throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
-                iterations++;
-                options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {iterations}", null));
-                var (rows, l) = Linearise(network, index, state, control);
-                var factor = plan.Factorize(solver, rows, weights);
-                var pl = weights.Multiply(l);
-                var rhs = new double[u];
-                for (int i = 0; i < rows.Length; i++)
-                {
-                    var r = rows[i];
-                    for (int k = 0; k < r.Columns.Length; k++) rhs[r.Columns[k]] += r.Values[k] * pl[i]; // AᵀP l
-                }
-                lastDx = plan.Step(factor, rhs);
-                converged = true;
-                for (int j = 0; j < u; j++)
-                {
-                    if (!double.IsFinite(lastDx[j]))
-                        throw new NoConvergenceException($"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a finite number.");
-                    double tol = index.Unknowns[j].Parameter == Parameter.Orientation ? options.AngleTolerance : options.LengthTolerance;
-                    if (Math.Abs(lastDx[j]) >= tol) converged = false;
-                }
-                // Step control: halve the step while vᵀPv grows (see StepControl).
-                if (StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () => weights.Quadratic(Linearise(network, index, state, control).L)) < 1)
-                    converged = false;
-            }
+            if (u > 0) iterations += Iterate(network, options, plan, solver, control, weights, iterations);
+            var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
+            if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
+            if (round == MaxStochasticRounds)
+                throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
+                    "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and the " +
+                    "observations.");
+            model = next;
+            weights = Weights(network, model, control, options.AprioriVarianceFactor);
         }
+        network = model.Apply(network);
 
         // Final linearisation at the solution: residuals, covariance.
         options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
@@ -95,10 +77,15 @@ public static partial class Adjuster
             double adjusted = o.Value + v;
             if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
             double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) : Quadratic(finalRows[i], finalFactor);
-            observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i);
+            observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
+            {
+                Budget = model.Budgets[i],
+            };
         }
         var orientations = network.Observations.OfType<DirectionObservation>()
             .Select(d => (d.SetId, d.Station)).Distinct()
+            .Where(s => index.IndexOf(s.SetId,
+                Parameter.Orientation) >= 0) // a set wholly set aside has no orientation unknown
             .Select(s =>
             {
                 int j = index.IndexOf(s.SetId, Parameter.Orientation);
@@ -111,6 +98,77 @@ public static partial class Adjuster
     }
 
     private static double Sq(double x) => x * x;
+
+    /// <summary>Largest relative change of the weights between rounds that counts as settled.</summary>
+    private const double StochasticTolerance = 1e-12;
+
+    /// <summary>Rounds of re-weighting at the adjusted coordinates before giving up.</summary>
+    private const int MaxStochasticRounds = 20;
+
+    /// <summary>P: the stochastic model's weights; weighted control rows after the observations; set-aside rows zero.
+    /// </summary>
+    private static WeightMatrix Weights(SurveyNetwork network, StochasticModel model, List<ControlRow> control,
+        double s0)
+    {
+        int m = network.Observations.Count, n = m + control.Count;
+        var diagonal = new double[n];
+        for (int i = 0; i < m; i++) diagonal[i] = s0 / Sq(model.StandardDeviations[i]);
+        for (int k = 0; k < control.Count; k++) diagonal[m + k] = s0 / Sq(control[k].Sd);
+        var excluded = Enumerable.Range(0, m).Where(i => network.Observations[i].Excluded).ToArray();
+        if (model.Blocks.Count == 0) return WeightMatrix.Diagonal(diagonal).Excluding(excluded);
+        var blocks = new List<WeightBlock>();
+        var inBlock = new bool[n];
+        foreach (var b in model.Blocks)
+        {
+            blocks.Add(new WeightBlock(b.Rows.ToArray(), b.Weights.ToArray()));
+            foreach (int r in b.Rows) inBlock[r] = true;
+        }
+        for (int i = 0; i < n; i++)
+            if (!inBlock[i]) blocks.Add(new WeightBlock([i], [diagonal[i]]));
+        blocks.Sort((x, y) => x.Rows[0].CompareTo(y.Rows[0]));
+        return WeightMatrix.FromBlocks(n, blocks).Excluding(excluded);
+    }
+
+    /// <summary>Gauss-Newton iterations with fixed weights until every correction is below the tolerances.</summary>
+    /// <returns>The number of iterations made.</returns>
+    private static int Iterate(SurveyNetwork network, AdjustmentOptions options, DatumPlan plan,
+        INormalEquationsSolver solver, List<ControlRow> control, WeightMatrix weights, int before)
+    {
+        var (index, state) = (plan.Index, plan.State);
+        int u = index.Count, iterations = 0;
+        bool converged = false;
+        double[] lastDx = [];
+        while (!converged)
+        {
+            if (before + iterations == options.MaxIterations)
+                throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
+            iterations++;
+            options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {before + iterations}", null));
+            var (rows, l) = Linearise(network, index, state, control);
+            var factor = plan.Factorize(solver, rows, weights);
+            var pl = weights.Multiply(l);
+            var rhs = new double[u];
+            for (int i = 0; i < rows.Length; i++)
+            {
+                var r = rows[i];
+                for (int k = 0; k < r.Columns.Length; k++) rhs[r.Columns[k]] += r.Values[k] * pl[i]; // AᵀP l
+            }
+            lastDx = plan.Step(factor, rhs);
+            converged = true;
+            for (int j = 0; j < u; j++)
+            {
+                if (!double.IsFinite(lastDx[j]))
+                    throw new NoConvergenceException(
+                        $"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a finite number.");
+                double tol = index.Unknowns[j].Parameter == Parameter.Orientation ? options.AngleTolerance : options.LengthTolerance;
+                if (Math.Abs(lastDx[j]) >= tol) converged = false;
+            }
+            // Step control: halve the step while vᵀPv grows (see StepControl).
+            if (StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () => weights.Quadratic(Linearise(network, index, state, control).L)) < 1)
+                converged = false;
+        }
+        return iterations;
+    }
 
     /// <summary>a Qxx aᵀ for one design row.</summary>
     internal static double Quadratic(SparseRow a, INormalFactor f)
@@ -163,8 +221,8 @@ public static partial class Adjuster
         for (int i = 0; i < m; i++)
         {
             var o = network.Observations[i];
-            var eq = ObservationModels.Evaluate(o, state);
-            l[i] = -ObservationModels.Difference(o.Kind, eq.Value, o.Value);
+            var eq = ObservationKindRegistry.Evaluate(o, state);
+            l[i] = -ObservationKindRegistry.Difference(o.Kind, eq.Value, o.Value);
             var cols = new List<int>(eq.Partials.Length);
             var vals = new List<double>(eq.Partials.Length);
             foreach (var p in eq.Partials)
@@ -200,8 +258,10 @@ public static partial class Adjuster
         double? Value(Parameter par, double? given) => state.TryGet(p.Id, par, out double v) ? v : given;
         int ie = index.IndexOf(p.Id, Parameter.E), inn = index.IndexOf(p.Id, Parameter.N), ih = index.IndexOf(p.Id, Parameter.H);
         double? Sd(int i, bool inAdjustment) => i >= 0 && f is not null ? Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(i, i))) : inAdjustment ? 0.0 : null;
-        bool inPlane = state.TryGet(p.Id, Parameter.E, out _);
-        bool inHeight = state.TryGet(p.Id, Parameter.H, out _);
+        // A point reached only by set-aside observations is no unknown and no control: it gets no standard deviation.
+        bool inPlane = state.TryGet(p.Id, Parameter.E, out _) && (ie >= 0 || inn >= 0 || p.IsFixed(Fixity.E)
+            || p.IsFixed(Fixity.N));
+        bool inHeight = state.TryGet(p.Id, Parameter.H, out _) && (ih >= 0 || p.IsFixed(Fixity.H));
         double? cov = ie >= 0 && inn >= 0 && f is not null ? s0 * f.InverseEntry(ie, inn) : inPlane ? 0.0 : null;
         return new AdjustedPoint(p, Value(Parameter.E, p.E), Value(Parameter.N, p.N), Value(Parameter.H, p.H),
             Sd(ie, inPlane), Sd(inn, inPlane), Sd(ih, inHeight), cov);

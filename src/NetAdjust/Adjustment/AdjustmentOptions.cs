@@ -1,3 +1,5 @@
+using NetAdjust.Adjustment.Datum;
+
 namespace NetAdjust.Adjustment;
 
 /// <summary>Options of an adjustment. Immutable; use <c>with</c> to change one.</summary>
@@ -24,17 +26,17 @@ public sealed record AdjustmentOptions
     /// <summary>How the datum is defined: by the control (default), by minimal constraints, or by inner constraints (free network).</summary>
     public DatumDefinition Datum { get; init; } = DatumDefinition.ByControl;
 
-    /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <see cref="AdjustmentResult.Analysis"/>.</summary>
-    public Statistics.AnalysisOptions Analysis { get; init; } = Statistics.AnalysisOptions.Default;
+    /// <summary>Options of the post-adjustment statistics (tests, reliability, ellipses); see <c>AdjustmentResult.Analysis</c> (NetAdjust.Statistics).</summary>
+    public AnalysisOptions Analysis { get; init; } = AnalysisOptions.Default;
 
     /// <summary>The linear solver; null chooses automatically.</summary>
     public LinearAlgebra.INormalEquationsSolver? Solver { get; init; }
 
     /// <summary>
-    /// Builds the weight matrix; null for diagonal weights σ0²/σᵢ². <see cref="Stochastic.SetupCenteringWeightModel"/>
-    /// correlates the observations of one setup through the instrument's centering error.
+    /// How instrument centering enters the weights: independent (diagonal weights σ0²/σᵢ², the default) or
+    /// correlated within each setup (see <see cref="Stochastic.StochasticModel"/>).
     /// </summary>
-    public IWeightModel? WeightModel { get; init; }
+    public Stochastic.CenteringModel Centering { get; init; } = Stochastic.CenteringModel.Independent;
 
     /// <summary>Receives progress reports (phase and percent) during the adjustment; null for none. Called on the adjusting thread.</summary>
     public IProgress<AdjustmentProgress>? Progress { get; init; }

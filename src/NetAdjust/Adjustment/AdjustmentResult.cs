@@ -1,7 +1,6 @@
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
-using NetAdjust.Statistics;
 
 namespace NetAdjust.Adjustment;
 
@@ -29,7 +28,14 @@ public sealed record AdjustedPoint(Point Input, double? E, double? N, double? H,
 /// <param name="Residual">v = adjusted − observed (reduced to (−π, π] for angles).</param>
 /// <param name="SdAdjusted">Standard deviation of the adjusted value, √(a Qxx aᵀ) scaled by σ0.</param>
 /// <param name="Index">Position in the network's observation list.</param>
-public sealed record AdjustedObservation(Observation Input, double Adjusted, double Residual, double SdAdjusted, int Index);
+public sealed record AdjustedObservation(Observation Input, double Adjusted, double Residual, double SdAdjusted, int Index)
+{
+    /// <summary>
+    /// The error budget behind the observation's standard deviation (named contributions whose root-sum-square is
+    /// it), at the adjusted coordinates; null when the standard deviation was given directly.
+    /// </summary>
+    public Stochastic.ErrorBudget? Budget { get; init; }
+}
 
 /// <summary>An adjusted orientation unknown of a direction set.</summary>
 /// <param name="SetId">The set id.</param>
@@ -72,16 +78,7 @@ public sealed class AdjustmentResult
         Network = network; Options = options; Unknowns = unknowns; _factor = factor;
         Points = points; Observations = observations; Orientations = orientations; Statistics = statistics;
         SolverName = solverName; DesignRows = designRows; Weights = weights;
-        _analysis = new Lazy<NetworkAnalysis>(() => ResultAnalysis.Analyse(this, options.Analysis));
     }
-
-    private readonly Lazy<NetworkAnalysis> _analysis;
-
-    /// <summary>
-    /// The post-adjustment statistics (redundancy numbers, w and tau tests, MDB, external reliability, absolute and
-    /// relative ellipses) with <see cref="AdjustmentOptions.Analysis"/>; computed on first use, then kept.
-    /// </summary>
-    public NetworkAnalysis Analysis => _analysis.Value;
 
     /// <summary>True when the adjustment has unknowns, so that <see cref="Cofactor"/> and <see cref="Solve"/> can be used.</summary>
     public bool HasFactor => _factor is not null;

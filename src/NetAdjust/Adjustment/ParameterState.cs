@@ -1,4 +1,5 @@
 using NetAdjust.Geometry;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Adjustment;
 
@@ -6,7 +7,7 @@ namespace NetAdjust.Adjustment;
 /// Current values of all parameters during the iterations: coordinates of every point (held or free) and
 /// orientation of every direction set.
 /// </summary>
-public sealed class ParameterState
+public sealed class ParameterState : ICoordinates
 {
     private readonly Dictionary<string, double> _e, _n, _h, _orientation;
 

@@ -21,7 +21,10 @@ public enum ObservationKind
     HeightDifference,
 }
 
-/// <summary>Names and properties of observation kinds.</summary>
+/// <summary>
+/// The identity of observation kinds: their file and JSON names. Everything else about a kind is in its
+/// description in <c>NetAdjust.Observations</c> (see <c>ObservationKindRegistry</c>).
+/// </summary>
 public static class ObservationKinds
 {
     /// <summary>The snake_case name used in files and JSON (e.g. <c>height_difference</c>).</summary>
@@ -35,11 +38,6 @@ public static class ObservationKinds
         ObservationKind.HeightDifference => "height_difference",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
-
-    /// <summary>True for kinds whose values are angles (radians internally).</summary>
-    /// <param name="kind">The kind.</param>
-    public static bool IsAngular(this ObservationKind kind) =>
-        kind is ObservationKind.Direction or ObservationKind.Angle or ObservationKind.Azimuth;
 
     /// <summary>All kinds in documentation order.</summary>
     public static IReadOnlyList<ObservationKind> All { get; } = Enum.GetValues<ObservationKind>();
@@ -66,8 +64,11 @@ public abstract record Observation
     /// <summary>The to point (foresight for an angle; the target for a direction).</summary>
     public abstract string To { get; }
 
-    /// <summary>A-priori standard deviation in SI units (metres or radians); must be positive.</summary>
-    public required double StandardDeviation { get; init; }
+    /// <summary>
+    /// A-priori standard deviation in SI units (metres or radians); must be positive, except NaN for an observation
+    /// whose <see cref="Weighting"/> gives it (the adjustment result's network holds the derived value).
+    /// </summary>
+    public double StandardDeviation { get; init; } = double.NaN;
 
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
@@ -85,25 +86,19 @@ public abstract record Observation
     public double SdFactor { get; init; } = 1.0;
 
     /// <summary>
-    /// The error budget behind <see cref="StandardDeviation"/> when it was derived from instrument, target and
-    /// procedure specifications (its total equals the standard deviation); null when the standard deviation was
-    /// given directly. Set both with <see cref="WithBudget"/>.
+    /// The specifications the standard deviation is derived from (instrument, target, procedure, or level), or null
+    /// when the standard deviation is given directly. With a weighting and no <see cref="StandardDeviation"/> (NaN),
+    /// the stochastic model derives σ (times <see cref="SdFactor"/>) at the adjustment's coordinates; a finite
+    /// standard deviation (e.g. set by a re-weighting procedure) is used as it is, the weighting then giving the
+    /// shape of its error budget.
     /// </summary>
-    public Stochastic.ErrorBudget? Budget { get; init; }
+    public ObservationWeighting? Weighting { get; init; }
 
     /// <summary>
     /// The instrument setup the observation was made at (unique in the network), or null. Observations of one
     /// setup share the instrument's centering error, which the correlated weight model uses.
     /// </summary>
     public string? SetupId { get; init; }
-
-    /// <summary>A copy with the given budget and its total as the standard deviation.</summary>
-    /// <param name="budget">The budget (SI units of the observation: metres or radians).</param>
-    public Observation WithBudget(Stochastic.ErrorBudget budget)
-    {
-        ArgumentNullException.ThrowIfNull(budget);
-        return this with { Budget = budget, StandardDeviation = budget.Total };
-    }
 
     /// <summary>All points the observation involves, without repeats.</summary>
     public IEnumerable<string> Points => new[] { At, From, To }.OfType<string>().Distinct(StringComparer.Ordinal);

@@ -40,10 +40,11 @@ public sealed class SurveyNetwork
                 if (!_index.ContainsKey(id)) problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
             if (o.From == o.To || (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
                 problems.Add($"{o.Describe()}: an observation needs distinct points");
-            if (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation))
+            bool derived = o.Weighting is not null && double.IsNaN(o.StandardDeviation);
+            if (!derived && (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation)))
                 problems.Add($"{o.Describe()}: the standard deviation must be positive");
-            else if (o.Budget is not null && Math.Abs(o.Budget.Total - o.StandardDeviation) > 1e-12 * o.StandardDeviation)
-                problems.Add($"{o.Describe()}: the standard deviation differs from the total of its error budget");
+            if (!(o.SdFactor > 0) || !double.IsFinite(o.SdFactor))
+                problems.Add($"{o.Describe()}: the standard deviation factor must be positive");
             if (!double.IsFinite(o.Value)) problems.Add($"{o.Describe()}: the value is not a finite number");
             if (o.Kind == ObservationKind.Distance && !(o.Value > 0)) problems.Add($"{o.Describe()}: a distance must be positive");
             if (o is DirectionObservation d)

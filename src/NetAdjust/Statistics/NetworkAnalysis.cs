@@ -1,3 +1,6 @@
+using NetAdjust.Adjustment;
+using NetAdjust.Statistics;
+
 namespace NetAdjust.Statistics;
 
 /// <summary>The statistical state of one tested row.</summary>
@@ -94,7 +97,7 @@ public sealed record RelativeHeightPrecision(string From, string To, double Diff
 
 /// <summary>
 /// The statistics of one adjustment (see docs/methods.md): observation tests and reliability, absolute and relative
-/// precision. Immutable. Obtain it from <see cref="Adjustment.AdjustmentResult.Analysis"/> or <see cref="ResultAnalysis.Analyse"/>.
+/// precision. Immutable. Obtain it from <c>AdjustmentResult.Analysis</c> or <see cref="ResultAnalysis.Analyse"/>.
 /// </summary>
 public sealed record NetworkAnalysis
 {

@@ -2,6 +2,7 @@ using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
 namespace NetAdjust.Statistics;
 
@@ -241,8 +242,10 @@ public static class ResultAnalysis
         if (options.RelativeForObservedPairs)
             foreach (var o in network.Observations)
             {
-                if (!ObservationModels.IsHorizontal(o.Kind)) continue;
-                if (o.Kind == ObservationKind.Angle) { Add(o.At!, o.From, true); Add(o.At!, o.To, true); }
+                var kind = ObservationKindRegistry.Of(o);
+                if (!kind.Axes.HasFlag(CoordinateAxes.Plane)) continue;
+                if (kind.Instrument(o) is string station)
+                    foreach (var target in kind.Targets(o)) Add(station, target, true);
                 else Add(o.From, o.To, true);
             }
         foreach (var (a, b) in options.RelativePairs)
@@ -327,7 +330,7 @@ public static class ResultAnalysis
         }
         if (options.RelativeForObservedPairs)
             foreach (var o in result.Network.Observations)
-                if (o.Kind == ObservationKind.HeightDifference) Add(o.From, o.To, true);
+                if (ObservationKindRegistry.Of(o).Axes.HasFlag(CoordinateAxes.Height)) Add(o.From, o.To, true);
         foreach (var (a, b) in options.RelativePairs) Add(a, b, false);
 
         // Pairs joined by a weighted height-difference row have their Qxx entry on the pattern of N.

@@ -1,3 +1,5 @@
+using NetAdjust.Network;
+
 namespace NetAdjust.Stochastic;
 
 /// <summary>

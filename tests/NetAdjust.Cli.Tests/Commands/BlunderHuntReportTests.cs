@@ -1,3 +1,5 @@
+using NetAdjust.Procedures;
+
 namespace NetAdjust.Cli.Tests.Commands;
 
 /// <summary>Regression tests for the blunder-hunt section of the text report, found in review.</summary>

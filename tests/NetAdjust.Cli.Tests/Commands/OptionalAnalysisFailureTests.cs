@@ -1,3 +1,5 @@
+using NetAdjust.Procedures;
+
 namespace NetAdjust.Cli.Tests.Commands;
 
 /// <summary>Regression test: a failed optional analysis is named as such, not as a failure of the adjustment.</summary>

@@ -1,4 +1,5 @@
 using NetAdjust.IO.Project;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.IO.Tests.Project;
 
@@ -6,10 +7,10 @@ namespace NetAdjust.IO.Tests.Project;
 public class ErrorMessageTests
 {
     [Fact]
-    public void AMissingSightLengthNamesFileLineAndItemOnce()
+    public void ASightLengthToAPointWithoutCoordinatesIsLeftToTheAdjustment()
     {
-        // Regression: the message was "p.yaml:12: angle ...: p.yaml:12: angle ...: the sight length ..." because the
-        // budget wrapper re-wrapped an error that already named file, line and item (common practice: name each once).
+        // The reader does no mathematics: an angle weighted from the instrument keeps its weighting, and the sight
+        // length to C (no coordinates, no distance observed) is taken from the adjustment's coordinates.
         const string yaml = """
             units: {length: m, angle: dms}
             instruments:
@@ -24,12 +25,11 @@ public class ErrorMessageTests
                 angles:
                   - {from: B, to: C, value: 90-00-00}
             """;
-        var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(), File.ReadAllText));
-        Assert.Equal(12, e.Line);
-        Assert.Contains("the sight length to C", e.Message);
-        Assert.StartsWith("p.yaml:12: ", e.Message);
-        Assert.Equal(1, CountOf(e.Message, "p.yaml:12"));
-        Assert.Equal(1, CountOf(e.Message, "angle from B to C"));
+        var p = ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(), File.ReadAllText);
+        var angle = Assert.Single(p.Network.Observations);
+        Assert.NotNull(angle.Weighting);
+        Assert.True(double.IsNaN(angle.StandardDeviation));
+        Assert.Equal("p.yaml:12", angle.Source);
     }
 
     [Theory]

@@ -1,6 +1,8 @@
+using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
+using NetAdjust.Stochastic;
 
 namespace NetAdjust.IO.Tests.Project;
 
@@ -58,11 +60,14 @@ public class StatisticsInputTests
                   - {to: B, value: 100.001}
                   - {to: C, value: 94.340, sd_factor: 3}
             """);
-        var plain = p.Network.Observations[0];
-        var scaled = p.Network.Observations[1];
-        Assert.NotNull(scaled.Budget);
-        Assert.Equal(scaled.StandardDeviation, scaled.Budget!.Total, 15);
-        double rss = Math.Sqrt(scaled.Budget.Contributions.Sum(c => c.Value * c.Value));
+        var model = StochasticModel.Build(p.Network, new NetAdjust.IO.Tests.Project.GivenCoordinates(p.Network),
+            CenteringModel.Independent, 1.0);
+        var plain = p.Network.Observations[0] with { StandardDeviation = model.StandardDeviations[0] };
+        var scaled = p.Network.Observations[1] with { StandardDeviation = model.StandardDeviations[1] };
+        var budget = model.Budgets[1];
+        Assert.NotNull(budget);
+        Assert.Equal(scaled.StandardDeviation, budget!.Total, 15);
+        double rss = Math.Sqrt(budget.Contributions.Sum(c => c.Value * c.Value));
         Assert.Equal(scaled.StandardDeviation, rss, 15);
         Assert.Equal(3.0, scaled.SdFactor);
         Assert.True(scaled.StandardDeviation > 2.9 * plain.StandardDeviation); // about 3× (distances differ by 6 m)

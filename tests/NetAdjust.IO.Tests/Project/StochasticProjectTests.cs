@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Text.RegularExpressions;
-using FsCheck;
 using FsCheck.Fluent;
 using FsCheck.Xunit;
+using FsCheck;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
@@ -64,22 +64,23 @@ public class StochasticProjectTests
                 azimuths:
                   - {to: C, value: 90-00-00}
             """.Replace("D2", "C"));
-        var o = p.Network.Observations;
+        var model = StochasticModel.Build(p.Network, new GivenCoordinates(p.Network), CenteringModel.Independent, 1.0);
+        var o = p.Network.Observations.Select((x, i) => x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
         // Direction to B: pointing 5"/√4 = 2.5"; centering at the observed distance 200.004 m.
-        var b = o[0].Budget!;
+        var b = model.Budgets[0]!;
         Assert.Equal(2.5, b.ValueOf(ContributionNames.PointingReading) * Angle.ArcsecondsPerRadian, 12);
         Assert.Equal(0.001 / 200.004, b.ValueOf(ContributionNames.InstrumentCentering), 15);
         Assert.Equal(0.0005 / 200.004, b.ValueOf(ContributionNames.TargetCentering), 15);
         Assert.Equal(b.Total, o[0].StandardDeviation);
         // Direction to C: per-sighting target override; no distance observed, so from coordinates (150 m).
-        Assert.Equal(0.003 / 150, o[1].Budget!.ValueOf(ContributionNames.TargetCentering), 15);
+        Assert.Equal(0.003 / 150, model.Budgets[1]!.ValueOf(ContributionNames.TargetCentering), 15);
         // Explicit sd overrides the specification.
-        Assert.Null(o[2].Budget);
+        Assert.Null(model.Budgets[2]);
         Assert.Equal(1.5 / Angle.ArcsecondsPerRadian, o[2].StandardDeviation, 15);
         // Distance: 2 mm + 2 ppm, 1 mm and 0.5 mm centering.
         Assert.Equal(Math.Sqrt(Math.Pow(0.002, 2) + Math.Pow(2e-6 * 200.004, 2) + Math.Pow(0.001, 2) + Math.Pow(0.0005, 2)), o[3].StandardDeviation, 15);
         // Azimuths are not weighted from the instrument: default_sd.
-        Assert.Null(o[4].Budget);
+        Assert.Null(model.Budgets[4]);
         Assert.Equal(4 / Angle.ArcsecondsPerRadian, o[4].StandardDeviation, 15);
         Assert.All(o, x => Assert.Equal("A#1", x.SetupId));
     }
@@ -94,12 +95,13 @@ public class StochasticProjectTests
               - {from: A, to: D, dh: 1.0, level: DIGI, setups: 6, runs: 2}
               - {from: A, to: D, dh: 1.0}
             """);
-        var o = p.Network.Observations;
+        var model = StochasticModel.Build(p.Network, new GivenCoordinates(p.Network), CenteringModel.Independent, 1.0);
+        var o = p.Network.Observations.Select((x, i) => x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
         Assert.Equal(0.0007 * Math.Sqrt(0.64), o[0].StandardDeviation, 15);
         Assert.Equal(0.0007 * Math.Sqrt(0.64) * Math.Sqrt(2), o[1].StandardDeviation, 15);
         // 6 setups → 12 readings; mean of 2 runs. Rounding 'half': 0.05 mm per reading.
-        Assert.Equal(0.0003 * Math.Sqrt(12) / Math.Sqrt(2), o[2].Budget!.ValueOf(ContributionNames.RodReadings), 15);
-        Assert.Equal(0.00005 * Math.Sqrt(12) / Math.Sqrt(2), o[2].Budget!.ValueOf(ContributionNames.RodRounding), 15);
+        Assert.Equal(0.0003 * Math.Sqrt(12) / Math.Sqrt(2), model.Budgets[2]!.ValueOf(ContributionNames.RodReadings), 15);
+        Assert.Equal(0.00005 * Math.Sqrt(12) / Math.Sqrt(2), model.Budgets[2]!.ValueOf(ContributionNames.RodRounding), 15);
         Assert.Equal(0.005, o[3].StandardDeviation, 15);
     }
 
@@ -108,7 +110,8 @@ public class StochasticProjectTests
     {
         string csv = "kind,from,to,value,length,level,setups,runs\nheight_difference,A,D,1.0,250,ISO,,\nheight_difference,A,D,1.0,,DIGI,5,1\n";
         var p = ProjectReader.Parse(Head + "files:\n  - lev.csv\n", "test.yaml", "/x", f => f.EndsWith("lev.csv") ? csv : throw new IOException("no"));
-        var o = p.Network.Observations;
+        var model = StochasticModel.Build(p.Network, new GivenCoordinates(p.Network), CenteringModel.Independent, 1.0);
+        var o = p.Network.Observations.Select((x, i) => x with { StandardDeviation = model.StandardDeviations[i] }).ToList();
         Assert.Equal(0.0007 * Math.Sqrt(0.25), o[0].StandardDeviation, 15);
         Assert.Equal(Math.Sqrt(10) * Math.Sqrt((0.0003 * 0.0003) + (0.00005 * 0.00005)), o[1].StandardDeviation, 15);
         var bad = csv.Replace(",DIGI,5,1", ",DIGI,,1");
@@ -151,7 +154,7 @@ public class StochasticProjectTests
     public void CenteringOptionSelectsTheCorrelatedWeightModel()
     {
         var p = Parse(Head.Replace("default_sd:", "adjustment: {centering: correlated}\ndefault_sd:"));
-        Assert.Same(SetupCenteringWeightModel.Instance, p.Options.WeightModel);
+        Assert.Equal(CenteringModel.Correlated, p.Options.Centering);
         var e = Assert.Throws<ProjectFileException>(() => Parse(Head.Replace("default_sd:", "adjustment: {centering: maybe}\ndefault_sd:")));
         Assert.Contains("'maybe' is not a centering model: use independent (diagonal weights) or correlated", e.Message);
     }
@@ -161,11 +164,11 @@ public class StochasticProjectTests
     {
         string dir = DataDirectory();
         var p = ProjectReader.Read(Path.Combine(dir, "brackenmoor.yaml"));
-        Assert.All(p.Network.Observations, o => Assert.NotNull(o.Budget));
+        Assert.All(p.Network.Observations, o => Assert.NotNull(o.Weighting));
         // The level loop (CSV) uses level DL10, 1.0 mm per km double run: section BMK1-BMK2 of 420 m.
-        var first = p.Network.Observations.OfType<HeightDifferenceObservation>().First();
+        var first = Adjuster.Adjust(p.Network, p.Options).Network.Observations.OfType<HeightDifferenceObservation>().First();
         Assert.Equal(0.001 * Math.Sqrt(0.42), first.StandardDeviation, 15);
-        foreach (var options in new[] { p.Options, p.Options with { WeightModel = SetupCenteringWeightModel.Instance } })
+        foreach (var options in new[] { p.Options, p.Options with { Centering = CenteringModel.Correlated } })
         {
             var r = Adjuster.Adjust(p.Network, options);
             Assert.True(r.Statistics.GlobalTest.Passed);

@@ -1,9 +1,10 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Xml.Linq;
-using nietras.SeparatedValues;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
+using nietras.SeparatedValues;
 
 namespace NetAdjust.IO.Tests.Results;
 

@@ -1,5 +1,6 @@
 using System.Text.RegularExpressions;
 using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.IO.Tests.Results;
 

@@ -1,6 +1,7 @@
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.IO.Tests.Results;
 

@@ -3,7 +3,7 @@ using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
 using NetAdjust.IO.Tests.Results;
-using NetAdjust.Statistics;
+using NetAdjust.Procedures;
 
 namespace NetAdjust.IO.Tests.Schemas;
 

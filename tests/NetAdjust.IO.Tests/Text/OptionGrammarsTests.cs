@@ -1,3 +1,5 @@
+using NetAdjust.Procedures;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Simulation;
 using NetAdjust.IO.Project;
@@ -91,8 +93,8 @@ public class OptionGrammarsTests
     [Fact]
     public void Centering_legal()
     {
-        Assert.Null(OptionGrammars.Centering.Parse("independent").Value);
-        Assert.Same(SetupCenteringWeightModel.Instance, OptionGrammars.Centering.Parse("correlated").Value);
+        Assert.Equal(CenteringModel.Independent, OptionGrammars.Centering.Parse("independent").Value);
+        Assert.Equal(CenteringModel.Correlated, OptionGrammars.Centering.Parse("correlated").Value);
     }
 
     [Theory]

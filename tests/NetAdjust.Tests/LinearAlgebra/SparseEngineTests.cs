@@ -109,7 +109,7 @@ public class SparseEngineTests
         {
             var (n, rows, w) = RandomProblem(seed, u, blocks: false);
             var graph = AdjacencyGraph.FromNormalEquations(n, rows, w);
-            Assert.True(Permutation.IsPermutation(MinimumDegreeOrdering.Order(graph)));
+            Assert.True(Permutation.IsPermutation(ApproximateMinimumDegree.Order(graph)));
             var rng = new Random(seed);
             int groups = (n + 1) / 2;
             var geometry = new UnknownGeometry(Enumerable.Range(0, n).Select(j => j / 2).ToArray(),
@@ -128,7 +128,7 @@ public class SparseEngineTests
         {
             var (n, rows, w) = RandomProblem(seed, u, blocks: true);
             var graph = AdjacencyGraph.FromNormalEquations(n, rows, w);
-            var sym = SymbolicCholesky.Analyze(graph, MinimumDegreeOrdering.Order(graph));
+            var sym = SymbolicCholesky.Analyze(graph, ApproximateMinimumDegree.Order(graph));
             var p = sym.Permutation;
             var nDense = DenseNormal(n, rows, w);
             var c = Matrix<double>.Build.Dense(n, n, (i, j) => nDense[p[i], p[j]]);
@@ -183,6 +183,26 @@ public class SparseEngineTests
         // keep positive definite: add the diagonal dominance back
         for (int i = 0; i < k; i++) m[(i * k) + i] += k;
         return b with { Matrix = m };
+    }
+
+    [Fact]
+    public void NetworkWithoutPositionsIsOrderedByApproximateMinimumDegree()
+    {
+        // Without positions (no geometry, or a point whose position is unknown) geometric nested dissection cannot
+        // run: the solver uses AMD (Amestoy, Davis & Duff 1996), and its analysis has AMD's fill.
+        var (n, rows, w) = RandomProblem(seed: 3, u: 120, blocks: true);
+        var graph = AdjacencyGraph.FromNormalEquations(n, rows, w);
+        long amdFill = SymbolicCholesky.CountFill(graph, ApproximateMinimumDegree.Order(graph));
+        var groups = Enumerable.Range(0, n).ToArray();
+        var x = Enumerable.Range(0, n).Select(j => j == 7 ? double.NaN : j * 10.0).ToArray();
+        foreach (var geometry in new[] { null, new UnknownGeometry(groups, x, x) })
+        {
+            var solver = new SparseNormalEquationsSolver();
+            solver.Factorize(n, rows, w, geometry);
+            Assert.Equal("approximate minimum degree", solver.Symbolic!.OrderingName);
+            Assert.Contains("approximate minimum degree", solver.Name, StringComparison.Ordinal);
+            Assert.Equal(amdFill, solver.Symbolic.FactorNonZeros);
+        }
     }
 
     [Fact]

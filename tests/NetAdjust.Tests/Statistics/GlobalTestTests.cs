@@ -1,4 +1,5 @@
 using MathNet.Numerics.Distributions;
+using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Statistics;

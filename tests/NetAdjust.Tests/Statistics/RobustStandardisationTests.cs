@@ -1,6 +1,7 @@
 using NetAdjust.Simulation;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Statistics;

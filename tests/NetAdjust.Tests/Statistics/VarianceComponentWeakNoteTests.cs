@@ -2,6 +2,7 @@ using NetAdjust.Simulation;
 using System.Globalization;
 using System.Text.RegularExpressions;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
 

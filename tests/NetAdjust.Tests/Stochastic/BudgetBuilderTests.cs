@@ -1,5 +1,6 @@
 using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Geometry;
+using NetAdjust.Network;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 

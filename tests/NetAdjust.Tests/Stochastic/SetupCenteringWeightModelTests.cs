@@ -2,6 +2,7 @@ using MathNet.Numerics.LinearAlgebra;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
@@ -43,16 +44,20 @@ public class SetupCenteringWeightModelTests
                 double az = PlaneGeometry.Azimuth(at, Truth[at], to, Truth[to]).Value;
                 double noiseRad = Angle.FromArcseconds(((k * 7) % 5) - 2.0).Radians;   // −2″..+2″
                 double noiseM = (((k * 3) % 5) - 2.0) * 0.001;                        // −2..+2 mm
+                // Weighted from the specifications; the sight lengths are the true distances.
+                var weighting = new ObservationWeighting
+                {
+                    Instrument = ts, Target = tg, ObservedSights = new Dictionary<string, double> { [to] = dist },
+                };
                 obs.Add(new DirectionObservation(at, to, Angle.FromRadians(Angle.Reduce0To2Pi(az - 0.7 + noiseRad)), setup)
-                { StandardDeviation = 1, SetupId = setup }.WithBudget(DirectionBudgetBuilder.Build(ts, tg, ObservingProcedure.Default, dist)));
-                obs.Add(new DistanceObservation(at, to, Length.FromMetres(dist + noiseM)) { StandardDeviation = 1, SetupId = setup }
-                    .WithBudget(DistanceBudgetBuilder.Build(ts, tg, dist)));
+                { SetupId = setup, Weighting = weighting });
+                obs.Add(new DistanceObservation(at, to, Length.FromMetres(dist + noiseM)) { SetupId = setup, Weighting = weighting });
             }
         }
         return new SurveyNetwork("centering test", points, obs);
     }
 
-    private static AdjustmentOptions Correlated => AdjustmentOptions.Default with { WeightModel = SetupCenteringWeightModel.Instance };
+    private static AdjustmentOptions Correlated => AdjustmentOptions.Default with { Centering = CenteringModel.Correlated };
 
     [Fact]
     public void CorrelatedAndDiagonalAgreeWhenInstrumentCenteringIsZero()
@@ -89,9 +94,9 @@ public class SetupCenteringWeightModelTests
         // respect to the station's easting and northing (PlaneGeometry), D the other contributions squared.
         double sigmaI = 0.0015;
         var net = Network(sigmaI, 0.001, approximationError: 0); // the model takes its geometry from the approximate coordinates
-        var weights = SetupCenteringWeightModel.Instance.Build(net, net.Observations.Select(o => 1 / (o.StandardDeviation * o.StandardDeviation)).ToArray(), 1.0);
-        var block = weights.BlockOf(0).Block;
-        int k = block.Size;
+        var model = StochasticModel.Build(net, new GivenCoordinates(net), CenteringModel.Correlated, 1.0);
+        var block = model.Blocks[0];
+        int k = block.Rows.Count;
         Assert.Equal(6, k); // three directions and three distances at A
         var j = Matrix<double>.Build.Dense(k, 2);
         var d = Matrix<double>.Build.Dense(k, k);
@@ -103,11 +108,12 @@ public class SetupCenteringWeightModelTests
                 : PlaneGeometry.Distance(o.From, Truth[o.From], o.To, Truth[o.To]);
             j[a, 0] = eq.Partials.Where(p => p.Owner == "A" && p.Parameter == Parameter.E).Sum(p => p.Derivative);
             j[a, 1] = eq.Partials.Where(p => p.Owner == "A" && p.Parameter == Parameter.N).Sum(p => p.Derivative);
-            double c = o.Budget!.ValueOf(ContributionNames.InstrumentCentering);
-            d[a, a] = (o.StandardDeviation * o.StandardDeviation) - (c * c);
+            double c = model.Budgets[block.Rows[a]]!.ValueOf(ContributionNames.InstrumentCentering);
+            double sd = model.StandardDeviations[block.Rows[a]];
+            d[a, a] = (sd * sd) - (c * c);
         }
         var expected = d + ErrorPropagation.Propagate(j, Matrix<double>.Build.DiagonalIdentity(2) * (sigmaI * sigmaI));
-        var p = Matrix<double>.Build.Dense(k, k, (r, c) => block[r, c]);
+        var p = Matrix<double>.Build.Dense(k, k, (r, c) => block.Weights[(r * k) + c]);
         var cov = p.Inverse();
         for (int r = 0; r < k; r++)
             for (int c = 0; c < k; c++)

@@ -1,5 +1,6 @@
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Units;
 
 namespace NetAdjust.Adjustment.Approximation;
@@ -21,7 +22,7 @@ internal static class ApproximationOffers
     public static bool FixesScale(Observation o) => o.Kind == ObservationKind.Distance && !o.Excluded;
 
     /// <summary>Whether the observation ties plane positions (every kind but height differences).</summary>
-    public static bool IsPlane(Observation o) => ObservationModels.IsHorizontal(o.Kind);
+    public static bool IsPlane(Observation o) => ObservationKindRegistry.IsHorizontal(o.Kind);
 
     /// <summary>Height differences as (from, to, H(to) − H(from)); set-aside observations last, so that they
     /// are used only where nothing else reaches.</summary>

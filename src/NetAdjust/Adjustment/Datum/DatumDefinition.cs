@@ -1,4 +1,6 @@
-namespace NetAdjust.Adjustment;
+using NetAdjust.Adjustment;
+
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>How the datum (the reference frame the observations leave undetermined) is defined.</summary>
 public enum DatumMode

@@ -1,6 +1,8 @@
+using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>
 /// Finds, before any solving, what the observations and the datum definition leave undetermined, and says so in
@@ -30,9 +32,9 @@ internal static class DatumDiagnosis
             return x;
         }
         // Set-aside observations carry no weight: they neither join parts nor fix scale or orientation.
-        var all = network.Observations.Where(o => ObservationModels.IsHorizontal(o.Kind) == plane).ToList();
-        var obs = all.Where(o => !o.Excluded).ToList();
-        foreach (var o in all)
+        var obs = network.Observations.Where(o => ObservationKindRegistry.IsHorizontal(o.Kind) == plane
+            && !o.Excluded).ToList();
+        foreach (var o in obs)
             foreach (var id in o.Points) parent.TryAdd(id, id);
         foreach (var o in obs)
         {
@@ -55,9 +57,8 @@ internal static class DatumDiagnosis
         return order.Select(r =>
         {
             var set = new HashSet<string>(parts[r], StringComparer.Ordinal);
-            bool az = obs.Any(o => o.Kind == ObservationKind.Azimuth && set.Contains(o.From));
-            bool di = obs.Any(o => o.Kind == ObservationKind.Distance && set.Contains(o.From));
-            return new Part(parts[r], az, di);
+            var fixes = ObservationKindRegistry.FixedBy(obs.Where(o => set.Contains(o.From)));
+            return new Part(parts[r], fixes.HasFlag(DatumElements.Orientation), fixes.HasFlag(DatumElements.Scale));
         }).ToList();
     }
 

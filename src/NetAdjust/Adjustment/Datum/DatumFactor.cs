@@ -1,6 +1,7 @@
+using NetAdjust.Adjustment;
 using NetAdjust.LinearAlgebra;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>
 /// The normal-equation factor of a network with datum defect d, in the datum chosen by d conditions Bᵀx = 0.

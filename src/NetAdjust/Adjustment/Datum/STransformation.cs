@@ -1,8 +1,10 @@
 using MathNet.Numerics.LinearAlgebra;
+using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 
-namespace NetAdjust.Adjustment;
+namespace NetAdjust.Adjustment.Datum;
 
 /// <summary>
 /// The S-transformation (Baarda 1973, <i>S-transformations and criterion matrices</i>, Netherlands Geodetic
@@ -58,27 +60,20 @@ public static class STransformation
     /// <param name="result">A result of any datum (usually minimal or inner constraints, where all points are unknowns).</param>
     public static Matrix<double> NullSpace(AdjustmentResult result)
     {
-        var net = result.Network;
+        ArgumentNullException.ThrowIfNull(result);
         var idx = result.Unknowns;
-        var plane = result.Points.Where(p => idx.IndexOf(p.Id, Parameter.E) >= 0 || idx.IndexOf(p.Id, Parameter.N) >= 0).ToList();
-        bool rot = !net.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded);
-        bool scale = !net.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
+        var plane = result.Points.Where(p => idx.IndexOf(p.Id, Parameter.E) >= 0 || idx.IndexOf(p.Id, Parameter.N) >= 0)
+            .Select(p => p.Id).ToList();
         bool height = idx.Unknowns.Any(x => x.Parameter == Parameter.H);
-        var cols = new List<Func<Unknown, double>>();
-        double ce = plane.Count > 0 ? plane.Average(p => p.E!.Value) : 0, cn = plane.Count > 0 ? plane.Average(p => p.N!.Value) : 0;
-        double len = plane.Count > 0 ? Math.Max(1, Math.Sqrt(plane.Average(p => Math.Pow(p.E!.Value - ce, 2) + Math.Pow(p.N!.Value - cn, 2)))) : 1;
+        var defects = DatumConditions.Defects(ObservationKindRegistry.FixedBy(result.Network.Observations), plane.Count > 0, height);
+        var g = DatumConditions.NullSpace(idx.Unknowns, defects, At(result), plane);
+        return Matrix<double>.Build.Dense(idx.Count, defects.Count, (i, k) => g[k][i]);
+    }
+
+    private static Func<string, PlanePoint> At(AdjustmentResult result)
+    {
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
-        double DE(Unknown x) => (byId[x.Owner].E!.Value - ce) / len;
-        double DN(Unknown x) => (byId[x.Owner].N!.Value - cn) / len;
-        if (plane.Count > 0)
-        {
-            cols.Add(x => x.Parameter == Parameter.E ? 1 : 0);
-            cols.Add(x => x.Parameter == Parameter.N ? 1 : 0);
-            if (rot) cols.Add(x => x.Parameter switch { Parameter.E => DN(x), Parameter.N => -DE(x), Parameter.Orientation => 1 / len, _ => 0 });
-            if (scale) cols.Add(x => x.Parameter switch { Parameter.E => DE(x), Parameter.N => DN(x), _ => 0 });
-        }
-        if (height) cols.Add(x => x.Parameter == Parameter.H ? 1 : 0);
-        return Matrix<double>.Build.Dense(idx.Count, cols.Count, (i, k) => cols[k](idx.Unknowns[i]));
+        return id => new PlanePoint(byId[id].E!.Value, byId[id].N!.Value);
     }
 
     /// <summary>
@@ -90,13 +85,12 @@ public static class STransformation
     /// <param name="points">The points; null for all.</param>
     public static Matrix<double> InnerConstraints(AdjustmentResult result, Matrix<double> nullSpace, IEnumerable<string>? points = null)
     {
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(nullSpace);
         var set = points is null ? null : new HashSet<string>(points, StringComparer.Ordinal);
-        var idx = result.Unknowns;
-        return Matrix<double>.Build.Dense(nullSpace.RowCount, nullSpace.ColumnCount, (i, k) =>
-        {
-            var x = idx.Unknowns[i];
-            return x.Parameter != Parameter.Orientation && (set is null || set.Contains(x.Owner)) ? nullSpace[i, k] : 0;
-        });
+        var g = Enumerable.Range(0, nullSpace.ColumnCount).Select(k => nullSpace.Column(k).ToArray()).ToArray();
+        var b = DatumConditions.Inner(g, result.Unknowns.Unknowns, set);
+        return Matrix<double>.Build.Dense(nullSpace.RowCount, nullSpace.ColumnCount, (i, k) => b[k][i]);
     }
 
     /// <summary>
@@ -111,20 +105,15 @@ public static class STransformation
     /// <param name="holdHeight">The point held in height (needed when there are heights).</param>
     public static Matrix<double> MinimalConstraints(AdjustmentResult result, string holdPoint, string? azimuthTo, string? holdHeight)
     {
-        var net = result.Network;
+        ArgumentNullException.ThrowIfNull(result);
         var idx = result.Unknowns;
-        bool rot = !net.Observations.Any(o => o.Kind == ObservationKind.Azimuth && !o.Excluded);
-        bool scale = !net.Observations.Any(o => o.Kind == ObservationKind.Distance && !o.Excluded);
         bool height = idx.Unknowns.Any(x => x.Parameter == Parameter.H);
-        var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
-        PlanePoint At(string id) => new(byId[id].E!.Value, byId[id].N!.Value);
-        var cols = new List<Partial[]> { new[] { new Partial(holdPoint, Parameter.E, 1) }, new[] { new Partial(holdPoint, Parameter.N, 1) } };
-        if (rot) cols.Add(PlaneGeometry.Azimuth(holdPoint, At(holdPoint), azimuthTo!, At(azimuthTo!)).Partials);
-        if (scale) cols.Add(PlaneGeometry.Distance(holdPoint, At(holdPoint), azimuthTo!, At(azimuthTo!)).Partials);
-        if (height) cols.Add([new Partial(holdHeight!, Parameter.H, 1)]);
-        var b = Matrix<double>.Build.Dense(idx.Count, cols.Count);
-        for (int k = 0; k < cols.Count; k++)
-            foreach (var p in cols[k]) b[idx.IndexOf(p.Owner, p.Parameter), k] += p.Derivative;
+        var defects = DatumConditions.Defects(ObservationKindRegistry.FixedBy(result.Network.Observations), plane: true, height);
+        var at = At(result);
+        var b = Matrix<double>.Build.Dense(idx.Count, defects.Count);
+        for (int k = 0; k < defects.Count; k++)
+            foreach (var (owner, par, value) in DatumConditions.MinimalGradient(defects[k], holdPoint, azimuthTo, holdHeight, at))
+                b[idx.IndexOf(owner, par), k] += value;
         return b;
     }
 }

@@ -6,10 +6,12 @@ public enum SparseOrdering
     /// <summary>Try the available orderings and keep the one with the least fill nnz(L) (see the solver's remarks).</summary>
     Automatic,
 
-    /// <summary>Geometric nested dissection (needs positions of the unknowns); minimum degree when they are missing.</summary>
+    /// <summary>
+    /// Geometric nested dissection (needs positions of the unknowns); approximate minimum degree when they are missing.
+    /// </summary>
     NestedDissection,
 
-    /// <summary>Approximate minimum degree.</summary>
+    /// <summary>Approximate minimum degree (AMD; Amestoy, Davis &amp; Duff 1996), which needs no positions.</summary>
     MinimumDegree,
 }
 
@@ -23,8 +25,8 @@ public enum SparseOrdering
 /// The symbolic analysis is cached: a later call whose design rows and weight blocks have the same pattern
 /// (Gauss-Newton iterations, blunder-hunt rounds, re-weighting) reuses it and only repeats the numeric phase.
 /// <see cref="SparseOrdering.Automatic"/> computes nnz(L) for nested dissection (when positions are known) and
-/// for minimum degree (when there are at most <see cref="MinimumDegreeLimit"/> unknowns, or no positions) and keeps
-/// the smaller. An instance holds that cache: use one instance per adjustment, from one thread at a time.
+/// for approximate minimum degree (when there are at most <see cref="MinimumDegreeLimit"/> unknowns, or no positions)
+/// and keeps the smaller. An instance holds that cache: use one instance per adjustment, from one thread at a time.
 /// References: Davis 2006, <i>Direct Methods for Sparse Linear Systems</i> (SIAM); George 1973; Amestoy, Davis
 /// &amp; Duff 1996; Liu 1990; Takahashi, Fagan &amp; Chin 1973; Erisman &amp; Tinney 1975 (see docs/sparse-engine.md).
 /// </remarks>
@@ -32,6 +34,8 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
 {
     /// <summary>Above this many unknowns the automatic choice does not try minimum degree when nested dissection is available.</summary>
     public const int MinimumDegreeLimit = 10_000;
+
+    private const string AmdName = "approximate minimum degree";
 
     private DesignPattern? _pattern;
     private SymbolicCholesky? _symbolic;
@@ -78,12 +82,13 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
     private (int[] Perm, string Name) ChooseOrdering(AdjacencyGraph graph, UnknownGeometry? geometry)
     {
         bool geometric = geometry is not null && geometry.UnknownCount == graph.VertexCount && geometry.HasAllPositions;
-        if (Ordering == SparseOrdering.MinimumDegree || !geometric) return (MinimumDegreeOrdering.Order(graph), "minimum degree");
+        if (Ordering == SparseOrdering.MinimumDegree || !geometric)
+            return (ApproximateMinimumDegree.Order(graph), AmdName);
         var nd = GeometricNestedDissection.Order(graph, geometry!);
         if (Ordering == SparseOrdering.NestedDissection || graph.VertexCount > MinimumDegreeLimit) return (nd, "nested dissection");
-        var md = MinimumDegreeOrdering.Order(graph);
+        var md = ApproximateMinimumDegree.Order(graph);
         return SymbolicCholesky.CountFill(graph, md) < SymbolicCholesky.CountFill(graph, nd)
-            ? (md, "minimum degree")
+            ? (md, AmdName)
             : (nd, "nested dissection");
     }
 

@@ -4,7 +4,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// Where the unknowns sit on the ground, for geometric nested dissection: each unknown belongs to one group
 /// (the unknowns of one point, together with the orientations of the direction sets observed at it), and each
 /// group has a plane position (m). Immutable. Groups without a position (NaN) make the geometric ordering
-/// unavailable; the solver then orders by minimum degree.
+/// unavailable; the solver then orders by approximate minimum degree.
 /// </summary>
 public sealed class UnknownGeometry
 {

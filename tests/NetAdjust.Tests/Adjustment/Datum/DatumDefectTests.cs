@@ -1,3 +1,4 @@
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Units;

@@ -1,9 +1,12 @@
 using NetAdjust.Simulation;
-using FsCheck;
 using FsCheck.Xunit;
+using FsCheck;
 using MathNet.Numerics.LinearAlgebra;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Adjustment.Datum;
 

@@ -1,8 +1,11 @@
 using NetAdjust.Simulation;
 using MathNet.Numerics.LinearAlgebra;
+using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Procedures;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.Tests.Adjustment.Datum;
 
@@ -117,10 +120,35 @@ public class SequenceTests
     public void WithAnEstimatedVarianceFactorTheFTestDecides()
     {
         var sim = GridNetworks.Grid(46, 4, Five, disturb: (12, 0.03, 0.04));
-        var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = NetAdjust.Statistics.VarianceFactorBasis.Estimated } };
+        var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = VarianceFactorBasis.Estimated } };
         var s = AdjustmentSequence.Run(sim.Network, options);
         Assert.True(s.Test.SigmaEstimated);
         Assert.Equal(s.Test.PassedF, s.Test.Passed);
         Assert.False(s.Test.Passed);
+    }
+
+    [Fact]
+    public void WithAnEstimatedVarianceFactorTheDiscrepanciesUseIt()
+    {
+        // Regression (defect): the control discrepancies' standard deviations used the a-priori variance factor even
+        // when it was taken as estimated. Var(given − adjusted) = σ̂0² q for held control (law of propagation of
+        // variances, common practice), σ̂0² = vᵀPv / r of the minimally-constrained run. The observations' standard
+        // deviations are halved so that σ̂0² is near 4, far from the a-priori 1.
+        var sim = GridNetworks.Grid(46, 4, Five);
+        var net = new SurveyNetwork(sim.Network.Name, sim.Network.Points,
+            sim.Network.Observations.Select(o => o with { StandardDeviation = o.StandardDeviation / 2 }));
+        var options = Tight with { Analysis = Tight.Analysis with { VarianceFactor = VarianceFactorBasis.Estimated } };
+        var s = AdjustmentSequence.Run(net, options);
+        double vf = s.Minimal.Statistics.VarianceFactor!.Value;
+        Assert.True(vf > 2);
+        int checkedCount = 0;
+        foreach (var c in s.Discrepancies)
+        {
+            if (c.SdE is not double sdE || sdE == 0) continue;
+            int j = s.Minimal.Unknowns.IndexOf(c.Id, Parameter.E);
+            Assert.Equal(Math.Sqrt(vf * s.Minimal.Cofactor(j, j)), sdE, 1e-12);
+            checkedCount++;
+        }
+        Assert.True(checkedCount >= 3);
     }
 }

@@ -1,0 +1,56 @@
+namespace NetAdjust.IO.Project;
+
+/// <summary>
+/// The documented limits on project input (docs/input-format.md, "Limits"). Input beyond them is refused with
+/// file, line and item before it can exhaust the stack, memory or time. The values are this project's choices
+/// (common practice: generous bounds around any real survey), not taken from a standard.
+/// </summary>
+public static class InputLimits
+{
+    /// <summary>Largest project or CSV file read, in bytes (64 MiB).</summary>
+    public const long MaxFileBytes = 64L * 1024 * 1024;
+
+    /// <summary>Deepest nesting of YAML mappings and sequences (the format needs 4).</summary>
+    public const int MaxNestingDepth = 32;
+
+    /// <summary>Longest single value (an id, a number, a title) in characters.</summary>
+    public const int MaxValueLength = 256;
+
+    /// <summary>Longest line of a CSV observation file, in characters.</summary>
+    public const int MaxCsvLineLength = 4096;
+
+    /// <summary>Smallest standard deviation of a length: 1 µm (no survey measures better).</summary>
+    public const double MinLengthSd = Stochastic.StandardDeviationLimits.MinLength;
+
+    /// <summary>Largest standard deviation of a length: 1 km.</summary>
+    public const double MaxLengthSd = Stochastic.StandardDeviationLimits.MaxLength;
+
+    /// <summary>Smallest angular standard deviation: 1e-9 rad (about 0.0002 arcsec).</summary>
+    public const double MinAngleSd = Stochastic.StandardDeviationLimits.MinAngle;
+
+    /// <summary>Largest angular standard deviation: 1 rad (about 57°).</summary>
+    public const double MaxAngleSd = Stochastic.StandardDeviationLimits.MaxAngle;
+
+    /// <summary>Largest magnitude of a coordinate, a height or a measured length: 1e8 m (100,000 km).</summary>
+    public const double MaxCoordinate = 1e8;
+
+    /// <summary>Number of characters of the input quoted in a message at most.</summary>
+    public const int ExcerptLength = 40;
+
+    /// <summary>The text clipped to a short excerpt for a message (never more than <see cref="ExcerptLength"/>
+    /// characters).</summary>
+    /// <param name="text">The input text.</param>
+    /// <returns>The text, or its start followed by '…' and the full length.</returns>
+    public static string Excerpt(string text) =>
+        text.Length <= ExcerptLength ? text : text[..ExcerptLength] + $"… ({text.Length} characters)";
+
+    /// <summary>A parser message clipped to 200 characters.</summary>
+    internal static string Excerpt200(string text) => text.Length <= 200 ? text : text[..200] + "…";
+
+    /// <summary>Null when the standard deviation (metres or radians) is in the sane range, else what is
+    /// wrong.</summary>
+    /// <param name="sd">The standard deviation in SI units.</param>
+    /// <param name="angular">True for an angular standard deviation (radians).</param>
+    internal static string? SdProblem(double sd, bool angular) =>
+        Stochastic.StandardDeviationLimits.Problem(sd, angular);
+}

@@ -1,0 +1,63 @@
+using System.Text;
+
+namespace NetAdjust.IO.Project;
+
+/// <summary>Reads input files within <see cref="InputLimits.MaxFileBytes"/> and decodes them as strict UTF-8.</summary>
+internal static class InputText
+{
+    private static readonly UTF8Encoding Strict = new(encoderShouldEmitUTF8Identifier: false,
+        throwOnInvalidBytes: true);
+
+    /// <summary>Reads at most the size limit from the stream; refuses a longer stream (also an endless one such
+    /// as /dev/zero).</summary>
+    public static byte[] ReadBounded(Stream stream, string file)
+    {
+        using var buffer = new MemoryStream();
+        var chunk = new byte[81920];
+        int n;
+        while ((n = stream.Read(chunk, 0, chunk.Length)) > 0)
+        {
+            if (buffer.Length + n > InputLimits.MaxFileBytes)
+                throw new ProjectFileException(file, 0, "",
+                    $"the file is larger than the limit of {InputLimits.MaxFileBytes / (1024 * 1024)} MiB " +
+                        $"(docs/input-format.md, \"Limits\")");
+            buffer.Write(chunk, 0, n);
+        }
+        return buffer.ToArray();
+    }
+
+    /// <summary>Decodes UTF-8 (a byte-order mark is skipped); an invalid byte is refused with its line.</summary>
+    public static string Decode(byte[] bytes, string file)
+    {
+        int start = bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF ? 3 : 0;
+        try
+        {
+            return Strict.GetString(bytes, start, bytes.Length - start);
+        }
+        catch (DecoderFallbackException e)
+        {
+            int at = start + Math.Max(0, e.Index);
+            // The decoder reports the index within its current block: find the first invalid byte ourselves.
+            at = FirstInvalid(bytes, start) ?? at;
+            int line = 1;
+            for (int i = 0; i < at && i < bytes.Length; i++) if (bytes[i] == (byte)'\n') line++;
+            throw new ProjectFileException(file, line, "",
+                $"the file is not valid UTF-8 (byte 0x{bytes[at]:X2} at position {at + 1}): save it as UTF-8");
+        }
+    }
+
+    private static int? FirstInvalid(byte[] b, int start)
+    {
+        int i = start;
+        while (i < b.Length)
+        {
+            var chars = new char[Math.Min(4096, ((b.Length - i) * 2) + 2)];
+            var status = System.Text.Unicode.Utf8.ToUtf16(b.AsSpan(i), chars, out int read, out _,
+                replaceInvalidSequences: false, isFinalBlock: true);
+            if (status == System.Buffers.OperationStatus.Done) return null;
+            if (status is System.Buffers.OperationStatus.InvalidData or System.Buffers.OperationStatus.NeedMoreData) return i + read;
+            i += read; // destination too small: go on
+        }
+        return null;
+    }
+}
