@@ -15,6 +15,13 @@ public static class DemoProjectWriter
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
+    /// <summary>
+    /// The last line of every project file written: the YAML language server's schema comment, so editors check the
+    /// file against docs/project.schema.json (a path relative to data/, where the demo projects live). It is the
+    /// last line so that the line numbers of the observations, which reports cite, stay as they were.
+    /// </summary>
+    internal const string SchemaComment = "# yaml-language-server: $schema=../docs/project.schema.json\n";
+
     /// <summary>The files of a survey: (file name, text), the project file first.</summary>
     /// <param name="survey">The drawn survey.</param>
     /// <param name="baseName">The project file's name without extension; other files are named after it.</param>
@@ -83,7 +90,7 @@ public static class DemoProjectWriter
                 Setup(y, obs, withSd: false);
             }
             y.Append("files:\n  - ").Append(csv).Append('\n');
-            return y.ToString();
+            return y.Append(SchemaComment).ToString();
         }
         var c = new StringBuilder();
         c.Append("# Level loop at Brackenmoor (invented), double-run levelling with level DL10: ")
@@ -121,7 +128,7 @@ public static class DemoProjectWriter
             y.Append("  - at: ").Append(at).Append('\n');
             Setup(y, obs, withSd: false);
         }
-        return y.ToString();
+        return y.Append(SchemaComment).ToString();
     }
 
     private static string Harrowgate(DemoSurvey s, string how)
@@ -146,7 +153,7 @@ public static class DemoProjectWriter
             y.Append("  - at: ").Append(at).Append('\n');
             Setup(y, obs, withSd: true);
         }
-        return y.ToString();
+        return y.Append(SchemaComment).ToString();
     }
 
     private static void Point(StringBuilder y, Point p, int planeDecimals, int heightDecimals, string note)

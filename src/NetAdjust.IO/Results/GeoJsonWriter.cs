@@ -63,6 +63,7 @@ public static class GeoJsonWriter
             }
             j.WriteStartObject("netadjust");
             j.WriteString("format", Format);
+            j.WriteString("generator", Generator.Name);
             j.WriteString("input", context.InputName);
             j.WriteString("run_date", context.RunDate.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
             j.WriteString("coordinates", context.Crs is null ? "local" : context.Crs);

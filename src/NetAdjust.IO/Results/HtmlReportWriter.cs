@@ -40,7 +40,7 @@ public static class HtmlReportWriter
         sb.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
           .Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n")
           .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
-          .Append("<meta name=\"generator\" content=\"NetAdjust\">\n")
+          .Append("<meta name=\"generator\" content=\"").Append(Generator.Name).Append("\">\n")
           .Append("<title>").Append(E(title)).Append("</title>\n<style>\n").Append(Css).Append("</style>\n</head>\n<body>\n");
 
         sb.Append("<header>\n<h1>").Append(E(title)).Append("</h1>\n<dl class=\"run\">\n");
@@ -186,7 +186,7 @@ public static class HtmlReportWriter
           .Append("<tr><th scope=\"row\">Firm</th><td>").Append(E(c.Particulars?.Firm ?? "")).Append("</td></tr>\n")
           .Append("<tr><th scope=\"row\">Signature</th><td></td></tr>\n")
           .Append("<tr><th scope=\"row\">Date</th><td></td></tr>\n</tbody>\n</table>\n</div>\n</section>\n");
-        sb.Append("<footer>Report written by NetAdjust on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
+        sb.Append("<footer>Report written by ").Append(Generator.Name).Append(" on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
         return sb.ToString();
     }
 

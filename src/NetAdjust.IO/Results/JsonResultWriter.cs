@@ -82,6 +82,7 @@ public static class JsonResultWriter
         return new ResultJson.Document
         {
             Format = Format,
+            Generator = Results.Generator.Name,
             Project = r.Network.Name,
             Input = c.InputName,
             RunDate = c.RunDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),

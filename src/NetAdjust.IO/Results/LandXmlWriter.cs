@@ -98,7 +98,7 @@ public static class LandXmlWriter
             w.WriteStartElement("Application", Namespace);
             w.WriteAttributeString("name", "NetAdjust");
             w.WriteAttributeString("desc", "least-squares adjustment of survey networks");
-            w.WriteAttributeString("version", typeof(LandXmlWriter).Assembly.GetName().Version?.ToString(3) ?? "0");
+            w.WriteAttributeString("version", Generator.Version);
             w.WriteEndElement();
 
             w.WriteStartElement("CgPoints", Namespace);

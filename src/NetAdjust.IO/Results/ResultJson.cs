@@ -22,6 +22,7 @@ internal static class ResultJson
     internal sealed class Document
     {
         public required string Format { get; init; }
+        public required string Generator { get; init; }
         public required string Project { get; init; }
         public required string Input { get; init; }
         public required string RunDate { get; init; }
@@ -139,7 +140,7 @@ internal static class ResultJson
         double? SdScale, double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note);
 
     /// <summary>The sequence document: both solutions, the constraint test, discrepancies and shifts.</summary>
-    internal sealed record Sequence(string Format, string MinimalDatum, IEnumerable<Document> Solutions,
+    internal sealed record Sequence(string Format, string Generator, string MinimalDatum, IEnumerable<Document> Solutions,
         ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies,
         IEnumerable<Shift> CoordinateShifts, IEnumerable<Testability> ControlTestability);
 

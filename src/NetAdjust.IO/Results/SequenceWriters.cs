@@ -32,7 +32,7 @@ public static class SequenceJsonWriter
     {
         ArgumentNullException.ThrowIfNull(s);
         var t = s.Test;
-        var document = new ResultJson.Sequence(Format, s.MinimalDatum,
+        var document = new ResultJson.Sequence(Format, Generator.Name, s.MinimalDatum,
             new[] { s.Minimal, s.Constrained }.Select(r => JsonResultWriter.Document(ResultReport.Build(r, context))),
             new ResultJson.ConstraintTest(t.Alpha, t.AddedConstraints, t.VtpvIncrease,
                 new(t.ChiSquare, JsonResultWriter.Finite(t.ChiSquareCritical), t.PassedChiSquare),
@@ -72,6 +72,7 @@ public static class SequenceReportWriter
         Line($"Project   : {s.Constrained.Network.Name}");
         Line($"Input     : {c.InputName}");
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        Line($"Generator : {Generator.Name}");
         TextReportSections.Particulars(sb, c);
         Line($"Step 1    : {s.MinimalDatum}");
         Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");

@@ -46,6 +46,7 @@ public static class TextReportWriter
         Line($"Project   : {r.Network.Name}");
         Line($"Input     : {c.InputName}");
         Line($"Run date  : {c.RunDate.ToString("yyyy-MM-dd", Inv)}");
+        Line($"Generator : {Generator.Name}");
         TextReportSections.Particulars(sb, c);
         Line($"Units     : lengths {u.Length.Name} ({lu}), angles {units.AngleName}, angular sd and residuals {au}");
         Line($"Solver    : {r.SolverName}");
