@@ -27,13 +27,17 @@ public static class ZenithBudgetBuilder
     /// <param name="horizontalDistance">The horizontal sight length s, metres (&gt; 0).</param>
     /// <returns>Contributions <c>zenith_pointing_reading</c>, <c>instrument_height</c>, <c>target_height</c>
     /// (radians).</returns>
-    /// <exception cref="InvalidInputException">When s is not positive.</exception>
+    /// <exception cref="InvalidInputException">When s is not positive or the instrument has no zenith
+    /// standard deviation.</exception>
     public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? target,
         ObservingProcedure procedure, double horizontalDistance)
     {
         ArgumentNullException.ThrowIfNull(instrument);
         ArgumentNullException.ThrowIfNull(procedure);
         Checks.Positive(horizontalDistance, "the horizontal sight length");
+        if (!(instrument.ZenithSd > 0))
+            throw new InvalidInputException(
+                $"instrument {instrument.Id} has no zenith_sd, so it cannot weight a zenith angle");
         return new ErrorBudget(
         [
             new(ContributionNames.ZenithPointingReading,
