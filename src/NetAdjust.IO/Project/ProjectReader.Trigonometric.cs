@@ -50,12 +50,13 @@ public static partial class ProjectReader
         if (zeniths is not null)
             foreach (var zn in ctx.Sequence(zeniths, item + " zeniths"))
             {
-                var (to, value, sd, src, budget, target) = ReadSighting(ctx, zn, ObservationKind.Zenith, units, defaults,
-                    Keys(ObservationKind.Zenith), item, spec, specs);
+                var (to, value, sd, src, budget, target) = ReadSighting(ctx, zn, ObservationKind.Zenith, units,
+                    defaults, Keys(ObservationKind.Zenith), item, spec, specs);
                 string what = $"zenith angle to {to} in the {item}";
                 var z = ctx.ParseAngle(zn, angles, value, what);
                 if (!(z.Radians > 0 && z.Radians < Math.PI))
-                    throw ctx.Error(zn, what, $"a zenith angle must lie between 0 and 180° (0 at the zenith), not {value}");
+                    throw ctx.Error(zn, what,
+                        $"a zenith angle must lie between 0 and 180° (0 at the zenith), not {value}");
                 var o = new ZenithObservation(at, to, z, hi, TargetHeight(zn, what))
                 { StandardDeviation = sd, Source = src, Refraction = specs.Refraction };
                 zenithTargets.Add(to);
@@ -72,9 +73,9 @@ public static partial class ProjectReader
                 bool heightsHeld = specs.Points.TryGetValue(at, out var p) && p.IsFixed(Fixity.H)
                     && specs.Points.TryGetValue(to, out var q) && q.IsFixed(Fixity.H);
                 if (!zenithTargets.Contains(to) && !heightsHeld)
-                    throw ctx.Error(sn, what, "a slope distance needs a zenith angle to the same target in the same " +
-                        "setup (or both heights held): alone it cannot separate the horizontal distance from the height " +
-                        "difference");
+                    throw ctx.Error(sn, what, "a slope distance needs a zenith angle to the same target in the " +
+                        "same setup (or both heights held): alone it cannot separate the horizontal distance from the " +
+                        "height difference");
                 output.Add(new(new SlopeDistanceObservation(at, to, d, hi, TargetHeight(sn, what))
                 { StandardDeviation = sd, Source = src }, budget, target, sn, what));
             }

@@ -315,8 +315,8 @@ public static partial class ProjectReader
         var m = ctx.Mapping(node, "a setup");
         string at = ctx.RequiredString(m, "at", "a setup");
         string item = "setup at " + at;
-        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets", "faces",
-            "instrument_height", "slope_distances", "zeniths"], item);
+        ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets",
+            "faces", "instrument_height", "slope_distances", "zeniths"], item);
         var spec = ReadSetupSpec(ctx, m, item, specs);
         var output = new List<Pending>();
 

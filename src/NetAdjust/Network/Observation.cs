@@ -258,7 +258,8 @@ public sealed record SlopeDistanceObservation(
 /// </summary>
 /// <param name="From">Instrument point.</param>
 /// <param name="To">Target point.</param>
-/// <param name="Zenith">The measured zenith angle (the mean of both faces, or one face corrected for index error).</param>
+/// <param name="Zenith">The measured zenith angle (the mean of both faces, or one face corrected for index
+/// error).</param>
 /// <param name="InstrumentHeight">Height of the instrument above the mark at <paramref name="From"/>.</param>
 /// <param name="TargetHeight">Height of the target above the mark at <paramref name="To"/>.</param>
 public sealed record ZenithObservation(

@@ -69,7 +69,8 @@ public class TrigonometricNetworkTests
                 Length.FromMetres(i), Length.FromMetres(t)) { StandardDeviation = SdSlope, Source = $"s:{line}" });
             double booked = t + (line == 5 ? wrongTargetHeight : 0);
             obs.Add(new ZenithObservation(from, to, Angle.FromRadians(z + (SdZenith * Noise())),
-                Length.FromMetres(i), Length.FromMetres(booked)) { StandardDeviation = SdZenith, Source = $"z:{line}" });
+                Length.FromMetres(i), Length.FromMetres(booked))
+            { StandardDeviation = SdZenith, Source = $"z:{line}" });
         }
         return new SurveyNetwork("trig", points, obs);
     }

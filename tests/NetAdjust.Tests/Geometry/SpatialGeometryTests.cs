@@ -23,7 +23,8 @@ public class SpatialGeometryTests
     public void CurvatureAndRefractionOverOneKilometreIsTheTextbookRule()
     {
         // Ghilani & Wolf, Elementary Surveying: An Introduction to Geomatics, ch. 4 "curvature and refraction":
-        // h_cr = 0.0675 K² metres, K in km, for the usual refraction (k ≈ 0.14) (from memory; docs/references.md).
+        // h_cr = 0.0675 K² metres, K in km, for the usual refraction (k ≈ 0.14) (docs/references.md §10: seen in
+        // notes citing the 13th edition).
         // The rule is printed to three figures, so it is met to half a unit of its last digit.
         Assert.Equal(0.0675, ApparentRise(1000, 0.14), 0.00005 + 1e-9);
         Assert.Equal(0.0675, SpatialGeometry.CurvatureAndRefraction(1000, 0.14), 0.00005 + 1e-9);
@@ -91,7 +92,8 @@ public class SpatialGeometryTests
         foreach (bool slope in new[] { true, false })
         {
             double F(Sighting x) => slope ? SpatialGeometry.SlopeDistance(x).Value : SpatialGeometry.Zenith(x, k).Value;
-            var partials = slope ? SpatialGeometry.SlopeDistance(sight).Partials : SpatialGeometry.Zenith(sight, k).Partials;
+            var partials = slope
+                ? SpatialGeometry.SlopeDistance(sight).Partials : SpatialGeometry.Zenith(sight, k).Partials;
             Assert.Equal(6, partials.Length);
             const double h = 1e-3; // central differences: truncation error ~h²·f‴, far below the tolerance
             foreach (var p in partials)
