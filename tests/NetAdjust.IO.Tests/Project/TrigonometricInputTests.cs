@@ -1,5 +1,7 @@
 using NetAdjust.Adjustment;
+using System.Text.Json;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Results;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
 using NetAdjust.Stochastic;
@@ -123,5 +125,23 @@ public class TrigonometricInputTests
             _ => "kind,from,to,value,sd\n" + row + "\n"));
         Assert.StartsWith($"obs.csv:2: {item}", e.Message);
         Assert.Contains("not read from CSV yet", e.Message);
+    }
+
+    [Fact]
+    public void JsonNamesTheKindsGivesZenithResidualsInArcsecAndHeightsWithTheirSd()
+    {
+        var p = Parse(Setup().Replace("h: 110}", "h: 110, fix: en}"));
+        var r = Adjuster.Adjust(p.Network, p.Options);
+        string json = JsonResultWriter.Write(r, new ReportContext("t.yaml", new DateOnly(2026, 12, 1), p.Units));
+        using var doc = JsonDocument.Parse(json);
+        var obs = doc.RootElement.GetProperty("observations");
+        Assert.Equal("zenith", obs[0].GetProperty("kind").GetString());
+        Assert.Equal("slope_distance", obs[1].GetProperty("kind").GetString());
+        // Residuals of angles are in arcsec (docs/output-format.md), like directions and angles.
+        Assert.Equal(r.Observations[0].Residual * 648000 / Math.PI, obs[0].GetProperty("residual").GetDouble(), 1e-9);
+        Assert.Equal(r.Observations[1].Residual, obs[1].GetProperty("residual").GetDouble(), 1e-12);
+        var b = doc.RootElement.GetProperty("points")[1];
+        Assert.Equal(r.Points[1].H!.Value, b.GetProperty("h").GetDouble(), 1e-9);
+        Assert.True(b.GetProperty("sd_h").GetDouble() > 0);
     }
 }
