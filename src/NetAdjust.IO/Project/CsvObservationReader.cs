@@ -128,8 +128,12 @@ internal static class CsvObservationReader
                 ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
                     $"{Need("at", at)}/{file}#{(Get("set").Length > 0 ? Get("set") : "1")}") { StandardDeviation = sd,
                         Source = source },
-                _ => new HeightDifferenceObservation(Need("from", from), Need("to", to), L(Need("value", value)),
-                    Get("length").Length > 0 ? L(Get("length")) : null) { StandardDeviation = sd, Source = source },
+                ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from), Need("to", to),
+                    L(Need("value", value)), Get("length").Length > 0 ? L(Get("length")) : null)
+                { StandardDeviation = sd, Source = source },
+                _ => throw new ProjectFileException(file, lineNo, item, $"a {kind.Name().Replace('_', ' ')} is not " +
+                    "read from CSV yet (it needs its setup's instrument height and a target height): write it in a " +
+                    "setup of the project file"),
             };
             result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"),
                 Get("sd_factor"), file, lineNo, item));

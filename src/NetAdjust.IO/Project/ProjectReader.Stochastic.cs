@@ -24,6 +24,9 @@ public static partial class ProjectReader
 
         public Dictionary<string, int> SetupsPerStation { get; } = new(StringComparer.Ordinal);
 
+        /// <summary>The project's refraction coefficient k for zenith angles.</summary>
+        public double Refraction { get; set; } = Geometry.SpatialGeometry.DefaultRefraction;
+
         /// <summary>
         /// The weighting of a height difference from a named level (for CSV rows); throws InvalidInputException.
         /// </summary>
@@ -229,7 +232,7 @@ public static partial class ProjectReader
             var o = p.Observation with { SetupId = setupId };
             if (p.NeedsBudget)
             {
-                if (o is DistanceObservation && ts.Edm is null)
+                if (o is DistanceObservation or SlopeDistanceObservation && ts.Edm is null)
                     throw ctx.Error(p.Node, p.Item,
                         $"instrument {ts.Id} has no EDM specification, so it cannot weight a distance");
                 o = o with

@@ -133,6 +133,7 @@ public static partial class ProjectReader
         InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
+        specs.Refraction = ReadRefraction(ctx, root);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
@@ -226,7 +227,8 @@ public static partial class ProjectReader
         var o = AdjustmentOptions.Default;
         if (ctx.Child(root, "adjustment") is not YamlNode node) return o;
         var m = ctx.Mapping(node, "adjustment");
-        ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering"], "adjustment");
+        ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering",
+            "refraction"], "adjustment");
         if (ctx.Child(m, "centering") is YamlNode cn)
         {
             o = o with { Centering = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
@@ -336,7 +338,7 @@ public static partial class ProjectReader
         string at = ctx.RequiredString(m, "at", "a setup");
         string item = "setup at " + at;
         ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets",
-            "faces"], item);
+            "faces", "instrument_height", "slope_distances", "zeniths"], item);
         var spec = ReadSetupSpec(ctx, m, item, specs);
         var output = new List<Pending>();
 
@@ -388,6 +390,7 @@ public static partial class ProjectReader
                     Source = src },
                     budget, target, an, $"angle from {from} to {to} in the {item}"));
             }
+        ReadTrigonometric(ctx, m, at, item, lengths, angles, units, defaults, spec, specs, output);
         FinishSetup(ctx, at, spec, output, specs, setupOutput);
     }
 

@@ -19,6 +19,13 @@ public enum ObservationKind
 
     /// <summary>Height difference H(to) − H(from), e.g. from levelling.</summary>
     HeightDifference,
+
+    /// <summary>Slope distance from the instrument to the target (chord), with instrument and target heights.</summary>
+    SlopeDistance,
+
+    /// <summary>Zenith angle (0 at the zenith) from the instrument to the target, with instrument and target
+    /// heights.</summary>
+    Zenith,
 }
 
 /// <summary>
@@ -36,6 +43,8 @@ public static class ObservationKinds
         ObservationKind.Angle => "angle",
         ObservationKind.Azimuth => "azimuth",
         ObservationKind.HeightDifference => "height_difference",
+        ObservationKind.SlopeDistance => "slope_distance",
+        ObservationKind.Zenith => "zenith",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -216,4 +225,58 @@ public sealed record HeightDifferenceObservation(string From, string To, Length 
 
     /// <inheritdoc />
     public override string To { get; } = To;
+}
+
+/// <summary>
+/// A slope distance measured by EDM from the instrument over <paramref name="From"/> to the target over
+/// <paramref name="To"/>: the chord between the instrument's trunnion axis and the target.
+/// </summary>
+/// <param name="From">Instrument point.</param>
+/// <param name="To">Target point.</param>
+/// <param name="Distance">The measured slope distance (reduced for EDM constant and atmosphere).</param>
+/// <param name="InstrumentHeight">Height of the instrument above the mark at <paramref name="From"/>.</param>
+/// <param name="TargetHeight">Height of the target above the mark at <paramref name="To"/>.</param>
+public sealed record SlopeDistanceObservation(
+    string From, string To, Length Distance, Length InstrumentHeight, Length TargetHeight) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.SlopeDistance;
+
+    /// <inheritdoc />
+    public override double Value => Distance.Metres;
+
+    /// <inheritdoc />
+    public override string From { get; } = From;
+
+    /// <inheritdoc />
+    public override string To { get; } = To;
+}
+
+/// <summary>
+/// A zenith angle (0 at the zenith, π/2 horizontal) from the instrument over <paramref name="From"/> to the target
+/// over <paramref name="To"/>, as observed through the refracted line of sight.
+/// </summary>
+/// <param name="From">Instrument point.</param>
+/// <param name="To">Target point.</param>
+/// <param name="Zenith">The measured zenith angle (the mean of both faces, or one face corrected for index
+/// error).</param>
+/// <param name="InstrumentHeight">Height of the instrument above the mark at <paramref name="From"/>.</param>
+/// <param name="TargetHeight">Height of the target above the mark at <paramref name="To"/>.</param>
+public sealed record ZenithObservation(
+    string From, string To, Angle Zenith, Length InstrumentHeight, Length TargetHeight) : Observation
+{
+    /// <inheritdoc />
+    public override ObservationKind Kind => ObservationKind.Zenith;
+
+    /// <inheritdoc />
+    public override double Value => Zenith.Radians;
+
+    /// <inheritdoc />
+    public override string From { get; } = From;
+
+    /// <inheritdoc />
+    public override string To { get; } = To;
+
+    /// <summary>The refraction coefficient k of the line of sight (the project's; common practice 0.13).</summary>
+    public double Refraction { get; init; } = 0.13;
 }

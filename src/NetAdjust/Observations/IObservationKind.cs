@@ -83,6 +83,10 @@ public enum Measurement
 
     /// <summary>By levelling: per km, or per rod reading.</summary>
     Levelling,
+
+    /// <summary>By pointing and reading the vertical circle once per set, plus instrument and target
+    /// heights.</summary>
+    ZenithReading,
 }
 
 /// <summary>The datum elements that observations can fix.</summary>

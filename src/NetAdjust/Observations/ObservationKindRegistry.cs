@@ -16,6 +16,8 @@ public static class ObservationKindRegistry
         new AngleKind(),
         new AzimuthKind(),
         new HeightDifferenceKind(),
+        new SlopeDistanceKind(),
+        new ZenithKind(),
     ];
 
     private static readonly IObservationKind[] ByEnum = Build();

@@ -74,6 +74,16 @@ public static class ContributionNames
     /// <summary>Pointing and reading of the horizontal circle, from the ISO 17123-3 σ, the sets and the faces.</summary>
     public const string PointingReading = "pointing_reading";
 
+    /// <summary>Pointing and reading of the vertical circle, from the ISO 17123-3 zenith σ, the sets and the
+    /// faces.</summary>
+    public const string ZenithPointingReading = "zenith_pointing_reading";
+
+    /// <summary>The measured instrument height, carried into a zenith angle as σ_i / horizontal distance.</summary>
+    public const string InstrumentHeight = "instrument_height";
+
+    /// <summary>The measured target height, carried into a zenith angle as σ_t / horizontal distance.</summary>
+    public const string TargetHeight = "target_height";
+
     /// <summary>Levelling per km (ISO 17123-2 σ × √K).</summary>
     public const string LevellingPerKm = "levelling_per_km";
 

@@ -66,6 +66,8 @@ public static class ObservationBudgets
                     DirectionBudgetBuilder.Build(ts, w.Target, w.Procedure, Sight(observation.To)),
                 Measurement.CircleReadingDifference => AngleBudgetBuilder.Build(ts, w.Target, w.Target, w.Procedure,
                     Sight(observation.From), Sight(observation.To), observation.Value),
+                Measurement.ZenithReading =>
+                    ZenithBudgetBuilder.Build(ts, w.Target, w.Procedure, Sight(observation.To)),
                 _ => throw new InvalidInputException(
                     $"a {kind.Name.Replace('_', ' ')} is not weighted from an instrument"),
             };

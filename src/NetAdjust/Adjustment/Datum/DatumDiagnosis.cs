@@ -33,8 +33,8 @@ internal static class DatumDiagnosis
             return x;
         }
         // Set-aside observations carry no weight: they neither join parts nor fix scale or orientation.
-        var obs = network.Observations.Where(o => ObservationKindRegistry.IsHorizontal(o.Kind) == plane
-            && !o.Excluded).ToList();
+        var obs = network.Observations.Where(o => ObservationKindRegistry.Of(o).Axes
+            .HasFlag(plane ? CoordinateAxes.Plane : CoordinateAxes.Height) && !o.Excluded).ToList();
         foreach (var o in obs)
             foreach (var id in o.Points) parent.TryAdd(id, id);
         foreach (var o in obs)

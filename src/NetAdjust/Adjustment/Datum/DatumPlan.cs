@@ -90,8 +90,13 @@ internal sealed partial class DatumPlan
         foreach (var o in network.Observations)
             foreach (var id in o.Points)
             {
-                (ObservationKindRegistry.IsHorizontal(o.Kind) ? plane : height).Add(id);
-                if (!o.Excluded) active.Add((id, ObservationKindRegistry.IsHorizontal(o.Kind)));
+                // A kind may use both (slope distance, zenith angle): its points get plane and height unknowns.
+                var axes = ObservationKindRegistry.Of(o).Axes;
+                if (axes.HasFlag(CoordinateAxes.Plane)) plane.Add(id);
+                if (axes.HasFlag(CoordinateAxes.Height)) height.Add(id);
+                if (o.Excluded) continue;
+                if (axes.HasFlag(CoordinateAxes.Plane)) active.Add((id, true));
+                if (axes.HasFlag(CoordinateAxes.Height)) active.Add((id, false));
             }
 
         var e = new Dictionary<string, double>(StringComparer.Ordinal);
