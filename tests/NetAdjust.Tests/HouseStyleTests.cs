@@ -14,7 +14,6 @@ public class HouseStyleTests
         "src/NetAdjust/Network/",
         "src/NetAdjust/Observations/",
         "src/NetAdjust/Stochastic/",
-        "src/NetAdjust/Units/",
         "src/NetAdjust.IO/Results/",
     ];
 
