@@ -12,7 +12,6 @@ public class HouseStyleTests
     private static readonly string[] NotYetChecked =
     [
         "src/NetAdjust/Observations/",
-        "src/NetAdjust.IO/Results/",
     ];
 
     [Fact]
