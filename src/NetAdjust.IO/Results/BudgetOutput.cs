@@ -15,12 +15,14 @@ internal static class BudgetOutput
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    /// <summary>The name of the single component of a standard deviation stated directly (explicit <c>sd</c> or <c>default_sd</c>).</summary>
+    /// <summary>The name of the single component of a standard deviation stated directly (explicit <c>sd</c> or
+    /// <c>default_sd</c>).</summary>
     public const string Stated = "stated";
 
     /// <summary>
     /// Appends the error-budget summary: per observation kind, each contribution's root-mean-square over the
-    /// observations weighted from specifications, and its share of the mean variance. Nothing when no observation has a budget.
+    /// observations weighted from specifications, and its share of the mean variance. Nothing when no observation has a
+    /// budget.
     /// </summary>
     public static void AppendSummary(StringBuilder sb, AdjustmentResult r, ReportContext c)
     {
@@ -29,7 +31,9 @@ internal static class BudgetOutput
         var u = c.Units;
         var units = new ReportUnits(u);
         void Line(string s = "") => sb.Append(s).Append('\n');
-        Line($"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
+        Line(
+            $"ERROR BUDGETS (a-priori sd from instrument and target specifications; lengths {u.Length.Symbol}, " +
+            $"angles {u.AngleSd.Symbol()})");
         Line($"  Weights: {StochasticModel.Describe(r.Options.Centering)}");
         Line("  Per group: root-mean-square of each contribution, and its share of the group's mean variance.");
         foreach (var kind in ObservationKinds.All)
@@ -47,13 +51,17 @@ internal static class BudgetOutput
             foreach (string name in names)
             {
                 double v = group.Average(o => Math.Pow(ResultReport.BudgetOf(o)!.ValueOf(name), 2));
-                Line($"    {name,-24} {Fmt(Math.Sqrt(v)),10} {(meanVar > 0 ? 100 * v / meanVar : 0).ToString("F1", Inv),7} %");
+                Line(
+                    $"    {name,-24} {Fmt(Math.Sqrt(v)),10} " +
+                    $"{(meanVar > 0 ? 100 * v / meanVar : 0).ToString("F1", Inv),7} %");
             }
             Line($"    {"total",-24} {Fmt(Math.Sqrt(meanVar)),10} {100.0.ToString("F1", Inv),7} %");
         }
         Line();
         if (!c.ObservationBudgets) return;
-        Line($"ERROR BUDGET PER OBSERVATION (# as in OBSERVATIONS; lengths {u.Length.Symbol}, angles {u.AngleSd.Symbol()})");
+        Line(
+            $"ERROR BUDGET PER OBSERVATION (# as in OBSERVATIONS; lengths {u.Length.Symbol}, angles " +
+            $"{u.AngleSd.Symbol()})");
         foreach (var ao in r.Observations)
         {
             var o = ao.Input;
@@ -65,7 +73,10 @@ internal static class BudgetOutput
             for (int k = 0; k < items.Count; k++)
             {
                 string piece = " " + items[k] + (k < items.Count - 1 ? "," : "");
-                if (line.Length + piece.Length > 100) { Line(line.ToString()); line.Clear().Append(new string(' ', 7)); }
+                if (line.Length + piece.Length > 100)
+                {
+                    Line(line.ToString()); line.Clear().Append(new string(' ', 7));
+                }
                 line.Append(piece);
             }
             Line(line.ToString());

@@ -8,7 +8,8 @@ namespace NetAdjust.IO.Results;
 /// </summary>
 internal static class Generator
 {
-    /// <summary>The version of the NetAdjust packages, e.g. "0.1.0" (the informational version, no build metadata).</summary>
+    /// <summary>The version of the NetAdjust packages, e.g. "0.1.0" (the informational version, no build
+    /// metadata).</summary>
     public static string Version { get; } = ReadVersion();
 
     /// <summary>Program name and version as written into outputs, e.g. "NetAdjust 0.1.0".</summary>
@@ -17,7 +18,8 @@ internal static class Generator
     private static string ReadVersion()
     {
         var assembly = typeof(Generator).Assembly;
-        string? informational = assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion;
+        string? informational =
+            assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion;
         if (string.IsNullOrEmpty(informational)) return assembly.GetName().Version?.ToString(3) ?? "0.0.0";
         int plus = informational.IndexOf('+', StringComparison.Ordinal);
         return plus < 0 ? informational : informational[..plus];

@@ -65,7 +65,8 @@ public static class GeoJsonWriter
             j.WriteString("format", Format);
             j.WriteString("generator", Generator.Name);
             j.WriteString("input", context.InputName);
-            j.WriteString("run_date", context.RunDate.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
+            j.WriteString("run_date",
+                context.RunDate.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture));
             j.WriteString("coordinates", context.Crs is null ? "local" : context.Crs);
             j.WriteString("axis_order", "easting, northing, height");
             j.WriteString("length_unit", unit.Symbol);
@@ -119,7 +120,8 @@ public static class GeoJsonWriter
                 double? wi = row.W;
                 j.WriteStartObject();
                 j.WriteString("type", "Feature");
-                j.WriteString("id", "observation:" + (o.Index + 1).ToString(System.Globalization.CultureInfo.InvariantCulture));
+                j.WriteString("id", "observation:" + (o.Index +
+                    1).ToString(System.Globalization.CultureInfo.InvariantCulture));
                 j.WriteStartObject("geometry");
                 j.WriteString("type", "LineString");
                 j.WriteStartArray("coordinates");

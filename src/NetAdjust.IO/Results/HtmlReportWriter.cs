@@ -38,19 +38,25 @@ public static class HtmlReportWriter
         var sb = new StringBuilder();
         string title = $"Adjustment report: {r.Network.Name}";
         sb.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
-          .Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n")
+          .Append(
+              "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; " +
+              "img-src data:\">\n")
           .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
           .Append("<meta name=\"generator\" content=\"").Append(Generator.Name).Append("\">\n")
-          .Append("<title>").Append(E(title)).Append("</title>\n<style>\n").Append(Css).Append("</style>\n</head>\n<body>\n");
+          .Append("<title>").Append(E(title)).Append("</title>\n<style>\n").Append(Css)
+          .Append("</style>\n</head>\n<body>\n");
 
         sb.Append("<header>\n<h1>").Append(E(title)).Append("</h1>\n<dl class=\"run\">\n");
         if (c.Particulars is not null)
             foreach (var (label, text) in c.Particulars.Lines()) Dl(sb, label, text);
         Dl(sb, "Input", c.InputName);
         Dl(sb, "Run date", c.RunDate.ToString("yyyy-MM-dd", Inv));
-        Dl(sb, "Units", $"lengths {c.Units.Length.Name} ({u.LengthSymbol}); angles {u.AngleName}; angular sd and residuals {u.SmallAngleSymbol}");
+        Dl(sb, "Units",
+            $"lengths {c.Units.Length.Name} ({u.LengthSymbol}); angles {u.AngleName}; angular sd and residuals " +
+            $"{u.SmallAngleSymbol}");
         Dl(sb, "Datum", TextReportSections.DatumText(r));
-        Dl(sb, "Coordinates", c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
+        Dl(sb, "Coordinates",
+            c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
         Dl(sb, "Solver", r.SolverName);
         if (c.Solution is string solution)
             Dl(sb, "Solution", $"the {solution} solution of the datum sequence (tables below the comparison)");
@@ -60,16 +66,19 @@ public static class HtmlReportWriter
         // Summary.
         sb.Append("<section id=\"summary\">\n<h2>Summary</h2>\n");
         string verdict = g.Passed switch { true => "PASSED", false => "FAILED", _ => "not possible (no redundancy)" };
-        sb.Append("<p class=\"verdict ").Append(g.Passed switch { true => "pass", false => "fail", _ => "none" }).Append("\">Global test (χ², two-tailed, α = ")
+        sb.Append("<p class=\"verdict ").Append(g.Passed switch { true => "pass", false => "fail", _ => "none" })
+          .Append("\">Global test (χ², two-tailed, α = ")
           .Append(F(g.Alpha, 3)).Append("): <strong>").Append(verdict).Append("</strong>");
         if (g.Lower is double lo && g.Upper is double hi)
-            sb.Append(" — vᵀPv/σ0² = ").Append(F(g.Statistic, 3)).Append(", accepted ").Append(F(lo, 3)).Append(" to ").Append(F(hi, 3));
+            sb.Append(" — vᵀPv/σ0² = ").Append(F(g.Statistic, 3)).Append(", accepted ").Append(F(lo, 3)).Append(" to ")
+                .Append(F(hi, 3));
         sb.Append("</p>\n<table class=\"figures\">\n<tbody>\n");
         var planRows = report.Points.Rows.Where(p => p.HasPlan).ToList();
         int plan = planRows.Count;
         Tr(sb, "Points (with plan position / height only)", $"{r.Points.Count} ({plan} / {r.Points.Count - plan})");
         Tr(sb, "Fixed control / weighted control / new (plan)",
-            $"{planRows.Count(p => p.Role == PointRole.Fixed)} / {planRows.Count(p => p.Role == PointRole.Weighted)} / " +
+            $"{planRows.Count(p => p.Role == PointRole.Fixed)} / " +
+            $"{planRows.Count(p => p.Role == PointRole.Weighted)} / " +
             $"{planRows.Count(p => p.Role == PointRole.New)}");
         Tr(sb, "Observations (n)", s.Observations.ToString(Inv));
         Tr(sb, "Unknowns (u)", s.Unknowns.ToString(Inv));
@@ -83,15 +92,20 @@ public static class HtmlReportWriter
         var worst = ReportFigures.Worst(r, w, 5);
         if (worst.Count > 0)
         {
-            sb.Append("<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
+            sb.Append(
+                "<h3>Largest standardised residuals</h3>\n<table>\n<thead><tr><th>#</th><th>Observation</th><th " +
+                "class=\"num\">w</th><th>w-test</th></tr></thead>\n<tbody>\n");
             foreach (var (o, wi) in worst)
-                sb.Append("<tr").Append(Math.Abs(wi) > report.WCritical ? " class=\"fail\"" : "").Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
+                sb.Append("<tr").Append(Math.Abs(wi) > report.WCritical ? " class=\"fail\"" : "")
+                  .Append("><td class=\"num\">").Append(o.Index + 1).Append("</td><td>")
                   .Append(E(o.Input.Describe())).Append("</td><td class=\"num\">").Append(F(wi, 2)).Append("</td><td>")
                   .Append(Math.Abs(wi) > report.WCritical ? "fails" : "passes").Append("</td></tr>\n");
             sb.Append("</tbody>\n</table>\n");
         }
         else
-            sb.Append("<p class=\"note\">No observation can be tested (no redundancy, or none controlled): there are no standardised residuals.</p>\n");
+            sb.Append(
+                "<p class=\"note\">No observation can be tested (no redundancy, or none controlled): there are " +
+                "no standardised residuals.</p>\n");
         sb.Append("</section>\n");
 
         foreach (var section in report.Leading) AppendSection(sb, section);
@@ -108,10 +122,15 @@ public static class HtmlReportWriter
         sb.Append("<section id=\"residuals\">\n<h2>Standardised residuals</h2>\n");
         var ws = w?.Where(x => x is double d && double.IsFinite(d)).Select(x => x!.Value).ToList();
         if (ws is { Count: > 0 })
-            sb.Append("<figure>\n").Append(Histogram(ws, report.WCritical)).Append("<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard normal density (curve) that w follows when the model is right; dashed lines at ±")
+            sb.Append("<figure>\n").Append(Histogram(ws, report.WCritical))
+              .Append(
+                  "<figcaption>Histogram of the standardised residuals w (bars, as a density) against the standard " +
+                  "normal density (curve) that w follows when the model is right; dashed lines at ±")
               .Append(F(report.WCritical, 2)).Append(", the critical value of the w-test.</figcaption>\n</figure>\n");
         else
-            sb.Append("<p class=\"note\">No standardised residuals are available (no observation can be tested): the histogram is left out.</p>\n");
+            sb.Append(
+                "<p class=\"note\">No standardised residuals are available (no observation can be tested): the " +
+                "histogram is left out.</p>\n");
         sb.Append("</section>\n");
 
         // Coordinates.
@@ -127,18 +146,25 @@ public static class HtmlReportWriter
             var p = row.Source;
             var el = row.Ellipse;
             string role = row.HasPlan ? ReportFigures.RoleText(row.Role)
-                : p.Input.IsFixed(Fixity.H) ? "fixed benchmark" : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
+                : p.Input.IsFixed(Fixity.H) ? "fixed benchmark"
+                : p.Input.SdH.HasValue ? "weighted benchmark" : "new height";
             sb.Append("<tr><td class=\"id\">").Append(E(p.Id)).Append("</td><td>").Append(role).Append("</td>");
-            foreach (var v in new[] { u.Length(p.E), u.Length(p.N), u.Length(p.H), u.SmallLength(row.SdE), u.SmallLength(row.SdN), u.SmallLength(row.SdH),
-                                      u.SmallLength(el?.A), u.SmallLength(el?.B), el is ErrorEllipse e ? u.Azimuth(e.Azimuth) : "-" })
+            foreach (var v in new[]
+                     {
+                         u.Length(p.E), u.Length(p.N), u.Length(p.H),
+                         u.SmallLength(row.SdE), u.SmallLength(row.SdN), u.SmallLength(row.SdH),
+                         u.SmallLength(el?.A), u.SmallLength(el?.B), el is ErrorEllipse e ? u.Azimuth(e.Azimuth) : "-",
+                     })
                 sb.Append("<td class=\"num\">").Append(E(v)).Append("</td>");
             sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n</section>\n");
 
         // Observations.
-        sb.Append("<section id=\"observations\">\n<h2>Observations</h2>\n<p>Residual v = adjusted − observed. Lengths in ").Append(u.LengthSymbol)
-          .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
+        sb.Append("<section id=\"observations\">\n<h2>Observations</h2>\n")
+          .Append("<p>Residual v = adjusted − observed. Lengths in ").Append(u.LengthSymbol)
+          .Append(", angles in ").Append(u.AngleName).Append(", angular residuals and standard deviations in ")
+          .Append(u.SmallAngleSymbol).Append(".</p>\n")
           .Append(TableHead(ObservationRow.Columns.Select(col => (col.Header, col.Kind))));
         foreach (var row in report.Observations.Rows)
         {
@@ -159,34 +185,44 @@ public static class HtmlReportWriter
             sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
-        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ").Append(F(report.WCritical, 2)).Append(").</p>\n");
+        if (w is not null) sb.Append("<p class=\"note\">Rows marked ✗ fail the w-test (|w| &gt; ")
+            .Append(F(report.WCritical, 2)).Append(").</p>\n");
         sb.Append("</section>\n");
 
         var budgets = new StringBuilder();
         BudgetOutput.AppendSummary(budgets, r, c);
         if (budgets.ToString().Trim().Length > 0)
-            sb.Append("<section id=\"budgets\">\n<h2>Error budgets</h2>\n<pre class=\"budget\">").Append(E(budgets.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+            sb.Append("<section id=\"budgets\">\n<h2>Error budgets</h2>\n<pre class=\"budget\">")
+                .Append(E(budgets.ToString().TrimEnd())).Append("</pre>\n</section>\n");
 
         if (r.Orientations.Count > 0)
         {
-            sb.Append("<section id=\"orientations\">\n<h2>Orientation unknowns</h2>\n<p>One per direction set: the azimuth of the circle zero; sd in ").Append(u.SmallAngleSymbol).Append(".</p>\n")
-              .Append("<table>\n<thead><tr><th>Set</th><th>Station</th><th class=\"num\">Orientation</th><th class=\"num\">sd</th></tr></thead>\n<tbody>\n");
+            sb.Append(
+                "<section id=\"orientations\">\n<h2>Orientation unknowns</h2>\n<p>One per direction set: the " +
+                "azimuth of the circle zero; sd in ")
+              .Append(u.SmallAngleSymbol).Append(".</p>\n")
+              .Append(
+                  "<table>\n<thead><tr><th>Set</th><th>Station</th><th class=\"num\">Orientation</th><th " +
+                  "class=\"num\">sd</th></tr></thead>\n<tbody>\n");
             foreach (var o in r.Orientations)
-                sb.Append("<tr><td>").Append(E(o.SetId)).Append("</td><td class=\"id\">").Append(E(o.Station)).Append("</td><td class=\"num\">").Append(E(u.AngleValue(o.Orientation)))
+                sb.Append("<tr><td>").Append(E(o.SetId)).Append("</td><td class=\"id\">").Append(E(o.Station))
+                  .Append("</td><td class=\"num\">").Append(E(u.AngleValue(o.Orientation)))
                   .Append("</td><td class=\"num\">").Append(u.SmallAngle(o.Sd)).Append("</td></tr>\n");
             sb.Append("</tbody>\n</table>\n</section>\n");
         }
 
         foreach (var section in report.Sections) AppendSection(sb, section);
 
-        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">").Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n");
+        sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">")
+            .Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n");
         // The block the surveyor in charge signs, on the page of the caution it is signed under.
         sb.Append("<div id=\"signature\">\n<h3>Surveyor in charge</h3>\n<table class=\"signature\">\n<tbody>\n")
           .Append("<tr><th scope=\"row\">Name</th><td>").Append(E(c.Particulars?.Surveyor ?? "")).Append("</td></tr>\n")
           .Append("<tr><th scope=\"row\">Firm</th><td>").Append(E(c.Particulars?.Firm ?? "")).Append("</td></tr>\n")
           .Append("<tr><th scope=\"row\">Signature</th><td></td></tr>\n")
           .Append("<tr><th scope=\"row\">Date</th><td></td></tr>\n</tbody>\n</table>\n</div>\n</section>\n");
-        sb.Append("<footer>Report written by ").Append(Generator.Name).Append(" on the run date ").Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
+        sb.Append("<footer>Report written by ").Append(Generator.Name).Append(" on the run date ")
+            .Append(c.RunDate.ToString("yyyy-MM-dd", Inv)).Append(".</footer>\n</body>\n</html>\n");
         return sb.ToString();
     }
 
@@ -210,18 +246,24 @@ public static class HtmlReportWriter
         double X(double v) => x0 + ((v + lim) / (2 * lim) * (x1 - x0));
         double Y(double d) => y1 - (d / yMax * (y1 - y0));
         var sb = new StringBuilder();
-        sb.Append("<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"histogram\" viewBox=\"0 0 ").Append(N(width)).Append(' ').Append(N(height))
-          .Append("\" width=\"").Append(N(width)).Append("\" height=\"").Append(N(height)).Append("\" font-family=\"Helvetica, Arial, sans-serif\" font-size=\"12\" role=\"img\">\n")
+        sb.Append("<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"histogram\" viewBox=\"0 0 ").Append(N(width))
+          .Append(' ').Append(N(height))
+          .Append("\" width=\"").Append(N(width)).Append("\" height=\"").Append(N(height))
+          .Append("\" font-family=\"Helvetica, Arial, sans-serif\" font-size=\"12\" role=\"img\">\n")
           .Append("<title>Histogram of standardised residuals (").Append(w.Count).Append(" observations)</title>\n")
-          .Append("<rect x=\"0\" y=\"0\" width=\"").Append(N(width)).Append("\" height=\"").Append(N(height)).Append("\" fill=\"#FFFFFF\"/>\n");
+          .Append("<rect x=\"0\" y=\"0\" width=\"").Append(N(width)).Append("\" height=\"").Append(N(height))
+          .Append("\" fill=\"#FFFFFF\"/>\n");
         for (int k = 0; k < bins; k++)
         {
             if (counts[k] == 0) continue;
             double d = counts[k] / (w.Count * bin);
             double lo = -lim + (k * bin);
-            sb.Append("<rect class=\"bar\" x=\"").Append(N(X(lo))).Append("\" y=\"").Append(N(Y(d))).Append("\" width=\"").Append(N(X(lo + bin) - X(lo)))
-              .Append("\" height=\"").Append(N(y1 - Y(d))).Append("\" fill=\"").Append(NetworkPlotWriter.FixedColour).Append("\" fill-opacity=\"0.55\" stroke=\"#111111\" stroke-width=\"0.8\"><title>")
-              .Append(counts[k]).Append(" in [").Append(F(lo, 1)).Append(", ").Append(F(lo + bin, 1)).Append(")</title></rect>\n");
+            sb.Append("<rect class=\"bar\" x=\"").Append(N(X(lo))).Append("\" y=\"").Append(N(Y(d)))
+              .Append("\" width=\"").Append(N(X(lo + bin) - X(lo)))
+              .Append("\" height=\"").Append(N(y1 - Y(d))).Append("\" fill=\"").Append(NetworkPlotWriter.FixedColour)
+              .Append("\" fill-opacity=\"0.55\" stroke=\"#111111\" stroke-width=\"0.8\"><title>")
+              .Append(counts[k]).Append(" in [").Append(F(lo, 1)).Append(", ").Append(F(lo + bin, 1))
+              .Append(")</title></rect>\n");
         }
         var curve = new StringBuilder();
         for (int i = 0; i <= 200; i++)
@@ -230,18 +272,27 @@ public static class HtmlReportWriter
             double phi = Math.Exp(-0.5 * v * v) / Math.Sqrt(2 * Math.PI);
             curve.Append(i == 0 ? "" : " ").Append(N(X(v))).Append(',').Append(N(Y(phi)));
         }
-        sb.Append("<polyline class=\"normal-curve\" points=\"").Append(curve).Append("\" fill=\"none\" stroke=\"").Append(NetworkPlotWriter.FailColour).Append("\" stroke-width=\"2\"/>\n");
+        sb.Append("<polyline class=\"normal-curve\" points=\"").Append(curve).Append("\" fill=\"none\" stroke=\"")
+            .Append(NetworkPlotWriter.FailColour).Append("\" stroke-width=\"2\"/>\n");
         foreach (double c in new[] { -critical, critical })
-            sb.Append("<line class=\"critical\" x1=\"").Append(N(X(c))).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(X(c))).Append("\" y2=\"").Append(N(y1))
+            sb.Append("<line class=\"critical\" x1=\"").Append(N(X(c))).Append("\" y1=\"").Append(N(y0))
+              .Append("\" x2=\"").Append(N(X(c))).Append("\" y2=\"").Append(N(y1))
               .Append("\" stroke=\"#111111\" stroke-dasharray=\"5 4\"/>\n");
-        sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y1)).Append("\" x2=\"").Append(N(x1)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
-        sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(x0)).Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
+        sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y1)).Append("\" x2=\"").Append(N(x1))
+            .Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
+        sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(x0))
+            .Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
         for (double t = Math.Ceiling(-lim); t <= Math.Floor(lim) + 1e-9; t += 1)
-            sb.Append("<text x=\"").Append(N(X(t))).Append("\" y=\"").Append(N(y1 + 16)).Append("\" text-anchor=\"middle\">").Append(F(t, 0)).Append("</text>\n");
+            sb.Append("<text x=\"").Append(N(X(t))).Append("\" y=\"").Append(N(y1 + 16))
+                .Append("\" text-anchor=\"middle\">").Append(F(t, 0)).Append("</text>\n");
         for (double d = 0; d <= yMax + 1e-9; d += 0.1)
-            sb.Append("<text x=\"").Append(N(x0 - 6)).Append("\" y=\"").Append(N(Y(d) + 4)).Append("\" text-anchor=\"end\">").Append(F(d, 1)).Append("</text>\n");
-        sb.Append("<text x=\"").Append(N((x0 + x1) / 2)).Append("\" y=\"").Append(N(height - 4)).Append("\" text-anchor=\"middle\">standardised residual w</text>\n");
-        sb.Append("<text x=\"14\" y=\"").Append(N((y0 + y1) / 2)).Append("\" text-anchor=\"middle\" transform=\"rotate(-90 14 ").Append(N((y0 + y1) / 2)).Append(")\">density</text>\n");
+            sb.Append("<text x=\"").Append(N(x0 - 6)).Append("\" y=\"").Append(N(Y(d) + 4))
+                .Append("\" text-anchor=\"end\">").Append(F(d, 1)).Append("</text>\n");
+        sb.Append("<text x=\"").Append(N((x0 + x1) / 2)).Append("\" y=\"").Append(N(height - 4))
+            .Append("\" text-anchor=\"middle\">standardised residual w</text>\n");
+        sb.Append("<text x=\"14\" y=\"").Append(N((y0 + y1) / 2))
+            .Append("\" text-anchor=\"middle\" transform=\"rotate(-90 14 ").Append(N((y0 + y1) / 2))
+            .Append(")\">density</text>\n");
         sb.Append("</svg>\n");
         return sb.ToString();
     }
@@ -333,7 +384,8 @@ public static class HtmlReportWriter
         sb.Append("<dt>").Append(E(term)).Append("</dt><dd>").Append(E(value)).Append("</dd>\n");
 
     private static void Tr(StringBuilder sb, string term, string value) =>
-        sb.Append("<tr><th scope=\"row\">").Append(E(term)).Append("</th><td class=\"num\">").Append(E(value)).Append("</td></tr>\n");
+        sb.Append("<tr><th scope=\"row\">").Append(E(term)).Append("</th><td class=\"num\">").Append(E(value))
+            .Append("</td></tr>\n");
 
     private static string F(double v, int d) => v.ToString("F" + d, Inv);
 
@@ -343,7 +395,8 @@ public static class HtmlReportWriter
 
     private const string Css = """
         :root { color: #111; background: #fff; }
-        body { font-family: Helvetica, Arial, sans-serif; font-size: 14px; line-height: 1.4; margin: 24px auto; max-width: 1000px; padding: 0 16px; }
+        body { font-family: Helvetica, Arial, sans-serif; font-size: 14px; line-height: 1.4; margin: 24px auto;
+        """ + " max-width: 1000px; padding: 0 16px; }\n" + """
         h1 { font-size: 22px; margin: 0 0 8px; }
         h2 { font-size: 18px; border-bottom: 2px solid #0072B2; padding-bottom: 2px; margin-top: 28px; }
         h3 { font-size: 15px; }

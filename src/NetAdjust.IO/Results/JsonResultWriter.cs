@@ -22,11 +22,13 @@ public static class JsonResultWriter
     /// <summary>The format identifier written under <c>format</c>.</summary>
     public const string Format = "netadjust-result/1";
 
-    /// <summary>Options of the JSON outputs: two-space indentation, LF line ends, non-ASCII text as is (UTF-8).</summary>
+    /// <summary>Options of the JSON outputs: two-space indentation, LF line ends, non-ASCII text as is
+    /// (UTF-8).</summary>
     internal static readonly JsonWriterOptions WriterOptions =
         new() { Indented = true, NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
 
-    /// <summary>The same options for the serialiser, over the source-generated metadata of <see cref="ResultJson"/>.</summary>
+    /// <summary>The same options for the serialiser, over the source-generated metadata of <see
+    /// cref="ResultJson"/>.</summary>
     private static readonly JsonSerializerOptions SerializerOptions = new(ResultJsonContext.Default.Options)
     {
         NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,

@@ -37,7 +37,8 @@ internal sealed record PointRow(AdjustedPoint Source, double? SdE, double? SdN, 
     public static string Weights(Point p) =>
         (p.SdE.HasValue ? "e" : "") + (p.SdN.HasValue ? "n" : "") + (p.SdH.HasValue ? "h" : "");
 
-    /// <summary>Azimuth of the ellipse's semi-major axis in degrees, rounded to the exchange files' 4 decimals.</summary>
+    /// <summary>Azimuth of the ellipse's semi-major axis in degrees, rounded to the exchange files' 4
+    /// decimals.</summary>
     public double? EllipseAzimuthDegrees => Ellipse is ErrorEllipse e ? e.AzimuthDegreesRounded(AzimuthDecimals) : null;
 
     /// <summary>Decimals of the ellipse azimuth in degrees in the exchange files.</summary>

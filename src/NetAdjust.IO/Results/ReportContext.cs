@@ -9,7 +9,8 @@ namespace NetAdjust.IO.Results;
 /// <param name="Units">The units of the text report.</param>
 public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUnits Units)
 {
-    /// <summary>When true, the text report lists every observation's error budget, not only the summary per group.</summary>
+    /// <summary>When true, the text report lists every observation's error budget, not only the summary per
+    /// group.</summary>
     public bool ObservationBudgets { get; init; }
 
     /// <summary>The project's coordinate reference system (<c>EPSG:code</c>), or null for local coordinates.</summary>

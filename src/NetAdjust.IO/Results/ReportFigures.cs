@@ -29,11 +29,13 @@ internal static class ReportFigures
 
     /// <summary>True when the point is held fixed in both plan coordinates.</summary>
     /// <param name="p">The point.</param>
-    public static bool IsPlanFixed(AdjustedPoint p) => p.Input.IsFixed(Network.Fixity.E) && p.Input.IsFixed(Network.Fixity.N);
+    public static bool IsPlanFixed(AdjustedPoint p) => p.Input.IsFixed(Network.Fixity.E) &&
+        p.Input.IsFixed(Network.Fixity.N);
 
     /// <summary>True when the point has adjusted or held plan coordinates.</summary>
     /// <param name="p">The point.</param>
-    public static bool HasPlan(AdjustedPoint p) => p.E is double e && p.N is double n && double.IsFinite(e) && double.IsFinite(n);
+    public static bool HasPlan(AdjustedPoint p) => p.E is double e && p.N is double n && double.IsFinite(e) &&
+        double.IsFinite(n);
 
     /// <summary>The role in words, as printed in reports and exchange files.</summary>
     /// <param name="role">The role.</param>
@@ -44,11 +46,13 @@ internal static class ReportFigures
         _ => "new point",
     };
 
-    /// <summary>The observations with the largest |w|, largest first (ties by input order); empty without w-values.</summary>
+    /// <summary>The observations with the largest |w|, largest first (ties by input order); empty without
+    /// w-values.</summary>
     /// <param name="r">The result.</param>
     /// <param name="w">Standardised residuals by observation index, or null.</param>
     /// <param name="count">How many to return at most.</param>
-    public static List<(AdjustedObservation Observation, double W)> Worst(AdjustmentResult r, IReadOnlyList<double?>? w, int count)
+    public static List<(AdjustedObservation Observation, double W)> Worst(AdjustmentResult r, IReadOnlyList<double?>? w,
+        int count)
     {
         if (w is null) return [];
         return r.Observations.Where(o => o.Index < w.Count && w[o.Index] is double x && double.IsFinite(x))
@@ -61,7 +65,8 @@ internal static class ReportFigures
     /// <param name="p">The point.</param>
     public static PointRole Role(AdjustedPoint p) =>
         IsPlanFixed(p) ? PointRole.Fixed
-        : p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.IsFixed(Network.Fixity.E) || p.Input.IsFixed(Network.Fixity.N) ? PointRole.Weighted
+        : p.Input.SdE.HasValue || p.Input.SdN.HasValue || p.Input.IsFixed(Network.Fixity.E) ||
+            p.Input.IsFixed(Network.Fixity.N) ? PointRole.Weighted
         : PointRole.New;
 }
 

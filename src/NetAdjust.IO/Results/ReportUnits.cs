@@ -29,16 +29,21 @@ internal sealed class ReportUnits
     public string SmallAngleSymbol => Units.AngleSd.Symbol();
 
     /// <summary>The angle format in words.</summary>
-    public string AngleName => Units.Angle switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ => "gons" };
+    public string AngleName =>
+        Units.Angle switch { AngleFormat.Dms => "DMS (d-mm-ss)", AngleFormat.Degrees => "decimal degrees", _ =>
+        "gons" };
 
     /// <summary>A coordinate or distance, or "-" when absent.</summary>
-    public string Length(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+    public string Length(double? metres) => metres is double m &&
+        double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
 
     /// <summary>A standard deviation or residual length, or "-" when absent.</summary>
-    public string SmallLength(double? metres) => metres is double m && double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+    public string SmallLength(double? metres) => metres is double m &&
+        double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
 
     /// <summary>An angle value in the project's angle format.</summary>
-    public string AngleValue(double radians) => _ang.FormatDirection(Angle.FromRadians(radians)); // in [0, 360) after rounding
+    // in [0, 360) after rounding
+    public string AngleValue(double radians) => _ang.FormatDirection(Angle.FromRadians(radians));
 
     /// <summary>A small angle (sd, residual) in arcsec or mgon, 2 decimals.</summary>
     public string SmallAngle(double radians) => (radians / Units.AngleSd.RadiansPerUnit()).ToString("F2", Inv);
@@ -47,12 +52,15 @@ internal sealed class ReportUnits
     public string ObservationValue(ObservationKind kind, double si) => kind.IsAngular() ? AngleValue(si) : Length(si);
 
     /// <summary>A residual or standard deviation of an observation.</summary>
-    public string ObservationSmall(ObservationKind kind, double si) => kind.IsAngular() ? SmallAngle(si) : SmallLength(si);
+    public string ObservationSmall(ObservationKind kind, double si) => kind.IsAngular() ? SmallAngle(si) :
+        SmallLength(si);
 
-    /// <summary>An azimuth in [0, π) as an angle in the project's format (one decimal of seconds, or 2 decimals).</summary>
+    /// <summary>An azimuth in [0, π) as an angle in the project's format (one decimal of seconds, or 2
+    /// decimals).</summary>
     public string Azimuth(double radians)
     {
-        var pattern = Units.Angle == AngleFormat.Dms ? new AnglePattern(AngleFormat.Dms, 0) : new AnglePattern(Units.Angle, 2);
+        var pattern = Units.Angle == AngleFormat.Dms ? new AnglePattern(AngleFormat.Dms, 0) :
+            new AnglePattern(Units.Angle, 2);
         string text = pattern.Format(Angle.FromRadians(radians));
         var back = pattern.Parse(text); // rounded up to a half turn (180-00-00, 200.00 gon): the axis points at 0
         return back.Success && back.Value.Radians >= Math.PI - 1e-12 ? pattern.Format(Angle.FromRadians(0)) : text;

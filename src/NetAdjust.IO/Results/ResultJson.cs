@@ -110,7 +110,8 @@ internal static class ResultJson
 
     internal sealed record Testing(string VarianceFactorBasis, double VarianceFactorUsed, double WAlpha,
         double WCritical, double TypeIIError, double Delta0, double TauAlpha, string TauAdjustment, double? TauCritical,
-        double Confidence, double EllipseScale, double IntervalScale, bool ExternalReliabilityComputed, double RedundancySum);
+        double Confidence, double EllipseScale, double IntervalScale, bool ExternalReliabilityComputed,
+            double RedundancySum);
 
     internal sealed record Relative(string From, string To, double A, double B, double Azimuth, double A95, double B95,
         double Distance, double SdDistance, double? Ratio, double SdAzimuth, bool Observed);
@@ -140,7 +141,8 @@ internal static class ResultJson
         double? SdScale, double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note);
 
     /// <summary>The sequence document: both solutions, the constraint test, discrepancies and shifts.</summary>
-    internal sealed record Sequence(string Format, string Generator, string MinimalDatum, IEnumerable<Document> Solutions,
+    internal sealed record Sequence(string Format, string Generator, string MinimalDatum,
+        IEnumerable<Document> Solutions,
         ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies,
         IEnumerable<Shift> CoordinateShifts, IEnumerable<Testability> ControlTestability);
 

@@ -338,7 +338,10 @@ internal static class StatisticsReport
         var line = new StringBuilder();
         foreach (var word in text.Split(' '))
         {
-            if (line.Length > 0 && line.Length + 1 + word.Length > width) { yield return line.ToString(); line.Clear().Append("  "); }
+            if (line.Length > 0 && line.Length + 1 + word.Length > width)
+            {
+                yield return line.ToString(); line.Clear().Append("  ");
+            }
             if (line.Length > 0 && line.ToString() != "  ") line.Append(' ');
             line.Append(word);
         }

@@ -18,7 +18,8 @@ internal static class TextReportSections
     public static void Datum(StringBuilder sb, AdjustmentResult r, ReportContext c)
     {
         Wrapped(sb, "Datum     : ", DatumText(r));
-        Wrapped(sb, "Grid      : ", c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs);
+        Wrapped(sb, "Grid      : ",
+            c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs);
     }
 
     /// <summary>"held A (en), B (h); weighted C (en)" for the points that define the datum.</summary>
@@ -30,7 +31,8 @@ internal static class TextReportSections
             .Select(p => $"{p.Id} ({PointRow.Weights(p.Input)})").ToList();
         // Minimal or inner constraints set the control aside: say which datum was used instead.
         if (r.Options.Datum.Mode != Adjustment.Datum.DatumMode.Control) return r.Options.Datum.Describe();
-        return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " + (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
+        return "held " + (held.Count == 0 ? "none" : string.Join(", ", held)) + "; weighted " +
+            (weighted.Count == 0 ? "none" : string.Join(", ", weighted));
     }
 
     /// <summary>The survey's particulars, one "Label     : text" line each (wrapped), when the project gives them.
@@ -51,15 +53,19 @@ internal static class TextReportSections
             sb.Append("  Largest standardised residuals: none (no observation can be tested)\n");
             return;
         }
-        sb.Append("  Largest standardised residuals |w| (w-test critical value ").Append(ReportUnits.F(report.WCritical, 2)).Append("):\n");
+        sb.Append("  Largest standardised residuals |w| (w-test critical value ")
+            .Append(ReportUnits.F(report.WCritical, 2)).Append("):\n");
         foreach (var (o, wi) in worst)
         {
-            string line = $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  {(Math.Abs(wi) > report.WCritical ? "FAILS" : "passes")}  {o.Input.Describe()}";
+            string line =
+                $"    #{o.Index + 1,-4} w = {ReportUnits.F(wi, 2),7}  " +
+                $"{(Math.Abs(wi) > report.WCritical ? "FAILS" : "passes")}  {o.Input.Describe()}";
             sb.Append(TextReportWriter.Clip(line, MaxWidth)).Append('\n');
         }
     }
 
-    /// <summary>Writes label + text, wrapping at spaces so no line passes <see cref="MaxWidth"/>; continuation lines are indented.</summary>
+    /// <summary>Writes label + text, wrapping at spaces so no line passes <see cref="MaxWidth"/>; continuation lines
+    /// are indented.</summary>
     internal static void Wrapped(StringBuilder sb, string label, string text)
     {
         string indent = new(' ', label.Length);

@@ -68,7 +68,9 @@ public static class TextReportWriter
         if (g.Passed is bool passed)
         {
             Line($"  Global test (chi-square, two-tailed, alpha {F(g.Alpha, 3)}): {(passed ? "PASSED" : "FAILED")}");
-            Line($"    vTPv / a-priori variance factor = {F(g.Statistic, 3)}; accepted from {F(g.Lower!.Value, 3)} to {F(g.Upper!.Value, 3)}");
+            Line(
+                $"    vTPv / a-priori variance factor = {F(g.Statistic, 3)}; accepted from {F(g.Lower!.Value, 3)} to " +
+                $"{F(g.Upper!.Value, 3)}");
         }
         else
             Line("  Global test: not possible (no redundancy)");
@@ -88,15 +90,23 @@ public static class TextReportWriter
         }
         Line();
 
-        Line($"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {units.AngleName}, angular sd {au})");
-        Line($"  {"#",4} {"Kind",-9} {"At",-8} {"From",-8} {"To",-8} {"Observed",14} {"Adjusted",14} {"Residual",9} {"sd",7}");
+        Line(
+            $"OBSERVATIONS (residual v = adjusted - observed; lengths {lu}, angles {units.AngleName}, angular sd " +
+            $"{au})");
+        Line(
+            $"  {"#",4} {"Kind",-9} {"At",-8} {"From",-8} {"To",-8} {"Observed",14} {"Adjusted",14} {"Residual",9} " +
+            $"{"sd",7}");
         foreach (var row in report.Observations.Rows)
         {
             var i = row.Input;
             var k = i.Kind;
-            Line($"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(i.At ?? "", 8),-8} {Clip(row.FromShown, 8),-8} " +
-                 $"{Clip(i.To, 8),-8} {units.ObservationValue(k, i.Value),14} {units.ObservationValue(k, row.Source.Adjusted),14} " +
-                 $"{units.ObservationSmall(k, row.Source.Residual),9} {units.ObservationSmall(k, i.StandardDeviation),7}");
+            Line(
+                $"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(i.At ?? "", 8),-8} " +
+                $"{Clip(row.FromShown, 8),-8} " +
+                 $"{Clip(i.To, 8),-8} {units.ObservationValue(k, i.Value),14} " +
+                     $"{units.ObservationValue(k, row.Source.Adjusted),14} " +
+                 $"{units.ObservationSmall(k, row.Source.Residual),9} " +
+                     $"{units.ObservationSmall(k, i.StandardDeviation),7}");
         }
         Line();
 

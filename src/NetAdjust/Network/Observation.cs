@@ -2,7 +2,8 @@ using NetAdjust.Units;
 
 namespace NetAdjust.Network;
 
-/// <summary>The kinds of observation. The JSON and report names are given by <see cref="ObservationKinds.Name"/>.</summary>
+/// <summary>The kinds of observation. The JSON and report names are given by
+/// <see cref="ObservationKinds.Name"/>.</summary>
 public enum ObservationKind
 {
     /// <summary>Horizontal distance.</summary>
@@ -115,7 +116,9 @@ public abstract record Observation
     /// <summary>A short description for messages, e.g. <c>distance T1→T2 (site.yaml:41)</c>.</summary>
     public string Describe()
     {
-        string what = Kind == ObservationKind.Angle ? $"angle at {At} from {From} to {To}" : $"{Kind.Name().Replace('_', ' ')} {From}→{To}";
+        string what = Kind == ObservationKind.Angle
+            ? $"angle at {At} from {From} to {To}"
+            : $"{Kind.Name().Replace('_', ' ')} {From}→{To}";
         return Source is null ? what : $"{what} ({Source})";
     }
 }
@@ -146,7 +149,8 @@ public sealed record DistanceObservation(string From, string To, Length Distance
 /// <param name="Station">The instrument point.</param>
 /// <param name="Target">The target point.</param>
 /// <param name="Reading">The circle reading.</param>
-/// <param name="SetId">The set's id, unique in the network; all directions of a set share its orientation unknown.</param>
+/// <param name="SetId">The set's id, unique in the network; all directions of a set share its orientation
+/// unknown.</param>
 public sealed record DirectionObservation(string Station, string Target, Angle Reading, string SetId) : Observation
 {
     /// <inheritdoc />
@@ -212,7 +216,8 @@ public sealed record AzimuthObservation(string From, string To, Angle Azimuth) :
 /// <param name="To">The forward point.</param>
 /// <param name="Difference">The measured height difference H(to) − H(from).</param>
 /// <param name="LineLength">The levelled length of the section, for weighting; null when not given.</param>
-public sealed record HeightDifferenceObservation(string From, string To, Length Difference, Length? LineLength = null) : Observation
+public sealed record HeightDifferenceObservation(string From, string To, Length Difference, Length? LineLength = null) :
+    Observation
 {
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.HeightDifference;

@@ -37,7 +37,9 @@ public sealed record EdmSpecification
     /// <returns>The specification, or a message naming what is wrong.</returns>
     public static ParseResult<EdmSpecification> Parse(string? text, LengthUnit unit)
     {
-        if (string.IsNullOrWhiteSpace(text)) return ParseResult<EdmSpecification>.Fail("an EDM specification such as '3 mm + 2 ppm' is required, but the text is empty");
+        if (string.IsNullOrWhiteSpace(text))
+            return ParseResult<EdmSpecification>.Fail(
+                "an EDM specification such as '3 mm + 2 ppm' is required, but the text is empty");
         string t = text.Trim();
         string[] parts = t.Split('+');
         double a = 0, b = 0;
@@ -45,22 +47,28 @@ public sealed record EdmSpecification
         foreach (string raw in parts)
         {
             string p = raw.Trim();
-            if (p.Length == 0) return ParseResult<EdmSpecification>.Fail($"'{t}' is not an EDM specification: write it as 'a mm + b ppm', e.g. '3 mm + 2 ppm'");
+            if (p.Length == 0)
+                return ParseResult<EdmSpecification>.Fail(
+                    $"'{t}' is not an EDM specification: write it as 'a mm + b ppm', e.g. '3 mm + 2 ppm'");
             if (p.EndsWith("ppm", StringComparison.Ordinal))
             {
                 string num = p[..^3].Trim();
                 if (seenB) return ParseResult<EdmSpecification>.Fail($"'{t}' gives the ppm part twice");
-                if (!AnglePattern.TryNumber(num, out b)) return ParseResult<EdmSpecification>.Fail($"'{num}' in '{t}' is not a number of ppm");
+                if (!AnglePattern.TryNumber(num, out b))
+                    return ParseResult<EdmSpecification>.Fail($"'{num}' in '{t}' is not a number of ppm");
                 if (b < 0) return ParseResult<EdmSpecification>.Fail($"the ppm part in '{t}' must not be negative");
                 seenB = true;
             }
             else
             {
-                if (seenA) return ParseResult<EdmSpecification>.Fail($"'{t}' gives the constant part twice, or its second part lacks 'ppm'");
+                if (seenA)
+                    return ParseResult<EdmSpecification>.Fail(
+                        $"'{t}' gives the constant part twice, or its second part lacks 'ppm'");
                 var r = new LengthPattern(unit, 4).Parse(p);
                 if (!r.Success) return ParseResult<EdmSpecification>.Fail($"the constant part of '{t}': {r.Error}");
                 a = r.Value.Metres;
-                if (a < 0) return ParseResult<EdmSpecification>.Fail($"the constant part in '{t}' must not be negative");
+                if (a < 0)
+                    return ParseResult<EdmSpecification>.Fail($"the constant part in '{t}' must not be negative");
                 seenA = true;
             }
         }
@@ -76,13 +84,16 @@ public sealed record TotalStationSpecification
 {
     /// <summary>Creates a specification.</summary>
     /// <param name="id">The name used in the project file.</param>
-    /// <param name="directionSd">ISO 17123-3 σ of a horizontal direction observed once in both faces, radians (&gt; 0).</param>
-    /// <param name="zenithSd">ISO 17123-3 σ of a zenith angle observed once in both faces, radians (≥ 0; 0 when not given). Stored for 3D use.</param>
+    /// <param name="directionSd">ISO 17123-3 σ of a horizontal direction observed once in both faces,
+    /// radians (&gt; 0).</param>
+    /// <param name="zenithSd">ISO 17123-3 σ of a zenith angle observed once in both faces, radians (≥ 0; 0 when not
+    /// given). Stored for 3D use.</param>
     /// <param name="edm">The EDM specification; null when the instrument measures no distances.</param>
     /// <param name="centeringSd">Instrument centering σ per axis, metres (≥ 0).</param>
     /// <param name="heightSd">Instrument height measurement σ, metres (≥ 0). Stored for 3D use.</param>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>
-    public TotalStationSpecification(string id, double directionSd, double zenithSd, EdmSpecification? edm, double centeringSd, double heightSd)
+    public TotalStationSpecification(string id, double directionSd, double zenithSd, EdmSpecification? edm,
+        double centeringSd, double heightSd)
     {
         Id = id;
         Checks.Positive(directionSd, $"the direction standard deviation of instrument {id}");
@@ -164,7 +175,8 @@ public sealed record ObservingProcedure
     /// <exception cref="InvalidInputException">When sets is out of range.</exception>
     public ObservingProcedure(int sets, Faces faces)
     {
-        if (sets is < 1 or > 1000) throw new InvalidInputException($"the number of sets must be a whole number from 1 to 1000, not {sets}");
+        if (sets is < 1 or > 1000)
+            throw new InvalidInputException($"the number of sets must be a whole number from 1 to 1000, not {sets}");
         Sets = sets;
         Faces = faces;
     }
@@ -217,11 +229,13 @@ public sealed record LevelSpecification
     /// <param name="resolution">The reading resolution d, metres (≥ 0; 0 when rounding is negligible).</param>
     /// <param name="rounding">How the rounding to d is counted.</param>
     /// <exception cref="InvalidInputException">When a value is out of range or both are zero.</exception>
-    public static LevelSpecification PerReading(string id, double readingSd, double resolution, RoundingTreatment rounding)
+    public static LevelSpecification PerReading(string id, double readingSd, double resolution,
+        RoundingTreatment rounding)
     {
         Checks.NonNegative(readingSd, $"the reading standard deviation of level {id}");
         Checks.NonNegative(resolution, $"the reading resolution of level {id}");
-        if (readingSd == 0 && resolution == 0) throw new InvalidInputException($"level {id}: give a positive reading standard deviation or resolution");
+        if (readingSd == 0 && resolution == 0)
+            throw new InvalidInputException($"level {id}: give a positive reading standard deviation or resolution");
         return new(id, null, readingSd, resolution, rounding);
     }
 
@@ -244,17 +258,23 @@ public sealed record LevelSpecification
     public double RoundingSd => Rounding == RoundingTreatment.Uniform ? Resolution / Math.Sqrt(12.0) : Resolution / 2.0;
 }
 
-/// <summary>How one levelling section was run: the number of instrument setups in one run, and how many runs are meaned.</summary>
+/// <summary>How one levelling section was run: the number of instrument setups in one run, and how many runs are
+/// meaned.</summary>
 public sealed record LevellingProcedure
 {
     /// <summary>Creates a procedure.</summary>
-    /// <param name="setups">Instrument setups in one run of the section (1..100000); each gives a backsight and a foresight reading.</param>
+    /// <param name="setups">Instrument setups in one run of the section (1..100000); each gives a backsight and a
+    /// foresight reading.</param>
     /// <param name="runs">Independent runs meaned (1 = single run, 2 = double run; 1..100).</param>
     /// <exception cref="InvalidInputException">When a count is out of range.</exception>
     public LevellingProcedure(int setups, int runs)
     {
-        if (setups is < 1 or > 100000) throw new InvalidInputException($"the number of level setups must be a whole number from 1 to 100000, not {setups}");
-        if (runs is < 1 or > 100) throw new InvalidInputException($"the number of levelling runs must be a whole number from 1 to 100, not {runs}");
+        if (setups is < 1 or > 100000)
+            throw new InvalidInputException(
+                $"the number of level setups must be a whole number from 1 to 100000, not {setups}");
+        if (runs is < 1 or > 100)
+            throw new InvalidInputException(
+                $"the number of levelling runs must be a whole number from 1 to 100, not {runs}");
         Setups = setups;
         Runs = runs;
     }

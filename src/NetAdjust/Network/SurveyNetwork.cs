@@ -26,9 +26,12 @@ public sealed class SurveyNetwork
             string at = p.Source is null ? "" : $"{p.Source}: ";
             if (string.IsNullOrWhiteSpace(p.Id)) { problems.Add($"{at}a point has an empty id"); continue; }
             if (!_index.TryAdd(p.Id, i)) problems.Add($"{at}point {p.Id} is defined twice");
-            if (p.IsFixed(Fixity.E) && p.E is null) problems.Add($"{at}point {p.Id} holds its easting fixed but gives no easting");
-            if (p.IsFixed(Fixity.N) && p.N is null) problems.Add($"{at}point {p.Id} holds its northing fixed but gives no northing");
-            if (p.IsFixed(Fixity.H) && p.H is null) problems.Add($"{at}point {p.Id} holds its height fixed but gives no height");
+            if (p.IsFixed(Fixity.E) && p.E is null)
+                problems.Add($"{at}point {p.Id} holds its easting fixed but gives no easting");
+            if (p.IsFixed(Fixity.N) && p.N is null)
+                problems.Add($"{at}point {p.Id} holds its northing fixed but gives no northing");
+            if (p.IsFixed(Fixity.H) && p.H is null)
+                problems.Add($"{at}point {p.Id} holds its height fixed but gives no height");
             CheckWeighted(p, p.SdE, p.E, Fixity.E, "easting", at, problems);
             CheckWeighted(p, p.SdN, p.N, Fixity.N, "northing", at, problems);
             CheckWeighted(p, p.SdH, p.H, Fixity.H, "height", at, problems);
@@ -37,8 +40,10 @@ public sealed class SurveyNetwork
         foreach (var o in Observations)
         {
             foreach (var id in o.Points)
-                if (!_index.ContainsKey(id)) problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
-            if (o.From == o.To || (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
+                if (!_index.ContainsKey(id))
+                    problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
+            if (o.From == o.To ||
+                (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
                 problems.Add($"{o.Describe()}: an observation needs distinct points");
             bool derived = o.Weighting is not null && double.IsNaN(o.StandardDeviation);
             if (!derived && (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation)))
@@ -46,7 +51,8 @@ public sealed class SurveyNetwork
             if (!(o.SdFactor > 0) || !double.IsFinite(o.SdFactor))
                 problems.Add($"{o.Describe()}: the standard deviation factor must be positive");
             if (!double.IsFinite(o.Value)) problems.Add($"{o.Describe()}: the value is not a finite number");
-            if (o.Kind == ObservationKind.Distance && !(o.Value > 0)) problems.Add($"{o.Describe()}: a distance must be positive");
+            if (o.Kind == ObservationKind.Distance && !(o.Value > 0))
+                problems.Add($"{o.Describe()}: a distance must be positive");
             if (o is DirectionObservation d)
             {
                 if (sets.TryGetValue(d.SetId, out var st) && st != d.Station)
@@ -55,13 +61,16 @@ public sealed class SurveyNetwork
             }
         }
         if (problems.Count > 0)
-            throw new InvalidInputException("The network is not valid:" + Environment.NewLine + "  " + string.Join(Environment.NewLine + "  ", problems));
+            throw new InvalidInputException("The network is not valid:" + Environment.NewLine + "  " +
+                string.Join(Environment.NewLine + "  ", problems));
     }
 
-    private static void CheckWeighted(Point p, double? sd, double? value, Fixity c, string name, string at, List<string> problems)
+    private static void CheckWeighted(Point p, double? sd, double? value, Fixity c, string name, string at,
+        List<string> problems)
     {
         if (sd is null) return;
-        if (!(sd > 0) || !double.IsFinite(sd.Value)) problems.Add($"{at}point {p.Id}: the standard deviation of its {name} must be positive");
+        if (!(sd > 0) || !double.IsFinite(sd.Value))
+            problems.Add($"{at}point {p.Id}: the standard deviation of its {name} must be positive");
         if (value is null) problems.Add($"{at}point {p.Id} weights its {name} but gives no {name}");
         if (p.IsFixed(c)) problems.Add($"{at}point {p.Id} both fixes and weights its {name}: choose one");
     }

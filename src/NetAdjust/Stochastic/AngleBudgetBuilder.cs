@@ -25,10 +25,12 @@ public static class AngleBudgetBuilder
     /// <param name="backsightDistance">D_b, metres (&gt; 0).</param>
     /// <param name="foresightDistance">D_f, metres (&gt; 0).</param>
     /// <param name="angle">β, radians.</param>
-    /// <returns>Contributions <c>pointing_reading</c>, <c>instrument_centering</c>, <c>backsight_centering</c>, <c>foresight_centering</c> (radians).</returns>
+    /// <returns>Contributions <c>pointing_reading</c>, <c>instrument_centering</c>, <c>backsight_centering</c>,
+    /// <c>foresight_centering</c> (radians).</returns>
     /// <exception cref="InvalidInputException">When a distance is not positive or the angle is not finite.</exception>
-    public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? backsightTarget, TargetSpecification? foresightTarget,
-        ObservingProcedure procedure, double backsightDistance, double foresightDistance, double angle)
+    public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? backsightTarget,
+        TargetSpecification? foresightTarget, ObservingProcedure procedure, double backsightDistance,
+        double foresightDistance, double angle)
     {
         ArgumentNullException.ThrowIfNull(instrument);
         ArgumentNullException.ThrowIfNull(procedure);
@@ -39,13 +41,15 @@ public static class AngleBudgetBuilder
         return new ErrorBudget(
         [
             new(ContributionNames.PointingReading, pointing),
-            new(ContributionNames.InstrumentCentering, instrument.CenteringSd * CenteringFactor(backsightDistance, foresightDistance, angle)),
+            new(ContributionNames.InstrumentCentering,
+                instrument.CenteringSd * CenteringFactor(backsightDistance, foresightDistance, angle)),
             new(ContributionNames.BacksightCentering, (backsightTarget?.CenteringSd ?? 0.0) / backsightDistance),
             new(ContributionNames.ForesightCentering, (foresightTarget?.CenteringSd ?? 0.0) / foresightDistance),
         ]);
     }
 
-    /// <summary>D₃/(D_b D_f) = √(D_b² + D_f² − 2 D_b D_f cos β)/(D_b D_f), 1/m: the angle error per metre of instrument offset.</summary>
+    /// <summary>D₃/(D_b D_f) = √(D_b² + D_f² − 2 D_b D_f cos β)/(D_b D_f), 1/m: the angle error per metre of instrument
+    /// offset.</summary>
     /// <param name="backsightDistance">D_b, metres.</param>
     /// <param name="foresightDistance">D_f, metres.</param>
     /// <param name="angle">β, radians.</param>

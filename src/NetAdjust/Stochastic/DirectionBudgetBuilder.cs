@@ -9,7 +9,8 @@ namespace NetAdjust.Stochastic;
 /// standard deviation of a direction observed once in both faces, i.e. the mean of two face readings; one face
 /// alone is therefore √2 worse, and n sets are a redundant measurement (E/√n);</item>
 /// <item>instrument centering σ_i/D and target centering σ_t/D (radians): a centering offset across the line of sight
-/// of σ (per axis) turns the direction by σ/D. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., ch. 6 (from memory).</item>
+/// of σ (per axis) turns the direction by σ/D. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., ch. 6 (from
+/// memory).</item>
 /// </list>
 /// </summary>
 public static class DirectionBudgetBuilder
@@ -18,10 +19,13 @@ public static class DirectionBudgetBuilder
     /// <param name="instrument">The total station.</param>
     /// <param name="target">The target; null for none (centering not counted).</param>
     /// <param name="procedure">Sets and faces.</param>
-    /// <param name="distance">The sight length D, metres (&gt; 0): the observed distance, or one computed from approximate coordinates.</param>
-    /// <returns>Contributions <c>pointing_reading</c>, <c>instrument_centering</c>, <c>target_centering</c> (radians).</returns>
+    /// <param name="distance">The sight length D, metres (&gt; 0): the observed distance, or one computed from
+    /// approximate coordinates.</param>
+    /// <returns>Contributions <c>pointing_reading</c>, <c>instrument_centering</c>, <c>target_centering</c>
+    /// (radians).</returns>
     /// <exception cref="InvalidInputException">When D is not positive.</exception>
-    public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? target, ObservingProcedure procedure, double distance)
+    public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? target,
+        ObservingProcedure procedure, double distance)
     {
         ArgumentNullException.ThrowIfNull(instrument);
         ArgumentNullException.ThrowIfNull(procedure);

@@ -15,12 +15,15 @@ public static class DistanceBudgetBuilder
     /// <param name="instrument">The total station (must have an EDM specification).</param>
     /// <param name="target">The target; null for none (e.g. reflectorless, centering not counted).</param>
     /// <param name="distance">The distance D, metres (&gt; 0): the observed distance.</param>
-    /// <returns>Contributions <c>edm_constant</c>, <c>edm_proportional</c>, <c>instrument_centering</c>, <c>target_centering</c> (metres).</returns>
-    /// <exception cref="InvalidInputException">When the instrument has no EDM specification or D is not positive.</exception>
+    /// <returns>Contributions <c>edm_constant</c>, <c>edm_proportional</c>, <c>instrument_centering</c>,
+    /// <c>target_centering</c> (metres).</returns>
+    /// <exception cref="InvalidInputException">When the instrument has no EDM specification or D is not
+    /// positive.</exception>
     public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? target, double distance)
     {
         ArgumentNullException.ThrowIfNull(instrument);
-        var edm = instrument.Edm ?? throw new InvalidInputException($"instrument {instrument.Id} has no EDM specification, so it cannot weight a distance");
+        var edm = instrument.Edm ?? throw new InvalidInputException(
+            $"instrument {instrument.Id} has no EDM specification, so it cannot weight a distance");
         Checks.Positive(distance, "the distance");
         return new ErrorBudget(
         [

@@ -14,8 +14,10 @@ public sealed class ErrorBudget
     private readonly ErrorContribution[] _items;
 
     /// <summary>Creates a budget.</summary>
-    /// <param name="contributions">The contributions in the order they should be shown; names distinct, values ≥ 0 and finite.</param>
-    /// <exception cref="ArgumentException">When a name repeats or is empty, a value is negative or not finite, or the total is 0.</exception>
+    /// <param name="contributions">The contributions in the order they should be shown; names distinct, values ≥ 0 and
+    /// finite.</param>
+    /// <exception cref="ArgumentException">When a name repeats or is empty, a value is negative or not finite, or the
+    /// total is 0.</exception>
     public ErrorBudget(IEnumerable<ErrorContribution> contributions)
     {
         ArgumentNullException.ThrowIfNull(contributions);
@@ -23,13 +25,19 @@ public sealed class ErrorBudget
         var names = new HashSet<string>(StringComparer.Ordinal);
         foreach (var c in _items)
         {
-            if (string.IsNullOrWhiteSpace(c.Name)) throw new ArgumentException("an error contribution needs a name", nameof(contributions));
-            if (!names.Add(c.Name)) throw new ArgumentException($"the error contribution '{c.Name}' appears twice", nameof(contributions));
+            if (string.IsNullOrWhiteSpace(c.Name))
+                throw new ArgumentException("an error contribution needs a name", nameof(contributions));
+            if (!names.Add(c.Name))
+                throw new ArgumentException($"the error contribution '{c.Name}' appears twice", nameof(contributions));
             if (!(c.Value >= 0) || !double.IsFinite(c.Value))
-                throw new ArgumentException($"the error contribution '{c.Name}' must be zero or positive and finite, not {c.Value}", nameof(contributions));
+                throw new ArgumentException(
+                    $"the error contribution '{c.Name}' must be zero or positive and finite, not {c.Value}",
+                    nameof(contributions));
         }
         Total = ErrorPropagation.Sum(_items.Select(c => c.Value).ToArray());
-        if (!(Total > 0)) throw new ArgumentException("an error budget must have a positive total: every contribution is zero", nameof(contributions));
+        if (!(Total > 0))
+            throw new ArgumentException("an error budget must have a positive total: every contribution is zero",
+                nameof(contributions));
     }
 
     /// <summary>The contributions, in order.</summary>
@@ -71,7 +79,8 @@ public static class ContributionNames
     /// <summary>Centering of the foresight target of an angle.</summary>
     public const string ForesightCentering = "foresight_centering";
 
-    /// <summary>Pointing and reading of the horizontal circle, from the ISO 17123-3 σ, the sets and the faces.</summary>
+    /// <summary>Pointing and reading of the horizontal circle, from the ISO 17123-3 σ, the sets and the
+    /// faces.</summary>
     public const string PointingReading = "pointing_reading";
 
     /// <summary>Pointing and reading of the vertical circle, from the ISO 17123-3 zenith σ, the sets and the

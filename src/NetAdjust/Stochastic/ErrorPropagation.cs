@@ -5,8 +5,8 @@ namespace NetAdjust.Stochastic;
 /// <summary>
 /// The elementary rules of error propagation for independent random errors, and the general law of propagation
 /// of variances. Each rule is the law Σy = J Σx Jᵀ applied to a simple function; see docs/methods.md
-/// ("Error propagation") and e.g. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., Wiley, chapter 6 (from memory),
-/// or Koch (1999), <i>Parameter Estimation and Hypothesis Testing in Linear Models</i>, §2.2.
+/// ("Error propagation") and e.g. Ghilani (2017), <i>Adjustment Computations</i>, 6th ed., Wiley, chapter 6
+/// (from memory), or Koch (1999), <i>Parameter Estimation and Hypothesis Testing in Linear Models</i>, §2.2.
 /// </summary>
 public static class ErrorPropagation
 {
@@ -70,15 +70,18 @@ public static class ErrorPropagation
     {
         ArgumentNullException.ThrowIfNull(jacobian);
         ArgumentNullException.ThrowIfNull(covariance);
-        if (covariance.RowCount != covariance.ColumnCount) throw new ArgumentException("the covariance matrix must be square", nameof(covariance));
+        if (covariance.RowCount != covariance.ColumnCount)
+            throw new ArgumentException("the covariance matrix must be square", nameof(covariance));
         if (jacobian.ColumnCount != covariance.RowCount)
-            throw new ArgumentException($"J has {jacobian.ColumnCount} columns but Σx has {covariance.RowCount} rows", nameof(jacobian));
+            throw new ArgumentException($"J has {jacobian.ColumnCount} columns but Σx has {covariance.RowCount} rows",
+                nameof(jacobian));
         var s = jacobian * covariance * jacobian.Transpose();
         return (s + s.Transpose()) * 0.5; // remove rounding asymmetry
     }
 
     private static void CheckError(double e, string name)
     {
-        if (!(e >= 0) || !double.IsFinite(e)) throw new ArgumentOutOfRangeException(name, e, "a standard error must be zero or positive and finite");
+        if (!(e >= 0) || !double.IsFinite(e))
+            throw new ArgumentOutOfRangeException(name, e, "a standard error must be zero or positive and finite");
     }
 }

@@ -19,23 +19,31 @@ public static class HeightDifferenceBudgetBuilder
     /// <summary>Builds the budget.</summary>
     /// <param name="level">The level.</param>
     /// <param name="length">The section length, metres (&gt; 0); required by the per-km model.</param>
-    /// <param name="procedure">Setups and runs; the setups are required by the per-reading model. Null: the per-km model assumes a double run.</param>
-    /// <returns>Contributions <c>levelling_per_km</c>, or <c>rod_readings</c> and <c>rod_rounding</c> (metres).</returns>
+    /// <param name="procedure">Setups and runs; the setups are required by the per-reading model. Null: the per-km
+    /// model assumes a double run.</param>
+    /// <returns>Contributions <c>levelling_per_km</c>, or <c>rod_readings</c> and <c>rod_rounding</c>
+    /// (metres).</returns>
     /// <exception cref="InvalidInputException">When the model's required data are missing or out of range.</exception>
     public static ErrorBudget Build(LevelSpecification level, double? length, LevellingProcedure? procedure)
     {
         ArgumentNullException.ThrowIfNull(level);
         if (level.SdPerKm is double perKm)
         {
-            if (length is not double l) throw new InvalidInputException($"level {level.Id} is specified per km, so the section needs its length");
+            if (length is not double l)
+                throw new InvalidInputException(
+                    $"level {level.Id} is specified per km, so the section needs its length");
             Checks.Positive(l, "the section length");
             int runs = procedure?.Runs ?? 2;
             double sd = perKm * Math.Sqrt(l / 1000.0) * Math.Sqrt(2.0 / runs);
             return new ErrorBudget([new(ContributionNames.LevellingPerKm, sd)]);
         }
-        if (procedure is null) throw new InvalidInputException($"level {level.Id} is specified per reading, so the section needs its number of setups");
-        double readings = ErrorPropagation.Mean(ErrorPropagation.Series(level.ReadingSd!.Value, procedure.Readings), procedure.Runs);
-        double rounding = ErrorPropagation.Mean(ErrorPropagation.Series(level.RoundingSd, procedure.Readings), procedure.Runs);
+        if (procedure is null)
+            throw new InvalidInputException(
+                $"level {level.Id} is specified per reading, so the section needs its number of setups");
+        double readings = ErrorPropagation.Mean(ErrorPropagation.Series(level.ReadingSd!.Value, procedure.Readings),
+            procedure.Runs);
+        double rounding = ErrorPropagation.Mean(ErrorPropagation.Series(level.RoundingSd, procedure.Readings),
+            procedure.Runs);
         return new ErrorBudget(
         [
             new(ContributionNames.RodReadings, readings),

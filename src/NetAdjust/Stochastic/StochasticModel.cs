@@ -79,7 +79,8 @@ public sealed class StochasticModel
                 if (StandardDeviationLimits.Problem(sd[i], ObservationKindRegistry.Of(o).Unit == UnitClass.Angle)
                     is string problem)
                 {
-                    string what = o.Source is null ? o.Describe() : $"{o.Source}: {o.Describe()[..^(o.Source.Length + 3)]}";
+                    string what = o.Source is null ? o.Describe() :
+                        $"{o.Source}: {o.Describe()[..^(o.Source.Length + 3)]}";
                     throw new InvalidInputException($"{what}: {problem}, derived from the specifications");
                 }
             }

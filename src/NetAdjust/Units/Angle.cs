@@ -54,8 +54,10 @@ public readonly record struct Angle : IComparable<Angle>
     /// <exception cref="ArgumentOutOfRangeException">When minutes or seconds are outside [0, 60).</exception>
     public static Angle FromDms(int degrees, int minutes, double seconds, bool negative = false)
     {
-        if (minutes is < 0 or >= 60) throw new ArgumentOutOfRangeException(nameof(minutes), minutes, "minutes must be in [0, 60)");
-        if (!(seconds >= 0 && seconds < 60)) throw new ArgumentOutOfRangeException(nameof(seconds), seconds, "seconds must be in [0, 60)");
+        if (minutes is < 0 or >= 60)
+            throw new ArgumentOutOfRangeException(nameof(minutes), minutes, "minutes must be in [0, 60)");
+        if (!(seconds >= 0 && seconds < 60))
+            throw new ArgumentOutOfRangeException(nameof(seconds), seconds, "seconds must be in [0, 60)");
         double sign = degrees < 0 || negative ? -1.0 : 1.0;
         double arcsec = (Math.Abs((double)degrees) * 3600.0) + (minutes * 60.0) + seconds;
         return FromArcseconds(sign * arcsec);

@@ -15,8 +15,8 @@ namespace NetAdjust.Units;
 /// <item>Decimal degrees: <c>123.7655</c>, <c>123.7655°</c>, <c>123.7655d</c>.</item>
 /// <item>Gons: <c>137.5167</c>, <c>137.5167g</c>, <c>137.5167 gon</c>.</item>
 /// </list>
-/// Illegal: <c>12-75-00</c> (minutes ≥ 60), <c>12-30-60</c> (seconds ≥ 60), <c>12-30</c> (hyphen form needs three parts),
-/// <c>12.5-30-00</c> (degrees must be whole in DMS), <c>1,5</c> (comma decimal separator), empty text.
+/// Illegal: <c>12-75-00</c> (minutes ≥ 60), <c>12-30-60</c> (seconds ≥ 60), <c>12-30</c> (hyphen form needs three
+/// parts), <c>12.5-30-00</c> (degrees must be whole in DMS), <c>1,5</c> (comma decimal separator), empty text.
 /// </remarks>
 public sealed class AnglePattern
 {
@@ -27,7 +27,8 @@ public sealed class AnglePattern
     /// <param name="decimals">Decimals written: of seconds for DMS, of degrees or gons otherwise (0..10).</param>
     public AnglePattern(AngleFormat format, int decimals)
     {
-        if (decimals is < 0 or > 10) throw new ArgumentOutOfRangeException(nameof(decimals), decimals, "decimals must be 0..10");
+        if (decimals is < 0 or > 10)
+            throw new ArgumentOutOfRangeException(nameof(decimals), decimals, "decimals must be 0..10");
         Style = format;
         Decimals = decimals;
     }
@@ -81,7 +82,8 @@ public sealed class AnglePattern
     /// <c>360-00-00.0</c>).
     /// </summary>
     /// <param name="angle">The angle.</param>
-    /// <returns>Text that <see cref="Parse"/> reads back to within half a unit of the last decimal, modulo a full turn.</returns>
+    /// <returns>Text that <see cref="Parse"/> reads back to within half a unit of the last decimal, modulo a full
+    /// turn.</returns>
     public string FormatDirection(Angle angle)
     {
         string text = Format(Angle.FromRadians(Angle.Reduce0To2Pi(angle.Radians)));
@@ -95,7 +97,8 @@ public sealed class AnglePattern
     /// <returns>The angle, or a message naming what is wrong.</returns>
     public ParseResult<Angle> Parse(string? text)
     {
-        if (string.IsNullOrWhiteSpace(text)) return ParseResult<Angle>.Fail("an angle is required, but the text is empty");
+        if (string.IsNullOrWhiteSpace(text))
+            return ParseResult<Angle>.Fail("an angle is required, but the text is empty");
         string t = text.Trim();
         return Style switch
         {
@@ -126,7 +129,8 @@ public sealed class AnglePattern
         string body = t;
         if (body.StartsWith('-')) { negative = true; body = body[1..]; }
         else if (body.StartsWith('+')) body = body[1..];
-        if (body.Length == 0 || body.StartsWith('-') || body.StartsWith('+')) return ParseResult<Angle>.Fail($"'{t}' is not an angle in degrees-minutes-seconds");
+        if (body.Length == 0 || body.StartsWith('-') || body.StartsWith('+'))
+            return ParseResult<Angle>.Fail($"'{t}' is not an angle in degrees-minutes-seconds");
 
         string dPart, mPart, sPart;
         if (body.Contains('°'))
@@ -143,15 +147,18 @@ public sealed class AnglePattern
             if (iSec >= 0)
             {
                 sPart = rest[..iSec].Trim();
-                if (rest[(iSec + 1)..].Trim().Length > 0) return ParseResult<Angle>.Fail($"unexpected text after the seconds in '{t}'");
+                if (rest[(iSec + 1)..].Trim().Length > 0)
+                    return ParseResult<Angle>.Fail($"unexpected text after the seconds in '{t}'");
             }
-            else if (rest.Length > 0) return ParseResult<Angle>.Fail($"'{rest}' in '{t}' has no unit mark (' for minutes, \" for seconds)");
+            else if (rest.Length > 0)
+                return ParseResult<Angle>.Fail($"'{rest}' in '{t}' has no unit mark (' for minutes, \" for seconds)");
         }
         else
         {
             string[] parts = body.Split('-');
             if (parts.Length != 3)
-                return ParseResult<Angle>.Fail($"'{t}' is not degrees-minutes-seconds: write three parts, e.g. 123-45-56.7");
+                return ParseResult<Angle>.Fail(
+                    $"'{t}' is not degrees-minutes-seconds: write three parts, e.g. 123-45-56.7");
             (dPart, mPart, sPart) = (parts[0].Trim(), parts[1].Trim(), parts[2].Trim());
         }
 

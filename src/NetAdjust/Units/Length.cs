@@ -28,7 +28,8 @@ public readonly record struct Length : IComparable<Length>
     /// <param name="feet">Any finite value, in international feet.</param>
     public static Length FromInternationalFeet(double feet) => new(feet * LengthUnit.InternationalFoot.MetresPerUnit);
 
-    /// <summary>Creates a length from US survey feet (1200/3937 m; deprecated since 2023 but still found in old records).</summary>
+    /// <summary>Creates a length from US survey feet (1200/3937 m; deprecated since 2023 but still found in old
+    /// records).</summary>
     /// <param name="feet">Any finite value, in US survey feet.</param>
     public static Length FromUsSurveyFeet(double feet) => new(feet * 1200.0 / 3937.0);
 
@@ -40,7 +41,8 @@ public readonly record struct Length : IComparable<Length>
 
     /// <summary>The length expressed in <paramref name="unit"/>.</summary>
     /// <param name="unit">The unit wanted.</param>
-    public double In(LengthUnit unit) => unit == LengthUnit.UsSurveyFoot ? Metres * 3937.0 / 1200.0 : Metres / unit.MetresPerUnit;
+    public double In(LengthUnit unit) =>
+        unit == LengthUnit.UsSurveyFoot ? Metres * 3937.0 / 1200.0 : Metres / unit.MetresPerUnit;
 
     /// <inheritdoc />
     public int CompareTo(Length other) => Metres.CompareTo(other.Metres);

@@ -4,7 +4,8 @@ namespace NetAdjust.Units;
 
 /// <summary>
 /// Parses and formats lengths as text, culture-invariantly. A bare number is read in the pattern's unit;
-/// a number followed by a unit symbol (<c>m</c>, <c>mm</c>, <c>cm</c>, <c>km</c>, <c>ft</c>, <c>usft</c>) is read in that unit.
+/// a number followed by a unit symbol (<c>m</c>, <c>mm</c>, <c>cm</c>, <c>km</c>, <c>ft</c>, <c>usft</c>) is read in
+/// that unit.
 /// </summary>
 /// <remarks>
 /// Legal: <c>412.3456</c>, <c>412.3456 m</c>, <c>3mm</c>, <c>0.02 ft</c>, <c>1.5e-3</c>.
@@ -19,7 +20,8 @@ public sealed class LengthPattern
     /// <param name="decimals">Decimals written by <see cref="Format"/> (0..12).</param>
     public LengthPattern(LengthUnit unit, int decimals)
     {
-        if (decimals is < 0 or > 12) throw new ArgumentOutOfRangeException(nameof(decimals), decimals, "decimals must be 0..12");
+        if (decimals is < 0 or > 12)
+            throw new ArgumentOutOfRangeException(nameof(decimals), decimals, "decimals must be 0..12");
         Unit = unit;
         Decimals = decimals;
     }
@@ -42,7 +44,8 @@ public sealed class LengthPattern
     /// <returns>The length, or a message naming what is wrong.</returns>
     public ParseResult<Length> Parse(string? text)
     {
-        if (string.IsNullOrWhiteSpace(text)) return ParseResult<Length>.Fail("a length is required, but the text is empty");
+        if (string.IsNullOrWhiteSpace(text))
+            return ParseResult<Length>.Fail("a length is required, but the text is empty");
         string t = text.Trim();
         int i = t.Length;
         while (i > 0 && char.IsLetter(t[i - 1])) i--;
@@ -53,7 +56,9 @@ public sealed class LengthPattern
         {
             // "1.5e" would leave "e" as a unit: only accept known symbols.
             var u = LengthUnit.FromSymbol(symbol);
-            if (u is null) return ParseResult<Length>.Fail($"'{symbol}' in '{t}' is not a length unit (use m, mm, cm, km, ft or usft)");
+            if (u is null)
+                return ParseResult<Length>.Fail(
+                    $"'{symbol}' in '{t}' is not a length unit (use m, mm, cm, km, ft or usft)");
             unit = u;
         }
         if (!AnglePattern.TryNumber(number, out double v)) return ParseResult<Length>.Fail($"'{t}' is not a length");

@@ -38,9 +38,11 @@ public sealed class LengthUnit
     public static LengthUnit UsSurveyFoot { get; } = new("usft", "US survey foot", 1200.0 / 3937.0);
 
     /// <summary>All units, in the order they are documented.</summary>
-    public static IReadOnlyList<LengthUnit> All { get; } = [Metre, Millimetre, Centimetre, Kilometre, InternationalFoot, UsSurveyFoot];
+    public static IReadOnlyList<LengthUnit> All { get; } =
+        [Metre, Millimetre, Centimetre, Kilometre, InternationalFoot, UsSurveyFoot];
 
-    /// <summary>Finds a unit by its symbol (case-sensitive: <c>m</c>, <c>mm</c>, <c>cm</c>, <c>km</c>, <c>ft</c>, <c>usft</c>).</summary>
+    /// <summary>Finds a unit by its symbol (case-sensitive: <c>m</c>, <c>mm</c>, <c>cm</c>, <c>km</c>, <c>ft</c>,
+    /// <c>usft</c>).</summary>
     /// <param name="symbol">The symbol.</param>
     /// <returns>The unit, or null when the symbol is unknown.</returns>
     public static LengthUnit? FromSymbol(string symbol) => All.FirstOrDefault(u => u.Symbol == symbol);
