@@ -28,8 +28,8 @@ public static class Program
         // A plain command named "netadjust" as the root, so help shows the tool's name however it was started
         // (dotnet run, the packed tool, or a test host); it gets the help and version options a RootCommand has.
         var root = new Command("netadjust",
-            "NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal networks, level " +
-            "networks).")
+            "NetAdjust: least-squares adjustment of survey control networks (traverses, horizontal and 3D networks " +
+            "with trigonometric heights, level networks).")
         {
             new HelpOption { Recursive = true },
             new VersionOption(),
