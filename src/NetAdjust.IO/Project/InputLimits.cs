@@ -19,17 +19,7 @@ public static class InputLimits
     /// <summary>Longest line of a CSV observation file, in characters.</summary>
     public const int MaxCsvLineLength = 4096;
 
-    /// <summary>Smallest standard deviation of a length: 1 µm (no survey measures better).</summary>
-    public const double MinLengthSd = Stochastic.StandardDeviationLimits.MinLength;
-
-    /// <summary>Largest standard deviation of a length: 1 km.</summary>
-    public const double MaxLengthSd = Stochastic.StandardDeviationLimits.MaxLength;
-
-    /// <summary>Smallest angular standard deviation: 1e-9 rad (about 0.0002 arcsec).</summary>
-    public const double MinAngleSd = Stochastic.StandardDeviationLimits.MinAngle;
-
-    /// <summary>Largest angular standard deviation: 1 rad (about 57°).</summary>
-    public const double MaxAngleSd = Stochastic.StandardDeviationLimits.MaxAngle;
+    // Standard deviations: Stochastic.StandardDeviationLimits (checked in the stochastic model).
 
     /// <summary>Largest magnitude of a coordinate, a height or a measured length: 1e8 m (100,000 km).</summary>
     public const double MaxCoordinate = 1e8;

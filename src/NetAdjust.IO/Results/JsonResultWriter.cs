@@ -111,7 +111,7 @@ public static class JsonResultWriter
                 new ResultJson.RelativeHeight(x.From, x.To, x.Difference, x.SdDifference, x.Confidence, x.Observed)),
             ControlTests = r.Analysis.Control.Select(x => Fill(new ResultJson.ControlTest
             {
-                Point = x.PointId, Component = x.Component, Residual = x.Residual,
+                Point = x.PointId, Component = ObservationLabels.ComponentKey(x.Component), Residual = x.Residual,
                 Redundancy = 0, W = null, Tau = null, Mdb = null, ExternalReliability = null,
                 ExternalReliabilityPoint = null, BiasToNoise = null, Flag = null,
             }, x.Test, 1.0)),

@@ -19,6 +19,15 @@ internal static class ObservationLabels
     /// <summary>The name in the text report's narrow Kind column, e.g. <c>height</c>.</summary>
     public static string Short(ObservationKind kind) => ObservationKindRegistry.Of(kind).ReportLabel;
 
+    /// <summary>The key of a coordinate component in the outputs: <c>e</c>, <c>n</c> or <c>h</c>.</summary>
+    public static string ComponentKey(Geometry.Parameter component) => component switch
+    {
+        Geometry.Parameter.E => "e",
+        Geometry.Parameter.N => "n",
+        Geometry.Parameter.H => "h",
+        _ => throw new ArgumentOutOfRangeException(nameof(component), component, "not a coordinate component"),
+    };
+
     /// <summary>True when values are angles (radians), false when lengths (metres).</summary>
     public static bool IsAngular(ObservationKind kind) => ObservationKindRegistry.Of(kind).Unit == UnitClass.Angle;
 

@@ -136,7 +136,8 @@ internal static class StatisticsReport
                     Nr("w", null, 7), Nr("tau", null, 7), Nr("MDB", lu, 9), Txt("Flag", 0),
                 ],
                 a.Control.Select(ct => new SectionRow([
-                    ct.PointId, ct.Component.ToString(), Len(ct.Residual), Num(ct.Test.Redundancy, 2),
+                    ct.PointId, ObservationLabels.ComponentKey(ct.Component), Len(ct.Residual),
+                    Num(ct.Test.Redundancy, 2),
                     Num(ct.Test.W, 2), Num(ct.Test.Tau, 2), Len(ct.Test.Mdb), ct.Test.Flag.Name() ?? "",
                 ], StateOf(ct.Test.Flag))).ToList(), []));
         }

@@ -73,7 +73,7 @@ public static class VarianceComponents
         var given = obs.Select(o => o.StandardDeviation * o.StandardDeviation).ToArray();
 
         // Components: (kind, t_i per observation (0 when not in it), θ)
-        var comps = new List<(ObservationKind Kind, double[] T, double Theta, string Name)>();
+        var comps = new List<(ObservationKind Kind, double[] T, double Theta, ComponentPart Name)>();
         var notes = new Dictionary<ObservationKind, string>();
         var fitted = new HashSet<ObservationKind>();
         foreach (var kind in ObservationKinds.All)
@@ -90,8 +90,8 @@ public static class VarianceComponents
                     double med = sd[sd.Length / 2], medD = d.OrderBy(x => x).ElementAt(d.Length / 2);
                     var tA = new double[n]; var tB = new double[n];
                     foreach (int i in members) { tA[i] = 1; tB[i] = obs[i].Value * obs[i].Value; }
-                    comps.Add((kind, tA, med * med / 2, "a"));
-                    comps.Add((kind, tB, med * med / 2 / (medD * medD), "b"));
+                    comps.Add((kind, tA, med * med / 2, ComponentPart.Constant));
+                    comps.Add((kind, tB, med * med / 2 / (medD * medD), ComponentPart.Proportional));
                     fitted.Add(kind);
                     continue;
                 }
@@ -102,7 +102,7 @@ public static class VarianceComponents
             }
             var t = new double[n];
             foreach (int i in members) t[i] = given[i];
-            comps.Add((kind, t, 1.0, "scale"));
+            comps.Add((kind, t, 1.0, ComponentPart.Scale));
         }
 
         double[] Variances()
@@ -167,8 +167,8 @@ public static class VarianceComponents
             string? note = notes.GetValueOrDefault(kind);
             if (fitted.Contains(kind))
             {
-                var ca = comps.First(c => c.Kind == kind && c.Name == "a");
-                var cb = comps.First(c => c.Kind == kind && c.Name == "b");
+                var ca = comps.First(c => c.Kind == kind && c.Name == ComponentPart.Constant);
+                var cb = comps.First(c => c.Kind == kind && c.Name == ComponentPart.Proportional);
                 aPart = Math.Sqrt(ca.Theta);
                 bPart = Math.Sqrt(cb.Theta) * 1e6;
             }
@@ -197,4 +197,17 @@ public static class VarianceComponents
         string Text(double x) => x >= 1000 ? x.ToString("F0", inv) : x.ToString("G3", inv);
         return $" (95% interval of its variance factor roughly {Text(lo)} to {Text(hi)})";
     }
+}
+
+/// <summary>The part of a group's variance that one estimated component scales.</summary>
+internal enum ComponentPart
+{
+    /// <summary>The constant part a² of a distance's variance a² + (b·d)².</summary>
+    Constant,
+
+    /// <summary>The distance-proportional part (b·d)².</summary>
+    Proportional,
+
+    /// <summary>The group's given variances as a whole.</summary>
+    Scale,
 }

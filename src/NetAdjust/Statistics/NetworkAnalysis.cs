@@ -1,4 +1,5 @@
 using NetAdjust.Adjustment;
+using NetAdjust.Geometry;
 using NetAdjust.Statistics;
 
 namespace NetAdjust.Statistics;
@@ -64,10 +65,11 @@ public sealed record ObservationTest(int Index, double Redundancy, double? W, do
 
 /// <summary>A weighted-control component treated as an observation, with its test.</summary>
 /// <param name="PointId">The control point.</param>
-/// <param name="Component">"e", "n" or "h".</param>
+/// <param name="Component">The coordinate tested: <see cref="Parameter.E"/>, <see cref="Parameter.N"/> or
+/// <see cref="Parameter.H"/>.</param>
 /// <param name="Residual">v = adjusted − given (m).</param>
 /// <param name="Test">Its redundancy and tests.</param>
-public sealed record ControlTest(string PointId, string Component, double Residual, ObservationTest Test);
+public sealed record ControlTest(string PointId, Parameter Component, double Residual, ObservationTest Test);
 
 /// <summary>The precision of one adjusted point.</summary>
 /// <param name="Id">The point id.</param>

@@ -225,7 +225,7 @@ public static class ResultAnalysis
         return d;
     }
 
-    private sealed record ControlComponent(string PointId, string Component, double Residual, double Sd);
+    private sealed record ControlComponent(string PointId, Parameter Component, double Residual, double Sd);
 
     /// <summary>The weighted-control rows in the adjuster's order (each point in input order: E, N, H when weighted and
     /// free).</summary>
@@ -236,11 +236,11 @@ public static class ResultAnalysis
         {
             var p = ap.Input;
             if (p.SdE is double se && result.Unknowns.IndexOf(p.Id, Parameter.E) >= 0)
-                list.Add(new(p.Id, "e", ap.E!.Value - p.E!.Value, se));
+                list.Add(new(p.Id, Parameter.E, ap.E!.Value - p.E!.Value, se));
             if (p.SdN is double sn && result.Unknowns.IndexOf(p.Id, Parameter.N) >= 0)
-                list.Add(new(p.Id, "n", ap.N!.Value - p.N!.Value, sn));
+                list.Add(new(p.Id, Parameter.N, ap.N!.Value - p.N!.Value, sn));
             if (p.SdH is double sv && result.Unknowns.IndexOf(p.Id, Parameter.H) >= 0)
-                list.Add(new(p.Id, "h", ap.H!.Value - p.H!.Value, sv));
+                list.Add(new(p.Id, Parameter.H, ap.H!.Value - p.H!.Value, sv));
         }
         return list;
     }

@@ -86,17 +86,18 @@ internal static class DatumDiagnosis
         bool HasN(Point p) => p.IsFixed(Fixity.N) || p.SdN.HasValue;
         bool HasH(Point p) => p.IsFixed(Fixity.H) || p.SdH.HasValue;
 
-        var planeProblems = new List<(Part Part, string Missing)>();
+        var planeProblems = new List<(Part Part, MissingElement Missing)>();
         foreach (var part in plane)
         {
             var pts = part.Points.Select(id => network[id]).ToList();
             int components = pts.Sum(p => (HasE(p) ? 1 : 0) + (HasN(p) ? 1 : 0));
             int controlPoints = pts.Count(p => HasE(p) || HasN(p));
             int needed = 2 + (part.HasAzimuth ? 0 : 1) + (part.HasDistance ? 0 : 1);
-            if (components == 0 || !pts.Any(HasE) || !pts.Any(HasN)) planeProblems.Add((part, "position"));
+            if (components == 0 || !pts.Any(HasE) || !pts.Any(HasN)) planeProblems.Add((part, MissingElement.Position));
             else if (components < needed || (needed > 2 && controlPoints < 2))
                 planeProblems.Add((part,
-                    !part.HasDistance && (part.HasAzimuth || components >= 3) ? "scale" : "orientation"));
+                    !part.HasDistance && (part.HasAzimuth || components >= 3)
+                        ? MissingElement.Scale : MissingElement.Orientation));
         }
         var heightProblems = height.Where(part => !part.Points.Any(id => HasH(network[id]))).ToList();
 
@@ -113,7 +114,7 @@ internal static class DatumDiagnosis
             string all = List(part.Points);
             switch (missing)
             {
-                case "position":
+                case MissingElement.Position:
                     throw new DatumDefectException(Prefix +
                         $"no fixed point. No point of the network ({all}) has a held or weighted easting and " +
                         "northing, so its position (the translation in easting and northing) is undetermined" +
@@ -123,12 +124,13 @@ internal static class DatumDiagnosis
                         "To test the observations alone, adjust it as a free network (datum: {mode: free}).",
                         ["translation in easting", "translation in northing",
                             .. part.HasAzimuth ? Array.Empty<string>() : ["rotation"]]);
-                case "scale":
+                case MissingElement.Scale:
                     throw new DatumDefectException(Prefix +
                         $"no distance. No distance is observed between the points {all}, and the control " +
                         $"({List(control)}) does not fix the size of the network, so its scale is undetermined. " +
                         "Observe at least one distance, or hold a second point.",
                         ["scale"]);
+                case MissingElement.Orientation:
                 default:
                     throw new DatumDefectException(Prefix +
                         $"no orientation. The network ({all}) has no observed azimuth and only one control point " +
@@ -181,4 +183,12 @@ internal static class DatumDiagnosis
             $"Their relative position is undetermined, and {mode} can define the datum of one connected network " +
             "only. Join the parts by observations, or adjust each part on its own.",
             parts.Select(p => $"{what} network part with {p.Points[0]}").ToList());
+
+    /// <summary>The datum element a plane network part lacks.</summary>
+    private enum MissingElement
+    {
+        Position,
+        Scale,
+        Orientation,
+    }
 }
