@@ -146,7 +146,14 @@ internal sealed partial class DatumPlan
                 - d.Reading.Radians))!.Value;
             if (set.Any(d => !d.Excluded)) index.Add(new Unknown(set.Key, Parameter.Orientation));
         }
-        var state = new ParameterState(e, nn, h, orientation);
+        // Refraction unknowns: one per group of zenith angles whose k is estimated, started at its assumed k.
+        var refraction = new Dictionary<string, double>(StringComparer.Ordinal);
+        foreach (var (group, start, used) in RefractionGroups.Estimated(network))
+        {
+            refraction[group] = start;
+            if (used) index.Add(new Unknown(group, Parameter.Refraction));
+        }
+        var state = new ParameterState(e, nn, h, orientation, refraction);
         return new DatumPlan(network, definition, index, state, planePoints, heightPoints,
             new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string,
                 double>(nn, StringComparer.Ordinal),
