@@ -48,7 +48,8 @@ public sealed class ZenithKind : IObservationKind
         double s = Math.Sqrt(((b.E - a.E) * (b.E - a.E)) + ((b.N - a.N) * (b.N - a.N)));
         return eq with
         {
-            Partials = [.. eq.Partials, new Partial(group, Parameter.Refraction, SpatialGeometry.ZenithByRefraction(s))],
+            Partials =
+                [.. eq.Partials, new Partial(group, Parameter.Refraction, SpatialGeometry.ZenithByRefraction(s))],
         };
     }
 
