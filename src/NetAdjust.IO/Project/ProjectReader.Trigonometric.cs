@@ -85,6 +85,14 @@ public static partial class ProjectReader
                 $"refraction group '{id}' is not defined under 'refraction_groups'");
     }
 
+    /// <summary>What CSV rows may name: the instruments, targets and refraction groups, and the held heights.
+    /// </summary>
+    private static CsvObservationReader.CsvSpecifications CsvSpecifications(StochasticInputs s) => new(
+        id => s.Instruments.GetValueOrDefault(id), id => s.Targets.GetValueOrDefault(id),
+        id => id is null ? new(s.Refraction, s.RefractionSd, null, false)
+            : s.RefractionGroups.TryGetValue(id, out var g) ? new(g.K, g.Sd, g.Id, g.Estimate) : null,
+        id => s.Points.TryGetValue(id, out var p) && p.IsFixed(Fixity.H));
+
     private static void ReadTrigonometric(Context ctx, YamlMappingNode m, string at, string item, LengthPattern lengths,
         AnglePattern angles, ProjectUnits units, Dictionary<ObservationKind, double> defaults, SetupSpec spec,
         StochasticInputs specs, List<Pending> output)

@@ -162,7 +162,7 @@ public static partial class ProjectReader
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
                 observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                    specs.WeightingOfLevel));
+                    specs.WeightingOfLevel, CsvSpecifications(specs)));
             }
         }
 
