@@ -111,7 +111,7 @@ internal sealed partial class DatumPlan
         // lengths: provisional ones until the adjustment weights at its own coordinates.
         ApproximateCoordinates.Plane(StochasticModel.WithProvisionalDeviations(network), plane, e, nn,
             seedWhenNothingKnown: definition.Mode != DatumMode.Control);
-        ApproximateCoordinates.Heights(network, height, h);
+        ApproximateCoordinates.Heights(network, height, h, e, nn);
         CoordinateCheck.Check(network, e, nn);
 
         bool control = definition.Mode == DatumMode.Control;
