@@ -54,6 +54,30 @@ public class RefractionGroupInputTests
     }
 
     [Fact]
+    public void TheRefractionKeysAreInTheProjectSchema()
+    {
+        // docs/project.schema.json knows adjustment.refraction and refraction_sd, refraction_groups and a setup's
+        // refraction_group (a project without zenith angles, whose keys are not in the schema yet).
+        const string yaml = """
+            adjustment: {refraction: 0.12, refraction_sd: 0.03}
+            refraction_groups:
+              - {id: MON, k: 0.15, sd: 0.02}
+              - {id: TUE, estimate: yes}
+            points:
+              - {id: A, e: 1000.0, n: 1000.0, fix: en}
+              - {id: B, e: 1600.0, n: 1800.0}
+            setups:
+              - at: A
+                refraction_group: MON
+                distances: [{to: B, value: 1000.0, sd: 0.002}]
+            """;
+        Assert.Empty(SchemaValidation.ProjectErrors(yaml));
+        Assert.NotEmpty(SchemaValidation.ProjectErrors(yaml.Replace("sd: 0.02", "sd: -1")));
+        Assert.NotEmpty(SchemaValidation.ProjectErrors(yaml.Replace("estimate: yes", "estimate: maybe")));
+        Assert.NotEmpty(SchemaValidation.ProjectErrors(yaml.Replace("refraction_sd: 0.03", "refraction_sd: 3")));
+    }
+
+    [Fact]
     public void TheProjectsRefractionSdEntersTheZenithBudget()
     {
         var p = Parse(Project(""));
