@@ -7,12 +7,14 @@ namespace NetAdjust.IO.Project;
 /// Reads bulk observations from a CSV file named in a project. The first non-comment line is a header naming
 /// the columns (any order): <c>kind</c> and <c>value</c> are required; <c>at</c>, <c>from</c>, <c>to</c>,
 /// <c>sd</c>, <c>length</c>, <c>set</c> as the kinds need them. Lines starting with <c>#</c> and blank lines
-/// are skipped. Fields are separated by commas and are not quoted (ids cannot hold commas).
+/// are skipped. Fields are separated by commas and are not quoted (ids cannot hold commas). Slope distances and
+/// zenith angles, and weighting from an instrument, are in CsvObservationReader.Trigonometric.cs.
 /// </summary>
-internal static class CsvObservationReader
+internal static partial class CsvObservationReader
 {
     private static readonly string[] Columns =
-        ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor"];
+        ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor",
+            .. TotalStationColumns];
 
     /// <summary>Weighting of a height difference from a named level: (level id, section length, setups, runs) →
     /// weighting; throws <see cref="InvalidInputException"/>.</summary>
@@ -20,9 +22,11 @@ internal static class CsvObservationReader
 
     public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles,
         ProjectUnits units,
-        IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null)
+        IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null,
+        CsvSpecifications? specs = null)
     {
         var result = new List<Observation>();
+        var slopes = new List<(SlopeDistanceObservation Slope, int Line, string Item)>();
         string[] lines = text.Split(["\r\n", "\r", "\n"], StringSplitOptions.None); // CR, LF and CRLF alike
         Dictionary<string, int>? col = null;
         for (int i = 0; i < lines.Length; i++)
@@ -99,6 +103,11 @@ internal static class CsvObservationReader
                         e.Message); }
                 sd = double.NaN; // derived from the level by the stochastic model
             }
+            else if (sdText.Length == 0 && Get("instrument").Length > 0)
+            {
+                budget = InstrumentWeighting(kind, Get, specs, file, lineNo, item);
+                sd = double.NaN; // derived from the instrument by the stochastic model
+            }
             else if (sdText.Length > 0)
             {
                 sd = ProjectReader.ParseSd(sdText, kind, units, out string? err);
@@ -114,6 +123,7 @@ internal static class CsvObservationReader
                 lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item,
                 r.Error!); }
             string source = $"{file}:{lineNo}";
+            CheckTotalStationFields(kind, Get, file, lineNo, item);
             Observation o = kind switch
             {
                 ObservationKind.Distance =>
@@ -131,13 +141,17 @@ internal static class CsvObservationReader
                 ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from), Need("to", to),
                     L(Need("value", value)), Get("length").Length > 0 ? L(Get("length")) : null)
                 { StandardDeviation = sd, Source = source },
+                ObservationKind.SlopeDistance or ObservationKind.Zenith =>
+                    Trigonometric(kind, Need("from", from), Need("to", to), value, Get, L, angles, specs, file, lineNo,
+                        item) with { StandardDeviation = sd, Source = source },
                 _ => throw new ProjectFileException(file, lineNo, item, $"a {kind.Name().Replace('_', ' ')} is not " +
-                    "read from CSV yet (it needs its setup's instrument height and a target height): write it in a " +
-                    "setup of the project file"),
+                    "read from CSV: write it in the project file"),
             };
+            if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, item));
             result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"),
                 Get("sd_factor"), file, lineNo, item));
         }
+        CheckSlopesHaveZeniths(result, slopes, specs, file);
         return result;
     }
 }

@@ -27,6 +27,13 @@ public static partial class ProjectReader
         /// <summary>The project's refraction coefficient k for zenith angles.</summary>
         public double Refraction { get; set; } = Geometry.SpatialGeometry.DefaultRefraction;
 
+        /// <summary>The project's σ_k and its groups of zenith angles with their own k (ProjectReader.Trigonometric).
+        /// </summary>
+        public double RefractionSd { get; set; } = DefaultRefractionSd;
+
+        /// <summary>The refraction groups by id.</summary>
+        public Dictionary<string, RefractionGroup> RefractionGroups { get; } = new(StringComparer.Ordinal);
+
         /// <summary>
         /// The weighting of a height difference from a named level (for CSV rows); throws InvalidInputException.
         /// </summary>

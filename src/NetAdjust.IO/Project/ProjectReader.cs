@@ -18,7 +18,7 @@ public static partial class ProjectReader
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
         "targets", "levels", "statistics", "crs", "datum",
-        "survey"];
+        "survey", "refraction_groups"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -134,6 +134,7 @@ public static partial class ProjectReader
 
         var specs = ReadSpecifications(ctx, root, units, points);
         specs.Refraction = ReadRefraction(ctx, root);
+        ReadRefractionGroups(ctx, root, specs);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
@@ -161,7 +162,7 @@ public static partial class ProjectReader
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
                 observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                    specs.WeightingOfLevel));
+                    specs.WeightingOfLevel, CsvSpecifications(specs)));
             }
         }
 
@@ -228,7 +229,7 @@ public static partial class ProjectReader
         if (ctx.Child(root, "adjustment") is not YamlNode node) return o;
         var m = ctx.Mapping(node, "adjustment");
         ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering",
-            "refraction"], "adjustment");
+            "refraction", "refraction_sd"], "adjustment");
         if (ctx.Child(m, "centering") is YamlNode cn)
         {
             o = o with { Centering = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };
@@ -338,7 +339,7 @@ public static partial class ProjectReader
         string at = ctx.RequiredString(m, "at", "a setup");
         string item = "setup at " + at;
         ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets",
-            "faces", "instrument_height", "slope_distances", "zeniths"], item);
+            "faces", "instrument_height", "slope_distances", "zeniths", "refraction_group"], item);
         var spec = ReadSetupSpec(ctx, m, item, specs);
         var output = new List<Pending>();
 

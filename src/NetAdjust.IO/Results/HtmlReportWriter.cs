@@ -211,6 +211,7 @@ public static class HtmlReportWriter
             sb.Append("</tbody>\n</table>\n</section>\n");
         }
 
+        RefractionOutput.AppendHtml(sb, r);
         foreach (var section in report.Sections) AppendSection(sb, section);
 
         sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">")

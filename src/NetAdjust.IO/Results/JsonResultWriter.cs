@@ -103,6 +103,7 @@ public static class JsonResultWriter
             Orientations = r.Orientations.Select(o =>
                 new ResultJson.Orientation(o.SetId, o.Station, Angle.FromRadians(o.Orientation).Degrees,
                     o.Sd * Angle.ArcsecondsPerRadian)),
+            Refraction = RefractionOutput.Json(r),
             Testing = Testing(r.Analysis),
             Relative = r.Analysis.Relative.Select(x => new ResultJson.Relative(x.From, x.To, x.Ellipse.A, x.Ellipse.B,
                 x.Ellipse.AzimuthDegrees, x.Confidence.A, x.Confidence.B, x.Distance, x.SdDistance, Finite(x.Ratio),

@@ -38,6 +38,9 @@ internal static class ResultJson
         public required IEnumerable<Point> Points { get; init; }
         public required IEnumerable<Observation> Observations { get; init; }
         public required IEnumerable<Orientation> Orientations { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public IReadOnlyList<Refraction>? Refraction { get; init; }
         public required Testing Testing { get; init; }
         public required IEnumerable<Relative> Relative { get; init; }
         public required IEnumerable<RelativeHeight> RelativeHeights { get; init; }
@@ -107,6 +110,8 @@ internal static class ResultJson
 
     internal sealed record Orientation(string Set, string Station,
         [property: JsonPropertyName("orientation")] double Value, double Sd);
+
+    internal sealed record Refraction(string Group, double K, double Sd);
 
     internal sealed record Testing(string VarianceFactorBasis, double VarianceFactorUsed, double WAlpha,
         double WCritical, double TypeIIError, double Delta0, double TauAlpha, string TauAdjustment, double? TauCritical,

@@ -122,6 +122,7 @@ public static class TextReportWriter
             Line();
         }
 
+        RefractionOutput.AppendText(sb, r);
         StatisticsReport.Append(sb, report.Sections);
         Line(Caution);
         return sb.ToString();

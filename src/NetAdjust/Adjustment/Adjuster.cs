@@ -102,10 +102,21 @@ public static partial class Adjuster
 
         return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points,
             observations, orientations, stats,
-            solver.Name, finalRows, weights);
+            solver.Name, finalRows, weights)
+        { Refractions = AdjustedRefractions(index, state, finalFactor, s0) };
     }
 
     private static double Sq(double x) => x * x;
+
+    /// <summary>The largest correction to an estimated refraction coefficient that counts as converged: it moves a
+    /// zenith angle over 1 km by 8e-11 rad.</summary>
+    private const double RefractionTolerance = 1e-6;
+
+    private static AdjustedRefraction[] AdjustedRefractions(UnknownIndex index, ParameterState state,
+        INormalFactor? f, double s0) =>
+        Enumerable.Range(0, index.Count).Where(j => index.Unknowns[j].Parameter == Parameter.Refraction)
+            .Select(j => new AdjustedRefraction(index.Unknowns[j].Owner, state.Get(index.Unknowns[j]),
+                f is null ? 0 : Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(j, j))))).ToArray();
 
     /// <summary>Largest relative change of the weights between rounds that counts as settled.</summary>
     private const double StochasticTolerance = 1e-12;
@@ -169,9 +180,12 @@ public static partial class Adjuster
                     throw new NoConvergenceException(
                         $"The adjustment diverged: the correction to the {index.Unknowns[j].Describe()} is not a " +
                             $"finite number.");
-                double tol = index.Unknowns[j].Parameter == Parameter.Orientation
-                    ? options.AngleTolerance
-                    : options.LengthTolerance;
+                double tol = index.Unknowns[j].Parameter switch
+                {
+                    Parameter.Orientation => options.AngleTolerance,
+                    Parameter.Refraction => RefractionTolerance,
+                    _ => options.LengthTolerance,
+                };
                 if (Math.Abs(lastDx[j]) >= tol) converged = false;
             }
             // Step control: halve the step while vᵀPv grows (see StepControl).
@@ -204,7 +218,7 @@ public static partial class Adjuster
     private static string NoConvergenceMessage(AdjustmentOptions options, UnknownIndex index, double[] dx)
     {
         var worst = Enumerable.Range(0, dx.Length)
-            .Where(j => index.Unknowns[j].Parameter != Parameter.Orientation)
+            .Where(j => index.Unknowns[j].Parameter is Parameter.E or Parameter.N or Parameter.H)
             .OrderByDescending(j => Math.Abs(dx[j])).Take(3)
             .Select(j =>
                 $"{index.Unknowns[j].Describe()} " +

@@ -48,6 +48,12 @@ public sealed record AdjustedObservation(Observation Input, double Adjusted, dou
 /// <param name="Sd">Its standard deviation, rad.</param>
 public sealed record AdjustedOrientation(string SetId, string Station, double Orientation, double Sd);
 
+/// <summary>An estimated refraction coefficient of a group of zenith angles.</summary>
+/// <param name="Group">The group's id.</param>
+/// <param name="Coefficient">The adjusted k (dimensionless).</param>
+/// <param name="Sd">Its standard deviation (a-priori variance factor, as for points).</param>
+public sealed record AdjustedRefraction(string Group, double Coefficient, double Sd);
+
 /// <summary>Overall figures of an adjustment.</summary>
 /// <param name="Observations">n: observations, including weighted-control components.</param>
 /// <param name="Unknowns">u.</param>
@@ -112,6 +118,10 @@ public sealed class AdjustmentResult
 
     /// <summary>Adjusted orientation unknowns, in order of first appearance.</summary>
     public IReadOnlyList<AdjustedOrientation> Orientations { get; }
+
+    /// <summary>Estimated refraction coefficients, one per group whose k is an unknown, in order of first
+    /// appearance; empty when none is estimated.</summary>
+    public IReadOnlyList<AdjustedRefraction> Refractions { get; init; } = [];
 
     /// <summary>Overall statistics and the global test.</summary>
     public AdjustmentStatistics Statistics { get; }

@@ -9,12 +9,13 @@ namespace NetAdjust.Adjustment;
 /// </summary>
 public sealed class ParameterState : ICoordinates
 {
-    private readonly Dictionary<string, double> _e, _n, _h, _orientation;
+    private readonly Dictionary<string, double> _e, _n, _h, _orientation, _refraction;
 
     internal ParameterState(Dictionary<string, double> e, Dictionary<string, double> n, Dictionary<string, double> h,
-        Dictionary<string, double> orientation)
+        Dictionary<string, double> orientation, Dictionary<string, double>? refraction = null)
     {
         _e = e; _n = n; _h = h; _orientation = orientation;
+        _refraction = refraction ?? new Dictionary<string, double>(StringComparer.Ordinal);
     }
 
     /// <summary>The plane coordinates of a point (m).</summary>
@@ -29,6 +30,13 @@ public sealed class ParameterState : ICoordinates
     /// <param name="setId">The set id.</param>
     public double Orientation(string setId) => _orientation[setId];
 
+    /// <summary>The current refraction coefficient of a group whose k is estimated, else
+    /// <paramref name="assumed"/>.</summary>
+    /// <param name="group">The group's id.</param>
+    /// <param name="assumed">The group's assumed k.</param>
+    public double Refraction(string group, double assumed) =>
+        _refraction.TryGetValue(group, out double k) ? k : assumed;
+
     /// <summary>The value of one parameter.</summary>
     /// <param name="u">The unknown.</param>
     public double Get(Unknown u) => Map(u.Parameter)[u.Owner];
@@ -42,6 +50,7 @@ public sealed class ParameterState : ICoordinates
         Parameter.E => _e,
         Parameter.N => _n,
         Parameter.H => _h,
+        Parameter.Refraction => _refraction,
         _ => _orientation,
     };
 }

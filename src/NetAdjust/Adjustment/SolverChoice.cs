@@ -29,8 +29,10 @@ internal static class SolverChoice
     public static UnknownGeometry GeometryOf(SurveyNetwork network, UnknownIndex index)
     {
         var stationOfSet = new Dictionary<string, string>(StringComparer.Ordinal);
+        var stationOfGroup = new Dictionary<string, string>(StringComparer.Ordinal);
         foreach (var o in network.Observations)
             if (o is DirectionObservation d) stationOfSet.TryAdd(d.SetId, d.Station);
+            else if (o is ZenithObservation { RefractionGroup: string g } z) stationOfGroup.TryAdd(g, z.From);
         var groupOf = new int[index.Count];
         var x = new double[network.Points.Count];
         var y = new double[network.Points.Count];
@@ -42,7 +44,12 @@ internal static class SolverChoice
         for (int j = 0; j < index.Count; j++)
         {
             var u = index.Unknowns[j];
-            string owner = u.Parameter == Geometry.Parameter.Orientation ? stationOfSet[u.Owner] : u.Owner;
+            string owner = u.Parameter switch
+            {
+                Geometry.Parameter.Orientation => stationOfSet[u.Owner],
+                Geometry.Parameter.Refraction => stationOfGroup[u.Owner], // placed with its group's first station
+                _ => u.Owner,
+            };
             groupOf[j] = network.IndexOf(owner);
         }
         return new UnknownGeometry(groupOf, x, y);

@@ -14,6 +14,7 @@ public readonly record struct Unknown(string Owner, Parameter Parameter)
         Parameter.E => $"easting of {Owner}",
         Parameter.N => $"northing of {Owner}",
         Parameter.H => $"height of {Owner}",
+        Parameter.Refraction => $"refraction coefficient of group {Owner}",
         _ => $"orientation of direction set {Owner}",
     };
 }
@@ -21,7 +22,8 @@ public readonly record struct Unknown(string Owner, Parameter Parameter)
 /// <summary>
 /// Numbers the unknowns: for each point in input order its free easting, northing (when it takes part in a
 /// horizontal observation) and height (when it takes part in a height difference), then one orientation per
-/// direction set in order of first appearance.
+/// direction set in order of first appearance, then one refraction coefficient per group of zenith angles whose k
+/// is estimated, in order of first appearance.
 /// </summary>
 public sealed class UnknownIndex
 {

@@ -22,6 +22,10 @@ public enum Parameter
 
     /// <summary>The orientation unknown of a direction set.</summary>
     Orientation,
+
+    /// <summary>The refraction coefficient k of a group of zenith angles, when it is estimated (dimensionless; the
+    /// owner is the group's id).</summary>
+    Refraction,
 }
 
 /// <summary>One partial derivative: ∂f/∂(parameter of owner).</summary>

@@ -42,6 +42,13 @@ public static class SpatialGeometry
     /// <summary>The refraction coefficient taken when the project sets none (common practice: 0.13).</summary>
     public const double DefaultRefraction = 0.13;
 
+    /// <summary>
+    /// The standard deviation σ_k of an assumed refraction coefficient taken when the project sets none (common
+    /// practice: 0.05, the day-to-day spread of k for daytime sights well above the ground; near the ground k varies
+    /// far more and a larger σ_k should be set).
+    /// </summary>
+    public const double DefaultRefractionSd = 0.05;
+
     /// <summary>The slope distance D (chord from instrument to target) and its partial derivatives.</summary>
     /// <param name="s">The sighting.</param>
     public static EquationValue SlopeDistance(Sighting s) => Evaluate(s, 0.0, slope: true);
@@ -61,6 +68,13 @@ public static class SpatialGeometry
     /// <param name="radius">R, metres.</param>
     public static double CurvatureAndRefraction(double planeDistance, double refraction, double radius = EarthRadius) =>
         (1 - refraction) * planeDistance * planeDistance / (2 * radius);
+
+    /// <summary>
+    /// ∂z/∂k = −γ/2 = −s/(2R): how the observed zenith angle changes with the refraction coefficient (radians per
+    /// unit of k), for a sight of plane length s.
+    /// </summary>
+    /// <param name="planeDistance">s, metres.</param>
+    public static double ZenithByRefraction(double planeDistance) => -planeDistance / (2 * EarthRadius);
 
     private static EquationValue Evaluate(Sighting s, double k, bool slope)
     {

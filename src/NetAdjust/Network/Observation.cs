@@ -282,6 +282,20 @@ public sealed record ZenithObservation(
     /// <inheritdoc />
     public override string To { get; } = To;
 
-    /// <summary>The refraction coefficient k of the line of sight (the project's; common practice 0.13).</summary>
+    /// <summary>The refraction coefficient k of the line of sight (the project's or its group's; common practice
+    /// 0.13); the start value of the group's unknown when <see cref="RefractionEstimated"/>.</summary>
     public double Refraction { get; init; } = 0.13;
+
+    /// <summary>The group of observations that shares one refraction coefficient (e.g. one day's sights), or null
+    /// for the project's.</summary>
+    public string? RefractionGroup { get; init; }
+
+    /// <summary>The standard deviation σ_k of the assumed refraction coefficient (≥ 0; 0 counts none): it enters
+    /// the error budget of a zenith angle weighted from specifications as σ_k·s/(2R) radians when k is assumed, not
+    /// when it is estimated (default 0.05, common practice).</summary>
+    public double RefractionSd { get; init; } = 0.05;
+
+    /// <summary>True when the refraction coefficient of <see cref="RefractionGroup"/> (which must be set) is an
+    /// unknown of the adjustment, with <see cref="Refraction"/> as its start value.</summary>
+    public bool RefractionEstimated { get; init; }
 }

@@ -147,4 +147,12 @@ public interface ICoordinates
     /// <summary>The orientation unknown of a direction set.</summary>
     /// <param name="setId">The set id.</param>
     double Orientation(string setId);
+
+    /// <summary>
+    /// The current refraction coefficient k of a group of zenith angles whose k is estimated; coordinates that hold
+    /// no refraction unknowns (the default) give back <paramref name="assumed"/>.
+    /// </summary>
+    /// <param name="group">The group's id.</param>
+    /// <param name="assumed">The group's assumed k (the start value of the unknown).</param>
+    double Refraction(string group, double assumed) => assumed;
 }

@@ -38,8 +38,19 @@ public sealed class ZenithKind : IObservationKind
     public EquationValue Evaluate(Observation observation, ICoordinates at)
     {
         var o = (ZenithObservation)observation;
-        return SpatialGeometry.Zenith(new Sighting(o.From, at.Plane(o.From), at.Height(o.From),
-            o.InstrumentHeight.Metres, o.To, at.Plane(o.To), at.Height(o.To), o.TargetHeight.Metres), o.Refraction);
+        var (a, b) = (at.Plane(o.From), at.Plane(o.To));
+        // An estimated k is the group's unknown: its current value, and one more partial derivative, ∂z/∂k = −s/(2R).
+        string? group = o.RefractionEstimated ? o.RefractionGroup : null;
+        double k = group is null ? o.Refraction : at.Refraction(group, o.Refraction);
+        var eq = SpatialGeometry.Zenith(new Sighting(o.From, a, at.Height(o.From), o.InstrumentHeight.Metres, o.To, b,
+            at.Height(o.To), o.TargetHeight.Metres), k);
+        if (group is null) return eq;
+        double s = Math.Sqrt(((b.E - a.E) * (b.E - a.E)) + ((b.N - a.N) * (b.N - a.N)));
+        return eq with
+        {
+            Partials =
+                [.. eq.Partials, new Partial(group, Parameter.Refraction, SpatialGeometry.ZenithByRefraction(s))],
+        };
     }
 
     /// <inheritdoc />

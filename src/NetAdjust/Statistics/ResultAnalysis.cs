@@ -285,7 +285,7 @@ public static class ResultAnalysis
             {
                 if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
                 foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
-                    if (result.Unknowns.Unknowns[c].Parameter != Parameter.Orientation)
+                    if (result.Unknowns.Unknowns[c].Parameter is Parameter.E or Parameter.N or Parameter.H)
                         owners.Add(result.Unknowns.Unknowns[c].Owner);
             }
             foreach (var x in owners) foreach (var y in owners) onPattern.Add((x, y));

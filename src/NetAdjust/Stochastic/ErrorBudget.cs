@@ -93,6 +93,10 @@ public static class ContributionNames
     /// <summary>The measured target height, carried into a zenith angle as σ_t / horizontal distance.</summary>
     public const string TargetHeight = "target_height";
 
+    /// <summary>The uncertainty σ_k of an assumed refraction coefficient, carried into a zenith angle as
+    /// σ_k·s/(2R) radians (s the horizontal distance, R the mean earth radius).</summary>
+    public const string Refraction = "refraction";
+
     /// <summary>Levelling per km (ISO 17123-2 σ × √K).</summary>
     public const string LevellingPerKm = "levelling_per_km";
 

@@ -67,7 +67,8 @@ public static class ObservationBudgets
                 Measurement.CircleReadingDifference => AngleBudgetBuilder.Build(ts, w.Target, w.Target, w.Procedure,
                     Sight(observation.From), Sight(observation.To), observation.Value),
                 Measurement.ZenithReading =>
-                    ZenithBudgetBuilder.Build(ts, w.Target, w.Procedure, Sight(observation.To)),
+                    ZenithBudgetBuilder.Build(ts, w.Target, w.Procedure, Sight(observation.To),
+                        observation is ZenithObservation { RefractionEstimated: false } z ? z.RefractionSd : 0),
                 _ => throw new InvalidInputException(
                     $"a {kind.Name.Replace('_', ' ')} is not weighted from an instrument"),
             };

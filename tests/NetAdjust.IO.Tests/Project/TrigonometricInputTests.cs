@@ -117,14 +117,15 @@ public class TrigonometricInputTests
     [Theory]
     [InlineData("slope_distance,A,B,500.12,2 mm", "slope distance A→B")]
     [InlineData("zenith,A,B,88-37-00,3", "zenith A→B")]
-    public void ACsvRowOfTheseKindsIsRefusedWithFileAndLineNotReadAsAnotherKind(string row, string item)
+    public void ACsvRowOfTheseKindsWithoutHeightsIsRefusedWithFileAndLineNotReadAsAnotherKind(string row, string item)
     {
-        // Regression: a CSV row of an unlisted kind fell through to a height difference.
+        // Regression: a CSV row of an unlisted kind fell through to a height difference. These kinds are read from
+        // CSV now (CsvTrigonometricTests), with their instrument and target heights.
         string yaml = Head + "files:\n  - obs.csv\n";
         var e = Assert.Throws<ProjectFileException>(() => ProjectReader.Parse(yaml, "t.yaml", Path.GetTempPath(),
             _ => "kind,from,to,value,sd\n" + row + "\n"));
         Assert.StartsWith($"obs.csv:2: {item}", e.Message);
-        Assert.Contains("not read from CSV yet", e.Message);
+        Assert.Contains("the 'instrument_height' field is empty", e.Message);
     }
 
     [Fact]

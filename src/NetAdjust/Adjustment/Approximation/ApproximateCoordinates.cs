@@ -1,3 +1,4 @@
+using NetAdjust.Geometry;
 using NetAdjust.Network;
 
 namespace NetAdjust.Adjustment.Approximation;
@@ -17,7 +18,8 @@ namespace NetAdjust.Adjustment.Approximation;
 /// </list>
 /// The strengths are named by <see cref="ConstructionStrength"/>; the constructions are the pure functions of
 /// <see cref="Constructions"/>; what each observation kind offers is mapped in <see cref="ApproximationOffers"/>.
-/// Heights follow a breadth-first spanning tree of height differences from points with heights.
+/// Heights follow a breadth-first spanning tree of height differences (levelled, or reduced from zenith angles and
+/// slope distances) from points with heights.
 /// </summary>
 internal static class ApproximateCoordinates
 {
@@ -48,15 +50,24 @@ internal static class ApproximateCoordinates
 
     /// <summary>
     /// Fills in heights of points in <paramref name="height"/> that lack them by a breadth-first spanning tree of
-    /// height differences from the points with heights (<see cref="Constructions.LevellingTree"/>). A part of the
-    /// level network with no height at all starts from 0 at its first point (the datum diagnosis decides whether
-    /// that is allowed).
+    /// height differences from the points with heights (<see cref="Constructions.LevellingTree"/>): levelled ones
+    /// first, then those reduced from zenith angles and slope distances
+    /// (<see cref="ApproximationOffers.TrigonometricEdges"/>). A part of the network with no height at all starts
+    /// from 0 at its first point (the datum diagnosis decides whether that is allowed).
     /// </summary>
     /// <param name="network">The network.</param>
-    /// <param name="height">Points taking part in height differences.</param>
+    /// <param name="height">Points taking part in height differences, zenith angles or slope distances.</param>
     /// <param name="h">Heights known so far, completed in place.</param>
+    /// <param name="e">Eastings located so far (for zenith angles without a slope distance); null for none.</param>
+    /// <param name="n">Northings located so far.</param>
     public static void Heights(SurveyNetwork network, IReadOnlyCollection<string> height,
-        Dictionary<string, double> h) =>
+        Dictionary<string, double> h, IReadOnlyDictionary<string, double>? e = null,
+        IReadOnlyDictionary<string, double>? n = null)
+    {
+        PlanePoint? At(string id) => e is not null && n is not null && e.TryGetValue(id, out double pe)
+            && n.TryGetValue(id, out double pn) ? new PlanePoint(pe, pn) : null;
         Constructions.LevellingTree(network.Points.Select(p => p.Id).Where(height.Contains).ToList(),
-            ApproximationOffers.LevellingEdges(network), h);
+            [.. ApproximationOffers.LevellingEdges(network), .. ApproximationOffers.TrigonometricEdges(network, At)],
+            h);
+    }
 }

@@ -19,7 +19,8 @@ internal static class ApproximationOffers
     public static DirectionObservation? SetMember(Observation o) => o as DirectionObservation;
 
     /// <summary>Whether the observation fixes the scale of a part built in a local frame (distances).</summary>
-    public static bool FixesScale(Observation o) => o.Kind == ObservationKind.Distance && !o.Excluded;
+    public static bool FixesScale(Observation o) =>
+        o.Kind is ObservationKind.Distance or ObservationKind.SlopeDistance && !o.Excluded;
 
     /// <summary>Whether the observation ties plane positions (every kind but height differences).</summary>
     public static bool IsPlane(Observation o) => ObservationKindRegistry.IsHorizontal(o.Kind);
@@ -29,6 +30,52 @@ internal static class ApproximationOffers
     public static IEnumerable<(string From, string To, double Dh)> LevellingEdges(SurveyNetwork network) =>
         network.Observations.OfType<HeightDifferenceObservation>().OrderBy(x => x.Excluded)
             .Select(o => (o.From, o.To, o.Value));
+
+    /// <summary>
+    /// Height differences H(to) − H(from) of the marks reduced from zenith angles: the trigonometric height
+    /// ΔH = D cos z + (1 − k)s²/(2R) + i − t (docs/methods.md) with the slope distance D observed between the same
+    /// points (s = D sin z), else s from the plane coordinates located so far; set-aside observations last. Zenith
+    /// angles with neither give no edge.
+    /// </summary>
+    /// <param name="network">The network.</param>
+    /// <param name="plane">The located plane coordinates of a point, or null when it has none yet.</param>
+    public static IEnumerable<(string From, string To, double Dh)> TrigonometricEdges(SurveyNetwork network,
+        Func<string, PlanePoint?> plane)
+    {
+        var slopes = new Dictionary<(string, string), SlopeDistanceObservation>();
+        foreach (var d in network.Observations.OfType<SlopeDistanceObservation>().OrderBy(x => x.Excluded))
+            slopes.TryAdd((d.From, d.To), d);
+        foreach (var z in network.Observations.OfType<ZenithObservation>().OrderBy(x => x.Excluded))
+        {
+            double cot = Math.Cos(z.Value) / Math.Sin(z.Value), s, rise;
+            if (slopes.TryGetValue((z.From, z.To), out var d))
+            {
+                s = d.Value * Math.Sin(z.Value);
+                // D cos z is the rise of the slope distance's line: it is taken between the slope distance's own
+                // instrument and target heights, which the zenith angle's i − t added below then replaces
+                rise = (d.Value * Math.Cos(z.Value)) + d.InstrumentHeight.Metres - d.TargetHeight.Metres
+                    - z.InstrumentHeight.Metres + z.TargetHeight.Metres;
+            }
+            else if (plane(z.From) is PlanePoint a && plane(z.To) is PlanePoint b)
+            {
+                s = Math.Sqrt(((b.E - a.E) * (b.E - a.E)) + ((b.N - a.N) * (b.N - a.N)));
+                rise = s * cot;
+            }
+            else continue;
+            yield return (z.From, z.To, rise + SpatialGeometry.CurvatureAndRefraction(s, z.Refraction)
+                + z.InstrumentHeight.Metres - z.TargetHeight.Metres);
+        }
+    }
+
+    /// <summary>The horizontal distance s = D sin z of a slope distance, from a zenith angle observed between the
+    /// same points (either way), or null when there is none.</summary>
+    private static double? Horizontal(ObservationIndex index, SlopeDistanceObservation d)
+    {
+        foreach (var o in index.ObservationsOf(d.From))
+            if (o is ZenithObservation z && ((z.From == d.From && z.To == d.To) || (z.From == d.To && z.To == d.From)))
+                return d.Value * Math.Sin(z.Value);
+        return null;
+    }
 
     /// <summary>
     /// Everything that ties point <paramref name="id"/> to located points: rays from located stations, circles
@@ -52,6 +99,9 @@ internal static class ApproximationOffers
                     circles.Add(new Circle(d.To, q, d.Value, d.StandardDeviation)); break;
                 case DistanceObservation d when d.To == id && known.TryGetValue(d.From, out var q):
                     circles.Add(new Circle(d.From, q, d.Value, d.StandardDeviation)); break;
+                case SlopeDistanceObservation d when Horizontal(index, d) is double s
+                                                    && known.TryGetValue(d.From == id ? d.To : d.From, out var q):
+                    circles.Add(new Circle(d.From == id ? d.To : d.From, q, s, d.StandardDeviation)); break;
                 case AzimuthObservation a when a.To == id && known.TryGetValue(a.From, out var q):
                     rays.Add(new Ray(a.From, q, a.Value, a.StandardDeviation)); break;
                 case AzimuthObservation a when a.From == id && known.TryGetValue(a.To, out var q):

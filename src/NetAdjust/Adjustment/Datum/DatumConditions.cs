@@ -81,6 +81,7 @@ internal static class DatumConditions
                 double v = 0;
                 if (unk.Parameter == Parameter.Orientation) v = defects[k] == DatumDefect.Rotation ? 1 / len : 0;
                 else if (unk.Parameter == Parameter.H) v = defects[k] == DatumDefect.Height ? 1 : 0;
+                else if (unk.Parameter == Parameter.Refraction) v = 0; // k is not moved by any datum change
                 else
                 {
                     var p = at(unk.Owner);
@@ -117,7 +118,8 @@ internal static class DatumConditions
             for (int j = 0; j < unknowns.Count; j++)
             {
                 var unk = unknowns[j];
-                if (unk.Parameter != Parameter.Orientation && (subset is null || subset.Contains(unk.Owner)))
+                if (unk.Parameter is not (Parameter.Orientation or Parameter.Refraction)
+                    && (subset is null || subset.Contains(unk.Owner)))
                     b[k][j] = g[k][j];
             }
         }

@@ -71,6 +71,13 @@ internal sealed partial class DatumPlan
         catch (SingularNormalMatrixException e)
         {
             var what = Index.Unknowns[toFull(e.Column)];
+            if (what.Parameter == Parameter.Refraction)
+                throw new DatumDefectException(
+                    $"The observations do not determine the {what.Describe()}: estimating k needs zenith angles " +
+                    "of the group observed both ways between the same points (reciprocal), or zenith angles " +
+                    "between points whose heights are known from elsewhere (held, or levelled). Observe " +
+                    $"reciprocal zenith angles, or assume k for group {what.Owner} instead of estimating it.",
+                    [what.Describe()]);
             throw new DatumDefectException(
                 $"The datum is not defined: the observations and control do not determine the {what.Describe()}. " +
                 "The network holds its datum, but the geometry there is too weak: a point reached by a single " +

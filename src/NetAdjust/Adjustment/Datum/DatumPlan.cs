@@ -111,7 +111,7 @@ internal sealed partial class DatumPlan
         // lengths: provisional ones until the adjustment weights at its own coordinates.
         ApproximateCoordinates.Plane(StochasticModel.WithProvisionalDeviations(network), plane, e, nn,
             seedWhenNothingKnown: definition.Mode != DatumMode.Control);
-        ApproximateCoordinates.Heights(network, height, h);
+        ApproximateCoordinates.Heights(network, height, h, e, nn);
         CoordinateCheck.Check(network, e, nn);
 
         bool control = definition.Mode == DatumMode.Control;
@@ -146,7 +146,14 @@ internal sealed partial class DatumPlan
                 - d.Reading.Radians))!.Value;
             if (set.Any(d => !d.Excluded)) index.Add(new Unknown(set.Key, Parameter.Orientation));
         }
-        var state = new ParameterState(e, nn, h, orientation);
+        // Refraction unknowns: one per group of zenith angles whose k is estimated, started at its assumed k.
+        var refraction = new Dictionary<string, double>(StringComparer.Ordinal);
+        foreach (var (group, start, used) in RefractionGroups.Estimated(network))
+        {
+            refraction[group] = start;
+            if (used) index.Add(new Unknown(group, Parameter.Refraction));
+        }
+        var state = new ParameterState(e, nn, h, orientation, refraction);
         return new DatumPlan(network, definition, index, state, planePoints, heightPoints,
             new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string,
                 double>(nn, StringComparer.Ordinal),
