@@ -114,7 +114,7 @@ internal static class CsvObservationReader
                 lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item,
                 r.Error!); }
             string source = $"{file}:{lineNo}";
-            Observation o = kind switch
+            Observation o = ProjectReader.GuardedRow(file, lineNo, item, () => kind switch
             {
                 ObservationKind.Distance =>
                     new DistanceObservation(Need("from", from), Need("to", to),
@@ -134,7 +134,7 @@ internal static class CsvObservationReader
                 _ => throw new ProjectFileException(file, lineNo, item, $"a {kind.Name().Replace('_', ' ')} is not " +
                     "read from CSV yet (it needs its setup's instrument height and a target height): write it in a " +
                     "setup of the project file"),
-            };
+            });
             result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"),
                 Get("sd_factor"), file, lineNo, item));
         }
