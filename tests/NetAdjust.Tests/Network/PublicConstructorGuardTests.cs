@@ -175,7 +175,8 @@ public sealed class PublicConstructorGuardTests
     [Fact]
     public void ATypedStandardDeviationKeepsItsUnit()
     {
-        // SI Brochure (BIPM, 9th ed. 2019), Table 8: 1″ = (1/60)′ = (π/648 000) rad; Table 7: milli = 10⁻³.
+        // The SI Brochure (BIPM, 9th ed. 2019): 1″ = (1/60)′ = (π/648 000) rad (Table 8) and milli = 10⁻³ (Table 7);
+        // the table numbers are from memory, the two definitions common practice.
         var d = new DirectionObservation("A", "B", Angle.FromDegrees(10), "A/1") { Sd = Angle.FromArcseconds(2) };
         Assert.Equal(2 * Math.PI / 648000, d.StandardDeviation, 1e-18);
         Assert.Equal(2, d.Sd!.Value.AsAngle!.Value.Arcseconds, 12);
