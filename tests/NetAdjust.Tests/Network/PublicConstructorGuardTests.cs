@@ -3,16 +3,18 @@ using FsCheck;
 using FsCheck.Fluent;
 using NetAdjust.Network;
 using NetAdjust.Observations;
+using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
 namespace NetAdjust.Tests.Network;
 
 /// <summary>
-/// Every public constructor of an observation, a point, a typed standard deviation and an instrument specification
-/// refuses impossible input: a standard deviation that is NaN, infinite, negative or zero, a value that is not
-/// finite, a distance, section length or instrument height below zero, an empty id. Observations, points and
-/// standard deviations throw an <see cref="ArgumentException"/> (<see cref="ArgumentOutOfRangeException"/> for
-/// numbers) naming the parameter; specifications throw <see cref="InvalidInputException"/> naming the quantity, as
+/// Every public constructor of an observation, a point, a typed standard deviation, an error budget and an instrument
+/// specification refuses impossible input: a standard deviation that is NaN, infinite, negative or zero, a value
+/// that is not finite, a distance, section length or instrument height below zero, an empty id. Observations,
+/// points, standard deviations and budgets throw an <see cref="ArgumentException"/>
+/// (<see cref="ArgumentOutOfRangeException"/> for numbers of observations and points) naming the parameter;
+/// specifications throw <see cref="InvalidInputException"/> naming the quantity, as
 /// the project reader reports it. Common practice: a standard deviation is a positive finite number; a measured
 /// distance is positive; an instrument stands above its mark.
 /// The observation constructors are found by reflection, so a new kind is checked without being listed here.
@@ -132,7 +134,8 @@ public sealed class PublicConstructorGuardTests
                 && Refuses<ArgumentOutOfRangeException>(() => dir with { Sd = Angle.FromRadians(v) }, "sd")
                 && Refuses<ArgumentOutOfRangeException>(() => point with { SdE = v }, "SdE")
                 && Refuses<ArgumentOutOfRangeException>(() => point with { SdN = v }, "SdN")
-                && Refuses<ArgumentOutOfRangeException>(() => point with { SdH = v }, "SdH"))
+                && Refuses<ArgumentOutOfRangeException>(() => point with { SdH = v }, "SdH")
+                && Refuses<ArgumentException>(() => new ErrorBudget([new("pointing", v)]), "contributions"))
             .QuickCheckThrowOnFailure();
         // The default of the struct (zero) cannot slip through the observation's init either.
         Assert.Equal("Sd", Assert.Throws<ArgumentOutOfRangeException>(() => obs with { Sd = default(ObservationSd) })
