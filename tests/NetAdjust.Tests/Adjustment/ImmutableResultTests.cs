@@ -1,18 +1,21 @@
 using System.Collections;
 using System.Reflection;
 using NetAdjust.Adjustment;
+using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Procedures;
 using NetAdjust.Simulation;
 using NetAdjust.Statistics;
+using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
 namespace NetAdjust.Tests.Adjustment;
 
 /// <summary>
 /// Results are immutable: no public setter, and no collection reachable through the public properties of a result
-/// (adjustment, analysis, sequence, blunder hunt, robust estimate, variance components, with the network and
-/// inputs they hold) that a caller could change, by casting it back to an array or a list or otherwise. Found by
+/// (adjustment, analysis, sequence, blunder hunt, robust estimate, variance components, stochastic model, with the
+/// network and inputs they hold) that a caller could change, by casting it back to an array or a list or otherwise. Found by
 /// walking the public properties, so a new result member is checked without being listed here.
 /// </summary>
 public sealed class ImmutableResultTests
@@ -37,6 +40,7 @@ public sealed class ImmutableResultTests
             DataSnooping.Run(Network(DemoScenario.Harrowfield)),
             RobustEstimation.Run(net, RobustMethod.Huber),
             VarianceComponents.Estimate(Network(DemoScenario.Brackenmoor)),
+            StochasticModel.Build(result.Network, new Adjusted(result), CenteringModel.Correlated, 1.0),
         ];
         var changeable = new List<string>();
         var seen = new HashSet<object>(ReferenceEqualityComparer.Instance);
@@ -75,6 +79,20 @@ public sealed class ImmutableResultTests
             .Select(p => $"{p.DeclaringType!.Name}.{p.Name}")
             .ToList();
         Assert.Empty(setters);
+    }
+
+    /// <summary>The adjusted coordinates and orientations of a result.</summary>
+    private sealed class Adjusted(AdjustmentResult r) : ICoordinates
+    {
+        public PlanePoint Plane(string id)
+        {
+            var p = r.Points.Single(q => q.Id == id);
+            return new PlanePoint(p.E ?? 0, p.N ?? 0);
+        }
+
+        public double Height(string id) => r.Points.Single(q => q.Id == id).H ?? 0;
+
+        public double Orientation(string setId) => r.Orientations.Single(o => o.SetId == setId).Orientation;
     }
 
     /// <summary>Records every changeable collection under <paramref name="o"/>; follows NetAdjust's own
