@@ -16,12 +16,14 @@ var dms = new AnglePattern(AngleFormat.Dms, 1);
 Angle Dms(string text) => dms.Parse(text).Value;
 
 // Equipment: a total station (ISO 17123-3 direction sd 3", EDM 2 mm + 2 ppm, centering 1 mm), prisms in tribrachs
-// observed in two sets in both faces, and a level of 1.0 mm per km double-run levelling (ISO 17123-2).
-var ts3 = new TotalStationSpecification("TS3", Angle.FromArcseconds(3).Radians, Angle.FromArcseconds(3).Radians,
-    new EdmSpecification(0.002, 2), 0.001, 0.0015);
-var tribrach = new TargetSpecification("TRIBRACH", 0.001, 0.0015);
+// observed in two sets in both faces, and a level of 1.0 mm per km double-run levelling (ISO 17123-2). Standard
+// deviations are typed like the values (Angle, Length): a bare number is not taken, so arcseconds cannot be
+// mistaken for radians.
+var ts3 = new TotalStationSpecification("TS3", Angle.FromArcseconds(3), Angle.FromArcseconds(3),
+    new EdmSpecification(Length.FromMillimetres(2), 2), Length.FromMillimetres(1), Length.FromMillimetres(1.5));
+var tribrach = new TargetSpecification("TRIBRACH", Length.FromMillimetres(1), Length.FromMillimetres(1.5));
 var twoSets = new ObservingProcedure(2, Faces.Both);
-var dl10 = LevelSpecification.PerKm("DL10", 0.001);
+var dl10 = LevelSpecification.PerKm("DL10", Length.FromMillimetres(1));
 
 // Points: two held control stations, six traverse stations with rough coordinates, a held benchmark, four new ones.
 var points = new List<Point>
@@ -88,6 +90,12 @@ var s3 = result.Points.Single(p => p.Id == "S3");
 var bmk3 = result.Points.Single(p => p.Id == "BMK3");
 Console.WriteLine(string.Create(inv, $"S3: E {s3.E:F4} N {s3.N:F4} m (sd {s3.SdE:F4} {s3.SdN:F4})"));
 Console.WriteLine(string.Create(inv, $"BMK3: H {bmk3.H:F4} m (sd {bmk3.SdH:F4})"));
+
+// Each observation's a-priori standard deviation, derived from the equipment at the adjusted coordinates, is typed
+// like its value: an angle for a direction, a length for a distance (an observation can also be given one directly,
+// e.g. new DistanceObservation(...) { Sd = Length.FromMillimetres(3) }).
+foreach (var o in result.Network.Observations.Where(o => o.From == "S1"))
+    Console.WriteLine($"{o.Describe()}: a-priori sd {o.Sd}");
 
 // The handover report: one self-contained HTML file with the network plot, the tests and the caution.
 string html = args.Length > 0 ? args[0] : "sample-report.html";

@@ -40,7 +40,7 @@ public sealed class DatumDefectException : AdjustmentFailedException
     /// <param name="message">Which unknowns are undetermined and what to add.</param>
     /// <param name="undetermined">Descriptions of the unknowns found undetermined (e.g. "easting of T4").</param>
     public DatumDefectException(string message, IReadOnlyList<string> undetermined) : base(message) =>
-        Undetermined = undetermined;
+        Undetermined = ReadOnlyCopies.List(undetermined);
 
     /// <summary>Descriptions of the unknowns found undetermined.</summary>
     public IReadOnlyList<string> Undetermined { get; }

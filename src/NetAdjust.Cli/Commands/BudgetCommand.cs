@@ -71,10 +71,10 @@ internal static class BudgetCommand
                 throw new InvalidInputException("--edm is required, e.g. --edm \"2 mm + 2 ppm\"");
             var spec = EdmSpecification.Parse(specText, unit);
             if (!spec.Success) throw new InvalidInputException($"--edm: {spec.Error}");
-            var ts = new TotalStationSpecification("(command line)", 1.0, 0, spec.Value, OptionalLength(p.GetValue(ic),
-                "--instrument-centering", unit), 0);
-            var target = new TargetSpecification("(command line)", OptionalLength(p.GetValue(tc), "--target-centering",
-                unit), 0);
+            var ts = new TotalStationSpecification("(command line)", Angle.FromRadians(1.0), Angle.Zero, spec.Value,
+                Length.FromMetres(OptionalLength(p.GetValue(ic), "--instrument-centering", unit)), Length.Zero);
+            var target = new TargetSpecification("(command line)",
+                Length.FromMetres(OptionalLength(p.GetValue(tc), "--target-centering", unit)), Length.Zero);
             var budget = DistanceBudgetBuilder.Build(ts, target, d);
             string title =
                 $"horizontal distance {Fmt(Length.FromMetres(d).In(unit), 4)} {unit.Symbol}, EDM {specText.Trim()}";
@@ -119,8 +119,9 @@ internal static class BudgetCommand
             var procedure = new ObservingProcedure(Count(p.GetValue(sets), "--sets", 1000), FacesOf(p.GetValue(faces)));
             double ci = OptionalLength(p.GetValue(ic), "--instrument-centering", unit), ct =
                 OptionalLength(p.GetValue(tc), "--target-centering", unit);
-            var ts = new TotalStationSpecification("(command line)", sd, 0, null, ci, 0);
-            var target = new TargetSpecification("(command line)", ct, 0);
+            var ts = new TotalStationSpecification("(command line)", Angle.FromRadians(sd), Angle.Zero, null,
+                Length.FromMetres(ci), Length.Zero);
+            var target = new TargetSpecification("(command line)", Length.FromMetres(ct), Length.Zero);
             string proc =
                 $"{procedure.Sets} set{(procedure.Sets == 1 ? "" : "s")}, " +
                 $"{(procedure.Faces == Faces.Both ? "both faces" : "one face")}";
@@ -200,14 +201,14 @@ internal static class BudgetCommand
                     (rounding, "--rounding") })
                     if (p.GetValue(o) is not null)
                         throw new InvalidInputException($"{n} belongs to the per-reading model (--reading-sd)");
-                var level = LevelSpecification.PerKm("(command line)", RequiredLength(pk, "--per-km", unit,
-                    positive: true));
+                var level = LevelSpecification.PerKm("(command line)", Length.FromMetres(RequiredLength(pk, "--per-km",
+                    unit, positive: true)));
                 double l = RequiredLength(p.GetValue(length), "--length", unit, positive: true);
                 int r = Count(p.GetValue(runs), "--runs", 100, 2);
                 budget = HeightDifferenceBudgetBuilder.Build(level, l, new LevellingProcedure(1, r));
                 title =
                     $"levelling line {Fmt(l / 1000, 3)} km, {r} run{(r == 1 ? "" : "s")}, " +
-                    $"{Fmt(Length.FromMetres(level.SdPerKm!.Value).In(unit), 5)} {unit.Symbol} per km (ISO 17123-2)";
+                    $"{Fmt(level.StandardDeviationPerKm!.Value.In(unit), 5)} {unit.Symbol} per km (ISO 17123-2)";
             }
             else
             {
@@ -216,9 +217,9 @@ internal static class BudgetCommand
                         "--length belongs to the per-km model (--per-km); give --setups with --reading-sd");
                 string? rt = p.GetValue(rounding);
                 var treatment = CliChoice.Parse(rt, "--rounding", OptionGrammars.Rounding, RoundingTreatment.Uniform);
-                var level = LevelSpecification.PerReading("(command line)", RequiredLength(rs, "--reading-sd", unit,
-                    positive: false),
-                    OptionalLength(p.GetValue(resolution), "--resolution", unit), treatment);
+                var level = LevelSpecification.PerReading("(command line)", Length.FromMetres(RequiredLength(rs,
+                    "--reading-sd", unit, positive: false)),
+                    Length.FromMetres(OptionalLength(p.GetValue(resolution), "--resolution", unit)), treatment);
                 if (p.GetValue(setups) is null)
                     throw new InvalidInputException("--setups is required with --reading-sd");
                 var proc = new LevellingProcedure(Count(p.GetValue(setups), "--setups", 100000), Count(p.GetValue(runs),

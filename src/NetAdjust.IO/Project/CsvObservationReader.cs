@@ -124,7 +124,7 @@ internal static partial class CsvObservationReader
                 r.Error!); }
             string source = $"{file}:{lineNo}";
             CheckTotalStationFields(kind, Get, file, lineNo, item);
-            Observation o = kind switch
+            Observation o = ProjectReader.GuardedRow(file, lineNo, item, () => kind switch
             {
                 ObservationKind.Distance =>
                     new DistanceObservation(Need("from", from), Need("to", to),
@@ -146,7 +146,7 @@ internal static partial class CsvObservationReader
                         item) with { StandardDeviation = sd, Source = source },
                 _ => throw new ProjectFileException(file, lineNo, item, $"a {kind.Name().Replace('_', ' ')} is not " +
                     "read from CSV: write it in the project file"),
-            };
+            });
             if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, item));
             result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"),
                 Get("sd_factor"), file, lineNo, item));

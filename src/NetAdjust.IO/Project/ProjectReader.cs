@@ -129,7 +129,7 @@ public static partial class ProjectReader
         var points = new List<Point>();
         if (ctx.Child(root, "points") is YamlNode pts)
             foreach (var node in ctx.Sequence(pts, "points"))
-                points.Add(ReadPoint(ctx, node, lengths));
+                points.Add(Guarded(ctx, node, "a point", () => ReadPoint(ctx, node, lengths)));
         InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
@@ -139,10 +139,12 @@ public static partial class ProjectReader
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
             foreach (var node in ctx.Sequence(setups, "setups"))
-                ReadSetup(ctx, node, lengths, angles, units, defaults, setsPerStation, observations, specs);
+                Guarded(ctx, node, "a setup", () =>
+                    ReadSetup(ctx, node, lengths, angles, units, defaults, setsPerStation, observations, specs));
         if (ctx.Child(root, "levelling") is YamlNode lev)
             foreach (var node in ctx.Sequence(lev, "levelling"))
-                observations.Add(ReadLevelling(ctx, node, lengths, units, defaults, specs));
+                observations.Add(Guarded(ctx, node, "a levelling section",
+                    () => ReadLevelling(ctx, node, lengths, units, defaults, specs)));
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
         var listedTwice = new List<string>();
@@ -306,7 +308,7 @@ public static partial class ProjectReader
     private static Point ReadPoint(Context ctx, YamlNode node, LengthPattern lengths)
     {
         var m = ctx.Mapping(node, "a point");
-        string id = ctx.RequiredString(m, "id", "a point");
+        string id = RequiredId(ctx, m, "id", "a point");
         string item = "point " + id;
         ctx.CheckKeys(m, ["id", "e", "n", "h", "fix", "sd_e", "sd_n", "sd_h"], item);
         double? Len(string key)
@@ -336,7 +338,7 @@ public static partial class ProjectReader
             List<Observation> setupOutput, StochasticInputs specs)
     {
         var m = ctx.Mapping(node, "a setup");
-        string at = ctx.RequiredString(m, "at", "a setup");
+        string at = RequiredId(ctx, m, "at", "a setup");
         string item = "setup at " + at;
         ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets",
             "faces", "instrument_height", "slope_distances", "zeniths", "refraction_group"], item);
@@ -364,9 +366,9 @@ public static partial class ProjectReader
                 var (to, value, sd, src, budget, target) =
                     ReadSighting(ctx, dn, ObservationKind.Distance, units, defaults, Keys(ObservationKind.Distance),
                     item, spec, specs);
-                output.Add(new(new DistanceObservation(at, to,
-                    ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}")) { StandardDeviation = sd, Source =
-                    src },
+                output.Add(new(new DistanceObservation(at, to, PositiveDistance(ctx, dn,
+                    ctx.ParseLength(dn, lengths, value, $"distance {at}→{to}"), $"distance {at}→{to}"))
+                { StandardDeviation = sd, Source = src },
                     budget, target, dn, $"distance to {to} in the {item}"));
             }
         if (ctx.Child(m, "azimuths") is YamlNode azs)
@@ -385,7 +387,7 @@ public static partial class ProjectReader
                 var (to, value, sd, src, budget, target) =
                     ReadSighting(ctx, an, ObservationKind.Angle, units, defaults, Keys(ObservationKind.Angle), item,
                     spec, specs);
-                string from = ctx.RequiredString(ctx.Mapping(an, item), "from", $"angle at {at}");
+                string from = RequiredId(ctx, ctx.Mapping(an, item), "from", $"angle at {at}");
                 output.Add(new(new AngleObservation(at, from, to,
                     ctx.ParseAngle(an, angles, value, $"angle at {at} from {from} to {to}")) { StandardDeviation = sd,
                     Source = src },
@@ -402,7 +404,7 @@ public static partial class ProjectReader
         SetupSpec spec, StochasticInputs specs)
     {
         var m = ctx.Mapping(node, $"a {kind.Name()} in the {setupItem}");
-        string to = ctx.RequiredString(m, "to", $"a {kind.Name()} in the {setupItem}");
+        string to = RequiredId(ctx, m, "to", $"a {kind.Name()} in the {setupItem}");
         string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
         ctx.CheckKeys(m, [.. keys, .. ObservationMarks.Keys], item);
         string value = ctx.RequiredString(m, "value", item);
@@ -426,8 +428,8 @@ public static partial class ProjectReader
         StochasticInputs specs)
     {
         var m = ctx.Mapping(node, "a levelling section");
-        string from = ctx.RequiredString(m, "from", "a levelling section");
-        string to = ctx.RequiredString(m, "to", "a levelling section");
+        string from = RequiredId(ctx, m, "from", "a levelling section");
+        string to = RequiredId(ctx, m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
         ctx.CheckKeys(m, [.. Keys(ObservationKind.HeightDifference), .. ObservationMarks.Keys], item);
         var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);

@@ -87,7 +87,8 @@ public sealed class AdjustmentResult
         IReadOnlyList<SparseRow> designRows, WeightMatrix weights)
     {
         Network = network; Options = options; Unknowns = unknowns; _factor = factor;
-        Points = points; Observations = observations; Orientations = orientations; Statistics = statistics;
+        Points = ReadOnlyCopies.List(points); Observations = ReadOnlyCopies.List(observations);
+        Orientations = ReadOnlyCopies.List(orientations); Statistics = statistics;
         SolverName = solverName; DesignRows = designRows; Weights = weights;
     }
 
@@ -131,13 +132,13 @@ public sealed class AdjustmentResult
 
     /// <summary>
     /// The design matrix rows at the solution: first one per observation (in input order), then one per
-    /// weighted-control component. Values in SI units.
+    /// weighted-control component. Values in SI units. Internal: the rows hold arrays that a caller could change.
     /// </summary>
-    public IReadOnlyList<SparseRow> DesignRows { get; }
+    internal IReadOnlyList<SparseRow> DesignRows { get; }
 
     /// <summary>The weight matrix P (σ0² Σ⁻¹; diagonal σ0²/σ² for uncorrelated observations) of <see
     /// cref="DesignRows"/>.</summary>
-    public WeightMatrix Weights { get; }
+    internal WeightMatrix Weights { get; }
 
     /// <summary>The cofactor Qxx(i, j) = (N⁻¹)ᵢⱼ of two unknowns (multiply by σ0² for covariance).</summary>
     /// <param name="i">Unknown index.</param>

@@ -91,7 +91,11 @@ public sealed record AnalysisOptions
     public bool RelativeForObservedPairs { get; init; } = true;
 
     /// <summary>Further pairs of points (ids) for relative ellipses, in the order given.</summary>
-    public IReadOnlyList<(string From, string To)> RelativePairs { get; init; } = [];
+    public IReadOnlyList<(string From, string To)> RelativePairs
+    {
+        get;
+        init => field = ReadOnlyCopies.ListOrNull(value)!; // null is refused by Validate
+    } = ReadOnlyCopies.List<(string, string)>([]);
 
     /// <summary>Checks the options.</summary>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>

@@ -30,8 +30,11 @@ public sealed class UnknownIndex
     private readonly Dictionary<Unknown, int> _map = new();
     private readonly List<Unknown> _list = new();
 
-    /// <summary>The unknowns in index order.</summary>
-    public IReadOnlyList<Unknown> Unknowns => _list;
+    /// <summary>Creates an empty numbering (the adjuster fills it).</summary>
+    public UnknownIndex() => Unknowns = _list.AsReadOnly();
+
+    /// <summary>The unknowns in index order (a read-only view).</summary>
+    public IReadOnlyList<Unknown> Unknowns { get; }
 
     /// <summary>The number of unknowns.</summary>
     public int Count => _list.Count;

@@ -51,11 +51,22 @@ public static class ObservationKinds
 
     /// <summary>All kinds in documentation order.</summary>
     public static IReadOnlyList<ObservationKind> All { get; } = Enum.GetValues<ObservationKind>();
+
+    /// <summary>True when the kind's value (and so its standard deviation) is an angle; the same answer as the
+    /// kind's description in <c>NetAdjust.Observations</c> (a test keeps them equal).</summary>
+    internal static bool ValueIsAngle(ObservationKind kind) => kind switch
+    {
+        ObservationKind.Distance or ObservationKind.HeightDifference or ObservationKind.SlopeDistance => false,
+        ObservationKind.Direction or ObservationKind.Angle or ObservationKind.Azimuth or ObservationKind.Zenith => true,
+        _ => throw new ArgumentOutOfRangeException(nameof(kind)),
+    };
 }
 
 /// <summary>
-/// One measured quantity with its a-priori standard deviation. Values and standard deviations are SI:
-/// metres for lengths, radians for angles.
+/// One measured quantity with its a-priori standard deviation. The constructors take values typed as
+/// <see cref="Length"/> or <see cref="Angle"/> and refuse impossible ones (empty ids, a distance that is not positive,
+/// a value that is not finite) with an <see cref="ArgumentException"/> naming the parameter; <see cref="Value"/> is
+/// the value in SI units (metres or radians) and <see cref="Sd"/> the standard deviation, typed like the value.
 /// </summary>
 public abstract record Observation
 {
@@ -75,10 +86,33 @@ public abstract record Observation
     public abstract string To { get; }
 
     /// <summary>
-    /// A-priori standard deviation in SI units (metres or radians); must be positive, except NaN for an observation
-    /// whose <see cref="Weighting"/> gives it (the adjustment result's network holds the derived value).
+    /// A-priori standard deviation in SI units (metres or radians) for the adjustment's hot path; NaN for an
+    /// observation whose <see cref="Weighting"/> gives it. Internal: the public, typed view is <see cref="Sd"/>.
+    /// Not checked here (the project reader checks it later, naming file and line).
     /// </summary>
-    public double StandardDeviation { get; init; } = double.NaN;
+    internal double StandardDeviation { get; init; } = double.NaN;
+
+    /// <summary>
+    /// The a-priori standard deviation, typed like the value: a length for distances, slope distances and height
+    /// differences, an angle for directions, angles, azimuths and zenith angles (e.g.
+    /// <c>{ Sd = Angle.FromArcseconds(2) }</c>). Null when the stochastic model derives it from
+    /// <see cref="Weighting"/>; the adjustment result's network holds the derived value.
+    /// </summary>
+    /// <exception cref="ArgumentException">On init, when a length is given to an angular kind or an angle to a
+    /// linear one.</exception>
+    public ObservationSd? Sd
+    {
+        get => double.IsNaN(StandardDeviation) ? null
+            : ObservationSd.FromSi(StandardDeviation, ObservationKinds.ValueIsAngle(Kind));
+        init
+        {
+            if (value is ObservationSd sd && sd.IsAngle != ObservationKinds.ValueIsAngle(Kind))
+                throw new ArgumentException($"A {Kind.Name().Replace('_', ' ')} takes its standard deviation as " +
+                    (sd.IsAngle ? "a length, not an angle." : "an angle, not a length."), nameof(Sd));
+            if (value is ObservationSd given) Guards.PositiveSd(given.Si, nameof(Sd), given.IsAngle ? "rad" : "m");
+            StandardDeviation = value?.Si ?? double.NaN;
+        }
+    }
 
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
@@ -91,13 +125,13 @@ public abstract record Observation
 
     /// <summary>
     /// The factor (≥ 1 normally; any positive value) by which the user re-weighted this observation's standard
-    /// deviation; <see cref="StandardDeviation"/> already includes it. 1 when not re-weighted. For reports only.
+    /// deviation; <see cref="Sd"/> already includes it. 1 when not re-weighted. For reports only.
     /// </summary>
     public double SdFactor { get; init; } = 1.0;
 
     /// <summary>
     /// The specifications the standard deviation is derived from (instrument, target, procedure, or level), or null
-    /// when the standard deviation is given directly. With a weighting and no <see cref="StandardDeviation"/> (NaN),
+    /// when the standard deviation is given directly. With a weighting and no <see cref="Sd"/> (null),
     /// the stochastic model derives σ (times <see cref="SdFactor"/>) at the adjustment's coordinates; a finite
     /// standard deviation (e.g. set by a re-weighting procedure) is used as it is, the weighting then giving the
     /// shape of its error budget.
@@ -136,10 +170,14 @@ public sealed record DistanceObservation(string From, string To, Length Distance
     public override double Value => Distance.Metres;
 
     /// <inheritdoc />
-    public override string From { get; } = From;
+    public override string From { get; } = Guards.Id(From, nameof(From));
 
     /// <inheritdoc />
-    public override string To { get; } = To;
+    public override string To { get; } = Guards.Id(To, nameof(To));
+
+    /// <summary>The measured horizontal distance (positive).</summary>
+    public Length Distance { get; init => field = Guards.PositiveLength(value, nameof(Distance), "a distance"); } =
+        Guards.PositiveLength(Distance, nameof(Distance), "a distance");
 }
 
 /// <summary>
@@ -155,6 +193,20 @@ public sealed record DirectionObservation(string Station, string Target, Angle R
 {
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.Direction;
+
+    /// <summary>The instrument point.</summary>
+    public string Station { get; init => field = Guards.Id(value, nameof(Station)); } =
+        Guards.Id(Station, nameof(Station));
+
+    /// <summary>The target point.</summary>
+    public string Target { get; init => field = Guards.Id(value, nameof(Target)); } = Guards.Id(Target, nameof(Target));
+
+    /// <summary>The circle reading.</summary>
+    public Angle Reading { get; init => field = Guards.FiniteAngle(value, nameof(Reading), "a circle reading"); } =
+        Guards.FiniteAngle(Reading, nameof(Reading), "a circle reading");
+
+    /// <summary>The set's id, unique in the network.</summary>
+    public string SetId { get; init => field = Guards.Id(value, nameof(SetId)); } = Guards.Id(SetId, nameof(SetId));
 
     /// <inheritdoc />
     public override double Value => Reading.Radians;
@@ -179,6 +231,22 @@ public sealed record AngleObservation(string Station, string Backsight, string F
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.Angle;
 
+    /// <summary>The instrument point.</summary>
+    public string Station { get; init => field = Guards.Id(value, nameof(Station)); } =
+        Guards.Id(Station, nameof(Station));
+
+    /// <summary>The backsight point.</summary>
+    public string Backsight { get; init => field = Guards.Id(value, nameof(Backsight)); } =
+        Guards.Id(Backsight, nameof(Backsight));
+
+    /// <summary>The foresight point.</summary>
+    public string Foresight { get; init => field = Guards.Id(value, nameof(Foresight)); } =
+        Guards.Id(Foresight, nameof(Foresight));
+
+    /// <summary>The measured angle.</summary>
+    public Angle Measured { get; init => field = Guards.FiniteAngle(value, nameof(Measured), "an angle"); } =
+        Guards.FiniteAngle(Measured, nameof(Measured), "an angle");
+
     /// <inheritdoc />
     public override double Value => Measured.Radians;
 
@@ -201,14 +269,18 @@ public sealed record AzimuthObservation(string From, string To, Angle Azimuth) :
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.Azimuth;
 
+    /// <summary>The azimuth.</summary>
+    public Angle Azimuth { get; init => field = Guards.FiniteAngle(value, nameof(Azimuth), "an azimuth"); } =
+        Guards.FiniteAngle(Azimuth, nameof(Azimuth), "an azimuth");
+
     /// <inheritdoc />
     public override double Value => Azimuth.Radians;
 
     /// <inheritdoc />
-    public override string From { get; } = From;
+    public override string From { get; } = Guards.Id(From, nameof(From));
 
     /// <inheritdoc />
-    public override string To { get; } = To;
+    public override string To { get; } = Guards.Id(To, nameof(To));
 }
 
 /// <summary>A height difference H(to) − H(from), e.g. one levelling section.</summary>
@@ -222,14 +294,26 @@ public sealed record HeightDifferenceObservation(string From, string To, Length 
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.HeightDifference;
 
+    /// <summary>The measured height difference H(to) − H(from).</summary>
+    public Length Difference
+    {
+        get;
+        init => field = Guards.FiniteLength(value, nameof(Difference), "a height difference");
+    } = Guards.FiniteLength(Difference, nameof(Difference), "a height difference");
+
+    /// <summary>The levelled length of the section (positive), or null.</summary>
+    public Length? LineLength { get; init => field = value is Length l
+        ? Guards.PositiveLength(l, nameof(LineLength), "a section length") : null; } =
+        LineLength is Length length ? Guards.PositiveLength(length, nameof(LineLength), "a section length") : null;
+
     /// <inheritdoc />
     public override double Value => Difference.Metres;
 
     /// <inheritdoc />
-    public override string From { get; } = From;
+    public override string From { get; } = Guards.Id(From, nameof(From));
 
     /// <inheritdoc />
-    public override string To { get; } = To;
+    public override string To { get; } = Guards.Id(To, nameof(To));
 }
 
 /// <summary>
@@ -247,14 +331,35 @@ public sealed record SlopeDistanceObservation(
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.SlopeDistance;
 
+    /// <summary>The measured slope distance (positive).</summary>
+    public Length Distance
+    {
+        get;
+        init => field = Guards.PositiveLength(value, nameof(Distance), "a slope distance");
+    } = Guards.PositiveLength(Distance, nameof(Distance), "a slope distance");
+
+    /// <summary>Height of the instrument above the mark (zero or more).</summary>
+    public Length InstrumentHeight
+    {
+        get;
+        init => field = Guards.NonNegativeLength(value, nameof(InstrumentHeight), "an instrument height");
+    } = Guards.NonNegativeLength(InstrumentHeight, nameof(InstrumentHeight), "an instrument height");
+
+    /// <summary>Height of the target above the mark.</summary>
+    public Length TargetHeight
+    {
+        get;
+        init => field = Guards.FiniteLength(value, nameof(TargetHeight), "a target height");
+    } = Guards.FiniteLength(TargetHeight, nameof(TargetHeight), "a target height");
+
     /// <inheritdoc />
     public override double Value => Distance.Metres;
 
     /// <inheritdoc />
-    public override string From { get; } = From;
+    public override string From { get; } = Guards.Id(From, nameof(From));
 
     /// <inheritdoc />
-    public override string To { get; } = To;
+    public override string To { get; } = Guards.Id(To, nameof(To));
 }
 
 /// <summary>
@@ -273,18 +378,42 @@ public sealed record ZenithObservation(
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.Zenith;
 
+    /// <summary>The measured zenith angle.</summary>
+    public Angle Zenith { get; init => field = Guards.FiniteAngle(value, nameof(Zenith), "a zenith angle"); } =
+        Guards.FiniteAngle(Zenith, nameof(Zenith), "a zenith angle");
+
+    /// <summary>Height of the instrument above the mark (zero or more).</summary>
+    public Length InstrumentHeight
+    {
+        get;
+        init => field = Guards.NonNegativeLength(value, nameof(InstrumentHeight), "an instrument height");
+    } = Guards.NonNegativeLength(InstrumentHeight, nameof(InstrumentHeight), "an instrument height");
+
+    /// <summary>Height of the target above the mark.</summary>
+    public Length TargetHeight
+    {
+        get;
+        init => field = Guards.FiniteLength(value, nameof(TargetHeight), "a target height");
+    } = Guards.FiniteLength(TargetHeight, nameof(TargetHeight), "a target height");
+
     /// <inheritdoc />
     public override double Value => Zenith.Radians;
 
     /// <inheritdoc />
-    public override string From { get; } = From;
+    public override string From { get; } = Guards.Id(From, nameof(From));
 
     /// <inheritdoc />
-    public override string To { get; } = To;
+    public override string To { get; } = Guards.Id(To, nameof(To));
 
     /// <summary>The refraction coefficient k of the line of sight (the project's or its group's; common practice
     /// 0.13); the start value of the group's unknown when <see cref="RefractionEstimated"/>.</summary>
-    public double Refraction { get; init; } = 0.13;
+    /// <exception cref="ArgumentOutOfRangeException">On init, when k is not finite.</exception>
+    public double Refraction
+    {
+        get;
+        init => field = double.IsFinite(value) ? value
+            : throw new ArgumentOutOfRangeException(nameof(Refraction), value, "k must be a finite number.");
+    } = 0.13;
 
     /// <summary>The group of observations that shares one refraction coefficient (e.g. one day's sights), or null
     /// for the project's.</summary>
@@ -293,7 +422,14 @@ public sealed record ZenithObservation(
     /// <summary>The standard deviation σ_k of the assumed refraction coefficient (≥ 0; 0 counts none): it enters
     /// the error budget of a zenith angle weighted from specifications as σ_k·s/(2R) radians when k is assumed, not
     /// when it is estimated (default 0.05, common practice).</summary>
-    public double RefractionSd { get; init; } = 0.05;
+    /// <exception cref="ArgumentOutOfRangeException">On init, when σ_k is negative or not finite.</exception>
+    public double RefractionSd
+    {
+        get;
+        init => field = double.IsFinite(value) && value >= 0 ? value
+            : throw new ArgumentOutOfRangeException(nameof(RefractionSd), value,
+                "σ_k must be a finite number, 0 or more.");
+    } = 0.05;
 
     /// <summary>True when the refraction coefficient of <see cref="RefractionGroup"/> (which must be set) is an
     /// unknown of the adjustment, with <see cref="Refraction"/> as its start value.</summary>

@@ -26,6 +26,9 @@ public sealed record ObservationWeighting
     /// Distances observed in the same setup, by target point (metres): the sight lengths of that setup. Sights to
     /// other points are taken from the adjustment's coordinates.
     /// </summary>
-    public IReadOnlyDictionary<string, double> ObservedSights { get; init; } =
-        new Dictionary<string, double>(StringComparer.Ordinal);
+    public IReadOnlyDictionary<string, double> ObservedSights
+    {
+        get;
+        init => field = ReadOnlyCopies.Dictionary(value);
+    } = ReadOnlyCopies.Dictionary(new Dictionary<string, double>(StringComparer.Ordinal));
 }

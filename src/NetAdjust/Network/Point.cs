@@ -28,8 +28,13 @@ public enum Fixity
 /// are held fixed, and which are weighted control (observed with a standard deviation).
 /// </summary>
 /// <param name="Id">The point's id, unique in its network (compared ordinally).</param>
+/// <exception cref="ArgumentException">When the id is empty or white space, or a standard deviation is given that is
+/// not positive and finite (<see cref="ArgumentOutOfRangeException"/>, naming the property).</exception>
 public sealed record Point(string Id)
 {
+    /// <summary>The point's id, unique in its network (compared ordinally).</summary>
+    public string Id { get; init => field = Guards.Id(value, nameof(Id)); } = Guards.Id(Id, nameof(Id));
+
     /// <summary>Easting in metres: given (control) or approximate; null when unknown.</summary>
     public double? E { get; init; }
 
@@ -43,13 +48,25 @@ public sealed record Point(string Id)
     public Fixity Fixed { get; init; }
 
     /// <summary>Standard deviation (m) of the given easting when it is weighted control; null otherwise.</summary>
-    public double? SdE { get; init; }
+    public double? SdE
+    {
+        get;
+        init => field = value is double sd ? Guards.PositiveSd(sd, nameof(SdE), "m") : null;
+    }
 
     /// <summary>Standard deviation (m) of the given northing when it is weighted control; null otherwise.</summary>
-    public double? SdN { get; init; }
+    public double? SdN
+    {
+        get;
+        init => field = value is double sd ? Guards.PositiveSd(sd, nameof(SdN), "m") : null;
+    }
 
     /// <summary>Standard deviation (m) of the given height when it is weighted control; null otherwise.</summary>
-    public double? SdH { get; init; }
+    public double? SdH
+    {
+        get;
+        init => field = value is double sd ? Guards.PositiveSd(sd, nameof(SdH), "m") : null;
+    }
 
     /// <summary>Where the point was defined (e.g. <c>site.yaml:12</c>), for messages; may be null.</summary>
     public string? Source { get; init; }

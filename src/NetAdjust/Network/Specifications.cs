@@ -10,10 +10,13 @@ namespace NetAdjust.Network;
 public sealed record EdmSpecification
 {
     /// <summary>Creates a specification.</summary>
-    /// <param name="constant">The constant part a, metres (≥ 0).</param>
+    /// <param name="constant">The constant part a (≥ 0), e.g. <c>Length.FromMillimetres(2)</c>.</param>
     /// <param name="ppm">The proportional part b, parts per million of the distance (≥ 0).</param>
     /// <exception cref="InvalidInputException">When a part is negative or not finite.</exception>
-    public EdmSpecification(double constant, double ppm)
+    public EdmSpecification(Length constant, double ppm) : this(constant.Metres, ppm) { }
+
+    /// <summary>Creates a specification from the constant part in metres (SI, for the reader).</summary>
+    internal EdmSpecification(double constant, double ppm)
     {
         Checks.NonNegative(constant, "the EDM constant part");
         Checks.NonNegative(ppm, "the EDM proportional part (ppm)");
@@ -21,8 +24,11 @@ public sealed record EdmSpecification
         Ppm = ppm;
     }
 
-    /// <summary>The constant part a, metres.</summary>
-    public double Constant { get; }
+    /// <summary>The constant part a, metres (SI, for the stochastic model).</summary>
+    internal double Constant { get; }
+
+    /// <summary>The constant part a.</summary>
+    public Length ConstantPart => Length.FromMetres(Constant);
 
     /// <summary>The proportional part b, parts per million.</summary>
     public double Ppm { get; }
@@ -84,6 +90,20 @@ public sealed record TotalStationSpecification
 {
     /// <summary>Creates a specification.</summary>
     /// <param name="id">The name used in the project file.</param>
+    /// <param name="directionSd">ISO 17123-3 σ of a horizontal direction observed once in both faces (&gt; 0),
+    /// e.g. <c>Angle.FromArcseconds(1)</c>.</param>
+    /// <param name="zenithSd">ISO 17123-3 σ of a zenith angle observed once in both faces (≥ 0; zero when not
+    /// given).</param>
+    /// <param name="edm">The EDM specification; null when the instrument measures no distances.</param>
+    /// <param name="centeringSd">Instrument centering σ per axis (≥ 0).</param>
+    /// <param name="heightSd">Instrument height measurement σ (≥ 0).</param>
+    /// <exception cref="InvalidInputException">When a value is out of range.</exception>
+    public TotalStationSpecification(string id, Angle directionSd, Angle zenithSd, EdmSpecification? edm,
+        Length centeringSd, Length heightSd)
+        : this(id, directionSd.Radians, zenithSd.Radians, edm, centeringSd.Metres, heightSd.Metres) { }
+
+    /// <summary>Creates a specification from SI values (for the reader).</summary>
+    /// <param name="id">The name used in the project file.</param>
     /// <param name="directionSd">ISO 17123-3 σ of a horizontal direction observed once in both faces,
     /// radians (&gt; 0).</param>
     /// <param name="zenithSd">ISO 17123-3 σ of a zenith angle observed once in both faces, radians (≥ 0; 0 when not
@@ -92,9 +112,10 @@ public sealed record TotalStationSpecification
     /// <param name="centeringSd">Instrument centering σ per axis, metres (≥ 0).</param>
     /// <param name="heightSd">Instrument height measurement σ, metres (≥ 0). Stored for 3D use.</param>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>
-    public TotalStationSpecification(string id, double directionSd, double zenithSd, EdmSpecification? edm,
+    internal TotalStationSpecification(string id, double directionSd, double zenithSd, EdmSpecification? edm,
         double centeringSd, double heightSd)
     {
+        Checks.Id(id, "an instrument");
         Id = id;
         Checks.Positive(directionSd, $"the direction standard deviation of instrument {id}");
         Checks.NonNegative(zenithSd, $"the zenith angle standard deviation of instrument {id}");
@@ -110,20 +131,33 @@ public sealed record TotalStationSpecification
     /// <summary>The name used in the project file.</summary>
     public string Id { get; }
 
-    /// <summary>ISO 17123-3 σ of one horizontal direction observed once in both faces, radians.</summary>
-    public double DirectionSd { get; }
+    /// <summary>ISO 17123-3 σ of one horizontal direction observed once in both faces, radians (SI, for the
+    /// stochastic model).</summary>
+    internal double DirectionSd { get; }
 
     /// <summary>ISO 17123-3 σ of one zenith angle observed once in both faces, radians (0 when not given).</summary>
-    public double ZenithSd { get; }
+    internal double ZenithSd { get; }
 
     /// <summary>The EDM specification, or null.</summary>
     public EdmSpecification? Edm { get; }
 
     /// <summary>Centering σ per axis, metres.</summary>
-    public double CenteringSd { get; }
+    internal double CenteringSd { get; }
 
     /// <summary>Instrument height measurement σ, metres.</summary>
-    public double HeightSd { get; }
+    internal double HeightSd { get; }
+
+    /// <summary>ISO 17123-3 σ of one horizontal direction observed once in both faces.</summary>
+    public Angle DirectionStandardDeviation => Angle.FromRadians(DirectionSd);
+
+    /// <summary>ISO 17123-3 σ of one zenith angle observed once in both faces (zero when not given).</summary>
+    public Angle ZenithStandardDeviation => Angle.FromRadians(ZenithSd);
+
+    /// <summary>Centering σ per axis.</summary>
+    public Length CenteringStandardDeviation => Length.FromMetres(CenteringSd);
+
+    /// <summary>Instrument height measurement σ.</summary>
+    public Length HeightStandardDeviation => Length.FromMetres(HeightSd);
 }
 
 /// <summary>A target (prism on a pole, on a tripod with tribrach, on a bipod...). Lengths in metres.</summary>
@@ -131,11 +165,20 @@ public sealed record TargetSpecification
 {
     /// <summary>Creates a specification.</summary>
     /// <param name="id">The name used in the project file.</param>
+    /// <param name="centeringSd">Centering σ per axis (≥ 0), e.g. <c>Length.FromMillimetres(1)</c>.</param>
+    /// <param name="heightSd">Target height measurement σ (≥ 0).</param>
+    /// <exception cref="InvalidInputException">When a value is out of range.</exception>
+    public TargetSpecification(string id, Length centeringSd, Length heightSd)
+        : this(id, centeringSd.Metres, heightSd.Metres) { }
+
+    /// <summary>Creates a specification from SI values (for the reader).</summary>
+    /// <param name="id">The name used in the project file.</param>
     /// <param name="centeringSd">Centering σ per axis, metres (≥ 0).</param>
     /// <param name="heightSd">Target height measurement σ, metres (≥ 0). Stored for 3D use.</param>
     /// <exception cref="InvalidInputException">When a value is out of range.</exception>
-    public TargetSpecification(string id, double centeringSd, double heightSd)
+    internal TargetSpecification(string id, double centeringSd, double heightSd)
     {
+        Checks.Id(id, "a target");
         Id = id;
         Checks.NonNegative(centeringSd, $"the centering error of target {id}");
         Checks.NonNegative(heightSd, $"the height measurement error of target {id}");
@@ -146,11 +189,17 @@ public sealed record TargetSpecification
     /// <summary>The name used in the project file.</summary>
     public string Id { get; }
 
-    /// <summary>Centering σ per axis, metres.</summary>
-    public double CenteringSd { get; }
+    /// <summary>Centering σ per axis, metres (SI, for the stochastic model).</summary>
+    internal double CenteringSd { get; }
 
     /// <summary>Height measurement σ, metres.</summary>
-    public double HeightSd { get; }
+    internal double HeightSd { get; }
+
+    /// <summary>Centering σ per axis.</summary>
+    public Length CenteringStandardDeviation => Length.FromMetres(CenteringSd);
+
+    /// <summary>Target height measurement σ.</summary>
+    public Length HeightStandardDeviation => Length.FromMetres(HeightSd);
 }
 
 /// <summary>Whether directions are observed in both faces (face left and face right) or one face only.</summary>
@@ -206,6 +255,7 @@ public sealed record LevelSpecification
 {
     private LevelSpecification(string id, double? perKm, double? reading, double resolution, RoundingTreatment rounding)
     {
+        Checks.Id(id, "a level");
         Id = id;
         SdPerKm = perKm;
         ReadingSd = reading;
@@ -215,21 +265,38 @@ public sealed record LevelSpecification
 
     /// <summary>A level described by its ISO 17123-2 σ of 1 km double-run levelling.</summary>
     /// <param name="id">The name used in the project file.</param>
+    /// <param name="sdPerKm">σ of 1 km of double-run levelling (&gt; 0), e.g. <c>Length.FromMillimetres(0.7)</c>.
+    /// </param>
+    /// <exception cref="InvalidInputException">When σ is not positive.</exception>
+    public static LevelSpecification PerKm(string id, Length sdPerKm) => PerKm(id, sdPerKm.Metres);
+
+    /// <summary>A level described by the σ of one rod reading and the reading resolution.</summary>
+    /// <param name="id">The name used in the project file.</param>
+    /// <param name="readingSd">σ of one rod reading (pointing, level bubble or compensator, rod) (≥ 0).</param>
+    /// <param name="resolution">The reading resolution d (≥ 0; zero when rounding is negligible).</param>
+    /// <param name="rounding">How the rounding to d is counted.</param>
+    /// <exception cref="InvalidInputException">When a value is out of range or both are zero.</exception>
+    public static LevelSpecification PerReading(string id, Length readingSd, Length resolution,
+        RoundingTreatment rounding) => PerReading(id, readingSd.Metres, resolution.Metres, rounding);
+
+    /// <summary>A level described by its σ per km in metres (SI, for the reader).</summary>
+    /// <param name="id">The name used in the project file.</param>
     /// <param name="sdPerKm">σ of 1 km of double-run levelling, metres (&gt; 0), e.g. 0.0007 for 0.7 mm.</param>
     /// <exception cref="InvalidInputException">When σ is not positive.</exception>
-    public static LevelSpecification PerKm(string id, double sdPerKm)
+    internal static LevelSpecification PerKm(string id, double sdPerKm)
     {
         Checks.Positive(sdPerKm, $"the standard deviation per km of level {id}");
         return new(id, sdPerKm, null, 0, RoundingTreatment.Uniform);
     }
 
-    /// <summary>A level described by the σ of one rod reading and the reading resolution.</summary>
+    /// <summary>A level described by the σ of one rod reading and the reading resolution, metres (SI, for the
+    /// reader).</summary>
     /// <param name="id">The name used in the project file.</param>
     /// <param name="readingSd">σ of one rod reading (pointing, level bubble or compensator, rod), metres (≥ 0).</param>
     /// <param name="resolution">The reading resolution d, metres (≥ 0; 0 when rounding is negligible).</param>
     /// <param name="rounding">How the rounding to d is counted.</param>
     /// <exception cref="InvalidInputException">When a value is out of range or both are zero.</exception>
-    public static LevelSpecification PerReading(string id, double readingSd, double resolution,
+    internal static LevelSpecification PerReading(string id, double readingSd, double resolution,
         RoundingTreatment rounding)
     {
         Checks.NonNegative(readingSd, $"the reading standard deviation of level {id}");
@@ -242,20 +309,34 @@ public sealed record LevelSpecification
     /// <summary>The name used in the project file.</summary>
     public string Id { get; }
 
-    /// <summary>ISO 17123-2 σ of 1 km double-run levelling, metres; null for the per-reading model.</summary>
-    public double? SdPerKm { get; }
+    /// <summary>ISO 17123-2 σ of 1 km double-run levelling, metres; null for the per-reading model (SI, for the
+    /// stochastic model).</summary>
+    internal double? SdPerKm { get; }
 
     /// <summary>σ of one rod reading, metres; null for the per-km model.</summary>
-    public double? ReadingSd { get; }
+    internal double? ReadingSd { get; }
 
     /// <summary>Reading resolution d, metres (per-reading model; 0 otherwise).</summary>
-    public double Resolution { get; }
+    internal double Resolution { get; }
+
+    /// <summary>ISO 17123-2 σ of 1 km double-run levelling; null for the per-reading model.</summary>
+    public Length? StandardDeviationPerKm => SdPerKm is double v ? Length.FromMetres(v) : null;
+
+    /// <summary>σ of one rod reading; null for the per-km model.</summary>
+    public Length? ReadingStandardDeviation => ReadingSd is double v ? Length.FromMetres(v) : null;
+
+    /// <summary>Reading resolution d (per-reading model; zero otherwise).</summary>
+    public Length ReadingResolution => Length.FromMetres(Resolution);
+
+    /// <summary>The σ of the rounding of one reading: d/√12 (uniform) or d/2 (half resolution).</summary>
+    public Length RoundingStandardDeviation => Length.FromMetres(RoundingSd);
 
     /// <summary>How the rounding is counted.</summary>
     public RoundingTreatment Rounding { get; }
 
-    /// <summary>The σ of the rounding of one reading: d/√12 (uniform) or d/2 (half resolution).</summary>
-    public double RoundingSd => Rounding == RoundingTreatment.Uniform ? Resolution / Math.Sqrt(12.0) : Resolution / 2.0;
+    /// <summary>The σ of the rounding of one reading in metres: d/√12 (uniform) or d/2 (half resolution).</summary>
+    internal double RoundingSd =>
+        Rounding == RoundingTreatment.Uniform ? Resolution / Math.Sqrt(12.0) : Resolution / 2.0;
 }
 
 /// <summary>How one levelling section was run: the number of instrument setups in one run, and how many runs are
@@ -291,6 +372,11 @@ public sealed record LevellingProcedure
 
 internal static class Checks
 {
+    public static void Id(string? id, string what)
+    {
+        if (string.IsNullOrWhiteSpace(id)) throw new InvalidInputException($"{what} needs an id (a name of its own)");
+    }
+
     public static void NonNegative(double v, string what)
     {
         if (!double.IsFinite(v)) throw new InvalidInputException($"{what} must be a finite number");

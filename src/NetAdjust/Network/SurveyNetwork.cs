@@ -16,8 +16,8 @@ public sealed class SurveyNetwork
     public SurveyNetwork(string name, IEnumerable<Point> points, IEnumerable<Observation> observations)
     {
         Name = name;
-        Points = points.ToArray();
-        Observations = observations.ToArray();
+        Points = ReadOnlyCopies.List(points);
+        Observations = ReadOnlyCopies.List(observations);
         _index = new Dictionary<string, int>(StringComparer.Ordinal);
         var problems = new List<string>();
         for (int i = 0; i < Points.Count; i++)

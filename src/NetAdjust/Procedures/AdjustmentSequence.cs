@@ -100,7 +100,25 @@ public sealed record SequenceResult(AdjustmentResult Minimal, AdjustmentResult C
 {
     /// <summary>Per control mark and part, whether the observations can check it (<see cref="ControlTestability"/>).
     /// </summary>
-    public IReadOnlyList<ControlTestability> Testability { get; init; } = [];
+    public IReadOnlyList<ControlTestability> Testability
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List<ControlTestability>([]);
+
+    /// <summary>Per control point, in input order.</summary>
+    public IReadOnlyList<ControlDiscrepancy> Discrepancies
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Discrepancies);
+
+    /// <summary>Per point, in input order.</summary>
+    public IReadOnlyList<CoordinateShift> Shifts
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Shifts);
 }
 
 /// <summary>

@@ -19,6 +19,13 @@ namespace NetAdjust.Procedures;
 /// <param name="Neighbours">The points joined to the mark by an observation, in input order.</param>
 public sealed record ControlTestability(string Id, string Part, bool? Testable, IReadOnlyList<string> Neighbours)
 {
+    /// <summary>The points joined to the mark by an observation, in input order.</summary>
+    public IReadOnlyList<string> Neighbours
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Neighbours);
+
     /// <summary>One entry per controlled part (plan, height) of each control mark, in input order: one trial
     /// adjustment each.</summary>
     /// <param name="constrained">The constrained solution of the sequence.</param>

@@ -24,7 +24,22 @@ public sealed record SnoopingRound(int Round, int DegreesOfFreedom, double? Vari
 /// <param name="Final">The last adjustment (with the set-aside observations excluded, still reported with their
 /// misclosures).</param>
 public sealed record BlunderHunt(IReadOnlyList<SnoopingRound> Rounds, IReadOnlyList<int> SetAside, string StopReason,
-    AdjustmentResult Final);
+    AdjustmentResult Final)
+{
+    /// <summary>The log, one entry per adjustment.</summary>
+    public IReadOnlyList<SnoopingRound> Rounds
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Rounds);
+
+    /// <summary>Indices of the observations set aside, in the order found.</summary>
+    public IReadOnlyList<int> SetAside
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(SetAside);
+}
 
 /// <summary>
 /// Iterative data snooping (Baarda 1968): adjust, test every observation, set aside the one with the largest

@@ -31,7 +31,29 @@ public enum RobustMethod
 /// <param name="Final">The last re-weighted adjustment (standard deviations inflated by 1/√factor).</param>
 public sealed record RobustEstimate(RobustMethod Method, double Tuning, int Iterations, bool Converged,
     IReadOnlyList<double> WeightFactors,
-    IReadOnlyList<double> Standardised, IReadOnlyList<int> Suspected, AdjustmentResult Final);
+    IReadOnlyList<double> Standardised, IReadOnlyList<int> Suspected, AdjustmentResult Final)
+{
+    /// <summary>The final weight factor of each observation, in network order.</summary>
+    public IReadOnlyList<double> WeightFactors
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(WeightFactors);
+
+    /// <summary>The final robust standardised residual of each observation, in network order.</summary>
+    public IReadOnlyList<double> Standardised
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Standardised);
+
+    /// <summary>Observations whose robust standardised residual exceeds the critical value, largest first.</summary>
+    public IReadOnlyList<int> Suspected
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Suspected);
+}
 
 /// <summary>
 /// Robust estimation by iteratively re-weighted least squares: each observation's weight is multiplied by a factor

@@ -27,7 +27,15 @@ public sealed record VarianceComponent(ObservationKind Kind, int Count, double R
 /// iteration.</param>
 /// <param name="Final">The adjustment with the re-estimated standard deviations.</param>
 public sealed record VarianceComponentEstimate(IReadOnlyList<VarianceComponent> Groups, int Iterations, bool Converged,
-    AdjustmentResult Final);
+    AdjustmentResult Final)
+{
+    /// <summary>One entry per observation kind present, in kind order.</summary>
+    public IReadOnlyList<VarianceComponent> Groups
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Groups);
+}
 
 /// <summary>
 /// Variance component estimation per observation group by Förstner's iterative estimator (Förstner 1979; Koch 1999

@@ -143,20 +143,40 @@ public sealed record NetworkAnalysis
     public required bool ExternalReliabilityComputed { get; init; }
 
     /// <summary>One test per observation of the result, in the same order.</summary>
-    public required IReadOnlyList<ObservationTest> Observations { get; init; }
+    public required IReadOnlyList<ObservationTest> Observations
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>Tests of weighted-control components, in point order (E, N, H).</summary>
-    public required IReadOnlyList<ControlTest> Control { get; init; }
+    public required IReadOnlyList<ControlTest> Control
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>One entry per point of the result, in the same order.</summary>
-    public required IReadOnlyList<PointPrecision> Points { get; init; }
+    public required IReadOnlyList<PointPrecision> Points
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>Relative precision of observed pairs (first appearance order) then user-listed pairs.</summary>
-    public required IReadOnlyList<RelativePrecision> Relative { get; init; }
+    public required IReadOnlyList<RelativePrecision> Relative
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>Relative height precision of pairs joined by a height difference (first appearance order) then
     /// user-listed pairs with heights.</summary>
-    public IReadOnlyList<RelativeHeightPrecision> RelativeHeights { get; init; } = [];
+    public IReadOnlyList<RelativeHeightPrecision> RelativeHeights
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List<RelativeHeightPrecision>([]);
 
     /// <summary>Σ rᵢ over all weighted rows (equals the degrees of freedom up to rounding).</summary>
     public required double RedundancySum { get; init; }

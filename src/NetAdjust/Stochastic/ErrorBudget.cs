@@ -22,6 +22,7 @@ public sealed class ErrorBudget
     {
         ArgumentNullException.ThrowIfNull(contributions);
         _items = contributions.ToArray();
+        Contributions = _items.AsReadOnly();
         var names = new HashSet<string>(StringComparer.Ordinal);
         foreach (var c in _items)
         {
@@ -41,7 +42,7 @@ public sealed class ErrorBudget
     }
 
     /// <summary>The contributions, in order.</summary>
-    public IReadOnlyList<ErrorContribution> Contributions => _items;
+    public IReadOnlyList<ErrorContribution> Contributions { get; }
 
     /// <summary>The total standard deviation √ΣEᵢ² (SI units).</summary>
     public double Total { get; }

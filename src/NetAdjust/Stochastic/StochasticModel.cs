@@ -28,18 +28,19 @@ public sealed class StochasticModel
     private StochasticModel(double[] sd, ErrorBudget?[] budgets, CorrelatedBlock[] blocks, bool derived)
     {
         _sd = sd; _budgets = budgets; _blocks = blocks; HasDerivedWeights = derived;
+        StandardDeviations = sd.AsReadOnly(); Budgets = budgets.AsReadOnly(); Blocks = blocks.AsReadOnly();
     }
 
     /// <summary>Each observation's a-priori standard deviation (SI), in network order.</summary>
-    public IReadOnlyList<double> StandardDeviations => _sd;
+    public IReadOnlyList<double> StandardDeviations { get; }
 
     /// <summary>Each observation's error budget as used (scaled by its re-weighting), or null when σ was given
     /// directly.</summary>
-    public IReadOnlyList<ErrorBudget?> Budgets => _budgets;
+    public IReadOnlyList<ErrorBudget?> Budgets { get; }
 
     /// <summary>The weight blocks σ0² Σ⁻¹ of the setups with correlated centering (none for independent
     /// centering).</summary>
-    public IReadOnlyList<CorrelatedBlock> Blocks => _blocks;
+    public IReadOnlyList<CorrelatedBlock> Blocks { get; }
 
     /// <summary>True when some standard deviation was derived from specifications at the coordinates.</summary>
     public bool HasDerivedWeights { get; }
@@ -223,4 +224,15 @@ public sealed class StochasticModel
 /// <summary>The weights σ0² Σ⁻¹ of the correlated observations of one setup.</summary>
 /// <param name="Rows">The observations' indices in the network, ascending.</param>
 /// <param name="Weights">The k×k weight matrix, row-major, symmetric.</param>
-public sealed record CorrelatedBlock(IReadOnlyList<int> Rows, IReadOnlyList<double> Weights);
+public sealed record CorrelatedBlock(IReadOnlyList<int> Rows, IReadOnlyList<double> Weights)
+{
+    /// <summary>The observations' indices in the network, ascending.</summary>
+    public IReadOnlyList<int> Rows { get; init => field = ReadOnlyCopies.List(value); } = ReadOnlyCopies.List(Rows);
+
+    /// <summary>The k×k weight matrix, row-major, symmetric.</summary>
+    public IReadOnlyList<double> Weights
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List(Weights);
+}

@@ -24,6 +24,10 @@ public readonly record struct Length : IComparable<Length>
     /// <param name="metres">Any finite value, in metres.</param>
     public static Length FromMetres(double metres) => new(metres);
 
+    /// <summary>Creates a length from millimetres (e.g. a standard deviation of 3 mm).</summary>
+    /// <param name="millimetres">Any finite value, in millimetres.</param>
+    public static Length FromMillimetres(double millimetres) => new(millimetres / 1000.0);
+
     /// <summary>Creates a length from international feet (0.3048 m exactly).</summary>
     /// <param name="feet">Any finite value, in international feet.</param>
     public static Length FromInternationalFeet(double feet) => new(feet * LengthUnit.InternationalFoot.MetresPerUnit);

@@ -70,13 +70,15 @@ public class DatumAndFailureTests
     {
         var pts = new[] { new Point("A") { Fixed = Fixity.E, Source = "f.yaml:3" }, new Point("A") { Source =
             "f.yaml:4" } };
-        var obs = new Observation[] { new DistanceObservation("A", "Z", Length.FromMetres(-1)) { StandardDeviation = 0,
+        var obs = new Observation[] { new DistanceObservation("A", "Z", Length.FromMetres(1)) { StandardDeviation = 0,
             Source = "f.yaml:7" } };
         var e = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("bad", pts, obs));
         Assert.Contains("f.yaml:3: point A holds its easting fixed but gives no easting", e.Message);
         Assert.Contains("f.yaml:4: point A is defined twice", e.Message);
         Assert.Contains("point Z is not defined", e.Message);
         Assert.Contains("standard deviation must be positive", e.Message);
-        Assert.Contains("a distance must be positive", e.Message);
+        // A negative distance no longer reaches the network: its constructor refuses it, naming the parameter.
+        Assert.Equal("Distance", Assert.Throws<ArgumentOutOfRangeException>(() =>
+            new DistanceObservation("A", "Z", Length.FromMetres(-1))).ParamName);
     }
 }

@@ -49,10 +49,10 @@ public sealed record DatumDefinition
     /// Minimal constraints, as resolved by the adjustment: control points that no observation places but a single
     /// sight line (reference objects), held in position together with <see cref="HoldPoint"/>; null when none.
     /// </summary>
-    public IReadOnlyList<string>? ReferenceObjects { get; init; }
+    public IReadOnlyList<string>? ReferenceObjects { get; init => field = ReadOnlyCopies.ListOrNull(value); }
 
     /// <summary>Inner constraints: the points over which the trace is minimised; null for all points.</summary>
-    public IReadOnlyList<string>? InnerPoints { get; init; }
+    public IReadOnlyList<string>? InnerPoints { get; init => field = ReadOnlyCopies.ListOrNull(value); }
 
     /// <summary>Explicit minimal constraints.</summary>
     /// <param name="holdPoint">Point whose position is held (null: first control point).</param>
