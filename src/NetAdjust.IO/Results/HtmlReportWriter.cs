@@ -193,11 +193,7 @@ public static class HtmlReportWriter
             .Append(F(report.WCritical, 2)).Append(").</p>\n");
         sb.Append("</section>\n");
 
-        var budgets = new StringBuilder();
-        BudgetOutput.AppendSummary(budgets, r, c);
-        if (budgets.ToString().Trim().Length > 0)
-            sb.Append("<section id=\"budgets\">\n<h2>Error budgets</h2>\n<pre class=\"budget\">")
-                .Append(E(budgets.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+        BudgetOutput.AppendHtml(sb, r, c);
 
         if (r.Orientations.Count > 0)
         {
@@ -444,7 +440,6 @@ public static class HtmlReportWriter
         figure { margin: 8px 0; }
         figure svg { max-width: 100%; height: auto; border: 1px solid #ddd; }
         figcaption { font-size: 12px; color: #333; margin-top: 4px; }
-        pre.budget { font-size: 12px; background: #f8f8f8; border: 1px solid #ddd; padding: 6px; overflow-x: auto; }
         footer { margin-top: 24px; font-size: 11px; color: #555; }
         @page { size: A4; margin: 14mm; }
         @media print {

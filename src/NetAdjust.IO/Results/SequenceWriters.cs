@@ -184,7 +184,15 @@ internal static class SequenceSections
             s.Discrepancies.Select(d => new SectionRow([
                 d.Id, L(d.DE), L(d.DN), L(d.DH), L(d.SdE), L(d.SdN), L(d.SdH), W(d.WE), W(d.WN), W(d.WH),
                 d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "",
-            ], d.MaxAbsW > critical ? RowState.Fail : RowState.Normal)).ToList(), [])
+            ], d.MaxAbsW > critical ? RowState.Fail : RowState.Normal)).ToList(),
+            s.Minimal.Options.Datum.ReferenceObjects is { Count: > 0 } objects
+                ? [
+                    $"  Step 1 holds the reference object(s) {string.Join(", ", objects)} (one sight line each): an " +
+                    "error in their",
+                    "  given positions turns the observed network and shows as discrepancies of the other marks",
+                    "  (see the control testability below).",
+                ]
+                : [])
         {
             MarkNote = $"Rows marked ✗ have a standardised discrepancy |w| above {F(critical, 2)}, " +
                        "the critical value of the w-test.",

@@ -63,6 +63,8 @@ public sealed class ControlTestabilityTests
         string text = SequenceReportWriter.Write(s, c);
         Assert.Matches(@"\n  RM5          E      0\.\d\d  NO       RM5 N\n", text);
         Assert.Matches(@"\n  HV01         E      0\.\d\d  yes\s*\n", text);
+        // the minimal step holds RM5 (a reference object): the report says that its error shows on the other marks
+        Assert.Contains("Step 1 holds the reference object(s) RM5 (one sight line each)", text);
         using var json = JsonDocument.Parse(SequenceJsonWriter.Write(s, c));
         var entry = json.RootElement.GetProperty("control_testability").EnumerateArray()
             .Single(x => x.GetProperty("id").GetString() == "RM5" && x.GetProperty("component").GetString() == "N");

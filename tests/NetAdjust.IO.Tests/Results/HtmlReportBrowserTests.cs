@@ -301,4 +301,29 @@ public sealed class HtmlReportBrowserTests : IDisposable
             Assert.True(parts[2] >= 2, figure);
         }
     }
+
+    [ChromiumFact]
+    public void ErrorBudgetsAreATableWithARowPerLineOfTheTextReport()
+    {
+        // The demo (data/brackenmoor.yaml, invented) is weighted from specifications: its budget summary is a
+        // table, one row per contribution line (and total) of the text report's ERROR BUDGETS, and no section of
+        // the report is preformatted text.
+        var (r, c) = TestProjects.Demo();
+        var model = ResultReport.Build(r, c);
+        string text = TextReportWriter.Write(model);
+        var budget = text[text.IndexOf("ERROR BUDGETS", StringComparison.Ordinal)..];
+        budget = budget[..budget.IndexOf("\n\n", StringComparison.Ordinal)];
+        int lines = budget.Split('\n').Count(l => l.StartsWith("    ", StringComparison.Ordinal));
+        string path = Path.Combine(_dir, "budgets.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(model));
+        var run = Chromium.Open(path, "--dump-dom");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        Assert.DoesNotContain("<pre", dom);
+        var section = Regex.Match(dom, "<section id=\"budgets\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<th class=\"num\">Root-mean-square (m or arcsec)</th>", section);
+        var body = Regex.Match(section, "<tbody>.*?</tbody>", RegexOptions.Singleline).Value;
+        Assert.Equal(lines, Regex.Matches(body, "<tr[ >]").Count);
+        Assert.Contains("<tr class=\"total\"><td>distance</td><td class=\"num\">7 of 7</td><td>total</td>", body);
+    }
 }
