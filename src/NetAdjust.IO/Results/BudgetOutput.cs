@@ -64,8 +64,8 @@ internal static class BudgetOutput
         static string E(string s) => System.Net.WebUtility.HtmlEncode(s);
         sb.Append("<section id=\"budgets\">\n<h2>Error budgets</h2>\n<p>")
           .Append(E($"A-priori standard deviations from instrument and target specifications; weights: " +
-              $"{StochasticModel.Describe(r.Options.Centering)}. Per group: the root-mean-square of each contribution " +
-              "and its share of the group's mean variance."))
+              $"{StochasticModel.Describe(r.Options.Centering)}. Per group: the root-mean-square of each " +
+              "contribution and its share of the group's mean variance."))
           .Append("</p>\n<table>\n<thead><tr><th>Group</th><th class=\"num\">Observations</th><th>Contribution</th>")
           .Append("<th class=\"num\">")
           .Append(E($"Root-mean-square ({c.Units.Length.Symbol} or {c.Units.AngleSd.Symbol()})"))
