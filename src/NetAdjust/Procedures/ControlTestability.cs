@@ -34,7 +34,7 @@ public sealed record ControlTestability(string Id, string Component, double? Red
 
     /// <summary>Above this number of unknowns (points' coordinates and orientations) nothing is computed: the null
     /// space is found by a dense singular value decomposition.</summary>
-    public const int MaxUnknowns = 1500;
+    public const int MaxUnknowns = 800;
 
     /// <summary>One entry per controlled component (E, N, H) of each control mark, in the order of the
     /// discrepancies.</summary>
@@ -107,7 +107,19 @@ public sealed record ControlTestability(string Id, string Component, double? Red
         var a = Matrix<double>.Build.Dense(Math.Max(rows.Count, 1), u);
         for (int i = 0; i < rows.Count; i++)
             foreach (var x in rows[i]) a[i, columns[(x.Owner, x.Parameter)]] += x.Derivative;
-        var svd = a.Svd(computeVectors: true);
+        if (a.Enumerate().Any(x => !double.IsFinite(x))) return null;
+        MathNet.Numerics.LinearAlgebra.Factorization.Svd<double> svd;
+        try
+        {
+            // with more rows than columns, the singular values and right vectors of A are those of R in A = QR
+            // (thin), which spares the rows × rows left vectors
+            var m = a.RowCount > u ? a.QR(MathNet.Numerics.LinearAlgebra.Factorization.QRMethod.Thin).R : a;
+            svd = m.Svd(computeVectors: true);
+        }
+        catch (MathNet.Numerics.NonConvergenceException)
+        {
+            return null;
+        }
         var s = svd.S;
         double tol = (s.Count > 0 ? s.Maximum() : 0) * 1e-10;
         int rank = s.Count(x => x > tol);
