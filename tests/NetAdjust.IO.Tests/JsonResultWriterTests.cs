@@ -71,7 +71,8 @@ public class JsonResultWriterTests
         var ar = r.Observations.Single(o => o.Input.Kind == NetAdjust.Network.ObservationKind.Angle).Residual;
         Assert.Equal(ar * NetAdjust.Units.Angle.ArcsecondsPerRadian, angle.GetProperty("residual").GetDouble(), 9);
         var dist = obs.EnumerateArray().Single(o => o.GetProperty("kind").GetString() == "distance");
-        Assert.Equal(JsonValueKind.Null, dist.GetProperty("at").ValueKind);
+        // every distance names the station it was measured from (docs/output-format.md)
+        Assert.Equal(dist.GetProperty("from").GetString(), dist.GetProperty("at").GetString());
         Assert.Equal(0.003, dist.GetProperty("sd").GetDouble(), 12);
     }
 

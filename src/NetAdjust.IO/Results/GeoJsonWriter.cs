@@ -137,7 +137,7 @@ public static class GeoJsonWriter
                 j.WriteString("feature", "observation");
                 j.WriteNumber("number", o.Index + 1);
                 j.WriteString("kind", ObservationLabels.Key(i.Kind));
-                if (i.At is null) j.WriteNull("at"); else j.WriteString("at", i.At);
+                if (ObservationLabels.Station(i) is not string at) j.WriteNull("at"); else j.WriteString("at", at);
                 j.WriteString("from", i.From);
                 j.WriteString("to", i.To);
                 j.WriteNumber("residual", Math.Round(o.Residual * rk, ang ? 3 : 6));

@@ -32,7 +32,7 @@ public static class HtmlReportWriter
         var w = report.W;
         var r = report.Result;
         var c = report.Context;
-        var u = new ReportUnits(c.Units);
+        var u = new ReportUnits(c.Units).Booked(r.Network);
         var s = r.Statistics;
         var g = s.GlobalTest;
         var sb = new StringBuilder();
@@ -116,6 +116,10 @@ public static class HtmlReportWriter
           .Append("<figcaption>Grid north up. Error ellipses are standard (1σ) absolute ellipses at ")
           .Append(report.Basis.Words).Append(", magnified as stated in the legend.")
           .Append(w is null ? "" : " Dashed thick lines: observations failing the w-test.")
+          .Append(report.Observations.Rows.Any(r => ObservationLabels.IsLevelled(r.Input.Kind))
+              ? " Dotted lines: levelled height differences (not sight lines); those to a point without a plan " +
+                "position are named in the legend, not drawn."
+              : "")
           .Append("</figcaption>\n</figure>\n</section>\n");
 
         // Histogram.
@@ -189,11 +193,7 @@ public static class HtmlReportWriter
             .Append(F(report.WCritical, 2)).Append(").</p>\n");
         sb.Append("</section>\n");
 
-        var budgets = new StringBuilder();
-        BudgetOutput.AppendSummary(budgets, r, c);
-        if (budgets.ToString().Trim().Length > 0)
-            sb.Append("<section id=\"budgets\">\n<h2>Error budgets</h2>\n<pre class=\"budget\">")
-                .Append(E(budgets.ToString().TrimEnd())).Append("</pre>\n</section>\n");
+        BudgetOutput.AppendHtml(sb, r, c);
 
         if (r.Orientations.Count > 0)
         {
@@ -283,12 +283,18 @@ public static class HtmlReportWriter
             .Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
         sb.Append("<line x1=\"").Append(N(x0)).Append("\" y1=\"").Append(N(y0)).Append("\" x2=\"").Append(N(x0))
             .Append("\" y2=\"").Append(N(y1)).Append("\" stroke=\"#111111\"/>\n");
-        for (double t = Math.Ceiling(-lim); t <= Math.Floor(lim) + 1e-9; t += 1)
-            sb.Append("<text x=\"").Append(N(X(t))).Append("\" y=\"").Append(N(y1 + 16))
-                .Append("\" text-anchor=\"middle\">").Append(F(t, 0)).Append("</text>\n");
-        for (double d = 0; d <= yMax + 1e-9; d += 0.1)
-            sb.Append("<text x=\"").Append(N(x0 - 6)).Append("\" y=\"").Append(N(Y(d) + 4))
-                .Append("\" text-anchor=\"end\">").Append(F(d, 1)).Append("</text>\n");
+        // Axis labels thinned to a 1-2-5 step wide enough for the longest label (about 7 px a character at 12 px,
+        // plus a gap), so that they never overlap however wide the range of w.
+        int chars = F(-lim, 0).Length;
+        double xStep = LabelStep((chars * 7.5 + 12) * (2 * lim) / (x1 - x0), 1);
+        for (double t = Math.Ceiling(-lim / xStep) * xStep; t <= lim + 1e-9; t += xStep)
+            sb.Append("<text class=\"tick-w\" x=\"").Append(N(X(t))).Append("\" y=\"").Append(N(y1 + 16))
+                .Append("\" text-anchor=\"middle\">").Append(F(t + 0.0, 0)).Append("</text>\n");
+        double yStep = LabelStep(18 * yMax / (y1 - y0), 0.1);
+        for (int k = 0; k * yStep <= yMax + 1e-9; k++)
+            sb.Append("<text class=\"tick-density\" x=\"").Append(N(x0 - 6)).Append("\" y=\"")
+                .Append(N(Y(k * yStep) + 4)).Append("\" text-anchor=\"end\">").Append(F(k * yStep, 1))
+                .Append("</text>\n");
         sb.Append("<text x=\"").Append(N((x0 + x1) / 2)).Append("\" y=\"").Append(N(height - 4))
             .Append("\" text-anchor=\"middle\">standardised residual w</text>\n");
         sb.Append("<text x=\"14\" y=\"").Append(N((y0 + y1) / 2))
@@ -296,6 +302,17 @@ public static class HtmlReportWriter
             .Append(")\">density</text>\n");
         sb.Append("</svg>\n");
         return sb.ToString();
+    }
+
+    /// <summary>The smallest step of 1, 2 or 5 × 10^k, and at least <paramref name="least"/>, not below
+    /// <paramref name="wanted"/>.</summary>
+    internal static double LabelStep(double wanted, double least)
+    {
+        if (!(wanted > least) || !double.IsFinite(wanted)) return least;
+        double p = Math.Pow(10, Math.Floor(Math.Log10(wanted)));
+        foreach (double m in new[] { 1.0, 2.0, 5.0, 10.0 })
+            if (m * p >= wanted - 1e-12) return Math.Round(m * p, 10);
+        return 10 * p;
     }
 
     /// <summary>
@@ -424,7 +441,6 @@ public static class HtmlReportWriter
         figure { margin: 8px 0; }
         figure svg { max-width: 100%; height: auto; border: 1px solid #ddd; }
         figcaption { font-size: 12px; color: #333; margin-top: 4px; }
-        pre.budget { font-size: 12px; background: #f8f8f8; border: 1px solid #ddd; padding: 6px; overflow-x: auto; }
         footer { margin-top: 24px; font-size: 11px; color: #555; }
         @page { size: A4; margin: 14mm; }
         @media print {

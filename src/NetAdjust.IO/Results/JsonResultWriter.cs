@@ -147,7 +147,7 @@ public static class JsonResultWriter
         {
             Index = o.Index,
             Kind = ObservationLabels.Key(i.Kind),
-            At = i.At,
+            At = ObservationLabels.Station(i),
             From = i.From,
             To = i.To,
             Set = (i as Network.DirectionObservation)?.SetId,

@@ -11,8 +11,11 @@ namespace NetAdjust.IO.Results;
 /// diamond; new point: circle), observation lines, standard error ellipses magnified by a stated factor
 /// (each an SVG <c>ellipse</c> element of class <c>ellipse</c>), a scale bar for the map and one for the
 /// ellipses, a north arrow and a legend. Observations failing the w-test are drawn dashed and thick when
-/// standardised residuals are available. Colours from the Okabe–Ito palette (Okabe &amp; Ito 2008, "Color
-/// Universal Design"), chosen to stay distinct for colour-blind readers; every role also has its own shape.
+/// standardised residuals are available. Levelled height differences are not sight lines: between two plotted
+/// points they are drawn dotted in their own colour, and where a point has no plan position they are listed in the
+/// legend, not drawn, so that no line appears that was never sighted. Colours from the Okabe–Ito palette
+/// (Okabe &amp; Ito 2008, "Color Universal Design"), chosen to stay distinct for colour-blind readers; every role
+/// also has its own shape.
 /// Deterministic: same result, same text.
 /// </summary>
 public static class NetworkPlotWriter
@@ -25,6 +28,13 @@ public static class NetworkPlotWriter
     internal const string EllipseColour = "#CC79A7";  // reddish purple
     internal const string FailColour = "#D55E00";     // vermillion
     internal const string LineColour = "#8C8C8C";     // neutral grey
+    internal const string LevelledColour = "#56B4E9"; // sky blue
+
+    /// <summary>The dash pattern of a levelled height difference (dotted, against the solid sight lines).</summary>
+    internal const string LevelledDashes = "2 4";
+
+    /// <summary>At most this many levelled lines that cannot be drawn are named in the legend.</summary>
+    internal const int LevelledListed = 6;
 
     private const double Width = 960, Height = 640;
     private const double MapX0 = 16, MapY0 = 16, MapX1 = 700, MapY1 = 624;
@@ -98,6 +108,8 @@ public static class NetworkPlotWriter
         var planIds = pts.ToDictionary(p => p.Id, StringComparer.Ordinal);
         var ok = new StringBuilder();
         var fail = new StringBuilder();
+        var levelledDrawn = 0;
+        var notDrawn = new List<ObservationRow>();
         foreach (var row in report.Observations.Rows)
         {
             var o = row.Source;
@@ -107,16 +119,25 @@ public static class NetworkPlotWriter
                 : new[] { (i.From, i.To) };
             double? wi = row.W;
             bool failed = row.FailsWTest;
+            bool levelled = ObservationLabels.IsLevelled(i.Kind);
             foreach (var (a, b) in segs)
             {
-                if (!planIds.TryGetValue(a, out var pa) || !planIds.TryGetValue(b, out var pb)) continue;
+                if (!planIds.TryGetValue(a, out var pa) || !planIds.TryGetValue(b, out var pb))
+                {
+                    if (levelled) notDrawn.Add(row);
+                    continue;
+                }
+                if (levelled) levelledDrawn++;
                 var target = failed ? fail : ok;
-                target.Append("<line class=\"obs").Append(failed ? " obs-fail" : "").Append("\" x1=\"")
+                target.Append("<line class=\"obs").Append(levelled ? " obs-levelled" : "")
+                      .Append(failed ? " obs-fail" : "").Append("\" x1=\"")
                       .Append(N(X(pa.E!.Value))).Append("\" y1=\"").Append(N(Y(pa.N!.Value)))
                       .Append("\" x2=\"").Append(N(X(pb.E!.Value))).Append("\" y2=\"").Append(N(Y(pb.N!.Value)))
                       .Append('"');
                 if (failed) target.Append(" stroke=\"").Append(FailColour)
                     .Append("\" stroke-width=\"3\" stroke-dasharray=\"8 4\"");
+                else if (levelled) target.Append(" stroke=\"").Append(LevelledColour)
+                    .Append("\" stroke-width=\"1.6\" stroke-dasharray=\"").Append(LevelledDashes).Append('"');
                 else target.Append(" stroke=\"").Append(LineColour).Append("\" stroke-width=\"1.2\"");
                 target.Append("><title>")
                     .Append(E($"#{o.Index + 1} {i.Describe()}" +
@@ -184,7 +205,12 @@ public static class NetworkPlotWriter
         Row(Symbol(PointRole.New, lx + 8, ly + 26, null), "new point");
         Row(
             $"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" " +
-            $"stroke=\"{LineColour}\" stroke-width=\"1.2\"/>", "observation");
+            $"stroke=\"{LineColour}\" stroke-width=\"1.2\"/>", "observation (sight line)");
+        if (levelledDrawn > 0)
+            Row(
+                $"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" " +
+                $"stroke=\"{LevelledColour}\" stroke-width=\"1.6\" stroke-dasharray=\"{LevelledDashes}\"/>",
+                "levelled height difference");
         if (w is not null)
             Row(
                 $"<line x1=\"{N(lx)}\" y1=\"{N(ly + 26)}\" x2=\"{N(lx + 18)}\" y2=\"{N(ly + 26)}\" " +
@@ -221,6 +247,27 @@ public static class NetworkPlotWriter
               .Append(" a height only</text>\n");
             sb.Append("<text x=\"").Append(N(lx)).Append("\" y=\"").Append(N(ly + 14))
                 .Append("\" font-size=\"11\">and is not plotted.</text>\n");
+        }
+        if (notDrawn.Count > 0)
+        {
+            // levelled lines to points without a plan position: named, not drawn
+            var lines = new List<string>
+            {
+                $"{notDrawn.Count} levelled height difference{(notDrawn.Count == 1 ? "" : "s")}",
+                "not drawn (no plan position):",
+            };
+            lines.AddRange(notDrawn.Take(LevelledListed).Select(r => $"#{r.Number} {r.Input.From} to {r.Input.To}"));
+            if (notDrawn.Count > LevelledListed)
+                lines.Add($"and {notDrawn.Count - LevelledListed} more (observations table)");
+            ly += 34;
+            sb.Append("<g class=\"levelled-not-drawn\">");
+            foreach (var line in lines)
+            {
+                sb.Append("<text x=\"").Append(N(lx)).Append("\" y=\"").Append(N(ly)).Append("\" font-size=\"11\">")
+                  .Append(E(line)).Append("</text>");
+                ly += 14;
+            }
+            sb.Append("</g>\n");
         }
         sb.Append("</g>\n");
         sb.Append("</svg>\n");

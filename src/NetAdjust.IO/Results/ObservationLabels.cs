@@ -31,6 +31,19 @@ internal static class ObservationLabels
     /// <summary>True when values are angles (radians), false when lengths (metres).</summary>
     public static bool IsAngular(ObservationKind kind) => ObservationKindRegistry.Of(kind).Unit == UnitClass.Angle;
 
+    /// <summary>The station an observation was measured from (the instrument point: the station of a direction or
+    /// angle, the from point of a distance, slope distance or zenith angle); null for a levelled height difference
+    /// or an observed azimuth.</summary>
+    public static string? Station(Observation o) => o.At ?? ObservationKindRegistry.Of(o).Instrument(o);
+
+    /// <summary>The "from" point as the tables show it beside the station: empty when it is the station.</summary>
+    public static string FromShown(Observation o) => o.From == Station(o) ? "" : o.From;
+
+    /// <summary>True for a levelled height difference: measured along a levelling line, not along a sight line
+    /// between its two points.</summary>
+    public static bool IsLevelled(ObservationKind kind) =>
+        ObservationKindRegistry.Of(kind).Measurement == Measurement.Levelling;
+
     /// <summary>The factor from SI to the JSON unit of residuals and standard deviations (arcsec or metres).</summary>
     public static double JsonSmallFactor(ObservationKind kind) => IsAngular(kind) ? Angle.ArcsecondsPerRadian : 1.0;
 

@@ -20,8 +20,12 @@ internal sealed record ObservationRow(AdjustedObservation Source, ObservationTes
     /// <summary>The observation's number in the outputs (1-based, input order).</summary>
     public int Number => Source.Index + 1;
 
-    /// <summary>The "from" point as the tables show it: empty for a direction, whose station is <c>at</c>.</summary>
-    public string FromShown => Input.Kind == ObservationKind.Direction ? "" : Input.From;
+    /// <summary>The station the observation was measured from, as the tables show it (empty for a levelled height
+    /// difference or an observed azimuth).</summary>
+    public string AtShown => ObservationLabels.Station(Input) ?? "";
+
+    /// <summary>The "from" point as the tables show it: empty when it is the station (<c>at</c>).</summary>
+    public string FromShown => ObservationLabels.FromShown(Input);
 
     /// <summary>The rows of a result, in input order.</summary>
     public static IReadOnlyList<ObservationRow> Of(AdjustmentResult r, IReadOnlyList<double?>? w) =>
@@ -37,7 +41,7 @@ internal sealed record ObservationRow(AdjustedObservation Source, ObservationTes
     [
         new("number", "#", ColumnUnit.None, ValueKind.Number, r => ReportCell.Of(r.Number)),
         new("kind", "Kind", ColumnUnit.None, ValueKind.Text, r => ReportCell.Of(ObservationLabels.Words(r.Input.Kind))),
-        new("at", "At", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.Input.At ?? "")),
+        new("at", "At", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.AtShown)),
         new("from", "From", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.FromShown)),
         new("to", "To", ColumnUnit.None, ValueKind.PointId, r => ReportCell.Of(r.Input.To)),
         new("observed", "Observed", ColumnUnit.ObservedValue, ValueKind.Number, r => ReportCell.Of(r.Input.Value)),

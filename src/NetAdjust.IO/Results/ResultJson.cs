@@ -151,8 +151,8 @@ internal static class ResultJson
         ConstraintTest ConstraintTest, IEnumerable<Discrepancy> ControlDiscrepancies,
         IEnumerable<Shift> CoordinateShifts, IEnumerable<Testability> ControlTestability);
 
-    /// <summary>Whether the observations can check one part (plan, height) of a control mark.</summary>
-    internal sealed record Testability(string Id, string Part, bool? Testable,
+    /// <summary>Whether the observations can check one component (E, N, H) of a control mark.</summary>
+    internal sealed record Testability(string Id, string Component, double? Redundancy, bool? Testable,
         IEnumerable<string> CannotBeToldApartFrom);
 
     internal sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, TestValue ChiSquare,

@@ -41,8 +41,8 @@ public static class SequenceJsonWriter
             s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
                 F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
             s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))),
-            s.Testability.Select(x => new ResultJson.Testability(x.Id, x.Part, x.Testable,
-                x.Testable == false ? x.Neighbours : [])));
+            s.Testability.Select(x => new ResultJson.Testability(x.Id, x.Component.ToString(), F(x.Redundancy), x.Testable,
+                x.CannotBeToldApartFrom)));
         JsonResultWriter.Serialise(stream, document);
     }
 
@@ -184,34 +184,47 @@ internal static class SequenceSections
             s.Discrepancies.Select(d => new SectionRow([
                 d.Id, L(d.DE), L(d.DN), L(d.DH), L(d.SdE), L(d.SdN), L(d.SdH), W(d.WE), W(d.WN), W(d.WH),
                 d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "",
-            ], d.MaxAbsW > critical ? RowState.Fail : RowState.Normal)).ToList(), [])
+            ], d.MaxAbsW > critical ? RowState.Fail : RowState.Normal)).ToList(),
+            s.Minimal.Options.Datum.ReferenceObjects is { Count: > 0 } objects
+                ? [
+                    $"  Step 1 holds the reference object(s) {string.Join(", ", objects)} (one sight line each): an " +
+                    "error in their",
+                    "  given positions turns the observed network and shows as discrepancies of the other marks",
+                    "  (see the control testability below).",
+                ]
+                : [])
         {
             MarkNote = $"Rows marked ✗ have a standardised discrepancy |w| above {F(critical, 2)}, " +
                        "the critical value of the w-test.",
         });
 
         var testability = s.Testability;
+        double limit = s.Constrained.Options.Analysis.UncontrolledRedundancy;
         sections.Add(new ReportSection("sequence-testability",
-            "CONTROL TESTABILITY (can the observations fix each control mark without its given coordinates?)",
+            "CONTROL TESTABILITY (can the observations check each control component?)",
             "Control testability",
             [
-                "  A mark they cannot fix cannot be checked: an error in its given coordinates goes unseen or is",
-                "  blamed on another mark. It cannot be told apart from the marks it is joined to (docs/methods.md).",
+                "  r = redundancy number of the component in the constrained step: the share of an error in its",
+                $"  given value that shows in its own discrepancy. Below {F(limit, 2)} an error goes unseen;",
+                "  components whose discrepancies move together cannot be told apart (docs/methods.md).",
             ],
             [
                 new SectionColumn("Point", null, ValueKind.PointId, 12, true, Clip: true),
-                new SectionColumn("Part", null, ValueKind.Text, 6, true),
-                new SectionColumn("Testable", null, ValueKind.Text, 8, true),
+                new SectionColumn("Comp.", null, ValueKind.Text, 5, true),
+                Nr("r", null, 5),
+                new SectionColumn("Testable", null, ValueKind.Text, 8, true, "  "),
                 new SectionColumn("Cannot be told apart from", null, ValueKind.Text, 0, true),
             ],
-            testability.Select(x => new SectionRow([x.Id, x.Part,
+            testability.Select(x => new SectionRow([x.Id, x.Component.ToString(),
+                x.Redundancy is double r ? F(r + 0.0, 2) : "-",
                 x.Testable switch { true => "yes", false => "NO", null => "unknown" },
-                x.Testable == false ? string.Join(", ", x.Neighbours) : ""],
+                string.Join(", ", x.CannotBeToldApartFrom)],
                 x.Testable == false ? RowState.Warn : RowState.Normal)).ToList(),
             testability.Any(x => x.Testable is null)
-                ? ["  unknown: the trial adjustment without the mark's given coordinates did not succeed."] : [])
+                ? [$"  unknown: not computed for networks of more than {ControlTestability.MaxUnknowns} unknowns."]
+                : [])
         {
-            MarkNote = "Rows marked ! are control the observations cannot check.",
+            MarkNote = "Rows marked ! are control components the observations cannot check on their own.",
         });
 
         sections.Add(new ReportSection("sequence-shifts",

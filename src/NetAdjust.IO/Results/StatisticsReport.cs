@@ -33,19 +33,14 @@ internal static class StatisticsReport
         var a = r.Analysis;
         string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
         double radPerSd = u.AngleSd.RadiansPerUnit();
-        var units = new ReportUnits(u);
+        var units = new ReportUnits(u).Booked(r.Network);
         string Len(double? m) => units.Length(m);
         string Small(Observation o, double? si) =>
             si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-";
         string Num(double? v, int d) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv) : "-";
-        bool gons = u.Angle == AngleFormat.Gons;
-        string azUnit = gons ? "gon" : "deg";
-        string Az(double rad)
-        {
-            // [0, half turn) also after rounding: 179.997° prints as 0.00, never as 180.00
-            double half = gons ? 200 : 180, x = Math.Round(rad * half / Math.PI, 2, MidpointRounding.AwayFromZero);
-            return (x >= half ? x - half : x).ToString("F2", Inv);
-        }
+        // azimuths in the project's angle format, as in the coordinate table and the plot
+        string azUnit = u.Angle switch { AngleFormat.Dms => "d-mm-ss", AngleFormat.Gons => "gon", _ => "deg" };
+        string Az(double rad) => units.Azimuth(rad);
         string Basis() => a.Basis == VarianceFactorBasis.Known
             ? $"variance factor known (a priori {F(a.VarianceFactor, 4)})"
             : $"variance factor estimated ({F(a.VarianceFactor, 4)})";
@@ -87,8 +82,8 @@ internal static class StatisticsReport
                 _ => RowState.Normal,
             };
             rows.Add(new SectionRow([
-                (o.Index + 1).ToString(Inv), ObservationLabels.Short(i.Kind), i.At ?? "",
-                i.Kind == ObservationKind.Direction ? "" : i.From, i.To, Small(i, o.Residual),
+                (o.Index + 1).ToString(Inv), ObservationLabels.Short(i.Kind), ObservationLabels.Station(i) ?? "",
+                ObservationLabels.FromShown(i), i.To, Small(i, o.Residual),
                 Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2), Num(t.W, 2), Num(t.Tau, 2),
                 Small(i, t.Mdb), Len(t.ExternalReliability), flag], state));
         }
@@ -171,7 +166,7 @@ internal static class StatisticsReport
                     $"; heights {F(a.IntervalScale, 4)}",
                 ],
                 [
-                    Id("Point", 12), Nr("a", lu, 9), Nr("b", lu, 9), Nr("Azimuth", azUnit, 8), Nr("a " + level, lu, 9),
+                    Id("Point", 12), Nr("a", lu, 9), Nr("b", lu, 9), Nr("Azimuth", azUnit, 9), Nr("a " + level, lu, 9),
                     Nr("b " + level, lu, 9), Nr("sd H", lu, 9), Nr("H " + level, lu, 9),
                 ],
                 ellipses, []));
@@ -180,10 +175,10 @@ internal static class StatisticsReport
         if (a.Relative.Count > 0)
         {
             sections.Add(new ReportSection("relative",
-                $"RELATIVE ERROR ELLIPSES ({lu}; azimuth in {azUnit}; relative distance precision 1:k; " +
+                $"RELATIVE ERROR ELLIPSES ({lu}; azimuth in {azUnit}; distance precision 1:k; " +
                 $"azimuth sd in {au})", "Relative precision", [],
                 [
-                    Id("From", 8), Id("To", 8), Nr("a", lu, 8), Nr("b", lu, 8), Nr("Azimuth", azUnit, 8),
+                    Id("From", 8), Id("To", 8), Nr("a", lu, 8), Nr("b", lu, 8), Nr("Azimuth", azUnit, 9),
                     Nr("a " + level, lu, 8), Nr("Distance", lu, 11), Nr("sd dist", lu, 8), Nr("1:k", null, 9),
                     Nr("sd az", au, 7), Txt("", 0, gap: ""),
                 ],
@@ -200,6 +195,7 @@ internal static class StatisticsReport
 
         if (a.RelativeHeights.Count > 0)
         {
+            string Dh(double? m) => units.KindLength(ObservationKind.HeightDifference, m);
             sections.Add(new ReportSection("relative-heights",
                 $"RELATIVE HEIGHT PRECISION ({lu}; standard deviation of the height difference and its {level} " +
                 "half-width)", "Relative height precision", [],
@@ -208,7 +204,7 @@ internal static class StatisticsReport
                     Txt("", 0, gap: ""),
                 ],
                 a.RelativeHeights.Select(rh => new SectionRow([
-                    rh.From, rh.To, Len(rh.Difference), Len(rh.SdDifference), Len(rh.Confidence),
+                    rh.From, rh.To, Dh(rh.Difference), Dh(rh.SdDifference), Dh(rh.Confidence),
                     rh.Observed ? "" : " *",
                 ])).ToList(),
                 a.RelativeHeights.Any(x => !x.Observed)

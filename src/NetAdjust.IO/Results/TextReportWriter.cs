@@ -35,7 +35,7 @@ public static class TextReportWriter
         var r = report.Result;
         var c = report.Context;
         var u = c.Units;
-        var units = new ReportUnits(u);
+        var units = new ReportUnits(u).Booked(r.Network);
         string lu = u.Length.Symbol, au = u.AngleSd.Symbol();
 
         var sb = new StringBuilder();
@@ -101,7 +101,7 @@ public static class TextReportWriter
             var i = row.Input;
             var k = i.Kind;
             Line(
-                $"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(i.At ?? "", 8),-8} " +
+                $"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(row.AtShown, 8),-8} " +
                 $"{Clip(row.FromShown, 8),-8} " +
                  $"{Clip(i.To, 8),-8} {units.ObservationValue(k, i.Value),14} " +
                      $"{units.ObservationValue(k, row.Source.Adjusted),14} " +

@@ -98,8 +98,9 @@ public sealed record CoordinateShift(string Id, double? DE, double? DN, double? 
 public sealed record SequenceResult(AdjustmentResult Minimal, AdjustmentResult Constrained, string MinimalDatum,
     ConstraintTest Test, IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts)
 {
-    /// <summary>Per control mark and part, whether the observations can check it (<see cref="ControlTestability"/>).
-    /// </summary>
+    /// <summary>Per controlled component (E, N, H) of each control mark, whether the observations can check it: its
+    /// redundancy number in the constrained step and the components it cannot be told apart from
+    /// (<see cref="ControlTestability"/>).</summary>
     public IReadOnlyList<ControlTestability> Testability
     {
         get;

@@ -1,6 +1,7 @@
 using System.Text.Json;
 using NetAdjust.Procedures;
 using NetAdjust.Adjustment;
+using NetAdjust.Geometry;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
 
@@ -41,26 +42,57 @@ public sealed class ControlTestabilityTests
     {
         var s = Run(ReferenceMark, OneLine);
         var items = s.Testability;
-        var rm = Assert.Single(items, x => x.Id == "RM5");
-        Assert.False(rm.Testable!.Value);
-        Assert.Equal(["T1"], rm.Neighbours);
-        // The four published marks stay testable: the observations fix each of them without its given coordinates.
-        Assert.All(items.Where(x => x.Id.StartsWith("HV", StringComparison.Ordinal)),
-            x => Assert.True(x.Testable!.Value));
+        // One direction fixes RM5 across the line only (common practice): an error along the line shows nowhere,
+        // and the two components it checks together cannot be told apart.
+        var e = Assert.Single(items, x => x.Id == "RM5" && x.Component == Parameter.E);
+        var n = Assert.Single(items, x => x.Id == "RM5" && x.Component == Parameter.N);
+        Assert.False(e.Testable!.Value);
+        Assert.False(n.Testable!.Value);
+        Assert.Equal(["RM5 N"], e.CannotBeToldApartFrom);
+        Assert.Equal(["RM5 E"], n.CannotBeToldApartFrom);
+        // The four published marks stay testable and separable from RM5.
+        Assert.All(items.Where(x => x.Id.StartsWith("HV", StringComparison.Ordinal)), x =>
+        {
+            Assert.True(x.Testable!.Value);
+            Assert.DoesNotContain(x.CannotBeToldApartFrom, y => y.StartsWith("RM5", StringComparison.Ordinal));
+        });
+        // The redundancy numbers of the control add up to the constraints the control adds (Δr of the test of the
+        // added constraints, counted from the two adjustments' degrees of freedom): Σ r_i = Δr (common practice).
+        Assert.Equal(s.Test.AddedConstraints, items.Sum(x => x.Redundancy!.Value), 6);
 
         var c = new ReportContext("harrowgate-rm.yaml", TestProjects.RunDate, ProjectUnits.Default);
         string text = SequenceReportWriter.Write(s, c);
-        Assert.Contains("\n  RM5          plan   NO       T1\n", text);
-        Assert.Contains("\n  HV01         plan   yes\n", text);
+        Assert.Matches(@"\n  RM5          E      0\.\d\d  NO       RM5 N\n", text);
+        Assert.Matches(@"\n  HV01         E      0\.\d\d  yes\s*\n", text);
+        // the minimal step holds RM5 (a reference object): the report says that its error shows on the other marks
+        Assert.Contains("Step 1 holds the reference object(s) RM5 (one sight line each)", text);
         using var json = JsonDocument.Parse(SequenceJsonWriter.Write(s, c));
         var entry = json.RootElement.GetProperty("control_testability").EnumerateArray()
-            .Single(e => e.GetProperty("id").GetString() == "RM5");
+            .Single(x => x.GetProperty("id").GetString() == "RM5" && x.GetProperty("component").GetString() == "N");
         Assert.False(entry.GetProperty("testable").GetBoolean());
-        Assert.Equal(["T1"],
-            entry.GetProperty("cannot_be_told_apart_from").EnumerateArray().Select(e => e.GetString()));
+        Assert.Equal(n.Redundancy!.Value, entry.GetProperty("redundancy").GetDouble(), 12);
+        Assert.Equal(["RM5 E"],
+            entry.GetProperty("cannot_be_told_apart_from").EnumerateArray().Select(x => x.GetString()));
         string html = HtmlReportWriter.Write(ResultReport.Build(s, c, minimal: false));
         Assert.Contains(
             "<tr class=\"warn\"><td class=\"mark\"><span title=\"weak\">!</span></td><td class=\"id\">RM5</td>", html);
+    }
+
+    [Fact]
+    public void AMarkOnlyOneLineReachesAlongTheNorthingAxisHasNoCheckOfItsNorthing()
+    {
+        // RM5 350 m due north of T1 (5210.36, 8140.31): the direction checks its easting (across the line) only;
+        // its northing has redundancy zero (an error in it shows in no discrepancy) while its easting is testable
+        // (common practice).
+        const string north = "  - {id: RM5, e: 5210.3620, n: 8490.3057, fix: en}";
+        var s = Run(north, OneLine.Replace("300-00-00.0", "0-00-00.0", StringComparison.Ordinal));
+        var e = Assert.Single(s.Testability, x => x.Id == "RM5" && x.Component == Parameter.E);
+        var n = Assert.Single(s.Testability, x => x.Id == "RM5" && x.Component == Parameter.N);
+        Assert.Equal(0, n.Redundancy!.Value, 4);
+        Assert.False(n.Testable!.Value);
+        Assert.Empty(n.CannotBeToldApartFrom);
+        Assert.True(e.Redundancy > 0.01);
+        Assert.True(e.Testable!.Value);
     }
 
     [Fact]
@@ -68,7 +100,81 @@ public sealed class ControlTestabilityTests
     {
         // Control for the test above: a direction and a distance from T1 fix RM5, so it can be checked.
         string both = OneLine + "    distances:\n      - {to: RM5, value: 350.0000, sd: 0.0015}\n";
-        var rm = Assert.Single(Run(ReferenceMark, both).Testability, x => x.Id == "RM5");
-        Assert.True(rm.Testable!.Value);
+        var s = Run(ReferenceMark, both);
+        Assert.All(s.Testability.Where(x => x.Id == "RM5"), x =>
+        {
+            Assert.True(x.Testable!.Value);
+            Assert.Empty(x.CannotBeToldApartFrom);
+        });
+    }
+
+    [Fact]
+    public void ThreeHeldBenchmarksOfALevelLoopShareTwoChecks()
+    {
+        // Three held benchmarks joined by levelled lines: the observations fix their height differences, the
+        // height datum is the one direction they leave free, G_c = (1, 1, 1)ᵀ and H = 11ᵀ/3, so each benchmark's
+        // redundancy is 1 − 1/3 = 2/3 and Σ r = 2 added constraints (closed form; docs/methods.md, "Datum").
+        const string project = """
+            project: three benchmarks
+            units: {length: m, angle: dms, angle_sd: arcsec}
+            points:
+              - {id: A, h: 10.000, fix: h}
+              - {id: B, h: 11.000, fix: h}
+              - {id: C, h: 12.000, fix: h}
+              - {id: P, h: 10.500}
+            levelling:
+              - {from: A, to: P, dh: 0.5000, sd: 0.001}
+              - {from: P, to: B, dh: 0.5003, sd: 0.001}
+              - {from: B, to: C, dh: 0.9998, sd: 0.001}
+              - {from: C, to: A, dh: -2.0001, sd: 0.001}
+            """;
+        var p = ProjectReader.Parse(project, "three.yaml", TestProjects.RepoRoot, _ => throw new IOException("none"));
+        var s = AdjustmentSequence.Run(p.Network, p.Options);
+        Assert.Equal(3, s.Testability.Count);
+        Assert.All(s.Testability, x =>
+        {
+            Assert.Equal(Parameter.H, x.Component);
+            Assert.Equal(2.0 / 3.0, x.Redundancy!.Value, 9);
+            Assert.True(x.Testable!.Value);
+        });
+        Assert.Equal(2, s.Test.AddedConstraints);
+    }
+
+    [Fact]
+    public void TwoPlanMarksShareTheirOneCheckAlongTheLineBetweenThem()
+    {
+        // Two held marks of a network with distances: translation and rotation come from the control, so the one
+        // check is the distance between the marks. Its direction u = (sin t, cos t) gives H = I − ccᵀ with
+        // c = (−u, u)/√2 over (E1, N1, E2, N2): r(E) = sin²t / 2, r(N) = cos²t / 2 at both marks, and all four
+        // discrepancies move together, so no mark can be told apart from the other (closed form).
+        const string project = """
+            project: two marks
+            units: {length: m, angle: dms, angle_sd: arcsec}
+            points:
+              - {id: A, e: 1000.000, n: 1000.000, fix: en}
+              - {id: B, e: 1300.000, n: 1400.000, fix: en}
+              - {id: P, e: 1350.000, n: 1050.000}
+            setups:
+              - at: P
+                directions:
+                  - {to: A, value: 0-00-00.0, sd: 1.0}
+                  - {to: B, value: 90-00-00.0, sd: 1.0}
+                distances:
+                  - {to: A, value: 353.5534, sd: 0.002}
+                  - {to: B, value: 353.5534, sd: 0.002}
+              - at: A
+                distances:
+                  - {to: B, value: 500.0000, sd: 0.002}
+            """;
+        var p = ProjectReader.Parse(project, "two.yaml", TestProjects.RepoRoot, _ => throw new IOException("none"));
+        var s = AdjustmentSequence.Run(p.Network, p.Options);
+        double sin = 300.0 / 500.0, cos = 400.0 / 500.0;
+        foreach (var x in s.Testability)
+        {
+            double expected = (x.Component == Parameter.E ? sin * sin : cos * cos) / 2;
+            Assert.Equal(expected, x.Redundancy!.Value, 4);
+            Assert.Equal(3, x.CannotBeToldApartFrom.Count);
+        }
+        Assert.Equal(1.0, s.Testability.Sum(x => x.Redundancy!.Value), 9);
     }
 }

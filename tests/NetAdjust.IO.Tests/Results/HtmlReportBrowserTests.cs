@@ -206,7 +206,8 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Contains("<th class=\"num\">Residual (m or arcsec)</th>", tests);
         Assert.Contains("<th class=\"num\">Ext.rel. (m)</th>", tests);
         var ellipses = Regex.Match(dom, "<section id=\"ellipses\".*?</section>", RegexOptions.Singleline).Value;
-        Assert.Contains("<th class=\"num\">Azimuth (deg)</th>", ellipses);
+        // azimuths in the project's angle unit, as in the coordinate table and the plot
+        Assert.Contains("<th class=\"num\">Azimuth (d-mm-ss)</th>", ellipses);
 
         // The round that set the blunder aside is marked by a symbol, not by colour alone.
         var rounds = Regex.Match(dom, "<section id=\"blunder-hunt\".*?</section>", RegexOptions.Singleline).Value;
@@ -235,6 +236,7 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.Equal(2, Rows("sequence-solutions"));
         Assert.Equal(seq.Discrepancies.Count, Rows("sequence-discrepancies"));
         Assert.Equal(seq.Shifts.Count, Rows("sequence-shifts"));
+        Assert.Equal(seq.Testability.Count, Rows("sequence-testability"));
         Assert.Equal(seq.Minimal.Points.Count, Rows("sequence-other-solution"));
         Assert.False(seq.Test.Passed);
         Assert.Contains("<p class=\"verdict fail\"><strong>✗ Decision: the control does not fit", dom);
@@ -245,5 +247,83 @@ public sealed class HtmlReportBrowserTests : IDisposable
         Assert.True(failing > 0);
         const string failMark = "<tr class=\"fail\"><td class=\"mark\"><span title=\"fails\">✗</span>";
         Assert.Equal(failing, Regex.Matches(discrepancies, failMark).Count);
+    }
+
+    [ChromiumFact]
+    public void HistogramAxisLabelsNeverOverlap()
+    {
+        // The browser measures every axis label of histograms whose |w| reach from 3 to 2,000 (and one whose values
+        // all fall in one bar, for a tall density axis) and counts the pairs of labels on one axis whose boxes
+        // meet. A control figure with two labels drawn on top of each other must count one, or the check could not
+        // fail.
+        var figures = new List<string>
+        {
+            "<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"histogram\" width=\"200\" height=\"50\">" +
+            "<text class=\"tick-w\" x=\"50\" y=\"30\">-10</text>" +
+            "<text class=\"tick-w\" x=\"58\" y=\"30\">-9</text></svg>",
+        };
+        foreach (double top in new[] { 3.0, 25.0, 140.0, 2000.0 })
+            figures.Add(HtmlReportWriter.Histogram([-top, -1.2, -0.3, 0.1, 0.4, 0.9, 1.7, top], 3.29));
+        figures.Add(HtmlReportWriter.Histogram(Enumerable.Repeat(0.1, 40).Append(37.0).ToList(), 3.29));
+        const string script = """
+            <script>
+            const out = [];
+            for (const svg of document.querySelectorAll('svg.histogram')) {
+              let overlaps = 0;
+              for (const cls of ['tick-w', 'tick-density']) {
+                const boxes = [...svg.querySelectorAll('text.' + cls)].map(t => t.getBBox());
+                for (let i = 0; i < boxes.length; i++)
+                  for (let j = i + 1; j < boxes.length; j++) {
+                    const a = boxes[i], b = boxes[j];
+                    if (a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height)
+                      overlaps++;
+                  }
+              }
+              out.push(overlaps + '/' + svg.querySelectorAll('text.tick-w').length + '/' +
+                svg.querySelectorAll('text.tick-density').length);
+            }
+            document.getElementById('result').textContent = out.join(' ');
+            </script>
+            """;
+        string path = Path.Combine(_dir, "histograms.html");
+        File.WriteAllText(path, "<!DOCTYPE html><html><head><meta charset=\"utf-8\"></head><body>" +
+            string.Join("\n", figures) + "<p id=\"result\"></p>" + script + "</body></html>");
+        var run = Chromium.Open(path, "--dump-dom");
+        Assert.Empty(run.ConsoleMessages);
+        var result = Regex.Match(run.Stdout, "<p id=\"result\">([^<]*)</p>").Groups[1].Value.Split(' ');
+        Assert.Equal(figures.Count, result.Length);
+        Assert.StartsWith("1/", result[0]);
+        foreach (var figure in result.Skip(1))
+        {
+            var parts = figure.Split('/').Select(int.Parse).ToArray();
+            Assert.Equal(0, parts[0]);
+            Assert.True(parts[1] >= 3, figure); // the w axis keeps labels
+            Assert.True(parts[2] >= 2, figure);
+        }
+    }
+
+    [ChromiumFact]
+    public void ErrorBudgetsAreATableWithARowPerLineOfTheTextReport()
+    {
+        // The demo (data/brackenmoor.yaml, invented) is weighted from specifications: its budget summary is a
+        // table, one row per contribution line (and total) of the text report's ERROR BUDGETS, and no section of
+        // the report is preformatted text.
+        var (r, c) = TestProjects.Demo();
+        var model = ResultReport.Build(r, c);
+        string text = TextReportWriter.Write(model);
+        var budget = text[text.IndexOf("ERROR BUDGETS", StringComparison.Ordinal)..];
+        budget = budget[..budget.IndexOf("\n\n", StringComparison.Ordinal)];
+        int lines = budget.Split('\n').Count(l => l.StartsWith("    ", StringComparison.Ordinal));
+        string path = Path.Combine(_dir, "budgets.html");
+        File.WriteAllText(path, HtmlReportWriter.Write(model));
+        var run = Chromium.Open(path, "--dump-dom");
+        Assert.Empty(run.ConsoleMessages);
+        string dom = run.Stdout;
+        Assert.DoesNotContain("<pre", dom);
+        var section = Regex.Match(dom, "<section id=\"budgets\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<th class=\"num\">Root-mean-square (m or arcsec)</th>", section);
+        var body = Regex.Match(section, "<tbody>.*?</tbody>", RegexOptions.Singleline).Value;
+        Assert.Equal(lines, Regex.Matches(body, "<tr[ >]").Count);
+        Assert.Contains("<tr class=\"total\"><td>distance</td><td class=\"num\">7 of 7</td><td>total</td>", body);
     }
 }

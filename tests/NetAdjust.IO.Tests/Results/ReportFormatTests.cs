@@ -16,16 +16,16 @@ public class ReportFormatTests
     }
 
     [Theory]
-    [InlineData("dms", "3", "359-59-50", "180.00")]
-    [InlineData("gon", "1", "399.9970", "200.00")]
+    [InlineData("dms", "3", "359-59-59.6", "180-00-00", " 0-00-00 ")]
+    [InlineData("gon", "1", "399.9970", "200.00", " 0.00 ")]
     public void AnEllipseAzimuthJustBelowAHalfTurnPrintsAsZero(string angle, string azimuthSd, string azimuth,
-        string forbidden)
+        string forbidden, string zero)
     {
         // Convention (docs/methods.md, docs/glossary.md): the azimuth of the semi-major axis is in [0°, 180°)
         // ([0, 200) gon).
-        // A point fixed by a distance (3 mm) and an azimuth (3", or 1 mgon) 10" (3 mgon) west of north, 100 m away, has
-        // its major axis along the line, at 179.997° (199.997 gon): rounded to two decimals it must print 0.00, not the
-        // out-of-range 180.00 (200.00).
+        // A point fixed by a distance (3 mm) and an azimuth (3", or 1 mgon) 0.4" (3 mgon) west of north, 100 m away,
+        // has its major axis along the line, at 179-59-59.6 (199.997 gon): rounded in the project's angle unit (whole
+        // seconds, or two decimals of a gon) it must print 0-00-00 (0.00), not the out-of-range 180-00-00 (200.00).
         string yaml = $$"""
             units: {length: m, angle: {{angle}}}
             default_sd: {distance: 3 mm, azimuth: {{azimuthSd}}}
@@ -47,7 +47,7 @@ public class ReportFormatTests
         foreach (var line in new[] { ellipse, relative })
         {
             Assert.DoesNotContain(forbidden, line);
-            Assert.Contains(" 0.00 ", line);
+            Assert.Contains(zero, line);
         }
     }
 
