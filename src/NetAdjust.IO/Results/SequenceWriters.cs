@@ -41,7 +41,8 @@ public static class SequenceJsonWriter
             s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
                 F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
             s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))),
-            s.Testability.Select(x => new ResultJson.Testability(x.Id, x.Component.ToString(), F(x.Redundancy), x.Testable,
+            s.Testability.Select(x => new ResultJson.Testability(x.Id,
+                x.Component.ToString(), F(x.Redundancy), x.Testable,
                 x.CannotBeToldApartFrom)));
         JsonResultWriter.Serialise(stream, document);
     }

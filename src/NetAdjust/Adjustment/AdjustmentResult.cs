@@ -122,7 +122,11 @@ public sealed class AdjustmentResult
 
     /// <summary>Estimated refraction coefficients, one per group whose k is an unknown, in order of first
     /// appearance; empty when none is estimated.</summary>
-    public IReadOnlyList<AdjustedRefraction> Refractions { get; init; } = [];
+    public IReadOnlyList<AdjustedRefraction> Refractions
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List<AdjustedRefraction>([]);
 
     /// <summary>Overall statistics and the global test.</summary>
     public AdjustmentStatistics Statistics { get; }

@@ -215,7 +215,8 @@ public sealed class PublicConstructorGuardTests
     {
         // Standard deviations of observations and instruments are typed (Length, Angle): a number of arcseconds
         // given where radians are meant would weight the adjustment 206 265 times wrong without an error. Points
-        // keep metres as doubles like their coordinates; a factor (SdFactor) has no unit.
+        // keep metres as doubles like their coordinates; a factor (SdFactor) and the sd of the refraction
+        // coefficient (RefractionSd) have no unit.
         var types = new[]
         {
             typeof(Observation), typeof(TotalStationSpecification), typeof(TargetSpecification),
@@ -233,7 +234,7 @@ public sealed class PublicConstructorGuardTests
                     _ => [],
                 };
                 foreach (var (name, type) in named)
-                    if ((type == typeof(double) || type == typeof(double?)) && name != "SdFactor"
+                    if ((type == typeof(double) || type == typeof(double?)) && name is not ("SdFactor" or "RefractionSd")
                         && (name.Contains("sd", StringComparison.OrdinalIgnoreCase)
                             || name.Contains("deviation", StringComparison.OrdinalIgnoreCase)))
                         bare.Add($"{t.Name}.{m.Name}: {name}");
