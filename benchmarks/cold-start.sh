@@ -14,10 +14,11 @@ dotnet publish src/NetAdjust.Cli -c Release -r "$rid" --self-contained false -o 
 for build in jit r2r; do
     : > "$work/$build.times"
     for ((i = 0; i < runs; i++)); do
-        /usr/bin/time -f "%e %U %S" -a -o "$work/$build.times" "$work/$build/NetAdjust.Cli" adjust data/brackenmoor.yaml \
-            --date 2026-12-01 --quiet >/dev/null
+        /usr/bin/time -f "%e %U %S" -a -o "$work/$build.times" \
+            "$work/$build/NetAdjust.Cli" adjust data/brackenmoor.yaml --date 2026-12-01 --quiet >/dev/null
     done
     median="$(cut -d' ' -f1 "$work/$build.times" | sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}')"
     cpu="$(awk '{s += $2 + $3} END {printf "%.2f", s / NR}' "$work/$build.times")"
-    echo "$build ($rid): median wall ${median} s, mean user+sys ${cpu} s over $runs runs; load $(cut -d' ' -f1 /proc/loadavg)"
+    echo "$build ($rid): median wall ${median} s, mean user+sys ${cpu} s over $runs runs;" \
+        "load $(cut -d' ' -f1 /proc/loadavg)"
 done
