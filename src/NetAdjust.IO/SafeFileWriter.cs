@@ -48,15 +48,40 @@ public static class SafeFileWriter
     public static void WriteAll(IReadOnlyList<(string Path, string Text)> files)
     {
         ArgumentNullException.ThrowIfNull(files);
+        var utf8 = new UTF8Encoding(false);
+        WriteAll(files.Select(f => (f.Path, (Action<Stream>)(s =>
+        {
+            using var w = new StreamWriter(s, utf8, BufferSize, leaveOpen: true);
+            w.Write(f.Text);
+        }))).ToList());
+    }
+
+    /// <summary>
+    /// Writes several files as one step, each straight from its writer to a temporary file in its target folder
+    /// (buffered, never held whole in memory); only when all of them are written are they renamed into place. A
+    /// failure while writing leaves no partial file and every earlier file untouched (none of the outputs is
+    /// replaced).
+    /// </summary>
+    /// <param name="files">Target paths and the writers of their contents, in order; a writer gets the open
+    /// stream of its temporary file and must not close it.</param>
+    /// <exception cref="OutputException">When a file cannot be written; the temporary files are removed.</exception>
+    public static void WriteAll(IReadOnlyList<(string Path, Action<Stream> Write)> files)
+    {
+        ArgumentNullException.ThrowIfNull(files);
         var staged = new List<(string Tmp, string Full, string Given)>();
         try
         {
-            foreach (var (path, text) in files)
+            foreach (var (path, write) in files)
             {
                 string full = Path.GetFullPath(path);
                 string tmp = TemporaryPath(full);
                 staged.Add((tmp, full, path));
-                try { File.WriteAllText(tmp, text, new UTF8Encoding(false)); }
+                try
+                {
+                    using var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None,
+                        BufferSize);
+                    write(stream);
+                }
                 catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
                 {
                     throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
@@ -71,6 +96,9 @@ public static class SafeFileWriter
                 catch (IOException) { } catch (UnauthorizedAccessException) { }
         }
     }
+
+    /// <summary>The buffer of the output streams (bytes).</summary>
+    private const int BufferSize = 1 << 16;
 
     private static string TemporaryPath(string full) =>
         Path.Combine(Path.GetDirectoryName(full) ?? ".",

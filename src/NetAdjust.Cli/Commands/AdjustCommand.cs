@@ -71,12 +71,13 @@ internal static class AdjustCommand
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
                 Particulars = project.Particulars,
             };
-            string text;
+            Action<TextWriter> text;
             AdjustmentResult result;
             ReportContext context;
             ResultReport? model = null;
-            // all outputs or none: a failed write must not leave the others replaced
-            var files = new List<(string, string)>();
+            // all outputs or none: a failed write must not leave the others replaced; each is written as it is
+            // rendered, straight to its temporary file
+            var files = new List<(string, Action<Stream>)>();
             if (parse.GetValue(sequence))
             {
                 // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply
@@ -87,26 +88,41 @@ internal static class AdjustCommand
                     throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
                 (result, context) = (seq.Constrained, context0);
-                text = SequenceReportWriter.Write(seq, context);
+                text = w => SequenceReportWriter.Write(w, seq, context);
                 model = ResultReport.Build(seq, context, minimal: parse.GetValue(solution) == "minimal");
-                if (jsonPath is not null) files.Add((jsonPath, SequenceJsonWriter.Write(seq, context)));
+                if (jsonPath is not null) files.Add((jsonPath, s => SequenceJsonWriter.Write(s, seq, context)));
             }
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
-                model = ResultReport.Build(result, context);
-                text = TextReportWriter.Write(model);
-                if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(model)));
+                Progress(project, "preparing the report");
+                var single = model = ResultReport.Build(result, context);
+                text = w => TextReportWriter.Write(w, single);
+                if (jsonPath is not null) files.Add((jsonPath, s => JsonResultWriter.Write(s, single)));
             }
             // One report model for every output of a result (for the sequence: the chosen solution's).
             files.AddRange(exchange.Render(parse, model ?? ResultReport.Build(result, context)));
-            if (reportPath is not null) files.Add((reportPath, text));
-            SafeFileWriter.WriteAll(files);
-            if (reportPath is null) console.Out.Write(text);
+            if (reportPath is not null)
+                files.Add((reportPath, s => { using var w = ExchangeOutputs.Utf8(s); text(w); }));
+            SafeFileWriter.WriteAll(files.Select(f => (f.Item1, (Action<Stream>)(s =>
+            {
+                Progress(project, "writing " + f.Item1);
+                f.Item2(s);
+            }))).ToList());
+            if (reportPath is null)
+            {
+                Progress(project, "writing the report to standard output");
+                text(console.Out);
+                console.Out.Flush();
+            }
             return ExitCodes.Success;
         }));
         return cmd;
     }
+
+    /// <summary>Reports a phase of the run to the progress printer, when progress is shown.</summary>
+    private static void Progress(SurveyProject project, string phase) =>
+        project.Options.Progress?.Report(new AdjustmentProgress(phase, null));
 
     internal static DateOnly ParseDate(string? text)
     {

@@ -9,7 +9,7 @@ internal static class CsvLimits
             throw new ProjectFileException(file, lineNo, "",
                 $"the line has {line.Length} characters, more than the limit of {InputLimits.MaxCsvLineLength} " +
                 "(docs/input-format.md, \"Limits\")");
-        var f = line.Split(',').Select(s => s.Trim()).ToArray();
+        var f = line.Split(',', StringSplitOptions.TrimEntries);
         foreach (var v in f)
             if (v.Length > InputLimits.MaxValueLength)
                 throw new ProjectFileException(file, lineNo, "",

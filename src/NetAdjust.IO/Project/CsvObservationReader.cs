@@ -16,6 +16,9 @@ internal static partial class CsvObservationReader
         ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor",
             .. TotalStationColumns];
 
+    private static readonly Dictionary<string, ObservationKind> KindByName =
+        ObservationKinds.All.ToDictionary(k => k.Name(), StringComparer.Ordinal);
+
     /// <summary>Weighting of a height difference from a named level: (level id, section length, setups, runs) →
     /// weighting; throws <see cref="InvalidInputException"/>.</summary>
     internal delegate ObservationWeighting LevelBudget(string level, Length? length, int? setups, int? runs);
@@ -56,7 +59,7 @@ internal static partial class CsvObservationReader
                     $"expected {col.Count} fields as in the header, found {f.Length}");
             string Get(string name) => col.TryGetValue(name, out int k) ? f[k] : "";
             string kindText = Get("kind");
-            var kind = ObservationKinds.All.Cast<ObservationKind?>().FirstOrDefault(k => k!.Value.Name() == kindText)
+            var kind = (KindByName.TryGetValue(kindText, out var named) ? named : (ObservationKind?)null)
                 ?? throw new ProjectFileException(file, lineNo, kindText,
                     $"unknown observation kind (expected one of: " +
                     $"{string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");

@@ -32,22 +32,26 @@ internal static class InputChecks
     {
         foreach (var o in observations)
         {
-            var (f, line) = Where(o.Source, file);
-            string item = o.Describe();
-            if (o.Source is not null && item.EndsWith($" ({o.Source})", StringComparison.Ordinal))
-                item = item[..^(o.Source.Length + 3)];
             // A standard deviation still to be derived from specifications (NaN) is checked where it is derived
             // (Stochastic.StochasticModel), with the same limits.
             bool derived = double.IsNaN(o.StandardDeviation) && o.Weighting is not null;
             if (!derived && InputLimits.SdProblem(o.StandardDeviation, o.Kind.IsAngular()) is string problem)
-                throw new ProjectFileException(f, line, item, problem);
+                throw Error(o, file, problem);
             if (!o.Kind.IsAngular() && !(Math.Abs(o.Value) <= InputLimits.MaxCoordinate))
-                throw new ProjectFileException(f, line, item, $"the value {G(o.Value)} m is beyond the limit of " +
-                    $"±1e8 m for lengths");
+                throw Error(o, file, $"the value {G(o.Value)} m is beyond the limit of ±1e8 m for lengths");
             if (o is HeightDifferenceObservation { LineLength: { } len } && !(len.Metres <= InputLimits.MaxCoordinate))
-                throw new ProjectFileException(f, line, item, $"the section length {G(len.Metres)} m is beyond " +
-                    $"the limit of 1e8 m");
+                throw Error(o, file, $"the section length {G(len.Metres)} m is beyond the limit of 1e8 m");
         }
+    }
+
+    /// <summary>The error of one observation, naming its file, line and item (made only when there is one).</summary>
+    private static ProjectFileException Error(Observation o, string file, string problem)
+    {
+        var (f, line) = Where(o.Source, file);
+        string item = o.Describe();
+        if (o.Source is not null && item.EndsWith($" ({o.Source})", StringComparison.Ordinal))
+            item = item[..^(o.Source.Length + 3)];
+        return new ProjectFileException(f, line, item, problem);
     }
 
     /// <summary>

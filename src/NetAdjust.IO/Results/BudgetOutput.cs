@@ -103,9 +103,9 @@ internal static class BudgetOutput
     /// <summary>
     /// Appends the error-budget summary: per observation kind, each contribution's root-mean-square over the
     /// observations weighted from specifications, and its share of the mean variance. Nothing when no observation has a
-    /// budget.
+    /// budget. The list per observation is passed on to <paramref name="output"/> (when given) as it grows.
     /// </summary>
-    public static void AppendSummary(StringBuilder sb, AdjustmentResult r, ReportContext c)
+    public static void AppendSummary(StringBuilder sb, AdjustmentResult r, ReportContext c, TextWriter? output = null)
     {
         var withBudget = r.Observations.Where(o => ResultReport.BudgetOf(o) is not null).ToList();
         if (withBudget.Count == 0) return;
@@ -148,6 +148,7 @@ internal static class BudgetOutput
                 line.Append(piece);
             }
             Line(line.ToString());
+            TextChunks.Spill(sb, output);
         }
         Line();
     }

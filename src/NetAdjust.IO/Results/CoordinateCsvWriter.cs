@@ -38,6 +38,16 @@ public static class CoordinateCsvWriter
     public static string Write(ResultReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
+        return TextChunks.ToText(w => Write(w, report));
+    }
+
+    /// <summary>Writes the CSV text of the report model's point table to a text writer, row by row.</summary>
+    /// <param name="output">The writer; left open, and not flushed.</param>
+    /// <param name="report">The report model.</param>
+    public static void Write(TextWriter output, ResultReport report)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        ArgumentNullException.ThrowIfNull(report);
         var unit = report.Context.Units.Length;
         var table = report.Points;
         string Header(ReportColumn<PointRow> c) => c.Key + c.Unit switch
@@ -59,9 +69,12 @@ public static class CoordinateCsvWriter
         sb.AppendJoin(',', table.Columns.Select(Header)).Append(',').Append(BasisColumn)
           .Append(solution is null ? "" : "," + SolutionColumn).Append('\n');
         foreach (var row in table.Rows)
+        {
             sb.AppendJoin(',', table.Columns.Select(c => Cell(c, row)))
               .Append(',').Append(report.Basis.Keyword).Append(solution is null ? "" : "," + solution).Append('\n');
-        return sb.ToString();
+            TextChunks.Spill(sb, output);
+        }
+        TextChunks.Drain(sb, output);
     }
 
     /// <summary>Quotes a field when it holds a comma, a quote or a line break (RFC 4180 §2).</summary>

@@ -107,6 +107,7 @@ public static class GeoJsonWriter
                 NumOrNull(j, "ellipse_azimuth_deg", row.EllipseAzimuthDegrees);
                 j.WriteEndObject();
                 j.WriteEndObject();
+                FlushWhenFull(j);
             }
 
             foreach (var row in report.Observations.Rows)
@@ -147,6 +148,7 @@ public static class GeoJsonWriter
                 else j.WriteNull("w_test_failed");
                 j.WriteEndObject();
                 j.WriteEndObject();
+                FlushWhenFull(j);
             }
 
             foreach (var row in report.Points.Rows)
@@ -178,6 +180,7 @@ public static class GeoJsonWriter
                 j.WriteNumber("azimuth_deg", row.EllipseAzimuthDegrees!.Value);
                 j.WriteEndObject();
                 j.WriteEndObject();
+                FlushWhenFull(j);
             }
             j.WriteEndArray();
             j.WriteEndObject();
@@ -200,6 +203,16 @@ public static class GeoJsonWriter
             double c = Math.Cos(t) * el.A, s = Math.Sin(t) * el.B;
             yield return (e0 + (c * ue) + (s * ve), n0 + (c * un) + (s * vn));
         }
+    }
+
+    /// <summary>Bytes a JSON writer gathers before it passes them on to its stream.</summary>
+    internal const int FlushThreshold = 1 << 16;
+
+    /// <summary>Passes what the writer holds on to its stream once it holds <see cref="FlushThreshold"/> bytes (a
+    /// <see cref="Utf8JsonWriter"/> over a stream writes only when flushed).</summary>
+    internal static void FlushWhenFull(Utf8JsonWriter j)
+    {
+        if (j.BytesPending >= FlushThreshold) j.Flush();
     }
 
     private static void Num(Utf8JsonWriter j, double v) => j.WriteNumberValue(Math.Round(v, Decimals));

@@ -36,6 +36,17 @@ public static class LandXmlWriter
     public static string Write(ResultReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
+        return JsonResultWriter.ToText(s => Write(s, report));
+    }
+
+    /// <summary>Writes the LandXML document of the report model's point table to a stream as it is rendered (UTF-8,
+    /// LF line ends, ending with a line feed).</summary>
+    /// <param name="stream">The stream; left open.</param>
+    /// <param name="report">The report model.</param>
+    public static void Write(Stream stream, ResultReport report)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        ArgumentNullException.ThrowIfNull(report);
         var result = report.Result;
         var context = report.Context;
         var unit = context.Units.Length;
@@ -45,8 +56,7 @@ public static class LandXmlWriter
             Indent = true, IndentChars = "  ", NewLineChars = "\n", NewLineHandling = NewLineHandling.Replace,
             Encoding = new UTF8Encoding(false), OmitXmlDeclaration = false,
         };
-        using var ms = new MemoryStream();
-        using (var w = XmlWriter.Create(ms, settings))
+        using (var w = XmlWriter.Create(stream, settings))
         {
             w.WriteStartDocument();
             w.WriteStartElement("LandXML", Namespace);
@@ -127,6 +137,6 @@ public static class LandXmlWriter
             w.WriteEndElement();
             w.WriteEndDocument();
         }
-        return Encoding.UTF8.GetString(ms.ToArray()) + "\n";
+        stream.WriteByte((byte)'\n');
     }
 }

@@ -76,8 +76,9 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
         _ => "",
     };
 
-    /// <summary>Appends the section to the text report: title, lines, header, rows, lines, one blank line.</summary>
-    public void AppendText(StringBuilder sb)
+    /// <summary>Appends the section to the text report: title, lines, header, rows, lines, one blank line; the rows
+    /// are passed on to <paramref name="output"/> (when given) as they grow.</summary>
+    public void AppendText(StringBuilder sb, TextWriter? output = null)
     {
         void Line(string s) => sb.Append(s.TrimEnd()).Append('\n');
         Line(Title);
@@ -87,6 +88,7 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
         {
             Line(TextLayout is null ? Layout(row.Cells, clip: true) : TextLayout(row.Cells));
             foreach (var line in row.After ?? []) Line(line);
+            TextChunks.Spill(sb, output);
         }
         foreach (var line in After) Line(line);
         Line("");

@@ -66,6 +66,19 @@ public static class SequenceReportWriter
     {
         ArgumentNullException.ThrowIfNull(s);
         ArgumentNullException.ThrowIfNull(c);
+        return TextChunks.ToText(w => Write(w, s, c));
+    }
+
+    /// <summary>Writes the report to a text writer as it is rendered (the same text as <see
+    /// cref="Write(SequenceResult, ReportContext)"/>).</summary>
+    /// <param name="output">The writer; left open, and not flushed.</param>
+    /// <param name="s">The sequence result.</param>
+    /// <param name="c">Run details and units.</param>
+    public static void Write(TextWriter output, SequenceResult s, ReportContext c)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        ArgumentNullException.ThrowIfNull(s);
+        ArgumentNullException.ThrowIfNull(c);
         var sb = new StringBuilder();
         void Line(string text = "") => sb.Append(text).Append('\n');
         Line("NetAdjust datum sequence: minimally constrained, then constrained");
@@ -79,16 +92,17 @@ public static class SequenceReportWriter
         Line($"Step 2    : {s.Constrained.Options.Datum.Describe()}");
         ReportWarnings.AppendText(sb, c);
         Line();
-        foreach (var section in SequenceSections.Build(s, c)) section.AppendText(sb);
+        foreach (var section in SequenceSections.Build(s, c)) section.AppendText(sb, output);
 
         Line("STEP 1: MINIMALLY CONSTRAINED SOLUTION");
         Line(new string('-', 38));
-        sb.Append(TextReportWriter.Write(s.Minimal, c));
+        TextChunks.Drain(sb, output);
+        TextReportWriter.Write(output, ResultReport.Build(s.Minimal, c));
         Line();
         Line("STEP 2: CONSTRAINED SOLUTION");
         Line(new string('-', 28));
-        sb.Append(TextReportWriter.Write(s.Constrained, c));
-        return sb.ToString();
+        TextChunks.Drain(sb, output);
+        TextReportWriter.Write(output, ResultReport.Build(s.Constrained, c));
     }
 }
 

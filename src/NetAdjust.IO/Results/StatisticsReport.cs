@@ -19,10 +19,11 @@ internal static class StatisticsReport
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    /// <summary>Appends the sections of the model to the text report.</summary>
-    public static void Append(StringBuilder sb, IEnumerable<ReportSection> sections)
+    /// <summary>Appends the sections of the model to the text report, passing long tables on to <paramref
+    /// name="output"/> (when given) as they grow.</summary>
+    public static void Append(StringBuilder sb, IEnumerable<ReportSection> sections, TextWriter? output = null)
     {
-        foreach (var section in sections) section.AppendText(sb);
+        foreach (var section in sections) section.AppendText(sb, output);
     }
 
     /// <summary>Builds the statistics sections of the report model (only those with something to show).</summary>

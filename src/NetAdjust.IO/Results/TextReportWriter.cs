@@ -32,6 +32,17 @@ public static class TextReportWriter
     public static string Write(ResultReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
+        return TextChunks.ToText(w => Write(w, report));
+    }
+
+    /// <summary>Writes the report of a report model to a text writer as it is rendered, table row by table row (the
+    /// same text as <see cref="Write(ResultReport)"/>).</summary>
+    /// <param name="output">The writer; left open, and not flushed.</param>
+    /// <param name="report">The report model.</param>
+    public static void Write(TextWriter output, ResultReport report)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        ArgumentNullException.ThrowIfNull(report);
         var r = report.Result;
         var c = report.Context;
         var u = c.Units;
@@ -87,6 +98,7 @@ public static class TextReportWriter
             string role = held + (weighted.Length > 0 ? (held.Length > 0 ? " " : "") + $"w:{weighted}" : "");
             Line(($"  {Clip(p.Id, 12),-12} {E(p.E, 14)} {E(p.N, 14)} {E(p.H, 11)} " +
                   $"{E(row.SdE, 8)} {E(row.SdN, 8)} {E(row.SdH, 8)}  {role}").TrimEnd());
+            TextChunks.Spill(sb, output);
         }
         Line();
 
@@ -107,25 +119,29 @@ public static class TextReportWriter
                      $"{units.ObservationValue(k, row.Source.Adjusted),14} " +
                  $"{units.ObservationSmall(k, row.Source.Residual),9} " +
                      $"{units.ObservationSmall(k, i.StandardDeviation),7}");
+            TextChunks.Spill(sb, output);
         }
         Line();
 
-        BudgetOutput.AppendSummary(sb, r, c);
+        BudgetOutput.AppendSummary(sb, r, c, output);
 
         if (r.Orientations.Count > 0)
         {
             Line($"ORIENTATION UNKNOWNS (one per direction set; azimuth of the circle zero, sd in {au})");
             Line($"  {"Set",-20} {"Station",-10} {"Orientation",14} {"sd",8}");
             foreach (var o in r.Orientations)
+            {
                 Line($"  {Clip(o.SetId, 20),-20} {Clip(o.Station, 10),-10} {units.AngleValue(o.Orientation),14} " +
                      $"{units.SmallAngle(o.Sd),8}");
+                TextChunks.Spill(sb, output);
+            }
             Line();
         }
 
         RefractionOutput.AppendText(sb, r);
-        StatisticsReport.Append(sb, report.Sections);
+        StatisticsReport.Append(sb, report.Sections, output);
         Line(Caution);
-        return sb.ToString();
+        TextChunks.Drain(sb, output);
     }
 
     private static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);

@@ -45,9 +45,11 @@ public static partial class Adjuster
         n -= network.Observations.Count(o => o.Excluded); // set aside: no weight, no redundancy
 
         int iterations = 0;
+        // The linearisation at the current state, when the step control has made it (reused, not repeated).
+        Linearisation? current = null;
         for (int round = 1; ; round++)
         {
-            if (u > 0) iterations += Iterate(network, options, plan, solver, control, weights, iterations);
+            if (u > 0) iterations += Iterate(network, options, plan, solver, control, weights, iterations, ref current);
             var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
             if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
             if (round == MaxStochasticRounds)
@@ -61,7 +63,8 @@ public static partial class Adjuster
 
         // Final linearisation at the solution: residuals, covariance.
         options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
-        var (finalRows, finalL) = Linearise(network, index, state, control);
+        // (the σ the model filled in do not enter the linearisation, so the one at the last state still holds)
+        var (finalRows, finalL) = current ?? Linearise(network, index, state, control);
         INormalFactor? finalFactor = u > 0 ? plan.Factorize(solver, finalRows, weights) : null;
         double vtpv = weights.Quadratic(finalL); // v = −l at the solution
         int dof = n - u + plan.ConditionCount;
@@ -149,9 +152,11 @@ public static partial class Adjuster
     }
 
     /// <summary>Gauss-Newton iterations with fixed weights until every correction is below the tolerances.</summary>
-    /// <returns>The number of iterations made.</returns>
+    /// <returns>The number of iterations made. <c>current</c>, the linearisation at the current state when known, is
+    /// used and then replaced by the one the step control made at the state it leaves (or null).</returns>
     private static int Iterate(SurveyNetwork network, AdjustmentOptions options, DatumPlan plan,
-        INormalEquationsSolver solver, List<ControlRow> control, WeightMatrix weights, int before)
+        INormalEquationsSolver solver, List<ControlRow> control, WeightMatrix weights, int before,
+        ref Linearisation? current)
     {
         var (index, state) = (plan.Index, plan.State);
         int u = index.Count, iterations = 0;
@@ -163,7 +168,8 @@ public static partial class Adjuster
                 throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
             iterations++;
             options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {before + iterations}", null));
-            var (rows, l) = Linearise(network, index, state, control);
+            var (rows, l) = current ?? Linearise(network, index, state, control);
+            current = null;
             var factor = plan.Factorize(solver, rows, weights);
             var pl = weights.Multiply(l);
             var rhs = new double[u];
@@ -188,10 +194,18 @@ public static partial class Adjuster
                 };
                 if (Math.Abs(lastDx[j]) >= tol) converged = false;
             }
-            // Step control: halve the step while vᵀPv grows (see StepControl).
-            if (StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () =>
-                weights.Quadratic(Linearise(network, index, state, control).L)) < 1)
-                converged = false;
+            // Step control: halve the step while vᵀPv grows (see StepControl). Its last trial is linearised at the
+            // state it keeps unless it halved once more after that trial; then the next iteration starts from it.
+            Linearisation? trial = null;
+            int trials = 0;
+            double lambda = StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () =>
+            {
+                trials++;
+                trial = Linearise(network, index, state, control);
+                return weights.Quadratic(trial.Value.L);
+            });
+            if (lambda == Math.Pow(0.5, trials - 1)) current = trial;
+            if (lambda < 1) converged = false;
         }
         return iterations;
     }
@@ -245,10 +259,17 @@ public static partial class Adjuster
         return rows;
     }
 
+    /// <summary>Rows of A and misclosures l = observed − computed at one state.</summary>
+    private readonly record struct Linearisation(SparseRow[] Rows, double[] L);
+
+    /// <summary>Linearisations made on this thread (for the tests of their reuse).</summary>
+    [ThreadStatic] internal static int LinearisationCount;
+
     /// <summary>Rows of A and misclosures l = observed − computed at the current state.</summary>
-    private static (SparseRow[] Rows, double[] L) Linearise(SurveyNetwork network, UnknownIndex index,
+    private static Linearisation Linearise(SurveyNetwork network, UnknownIndex index,
         ParameterState state, List<ControlRow> control)
     {
+        LinearisationCount++;
         int m = network.Observations.Count;
         var rows = new SparseRow[m + control.Count];
         var l = new double[rows.Length];
@@ -277,7 +298,7 @@ public static partial class Adjuster
             rows[m + k] = new SparseRow([j], [1.0]);
             l[m + k] = c.Given - current;
         }
-        return (rows, l);
+        return new Linearisation(rows, l);
     }
 
     /// <summary>Unknowns and start values with the datum by the control (datum check and approximate coordinates

@@ -17,10 +17,25 @@ internal static class SolverChoice
     /// <summary>The solver for an adjustment.</summary>
     public static INormalEquationsSolver For(AdjustmentOptions options, SurveyNetwork network, UnknownIndex index)
     {
-        var solver = options.Solver ??
-            (index.Count <= DenseUnknownLimit ? new DenseNormalEquationsSolver() : new SparseNormalEquationsSolver());
+        var solver = options.Solver switch
+        {
+            null => Automatic(index.Count),
+            ReusableSolver reusable => reusable.For(index.Count),
+            var given => given,
+        };
         return solver is IGeometryAwareSolver aware ? new WithGeometry(aware, GeometryOf(network, index)) : solver;
     }
+
+    private static INormalEquationsSolver Automatic(int unknowns) =>
+        unknowns <= DenseUnknownLimit ? new DenseNormalEquationsSolver() : new SparseNormalEquationsSolver();
+
+    /// <summary>
+    /// The options with one automatic solver shared by the adjustments of a procedure (blunder-hunt rounds, robust
+    /// re-weighting, variance-component rounds), so that the sparse engine's symbolic analysis is made once for
+    /// them all; the options as they are when the caller chose a solver.
+    /// </summary>
+    public static AdjustmentOptions Reusable(AdjustmentOptions options) =>
+        options.Solver is null ? options with { Solver = new ReusableSolver() } : options;
 
     /// <summary>
     /// Groups the unknowns by point (E, N, H of a point; a direction set's orientation with its station) and
@@ -62,4 +77,27 @@ internal static class SolverChoice
         public INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights) =>
             inner.Factorize(unknownCount, rows, weights, geometry);
     }
+}
+
+/// <summary>
+/// The automatic choice of solver (dense up to <see cref="SolverChoice.DenseUnknownLimit"/> unknowns, the sparse engine
+/// above), keeping one sparse solver, and with it its symbolic analysis, for every adjustment it serves.
+/// </summary>
+internal sealed class ReusableSolver : INormalEquationsSolver
+{
+    private SparseNormalEquationsSolver? _sparse;
+
+    /// <summary>Symbolic analyses made by the shared sparse solver.</summary>
+    public int SparseAnalyses => _sparse?.AnalysisCount ?? 0;
+
+    /// <inheritdoc />
+    public string Name => "automatic";
+
+    /// <summary>The solver for an adjustment with this many unknowns.</summary>
+    public INormalEquationsSolver For(int unknowns) => unknowns <= SolverChoice.DenseUnknownLimit
+        ? new DenseNormalEquationsSolver() : _sparse ??= new SparseNormalEquationsSolver();
+
+    /// <inheritdoc />
+    public INormalFactor Factorize(int unknownCount, IReadOnlyList<SparseRow> rows, WeightMatrix weights) =>
+        For(unknownCount).Factorize(unknownCount, rows, weights);
 }

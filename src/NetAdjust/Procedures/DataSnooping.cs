@@ -60,7 +60,8 @@ public static class DataSnooping
     /// <exception cref="AdjustmentFailedException">When the first adjustment fails.</exception>
     public static BlunderHunt Run(SurveyNetwork network, AdjustmentOptions? options = null, int maxRounds = 10)
     {
-        options ??= AdjustmentOptions.Default;
+        // one solver for every round: the sparse engine analyses the pattern once
+        options = SolverChoice.Reusable(options ?? AdjustmentOptions.Default);
         if (maxRounds < 1) throw new InvalidInputException("the blunder hunt needs a round limit of at least 1");
         var quick = options with { Analysis = options.Analysis with { ExternalReliability =
             ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };

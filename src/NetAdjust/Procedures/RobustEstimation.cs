@@ -74,7 +74,8 @@ public static class RobustEstimation
     public static RobustEstimate Run(SurveyNetwork network, RobustMethod method, AdjustmentOptions? options = null,
         double? tuning = null, int maxIterations = 30)
     {
-        options ??= AdjustmentOptions.Default;
+        // one solver for every round: the sparse engine analyses the pattern once
+        options = SolverChoice.Reusable(options ?? AdjustmentOptions.Default);
         double c = tuning ?? (method == RobustMethod.Huber ? 1.5 : 2.0);
         if (!(c > 0) || !double.IsFinite(c))
             throw new InvalidInputException("the robust tuning constant must be positive");

@@ -70,7 +70,8 @@ public static class VarianceComponents
     public static VarianceComponentEstimate Estimate(SurveyNetwork network, AdjustmentOptions? options = null,
         bool fitDistanceSpec = true, int maxIterations = 300)
     {
-        options ??= AdjustmentOptions.Default;
+        // one solver for every round: the sparse engine analyses the pattern once
+        options = SolverChoice.Reusable(options ?? AdjustmentOptions.Default);
         if (maxIterations < 1)
             throw new InvalidInputException("the variance component estimation needs at least one iteration");
         var quick = options with { Analysis = options.Analysis with { ExternalReliability =

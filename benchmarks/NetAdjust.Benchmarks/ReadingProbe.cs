@@ -1,0 +1,82 @@
+using System.Diagnostics;
+using System.Globalization;
+using NetAdjust.IO.Project;
+using NetAdjust.Simulation;
+
+namespace NetAdjust.Benchmarks;
+
+/// <summary>
+/// Reading speed, in process: <c>-- reading [POINTS] [RUNS]</c> writes a simulated plane network (as <c>netadjust
+/// simulate</c> does: project YAML + observation CSV) to a temporary folder, then reads it with the project reader
+/// RUNS times (default 5, after one warm-up read) and prints the best and median time and the observation rows per
+/// second. The rows are the CSV's observation lines; the YAML's points are read in the same call.
+/// </summary>
+internal static class ReadingProbe
+{
+    public static void Run(string[] args)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        int points = args.Length > 1 ? int.Parse(args[1], inv) : 100_000;
+        int runs = args.Length > 2 ? int.Parse(args[2], inv) : 5;
+        string dir = Directory.CreateTempSubdirectory("netadjust-reading-").FullName;
+        try
+        {
+            var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, points));
+            string path = Path.Combine(dir, "net.yaml");
+            ProjectFileWriter.Write(network, path, "reading probe");
+            long bytes = Directory.GetFiles(dir).Sum(f => new FileInfo(f).Length);
+            int rows = network.Observations.Count;
+            Console.WriteLine(string.Create(inv,
+                $"plane network: {points} points, {rows} observation rows, {bytes / 1e6:F1} MB on disk"));
+            ProjectReader.Read(path); // warm-up: JIT and file cache
+            var times = new List<double>();
+            for (int r = 0; r < runs; r++)
+            {
+                GC.Collect();
+                var clock = Stopwatch.StartNew();
+                var project = ProjectReader.Read(path);
+                times.Add(clock.Elapsed.TotalSeconds);
+                if (project.Network.Observations.Count != rows) throw new InvalidOperationException("rows lost");
+            }
+            Report("project reader (YAML + CSV)", times, rows);
+
+            // The CSV observation reader alone, on the text of the file (the part that grows with the rows).
+            string csvPath = Directory.GetFiles(dir, "*.csv").Single();
+            string csv = File.ReadAllText(csvPath);
+            var units = new ProjectUnits(NetAdjust.Units.LengthUnit.Metre, NetAdjust.Units.AngleFormat.Degrees,
+                AngleSdUnit.Arcsecond);
+            var defaults = new Dictionary<NetAdjust.Network.ObservationKind, double>();
+            List<NetAdjust.Network.Observation> ReadCsv() => CsvObservationReader.Read(csv, Path.GetFileName(csvPath),
+                new NetAdjust.Units.LengthPattern(units.Length, 4), new NetAdjust.Units.AnglePattern(units.Angle, 4),
+                units, defaults);
+            ReadCsv();
+            times.Clear();
+            for (int r = 0; r < runs; r++)
+            {
+                GC.Collect();
+                var clock = Stopwatch.StartNew();
+                if (ReadCsv().Count != rows) throw new InvalidOperationException("rows lost");
+                times.Add(clock.Elapsed.TotalSeconds);
+            }
+            Report("CSV observation reader alone", times, rows);
+        }
+        finally { Directory.Delete(dir, recursive: true); }
+    }
+
+    private static void Report(string what, List<double> times, int rows)
+    {
+        times.Sort();
+        double best = times[0], median = times[times.Count / 2];
+        Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"{what}: best {best:F3} s ({rows / best:N0} rows/s), median {median:F3} s " +
+            $"({rows / median:N0} rows/s) over {times.Count} runs; load average {LoadAverage()}"));
+    }
+
+    /// <summary>The 1-minute load average of the machine (Linux), or "n/a".</summary>
+    internal static string LoadAverage()
+    {
+        try { return File.ReadAllText("/proc/loadavg").Split(' ')[0]; }
+        catch (IOException) { return "n/a"; }
+        catch (UnauthorizedAccessException) { return "n/a"; }
+    }
+}

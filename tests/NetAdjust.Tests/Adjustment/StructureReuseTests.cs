@@ -1,0 +1,76 @@
+using NetAdjust.Adjustment;
+using NetAdjust.Network;
+using NetAdjust.Procedures;
+using NetAdjust.Simulation;
+
+namespace NetAdjust.Tests.Adjustment;
+
+/// <summary>
+/// What an adjustment computes once and reuses: the linearisation at each state (the step control's trial at the new
+/// state is the next iteration's linearisation, and the last one serves the residuals), and, by default, the sparse
+/// engine's symbolic analysis over every round of a procedure.
+/// </summary>
+public class StructureReuseTests
+{
+    // 120 points: 356 unknowns, above the dense limit, so the sparse engine runs.
+    private static SurveyNetwork Plane(int seed) =>
+        SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, 120, Seed: seed)
+        {
+            ControlEvery = 50,
+        });
+
+    /// <summary>The network with a gross error added to its first distance.</summary>
+    private static SurveyNetwork WithDistanceBlunder(SurveyNetwork network, double metres)
+    {
+        int i = network.Observations.ToList().FindIndex(o => o is DistanceObservation);
+        return BracedNetworks.WithBias(network, i, metres);
+    }
+
+    [Fact]
+    public void EachGaussNewtonIterationLinearisesOnce()
+    {
+        var network = Plane(5);
+        int before = Adjuster.LinearisationCount;
+        var result = Adjuster.Adjust(network);
+        int made = Adjuster.LinearisationCount - before;
+        Assert.True(result.Statistics.Iterations >= 2, "the test needs more than one iteration");
+        // one at the start, one per iteration at the state it reaches (the step control's trial, reused by the next
+        // iteration and by the residuals); the step control halved no step here
+        Assert.Equal(result.Statistics.Iterations + 1, made);
+    }
+
+    [Fact]
+    public void ABlunderHuntAnalysesThePatternOnceByDefault()
+    {
+        var hunt = DataSnooping.Run(WithDistanceBlunder(Plane(7), 0.5));
+        Assert.True(hunt.Rounds.Count >= 2, "the hunt should set the blunder aside and adjust again");
+        Assert.NotEmpty(hunt.SetAside);
+        var solver = Assert.IsType<ReusableSolver>(hunt.Final.Options.Solver);
+        Assert.Equal(1, solver.SparseAnalyses);
+        Assert.StartsWith("sparse supernodal Cholesky", hunt.Final.SolverName);
+    }
+
+    [Fact]
+    public void RobustAndVarianceComponentRoundsAnalyseThePatternOnceByDefault()
+    {
+        var network = WithDistanceBlunder(Plane(8), 0.5);
+        var robust = RobustEstimation.Run(network, RobustMethod.Huber);
+        Assert.True(robust.Iterations >= 2);
+        Assert.Equal(1, Assert.IsType<ReusableSolver>(robust.Final.Options.Solver).SparseAnalyses);
+        var components = VarianceComponents.Estimate(Plane(8));
+        Assert.True(components.Iterations >= 1);
+        Assert.Equal(1, Assert.IsType<ReusableSolver>(components.Final.Options.Solver).SparseAnalyses);
+    }
+
+    [Fact]
+    public void ACallerSolverIsKeptAndSmallNetworksStayDense()
+    {
+        var given = new NetAdjust.LinearAlgebra.DenseNormalEquationsSolver();
+        var (small, _) = BracedNetworks.Horizontal(41, 4);
+        var hunt = DataSnooping.Run(small, AdjustmentOptions.Default with { Solver = given });
+        Assert.Same(given, hunt.Final.Options.Solver);
+        var automatic = DataSnooping.Run(small);
+        Assert.StartsWith("dense", automatic.Final.SolverName);
+        Assert.Equal(0, Assert.IsType<ReusableSolver>(automatic.Final.Options.Solver).SparseAnalyses);
+    }
+}
