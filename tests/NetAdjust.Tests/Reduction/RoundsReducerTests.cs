@@ -161,7 +161,10 @@ public class RoundsReducerTests
     public void FacesThatDisagreeBeyondTheToleranceAreRefusedNamingSetAndReading()
     {
         var bad = Set(0.3, 0, 0);
-        bad[2] = bad[2] with { HorizontalRight = Angle.FromRadians(bad[2].HorizontalRight!.Value.Radians + (70 * Sec)) };
+        bad[2] = bad[2] with
+        {
+            HorizontalRight = Angle.FromRadians(bad[2].HorizontalRight!.Value.Radians + (70 * Sec)),
+        };
         var e = Assert.Throws<RoundsReadingException>(() => RoundsReducer.Reduce([Set(0, 0, 0), bad], Options()));
         Assert.Equal(1, e.Set);
         Assert.Equal(2, e.Reading);
