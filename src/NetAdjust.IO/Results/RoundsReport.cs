@@ -64,8 +64,8 @@ internal static class RoundsReport
             $"spread in {au})",
             "Rounds: reduced observations and spread",
             [
-                "  Mean over the sets; spread s of one set against its bound s <= sd*sqrt(chi2(1-alpha; nu)/nu) " +
-                "(ISO 17123-3)",
+                "  Mean over the sets; spread s of one set against its bound s <= sd*sqrt(chi2(1-alpha; nu)/nu)",
+                "  (ISO 17123-3); ! marks a target whose spread exceeds its bound (a warning)",
             ],
             [
                 Id("Station", 10), Id("Target", 10), Nr("Direction", null, 13), Nr("Zenith", null, 13),
