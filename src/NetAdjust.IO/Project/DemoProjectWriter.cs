@@ -160,8 +160,10 @@ public static class DemoProjectWriter
     private static string CorvanFell(DemoSurvey s, string how)
     {
         var y = new StringBuilder();
-        y.Append("# NetAdjust demo project: Corvan Fell wind farm access track, 3D control traverse (invented site).\n" +
-                 "# A closed traverse CF1-CF6 observed in two sets in both faces (rounds: horizontal readings, zenith\n" +
+        y.Append("# NetAdjust demo project: Corvan Fell wind farm access track, 3D control traverse " +
+                 "(invented site).\n" +
+                 "# A closed traverse CF1-CF6 observed in two sets in both faces (rounds: horizontal readings, " +
+                 "zenith\n" +
                  "# angles, slope distances), tied to two levelled benchmarks (CF1, CF4) and oriented on RM.\n" +
                  "# Values simulated from a chosen truth with curvature and refraction (k = 0.13) and realistic\n" +
                  $"# noise: {how}.\n" +
@@ -169,7 +171,8 @@ public static class DemoProjectWriter
                  "units: {length: m, angle: dms, angle_sd: arcsec}\n" +
                  "adjustment: {refraction: 0.13}\n" +
                  "instruments:\n" +
-                 "  - {id: TS2, direction_sd: 2, zenith_sd: 2, edm: 1 mm + 1.5 ppm, centering: 0.8 mm, height: 1 mm}\n" +
+                 "  - {id: TS2, direction_sd: 2, zenith_sd: 2, edm: 1 mm + 1.5 ppm, centering: 0.8 mm, " +
+                 "height: 1 mm}\n" +
                  "targets:\n" +
                  "  - {id: PRISM, centering: 0.8 mm, height: 1 mm}\n" +
                  "points:\n");
@@ -193,7 +196,8 @@ public static class DemoProjectWriter
                 y.Append("      - readings:\n");
                 foreach (var x in r.Sets[set])
                 {
-                    y.Append(Inv, $"          - {{to: {x.Target}, hz_left: {dms.FormatDirection(x.HorizontalLeft!.Value)}")
+                    y.Append(Inv, $"          - {{to: {x.Target}, ")
+                        .Append(Inv, $"hz_left: {dms.FormatDirection(x.HorizontalLeft!.Value)}")
                         .Append(Inv, $", hz_right: {dms.FormatDirection(x.HorizontalRight!.Value)}");
                     if (set == 0 && r.TargetHeights.TryGetValue(x.Target, out double th))
                         y.Append(Inv, $", target_height: {th:F3}");

@@ -11,7 +11,8 @@ namespace NetAdjust.Simulation;
 /// <param name="TargetHeights">The booked target heights by target (none for a target sighted for direction only),
 /// metres.</param>
 /// <param name="Sets">The sets in the order observed, each with one reading per target.</param>
-public sealed record DemoRoundsSetup(string At, double InstrumentHeight, IReadOnlyDictionary<string, double> TargetHeights,
+public sealed record DemoRoundsSetup(string At, double InstrumentHeight,
+    IReadOnlyDictionary<string, double> TargetHeights,
     IReadOnlyList<IReadOnlyList<FaceReadings>> Sets);
 
 /// <summary>
