@@ -112,15 +112,20 @@ public class RoundsReducerTests
     [Fact]
     public void TheSpreadTestBoundIsTheIsoChiSquareBound()
     {
-        // ISO 17123-3 accepts s ≤ σ·√(χ²(0.95; ν)/ν); for ν = 9 that is σ·√(16.919/9) = 1.371σ (χ²(0.95; 9) =
-        // 16.919, NIST/SEMATECH e-Handbook of Statistical Methods, table of upper critical values of χ², from memory;
-        // docs/references.md §2).
-        var sets = Enumerable.Range(0, 4).Select(s => (IReadOnlyList<FaceReadings>)Set(0.5 * s, 0, 0)).ToList();
-        var r = RoundsReducer.Reduce(sets, Options(5));
-        Assert.Equal(5.0 * Math.Sqrt(16.919 / 9), r.Directions!.Bound / Sec, 3);
-        // Each target: ν = n − 1 = 3; zenith angles: ν = t(n − 1) = 12 over the setup.
-        Assert.Equal(3, r.Targets[1].DirectionTest!.DegreesOfFreedom);
-        Assert.Equal(12, r.Zeniths!.DegreesOfFreedom);
+        // ISO 17123-3 accepts s ≤ σ·√(χ²(0.95; ν)/ν) (ISO 17123-3:2001, from memory). χ²(0.95; 30) = 43.7730 and
+        // χ²(0.95; 20) = 31.4104 (NIST/SEMATECH e-Handbook of Statistical Methods, table of critical values of χ²;
+        // docs/references.md §2, computed).
+        // Directions: 11 sets of 4 targets, ν = (n − 1)(t − 1) = 30; each target ν = n − 1 = 10.
+        var eleven = Enumerable.Range(0, 11).Select(s => (IReadOnlyList<FaceReadings>)Set(0.5 * s, 0, 0)).ToList();
+        var r = RoundsReducer.Reduce(eleven, Options(5, 3));
+        Assert.Equal(30, r.Directions!.DegreesOfFreedom);
+        Assert.Equal(5.0 * Math.Sqrt(43.7730 / 30), r.Directions.Bound / Sec, 4);
+        Assert.Equal(10, r.Targets[1].DirectionTest!.DegreesOfFreedom);
+        // Zenith angles have no orientation to remove: 6 sets of 4 targets give ν = t(n − 1) = 20.
+        var six = Enumerable.Range(0, 6).Select(s => (IReadOnlyList<FaceReadings>)Set(0.5 * s, 0, 0)).ToList();
+        r = RoundsReducer.Reduce(six, Options(5, 3));
+        Assert.Equal(20, r.Zeniths!.DegreesOfFreedom);
+        Assert.Equal(3.0 * Math.Sqrt(31.4104 / 20), r.Zeniths.Bound / Sec, 4);
     }
 
     [Fact]
