@@ -27,4 +27,27 @@ public sealed class RoundsBadInputTests : IDisposable
         Assert.Contains(problem, err);
         Assert.False(File.Exists(json));
     }
+
+    [Fact]
+    public void ASpreadBeyondItsBoundIsAWarningAndTheProjectIsAdjusted()
+    {
+        // The zenith case corrected, and C read 20″ off in both faces of set 2: the faces agree, the sets do not
+        // (a 2″ instrument allows a spread of 3.9″ at ν = 1; docs/input-format.md, "Rounds in both faces"). C is held
+        // so that the network has no datum defect.
+        string text = File.ReadAllText(Corpus("rounds-zenith-outside.yaml"))
+            .Replace("{id: C, e: 1420, n: 1900, h: 55}", "{id: C, e: 1420, n: 1900, h: 55, fix: enh}",
+                StringComparison.Ordinal)
+            .Replace("zenith_left: 190-40-12", "zenith_left: 90-40-12", StringComparison.Ordinal)
+            .Replace("hz_left: 156-12-31, hz_right: 336-12-34", "hz_left: 156-12-51, hz_right: 336-12-54",
+                StringComparison.Ordinal);
+        string path = Path.Combine(_tmp, "spread.yaml");
+        File.WriteAllText(path, text);
+        string json = Path.Combine(_tmp, "out.json");
+        var (code, _, err) = CliHarness.Run("adjust", path, "--json", json, "--date", "2026-12-01");
+        Assert.Equal(0, code);
+        Assert.Contains("warning: the rounds of the setup at A", err);
+        Assert.Contains("spread.yaml:9", err);
+        Assert.Contains("targets B, C", err);
+        Assert.Contains("\"passes\": false", File.ReadAllText(json));
+    }
 }
