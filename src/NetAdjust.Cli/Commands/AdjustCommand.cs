@@ -69,7 +69,7 @@ internal static class AdjustCommand
             var context0 = new ReportContext(path, runDate, project.Units)
             {
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
-                Particulars = project.Particulars,
+                Particulars = project.Particulars, Rounds = project.Rounds,
             };
             Action<TextWriter> text;
             AdjustmentResult result;

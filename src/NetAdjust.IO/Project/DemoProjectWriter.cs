@@ -34,6 +34,7 @@ public static class DemoProjectWriter
         {
             DemoScenario.Brackenmoor => Brackenmoor(survey, baseName, how),
             DemoScenario.Harrowfield => [(baseName + ".yaml", Harrowfield(survey, how))],
+            DemoScenario.CorvanFell => [(baseName + ".yaml", CorvanFell(survey, how))],
             _ => [(baseName + ".yaml", Harrowgate(survey, how))],
         };
     }
@@ -152,6 +153,62 @@ public static class DemoProjectWriter
         {
             y.Append("  - at: ").Append(at).Append('\n');
             Setup(y, obs, withSd: true);
+        }
+        return y.Append(SchemaComment).ToString();
+    }
+
+    private static string CorvanFell(DemoSurvey s, string how)
+    {
+        var y = new StringBuilder();
+        y.Append("# NetAdjust demo project: Corvan Fell wind farm access track, 3D control traverse " +
+                 "(invented site).\n" +
+                 "# A closed traverse CF1-CF6 observed in two sets in both faces (rounds: horizontal readings, " +
+                 "zenith\n" +
+                 "# angles, slope distances), tied to two levelled benchmarks (CF1, CF4) and oriented on RM.\n" +
+                 "# Values simulated from a chosen truth with curvature and refraction (k = 0.13) and realistic\n" +
+                 $"# noise: {how}.\n" +
+                 "project: Corvan Fell access track 3D traverse (demo)\n" +
+                 "units: {length: m, angle: dms, angle_sd: arcsec}\n" +
+                 "adjustment: {refraction: 0.13}\n" +
+                 "instruments:\n" +
+                 "  - {id: TS2, direction_sd: 2, zenith_sd: 2, edm: 1 mm + 1.5 ppm, centering: 0.8 mm, " +
+                 "height: 1 mm}\n" +
+                 "targets:\n" +
+                 "  - {id: PRISM, centering: 0.8 mm, height: 1 mm}\n" +
+                 "points:\n");
+        foreach (var p in s.Points)
+            Point(y, p, p.IsFixed(Fixity.E) ? 3 : 1, p.IsFixed(Fixity.H) ? 3 : 1, p.Id switch
+            {
+                "CF1" => "benchmark and control, held",
+                "RM" => "reference mark, held in plan",
+                "CF4" => "benchmark, height held",
+                _ => "approximate",
+            });
+        y.Append("setups:\n");
+        var dms = AnglePattern.Dms;
+        foreach (var r in s.Rounds)
+        {
+            y.Append("  - at: ").Append(r.At).Append('\n');
+            y.Append(Inv, $"    instrument: TS2\n    target: PRISM\n    instrument_height: {r.InstrumentHeight:F3}\n");
+            y.Append("    rounds:\n");
+            for (int set = 0; set < r.Sets.Count; set++)
+            {
+                y.Append("      - readings:\n");
+                foreach (var x in r.Sets[set])
+                {
+                    y.Append(Inv, $"          - {{to: {x.Target}, ")
+                        .Append(Inv, $"hz_left: {dms.FormatDirection(x.HorizontalLeft!.Value)}")
+                        .Append(Inv, $", hz_right: {dms.FormatDirection(x.HorizontalRight!.Value)}");
+                    if (set == 0 && r.TargetHeights.TryGetValue(x.Target, out double th))
+                        y.Append(Inv, $", target_height: {th:F3}");
+                    if (x.ZenithLeft is Angle zl && x.ZenithRight is Angle zr)
+                        y.Append(Inv, $",\n             zenith_left: {dms.FormatDirection(zl)}")
+                            .Append(Inv, $", zenith_right: {dms.FormatDirection(zr)}")
+                            .Append(Inv, $", slope_left: {x.SlopeLeft!.Value.Metres:F4}")
+                            .Append(Inv, $", slope_right: {x.SlopeRight!.Value.Metres:F4}");
+                    y.Append("}\n");
+                }
+            }
         }
         return y.Append(SchemaComment).ToString();
     }

@@ -34,6 +34,12 @@ public static partial class ProjectReader
         /// <summary>The refraction groups by id.</summary>
         public Dictionary<string, RefractionGroup> RefractionGroups { get; } = new(StringComparer.Ordinal);
 
+        /// <summary>The face tolerance (radians) and the level of the spread tests of rounds.</summary>
+        public (double Tolerance, double Alpha) Reduction { get; set; }
+
+        /// <summary>The rounds read so far, setup by setup.</summary>
+        public List<SetupRounds> Rounds { get; } = [];
+
         /// <summary>
         /// The weighting of a height difference from a named level (for CSV rows); throws InvalidInputException.
         /// </summary>

@@ -18,7 +18,7 @@ public static partial class ProjectReader
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
         "targets", "levels", "statistics", "crs", "datum",
-        "survey", "refraction_groups"];
+        "survey", "refraction_groups", "reduction"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -135,6 +135,7 @@ public static partial class ProjectReader
         var specs = ReadSpecifications(ctx, root, units, points);
         specs.Refraction = ReadRefraction(ctx, root);
         ReadRefractionGroups(ctx, root, specs);
+        specs.Reduction = ReadReductionSection(ctx, root, units);
         var observations = new List<Observation>();
         var setsPerStation = new Dictionary<string, int>(StringComparer.Ordinal);
         if (ctx.Child(root, "setups") is YamlNode setups)
@@ -176,7 +177,9 @@ public static partial class ProjectReader
         StatisticsSection.CheckPairs(root, displayName, network);
         return new SurveyProject(network, units, options, inputs)
         {
-            Crs = ReadCrs(ctx, root), Warnings = ProjectWarnings.Find(network, listedTwice),
+            Crs = ReadCrs(ctx, root),
+            Warnings = [.. ProjectWarnings.Find(network, listedTwice), .. RoundsWarnings(specs.Rounds, units)],
+            Rounds = specs.Rounds,
             Particulars = ReadParticulars(ctx, root),
         };
     }
@@ -341,9 +344,10 @@ public static partial class ProjectReader
         string at = RequiredId(ctx, m, "at", "a setup");
         string item = "setup at " + at;
         ctx.CheckKeys(m, ["at", "directions", "distances", "angles", "azimuths", "instrument", "target", "sets",
-            "faces", "instrument_height", "slope_distances", "zeniths", "refraction_group"], item);
+            "faces", "instrument_height", "slope_distances", "zeniths", "refraction_group", "rounds"], item);
         var spec = ReadSetupSpec(ctx, m, item, specs);
         var output = new List<Pending>();
+        spec = ReadRounds(ctx, m, at, item, lengths, angles, units, spec, specs, setsPerStation, output);
 
         if (ctx.Child(m, "directions") is YamlNode dirs)
         {

@@ -23,4 +23,8 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>Warnings about legal but suspicious data (docs/input-format.md, "Warnings"); empty when there
     /// are none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
+
+    /// <summary>The rounds of the setups that book them (key <c>setups[].rounds</c>), reduced before the
+    /// adjustment; empty when there are none.</summary>
+    public IReadOnlyList<SetupRounds> Rounds { get; init; } = [];
 }

@@ -24,6 +24,10 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// </summary>
     public SurveyParticulars? Particulars { get; init; }
 
+    /// <summary>The rounds of the project, reduced before the adjustment (<see cref="SurveyProject.Rounds"/>);
+    /// empty for none.</summary>
+    public IReadOnlyList<SetupRounds> Rounds { get; init; } = [];
+
     /// <summary>The words for the constrained solution of a datum sequence.</summary>
     public const string ConstrainedSolution = "constrained";
 

@@ -54,7 +54,26 @@ internal static class ResultJson
 
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
         public VarianceComponents? VarianceComponents { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public IReadOnlyList<Rounds>? Rounds { get; init; }
     }
+
+    /// <summary>The reduction of the rounds of one setup (angles in deg, small angles in arcsec, lengths in m).
+    /// </summary>
+    internal sealed record Rounds(string Station, string? SetId, string Source, string Faces, string? ReferenceTarget,
+        IReadOnlyList<RoundsSet> Sets, IReadOnlyList<RoundsTarget> Targets, SpreadTest? DirectionTest,
+        SpreadTest? ZenithTest);
+
+    /// <summary>One set: its line, collimation and index error (null when not determined).</summary>
+    internal sealed record RoundsSet(string Source, double? Collimation, double? IndexError);
+
+    /// <summary>One target: its reduced observations and the tests of their spread.</summary>
+    internal sealed record RoundsTarget(string Target, double? Direction, double? Zenith, double? SlopeDistance,
+        SpreadTest? DirectionTest, SpreadTest? ZenithTest);
+
+    /// <summary>A spread test: s against its bound σ·√(χ²(1 − α; ν)/ν).</summary>
+    internal sealed record SpreadTest(int DegreesOfFreedom, double Spread, double Sd, double Bound, bool Passes);
 
     internal sealed record Units(string Length, string Angle, string AngularResidualAndSd);
 

@@ -90,10 +90,10 @@ public static class OptionGrammars
 
     /// <summary>The demo scenarios of data/ (<c>simulate --scenario</c>).</summary>
     public static TextChoice<DemoScenario> DemoScenarios { get; } = new("a demo scenario",
-        "brackenmoor (traverse and level loop), harrowfield (braced network with a blunder) or harrowgate "
-        + "(control check with a disturbed mark)", false,
+        "brackenmoor (traverse and level loop), harrowfield (braced network with a blunder), harrowgate "
+        + "(control check with a disturbed mark) or corvan (3D traverse in rounds of both faces)", false,
         ("brackenmoor", DemoScenario.Brackenmoor), ("harrowfield", DemoScenario.Harrowfield),
-        ("harrowgate", DemoScenario.Harrowgate));
+        ("harrowgate", DemoScenario.Harrowgate), ("corvan", DemoScenario.CorvanFell));
 
     /// <summary>
     /// Reads the held components of a point (<c>fix</c>): the letters e, n and h in any order (e.g. <c>en</c>,

@@ -11,4 +11,7 @@ public enum DemoScenario
 
     /// <summary>Harrowgate viaduct: six new stations tied to four control marks, one of them moved by 5 cm.</summary>
     Harrowgate,
+
+    /// <summary>Corvan Fell: a closed 3D traverse in two sets in both faces (rounds), tied to two benchmarks.</summary>
+    CorvanFell,
 }

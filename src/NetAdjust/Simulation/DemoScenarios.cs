@@ -15,7 +15,12 @@ public static class DemoScenarios
 
     /// <summary>The seed each scenario was first drawn with.</summary>
     /// <param name="scenario">The scenario.</param>
-    public static int DefaultSeed(DemoScenario scenario) => scenario == DemoScenario.Harrowgate ? 20261202 : 20261201;
+    public static int DefaultSeed(DemoScenario scenario) => scenario switch
+    {
+        DemoScenario.Harrowgate => 20261202,
+        DemoScenario.CorvanFell => 20261203,
+        _ => 20261201,
+    };
 
     /// <summary>Draws a scenario.</summary>
     /// <param name="scenario">The scenario.</param>
@@ -25,6 +30,7 @@ public static class DemoScenarios
         DemoScenario.Brackenmoor => Brackenmoor(seed),
         DemoScenario.Harrowfield => Harrowfield(seed),
         DemoScenario.Harrowgate => Harrowgate(seed),
+        DemoScenario.CorvanFell => CorvanFellDraw(seed),
         _ => throw new ArgumentOutOfRangeException(nameof(scenario), scenario, "unknown scenario"),
     };
 
@@ -36,6 +42,12 @@ public static class DemoScenarios
 
         public double Gauss(double sd) =>
             sd * Math.Sqrt(-2 * Math.Log(1 - _rng.NextDouble())) * Math.Cos(2 * Math.PI * _rng.NextDouble());
+    }
+
+    private static DemoSurvey CorvanFellDraw(int seed)
+    {
+        var noise = new Noise(seed);
+        return CorvanFell.Draw(seed, noise.Gauss, noise.Uniform);
     }
 
     private static double Azimuth((double E, double N) a, (double E, double N) b) => Math.Atan2(b.E - a.E, b.N - a.N);

@@ -17,4 +17,9 @@ public sealed record DemoSurvey(
     IReadOnlyList<(string At, IReadOnlyList<Observation> Observations)> Setups,
     IReadOnlyList<HeightDifferenceObservation> Levelling,
     IReadOnlyDictionary<string, (double E, double N, double H)> Truth,
-    IReadOnlyList<(string At, string To, double Size)> Blunders);
+    IReadOnlyList<(string At, string To, double Size)> Blunders)
+{
+    /// <summary>Setups booked as raw rounds in both faces (their observations are not in <see cref="Setups"/>);
+    /// empty for the scenarios without them.</summary>
+    public IReadOnlyList<DemoRoundsSetup> Rounds { get; init; } = [];
+}

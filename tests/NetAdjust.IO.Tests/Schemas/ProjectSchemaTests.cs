@@ -106,6 +106,10 @@ public sealed class ProjectSchemaTests
             "crs" },
         { "datum keys of another mode", "statistics:", "datum: {mode: free, hold: A}\nstatistics:", "belongs to mode" },
         { "levels not a list", "levels:\n  - {id: DL,", "levels: {id: DL,", "list" },
+        { "unknown key in a reading of rounds",
+            "    directions:\n      - {to: B, value: 0-00-00}\n      - {to: C, value: 315-00-00}\n",
+            "    rounds:\n      - readings:\n          - {to: B, hz_left: 0-00-00, hz_rigth: 180-00-00}\n",
+            "unknown key 'hz_rigth'" },
     };
 
     [Fact]
