@@ -37,7 +37,8 @@ public sealed class GoldenOutputTests : IDisposable
     public static TheoryData<string, string> Cases()
     {
         var data = new TheoryData<string, string>();
-        foreach (var demo in new[] { "brackenmoor", "brackenmoor-auto", "harrowfield-blunder", "harrowgate-control" })
+        foreach (var demo in new[] { "brackenmoor", "brackenmoor-auto", "harrowfield-blunder", "harrowgate-control",
+            "tarnholm-grid" })
             foreach (var variant in Variants.Keys)
                 data.Add(demo, variant);
         return data;

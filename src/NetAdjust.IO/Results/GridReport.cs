@@ -50,6 +50,28 @@ internal static class GridReport
                 o.CombinedFactor, o.Reduced.Value, adjusted, ground, o.EllipsoidalHeight);
         });
 
+    /// <summary>The <c>grid</c> member of the JSON result (lengths in m, convergence in degrees, corrections in
+    /// arcsec), or null without a grid system.</summary>
+    public static ResultJson.Grid? Json(AdjustmentResult r, ReportContext c)
+    {
+        if (c.Grid is not GridReductionResult g) return null;
+        var s = g.System;
+        var combined = g.Observations.Where(o => o.Observed.Kind == ObservationKind.Distance)
+            .Select(o => o.CombinedFactor).OfType<double>().ToList();
+        static double? Finite(double v) => double.IsFinite(v) ? v : null;
+        var lines = g.Observations.Where(o => o.Observed.Kind == ObservationKind.Distance).Zip(Lines(r, g),
+            (o, l) => new ResultJson.GridLine(o.Index, l.From, l.To, Finite(l.Ground), l.ElevationFactor,
+                l.ScaleFactor, l.CombinedFactor, l.Grid, l.AdjustedGrid, l.AdjustedGround, l.EllipsoidalHeight));
+        return new ResultJson.Grid(s.Describe(), c.Crs, s.Distances == DistanceBasis.Ground ? "ground" : "grid",
+            s.Azimuths == AzimuthBasis.Geodetic ? "geodetic" : "grid", s.ProjectScale, s.GeoidSeparation,
+            s.MeanHeight, s.MeanHeightSd, combined.Count > 0 ? combined.Min() : null,
+            combined.Count > 0 ? combined.Max() : null, lines,
+            g.Points.Select(p => new ResultJson.GridPoint(p.Point, p.Convergence * 180 / Math.PI, p.ScaleFactor)),
+            g.Observations.Where(o => o.AngleCorrection is not null).Select(o => new ResultJson.GridCorrection(
+                o.Index, o.Observed.Kind.Name(), o.Observed.At ?? o.Observed.From, o.Observed.To,
+                o.AngleCorrection!.Value * Angle.ArcsecondsPerRadian)));
+    }
+
     /// <summary>The report sections (none without a grid system).</summary>
     public static IReadOnlyList<ReportSection> Build(AdjustmentResult r, ReportContext c)
     {

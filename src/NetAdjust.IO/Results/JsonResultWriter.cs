@@ -118,6 +118,7 @@ public static class JsonResultWriter
             BlunderHunt = c.Hunt is BlunderHunt h ? Hunt(h) : null,
             Robust = c.Robust is RobustEstimate rb ? Robust(rb) : null,
             VarianceComponents = c.Components is VarianceComponentEstimate vc ? Components(vc) : null,
+            Grid = GridReport.Json(r, c),
         };
     }
 
