@@ -72,7 +72,8 @@ internal static class AdjustCommand
             if (reduction is not null) project = project with { Network = reduction.Network };
             var context0 = new ReportContext(path, runDate, project.Units)
             {
-                ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction, Warnings = project.Warnings,
+                ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction,
+                Warnings = project.Warnings,
                 Particulars = project.Particulars,
             };
             string text;

@@ -56,7 +56,8 @@ public static class GridReduction
     /// </exception>
     /// <exception cref="AdjustmentFailedException">When the preliminary adjustment fails (as the adjustment would).
     /// </exception>
-    public static GridReductionResult Reduce(SurveyNetwork network, GridSystem system, AdjustmentOptions? options = null)
+    public static GridReductionResult Reduce(SurveyNetwork network, GridSystem system,
+        AdjustmentOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(system);

@@ -149,7 +149,8 @@ public class GridInputTests
     public void GroundDistancesOnAProjectionNeedEveryHeight()
     {
         const string head = "crs: EPSG:32633\ngrid: {distances: ground}\n";
-        const string points = "  - {id: A, e: 618000, n: 5209000, h: 450, fix: en}\n  - {id: B, e: 618500, n: 5209300}\n";
+        const string points =
+            "  - {id: A, e: 618000, n: 5209000, h: 450, fix: en}\n  - {id: B, e: 618500, n: 5209300}\n";
         var e = Refused(head, points);
         Assert.Equal(6, e.Line); // the line of point B
         Assert.Contains("point B", e.Message);
