@@ -76,14 +76,24 @@ public sealed class ProjNetProjection : IMapProjection
     /// <inheritdoc/>
     public (double Easting, double Northing) Forward(double latitude, double longitude)
     {
-        var (x, y) = _forward.Transform(longitude * (180 / Math.PI), latitude * (180 / Math.PI));
-        return (x * _metresPerUnit, y * _metresPerUnit);
+        try
+        {
+            var (x, y) = _forward.Transform(longitude * (180 / Math.PI), latitude * (180 / Math.PI));
+            return (x * _metresPerUnit, y * _metresPerUnit);
+        }
+        catch (Exception e) when (e is ArgumentException or ArithmeticException or InvalidOperationException)
+        { return (double.NaN, double.NaN); } // outside the projection's domain: the caller names the point
     }
 
     /// <inheritdoc/>
     public (double Latitude, double Longitude) Inverse(double easting, double northing)
     {
-        var (lon, lat) = _inverse.Transform(easting / _metresPerUnit, northing / _metresPerUnit);
-        return (lat * (Math.PI / 180), lon * (Math.PI / 180));
+        try
+        {
+            var (lon, lat) = _inverse.Transform(easting / _metresPerUnit, northing / _metresPerUnit);
+            return (lat * (Math.PI / 180), lon * (Math.PI / 180));
+        }
+        catch (Exception e) when (e is ArgumentException or ArithmeticException or InvalidOperationException)
+        { return (double.NaN, double.NaN); }
     }
 }

@@ -107,6 +107,9 @@ public static class GridReduction
                         ProjectionFactors.Convergence(p, At(a.From).E, At(a.From).N)),
                 _ => (obs, (ObservationReduction?)null),
             };
+            if (!double.IsFinite(r.Value) || entry is { CombinedFactor: double f } && !(f > 0.9 && f < 1.1))
+                throw new InvalidInputException($"{obs.Describe()}: cannot be reduced to the grid (a point lies " +
+                    "outside the projection's area, or a height is far out of range)");
             reduced.Add(r);
             if (entry is not null) entries.Add(entry);
         }
@@ -116,8 +119,11 @@ public static class GridReduction
             {
                 if (!positions.ContainsKey(pt.Id) && (pt.E is null || pt.N is null)) continue;
                 var (e, n, _) = At(pt.Id);
-                points.Add(new PointGridFactors(pt.Id, ProjectionFactors.PointScaleFactor(p, e, n),
-                    ProjectionFactors.Convergence(p, e, n)));
+                double k = ProjectionFactors.PointScaleFactor(p, e, n), gamma = ProjectionFactors.Convergence(p, e, n);
+                if (!double.IsFinite(k) || !double.IsFinite(gamma))
+                    throw new InvalidInputException($"point {pt.Id} lies outside the area of the projection " +
+                        $"{p.Name}");
+                points.Add(new PointGridFactors(pt.Id, k, gamma));
             }
         return new GridReductionResult(new SurveyNetwork(network.Name, network.Points, reduced), system, entries,
             points);

@@ -130,4 +130,14 @@ public class GridReductionTests(ITestOutputHelper output)
         // a mean height fills it in
         Assert.NotNull(GridReduction.Reduce(noHeight, Ground with { MeanHeight = 630 }));
     }
+
+    [Fact]
+    public void APointFarOutsideTheZoneIsNamedNotReducedToNonsense()
+    {
+        var network = Measured(3);
+        // 40 000 km east: no transverse Mercator reaches it; the series gives no finite factor there.
+        var at = Truth.ToDictionary(t => t.Id, t => (E: t.Id == "A" ? 4e7 : t.E, t.N, (double?)t.H));
+        var e = Assert.ThrowsAny<InvalidInputException>(() => GridReduction.ReduceAt(network, Ground, at));
+        Assert.Contains("A", e.Message);
+    }
 }
