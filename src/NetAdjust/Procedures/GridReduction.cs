@@ -180,12 +180,21 @@ public static class GridReduction
         return (r, new ObservationReduction(i, s, r, null, k, reduced / d, null, null));
     }
 
-    /// <summary>The zenith angle whose horizontal part is scaled by k: z' = atan2(k sin z, cos z).</summary>
+    /// <summary>The zenith angle of the spatial model (docs/methods.md) with its plane distance scaled by k: the
+    /// geometric zenith z_g = z + κ s/(2R) (κ the refraction coefficient) has across part u = sin z_g and along part
+    /// v = cos z_g per unit of slope distance; on the grid u′ = k u and v′ = v − (k² − 1) s²/(2R D), and
+    /// z′ = atan2(u′, v′) − κ k s/(2R), with s ≈ D sin z_g and D a unit-free ratio here (only the direction counts;
+    /// D is taken as s / sin z_g from the positions).</summary>
     private static (Observation, ObservationReduction?) Zenith(ZenithObservation z, int i, GridSystem system,
         Locate at)
     {
         double k = LineScale(system, at, z.From, z.To), v = z.Zenith.Radians;
-        double reduced = Math.Atan2(k * Math.Sin(v), Math.Cos(v));
+        const double R = Geometry.SpatialGeometry.EarthRadius;
+        var (a, b) = (at(z.From), at(z.To));
+        double s = Math.Sqrt(Math.Pow(b.E - a.E, 2) + Math.Pow(b.N - a.N, 2)) / k; // plane distance on the ellipsoid
+        double zg = v + z.Refraction * s / (2 * R), d = s / Math.Max(Math.Sin(zg), 1e-9);
+        double reduced = Math.Atan2(k * Math.Sin(zg), Math.Cos(zg) - (k * k - 1) * s * s / (2 * R * d)) -
+            z.Refraction * k * s / (2 * R);
         var r = z with { Zenith = Angle.FromRadians(reduced) };
         return (r, new ObservationReduction(i, z, r, null, k, null, reduced - v, null));
     }

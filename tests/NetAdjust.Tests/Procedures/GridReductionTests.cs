@@ -1,5 +1,6 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Geodesy;
+using NetAdjust.Geometry;
 using NetAdjust.Network;
 using NetAdjust.Procedures;
 using NetAdjust.Tests.Geodesy;
@@ -139,5 +140,37 @@ public class GridReductionTests(ITestOutputHelper output)
         var at = Truth.ToDictionary(t => t.Id, t => (E: t.Id == "A" ? 4e7 : t.E, t.N, (double?)t.H));
         var e = Assert.ThrowsAny<InvalidInputException>(() => GridReduction.ReduceAt(network, Ground, at));
         Assert.Contains("A", e.Message);
+    }
+
+    [Theory]
+    [InlineData(800.0, 35.0)]
+    [InlineData(1500.0, -120.0)]
+    public void ReducedSlopeDistanceAndZenithFitTheSpatialModelOnTheGrid(double length, double rise)
+    {
+        // The spatial model (docs/methods.md) takes the plane distance as the arc at height 0, so a sighting measured
+        // on the earth is the model evaluated with the plane distance on the ellipsoid, s = grid distance / k. Reduced
+        // by k, the observations must equal the model evaluated on the grid coordinates.
+        double e1 = 505000, n1 = 5101400, h1 = 612; // near the central meridian: k ≈ 0.9996, −400 ppm
+        double e2 = e1 + length * 0.6, n2 = n1 + length * 0.8, h2 = h1 + rise;
+        double k = ProjectionFactors.LineScaleFactor(Utm33, e1, n1, e2, n2);
+        var a = new PlanePoint(e1, n1);
+        var onEarth = new Sighting("A", a, h1, 1.6, "B",
+            new PlanePoint(e1 + (e2 - e1) / k, n1 + (n2 - n1) / k), h2, 1.3);
+        var onGrid = onEarth with { Target = new PlanePoint(e2, n2) };
+        double s = SpatialGeometry.SlopeDistance(onEarth).Value;
+        double z = SpatialGeometry.Zenith(onEarth, 0.13).Value;
+        var network = new SurveyNetwork("trig", [new Point("A") { E = e1, N = n1, H = h1 },
+            new Point("B") { E = e2, N = n2, H = h2 }],
+        [
+            new SlopeDistanceObservation("A", "B", Length.FromMetres(s), Length.FromMetres(1.6), Length.FromMetres(1.3))
+                { StandardDeviation = 0.002 },
+            new ZenithObservation("A", "B", Angle.FromRadians(z), Length.FromMetres(1.6), Length.FromMetres(1.3))
+                { StandardDeviation = 2 * Arcsec },
+        ]);
+        var reduced = GridReduction.ReduceAt(network, Ground, new Dictionary<string, (double E, double N, double? H)>
+            { ["A"] = (e1, n1, h1), ["B"] = (e2, n2, h2) }).Network.Observations;
+        Assert.Equal(SpatialGeometry.SlopeDistance(onGrid).Value, reduced[0].Value, 5); // 0.01 mm
+        Assert.Equal(SpatialGeometry.Zenith(onGrid, 0.13).Value, reduced[1].Value, 8); // 0.002″
+        Assert.True(Math.Abs(reduced[0].Value - s) > 1e-4 * length); // the reduction is not nothing (> 100 ppm)
     }
 }
