@@ -38,7 +38,10 @@ public sealed class GoldenOutputTests : IDisposable
     {
         var data = new TheoryData<string, string>();
         foreach (var demo in new[]
-                 { "brackenmoor", "brackenmoor-auto", "harrowfield-blunder", "harrowgate-control", "corvan-fell-3d" })
+                 {
+                     "brackenmoor", "brackenmoor-auto", "harrowfield-blunder", "harrowgate-control", "corvan-fell-3d",
+                     "tarnholm-grid",
+                 })
             foreach (var variant in Variants.Keys)
                 data.Add(demo, variant);
         return data;

@@ -66,9 +66,14 @@ internal static class AdjustCommand
                 project = project with { Options = project.Options with { Progress =
                     new ProgressPrinter(console.Error) } };
             foreach (var w in project.Warnings) console.Error.WriteLine($"warning: {w}");
+            // Grid and ground (docs/methods.md): the observations are reduced to the grid before the adjustment.
+            var reduction = project.Grid is { } grid ? GridReduction.Reduce(project.Network, grid, project.Options)
+                : null;
+            if (reduction is not null) project = project with { Network = reduction.Network };
             var context0 = new ReportContext(path, runDate, project.Units)
             {
-                ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
+                ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction,
+                Warnings = project.Warnings,
                 Particulars = project.Particulars, Rounds = project.Rounds,
             };
             Action<TextWriter> text;

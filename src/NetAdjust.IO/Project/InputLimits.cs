@@ -16,6 +16,9 @@ public static class InputLimits
     /// <summary>Longest single value (an id, a number, a title) in characters.</summary>
     public const int MaxValueLength = 256;
 
+    /// <summary>Longest WKT of a coordinate reference system (<c>crs: PROJCS[...]</c>), in characters.</summary>
+    public const int MaxWktLength = 4096;
+
     /// <summary>Longest line of a CSV observation file, in characters.</summary>
     public const int MaxCsvLineLength = 4096;
 

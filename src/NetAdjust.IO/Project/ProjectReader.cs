@@ -17,7 +17,7 @@ public static partial class ProjectReader
 {
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
-        "targets", "levels", "statistics", "crs", "datum",
+        "targets", "levels", "statistics", "crs", "datum", "grid",
         "survey", "refraction_groups", "reduction"];
 
     /// <summary>Reads a project file from disk.</summary>
@@ -175,9 +175,10 @@ public static partial class ProjectReader
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var network = new SurveyNetwork(name, points, observations);
         StatisticsSection.CheckPairs(root, displayName, network);
+        var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
         return new SurveyProject(network, units, options, inputs)
         {
-            Crs = ReadCrs(ctx, root),
+            Crs = crs, Grid = grid,
             Warnings = [.. ProjectWarnings.Find(network, listedTwice), .. RoundsWarnings(specs.Rounds, units)],
             Rounds = specs.Rounds,
             Particulars = ReadParticulars(ctx, root),
@@ -188,20 +189,6 @@ public static partial class ProjectReader
 
     /// <summary>The keys of one observation of a kind in the project file (the kind's column metadata).</summary>
     private static string[] Keys(ObservationKind kind) => [.. ObservationKindRegistry.Of(kind).Columns.YamlKeys];
-
-    /// <summary>Reads the optional <c>crs</c> key: <c>EPSG:</c> followed by the code (e.g.
-    /// <c>EPSG:27700</c>).</summary>
-    private static string? ReadCrs(Context ctx, YamlMappingNode root)
-    {
-        if (ctx.Child(root, "crs") is not YamlNode node) return null;
-        string s = ctx.Scalar(node, "crs").Trim();
-        const string prefix = "EPSG:";
-        string code = s.StartsWith(prefix, StringComparison.OrdinalIgnoreCase) ? s[prefix.Length..] : "";
-        if (code.Length is < 4 or > 6 || !code.All(char.IsAsciiDigit))
-            throw ctx.Error(node, "crs",
-                $"'{s}' is not a coordinate reference system: write EPSG: and its code, e.g. EPSG:27700");
-        return prefix + code;
-    }
 
     private static string FirstLine(string s) => s.Split('\n')[0].Trim();
 

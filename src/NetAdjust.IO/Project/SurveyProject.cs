@@ -14,8 +14,13 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     IReadOnlyList<string> InputFiles)
 {
     /// <summary>The coordinate reference system the coordinates are in, as <c>EPSG:code</c> (key <c>crs</c>); null when
-    /// the project declares none (local coordinates).</summary>
+    /// the project declares none (local coordinates) or gives it as WKT.</summary>
     public string? Crs { get; init; }
+
+    /// <summary>The grid system (keys <c>crs</c> and <c>grid</c>: projection or project scale, ground or grid
+    /// distances, heights): null when the project has no <c>grid</c> section, which leaves the observations as they
+    /// are (docs/input-format.md, "Grid and ground").</summary>
+    public Geodesy.GridSystem? Grid { get; init; }
 
     /// <summary>The survey's particulars (key <c>survey</c>), or null when the project gives none.</summary>
     public SurveyParticulars? Particulars { get; init; }

@@ -42,7 +42,8 @@ internal static class YamlGuard
                         depth--;
                         break;
                     case Scalar s:
-                        if (s.Value.Length > InputLimits.MaxValueLength)
+                        if (s.Value.Length > InputLimits.MaxValueLength && !(s.Value.Length <= InputLimits.MaxWktLength
+                            && s.Value.StartsWith("PROJCS[", StringComparison.OrdinalIgnoreCase)))
                             throw new ProjectFileException(file, line, "",
                                 $"a value of {s.Value.Length} characters is longer than the limit of " +
                                     $"{InputLimits.MaxValueLength} " +

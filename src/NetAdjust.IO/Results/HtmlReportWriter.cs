@@ -56,7 +56,8 @@ public static class HtmlReportWriter
             $"{u.SmallAngleSymbol}");
         Dl(sb, "Datum", TextReportSections.DatumText(r));
         Dl(sb, "Coordinates",
-            c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}");
+            GridReport.HeaderLine(c) ??
+            (c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}"));
         Dl(sb, "Solver", r.SolverName);
         if (c.Solution is string solution)
             Dl(sb, "Solution", $"the {solution} solution of the datum sequence (tables below the comparison)");

@@ -120,6 +120,7 @@ public static class JsonResultWriter
             Robust = c.Robust is RobustEstimate rb ? Robust(rb) : null,
             VarianceComponents = c.Components is VarianceComponentEstimate vc ? Components(vc) : null,
             Rounds = RoundsReport.Json(c),
+            Grid = GridReport.Json(r, c),
         };
     }
 

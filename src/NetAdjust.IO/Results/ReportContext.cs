@@ -16,6 +16,10 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// <summary>The project's coordinate reference system (<c>EPSG:code</c>), or null for local coordinates.</summary>
     public string? Crs { get; init; }
 
+    /// <summary>The reduction of the observations to the grid (docs/methods.md, "Grid and ground"), or null when the
+    /// project declares no grid system.</summary>
+    public GridReductionResult? Grid { get; init; }
+
     /// <summary>Warnings about legal but suspicious data (<see cref="Project.SurveyProject.Warnings"/>); empty
     /// for none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];

@@ -57,6 +57,9 @@ internal static class ResultJson
 
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
         public IReadOnlyList<Rounds>? Rounds { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public Grid? Grid { get; init; }
     }
 
     /// <summary>The reduction of the rounds of one setup (angles in deg, small angles in arcsec, lengths in m).
@@ -74,6 +77,23 @@ internal static class ResultJson
 
     /// <summary>A spread test: s against its bound σ·√(χ²(1 − α; ν)/ν).</summary>
     internal sealed record SpreadTest(int DegreesOfFreedom, double Spread, double Sd, double Bound, bool Passes);
+
+    /// <summary>The grid system and the reductions (key <c>grid</c>; only when the project declares one).</summary>
+    internal sealed record Grid(string System, string? Crs, string Distances, string Azimuths, double? ProjectScale,
+        double GeoidSeparation, double? MeanHeight, double? MeanHeightSd, double? CombinedFactorMin,
+        double? CombinedFactorMax, IEnumerable<GridLine> Lines, IEnumerable<GridPoint> Points,
+        IEnumerable<GridCorrection> Corrections);
+
+    /// <summary>One distance: its factors and the adjusted line's grid and ground lengths (m).</summary>
+    internal sealed record GridLine(int Index, string From, string To, double? Ground, double? ElevationFactor,
+        double? ScaleFactor, double? CombinedFactor, double Grid, double AdjustedGrid, double? AdjustedGround,
+        double? EllipsoidalHeight);
+
+    /// <summary>The convergence (degrees) and point scale factor at one point.</summary>
+    internal sealed record GridPoint(string Point, double Convergence, double ScaleFactor);
+
+    /// <summary>The correction added to one angular observation (arcsec).</summary>
+    internal sealed record GridCorrection(int Index, string Kind, string From, string To, double Correction);
 
     internal sealed record Units(string Length, string Angle, string AngularResidualAndSd);
 

@@ -22,7 +22,8 @@ public sealed class ResultReport
         Points = new ReportTable<PointRow>(PointRow.Columns,
             result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
         Observations = new ReportTable<ObservationRow>(ObservationRow.Columns, ObservationRow.Of(result, W));
-        Sections = [.. StatisticsReport.Build(result, context), .. RoundsReport.Sections(context)];
+        Sections = [.. StatisticsReport.Build(result, context), .. RoundsReport.Sections(context),
+            .. GridReport.Build(result, context)];
     }
 
     /// <summary>Builds the model.</summary>

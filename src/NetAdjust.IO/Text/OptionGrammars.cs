@@ -51,6 +51,16 @@ public static class OptionGrammars
         "independent (diagonal weights) or correlated (one covariance block per setup)", false,
         ("independent", CenteringModel.Independent), ("correlated", CenteringModel.Correlated));
 
+    /// <summary>What the horizontal distances of a project are (<c>grid.distances</c>).</summary>
+    public static TextChoice<Geodesy.DistanceBasis> DistanceBases { get; } = new("a kind of distance",
+        "ground (measured at the marks' height) or grid (already reduced to the grid)", false,
+        ("ground", Geodesy.DistanceBasis.Ground), ("grid", Geodesy.DistanceBasis.Grid));
+
+    /// <summary>What the azimuths of a project are (<c>grid.azimuths</c>).</summary>
+    public static TextChoice<Geodesy.AzimuthBasis> AzimuthBases { get; } = new("a kind of azimuth",
+        "geodetic (from true north; astronomic azimuths too) or grid (grid bearings)", false,
+        ("geodetic", Geodesy.AzimuthBasis.Geodetic), ("grid", Geodesy.AzimuthBasis.Grid));
+
     /// <summary>The kind of datum (<c>datum.mode</c>).</summary>
     public static TextChoice<DatumMode> DatumModes { get; } = new("a datum mode", "control, minimal or free", false,
         ("control", DatumMode.Control), ("minimal", DatumMode.MinimalConstraints),
