@@ -81,7 +81,8 @@ var result = Adjuster.Adjust(network);
 var hunt = DataSnooping.Run(network);
 var statistics = result.Statistics;
 Console.WriteLine(string.Create(inv,
-    $"observations {statistics.Observations}, unknowns {statistics.Unknowns}, redundancy {statistics.DegreesOfFreedom}"));
+    $"observations {statistics.Observations}, unknowns {statistics.Unknowns}, " +
+    $"redundancy {statistics.DegreesOfFreedom}"));
 Console.WriteLine(string.Create(inv, $"variance factor {statistics.VarianceFactor:R}"));
 Console.WriteLine(string.Create(inv, $"global test {(statistics.GlobalTest.Passed == true ? "passed" : "failed")}"
     + $" (statistic {statistics.GlobalTest.Statistic:F3})"));

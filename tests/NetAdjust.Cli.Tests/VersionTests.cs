@@ -13,7 +13,8 @@ public sealed class VersionTests : IDisposable
 
     public void Dispose() => Directory.Delete(_tmp, recursive: true);
 
-    /// <summary>The version as the repository sets it, read from the build file rather than from the binaries.</summary>
+    /// <summary>The version as the repository sets it, read from the build file rather than from the
+    /// binaries.</summary>
     private static string DeclaredVersion()
     {
         var props = XDocument.Load(Path.Combine(CliHarness.RepoRoot, "Directory.Build.props"));

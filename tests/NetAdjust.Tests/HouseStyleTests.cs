@@ -2,18 +2,19 @@ namespace NetAdjust.Tests;
 
 /// <summary>
 /// House style of the sources (DEVELOPERS.md, .editorconfig: lines of at most 120 characters). Checks the C# files
-/// under src/ as text, so a long line fails here and not only in an editor.
+/// under src/, tests/, samples/ and benchmarks/ as text, so a long line fails here and not only in an editor.
 /// </summary>
 public class HouseStyleTests
 {
     private const int MaxLineLength = 120;
 
-
     [Fact]
     public void SourceLinesAreAtMost120Characters()
     {
         string root = RepoRoot();
-        var files = Directory.EnumerateFiles(Path.Combine(root, "src"), "*.cs", SearchOption.AllDirectories)
+        var files = new[] { "src", "tests", "samples", "benchmarks" }
+            .Where(d => Directory.Exists(Path.Combine(root, d)))
+            .SelectMany(d => Directory.EnumerateFiles(Path.Combine(root, d), "*.cs", SearchOption.AllDirectories))
             .Select(f => Path.GetRelativePath(root, f).Replace('\\', '/'))
             .Where(f => !f.Contains("/obj/") && !f.Contains("/bin/"))
             .Order(StringComparer.Ordinal)

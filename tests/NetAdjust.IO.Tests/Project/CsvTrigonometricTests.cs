@@ -27,8 +27,8 @@ public class CsvTrigonometricTests
 
         """;
 
-    private const string Header = "kind,from,to,value,sd,instrument_height,target_height,instrument,target,sets,faces," +
-        "refraction_group\n";
+    private const string Header =
+        "kind,from,to,value,sd,instrument_height,target_height,instrument,target,sets,faces,refraction_group\n";
 
     private static SurveyProject Parse(string csv, string head = Head) =>
         ProjectReader.Parse(head, "t.yaml", Path.GetTempPath(), _ => csv);

@@ -17,7 +17,8 @@ public sealed class ProjectSchemaTests
     public static TheoryData<string> DemoProjects()
     {
         var data = new TheoryData<string>();
-        foreach (var f in Directory.GetFiles(Path.Combine(TestProjects.RepoRoot, "data"), "*.yaml").Order(StringComparer.Ordinal))
+        foreach (var f in Directory.GetFiles(Path.Combine(TestProjects.RepoRoot, "data"),
+            "*.yaml").Order(StringComparer.Ordinal))
             data.Add(Path.GetFileName(f));
         return data;
     }
@@ -47,7 +48,8 @@ public sealed class ProjectSchemaTests
         Assert.True(File.Exists(Path.GetFullPath(Path.Combine(TestProjects.RepoRoot, "data", relative))));
     }
 
-    /// <summary>A small valid project (invented): a level loop and one traverse leg; the broken files change one thing.</summary>
+    /// <summary>A small valid project (invented): a level loop and one traverse leg; the broken files change one
+    /// thing.</summary>
     private const string Valid = """
         project: Schema check (invented)
         units: {length: m, angle: dms, angle_sd: arcsec}
@@ -129,7 +131,8 @@ public sealed class ProjectSchemaTests
         var e = Assert.ThrowsAny<Exception>(() => Read(broken));
         Assert.True(e is ProjectFileException or InvalidInputException, $"{what}: {e.GetType().Name}: {e.Message}");
         Assert.Contains(message, e.Message, StringComparison.Ordinal);
-        Assert.True(SchemaValidation.ProjectErrors(broken).Count > 0, $"{what}: the schema accepts what the reader refuses");
+        Assert.True(SchemaValidation.ProjectErrors(broken).Count > 0,
+            $"{what}: the schema accepts what the reader refuses");
     }
 
     private static SurveyProject Read(string text) =>

@@ -25,7 +25,8 @@ internal static partial class SchemaValidation
     /// <summary>The schema's complaints about a YAML project text (empty when it is valid).</summary>
     public static IReadOnlyList<string> ProjectErrors(string yaml) => Errors(ProjectSchema.Value, YamlToJson(yaml));
 
-    /// <summary>The schema's complaints about one <c>netadjust-result/1</c> document (empty when it is valid).</summary>
+    /// <summary>The schema's complaints about one <c>netadjust-result/1</c> document (empty when it is
+    /// valid).</summary>
     public static IReadOnlyList<string> ResultErrors(JsonElement document) => Errors(ResultSchema.Value, document);
 
     private static JsonSchema Load(string name) => JsonSchema.FromText(File.ReadAllText(SchemaPath(name)));

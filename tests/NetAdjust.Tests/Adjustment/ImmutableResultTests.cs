@@ -15,7 +15,8 @@ namespace NetAdjust.Tests.Adjustment;
 /// <summary>
 /// Results are immutable: no public setter, and no collection reachable through the public properties of a result
 /// (adjustment, analysis, sequence, blunder hunt, robust estimate, variance components, stochastic model, with the
-/// network and inputs they hold) that a caller could change, by casting it back to an array or a list or otherwise. Found by
+/// network and inputs they hold) that a caller could change, by casting it back to an array or a list or otherwise.
+/// Found by
 /// walking the public properties, so a new result member is checked without being listed here.
 /// </summary>
 public sealed class ImmutableResultTests

@@ -234,7 +234,8 @@ public sealed class PublicConstructorGuardTests
                     _ => [],
                 };
                 foreach (var (name, type) in named)
-                    if ((type == typeof(double) || type == typeof(double?)) && name is not ("SdFactor" or "RefractionSd")
+                    if ((type == typeof(double) || type == typeof(double?))
+                        && name is not ("SdFactor" or "RefractionSd")
                         && (name.Contains("sd", StringComparison.OrdinalIgnoreCase)
                             || name.Contains("deviation", StringComparison.OrdinalIgnoreCase)))
                         bare.Add($"{t.Name}.{m.Name}: {name}");

@@ -18,7 +18,8 @@ public sealed class SpecificationGuardTests
         Gen.Choose(1, int.MaxValue).Select(k => -k * 1e-9),
         Gen.Choose(1, 300).Select(e => -Math.Pow(10, e - 150)));
 
-    /// <summary>Each constructor with one bad standard deviation, the others valid, and the word its message names.</summary>
+    /// <summary>Each constructor with one bad standard deviation, the others valid, and the word its message
+    /// names.</summary>
     private static readonly (string Name, Action<double> Build)[] Constructors =
     [
         ("direction standard deviation", v => _ = new TotalStationSpecification("TS", v, 1e-5, null, 0.001, 0.001)),
@@ -31,7 +32,8 @@ public sealed class SpecificationGuardTests
         ("centering error of target", v => _ = new TargetSpecification("T", v, 0.001)),
         ("height measurement error of target", v => _ = new TargetSpecification("T", 0.001, v)),
         ("standard deviation per km", v => _ = LevelSpecification.PerKm("L", v)),
-        ("reading standard deviation", v => _ = LevelSpecification.PerReading("L", v, 0.001, RoundingTreatment.Uniform)),
+        ("reading standard deviation", v => _ = LevelSpecification.PerReading("L", v, 0.001,
+            RoundingTreatment.Uniform)),
         ("reading resolution", v => _ = LevelSpecification.PerReading("L", 0.0005, v, RoundingTreatment.Uniform)),
     ];
 
