@@ -70,6 +70,7 @@ internal static class AdjustCommand
             {
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Warnings = project.Warnings,
                 Particulars = project.Particulars,
+                Misclosures = NetAdjust.Misclosures.MisclosureCheck.Run(project.Network, project.Checks),
             };
             string text;
             AdjustmentResult result;
@@ -94,6 +95,9 @@ internal static class AdjustCommand
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
+                if (project.Standards.Count > 0)
+                    context = context with { Standards = NetAdjust.Standards.StandardsCheck.Apply(result,
+                        project.Standards, context.Misclosures) };
                 model = ResultReport.Build(result, context);
                 text = TextReportWriter.Write(model);
                 if (jsonPath is not null) files.Add((jsonPath, JsonResultWriter.Write(model)));

@@ -23,4 +23,14 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>Warnings about legal but suspicious data (docs/input-format.md, "Warnings"); empty when there
     /// are none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
+
+    /// <summary>The options of the checks before the adjustment (key <c>checks</c>).</summary>
+    public Misclosures.MisclosureOptions Checks { get; init; } = Misclosures.MisclosureOptions.Default;
+
+    /// <summary>The accuracy standards to apply (key <c>standards</c>), in the order given; empty for none.</summary>
+    public IReadOnlyList<Standards.AccuracyStandard> Standards { get; init; } = [];
+
+    /// <summary>The total stations the project specifies (key <c>instruments</c>), in file order; the candidates of
+    /// a procedure recommendation.</summary>
+    public IReadOnlyList<TotalStationSpecification> Instruments { get; init; } = [];
 }

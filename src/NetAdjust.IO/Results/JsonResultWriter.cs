@@ -118,6 +118,8 @@ public static class JsonResultWriter
             BlunderHunt = c.Hunt is BlunderHunt h ? Hunt(h) : null,
             Robust = c.Robust is RobustEstimate rb ? Robust(rb) : null,
             VarianceComponents = c.Components is VarianceComponentEstimate vc ? Components(vc) : null,
+            Misclosures = ResultJson.Misclosures.Of(c.Misclosures),
+            Standards = ResultJson.Standards.Of(c.Standards),
         };
     }
 

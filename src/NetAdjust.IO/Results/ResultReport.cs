@@ -22,7 +22,7 @@ public sealed class ResultReport
         Points = new ReportTable<PointRow>(PointRow.Columns,
             result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
         Observations = new ReportTable<ObservationRow>(ObservationRow.Columns, ObservationRow.Of(result, W));
-        Sections = StatisticsReport.Build(result, context);
+        Sections = [.. StatisticsReport.Build(result, context), .. CheckSections.Build(context, result.Network)];
     }
 
     /// <summary>Builds the model.</summary>
