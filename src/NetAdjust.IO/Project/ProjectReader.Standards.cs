@@ -14,7 +14,8 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    /// <summary>The text a planned observation's missing value is read as; replaced at the design coordinates.</summary>
+    /// <summary>The text a planned observation's missing value is read as; replaced at the design
+    /// coordinates.</summary>
     private const string PlannedValue = "1";
 
     /// <summary>

@@ -116,8 +116,8 @@ internal static class CheckSections
                 [
                     $"  Angular misclosure = carried minus known azimuth, against z*sd at {conf}; linear misclosure " +
                     "after",
-                    $"  balancing the angles equally, tested against its expected covariance at {conf} (chi-square, 2 " +
-                    "dof)" + (m.Options.MinimumTraverseRatio is double k
+                    $"  balancing the angles equally, tested against its expected covariance at {conf} " +
+                    "(chi-square, 2 dof)" + (m.Options.MinimumTraverseRatio is double k
                         ? $" and a least ratio 1:{k.ToString("0", Inv)}." : "."),
                 ],
                 [

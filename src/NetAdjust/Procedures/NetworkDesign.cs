@@ -60,7 +60,8 @@ public static class NetworkDesign
     /// </summary>
     /// <param name="plan">The planned network.</param>
     /// <param name="options">The adjustment options (datum, stochastic model, analysis); null for the default.</param>
-    /// <returns>The result: its precision, redundancy numbers, MDBs and external reliability are the design's.</returns>
+    /// <returns>The result: its precision, redundancy numbers, MDBs and external reliability are the
+    /// design's.</returns>
     public static AdjustmentResult Analyse(SurveyNetwork plan, AdjustmentOptions? options = null)
     {
         var o = options ?? AdjustmentOptions.Default;

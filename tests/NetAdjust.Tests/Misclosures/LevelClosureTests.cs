@@ -34,7 +34,8 @@ public class LevelClosureTests
     {
         // A (100.000) → P → B (103.000): misclosure = 1.000 + 2.010 − (103 − 100) = +0.010 m (common practice).
         var net = new SurveyNetwork("t",
-            [new Point("A") { H = 100, Fixed = Fixity.H }, new Point("P"), new Point("B") { H = 103, Fixed = Fixity.H }],
+            [new Point("A") { H = 100, Fixed = Fixity.H }, new Point("P"),
+                new Point("B") { H = 103, Fixed = Fixity.H }],
             [Dh("A", "P", 1.000, 1, 1), Dh("P", "B", 2.010, 1, 2)]);
         var line = Assert.Single(MisclosureCheck.Run(net).Levels);
         Assert.Equal(LevelClosureKind.Line, line.Kind);

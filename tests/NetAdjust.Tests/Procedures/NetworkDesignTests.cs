@@ -98,10 +98,12 @@ public class NetworkDesignTests
         var found = new List<int?>();
         foreach (double mm in new[] { 12.0, 9, 7, 6, 5.5 })
         {
-            var standard = new AccuracyStandard("site", StandardKind.RelativePrecision, "test") { Constant = mm / 1000 };
+            var standard = new AccuracyStandard("site", StandardKind.RelativePrecision, "test")
+                { Constant = mm / 1000 };
             var r = ProcedureAdvisor.Recommend(plan, null, standard, 12);
             var trials = Assert.Single(r.Instruments).Trials;
-            for (int k = 1; k < trials.Count; k++) Assert.True(trials[k].WorstRatio <= trials[k - 1].WorstRatio + 1e-12);
+            for (int k = 1; k < trials.Count; k++)
+                Assert.True(trials[k].WorstRatio <= trials[k - 1].WorstRatio + 1e-12);
             for (int k = 2; k < trials.Count; k++)
                 Assert.True(trials[k - 1].WorstRatio - trials[k].WorstRatio <=
                     trials[k - 2].WorstRatio - trials[k - 1].WorstRatio + 1e-12);
