@@ -2,6 +2,7 @@ using System.Globalization;
 using NetAdjust.Adjustment;
 using NetAdjust.Misclosures;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Procedures;
 using NetAdjust.Standards;
 using YamlDotNet.RepresentationModel;
@@ -14,9 +15,15 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static partial class ProjectReader
 {
-    /// <summary>The text a planned observation's missing value is read as; replaced at the design
-    /// coordinates.</summary>
-    private const string PlannedValue = "1";
+    /// <summary>The text a planned observation's missing value is read as (a right angle, or 1 length unit);
+    /// replaced at the design coordinates.</summary>
+    private static string PlannedValue(ObservationKind kind, ProjectUnits units) =>
+        !kind.IsAngular() ? "1" : units.Angle switch
+        {
+            Units.AngleFormat.Dms => "90-00-00",
+            Units.AngleFormat.Gons => "100",
+            _ => "90",
+        };
 
     /// <summary>
     /// Reads a plan: a project file whose observations may leave out <c>value</c> (and <c>dh</c>); every

@@ -413,7 +413,7 @@ public static partial class ProjectReader
         string to = ctx.RequiredString(m, "to", $"a {kind.Name()} in the {setupItem}");
         string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
         ctx.CheckKeys(m, [.. keys, .. ObservationMarks.Keys], item);
-        string value = ctx.Planned && ctx.Child(m, "value") is null ? PlannedValue
+        string value = ctx.Planned && ctx.Child(m, "value") is null ? PlannedValue(kind, units)
             : ctx.RequiredString(m, "value", item);
         var target = TargetOf(ctx, m, item, specs);
         if (target is not null && spec.Instrument is null)
@@ -439,8 +439,8 @@ public static partial class ProjectReader
         string to = ctx.RequiredString(m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
         ctx.CheckKeys(m, [.. Keys(ObservationKind.HeightDifference), .. ObservationMarks.Keys], item);
-        var dh = ctx.ParseLength(node, lengths, ctx.Planned && ctx.Child(m, "dh") is null ? PlannedValue
-            : ctx.RequiredString(m, "dh", item), item);
+        var dh = ctx.ParseLength(node, lengths, ctx.Planned && ctx.Child(m, "dh") is null
+            ? PlannedValue(ObservationKind.HeightDifference, units) : ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
         {

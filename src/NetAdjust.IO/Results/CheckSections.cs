@@ -83,8 +83,8 @@ internal static class CheckSections
                 units.SmallLength(l.SdAllowance), units.SmallLength(l.Allowance), F(l.Ratio, 2), Pass(l.Passed),
             ], l.Passed ? RowState.Normal : RowState.Fail, Named(network, l.Points, l.Observations))).ToList();
             string allowance = m.Options.LevelLoopConstant is double c
-                ? $"c*sqrt(K) with c = {F(c * 1000, 2)} mm/sqrt(km) for loops and lines, " +
-                  $"{F((m.Options.LevelSectionConstant ?? c) * 1000, 2)} mm/sqrt(km) for sections"
+                ? $"c*sqrt(K), c = {F(c * 1000, 2)} mm (loops, lines), " +
+                  $"{F((m.Options.LevelSectionConstant ?? c) * 1000, 2)} mm (sections)"
                 : "none set (checks.level_loop_mm)";
             list.Add(new ReportSection("level-misclosures", $"LEVEL LOOPS AND LINES BEFORE THE ADJUSTMENT ({lu})",
                 "Level loops and lines before the adjustment",
