@@ -24,24 +24,24 @@ internal static partial class ResultJson
                     LevelClosureKind.Line => "line",
                     _ => "section",
                 },
-                l.Points, l.Observations.Select(i => i + 1), l.Misclosure, Num(l.Length), l.Sd, l.SdAllowance,
-                l.Allowance, l.Ratio, l.Passed)),
+                l.Points, l.Observations.Select(i => i + 1), l.Misclosure, Num(l.Length), Num(l.Sd),
+                Num(l.SdAllowance), l.Allowance is double al ? Num(al) : null, Num(l.Ratio), l.Passed)),
             m.Traverses.Select(t => new Traverse(t.Kind == TraverseKind.Link ? "link" : "closed", t.Points,
                 t.Observations.Select(i => i + 1), Num(t.AngularMisclosure * Angle.ArcsecondsPerRadian),
                 Num(t.AngularSd * Angle.ArcsecondsPerRadian), Num(t.AngularAllowance * Angle.ArcsecondsPerRadian),
                 t.LinearMisclosure, t.Length, Num(t.PrecisionRatio), Num(t.LinearStatistic), t.LinearCritical,
-                t.Ratio, t.Passed)));
+                Num(t.Ratio), t.Passed)));
     }
 
     /// <summary>One level closure; observations are 1-based numbers of the observation list.</summary>
     internal sealed record LevelClosure(string Kind, IEnumerable<string> Points, IEnumerable<int> Observations,
-        double Misclosure, double? Length, double Sd, double SdAllowance, double? Allowance, double Ratio,
+        double Misclosure, double? Length, double? Sd, double? SdAllowance, double? Allowance, double? Ratio,
         bool Passed);
 
     /// <summary>One traverse; observations are 1-based numbers of the observation list.</summary>
     internal sealed record Traverse(string Kind, IEnumerable<string> Points, IEnumerable<int> Observations,
         double? AngularMisclosure, double? AngularSd, double? AngularAllowance, double LinearMisclosure,
-        double Length, double? PrecisionRatio, double? LinearStatistic, double LinearCritical, double Ratio,
+        double Length, double? PrecisionRatio, double? LinearStatistic, double LinearCritical, double? Ratio,
         bool Passed);
 
     /// <summary>Key <c>standards</c>: the standards applied, their items (worst first) and the caution.</summary>
@@ -54,7 +54,7 @@ internal static partial class ResultJson
                 StandardKind.GeodeticAccuracy => "geodetic_accuracy",
                 _ => "levelling",
             }, x.Source)),
-            s.Items.Select(i => new StandardItem(i.Standard, i.Item, i.Quantity, i.Value, i.Allowance,
+            s.Items.Select(i => new StandardItem(i.Standard, i.Item, i.Quantity, Num(i.Value), i.Allowance,
                 i.Ratio is double r && double.IsFinite(r) ? r : null,
                 i.ClassReached, i.Passed)),
             StandardsReport.Caution);
@@ -64,6 +64,6 @@ internal static partial class ResultJson
     internal sealed record Standard(string Name, string Kind, string Source);
 
     /// <summary>One checked item (lengths m).</summary>
-    internal sealed record StandardItem(string Standard, string Item, string Quantity, double Value,
+    internal sealed record StandardItem(string Standard, string Item, string Quantity, double? Value,
         double? Allowance, double? Ratio, double? ClassReached, bool? Passed);
 }

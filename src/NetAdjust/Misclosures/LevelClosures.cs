@@ -61,13 +61,15 @@ internal static class LevelClosures
         }
 
         var usable = (bool[])inTree.Clone();
+        var via = new int[n + 1];
+        Array.Fill(via, -2);
         var closures = new List<LevelClosure>();
         for (int e = 0; e < edges.Count; e++)
         {
             if (inTree[e]) continue;
             var edge = edges[e];
             // Run the loop from A along e to B, then back from B to A by the shortest usable path.
-            var path = ShortestPath(edge.B, edge.A, adjacency, edges, usable);
+            var path = ShortestPath(edge.B, edge.A, adjacency, edges, usable, via);
             usable[e] = true;
             if (path is null) continue; // cannot happen in a connected part; kept for safety
             var run = new List<(Edge Edge, bool Forward)> { (edge, true) };
@@ -116,11 +118,13 @@ internal static class LevelClosures
     }
 
     /// <summary>Breadth-first shortest path (fewest edges; ties by edge order) from one node to another over the
-    /// usable edges; the edge indices in running order, or null when there is none.</summary>
-    private static List<int>? ShortestPath(int from, int to, List<int>[] adjacency, List<Edge> edges, bool[] usable)
+    /// usable edges; the edge indices in running order, or null when there is none. <paramref name="via"/> is all
+    /// −2 on entry and on return (only the nodes reached are touched, so a short loop costs little in a large
+    /// network).</summary>
+    private static List<int>? ShortestPath(int from, int to, List<int>[] adjacency, List<Edge> edges, bool[] usable,
+        int[] via)
     {
-        var via = new int[adjacency.Length];
-        Array.Fill(via, -2);
+        var reached = new List<int> { from };
         via[from] = -1;
         var queue = new Queue<int>([from]);
         while (queue.Count > 0 && via[to] == -2)
@@ -132,13 +136,18 @@ internal static class LevelClosures
                 int w = Other(edges[e], v);
                 if (via[w] != -2) continue;
                 via[w] = e;
+                reached.Add(w);
                 queue.Enqueue(w);
             }
         }
-        if (via[to] == -2) return null;
-        var path = new List<int>();
-        for (int v = to; v != from; v = Other(edges[via[v]], v)) path.Add(via[v]);
-        path.Reverse();
+        List<int>? path = null;
+        if (via[to] != -2)
+        {
+            path = [];
+            for (int v = to; v != from; v = Other(edges[via[v]], v)) path.Add(via[v]);
+            path.Reverse();
+        }
+        foreach (int v in reached) via[v] = -2;
         return path;
     }
 

@@ -47,12 +47,22 @@ internal static class TraverseClosures
                         data.Distances.ContainsKey(Pair(start.Id, next)))
                         Add(Walk(network, data, start.Id, reference, next, o, z, chi2));
             }
-        // Closed traverses with no given reference.
+        // Closed traverses with no given reference, from each station (its angles in the order found).
+        var byStation = data.Angles.Keys.GroupBy(k => k.At, StringComparer.Ordinal)
+            .ToDictionary(g => g.Key, g => g.ToList(), StringComparer.Ordinal);
+        var covered = new HashSet<string>(found.SelectMany(t => t.Points), StringComparer.Ordinal);
         foreach (var start in network.Points)
-            foreach (var (at, back, next) in data.Angles.Keys)
-                if (at == start.Id && data.Distances.ContainsKey(Pair(at, back)) &&
-                    data.Distances.ContainsKey(Pair(at, next)))
-                    Add(Walk(network, data, at, back, next, o, z, chi2, closed: true));
+            foreach (var (at, back, next) in byStation.GetValueOrDefault(start.Id) ?? [])
+            {
+                // a station of a traverse already found starts no other walk: each loop is walked once
+                if (covered.Contains(at)) break;
+                if (data.Distances.ContainsKey(Pair(at, back)) && data.Distances.ContainsKey(Pair(at, next)) &&
+                    Walk(network, data, at, back, next, o, z, chi2, closed: true) is TraverseClosure t)
+                {
+                    Add(t);
+                    covered.UnionWith(t.Points);
+                }
+            }
         return found;
     }
 
@@ -63,6 +73,7 @@ internal static class TraverseClosures
         string first, MisclosureOptions o, double z, double chi2, bool closed = false)
     {
         var stations = new List<string> { start };
+        var visited = new HashSet<string>(StringComparer.Ordinal) { start };
         var angles = new List<Measured>();
         var legs = new List<(Measured D, int Before)>();
         string prev = reference, cur = start, next = first;
@@ -82,8 +93,9 @@ internal static class TraverseClosures
                 angles.Add(closing);
                 break;
             }
-            if (stations.Contains(cur) && !(cur == start && !closed)) return null;
+            if (visited.Contains(cur) && !(cur == start && !closed)) return null;
             stations.Add(cur);
+            visited.Add(cur);
             if (!closed && IsKnown(network[cur]))
             {
                 knownEnd = true;
