@@ -76,7 +76,8 @@ internal static class CheckSections
         string Pass(bool passed) => passed ? "pass" : "FAIL";
         if (m.Levels.Count > 0)
         {
-            var rows = m.Levels.Select(l => new SectionRow([
+            var shown = Listed(m.Levels, l => l.Passed);
+            var rows = shown.Select(l => new SectionRow([
                 l.Kind switch { LevelClosureKind.Loop => "loop", LevelClosureKind.Line => "line", _ => "section" },
                 string.Join("-", l.Points), units.SmallLength(l.Misclosure),
                 double.IsFinite(l.Length) ? (l.Length / 1000).ToString("F3", Inv) : "-",
@@ -99,11 +100,13 @@ internal static class CheckSections
                     Txt("Closes", 7), Txt("Points", 28), Nr("Misclosure", lu, 10), Nr("K", "km", 7),
                     Nr("z*sd", lu, 8), Nr("c*sqrtK", lu, 8), Nr("Ratio", null, 6), Txt("", 0),
                 ],
-                rows, []) { HtmlSummary = Summary(m.Levels.Count(l => !l.Passed), m.Levels.Count, "closure") });
+                rows, Omitted(shown.Count, m.Levels.Count, "closures"))
+                { HtmlSummary = Summary(m.Levels.Count(l => !l.Passed), m.Levels.Count, "closure") });
         }
         if (m.Traverses.Count > 0)
         {
-            var rows = m.Traverses.Select(t => new SectionRow([
+            var shown = Listed(m.Traverses, t => t.Passed);
+            var rows = shown.Select(t => new SectionRow([
                 t.Kind == TraverseKind.Link ? "link" : "closed", string.Join("-", t.Points),
                 double.IsFinite(t.AngularMisclosure) ? units.SmallAngle(t.AngularMisclosure) : "-",
                 double.IsFinite(t.AngularAllowance) ? units.SmallAngle(t.AngularAllowance) : "-",
@@ -125,10 +128,21 @@ internal static class CheckSections
                     Nr("Lin.mis.", lu, 9), Nr("Length", lu, 10), Txt("Precision", 10) with { Left = false },
                     Nr("Ratio", null, 6), Txt("", 0),
                 ],
-                rows, []) { HtmlSummary = Summary(m.Traverses.Count(t => !t.Passed), m.Traverses.Count, "traverse") });
+                rows, Omitted(shown.Count, m.Traverses.Count, "traverses"))
+                { HtmlSummary = Summary(m.Traverses.Count(t => !t.Passed), m.Traverses.Count, "traverse") });
         }
         return list;
     }
+
+    /// <summary>The most closures a report lists one by one; beyond it only the failing ones are listed (the JSON
+    /// result holds them all).</summary>
+    internal const int ListLimit = 100;
+
+    private static List<T> Listed<T>(IReadOnlyList<T> all, Func<T, bool> passed) =>
+        all.Count <= ListLimit ? [.. all] : [.. all.Where(x => !passed(x))];
+
+    private static List<string> Omitted(int shown, int all, string what) => shown == all ? []
+        : [$"  {all} {what} checked; only the {shown} failing ones are listed (the JSON result holds all)."];
 
     private static string Summary(int failed, int all, string what) => failed == 0
         ? $"Every {what} is within its allowance ({all} checked)."

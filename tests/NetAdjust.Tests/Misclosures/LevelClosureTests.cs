@@ -90,6 +90,19 @@ public class LevelClosureTests
         }
     }
 
+    [Fact]
+    public void CorrectLoopsFailAtTheTestsLevel()
+    {
+        // Observations drawn with exactly their stated sd (a seeded synthetic level network): each loop's test at
+        // 95% rejects a correct loop with probability 0.05 (two-sided normal quantile, MathNet), so about 5% of the
+        // loops fail. The loops share sections, so the bounds are wider than a binomial's (common practice).
+        var net = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Levels, 1500, 11));
+        var loops = MisclosureCheck.Run(net).Levels;
+        Assert.True(loops.Count > 1500);
+        double failing = loops.Count(l => !l.Passed) / (double)loops.Count;
+        Assert.InRange(failing, 0.03, 0.07);
+    }
+
     [Theory]
     // FGCC 1984, Standards and Specifications for Geodetic Control Networks, §3.5 geodetic leveling, misclosure
     // allowances in mm √K (docs/references.md §8): section 3, 4, 6, 8, 12 mm √E and loop 4, 5, 6, 8, 12 mm √F for
