@@ -23,12 +23,29 @@ public static class MisclosureCheck
         var o = options ?? MisclosureOptions.Default;
         o.Validate();
         // σ as given, or from the specifications with the sight lengths observed in the setup (no coordinates yet)
-        var provisional = StochasticModel.WithProvisionalDeviations(network);
-        var sd = provisional.Observations.Select(x => x.StandardDeviation).ToArray();
+        var sd = network.Observations.Select(ProvisionalSd).ToArray();
         double z = Normal.InvCDF(0, 1, 1 - ((1 - o.Confidence) / 2));
         double chi2 = ChiSquared.InvCDF(2, o.Confidence);
         var levels = LevelClosures.Find(network, sd, o, z);
         var traverses = TraverseClosures.Find(network, sd, o, z, chi2);
         return new MisclosureReport(o, levels, traverses);
+    }
+
+    /// <summary>
+    /// The σ an observation is checked with: as given, or from its specifications with the sight lengths observed
+    /// in its setup (as <see cref="StochasticModel.WithProvisionalDeviations"/>); NaN when the specifications give
+    /// none (e.g. a sight of zero length), so that its closures are reported without a test instead of failing.
+    /// </summary>
+    private static double ProvisionalSd(Observation o)
+    {
+        if (!double.IsNaN(o.StandardDeviation)) return o.StandardDeviation;
+        try
+        {
+            return ObservationBudgets.Provisional(o) is ErrorBudget b ? b.Total * o.SdFactor : double.NaN;
+        }
+        catch (ArgumentException)
+        {
+            return double.NaN;
+        }
     }
 }

@@ -67,7 +67,8 @@ public static class StandardsCheck
                 StandardKind.GeodeticAccuracy => Geodetic(result, s),
                 _ => Levelling(closures, s),
             };
-            items.AddRange(group.OrderByDescending(i => i.Ratio ?? i.Value / Math.Max(i.ClassReached ?? 1, 1e-12)));
+            // worst first: the largest ratio, or the largest value where the standard sets no allowance
+            items.AddRange(group.OrderByDescending(i => i.Ratio ?? i.Value));
         }
         return new StandardsReport(standards, items);
     }
