@@ -38,6 +38,7 @@ public static class Program
         root.Subcommands.Add(CheckCommand.Create(console));
         root.Subcommands.Add(BudgetCommand.Create(console));
         root.Subcommands.Add(SimulateCommand.Create(console));
+        root.Subcommands.Add(PlanCommand.Create(console));
         var parse = root.Parse(args);
         var config = new InvocationConfiguration { Output = console.Out, Error = console.Error,
             EnableDefaultExceptionHandler = false };

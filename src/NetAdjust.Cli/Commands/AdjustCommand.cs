@@ -75,6 +75,7 @@ internal static class AdjustCommand
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction,
                 Warnings = project.Warnings,
                 Particulars = project.Particulars, Rounds = project.Rounds,
+                Misclosures = NetAdjust.Misclosures.MisclosureCheck.Run(project.Network, project.Checks),
             };
             Action<TextWriter> text;
             AdjustmentResult result;
@@ -100,6 +101,9 @@ internal static class AdjustCommand
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
+                if (project.Standards.Count > 0)
+                    context = context with { Standards = NetAdjust.Standards.StandardsCheck.Apply(result,
+                        project.Standards, context.Misclosures) };
                 Progress(project, "preparing the report");
                 var single = model = ResultReport.Build(result, context);
                 text = w => TextReportWriter.Write(w, single);

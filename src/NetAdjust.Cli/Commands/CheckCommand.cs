@@ -20,6 +20,13 @@ internal static class CheckCommand
             console.Out.WriteLine(
                 $"{parse.GetValue(file)}: valid: {n.Points.Count} points, {n.Observations.Count} observations " +
                                   $"from {project.InputFiles.Count} file(s).");
+            // the checks before the adjustment: level loops and lines, traverses (a failing one is a result: exit 0)
+            var closures = NetAdjust.Misclosures.MisclosureCheck.Run(n, project.Checks);
+            if (!closures.IsEmpty)
+            {
+                console.Out.WriteLine();
+                console.Out.Write(NetAdjust.IO.Results.MisclosureText.Write(closures, n, project.Units));
+            }
             return ExitCodes.Success;
         }));
         return cmd;

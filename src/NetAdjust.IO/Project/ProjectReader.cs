@@ -18,7 +18,7 @@ public static partial class ProjectReader
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
         "targets", "levels", "statistics", "crs", "datum", "grid",
-        "survey", "refraction_groups", "reduction"];
+        "survey", "refraction_groups", "reduction", "checks", "standards"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -45,6 +45,11 @@ public static partial class ProjectReader
         string text = ReadText(resolver, full, path, "the project file");
         return Parse(text, path, Path.GetDirectoryName(full)!, resolver);
     }
+
+    private static SurveyProject Parse(string text, string displayName, string baseDirectory,
+        InputFileResolver resolver, bool planned) =>
+        Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
+            (full, rel) => ReadText(resolver, full, rel, "the observation file"), planned);
 
     /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref
     /// name="resolver"/>.</summary>
@@ -87,9 +92,9 @@ public static partial class ProjectReader
 
     private static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
         string> resolve,
-        Func<string, string, string> readFile)
+        Func<string, string, string> readFile, bool planned = false)
     {
-        var ctx = new Context(displayName);
+        var ctx = new Context(displayName) { Planned = planned };
         YamlMappingNode root;
         try
         {
@@ -174,14 +179,18 @@ public static partial class ProjectReader
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var network = new SurveyNetwork(name, points, observations);
+        if (planned) network = AtDesign(network);
         StatisticsSection.CheckPairs(root, displayName, network);
         var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
+        var (checks, standards, pairs) = ReadChecksAndStandards(ctx, root, network);
+        options = options with { Analysis = options.Analysis with { RelativePairs = pairs(options.Analysis) } };
         return new SurveyProject(network, units, options, inputs)
         {
             Crs = crs, Grid = grid,
             Warnings = [.. ProjectWarnings.Find(network, listedTwice), .. RoundsWarnings(specs.Rounds, units)],
             Rounds = specs.Rounds,
-            Particulars = ReadParticulars(ctx, root),
+            Particulars = ReadParticulars(ctx, root), Checks = checks, Standards = standards,
+            Instruments = [.. specs.Instruments.Values],
         };
     }
 
@@ -398,7 +407,8 @@ public static partial class ProjectReader
         string to = RequiredId(ctx, m, "to", $"a {kind.Name()} in the {setupItem}");
         string item = $"{kind.Name().Replace('_', ' ')} to {to} in the {setupItem}";
         ctx.CheckKeys(m, [.. keys, .. ObservationMarks.Keys], item);
-        string value = ctx.RequiredString(m, "value", item);
+        string value = ctx.Planned && ctx.Child(m, "value") is null ? PlannedValue(kind, units)
+            : ctx.RequiredString(m, "value", item);
         var target = TargetOf(ctx, m, item, specs);
         if (target is not null && spec.Instrument is null)
             throw ctx.Error(m, item,
@@ -423,7 +433,8 @@ public static partial class ProjectReader
         string to = RequiredId(ctx, m, "to", "a levelling section");
         string item = $"height difference {from}→{to}";
         ctx.CheckKeys(m, [.. Keys(ObservationKind.HeightDifference), .. ObservationMarks.Keys], item);
-        var dh = ctx.ParseLength(node, lengths, ctx.RequiredString(m, "dh", item), item);
+        var dh = ctx.ParseLength(node, lengths, ctx.Planned && ctx.Child(m, "dh") is null
+            ? PlannedValue(ObservationKind.HeightDifference, units) : ctx.RequiredString(m, "dh", item), item);
         Length? len = null;
         if (ctx.Child(m, "length") is YamlNode ln)
         {
@@ -448,6 +459,9 @@ public static partial class ProjectReader
     private sealed class Context(string file)
     {
         public string File { get; } = file;
+
+        /// <summary>True when reading a plan: observations may leave out their values.</summary>
+        public bool Planned { get; init; }
 
         public ProjectFileException Error(YamlNode node, string item, string problem) =>
             new(File, Line(node), item, problem);

@@ -32,4 +32,14 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>The rounds of the setups that book them (key <c>setups[].rounds</c>), reduced before the
     /// adjustment; empty when there are none.</summary>
     public IReadOnlyList<SetupRounds> Rounds { get; init; } = [];
+
+    /// <summary>The options of the checks before the adjustment (key <c>checks</c>).</summary>
+    public Misclosures.MisclosureOptions Checks { get; init; } = Misclosures.MisclosureOptions.Default;
+
+    /// <summary>The accuracy standards to apply (key <c>standards</c>), in the order given; empty for none.</summary>
+    public IReadOnlyList<Standards.AccuracyStandard> Standards { get; init; } = [];
+
+    /// <summary>The total stations the project specifies (key <c>instruments</c>), in file order; the candidates of
+    /// a procedure recommendation.</summary>
+    public IReadOnlyList<TotalStationSpecification> Instruments { get; init; } = [];
 }

@@ -121,6 +121,8 @@ public static class JsonResultWriter
             VarianceComponents = c.Components is VarianceComponentEstimate vc ? Components(vc) : null,
             Rounds = RoundsReport.Json(c),
             Grid = GridReport.Json(r, c),
+            Misclosures = ResultJson.Misclosures.Of(c.Misclosures),
+            Standards = ResultJson.Standards.Of(c.Standards),
         };
     }
 

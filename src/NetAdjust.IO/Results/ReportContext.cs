@@ -52,4 +52,11 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
 
     /// <summary>The variance component estimation run beside the result, when one was run.</summary>
     public VarianceComponentEstimate? Components { get; init; }
+
+    /// <summary>The checks before the adjustment (level closures, traverses), when run; reported when they found
+    /// something.</summary>
+    public Misclosures.MisclosureReport? Misclosures { get; init; }
+
+    /// <summary>The accuracy standards applied to the result, when any were.</summary>
+    public Standards.StandardsReport? Standards { get; init; }
 }

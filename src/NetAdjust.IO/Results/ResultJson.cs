@@ -9,7 +9,7 @@ namespace NetAdjust.IO.Results;
 /// property is written as <c>null</c> unless it is marked to be left out when null (the optional keys). Arrays are
 /// sequences, enumerated while the document is written, so no row list is built beside the report model.
 /// </summary>
-internal static class ResultJson
+internal static partial class ResultJson
 {
     /// <summary>The survey's particulars (key <c>survey</c>; items not given are null).</summary>
     internal sealed record Particulars(string? Client, string? Site, string? Reference, string? Surveyor, string? Firm,
@@ -60,6 +60,12 @@ internal static class ResultJson
 
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
         public Grid? Grid { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public Misclosures? Misclosures { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public Standards? Standards { get; init; }
     }
 
     /// <summary>The reduction of the rounds of one setup (angles in deg, small angles in arcsec, lengths in m).

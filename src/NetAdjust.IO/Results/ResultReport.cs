@@ -23,7 +23,7 @@ public sealed class ResultReport
             result.Points.Select(p => PointRow.Of(result, p, Basis)).ToList());
         Observations = new ReportTable<ObservationRow>(ObservationRow.Columns, ObservationRow.Of(result, W));
         Sections = [.. StatisticsReport.Build(result, context), .. RoundsReport.Sections(context),
-            .. GridReport.Build(result, context)];
+            .. GridReport.Build(result, context), .. CheckSections.Build(context, result.Network)];
     }
 
     /// <summary>Builds the model.</summary>
