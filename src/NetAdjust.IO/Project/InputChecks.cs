@@ -39,6 +39,9 @@ internal static class InputChecks
                 throw Error(o, file, problem);
             if (!o.Kind.IsAngular() && !(Math.Abs(o.Value) <= InputLimits.MaxCoordinate))
                 throw Error(o, file, $"the value {G(o.Value)} m is beyond the limit of ±1e8 m for lengths");
+            if (o is DistanceObservation or SlopeDistanceObservation && !(o.Value >= InputLimits.MinMeasuredLength))
+                throw Error(o, file, $"the distance {G(o.Value)} m is shorter than the limit of 1 mm for a " +
+                    "measured distance (docs/input-format.md, \"Limits\")");
             if (o is HeightDifferenceObservation { LineLength: { } len } && !(len.Metres <= InputLimits.MaxCoordinate))
                 throw Error(o, file, $"the section length {G(len.Metres)} m is beyond the limit of 1e8 m");
         }

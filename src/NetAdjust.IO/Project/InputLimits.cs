@@ -27,6 +27,10 @@ public static class InputLimits
     /// <summary>Largest magnitude of a coordinate, a height or a measured length: 1e8 m (100,000 km).</summary>
     public const double MaxCoordinate = 1e8;
 
+    /// <summary>Shortest measured distance (horizontal or slope): 1 mm. Centering errors divided by a shorter sight
+    /// would give an angular standard deviation beyond any limit.</summary>
+    public const double MinMeasuredLength = 1e-3;
+
     /// <summary>Number of characters of the input quoted in a message at most.</summary>
     public const int ExcerptLength = 40;
 
