@@ -75,6 +75,10 @@ internal static class AdjustCommand
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction,
                 Warnings = project.Warnings,
                 Particulars = project.Particulars, Rounds = project.Rounds,
+                PlaneHeight = project.Network.Observations.Any(o => o is NetAdjust.Network.ZenithObservation
+                        or NetAdjust.Network.SlopeDistanceObservation)
+                    ? project.PlaneHeight : null,
+                PlaneHeightBasis = project.PlaneHeightBasis,
             };
             Action<TextWriter> text;
             AdjustmentResult result;
