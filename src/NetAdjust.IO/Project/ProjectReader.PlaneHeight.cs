@@ -29,7 +29,8 @@ public static partial class ProjectReader
             const string item = "adjustment.plane_height";
             double h = Length.From(ctx.Number(n, item), units.Length).Metres;
             if (!(Math.Abs(h) <= PlaneHeightLimit))
-                throw ctx.Error(n, item, $"the reference height {h.ToString("0.###", CultureInfo.InvariantCulture)} m " +
+                throw ctx.Error(n, item,
+                    $"the reference height {h.ToString("0.###", CultureInfo.InvariantCulture)} m " +
                     "of the plane coordinates is outside −10 000 … 10 000 m");
             return (h, PlaneHeightBasis.Stated);
         }

@@ -26,14 +26,15 @@ public readonly record struct Sighting(
 /// Slope distance and zenith angle over a spherical earth of radius R with a refracted line of sight (refraction
 /// coefficient k = R / radius of the line of sight), as pure functions with their partial derivatives by E, N and H
 /// of both points. The plane distance s between the marks is taken as the arc at the plane's reference height H0
-/// (<see cref="Sighting.PlaneHeight"/>), so the central angle is γ = s/(R + H0); the instrument and the target lie on the radii at r_A = R + H_A + i and r_B = R + H_B + t. In the plane
-/// of the two radii, the target seen from the instrument is u = r_B sin γ across and v = r_B cos γ − r_A along the
-/// instrument's vertical; the chord is D = √(u² + v²) and the geometric zenith angle is atan2(u, v). The line of
-/// sight, an arc of radius R/k, leaves the instrument tilted up by the refraction angle δ = k·γ/2, so the observed
-/// zenith angle is z = atan2(u, v) − k·γ/2. The EDM's path along the curved ray is longer than the chord by
-/// k²D³/(24R²) (Rüeger, <i>Electronic Distance Measurement</i>, 4th ed. 1996, ch. 7, from memory): 0.3 nm at 1 km,
-/// neglected. To first order this gives ΔH = D cos z + (1 − k)·s²/(2R) + i − t, the textbook trigonometric
-/// height with the combined curvature-and-refraction correction (docs/methods.md).
+/// (<see cref="Sighting.PlaneHeight"/>), so the central angle is γ = s/(R + H0); the instrument and the target lie on
+/// the radii at r_A = R + H_A + i and r_B = R + H_B + t. In the plane of the two radii, the target seen from the
+/// instrument is u = r_B sin γ across and v = r_B cos γ − r_A along the instrument's vertical; the chord is
+/// D = √(u² + v²) and the geometric zenith angle is atan2(u, v). The line of sight, an arc of radius R/k, leaves the
+/// instrument tilted up by the refraction angle δ = k·γ/2, so the observed zenith angle is z = atan2(u, v) − k·γ/2.
+/// The EDM's path along the curved ray is longer than the chord by k²D³/(24R²) (Rüeger, <i>Electronic Distance
+/// Measurement</i>, 4th ed. 1996, ch. 7, from memory): 0.3 nm at 1 km, neglected. To first order this gives
+/// ΔH = D cos z + (1 − k)·s²/(2R) + i − t, the textbook trigonometric height with the combined curvature-and-refraction
+/// correction (docs/methods.md).
 /// </summary>
 public static class SpatialGeometry
 {
@@ -121,8 +122,8 @@ public static class SpatialGeometry
             byRb = ((v * sin) - (u * cos)) / d2;
             byRa = u / d2;
         }
-        // ∂γ/∂E_B = ΔE/(s (R + H0)), ∂γ/∂N_B = ΔN/(s (R + H0)); the station's are their negatives. A vertical sight (s = 0) has
-        // no plane direction: its plane derivatives are taken as zero.
+        // ∂γ/∂E_B = ΔE/(s (R + H0)), ∂γ/∂N_B = ΔN/(s (R + H0)); the station's are their negatives. A vertical sight
+        // (s = 0) has no plane direction: its plane derivatives are taken as zero.
         double ge = plane > 0 ? byG * de / (plane * rp) : 0.0, gn = plane > 0 ? byG * dn / (plane * rp) : 0.0;
         return new EquationValue(value,
         [

@@ -39,7 +39,8 @@ public sealed class ZenithKind : IObservationKind
     {
         var o = (ZenithObservation)observation;
         var (a, b) = (at.Plane(o.From), at.Plane(o.To));
-        // An estimated k is the group's unknown: its current value, and one more partial derivative, ∂z/∂k = −s/(2(R + H0)).
+        // An estimated k is the group's unknown: its current value, and one more partial derivative,
+        // ∂z/∂k = −s/(2(R + H0)).
         string? group = o.RefractionEstimated ? o.RefractionGroup : null;
         double k = group is null ? o.Refraction : at.Refraction(group, o.Refraction);
         var eq = SpatialGeometry.Zenith(new Sighting(o.From, a, at.Height(o.From), o.InstrumentHeight.Metres, o.To, b,
@@ -49,7 +50,8 @@ public sealed class ZenithKind : IObservationKind
         return eq with
         {
             Partials =
-                [.. eq.Partials, new Partial(group, Parameter.Refraction, SpatialGeometry.ZenithByRefraction(s, o.PlaneHeight.Metres))],
+                [.. eq.Partials, new Partial(group, Parameter.Refraction,
+                    SpatialGeometry.ZenithByRefraction(s, o.PlaneHeight.Metres))],
         };
     }
 
