@@ -76,6 +76,10 @@ internal static class AdjustCommand
                 Warnings = project.Warnings,
                 Particulars = project.Particulars, Rounds = project.Rounds,
                 Misclosures = NetAdjust.Misclosures.MisclosureCheck.Run(project.Network, project.Checks),
+                PlaneHeight = project.Network.Observations.Any(o => o is NetAdjust.Network.ZenithObservation
+                        or NetAdjust.Network.SlopeDistanceObservation)
+                    ? project.PlaneHeight : null,
+                PlaneHeightBasis = project.PlaneHeightBasis,
             };
             Action<TextWriter> text;
             AdjustmentResult result;

@@ -178,15 +178,17 @@ public static partial class ProjectReader
         InputChecks.Observations(observations, displayName);
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
+        var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
+        var (planeHeight, planeBasis) = ReadPlaneHeight(ctx, root, units, points, grid);
+        ApplyPlaneHeight(observations, planeHeight);
         var network = new SurveyNetwork(name, points, observations);
         if (planned) network = AtDesign(network);
         StatisticsSection.CheckPairs(root, displayName, network);
-        var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
         var (checks, standards, pairs) = ReadChecksAndStandards(ctx, root, network);
         options = options with { Analysis = options.Analysis with { RelativePairs = pairs(options.Analysis) } };
         return new SurveyProject(network, units, options, inputs)
         {
-            Crs = crs, Grid = grid,
+            Crs = crs, Grid = grid, PlaneHeight = planeHeight, PlaneHeightBasis = planeBasis,
             Warnings = [.. ProjectWarnings.Find(network, listedTwice), .. RoundsWarnings(specs.Rounds, units)],
             Rounds = specs.Rounds,
             Particulars = ReadParticulars(ctx, root), Checks = checks, Standards = standards,
@@ -230,7 +232,7 @@ public static partial class ProjectReader
         if (ctx.Child(root, "adjustment") is not YamlNode node) return o;
         var m = ctx.Mapping(node, "adjustment");
         ctx.CheckKeys(m, ["max_iterations", "tolerance", "alpha", "variance_factor", "centering",
-            "refraction", "refraction_sd"], "adjustment");
+            "refraction", "refraction_sd", "plane_height"], "adjustment");
         if (ctx.Child(m, "centering") is YamlNode cn)
         {
             o = o with { Centering = ctx.Choice(cn, "adjustment.centering", OptionGrammars.Centering) };

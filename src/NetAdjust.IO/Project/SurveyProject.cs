@@ -22,6 +22,14 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// are (docs/input-format.md, "Grid and ground").</summary>
     public Geodesy.GridSystem? Grid { get; init; }
 
+    /// <summary>The reference height H0 of the plane coordinates in metres: the height at which plane distances are
+    /// true horizontal distances (docs/methods.md, "Spatial model"); given to every slope distance and zenith angle.
+    /// </summary>
+    public double PlaneHeight { get; init; }
+
+    /// <summary>How <see cref="PlaneHeight"/> was chosen.</summary>
+    public PlaneHeightBasis PlaneHeightBasis { get; init; }
+
     /// <summary>The survey's particulars (key <c>survey</c>), or null when the project gives none.</summary>
     public SurveyParticulars? Particulars { get; init; }
 

@@ -56,8 +56,9 @@ public static class HtmlReportWriter
             $"{u.SmallAngleSymbol}");
         Dl(sb, "Datum", TextReportSections.DatumText(r));
         Dl(sb, "Coordinates",
-            GridReport.HeaderLine(c) ??
-            (c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}"));
+            (GridReport.HeaderLine(c) ??
+            (c.Crs is null ? "local plane grid (no coordinate reference system declared)" : $"grid of {c.Crs}"))
+            + PlaneHeightReport.Suffix(c));
         Dl(sb, "Solver", r.SolverName);
         if (c.Solution is string solution)
             Dl(sb, "Solution", $"the {solution} solution of the datum sequence (tables below the comparison)");

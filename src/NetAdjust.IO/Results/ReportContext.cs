@@ -20,6 +20,14 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// project declares no grid system.</summary>
     public GridReductionResult? Grid { get; init; }
 
+    /// <summary>The reference height H0 of the plane coordinates in metres (<see cref="SurveyProject.PlaneHeight"/>),
+    /// stated in the header's grid line; null when the report does not state it (no slope distances or zenith
+    /// angles).</summary>
+    public double? PlaneHeight { get; init; }
+
+    /// <summary>How <see cref="PlaneHeight"/> was chosen (<see cref="SurveyProject.PlaneHeightBasis"/>).</summary>
+    public PlaneHeightBasis PlaneHeightBasis { get; init; }
+
     /// <summary>Warnings about legal but suspicious data (<see cref="Project.SurveyProject.Warnings"/>); empty
     /// for none.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];

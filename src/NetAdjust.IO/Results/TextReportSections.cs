@@ -19,8 +19,9 @@ internal static class TextReportSections
     {
         Wrapped(sb, "Datum     : ", DatumText(r));
         Wrapped(sb, "Grid      : ",
-            GridReport.HeaderLine(c) ??
-            (c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs));
+            (GridReport.HeaderLine(c) ??
+            (c.Crs is null ? "local plane coordinates (no coordinate reference system declared)" : c.Crs))
+            + PlaneHeightReport.Suffix(c));
     }
 
     /// <summary>"held A (en), B (h); weighted C (en)" for the points that define the datum.</summary>

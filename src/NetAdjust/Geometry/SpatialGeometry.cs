@@ -14,20 +14,27 @@ namespace NetAdjust.Geometry;
 /// <param name="SignalHeight">Height of the sighted target (prism centre) above the target mark.</param>
 public readonly record struct Sighting(
     string StationId, PlanePoint Station, double StationHeight, double InstrumentHeight,
-    string TargetId, PlanePoint Target, double TargetHeight, double SignalHeight);
+    string TargetId, PlanePoint Target, double TargetHeight, double SignalHeight)
+{
+    /// <summary>The reference height H0 of the plane coordinates (metres, 0 by default): the height at which a
+    /// distance between plane coordinates is the true horizontal distance (docs/methods.md, "Spatial model").
+    /// </summary>
+    public double PlaneHeight { get; init; }
+}
 
 /// <summary>
 /// Slope distance and zenith angle over a spherical earth of radius R with a refracted line of sight (refraction
 /// coefficient k = R / radius of the line of sight), as pure functions with their partial derivatives by E, N and H
-/// of both points. The plane distance s between the marks is taken as the arc at height 0, so the central angle is
-/// γ = s/R; the instrument and the target lie on the radii at r_A = R + H_A + i and r_B = R + H_B + t. In the plane
-/// of the two radii, the target seen from the instrument is u = r_B sin γ across and v = r_B cos γ − r_A along the
-/// instrument's vertical; the chord is D = √(u² + v²) and the geometric zenith angle is atan2(u, v). The line of
-/// sight, an arc of radius R/k, leaves the instrument tilted up by the refraction angle δ = k·γ/2, so the observed
-/// zenith angle is z = atan2(u, v) − k·s/(2R). The EDM's path along the curved ray is longer than the chord by
-/// k²D³/(24R²) (Rüeger, <i>Electronic Distance Measurement</i>, 4th ed. 1996, ch. 7, from memory): 0.3 nm at 1 km,
-/// neglected. To first order this gives ΔH = D cos z + (1 − k)·s²/(2R) + i − t, the textbook trigonometric
-/// height with the combined curvature-and-refraction correction (docs/methods.md).
+/// of both points. The plane distance s between the marks is taken as the arc at the plane's reference height H0
+/// (<see cref="Sighting.PlaneHeight"/>), so the central angle is γ = s/(R + H0); the instrument and the target lie on
+/// the radii at r_A = R + H_A + i and r_B = R + H_B + t. In the plane of the two radii, the target seen from the
+/// instrument is u = r_B sin γ across and v = r_B cos γ − r_A along the instrument's vertical; the chord is
+/// D = √(u² + v²) and the geometric zenith angle is atan2(u, v). The line of sight, an arc of radius R/k, leaves the
+/// instrument tilted up by the refraction angle δ = k·γ/2, so the observed zenith angle is z = atan2(u, v) − k·γ/2.
+/// The EDM's path along the curved ray is longer than the chord by k²D³/(24R²) (Rüeger, <i>Electronic Distance
+/// Measurement</i>, 4th ed. 1996, ch. 7, from memory): 0.3 nm at 1 km, neglected. To first order this gives
+/// ΔH = D cos z + (1 − k)·s²/(2R) + i − t, the textbook trigonometric height with the combined curvature-and-refraction
+/// correction (docs/methods.md).
 /// </summary>
 public static class SpatialGeometry
 {
@@ -76,12 +83,21 @@ public static class SpatialGeometry
     /// <param name="planeDistance">s, metres.</param>
     public static double ZenithByRefraction(double planeDistance) => -planeDistance / (2 * EarthRadius);
 
+    /// <summary>
+    /// ∂z/∂k = −γ/2 = −s/(2(R + H0)) for a sight of plane length s on plane coordinates of reference height H0.
+    /// </summary>
+    /// <param name="planeDistance">s, metres.</param>
+    /// <param name="planeHeight">H0, metres (<see cref="Sighting.PlaneHeight"/>).</param>
+    public static double ZenithByRefraction(double planeDistance, double planeHeight) =>
+        -planeDistance / (2 * (EarthRadius + planeHeight));
+
     private static EquationValue Evaluate(Sighting s, double k, bool slope)
     {
         const double R = EarthRadius;
+        double rp = R + s.PlaneHeight; // the radius of the plane's sphere: plane distances are arcs on it
         double de = s.Target.E - s.Station.E, dn = s.Target.N - s.Station.N;
         double plane = Math.Sqrt((de * de) + (dn * dn));
-        double g = plane / R;
+        double g = plane / rp;
         double ra = R + s.StationHeight + s.InstrumentHeight, rb = R + s.TargetHeight + s.SignalHeight;
         double sin = Math.Sin(g), cos = Math.Cos(g);
         // v = r_B cos γ − r_A written without the cancellation of two earth radii: (r_B − r_A) − 2 r_B sin²(γ/2).
@@ -106,9 +122,9 @@ public static class SpatialGeometry
             byRb = ((v * sin) - (u * cos)) / d2;
             byRa = u / d2;
         }
-        // ∂γ/∂E_B = ΔE/(s R), ∂γ/∂N_B = ΔN/(s R); the station's are their negatives. A vertical sight (s = 0) has
-        // no plane direction: its plane derivatives are taken as zero.
-        double ge = plane > 0 ? byG * de / (plane * R) : 0.0, gn = plane > 0 ? byG * dn / (plane * R) : 0.0;
+        // ∂γ/∂E_B = ΔE/(s (R + H0)), ∂γ/∂N_B = ΔN/(s (R + H0)); the station's are their negatives. A vertical sight
+        // (s = 0) has no plane direction: its plane derivatives are taken as zero.
+        double ge = plane > 0 ? byG * de / (plane * rp) : 0.0, gn = plane > 0 ? byG * dn / (plane * rp) : 0.0;
         return new EquationValue(value,
         [
             new(s.StationId, Parameter.E, -ge), new(s.StationId, Parameter.N, -gn), new(s.StationId, Parameter.H, byRa),

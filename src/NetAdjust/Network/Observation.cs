@@ -352,6 +352,16 @@ public sealed record SlopeDistanceObservation(
         init => field = Guards.FiniteLength(value, nameof(TargetHeight), "a target height");
     } = Guards.FiniteLength(TargetHeight, nameof(TargetHeight), "a target height");
 
+    /// <summary>The reference height H0 of the plane coordinates: the height at which a distance between plane
+    /// coordinates is the true horizontal distance (docs/methods.md, "Spatial model"); zero by default (the plane at
+    /// the height datum). The project reader sets it for the whole project.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">On init, when H0 is not finite.</exception>
+    public Length PlaneHeight
+    {
+        get;
+        init => field = Guards.FiniteLength(value, nameof(PlaneHeight), "a plane reference height");
+    }
+
     /// <inheritdoc />
     public override double Value => Distance.Metres;
 
@@ -395,6 +405,16 @@ public sealed record ZenithObservation(
         get;
         init => field = Guards.FiniteLength(value, nameof(TargetHeight), "a target height");
     } = Guards.FiniteLength(TargetHeight, nameof(TargetHeight), "a target height");
+
+    /// <summary>The reference height H0 of the plane coordinates: the height at which a distance between plane
+    /// coordinates is the true horizontal distance (docs/methods.md, "Spatial model"); zero by default (the plane at
+    /// the height datum). The project reader sets it for the whole project.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">On init, when H0 is not finite.</exception>
+    public Length PlaneHeight
+    {
+        get;
+        init => field = Guards.FiniteLength(value, nameof(PlaneHeight), "a plane reference height");
+    }
 
     /// <inheritdoc />
     public override double Value => Zenith.Radians;

@@ -39,7 +39,10 @@ public sealed class SlopeDistanceKind : IObservationKind
     {
         var o = (SlopeDistanceObservation)observation;
         return SpatialGeometry.SlopeDistance(new Sighting(o.From, at.Plane(o.From), at.Height(o.From),
-            o.InstrumentHeight.Metres, o.To, at.Plane(o.To), at.Height(o.To), o.TargetHeight.Metres));
+            o.InstrumentHeight.Metres, o.To, at.Plane(o.To), at.Height(o.To), o.TargetHeight.Metres)
+        {
+            PlaneHeight = o.PlaneHeight.Metres,
+        });
     }
 
     /// <inheritdoc />

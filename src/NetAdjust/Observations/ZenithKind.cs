@@ -39,17 +39,19 @@ public sealed class ZenithKind : IObservationKind
     {
         var o = (ZenithObservation)observation;
         var (a, b) = (at.Plane(o.From), at.Plane(o.To));
-        // An estimated k is the group's unknown: its current value, and one more partial derivative, ∂z/∂k = −s/(2R).
+        // An estimated k is the group's unknown: its current value, and one more partial derivative,
+        // ∂z/∂k = −s/(2(R + H0)).
         string? group = o.RefractionEstimated ? o.RefractionGroup : null;
         double k = group is null ? o.Refraction : at.Refraction(group, o.Refraction);
         var eq = SpatialGeometry.Zenith(new Sighting(o.From, a, at.Height(o.From), o.InstrumentHeight.Metres, o.To, b,
-            at.Height(o.To), o.TargetHeight.Metres), k);
+            at.Height(o.To), o.TargetHeight.Metres) { PlaneHeight = o.PlaneHeight.Metres }, k);
         if (group is null) return eq;
         double s = Math.Sqrt(((b.E - a.E) * (b.E - a.E)) + ((b.N - a.N) * (b.N - a.N)));
         return eq with
         {
             Partials =
-                [.. eq.Partials, new Partial(group, Parameter.Refraction, SpatialGeometry.ZenithByRefraction(s))],
+                [.. eq.Partials, new Partial(group, Parameter.Refraction,
+                    SpatialGeometry.ZenithByRefraction(s, o.PlaneHeight.Metres))],
         };
     }
 

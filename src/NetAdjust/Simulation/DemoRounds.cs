@@ -67,6 +67,9 @@ internal static class CorvanFell
                 ? new Point(id) { E = e, N = n, H = t.H, Fixed = Fixity.H }
                 : new Point(id) { E = e, N = n, H = Math.Round(t.H + uniform(-0.3, 0.3), 1) });
         }
+        // The plane coordinates' reference height as the reader takes it for a project without adjustment.plane_height
+        // or grid: the mean of the given heights (docs/methods.md, "Spatial model").
+        double planeHeight = points.Where(p => p.H is not null).Average(p => p.H!.Value);
         const double collimation = 6 * Arcsecond, index = -9 * Arcsecond;
         double face = IsoSd * Math.Sqrt(2);
         var rounds = new List<DemoRoundsSetup>();
@@ -86,7 +89,10 @@ internal static class CorvanFell
                 if (t == "RM") { sight[t] = (az, double.NaN, double.NaN); continue; }
                 double th = Math.Round(uniform(1.55, 1.80), 3);
                 heights[t] = th;
-                var s = new Sighting(st, station, truth[st].H, hiTrue, t, target, truth[t].H, th + gauss(HeightSd));
+                var s = new Sighting(st, station, truth[st].H, hiTrue, t, target, truth[t].H, th + gauss(HeightSd))
+                {
+                    PlaneHeight = planeHeight,
+                };
                 double d = SpatialGeometry.SlopeDistance(s).Value;
                 double edm = gauss(Math.Sqrt((0.001 * 0.001) + (1.5e-6 * d * 1.5e-6 * d)));
                 sight[t] = (az, SpatialGeometry.Zenith(s, Refraction).Value, d + edm);

@@ -13,8 +13,8 @@ namespace NetAdjust.Stochastic;
 /// σ_h/s for a horizontal sight and less for an inclined one; the budget takes σ_h/s (common practice, the safe
 /// side), the heights' standard deviations from the instrument and target specifications;</item>
 /// <item>refraction: an error σ_k in the assumed refraction coefficient moves the zenith angle by σ_k·s/(2R)
-/// (∂z/∂k = −s/(2R), <see cref="Geometry.SpatialGeometry.ZenithByRefraction"/>), and a height difference reduced
-/// from it by σ_k·s²/(2R), the error of the curvature-and-refraction correction (1 − k)s²/(2R).</item>
+/// (∂z/∂k = −s/(2R), <see cref="Geometry.SpatialGeometry.ZenithByRefraction(double)"/>), and a height difference
+/// reduced from it by σ_k·s²/(2R), the error of the curvature-and-refraction correction (1 − k)s²/(2R).</item>
 /// </list>
 /// Centering moves a zenith angle only through the change of the horizontal distance, second order for a
 /// near-horizontal sight; it is not counted here (the correlated centering model, which uses the equation's partial

@@ -88,7 +88,17 @@ public class SpatialGeometryTests
     [MemberData(nameof(Geometries))]
     public void PartialDerivativesAgreeWithCentralFiniteDifferences(double s, double hA, double hB, double k)
     {
-        var sight = Sight(s, hA, hB, 1.55, 1.7);
+        // At the height datum and with plane coordinates at a reference height H0 of 2500 m (γ = s/(R + H0)).
+        foreach (double planeHeight in new[] { 0.0, 2500.0 })
+            CheckPartials(Sight(s, hA, hB, 1.55, 1.7) with { PlaneHeight = planeHeight }, s, k);
+    }
+
+    private static void CheckPartials(Sighting sight, double s, double k)
+    {
+        // ∂z/∂k = −s/(2(R + H0)), the refraction unknown's column, against a central difference in k.
+        double byK = (SpatialGeometry.Zenith(sight, k + 1e-3).Value - SpatialGeometry.Zenith(sight, k - 1e-3).Value)
+            / 2e-3;
+        Assert.Equal(byK, SpatialGeometry.ZenithByRefraction(s, sight.PlaneHeight), 1e-12);
         foreach (bool slope in new[] { true, false })
         {
             double F(Sighting x) => slope ? SpatialGeometry.SlopeDistance(x).Value : SpatialGeometry.Zenith(x, k).Value;

@@ -62,7 +62,8 @@ internal static class ApproximationOffers
                 rise = s * cot;
             }
             else continue;
-            yield return (z.From, z.To, rise + SpatialGeometry.CurvatureAndRefraction(s, z.Refraction)
+            yield return (z.From, z.To, rise + SpatialGeometry.CurvatureAndRefraction(s, z.Refraction,
+                SpatialGeometry.EarthRadius + z.PlaneHeight.Metres)
                 + z.InstrumentHeight.Metres - z.TargetHeight.Metres);
         }
     }
