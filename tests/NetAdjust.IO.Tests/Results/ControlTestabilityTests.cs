@@ -4,6 +4,7 @@ using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.IO.Tests.Results;
 
@@ -64,8 +65,8 @@ public sealed class ControlTestabilityTests
         string text = SequenceReportWriter.Write(s, c);
         Assert.Matches(@"\n  RM5          E      0\.\d\d  NO       RM5 N\n", text);
         Assert.Matches(@"\n  HV01         E      0\.\d\d  yes\s*\n", text);
-        // the minimal step holds RM5 (a reference object): the report says that its error shows on the other marks
-        Assert.Contains("Step 1 holds the reference object(s) RM5 (one sight line each)", text);
+        // the minimal step does not rest on RM5 (a reference object): it is held along its sight line only
+        Assert.Contains("Step 1 holds the reference object(s) RM5 along their sight line only", text);
         using var json = JsonDocument.Parse(SequenceJsonWriter.Write(s, c));
         var entry = json.RootElement.GetProperty("control_testability").EnumerateArray()
             .Single(x => x.GetProperty("id").GetString() == "RM5" && x.GetProperty("component").GetString() == "N");
@@ -176,5 +177,58 @@ public sealed class ControlTestabilityTests
             Assert.Equal(3, x.CannotBeToldApartFrom.Count);
         }
         Assert.Equal(1.0, s.Testability.Sum(x => x.Redundancy!.Value), 9);
+    }
+
+    [Fact]
+    public void AMovedReferenceMarkIsReportedNotTestableNotBlamedOnAnotherMark()
+    {
+        // The case of the issue: a reference mark given 5.7 cm off its true place across its only sight line. HV03
+        // (disturbed in the demo) is set free here, so RM5 is the only wrong control mark.
+        string text = File.ReadAllText(Path.Combine(TestProjects.RepoRoot, "data", "harrowgate-control.yaml"))
+            .Replace("  - {id: HV03, e: 5655.330, n: 8590.760, fix: en}", "  - {id: HV03, e: 5655.330, n: 8590.760}",
+                StringComparison.Ordinal)
+            .Replace("  - {id: T1}", ReferenceMark + "\n  - {id: T1}", StringComparison.Ordinal)
+            .Replace("setups:\n", "setups:\n" + OneLine, StringComparison.Ordinal);
+        Assert.DoesNotContain("HV03, e: 5655.330, n: 8590.760, fix", text, StringComparison.Ordinal);
+        var project = ProjectReader.Parse(text, "harrowgate-rm.yaml", TestProjects.RepoRoot,
+            _ => throw new IOException("no files"));
+        var s = AdjustmentSequence.Run(project.Network, project.Options);
+        Assert.False(s.Test.Passed); // the control as a whole does not fit (Koch 1999, §4.3)
+        double critical = s.Minimal.Analysis.WCritical;
+        // No other mark's discrepancy fails the w-test (Baarda 1968): the error is not passed on to them.
+        Assert.All(s.Discrepancies.Where(d => d.Id != "RM5"), d => Assert.False(d.MaxAbsW > critical,
+            $"{d.Id}: |w| = {d.MaxAbsW}"));
+        // RM5's own discrepancy carries the error across its line, 5.7 cm within 3 sd (common practice: one
+        // direction fixes the coordinate of a point across the line).
+        var rm = Assert.Single(s.Discrepancies, d => d.Id == "RM5");
+        double az = 300 * Math.PI / 180;
+        double across = (rm.DE!.Value * Math.Cos(az)) - (rm.DN!.Value * Math.Sin(az));
+        double sd = Math.Max(rm.SdE!.Value, rm.SdN!.Value);
+        Assert.InRange(Math.Abs(across), 0.057 - (3 * sd), 0.057 + (3 * sd));
+        // ... and RM5 is reported not testable, with the components it cannot be told apart from.
+        var e = Assert.Single(s.Testability, x => x.Id == "RM5" && x.Component == Parameter.E);
+        var n = Assert.Single(s.Testability, x => x.Id == "RM5" && x.Component == Parameter.N);
+        Assert.False(e.Testable!.Value);
+        Assert.False(n.Testable!.Value);
+        Assert.Equal(["RM5 N"], e.CannotBeToldApartFrom);
+        Assert.Equal(["RM5 E"], n.CannotBeToldApartFrom);
+
+        var c = new ReportContext("harrowgate-rm.yaml", TestProjects.RunDate, ProjectUnits.Default);
+        string report = SequenceReportWriter.Write(s, c);
+        Assert.Matches(@"\n  RM5 .* not testable \(E, N\)\n", report);
+        Assert.DoesNotMatch(@"\n  RM5 .*<- largest", report);
+        using var json = JsonDocument.Parse(SequenceJsonWriter.Write(s, c));
+        var verdicts = json.RootElement.GetProperty("control_discrepancies").EnumerateArray()
+            .ToDictionary(x => x.GetProperty("id").GetString()!, x => x.GetProperty("verdict").GetString());
+        Assert.Equal("not testable", verdicts["RM5"]);
+        Assert.All(verdicts.Where(v => v.Key != "RM5"), v => Assert.Equal("passes", v.Value));
+        string html = HtmlReportWriter.Write(ResultReport.Build(s, c, minimal: false));
+        int at = html.IndexOf("<section id=\"sequence-discrepancies\"", StringComparison.Ordinal);
+        Assert.True(at >= 0);
+        string table = html[at..html.IndexOf("</section>", at, StringComparison.Ordinal)];
+        Assert.DoesNotContain("<tr class=\"fail\">", table);
+        Assert.Matches(
+            "<tr class=\"warn\">(?:(?!</tr>).)*<td class=\"id\">RM5</td>(?:(?!</tr>).)*not testable \\(E, N\\)",
+            table);
     }
 }
