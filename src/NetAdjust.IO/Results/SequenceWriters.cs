@@ -227,8 +227,9 @@ internal static class SequenceSections
                     : [])
         {
             MarkNote = $"Rows marked ✗ have a standardised discrepancy |w| above {F(critical, 2)}, " +
-                       "the critical value of the w-test; rows marked ! have components the observations cannot " +
-                       "test (see the control testability), which get no verdict.",
+                       "the critical value of the w-test." + (s.Testability.Any(x => x.Testable == false)
+                           ? " Rows marked ! have components the observations cannot test (see the control " +
+                             "testability), which get no verdict." : ""),
         });
 
         var testability = s.Testability;

@@ -73,12 +73,12 @@ internal sealed partial class DatumPlan
             {
                 var candidates = planePoints.Where(id => id != p0).ToList();
                 var control = candidates.Where(IsPlaneControl).ToList();
-                // Prefer control marks the observations place (they have redundancy), then any placed point: a
-                // reference object held as the second datum point would turn the network with its error.
+                // Prefer control marks the observations place: a reference object held as the second datum point
+                // turns the network with its error. With no such mark, a reference object must carry the rotation
+                // (held in full below; the sequence report says so).
                 var placedControl = control.Where(id => IsPlaced(links, id)).ToList();
                 if (minimal && placedControl.Count > 0) candidates = placedControl;
-                else if (minimal && control.Count > 0 && !candidates.Any(id => IsPlaced(links, id)))
-                    candidates = control;
+                else if (minimal && control.Count > 0) candidates = control;
                 // Prefer points the observations place; among those, the farthest.
                 p1 = candidates.OrderByDescending(id => IsPlaced(links, id)).ThenByDescending(id => Sq(e0[id] -
                     e0[p0]) + Sq(n0[id] - n0[p0])).First();
