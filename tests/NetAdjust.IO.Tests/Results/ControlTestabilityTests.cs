@@ -231,4 +231,33 @@ public sealed class ControlTestabilityTests
             "<tr class=\"warn\">(?:(?!</tr>).)*<td class=\"id\">RM5</td>(?:(?!</tr>).)*not testable \\(E, N\\)",
             table);
     }
+
+    [Fact]
+    public void HoldingAReferenceMarkAlongItsLineLeavesTheRestOfStep1AsWithoutIt()
+    {
+        // In step 1 the one direction to RM5 has redundancy zero (it fixes RM5 across the line and nothing else), so
+        // the other points' coordinates, their standard deviations and vᵀPv are those of the network without RM5
+        // (common practice: an observation with redundancy zero changes no other estimate). This checks the datum
+        // with RM5 held along its line (its null-space columns) against a plain run of the demo.
+        var with = Run(ReferenceMark, OneLine);
+        string text = File.ReadAllText(Path.Combine(TestProjects.RepoRoot, "data", "harrowgate-control.yaml"));
+        var plain = ProjectReader.Parse(text, "harrowgate.yaml", TestProjects.RepoRoot,
+            _ => throw new IOException("no files"));
+        var without = AdjustmentSequence.Run(plain.Network, plain.Options);
+        Assert.Equal(without.MinimalDatum, with.MinimalDatum);
+        Assert.Equal(without.Minimal.Statistics.Vtpv, with.Minimal.Statistics.Vtpv, 6);
+        Assert.Equal(without.Minimal.Statistics.DegreesOfFreedom, with.Minimal.Statistics.DegreesOfFreedom);
+        foreach (var p in without.Minimal.Points)
+        {
+            var q = Assert.Single(with.Minimal.Points, x => x.Id == p.Id);
+            Assert.Equal(p.E!.Value, q.E!.Value, 6);
+            Assert.Equal(p.N!.Value, q.N!.Value, 6);
+            Assert.Equal(p.SdE!.Value, q.SdE!.Value, 7);
+            Assert.Equal(p.SdN!.Value, q.SdN!.Value, 7);
+        }
+        // RM5 itself: its easting (closer to the line's direction, azimuth 300°) is held, its northing estimated.
+        var rm = Assert.Single(with.Minimal.Points, x => x.Id == "RM5");
+        Assert.Equal(NetAdjust.Network.Fixity.E, rm.Input.Fixed);
+        Assert.True(rm.SdN > 0);
+    }
 }
