@@ -260,4 +260,33 @@ public sealed class ControlTestabilityTests
         Assert.Equal(NetAdjust.Network.Fixity.E, rm.Input.Fixed);
         Assert.True(rm.SdN > 0);
     }
+
+    [Fact]
+    public void TheFreeCoordinateOfAReferenceMarkHasTheVarianceOfItsSightLine()
+    {
+        // RM5's easting held, its northing N = N_T1 + (E_RM5 − E_T1) / tan(az), az = o + reading, o the orientation of
+        // its set: by propagation of variance (common practice) σ²(N) = σ0² J Q Jᵀ over (E_T1, N_T1, o), Q their
+        // cofactor in step 1, plus the reading's own variance. Checks the datum's null-space columns at the mark
+        // (without their completion along the line the result is 3.36 mm instead of 3.31 mm).
+        var s = Run(ReferenceMark, OneLine);
+        var m = s.Minimal;
+        var t1 = Assert.Single(m.Points, x => x.Id == "T1");
+        var rm = Assert.Single(m.Points, x => x.Id == "RM5");
+        double dE = rm.E!.Value - t1.E!.Value;
+        double az = Math.Atan2(dE, rm.N!.Value - t1.N!.Value);
+        // the set of the sight line: its orientation plus the reading (300°) is the line's azimuth
+        var set = Assert.Single(m.Orientations, o => o.Station == "T1" &&
+            Math.Abs(Math.IEEERemainder(o.Orientation + (300 * Math.PI / 180) - az, 2 * Math.PI)) < 1e-4);
+        double[] j = [-1 / Math.Tan(az), 1, -dE / (Math.Sin(az) * Math.Sin(az))];
+        int[] k = [m.Unknowns.IndexOf("T1", Parameter.E), m.Unknowns.IndexOf("T1", Parameter.N),
+            m.Unknowns.IndexOf(set.SetId, Parameter.Orientation)];
+        Assert.DoesNotContain(-1, k);
+        double q = 0;
+        for (int a = 0; a < 3; a++)
+            for (int b = 0; b < 3; b++) q += j[a] * m.Cofactor(k[a], k[b]) * j[b];
+        // ... plus the reading itself (redundancy zero), which enters as the orientation does
+        var line = Assert.Single(m.Observations, o => o.Input.Points.Contains("RM5"));
+        q += j[2] * j[2] * line.Input.StandardDeviation * line.Input.StandardDeviation;
+        Assert.Equal(Math.Sqrt(m.Options.AprioriVarianceFactor * q), rm.SdN!.Value, 6);
+    }
 }
