@@ -207,7 +207,8 @@ internal static partial class ResultJson
 
     internal sealed record Discrepancy(string Id, double? De, double? Dn, double? Dh, double? SdDe, double? SdDn,
         double? SdDh, [property: JsonPropertyName("w_e")] double? WE, [property: JsonPropertyName("w_n")] double? WN,
-        [property: JsonPropertyName("w_h")] double? WH, double? MaxAbsW);
+        [property: JsonPropertyName("w_h")] double? WH, double? MaxAbsW, string? Verdict,
+        IEnumerable<string> NotTestable);
 
     internal sealed record Shift(string Id, double? De, double? Dn, double? Dh, double? Horizontal);
 }

@@ -4,6 +4,7 @@ using NetAdjust.Statistics;
 using NetAdjust.Procedures;
 using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
+using NetAdjust.Network;
 using NetAdjust.Units;
 
 namespace NetAdjust.IO.Results;
@@ -39,7 +40,8 @@ public static class SequenceJsonWriter
                 new(JsonResultWriter.Finite(t.F), JsonResultWriter.Finite(t.FCritical), t.PassedF),
                 t.SigmaEstimated ? "f" : "chi_square", t.Passed),
             s.Discrepancies.Select(d => new ResultJson.Discrepancy(d.Id, F(d.DE), F(d.DN), F(d.DH), F(d.SdE), F(d.SdN),
-                F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW))),
+                F(d.SdH), F(d.WE), F(d.WN), F(d.WH), F(d.MaxAbsW),
+                DiscrepancyVerdict.Of(s, d, s.Minimal.Analysis.WCritical), DiscrepancyVerdict.NotTestable(s, d))),
             s.Shifts.Select(c => new ResultJson.Shift(c.Id, F(c.DE), F(c.DN), F(c.DH), F(c.Horizontal))),
             s.Testability.Select(x => new ResultJson.Testability(x.Id,
                 x.Component.ToString(), F(x.Redundancy), x.Testable,
@@ -185,8 +187,9 @@ internal static class SequenceSections
             },
         });
 
-        double worst = s.Discrepancies.Select(d => d.MaxAbsW ?? 0).DefaultIfEmpty(0).Max();
         double critical = s.Minimal.Analysis.WCritical;
+        // components the observations cannot test are neither failed nor named the largest (docs/methods.md)
+        double worst = s.Discrepancies.Select(d => DiscrepancyVerdict.TestedMaxAbsW(s, d) ?? 0).DefaultIfEmpty(0).Max();
         sections.Add(new ReportSection("sequence-discrepancies",
             $"CONTROL DISCREPANCIES (given - minimally constrained, {lu}; w = discrepancy / its standard deviation)",
             "Control discrepancies (given − minimally constrained)", [],
@@ -198,8 +201,15 @@ internal static class SequenceSections
             ],
             s.Discrepancies.Select(d => new SectionRow([
                 d.Id, L(d.DE), L(d.DN), L(d.DH), L(d.SdE), L(d.SdN), L(d.SdH), W(d.WE), W(d.WN), W(d.WH),
-                d.MaxAbsW is double m && m == worst && worst > 0 ? "  <- largest" : "",
-            ], d.MaxAbsW > critical ? RowState.Fail : RowState.Normal)).ToList(),
+                (DiscrepancyVerdict.TestedMaxAbsW(s, d) is double m && m == worst && worst > 0 ? "  <- largest" : "") +
+                (DiscrepancyVerdict.NotTestable(s, d) is { Count: > 0 } nt
+                    ? $"  {DiscrepancyVerdict.NotTestableVerdict} ({string.Join(", ", nt)})" : ""),
+            ], DiscrepancyVerdict.Of(s, d, critical) switch
+            {
+                "fails" => RowState.Fail,
+                _ when DiscrepancyVerdict.NotTestable(s, d).Count > 0 => RowState.Warn,
+                _ => RowState.Normal,
+            })).ToList(),
             s.Minimal.Options.Datum.ReferenceObjects is { Count: > 0 } objects
                 ? [
                     $"  Step 1 holds the reference object(s) {string.Join(", ", objects)} (one sight line each): an " +
@@ -207,10 +217,19 @@ internal static class SequenceSections
                     "  given positions turns the observed network and shows as discrepancies of the other marks",
                     "  (see the control testability below).",
                 ]
-                : [])
+                : AlongLine(s) is { Count: > 0 } along
+                    ? [
+                        $"  Step 1 holds the reference object(s) {string.Join(", ", along)} along their sight line " +
+                        "only (one",
+                        "  coordinate, marked held): an error across the line shows in their own discrepancy, which",
+                        "  the observations cannot test (see the control testability below).",
+                    ]
+                    : [])
         {
             MarkNote = $"Rows marked ✗ have a standardised discrepancy |w| above {F(critical, 2)}, " +
-                       "the critical value of the w-test.",
+                       "the critical value of the w-test." + (s.Testability.Any(x => x.Testable == false)
+                           ? " Rows marked ! have components the observations cannot test (see the control " +
+                             "testability), which get no verdict." : ""),
         });
 
         var testability = s.Testability;
@@ -253,6 +272,12 @@ internal static class SequenceSections
             []));
         return sections;
     }
+
+    /// <summary>The control marks the minimal step held in one plane coordinate only: reference objects held along
+    /// their sight line.</summary>
+    private static List<string> AlongLine(SequenceResult s) => s.Minimal.Points
+        .Where(p => p.Input.Fixed is Fixity.E or Fixity.N && s.Discrepancies.Any(d => d.Id == p.Input.Id))
+        .Select(p => p.Input.Id).ToList();
 
     /// <summary>The coordinates and standard deviations of one solution, as a section.</summary>
     public static ReportSection Coordinates(ResultReport other, string solution)

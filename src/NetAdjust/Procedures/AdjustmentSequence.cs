@@ -220,11 +220,13 @@ public static class AdjustmentSequence
             p.SdH.HasValue)).ToList();
         var fixes = ObservationKindRegistry.FixedBy(network.Observations);
         bool rotationOrScale = !fixes.HasFlag(DatumElements.Orientation) || !fixes.HasFlag(DatumElements.Scale);
+        // Reference objects (control placed by a sight line only) take no part in the fit: the datum rests on the
+        // control marks the observations place, and the objects are held along their sight line only.
+        var links = new Adjustment.Approximation.ObservationIndex(network);
+        bool objects = planeControl.RemoveAll(p => !DatumPlan.IsPlaced(links, p.Id)) > 0;
         bool planeOk = planeIds.Count == 0 || planeControl.Count >= (rotationOrScale ? 2 : 1);
         bool heightOk = heightIds.Count == 0 || heightControl.Count >= 1;
-        // Reference objects (control placed by a sight line only) cannot float in a free network: hold them instead.
-        var links = new Adjustment.Approximation.ObservationIndex(network);
-        if (planeControl.Any(p => !DatumPlan.IsPlaced(links, p.Id))) return DatumDefinition.Minimal();
+        if (objects && (!planeOk || !heightOk)) return DatumDefinition.Minimal();
         if (!planeOk || !heightOk) return DatumDefinition.Free();
         return DatumDefinition.Free(planeControl.Concat(heightControl).Select(p =>
             p.Id).Distinct(StringComparer.Ordinal).ToList());

@@ -24,6 +24,7 @@ internal sealed partial class DatumPlan
     {
         int u = Index.Count, d = ConditionCount;
         var g = DatumConditions.NullSpace(Index.Unknowns, _defects, State.Plane, _planePoints);
+        CompleteNullSpace(g);
         if (Definition.Mode == DatumMode.InnerConstraints)
             return (g, DatumConditions.Inner(g, Index.Unknowns, _subset));
         var b = new double[d][];

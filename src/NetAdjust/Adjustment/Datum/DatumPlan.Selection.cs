@@ -13,7 +13,12 @@ internal sealed partial class DatumPlan
 {
     /// <summary>The datum points chosen before the unknowns are numbered.</summary>
     private sealed record Selection(List<DatumDefect> Defects, string? P0, string? P1, string? Hp,
-        HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints);
+        HashSet<string>? Subset, bool FullHold, HashSet<string> HeldPoints)
+    {
+        /// <summary>Reference objects held along their sight line only: the mark, the station at the other end of the
+        /// line, and the coordinate held (the one closer to the line's direction).</summary>
+        public List<SightLineHold> AlongLine { get; init; } = [];
+    }
 
     /// <summary>
     /// True when minimal constraints hold p0 and p1 in full: p1 is a reference object that the observations place
@@ -44,6 +49,7 @@ internal sealed partial class DatumPlan
         string? p0 = null, p1 = null, hp = null;
         HashSet<string>? subset = null;
         bool fullHold = false;
+        List<SightLineHold> alongLine = [];
         if (planePoints.Count > 0)
         {
             var links = new ObservationIndex(network);
@@ -67,15 +73,30 @@ internal sealed partial class DatumPlan
             {
                 var candidates = planePoints.Where(id => id != p0).ToList();
                 var control = candidates.Where(IsPlaneControl).ToList();
-                if (minimal && control.Count > 0) candidates = control;
+                // Prefer control marks the observations place: a reference object held as the second datum point
+                // turns the network with its error. With no such mark, a reference object must carry the rotation
+                // (held in full below; the sequence report says so).
+                var placedControl = control.Where(id => IsPlaced(links, id)).ToList();
+                if (minimal && placedControl.Count > 0) candidates = placedControl;
+                else if (minimal && control.Count > 0) candidates = control;
                 // Prefer points the observations place; among those, the farthest.
                 p1 = candidates.OrderByDescending(id => IsPlaced(links, id)).ThenByDescending(id => Sq(e0[id] -
                     e0[p0]) + Sq(n0[id] - n0[p0])).First();
             }
-            // Control points that no observation places but a sight line (reference objects) are held in full, with p0.
+            // Control points that no observation places but a sight line (reference objects).
             var objects = planePoints.Where(id => IsPlaneControl(id) && !IsPlaced(links, id) && id != p0).ToList();
             if (minimal && p1 is not null && !IsPlaced(links, p1) && !objects.Contains(p1)) objects.Insert(0, p1);
-            fullHold = minimal && needSecond && objects.Count > 0;
+            // Held in full only when the datum itself must rest on a reference object (named by the datum, or no
+            // placed point to choose); otherwise each is held along its sight line only and floats across it.
+            fullHold = minimal && needSecond && objects.Count > 0 &&
+                (!IsPlaced(links, p0) || (p1 is not null && !IsPlaced(links, p1)));
+            var along = new List<SightLineHold>();
+            if (!fullHold && definition.Mode != DatumMode.Control)
+            {
+                foreach (var id in objects)
+                    if (SightLineHold.Of(links, id, e0, n0) is { } h) along.Add(h);
+                alongLine = along;
+            }
             if (fullHold)
             {
                 if (definition.AzimuthTo is null) p1 = objects[0];
@@ -84,7 +105,7 @@ internal sealed partial class DatumPlan
                 defects.RemoveAll(d => d != DatumDefect.Height);
             }
             else if (definition.Mode == DatumMode.InnerConstraints &&
-                planePoints.FirstOrDefault(id => !IsPlaced(links, id)) is string loose)
+                planePoints.FirstOrDefault(id => !IsPlaced(links, id) && !along.Any(h => h.Id == id)) is string loose)
             {
                 throw new DatumDefectException(
                     $"The datum is not defined: in a free network point {loose} is placed by no observation but a " +
@@ -107,7 +128,7 @@ internal sealed partial class DatumPlan
                         $"datum: inner-constraint point {id} is not defined in the points list");
             subset = new HashSet<string>(list, StringComparer.Ordinal);
         }
-        return new Selection(defects, p0, p1, hp, subset, fullHold, heldPoints);
+        return new Selection(defects, p0, p1, hp, subset, fullHold, heldPoints) { AlongLine = alongLine };
     }
 
     /// <summary>

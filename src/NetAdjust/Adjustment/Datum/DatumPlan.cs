@@ -21,6 +21,7 @@ internal sealed partial class DatumPlan
     private readonly string? _p0, _p1, _hp;
     private readonly HashSet<string>? _subset;
     private readonly HashSet<string> _heldPoints = [];
+    private readonly List<SightLineHold> _alongLine = [];
     private readonly List<string> _planePoints;
     private readonly Dictionary<string, double> _e0, _n0, _h0;
 
@@ -47,6 +48,7 @@ internal sealed partial class DatumPlan
         _defects = sel.Defects;
         (_p0, _p1, _hp, _subset, FullHold, _heldPoints) =
             (sel.P0, sel.P1, sel.Hp, sel.Subset, sel.FullHold, sel.HeldPoints);
+        _alongLine = sel.AlongLine;
 
         // Held unknowns of the internal solve: the translation at p0, rotation and scale at p1, height at hp.
         var held = new List<int>();
@@ -122,14 +124,17 @@ internal sealed partial class DatumPlan
         foreach (var p in network.Points)
         {
             bool heldInFull = sel.HeldPoints.Contains(p.Id);
+            var alongLine = sel.AlongLine.FirstOrDefault(x => x.Id == p.Id);
             if (active.Contains((p.Id, true)))
             {
                 if (heldInFull && (p.E is null || p.N is null))
                     throw new InvalidInputException(
                         $"datum: point {p.Id} is held for the minimal constraints but has no given easting and " +
                         $"northing");
-                if (!heldInFull && (!control || !p.IsFixed(Fixity.E))) index.Add(new Unknown(p.Id, Parameter.E));
-                if (!heldInFull && (!control || !p.IsFixed(Fixity.N))) index.Add(new Unknown(p.Id, Parameter.N));
+                if (!heldInFull && alongLine?.Held != Parameter.E && (!control || !p.IsFixed(Fixity.E)))
+                    index.Add(new Unknown(p.Id, Parameter.E));
+                if (!heldInFull && alongLine?.Held != Parameter.N && (!control || !p.IsFixed(Fixity.N)))
+                    index.Add(new Unknown(p.Id, Parameter.N));
             }
             if (active.Contains((p.Id, false)))
             {
@@ -166,7 +171,10 @@ internal sealed partial class DatumPlan
     /// </summary>
     public Point AsUsed(Point p) => UsesControl ? p : p with
     {
-        Fixed = _heldPoints.Contains(p.Id) ? Fixity.EN : Fixity.None, SdE = null, SdN = null, SdH = null,
+        Fixed = _heldPoints.Contains(p.Id) ? Fixity.EN
+            : _alongLine.FirstOrDefault(x => x.Id == p.Id) is { } a ? (a.Held == Parameter.E ? Fixity.E : Fixity.N)
+            : Fixity.None,
+        SdE = null, SdN = null, SdH = null,
     };
 
     /// <summary>The datum as applied, with the points chosen by default filled in.</summary>
