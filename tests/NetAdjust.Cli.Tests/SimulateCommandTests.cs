@@ -51,6 +51,7 @@ public sealed class SimulateCommandTests : IDisposable
     [InlineData("brackenmoor", 3)]
     [InlineData("harrowfield", 1)]
     [InlineData("harrowgate", 1)]
+    [InlineData("tarnholm", 1)]
     public void DrawsADemoScenarioThatAdjustsAndRepeatsForTheSameSeed(string scenario, int files)
     {
         string yaml = Path.Combine(_tmp, scenario + ".yaml");
@@ -67,6 +68,15 @@ public sealed class SimulateCommandTests : IDisposable
         var (other, _, _) = CliHarness.Run("simulate", "--scenario", scenario, "--seed", "9", "--out", again);
         Assert.Equal(ExitCodes.Success, other);
         Assert.NotEqual(first, File.ReadAllText(again));
+    }
+
+    [Fact]
+    public void TheTarnholmScenarioRewritesTheCommittedGridDemo()
+    {
+        string yaml = Path.Combine(_tmp, "tarnholm-grid.yaml");
+        var (code, _, stderr) = CliHarness.Run("simulate", "--scenario", "tarnholm", "--out", yaml);
+        Assert.True(code == ExitCodes.Success, stderr);
+        Assert.Equal(File.ReadAllText(CliHarness.DataFile("tarnholm-grid.yaml")), File.ReadAllText(yaml));
     }
 
     [Fact]

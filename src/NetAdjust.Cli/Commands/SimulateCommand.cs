@@ -54,7 +54,7 @@ internal static class SimulateCommand
                 var which = CliChoice.Parse(name, "--scenario", OptionGrammars.DemoScenarios);
                 bool seedGiven = parse.GetResult(seed) is { Implicit: false };
                 int s = seedGiven ? parse.GetValue(seed) : DemoScenarios.DefaultSeed(which);
-                var survey = DemoScenarios.Draw(which, s);
+                var survey = DemoProjectWriter.Draw(which, s);
                 string dir = Path.GetDirectoryName(Path.GetFullPath(path))!;
                 var files = DemoProjectWriter.Format(survey, Path.GetFileNameWithoutExtension(path))
                     .Select(f => (Path.Combine(dir, f.Name), f.Text)).ToList();

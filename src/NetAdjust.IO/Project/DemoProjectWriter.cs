@@ -11,7 +11,7 @@ namespace NetAdjust.IO.Project;
 /// Writes a drawn demonstration survey (<see cref="DemoScenarios"/>) as the project files of data/, in their layout:
 /// the same keys, comments and order, so that <c>netadjust simulate --scenario NAME</c> regenerates a demo project.
 /// </summary>
-public static class DemoProjectWriter
+public static partial class DemoProjectWriter
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
@@ -35,6 +35,7 @@ public static class DemoProjectWriter
             DemoScenario.Brackenmoor => Brackenmoor(survey, baseName, how),
             DemoScenario.Harrowfield => [(baseName + ".yaml", Harrowfield(survey, how))],
             DemoScenario.CorvanFell => [(baseName + ".yaml", CorvanFell(survey, how))],
+            DemoScenario.Tarnholm => [(baseName + ".yaml", Tarnholm(survey, how))],
             _ => [(baseName + ".yaml", Harrowgate(survey, how))],
         };
     }

@@ -14,4 +14,7 @@ public enum DemoScenario
 
     /// <summary>Corvan Fell: a closed 3D traverse in two sets in both faces (rounds), tied to two benchmarks.</summary>
     CorvanFell,
+
+    /// <summary>Tarnholm quarry extension: a braced network on a UTM grid, distances measured on the ground.</summary>
+    Tarnholm,
 }

@@ -1,3 +1,4 @@
+using NetAdjust.Geodesy;
 using NetAdjust.Network;
 using NetAdjust.Units;
 
@@ -17,7 +18,7 @@ public static class DemoScenarios
     /// <param name="scenario">The scenario.</param>
     public static int DefaultSeed(DemoScenario scenario) => scenario switch
     {
-        DemoScenario.Harrowgate => 20261202,
+        DemoScenario.Harrowgate or DemoScenario.Tarnholm => 20261202,
         DemoScenario.CorvanFell => 20261203,
         _ => 20261201,
     };
@@ -25,28 +26,24 @@ public static class DemoScenarios
     /// <summary>Draws a scenario.</summary>
     /// <param name="scenario">The scenario.</param>
     /// <param name="seed">The random seed; the same seed gives the same survey on every machine.</param>
-    public static DemoSurvey Draw(DemoScenario scenario, int seed) => scenario switch
+    /// <param name="projection">The map projection of a scenario on a grid (Tarnholm: WGS 84 / UTM zone 33N), whose
+    /// factors turn the grid truth into ground distances and geodesic directions; unused by the others.</param>
+    /// <exception cref="ArgumentException">When a scenario on a grid is drawn without its projection.</exception>
+    public static DemoSurvey Draw(DemoScenario scenario, int seed, IMapProjection? projection = null) =>
+        scenario switch
     {
         DemoScenario.Brackenmoor => Brackenmoor(seed),
         DemoScenario.Harrowfield => Harrowfield(seed),
         DemoScenario.Harrowgate => Harrowgate(seed),
         DemoScenario.CorvanFell => CorvanFellDraw(seed),
+        DemoScenario.Tarnholm => TarnholmGrid.Draw(seed, projection ?? throw new ArgumentException(
+            "the Tarnholm scenario is drawn through its map projection", nameof(projection)), new SeededNoise(seed)),
         _ => throw new ArgumentOutOfRangeException(nameof(scenario), scenario, "unknown scenario"),
     };
 
-    private sealed class Noise(int seed)
-    {
-        private readonly Random _rng = new(seed);
-
-        public double Uniform(double a, double b) => a + ((b - a) * _rng.NextDouble());
-
-        public double Gauss(double sd) =>
-            sd * Math.Sqrt(-2 * Math.Log(1 - _rng.NextDouble())) * Math.Cos(2 * Math.PI * _rng.NextDouble());
-    }
-
     private static DemoSurvey CorvanFellDraw(int seed)
     {
-        var noise = new Noise(seed);
+        var noise = new SeededNoise(seed);
         return CorvanFell.Draw(seed, noise.Gauss, noise.Uniform);
     }
 
@@ -72,7 +69,7 @@ public static class DemoScenarios
     /// </summary>
     private static DemoSurvey Brackenmoor(int seed)
     {
-        var noise = new Noise(seed);
+        var noise = new SeededNoise(seed);
         var truth = Plane([
             ("BK01", 2150.000, 5320.000), ("BK02", 2480.512, 5790.233),
             ("S1", 2331.840, 5265.118), ("S2", 2512.406, 5331.572), ("S3", 2598.771, 5497.040),
@@ -143,7 +140,7 @@ public static class DemoScenarios
     /// </summary>
     private static DemoSurvey Harrowfield(int seed)
     {
-        var noise = new Noise(seed);
+        var noise = new SeededNoise(seed);
         var truth = Plane([
             ("HQ1", 5120.000, 8040.000), ("HQ2", 5705.318, 8412.907),
             ("H1", 5233.417, 8391.226), ("H2", 5488.903, 8127.551), ("H3", 5391.264, 8608.772),
@@ -192,7 +189,7 @@ public static class DemoScenarios
     /// </summary>
     private static DemoSurvey Harrowgate(int seed)
     {
-        var noise = new Noise(seed);
+        var noise = new SeededNoise(seed);
         var truth = Plane([
             ("HV01", 5000.000, 8000.000), ("HV02", 5620.450, 8035.180), ("HV03", 5655.300, 8590.720),
             ("HV04", 4985.610, 8610.040), ("T1", 5210.330, 8140.250), ("T2", 5430.870, 8120.610),

@@ -4,8 +4,8 @@ namespace NetAdjust.Simulation;
 
 /// <summary>
 /// Observations drawn for a planned network: each observation's true value plus Gaussian noise of its standard
-/// deviation (Box–Muller on a seeded <see cref="Random"/>, as the other simulations), written with that standard
-/// deviation so the drawn project is ready to adjust with the same weights.
+/// deviation from the simulations' one seeded noise source (<see cref="SeededNoise"/>, the same as <c>simulate</c>),
+/// written with that standard deviation so the drawn project is ready to adjust with the same weights.
 /// </summary>
 public static class PlannedSurveys
 {
@@ -24,10 +24,9 @@ public static class PlannedSurveys
         ArgumentNullException.ThrowIfNull(withValue);
         if (sd.Count != truth.Observations.Count)
             throw new ArgumentException("one standard deviation per observation is needed", nameof(sd));
-        var rng = new Random(seed);
-        double Gauss() => Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble());
+        var noise = new SeededNoise(seed);
         var obs = truth.Observations.Select((o, i) =>
-            withValue(o, o.Value + (Gauss() * sd[i])) with { StandardDeviation = sd[i], Weighting = null });
+            withValue(o, o.Value + noise.Gauss(sd[i])) with { StandardDeviation = sd[i], Weighting = null });
         return new SurveyNetwork(truth.Name, truth.Points, obs.ToList());
     }
 }
