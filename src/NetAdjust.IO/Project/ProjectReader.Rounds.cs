@@ -56,7 +56,7 @@ public static partial class ProjectReader
     /// the setup has no rounds).
     /// </summary>
     private static SetupSpec ReadRounds(Context ctx, YamlMappingNode m, string at, string item, LengthPattern lengths,
-        AnglePattern angles, ProjectUnits units, SetupSpec spec, StochasticInputs specs,
+        AnglePattern angles, SetupSpec spec, StochasticInputs specs,
         Dictionary<string, int> setsPerStation, List<Pending> output)
     {
         if (ctx.Child(m, "rounds") is not YamlNode roundsNode) return spec;

@@ -345,7 +345,7 @@ public static partial class ProjectReader
             "faces", "instrument_height", "slope_distances", "zeniths", "refraction_group", "rounds"], item);
         var spec = ReadSetupSpec(ctx, m, item, specs);
         var output = new List<Pending>();
-        spec = ReadRounds(ctx, m, at, item, lengths, angles, units, spec, specs, setsPerStation, output);
+        spec = ReadRounds(ctx, m, at, item, lengths, angles, spec, specs, setsPerStation, output);
 
         if (ctx.Child(m, "directions") is YamlNode dirs)
         {

@@ -22,12 +22,11 @@ namespace NetAdjust.Stochastic;
 public sealed class StochasticModel
 {
     private readonly double[] _sd;
-    private readonly ErrorBudget?[] _budgets;
     private readonly CorrelatedBlock[] _blocks;
 
     private StochasticModel(double[] sd, ErrorBudget?[] budgets, CorrelatedBlock[] blocks, bool derived)
     {
-        _sd = sd; _budgets = budgets; _blocks = blocks; HasDerivedWeights = derived;
+        _sd = sd; _blocks = blocks; HasDerivedWeights = derived;
         StandardDeviations = sd.AsReadOnly(); Budgets = budgets.AsReadOnly(); Blocks = blocks.AsReadOnly();
     }
 

@@ -102,10 +102,10 @@ internal static class DatumDiagnosis
         var heightProblems = height.Where(part => !part.Points.Any(id => HasH(network[id]))).ToList();
 
         if (plane.Count > 1 && planeProblems.Count > 0)
-            throw Disconnected("plane", plane, planeProblems.Select(p => p.Part).ToList(), network,
+            throw Disconnected("plane", plane, planeProblems.Select(p => p.Part).ToList(),
                 "a held point (fix: en) and, without an observed azimuth or distance, a second held point");
         if (height.Count > 1 && heightProblems.Count > 0)
-            throw Disconnected("level", height, heightProblems, network, "a benchmark with a held height (fix: h)");
+            throw Disconnected("level", height, heightProblems, "a benchmark with a held height (fix: h)");
 
         if (planeProblems.Count > 0)
         {
@@ -151,8 +151,7 @@ internal static class DatumDiagnosis
         }
     }
 
-    private static DatumDefectException Disconnected(string what, List<Part> parts, List<Part> bad,
-        SurveyNetwork network, string needs)
+    private static DatumDefectException Disconnected(string what, List<Part> parts, List<Part> bad, string needs)
     {
         var lines = parts.Select((p, k) =>
             $"  part {k + 1}: {List(p.Points)}" +

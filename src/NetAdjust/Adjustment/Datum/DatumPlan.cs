@@ -37,10 +37,9 @@ internal sealed partial class DatumPlan
     /// <summary>The number of datum conditions d (the datum defect removed by minimal or inner constraints).</summary>
     public int ConditionCount => _defects.Count;
 
-    private DatumPlan(SurveyNetwork network, DatumDefinition definition, UnknownIndex index, ParameterState state,
-        List<string> planePoints, List<string> heightPoints, Dictionary<string, double> e0, Dictionary<string,
-            double> n0, Dictionary<string, double> h0,
-        Selection sel)
+    private DatumPlan(DatumDefinition definition, UnknownIndex index, ParameterState state,
+        List<string> planePoints, Dictionary<string, double> e0, Dictionary<string, double> n0,
+        Dictionary<string, double> h0, Selection sel)
     {
         Definition = definition; Index = index; State = state;
         _planePoints = planePoints; _e0 = e0; _n0 = n0; _h0 = h0;
@@ -159,7 +158,7 @@ internal sealed partial class DatumPlan
             if (used) index.Add(new Unknown(group, Parameter.Refraction));
         }
         var state = new ParameterState(e, nn, h, orientation, refraction);
-        return new DatumPlan(network, definition, index, state, planePoints, heightPoints,
+        return new DatumPlan(definition, index, state, planePoints,
             new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string,
                 double>(nn, StringComparer.Ordinal),
             new Dictionary<string, double>(h, StringComparer.Ordinal), sel);
