@@ -265,6 +265,11 @@ public sealed record RelativeHeightPrecision
 /// </summary>
 public sealed record NetworkAnalysis
 {
+    /// <summary>Made by the analysis (<see cref="ResultAnalysis.Analyse"/>).</summary>
+    internal NetworkAnalysis()
+    {
+    }
+
     /// <summary>The options used.</summary>
     public required AnalysisOptions Options { get; init; }
 
