@@ -80,15 +80,21 @@ public sealed partial class PublicSurfaceTests
     }
 
     [Fact]
-    public void TheCheckFindsABareRadianInTheDocumentation()
+    public void TheChecksFindBareUnitsInTheDocumentation()
     {
-        // The detector itself: phrases the library's documentation uses for radians are caught; degrees are not.
+        // The detectors themselves: phrases the library's documentation uses for radians and metres are caught;
+        // degrees, square metres and words that merely contain the letters are not.
         Assert.Matches(SaysRadians(), "Azimuth of the semi-major axis, radians clockwise from north, in [0, π).");
         Assert.Matches(SaysRadians(), "Its standard deviation (rad).");
         Assert.Matches(SaysRadians(), "Values in SI (m or rad).");
         Assert.Matches(SaysRadians(), "The adjusted value (for angular kinds in [0, 2π)).");
         Assert.DoesNotMatch(SaysRadians(), "The azimuth of the semi-major axis in degrees, in [0, 180).");
         Assert.DoesNotMatch(SaysRadians(), "Radial offset of the mark.");
+        Assert.Matches(SaysMetres(), "Easting discrepancy (m).");
+        Assert.Matches(SaysMetres(), "The mean ellipsoidal height of the line in metres; null when not used.");
+        Assert.Matches(SaysMetres(), "The 95% value or the misclosure's size, m.");
+        Assert.DoesNotMatch(SaysMetres(), "Covariance of easting and northing, m² (0 when held).");
+        Assert.DoesNotMatch(SaysMetres(), "Σ rᵢ over all weighted rows (equals the degrees of freedom).");
     }
 
     /// <summary>
@@ -99,6 +105,50 @@ public sealed partial class PublicSurfaceTests
     /// </summary>
     [Fact]
     public void NoResultTypeHasAPublicConstructor()
+    {
+        var made = ResultTypes();
+        Assert.Contains(typeof(ErrorEllipse), made);
+        Assert.True(made.Count > 30, $"the walk reached only {made.Count} result types");
+        var open = made.Where(t => t.GetConstructors().Any(c => !IsParameterlessStruct(t, c)))
+            .Select(t => t.FullName).Order(StringComparer.Ordinal).ToList();
+        Assert.True(open.Count == 0, "result types with a public constructor:" + Environment.NewLine
+            + string.Join(Environment.NewLine, open));
+    }
+
+    [Fact]
+    public void NoResultHasAPublicDoubleInMetres()
+    {
+        // Lengths of results are typed (Length, or Quantity by the kind); dimensionless numbers stay doubles.
+        var docs = Documentation();
+        var offenders = new List<string>();
+        foreach (var t in ResultTypes())
+            foreach (var p in t.GetProperties(BindingFlags.Public | BindingFlags.Instance | BindingFlags.DeclaredOnly)
+                .Where(p => IsDouble(p.PropertyType)))
+            {
+                string doc = DocOf(docs, t, p);
+                if (SaysMetres().IsMatch(doc) && !AllowedMetres.ContainsKey($"{t.FullName}.{p.Name}"))
+                    offenders.Add($"{t.FullName}.{p.Name}: {doc}");
+            }
+        Assert.True(offenders.Count == 0, "public doubles in metres in results (type them as Length):"
+            + Environment.NewLine + string.Join(Environment.NewLine, offenders));
+    }
+
+    /// <summary>Result doubles whose documentation names metres and that stay doubles, with the reason.</summary>
+    private static readonly Dictionary<string, string> AllowedMetres = new(StringComparer.Ordinal)
+    {
+        ["NetAdjust.Adjustment.AdjustedPoint.CovEN"] = "a covariance, m², not a length",
+    };
+
+    /// <summary>"m" as a unit, "metre(s)".</summary>
+    [GeneratedRegex(@"\(m\)|\bm\b(?![²-])|metre", RegexOptions.IgnoreCase)]
+    private static partial Regex SaysMetres();
+
+    /// <summary>
+    /// The types reachable through the public properties of the results (adjustment, analysis, sequence, blunder
+    /// hunt, robust and variance-component runs, checks before the adjustment, standards, grid reduction, rounds,
+    /// procedure recommendation), without the inputs they carry back.
+    /// </summary>
+    private static List<Type> ResultTypes()
     {
         Type[] roots =
         [
@@ -117,13 +167,7 @@ public sealed partial class PublicSurfaceTests
                 foreach (var inner in Unwrap(p.PropertyType))
                     if (inner.Assembly == typeof(Adjuster).Assembly && !inner.IsEnum) queue.Enqueue(inner);
         }
-        var made = seen.Where(t => !IsInput(t) && !t.IsInterface && !t.IsAbstract).ToList();
-        Assert.Contains(typeof(ErrorEllipse), made);
-        Assert.True(made.Count > 30, $"the walk reached only {made.Count} result types");
-        var open = made.Where(t => t.GetConstructors().Any(c => !IsParameterlessStruct(t, c)))
-            .Select(t => t.FullName).Order(StringComparer.Ordinal).ToList();
-        Assert.True(open.Count == 0, "result types with a public constructor:" + Environment.NewLine
-            + string.Join(Environment.NewLine, open));
+        return seen.Where(t => !IsInput(t) && !t.IsInterface && !t.IsAbstract).ToList();
     }
 
     /// <summary>
