@@ -47,14 +47,16 @@ public sealed partial class PublicSurfaceTests
         {
             const BindingFlags Flags = BindingFlags.Public | BindingFlags.Instance | BindingFlags.Static
                 | BindingFlags.DeclaredOnly;
-            var members = type.GetProperties(Flags).Where(p => IsDouble(p.PropertyType) && p.GetMethod is { IsPublic: true })
+            var members = type.GetProperties(Flags)
+                .Where(p => IsDouble(p.PropertyType) && p.GetMethod is { IsPublic: true })
                 .Select(p => (MemberInfo)p)
                 .Concat(type.GetFields(Flags).Where(f => IsDouble(f.FieldType)));
             foreach (var m in members)
             {
                 string name = $"{type.FullName}.{m.Name}";
                 string doc = DocOf(docs, type, m);
-                bool radians = m.Name.Contains("Radian", StringComparison.OrdinalIgnoreCase) || SaysRadians().IsMatch(doc);
+                bool radians = m.Name.Contains("Radian", StringComparison.OrdinalIgnoreCase)
+                    || SaysRadians().IsMatch(doc);
                 if (radians && !AllowedRadians.ContainsKey(name)) offenders.Add($"{name}: {doc}");
             }
         }
@@ -192,7 +194,8 @@ public sealed partial class PublicSurfaceTests
         ["Unknown"] = "a plain value naming one unknown",
     };
 
-    private static bool IsParameterlessStruct(Type t, ConstructorInfo c) => t.IsValueType && c.GetParameters().Length == 0;
+    private static bool IsParameterlessStruct(Type t, ConstructorInfo c) =>
+        t.IsValueType && c.GetParameters().Length == 0;
 
     private static IEnumerable<Type> Unwrap(Type t)
     {

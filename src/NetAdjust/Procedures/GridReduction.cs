@@ -47,7 +47,7 @@ public sealed record ObservationReduction
     /// convergence); null for lengths.</summary>
     public Angle? AngularCorrection => Lengths.AngleOf(AngleCorrection);
 
-    /// <summary>The mean ellipsoidal height of the line ; null when not used.</summary>
+    /// <summary>The mean ellipsoidal height of the line; null when not used.</summary>
     public Length? EllipsoidalHeightLength => Lengths.Of(EllipsoidalHeight);
 }
 

@@ -49,7 +49,8 @@ public sealed record VarianceComponent
 
     /// <summary>When every observation of the group had the same σ: that σ times <see cref="SdScale"/>; else
     /// null.</summary>
-    public Quantity? ScaledSdValue => ScaledSd is double q ? Quantity.FromSi(q, ObservationKinds.ValueIsAngle(Kind)) : null;
+    public Quantity? ScaledSdValue =>
+        ScaledSd is double q ? Quantity.FromSi(q, ObservationKinds.ValueIsAngle(Kind)) : null;
 
     /// <summary>Distances with a fitted spec: the constant part a; else null.</summary>
     public Length? ConstantPartLength => Lengths.Of(ConstantPart);

@@ -4,7 +4,8 @@ using NetAdjust.Units;
 namespace NetAdjust.Reduction;
 
 /// <summary>The reduction of the rounds of one setup: the figures of each set and of each target, and the tests of
-/// the spread over the sets (ISO 17123-3). Made by the reduction of rounds only (the constructor is internal).</summary>
+/// the spread over the sets (ISO 17123-3). Made by the reduction of rounds only (the constructor is internal).
+/// </summary>
 public sealed record ReducedRounds
 {
     /// <summary>Made by the reduction of rounds.</summary>

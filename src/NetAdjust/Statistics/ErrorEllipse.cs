@@ -4,7 +4,9 @@ namespace NetAdjust.Statistics;
 
 /// <summary>
 /// The error ellipse of a 2×2 covariance matrix of (easting, northing): semi-axes a ≥ b (the square roots of the
-/// eigenvalues) and the azimuth of the major axis, clockwise from north, in [0, π). Immutable; lengths in metres.
+/// eigenvalues) and the azimuth of the major axis, clockwise from north, in [0°, 180°). Immutable and made by the
+/// library (<see cref="FromCovariance"/>); read it as <see cref="SemiMajorAxis"/>, <see cref="SemiMinorAxis"/>
+/// (lengths) and <see cref="MajorAxisAzimuth"/> (an angle).
 /// </summary>
 /// <remarks>
 /// a², b² = (σE² + σN²)/2 ± √(((σN² − σE²)/2)² + σEN²); azimuth θ = ½ atan2(2σEN, σN² − σE²)
