@@ -105,7 +105,7 @@ public static class ResultAnalysis
         };
         var pointCols = PointColumns(result);
 
-        ObservationTest TestRow(int row, int index, bool excluded, double sd)
+        ObservationTest TestRow(int row, int index, bool excluded, double sd, bool isAngle = false)
         {
             if (excluded || !weighted[row])
             {
@@ -115,12 +115,12 @@ public static class ResultAnalysis
                 double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
                 double? wx = denom > 0 ? v[row] / denom : null;
                 return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null,
-                    ObservationFlag.Excluded);
+                    ObservationFlag.Excluded) { IsAngle = isAngle };
             }
             double ri = Math.Clamp(red[row], 0, 1);
             if (ri < options.UncontrolledRedundancy || !(pqp[row] > 0))
                 return new ObservationTest(index, ri, null, null, null, null, null, null, null, null,
-                    ObservationFlag.Uncontrolled);
+                    ObservationFlag.Uncontrolled) { IsAngle = isAngle };
             double w = pv[row] / (Math.Sqrt(s0sq) * Math.Sqrt(pqp[row]));
             double? tau = sigmaHat is double s ? pv[row] / (s * Math.Sqrt(pqp[row])) : null;
             double mdb = delta0 * Math.Sqrt(s0sq) / Math.Sqrt(pqp[row]);
@@ -133,14 +133,15 @@ public static class ResultAnalysis
                 : ObservationFlag.None;
             double? ext = null; string? extPoint = null;
             if (external) (ext, extPoint) = ExternalShift(result, rows, weights, row, mdb, pointCols);
-            return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag);
+            return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag)
+                { IsAngle = isAngle };
         }
 
         var obsTests = new ObservationTest[nObs];
         for (int i = 0; i < nObs; i++)
         {
             var o = result.Observations[i].Input;
-            obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation);
+            obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation, ObservationKinds.ValueIsAngle(o.Kind));
         }
         var controlTests = new ControlTest[control.Count];
         for (int k = 0; k < control.Count; k++)
