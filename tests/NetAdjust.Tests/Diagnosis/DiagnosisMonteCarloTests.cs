@@ -16,9 +16,13 @@ public class DiagnosisMonteCarloTests
         Environment.GetEnvironmentVariable("NETADJUST_DIAGNOSIS_RUNS") ?? "100",
         System.Globalization.CultureInfo.InvariantCulture);
 
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<BlunderKind,
+        Lazy<List<DiagnosisMonteCarlo.Outcome>>> Simulated = new();
+
+    /// <summary>The runs of one kind, simulated once for all the tests of this class.</summary>
     private static List<DiagnosisMonteCarlo.Outcome> Simulate(BlunderKind kind) =>
-        Enumerable.Range(1001, Runs).Select(s => DiagnosisMonteCarlo.Run(kind, s))
-            .OfType<DiagnosisMonteCarlo.Outcome>().ToList();
+        Simulated.GetOrAdd(kind, k => new(() => Enumerable.Range(1001, Runs).Select(s => DiagnosisMonteCarlo.Run(k, s))
+            .OfType<DiagnosisMonteCarlo.Outcome>().ToList())).Value;
 
     private static double Rate(IReadOnlyCollection<DiagnosisMonteCarlo.Outcome> runs,
         Func<DiagnosisMonteCarlo.Outcome, bool> which) => runs.Count(which) / (double)runs.Count;
