@@ -2,6 +2,7 @@ using MathNet.Numerics.Distributions;
 using NetAdjust.Adjustment;
 using NetAdjust.Diagnosis;
 using NetAdjust.Network;
+using NetAdjust.Statistics;
 using NetAdjust.Units;
 
 namespace NetAdjust.Tests.Diagnosis;
@@ -122,5 +123,30 @@ public class BlunderDiagnosisTests
         int bound = 0;
         while (Binomial.CDF(0.001, observations, bound) < 0.999) bound++;
         Assert.InRange(explained, 0, bound);
+    }
+}
+
+public class BlunderDiagnosisSuspectTests
+{
+    [Fact]
+    public void WhenOnlyTheGlobalTestFailsTheWorstThreeAreDiagnosedAndNoneIsExplained()
+    {
+        // Noise 1.6 times the stated σ: the χ² global test fails while no single w exceeds 3.29;
+        // the suspects are then the three largest |w|, and none is significant, so none can be explained.
+        var found = false;
+        for (int seed = 1; seed <= 60 && !found; seed++)
+        {
+            var (net, _) = NetAdjust.Simulation.BracedNetworks.Horizontal(seed, 4, noise: 1.6);
+            var result = Adjuster.Adjust(net, DiagnosisMonteCarlo.Quick);
+            var ws = result.Analysis.Observations.Where(t => t.W is not null).ToList();
+            if (result.Statistics.GlobalTest.Passed != false || ws.Any(t => Math.Abs(t.W!.Value) > 3.29)) continue;
+            found = true;
+            var d = BlunderDiagnosis.Diagnose(result);
+            var worst = ws.OrderByDescending(t => Math.Abs(t.W!.Value)).Take(3).Select(t => t.Index);
+            Assert.Equal(worst, d.Suspects.Select(s => s.Observation));
+            Assert.All(d.Suspects, s => Assert.False(s.Explained));
+            Assert.All(d.Suspects, s => Assert.Contains(s.Ranked, h => h.Kind == BlunderKind.UnexplainedBias));
+        }
+        Assert.True(found, "no draw with only the global test failing");
     }
 }
