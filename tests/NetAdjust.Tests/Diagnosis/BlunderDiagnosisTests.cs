@@ -150,3 +150,24 @@ public class BlunderDiagnosisSuspectTests
         Assert.True(found, "no draw with only the global test failing");
     }
 }
+
+public class DemoDiagnosisTests
+{
+    [Fact]
+    public void ThePlantedBlunderOfTheBlunderDemoIsTheSuspectWithItsSize()
+    {
+        // data/harrowfield-blunder.yaml's scenario: +40 mm planted on the distance H3→H4 (3 mm). Its diagnosis
+        // estimates the bias within three standard deviations of 40 mm.
+        var s = NetAdjust.Simulation.DemoScenarios.Draw(NetAdjust.Simulation.DemoScenario.Harrowfield,
+            NetAdjust.Simulation.DemoScenarios.DefaultSeed(NetAdjust.Simulation.DemoScenario.Harrowfield));
+        var net = new SurveyNetwork("harrowfield", s.Points, s.Setups.SelectMany(x => x.Observations));
+        var result = Adjuster.Adjust(net, DiagnosisMonteCarlo.Quick);
+        var d = BlunderDiagnosis.Diagnose(result);
+        var first = d.Suspects[0];
+        var o = net.Observations[first.Observation];
+        Assert.Equal(("H3", "H4"), (o.From, o.To));
+        var bias = first.Ranked.Single(h => h.Kind == BlunderKind.UnexplainedBias);
+        Assert.InRange(bias.Size!.Value, 0.040 - (3 * bias.SizeSd!.Value), 0.040 + (3 * bias.SizeSd.Value));
+        Assert.True(bias.FitsAfter);
+    }
+}
