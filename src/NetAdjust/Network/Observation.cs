@@ -120,6 +120,10 @@ public abstract record Observation
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
 
+    /// <summary>The value's text as booked in the file (e.g. <c>123.4567</c> or <c>123-45-12.3</c>), for the blunder
+    /// diagnosis (transposed digits); null when not known.</summary>
+    public string? BookedText { get; init; }
+
     /// <summary>
     /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but
     /// is still reported, with its misclosure against the adjusted coordinates. Nothing is deleted from the data.
