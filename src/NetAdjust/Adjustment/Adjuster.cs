@@ -210,7 +210,10 @@ public static partial class Adjuster
                 return weights.Quadratic(trial.Value.L);
             });
             if (lambda == Math.Pow(0.5, trials - 1)) current = trial;
-            if (lambda < 1) converged = false;
+            // A shortened step (λ < 1) counts as converged only when the full correction was already below the
+            // tolerances (`converged` above): then the halving comes from rounding of vᵀPv at the minimum (GNSS
+            // baselines are differences of earth-centred positions of 6e6 m, which carry about 1e-9 m of rounding),
+            // and what is left of the correction is smaller still. Otherwise `converged` is false already.
         }
         return iterations;
     }
