@@ -14,7 +14,7 @@ internal static partial class CsvObservationReader
 {
     private static readonly string[] Columns =
         ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor",
-            .. TotalStationColumns];
+            .. TotalStationColumns, .. BaselineColumns];
 
     private static readonly Dictionary<string, ObservationKind> KindByName =
         ObservationKinds.All.ToDictionary(k => k.Name(), StringComparer.Ordinal);
@@ -50,7 +50,7 @@ internal static partial class CsvObservationReader
                         throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
                 }
                 foreach (var need in new[] { "kind", "value" })
-                    if (!col.ContainsKey(need))
+                    if (!col.ContainsKey(need) && !(need == "value" && col.ContainsKey("dx")))
                         throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
                 continue;
             }
@@ -73,6 +73,12 @@ internal static partial class CsvObservationReader
                 ObservationKind.Direction => $"direction {at}→{to}",
                 _ => $"{kind.Name().Replace('_', ' ')} {from}→{to}",
             };
+            if (kind == ObservationKind.Baseline)
+            {
+                result.AddRange(BaselineRow(Need("from", from), Need("to", to), Get, file, lineNo, item));
+                continue;
+            }
+            CheckNoBaselineFields(Get, file, lineNo, item);
             double sd;
             string sdText = Get("sd");
             ObservationWeighting? budget = null;

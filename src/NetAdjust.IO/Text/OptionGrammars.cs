@@ -56,6 +56,13 @@ public static class OptionGrammars
         "ground (measured at the marks' height) or grid (already reduced to the grid)", false,
         ("ground", Geodesy.DistanceBasis.Ground), ("grid", Geodesy.DistanceBasis.Grid));
 
+    /// <summary>Which frame parameters between the GNSS frame and the local control are unknowns
+    /// (<c>gnss.frame_parameters</c>).</summary>
+    public static TextChoice<FrameParameterSet> FrameParameterSets { get; } = new("a choice of frame parameters",
+        "none, rotations (three small rotations) or rotations_and_scale (three rotations and a scale)", false,
+        ("none", FrameParameterSet.None), ("rotations", FrameParameterSet.Rotations),
+        ("rotations_and_scale", FrameParameterSet.RotationsAndScale));
+
     /// <summary>What the azimuths of a project are (<c>grid.azimuths</c>).</summary>
     public static TextChoice<Geodesy.AzimuthBasis> AzimuthBases { get; } = new("a kind of azimuth",
         "geodetic (from true north; astronomic azimuths too) or grid (grid bearings)", false,
