@@ -1,5 +1,6 @@
 using MathNet.Numerics.Distributions;
 using NetAdjust.Geodesy;
+using NetAdjust.Network;
 
 namespace NetAdjust.Misclosures;
 
@@ -21,6 +22,54 @@ internal static class BaselineLoops
     private const long MaxHortonCandidates = 2_000_000;
 
     private sealed record Candidate(int[] Edges, bool Trivial, double Length, int Order);
+
+    /// <summary>
+    /// The loops of a network's GNSS baselines: every baseline whose three components are present, none set aside,
+    /// with a 3×3 covariance (the group scale applied). The mean position of a loop comes from its points' given or
+    /// approximate grid coordinates through the baselines' projection (none without one: no east, north, up).
+    /// </summary>
+    /// <param name="network">The network.</param>
+    /// <param name="confidence">The confidence of the tests, in (0, 1).</param>
+    /// <returns>The loops, each with the indices of its baselines' component observations.</returns>
+    public static List<BaselineLoop> Check(SurveyNetwork network, double confidence)
+    {
+        var vectors = new List<BaselineVector>();
+        var components = new List<int[]>();
+        IMapProjection? projection = null;
+        var byId = new Dictionary<string, int[]>(StringComparer.Ordinal);
+        var order = new List<string>();
+        for (int i = 0; i < network.Observations.Count; i++)
+        {
+            if (network.Observations[i] is not BaselineObservation { BaselineId: string id } b) continue;
+            if (!byId.TryGetValue(id, out var slots))
+            {
+                byId[id] = slots = [-1, -1, -1];
+                order.Add(id);
+            }
+            slots[(int)b.Component] = i;
+        }
+        foreach (string id in order)
+        {
+            int[] slots = byId[id];
+            if (slots.Any(i => i < 0)) continue;
+            var parts = slots.Select(i => (BaselineObservation)network.Observations[i]).ToArray();
+            if (parts.Any(p => p.Excluded || p.Covariance is null)) continue;
+            var b = parts[0];
+            projection ??= b.Grid?.Projection;
+            var (dx, dy, dz) = b.Vector;
+            vectors.Add(new BaselineVector(b.From, b.To, dx, dy, dz, [.. b.Covariance!], b.Group, b.Source ?? id));
+            components.Add(slots);
+        }
+        if (vectors.Count == 0) return [];
+        (double Lat, double Lon)? Position(string point)
+        {
+            if (projection is null || !network.Contains(point)) return null;
+            var p = network.Points[network.IndexOf(point)];
+            return p.E is double e && p.N is double n ? projection.Inverse(e, n) : null;
+        }
+        var loops = Find(vectors, projection?.Ellipsoid ?? Ellipsoid.Grs80, Position, confidence);
+        return [.. loops.Select(l => l with { Observations = [.. l.Baselines.SelectMany(k => components[k])] })];
+    }
 
     /// <summary>Finds and checks the loops.</summary>
     /// <param name="vectors">The baselines (those set aside already left out).</param>
