@@ -108,11 +108,12 @@ public static class OptionGrammars
     /// <summary>The demo scenarios of data/ (<c>simulate --scenario</c>).</summary>
     public static TextChoice<DemoScenario> DemoScenarios { get; } = new("a demo scenario",
         "brackenmoor (traverse and level loop), harrowfield (braced network with a blunder), harrowgate "
-        + "(control check with a disturbed mark), corvan (3D traverse in rounds of both faces) or tarnholm (braced "
-        + "network on a UTM grid, ground distances)", false,
+        + "(control check with a disturbed mark), corvan (3D traverse in rounds of both faces), tarnholm (braced "
+        + "network on a UTM grid, ground distances) or skelmoor (GNSS baselines with a traverse and a level line)",
+        false,
         ("brackenmoor", DemoScenario.Brackenmoor), ("harrowfield", DemoScenario.Harrowfield),
         ("harrowgate", DemoScenario.Harrowgate), ("corvan", DemoScenario.CorvanFell),
-        ("tarnholm", DemoScenario.Tarnholm));
+        ("tarnholm", DemoScenario.Tarnholm), ("skelmoor", DemoScenario.Skelmoor));
 
     /// <summary>
     /// Reads the held components of a point (<c>fix</c>): the letters e, n and h in any order (e.g. <c>en</c>,

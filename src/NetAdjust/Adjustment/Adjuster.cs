@@ -210,10 +210,10 @@ public static partial class Adjuster
                 return weights.Quadratic(trial.Value.L);
             });
             if (lambda == Math.Pow(0.5, trials - 1)) current = trial;
-            // A shortened step (λ < 1) counts as converged only when the full correction was already below the
-            // tolerances (`converged` above): then the halving comes from rounding of vᵀPv at the minimum (GNSS
-            // baselines are differences of earth-centred positions of 6e6 m, which carry about 1e-9 m of rounding),
-            // and what is left of the correction is smaller still. Otherwise `converged` is false already.
+            // A shortened step (λ < 1) does not by itself stop convergence: when every correction is already below
+            // its tolerance the state is within the tolerances of the solution whatever λ, and a step that small is
+            // halved by rounding alone (an earth-centred baseline, a difference of coordinates near 6.4e6 m, moves by
+            // an ulp of 1e-9 m and vᵀPv by more than the step control's 1e-9 relative margin, at every trial).
         }
         return iterations;
     }

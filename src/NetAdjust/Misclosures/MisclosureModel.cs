@@ -143,6 +143,9 @@ public sealed record TraverseClosure(TraverseKind Kind, IReadOnlyList<string> Po
 public sealed record MisclosureReport(MisclosureOptions Options, IReadOnlyList<LevelClosure> Levels,
     IReadOnlyList<TraverseClosure> Traverses)
 {
+    /// <summary>Closed loops of GNSS baselines, shortest first (empty when the network has none).</summary>
+    public IReadOnlyList<BaselineLoop> BaselineLoops { get; init; } = [];
+
     /// <summary>True when nothing was found to check.</summary>
-    public bool IsEmpty => Levels.Count == 0 && Traverses.Count == 0;
+    public bool IsEmpty => Levels.Count == 0 && Traverses.Count == 0 && BaselineLoops.Count == 0;
 }
