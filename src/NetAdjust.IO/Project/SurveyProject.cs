@@ -50,4 +50,8 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>The total stations the project specifies (key <c>instruments</c>), in file order; the candidates of
     /// a procedure recommendation.</summary>
     public IReadOnlyList<TotalStationSpecification> Instruments { get; init; } = [];
+
+    /// <summary>The frame the GNSS baselines are given in, as the project names it (key <c>gnss.frame</c>, e.g.
+    /// <c>ITRF2014 @ 2026.9</c>), for reports; null when not given.</summary>
+    public string? GnssFrame { get; init; }
 }

@@ -214,6 +214,7 @@ public static class HtmlReportWriter
         }
 
         RefractionOutput.AppendHtml(sb, r);
+        BaselineSection.AppendHtml(sb, r, c);
         foreach (var section in report.Sections) AppendSection(sb, section);
 
         sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">")
