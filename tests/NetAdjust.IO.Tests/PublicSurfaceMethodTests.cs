@@ -24,6 +24,7 @@ public sealed partial class PublicSurfaceTests
             "a conversion factor (radians in one unit of the project), not an angle, like Angle.ArcsecondsPerRadian",
         ["NetAdjust.Geodesy.IMapProjection.Forward(latitude)"] = ProjectionSeam,
         ["NetAdjust.Geodesy.IMapProjection.Forward(longitude)"] = ProjectionSeam,
+        ["NetAdjust.Geodesy.IMapProjection.Inverse → return"] = ProjectionSeam,
         ["NetAdjust.Observations.ObservationKindRegistry.Difference → return"] = EvaluationSeam,
         ["NetAdjust.Geometry.PlaneGeometry.Direction(orientation)"] = EvaluationSeam,
         ["NetAdjust.Geometry.SpatialGeometry.ZenithByRefraction → return"] = EvaluationSeam
@@ -32,8 +33,8 @@ public sealed partial class PublicSurfaceTests
     };
 
     /// <summary>The reason shared by the seam a projection library is wrapped behind.</summary>
-    private const string ProjectionSeam = "the seam a projection library is wrapped behind (NetAdjust.IO wraps ProjNET):"
-        + " such libraries take and give plain radians, so implementers write this; callers use the typed "
+    private const string ProjectionSeam = "the seam a projection library is wrapped behind (NetAdjust.IO wraps "
+        + "ProjNET): such libraries take and give plain radians, so implementers write this; callers use the typed "
         + "MapProjections.GridOf / GeodeticOf";
 
     /// <summary>The reason shared by the evaluation seam of observation kinds.</summary>
@@ -49,7 +50,10 @@ public sealed partial class PublicSurfaceTests
         var offenders = new List<string>();
         foreach (var (name, doc) in DoubleArguments(docs))
         {
-            string leaf = name[(name.LastIndexOf('(') is int i and > 0 ? i : name.LastIndexOf('→'))..];
+            // The parameter's name, or for a return the method's name.
+            string leaf = name.EndsWith(" → return", StringComparison.Ordinal)
+                ? name[(name.LastIndexOf('.') + 1)..]
+                : name[name.LastIndexOf('(')..];
             bool radians = leaf.Contains("radian", StringComparison.OrdinalIgnoreCase) || SaysRadians().IsMatch(doc);
             if (radians && !AllowedRadianArguments.ContainsKey(name)) offenders.Add($"{name}: {doc}");
         }
@@ -86,11 +90,11 @@ public sealed partial class PublicSurfaceTests
     }
 
     /// <summary>
-    /// Every double (or nullable double, or array of doubles) parameter and return of a public method or
-    /// constructor of a public type, named <c>Type.Method(parameter)</c> or <c>Type.Method → return</c> (overloads
+    /// Every double (or nullable double, array, reference or tuple of doubles) parameter and return of a public
+    /// method or constructor of a public type, named <c>Type.Method(parameter)</c> or <c>Type.Method → return</c> (overloads
     /// share a name), with its documentation text; implementations documented by <c>inheritdoc</c> are checked at
-    /// the member they implement. Property accessors and compiler-made members (records' <c>Deconstruct</c>, operators of
-    /// equality) are not methods here: the properties are checked by
+    /// the member they implement. Property accessors and compiler-made members (records' <c>Deconstruct</c>,
+    /// operators of equality) are not methods here: the properties are checked by
     /// <see cref="NoPublicDoublePropertyOrFieldIsAnAngleInRadians"/>.
     /// </summary>
     private static IEnumerable<(string Name, string Doc)> DoubleArguments(Dictionary<string, string> docs)
@@ -122,8 +126,11 @@ public sealed partial class PublicSurfaceTests
         }
     }
 
+    /// <summary>A double, a nullable double, an array of or a reference to doubles, or a tuple of doubles.</summary>
     private static bool IsDoubleLike(Type t) =>
-        IsDouble(t) || (t.IsArray && IsDouble(t.GetElementType()!)) || (t.IsByRef && IsDouble(t.GetElementType()!));
+        IsDouble(t) || (t.IsArray && IsDouble(t.GetElementType()!)) || (t.IsByRef && IsDouble(t.GetElementType()!))
+        || (t.IsGenericType && t.Namespace == "System" && t.Name.StartsWith("ValueTuple`", StringComparison.Ordinal)
+            && t.GetGenericArguments().All(IsDouble));
 
     private static bool IsMadeByCompiler(MethodInfo m) =>
         m.IsDefined(typeof(CompilerGeneratedAttribute)) || m.Name is "Deconstruct" or "<Clone>$";

@@ -7,7 +7,8 @@ namespace NetAdjust.Stochastic;
 /// The error budget of a horizontal angle β = (foresight direction) − (backsight direction) at one setup:
 /// <list type="bullet">
 /// <item>pointing and reading: the difference of two independent directions, √2·σ_dir with σ_dir from
-/// <see cref="DirectionBudgetBuilder.PointingReading(Units.Angle, ObservingProcedure)"/> (so a 5″ ISO instrument gives 7.1″ for one set);</item>
+/// <see cref="DirectionBudgetBuilder.PointingReading(Units.Angle, ObservingProcedure)"/> (so a 5″ ISO instrument
+/// gives 7.1″ for one set);</item>
 /// <item>instrument centering: an offset e of the instrument (σ_i per axis) changes β by e·(n_b/D_b − n_f/D_f),
 /// n the unit normals of the sights; by the law of propagation of variances
 /// σ = σ_i·√(D_b² + D_f² − 2 D_b D_f cos β)/(D_b D_f) = σ_i·D₃/(D_b D_f), D₃ the distance between the targets.
