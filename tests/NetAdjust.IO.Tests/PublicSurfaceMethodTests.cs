@@ -91,9 +91,9 @@ public sealed partial class PublicSurfaceTests
 
     /// <summary>
     /// Every double (or nullable double, array, reference or tuple of doubles) parameter and return of a public
-    /// method or constructor of a public type, named <c>Type.Method(parameter)</c> or <c>Type.Method → return</c> (overloads
-    /// share a name), with its documentation text; implementations documented by <c>inheritdoc</c> are checked at
-    /// the member they implement. Property accessors and compiler-made members (records' <c>Deconstruct</c>,
+    /// method or constructor of a public type, named <c>Type.Method(parameter)</c> or <c>Type.Method → return</c>
+    /// (overloads share a name), with its documentation text; implementations documented by <c>inheritdoc</c> are
+    /// checked at the member they implement. Property accessors and compiler-made members (records' <c>Deconstruct</c>,
     /// operators of equality) are not methods here: the properties are checked by
     /// <see cref="NoPublicDoublePropertyOrFieldIsAnAngleInRadians"/>.
     /// </summary>
