@@ -118,8 +118,8 @@ public sealed class TypedBudgetTests
     [Fact]
     public void EllipsoidRadiiTakeATypedLatitude()
     {
-        // WGS 84 at φ = 45°: M = 6 367 381.816 m, ν = 6 388 838.290 m (from memory; M = a(1−e²)/(1−e² sin²φ)^1.5,
-        // ν = a/(1−e² sin²φ)^0.5, NIMA TR8350.2).
+        // WGS 84 at φ = 45°: M = 6 367 381.816 m, ν = 6 388 838.290 m (docs/references.md §14, computed once
+        // from a and f with the formulas written there).
         var wgs = Ellipsoid.Wgs84;
         var phi = Angle.FromDegrees(45);
         Assert.Equal(6_367_381.816, wgs.MeridianRadius(phi).Metres, 3);
