@@ -2,49 +2,78 @@ using NetAdjust.Units;
 
 namespace NetAdjust.Diagnosis;
 
-/// <summary>One tested hypothesis (a blunder kind with its best candidate) for one suspect observation.</summary>
-/// <param name="Kind">The blunder kind.</param>
-/// <param name="Description">Plain words, e.g. <c>target height at B7 booked 0.500 m too high</c>.</param>
-/// <param name="Observations">Indices (<see cref="Adjustment.AdjustedObservation.Index"/>) of the observations the
-/// hypothesis biases.</param>
-/// <param name="Dimension">q, the number of bias parameters (1: one amount, spread over one or more observations by
-/// the alternative vector c; more than 1: a matrix C, tested by the generalised likelihood ratio statistic).</param>
-/// <param name="Statistic">q = 1: the w statistic along c, wc = cᵀPv / (σ0 √(cᵀP Qvv P c)), signed as the
-/// w-test of the analysis (v = adjusted − observed), which is Baarda's w of the observation when c is its unit
-/// vector; q &gt; 1: T_q = ŵᵀ(CᵀP Qvv P C)⁻¹ŵ / σ0² with ŵ = CᵀPv (Teunissen 2000).</param>
-/// <param name="CriticalValue">The critical value at α: z(1 − α/2) for |w|, χ²(1 − α; q) for T_q.</param>
-/// <param name="Size">The estimated bias ∇̂ in SI units (m or rad; for the height kinds the wrong height in m):
-/// (cᵀQe⁻¹c)⁻¹cᵀQe⁻¹e from the misclosures e of its observations in the adjustment without them, which in the linear
-/// model equals −(CᵀP Qvv P C)⁻¹CᵀPv of the null model (docs/diagnosis.md); null for kinds with discrete candidates
-/// only.</param>
-/// <param name="SizeSd">Its standard deviation σ0 √((CᵀP Qvv P C)⁻¹); null with <paramref name="Size"/>.</param>
-/// <param name="Candidate">The discrete candidate chosen, in words (<c>0.5 m</c>, <c>ft</c>, <c>B12</c>,
-/// <c>123.4657</c>), or null when the free size is used.</param>
-/// <param name="MaxAbsWAfter">The largest |w| over the network after applying this correction.</param>
-/// <param name="FitsAfter">True when <paramref name="MaxAbsWAfter"/> is within the critical |w| and the global test
-/// then passes.</param>
-/// <param name="Edit">The edit of the project file that applies the correction, when there is one.</param>
-public sealed record BlunderHypothesis(
-    BlunderKind Kind,
-    string Description,
-    IReadOnlyList<int> Observations,
-    int Dimension,
-    double Statistic,
-    double CriticalValue,
-    double? Size,
-    double? SizeSd,
-    string? Candidate,
-    double MaxAbsWAfter,
-    bool FitsAfter,
-    SuggestedEdit? Edit)
+/// <summary>One tested hypothesis (a blunder kind with its best candidate) for one suspect observation. Made by
+/// the diagnosis only (the constructor is internal).</summary>
+public sealed record BlunderHypothesis
 {
+    /// <summary>Made by the diagnosis.</summary>
+    internal BlunderHypothesis(
+        BlunderKind Kind,
+        string Description,
+        IReadOnlyList<int> Observations,
+        int Dimension,
+        double Statistic,
+        double CriticalValue,
+        double? Size,
+        double? SizeSd,
+        string? Candidate,
+        double MaxAbsWAfter,
+        bool FitsAfter,
+        SuggestedEdit? Edit)
+    {
+        this.Kind = Kind;
+        this.Description = Description;
+        this.Observations = Observations;
+        this.Dimension = Dimension;
+        this.Statistic = Statistic;
+        this.CriticalValue = CriticalValue;
+        this.Size = Size;
+        this.SizeSd = SizeSd;
+        this.Candidate = Candidate;
+        this.MaxAbsWAfter = MaxAbsWAfter;
+        this.FitsAfter = FitsAfter;
+        this.Edit = Edit;
+    }
+
+    /// <summary>The blunder kind.</summary>
+    public BlunderKind Kind { get; internal init; }
+
+    /// <summary>Plain words, e.g. <c>target height at B7 booked 0.500 m too high</c>.</summary>
+    public string Description { get; internal init; }
+
+    /// <summary>q, the number of bias parameters (1: one amount, spread over one or more observations by
+    /// the alternative vector c; more than 1: a matrix C, tested by the generalised likelihood ratio statistic).</summary>
+    public int Dimension { get; internal init; }
+
+    /// <summary>q = 1: the w statistic along c, wc = cᵀPv / (σ0 √(cᵀP Qvv P c)), signed as the
+    /// w-test of the analysis (v = adjusted − observed), which is Baarda's w of the observation when c is its unit
+    /// vector; q &gt; 1: T_q = ŵᵀ(CᵀP Qvv P C)⁻¹ŵ / σ0² with ŵ = CᵀPv (Teunissen 2000).</summary>
+    public double Statistic { get; internal init; }
+
+    /// <summary>The critical value at α: z(1 − α/2) for |w|, χ²(1 − α; q) for T_q.</summary>
+    public double CriticalValue { get; internal init; }
+
+    /// <summary>The discrete candidate chosen, in words (<c>0.5 m</c>, <c>ft</c>, <c>B12</c>,
+    /// <c>123.4657</c>), or null when the free size is used.</summary>
+    public string? Candidate { get; internal init; }
+
+    /// <summary>The largest |w| over the network after applying this correction.</summary>
+    public double MaxAbsWAfter { get; internal init; }
+
+    /// <summary>True when <see cref="MaxAbsWAfter"/> is within the critical |w| and the global test
+    /// then passes.</summary>
+    public bool FitsAfter { get; internal init; }
+
+    /// <summary>The edit of the project file that applies the correction, when there is one.</summary>
+    public SuggestedEdit? Edit { get; internal init; }
+
     /// <summary>The estimated bias ∇̂ in SI units, for the library and its writers; the public, typed view is
     /// <see cref="EstimatedSize"/>.</summary>
-    internal double? Size { get; init; } = Size;
+    internal double? Size { get; init; }
 
     /// <summary>Its standard deviation in SI units; the public, typed view is <see cref="EstimatedSizeSd"/>.
     /// </summary>
-    internal double? SizeSd { get; init; } = SizeSd;
+    internal double? SizeSd { get; init; }
 
     /// <summary>True when <see cref="Size"/> is an angle (a bias of the values of angular observations).</summary>
     internal bool SizeIsAngle { get; init; }
@@ -58,7 +87,11 @@ public sealed record BlunderHypothesis(
     public Quantity? EstimatedSizeSd => SizeSd is double s ? Quantity.FromSi(s, SizeIsAngle) : null;
 
     /// <summary>Indices of the observations the hypothesis biases.</summary>
-    public IReadOnlyList<int> Observations { get; init; } = ReadOnlyCopies.List(Observations);
+    public IReadOnlyList<int> Observations
+    {
+        get;
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>True when the statistic exceeds its critical value: the data reject the null model in favour of
     /// this alternative.</summary>
@@ -66,5 +99,5 @@ public sealed record BlunderHypothesis(
 
     /// <summary>The p-value of the global test after the correction, P(χ²(r′) ≥ vᵀPv′/σ0²) with r′ = r − q for a
     /// free size and r′ = r for a discrete candidate; the ranking prefers the larger (docs/diagnosis.md).</summary>
-    public double FitAfter { get; init; }
+    public double FitAfter { get; internal init; }
 }
