@@ -5,13 +5,45 @@ using NetAdjust.Network;
 namespace NetAdjust.Adjustment;
 
 /// <summary>One adjusted frame parameter between a GNSS frame and the local control (docs/methods.md, "GNSS
-/// baselines").</summary>
-/// <param name="Frame">The frame's id.</param>
-/// <param name="Parameter">Which parameter (<see cref="Parameter.FrameRotationX"/> ... <see
-/// cref="Parameter.FrameScale"/>).</param>
-/// <param name="Value">The estimate: radians for rotations, dimensionless for the scale difference.</param>
-/// <param name="Sd">Its standard deviation (with the a-priori variance factor), same unit.</param>
-public sealed record AdjustedFrameParameter(string Frame, Parameter Parameter, double Value, double Sd);
+/// baselines"). Made by the adjustment only (the constructor is internal).</summary>
+public sealed record AdjustedFrameParameter
+{
+    /// <summary>Made by the adjustment.</summary>
+    internal AdjustedFrameParameter(string Frame, Parameter Parameter, double Value, double Sd)
+    {
+        this.Frame = Frame; this.Parameter = Parameter; this.Value = Value; this.Sd = Sd;
+    }
+
+    /// <summary>The frame's id.</summary>
+    public string Frame { get; internal init; }
+
+    /// <summary>Which parameter (<see cref="Parameter.FrameRotationX"/> ... <see cref="Parameter.FrameScale"/>).
+    /// </summary>
+    public Parameter Parameter { get; internal init; }
+
+    /// <summary>The estimate in SI: radians for rotations, dimensionless for the scale difference. Internal: the
+    /// public, typed views are <see cref="Rotation"/> and <see cref="ScaleDifference"/>.</summary>
+    internal double Value { get; init; }
+
+    /// <summary>Its standard deviation (with the a-priori variance factor), same unit.</summary>
+    internal double Sd { get; init; }
+
+    /// <summary>True for the scale difference, false for the three rotations.</summary>
+    public bool IsScale => Parameter == Parameter.FrameScale;
+
+    /// <summary>The rotation for a rotation parameter; null for the scale.</summary>
+    public Units.Angle? Rotation => IsScale ? null : Units.Angle.FromRadians(Value);
+
+    /// <summary>The standard deviation of <see cref="Rotation"/>; null for the scale.</summary>
+    public Units.Angle? RotationSd => IsScale ? null : Units.Angle.FromRadians(Sd);
+
+    /// <summary>The scale difference (dimensionless, e.g. 2e-6 for 2 ppm) for the scale parameter; null for
+    /// rotations.</summary>
+    public double? ScaleDifference => IsScale ? Value : null;
+
+    /// <summary>The standard deviation of <see cref="ScaleDifference"/>; null for rotations.</summary>
+    public double? ScaleDifferenceSd => IsScale ? Sd : null;
+}
 
 /// <summary>The frame parameters of GNSS baselines as unknowns: which frames have them, their unknowns, the
 /// convergence tolerance and the adjusted values.</summary>
