@@ -64,8 +64,7 @@ internal static class SolverChoice
             {
                 Geometry.Parameter.Orientation => stationOfSet[u.Owner],
                 Geometry.Parameter.Refraction => stationOfGroup[u.Owner], // placed with its group's first station
-                Geometry.Parameter.FrameRotationX or Geometry.Parameter.FrameRotationY or Geometry.Parameter.FrameRotationZ
-                    or Geometry.Parameter.FrameScale => stationOfGroup["\u0001frame " + u.Owner], // its first baseline
+                _ when FrameParameters.IsFrame(u.Parameter) => stationOfGroup["\u0001frame " + u.Owner], // 1st baseline
                 _ => u.Owner,
             };
             groupOf[j] = network.IndexOf(owner);

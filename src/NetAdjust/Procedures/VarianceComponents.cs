@@ -233,7 +233,8 @@ public static class VarianceComponents
             if (!seen.Add(blk)) continue;
             for (int a = 0; a < blk.Size; a++)
                 for (int b = 0; b < blk.Size; b++)
-                    s += result.Observations[blk.Rows[a]].Residual * blk[a, b] * result.Observations[blk.Rows[b]].Residual;
+                    s += result.Observations[blk.Rows[a]].Residual * blk[a, b]
+                        * result.Observations[blk.Rows[b]].Residual;
         }
         return s / result.Statistics.AprioriVarianceFactor;
     }

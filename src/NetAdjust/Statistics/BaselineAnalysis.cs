@@ -65,7 +65,8 @@ public static class BaselineAnalysis
             var first = (BaselineObservation)result.Network.Observations[rows[0]];
             var v = new double[3];
             foreach (int r in rows)
-                v[(int)((BaselineObservation)result.Network.Observations[r]).Component] = result.Observations[r].Residual;
+                v[(int)((BaselineObservation)result.Network.Observations[r]).Component] =
+                    result.Observations[r].Residual;
             var rotation = Rotation(result, first);
             double Row(int i) => rotation is null ? double.NaN
                 : (rotation[i * 3] * v[0]) + (rotation[(i * 3) + 1] * v[1]) + (rotation[(i * 3) + 2] * v[2]);

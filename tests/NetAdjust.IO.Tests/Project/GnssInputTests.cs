@@ -108,7 +108,8 @@ public class GnssInputTests
     [Fact]
     public void BaselinesWithoutAProjectionAreRefused()
     {
-        string head = "project: t\npoints:\n  - {id: GA1, e: 0, n: 0, h: 0, fix: enh}\n  - {id: GA2, e: 1, n: 1, h: 0}\n";
+        string head = "project: t\npoints:\n  - {id: GA1, e: 0, n: 0, h: 0, fix: enh}\n" +
+            "  - {id: GA2, e: 1, n: 1, h: 0}\n";
         var e = Refused("gnss:\n  baselines:\n" + Baseline, head: head);
         Assert.Equal(7, e.Line);
         Assert.Contains("map projection", e.Message);

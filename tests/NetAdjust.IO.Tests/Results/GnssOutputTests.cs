@@ -61,7 +61,8 @@ public sealed class GnssOutputTests
                 for (int c = 0; c < 3; c++) d[c] += 0.05 * up[c];
             }
             string F(double v) => v.ToString("F4", CultureInfo.InvariantCulture);
-            sb.Append($"    - {{from: {Truth[pairs[k].A].Id}, to: {Truth[pairs[k].B].Id}, dx: {F(d[0])}, dy: {F(d[1])}, ")
+            sb.Append($"    - {{from: {Truth[pairs[k].A].Id}, to: {Truth[pairs[k].B].Id}, ")
+              .Append($"dx: {F(d[0])}, dy: {F(d[1])}, ")
               .Append($"dz: {F(d[2])}, sd: [0.002, 0.0018, 0.0035], corr: [0.3, -0.4, -0.2]")
               .Append(k < 3 ? ", group: S1}\n" : "}\n");
         }

@@ -67,4 +67,23 @@ public sealed class BaselineAdjustmentTests
         Assert.Equal(9, result.Statistics.DegreesOfFreedom);
         Assert.Equal(vtpv, result.Statistics.Vtpv, 1e-6 * vtpv);
     }
+
+    [Fact]
+    public void PointsReachedOnlyByBaselinesGetStartValuesFromThem()
+    {
+        // GA2..GA4 without coordinates: the baselines place them from GA1 (the chain grid → earth-centred + Δ →
+        // grid), and the adjustment reaches the same solution as with start values given (1e-6 m).
+        var net = BaselineTestNetworks.Network(seed: 19);
+        var bare = new SurveyNetwork(net.Name, net.Points.Select(p => p.IsControl ? p : new Point(p.Id)),
+            net.Observations);
+        var options = AdjustmentOptions.Default with { LengthTolerance = 1e-7 };
+        var a = Adjuster.Adjust(net, options);
+        var b = Adjuster.Adjust(bare, options);
+        for (int i = 0; i < a.Points.Count; i++)
+        {
+            Assert.Equal(a.Points[i].E!.Value, b.Points[i].E!.Value, 1e-6);
+            Assert.Equal(a.Points[i].N!.Value, b.Points[i].N!.Value, 1e-6);
+            Assert.Equal(a.Points[i].H!.Value, b.Points[i].H!.Value, 1e-6);
+        }
+    }
 }

@@ -56,8 +56,9 @@ public sealed class FrameParameterTests
     [Fact]
     public void WithoutFrameParametersTheTurnedBaselinesDoNotFit()
     {
-        // The same data (noise as stated) adjusted without frame parameters: vᵀPv is far above χ²(0.975; r) (the rotation of
-        // 2″ is 5 cm on the 5 km baselines, many σ), with them it is not. It would fail if the parameters did nothing.
+        // The same data (noise as stated) adjusted without frame parameters: vᵀPv is far above χ²(0.975; r) (the
+        // rotation of 2″ is 5 cm on the 5 km baselines, many σ), with them it is not. It would fail if the
+        // parameters did nothing.
         double sec = Math.PI / 648000;
         var none = new BaselineFrame("gnss", FrameParameterSet.None);
         var with = new BaselineFrame("gnss", FrameParameterSet.Rotations);
