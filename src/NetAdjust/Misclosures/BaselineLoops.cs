@@ -17,9 +17,10 @@ namespace NetAdjust.Misclosures;
 /// </summary>
 internal static class BaselineLoops
 {
-    /// <summary>Above this many Horton candidates (points × baselines) only the cross-group candidates and the
-    /// fundamental cycles of one breadth-first tree are used: still a basis, not always the shortest.</summary>
-    private const long MaxHortonCandidates = 2_000_000;
+    /// <summary>Above this many Horton candidates (points × baselines) the candidates are the shortest loop through
+    /// each baseline, the cross-group loops and the fundamental cycles of one breadth-first tree per connected part:
+    /// still a basis of short loops, not always the shortest one (a check stays well under a second).</summary>
+    private const long MaxHortonCandidates = 250_000;
 
     private sealed record Candidate(int[] Edges, bool Trivial, double Length, int Order);
 
@@ -120,9 +121,20 @@ internal static class BaselineLoops
                 f => f != e && (g is null || vectors[edges[f].Vector].Group != g));
             if (path is not null) Add([e, .. path]);
         }
-        // Horton's candidates (or the fundamental cycles of one tree when the network is very large).
-        IEnumerable<int> roots = (long)n * m <= MaxHortonCandidates ? Enumerable.Range(0, n) : [0];
-        foreach (int v in roots) AddHorton(v, n, adjacency, edges, Add);
+        // Horton's candidates; for a large network the shortest loop through each baseline and the fundamental
+        // cycles of one tree per connected part instead (these always complete a basis).
+        if ((long)n * m <= MaxHortonCandidates)
+            for (int v = 0; v < n; v++) AddHorton(v, n, adjacency, edges, Add, fundamental: false);
+        else
+        {
+            for (int e = 0; e < m; e++)
+            {
+                var path = ShortestPath(edges[e].B, edges[e].A, adjacency, edges, f => f != e);
+                if (path is not null) Add([e, .. path]);
+            }
+            foreach (int v in ComponentRoots(n, adjacency, edges))
+                AddHorton(v, n, adjacency, edges, Add, fundamental: true);
+        }
 
         // Shortest basis: mixed loops before trivial ones, then fewest baselines, then shortest, then order found.
         var ordered = candidates.OrderBy(c => c.Trivial).ThenBy(c => c.Edges.Length).ThenBy(c => c.Length)
@@ -177,9 +189,10 @@ internal static class BaselineLoops
 
     /// <summary>Horton's candidates of one root: the breadth-first tree of shortest paths from v (fewest baselines,
     /// ties by input order) and, for every baseline outside it, the two tree paths closed by it when they meet only
-    /// at v.</summary>
+    /// at v; with <paramref name="fundamental"/>, for every baseline outside the tree its fundamental cycle (the two
+    /// tree paths up to where they meet), which together span the cycles of v's connected part.</summary>
     private static void AddHorton(int v, int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges,
-        Action<List<int>> add)
+        Action<List<int>> add, bool fundamental)
     {
         var parent = new int[n];
         var depth = new int[n];
@@ -202,18 +215,17 @@ internal static class BaselineLoops
         {
             var (a, b, _) = edges[e];
             if (parent[a] == -2 || parent[b] == -2 || parent[a] == e || parent[b] == e) continue;
-            var pa = PathToRoot(a, parent, edges);
-            var pb = PathToRoot(b, parent, edges);
-            if (Meet(a, b, parent, edges) != v) continue;
-            add([e, .. pa, .. pb]);
+            int meet = Meet(a, b, parent, edges);
+            if (meet != v && !fundamental) continue;
+            add([e, .. PathTo(a, meet, parent, edges), .. PathTo(b, meet, parent, edges)]);
         }
     }
 
-    /// <summary>The tree edges from a node up to the root.</summary>
-    private static List<int> PathToRoot(int node, int[] parent, List<(int A, int B, int Vector)> edges)
+    /// <summary>The tree edges from a node up to one of its ancestors.</summary>
+    private static List<int> PathTo(int node, int ancestor, int[] parent, List<(int A, int B, int Vector)> edges)
     {
         var path = new List<int>();
-        for (int u = node; parent[u] >= 0; u = Other(edges[parent[u]], u)) path.Add(parent[u]);
+        for (int u = node; u != ancestor; u = Other(edges[parent[u]], u)) path.Add(parent[u]);
         return path;
     }
 
@@ -258,14 +270,18 @@ internal static class BaselineLoops
         return path;
     }
 
-    private static int Components(int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges)
+    private static int Components(int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges) =>
+        ComponentRoots(n, adjacency, edges).Count;
+
+    /// <summary>The first point of each connected part.</summary>
+    private static List<int> ComponentRoots(int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges)
     {
         var seen = new bool[n];
-        int count = 0;
+        var roots = new List<int>();
         for (int s = 0; s < n; s++)
         {
             if (seen[s]) continue;
-            count++;
+            roots.Add(s);
             seen[s] = true;
             var stack = new Stack<int>([s]);
             while (stack.Count > 0)
@@ -278,7 +294,7 @@ internal static class BaselineLoops
                 }
             }
         }
-        return count;
+        return roots;
     }
 
     /// <summary>Walks the cycle from the first point of its first baseline (in input order), sums the vectors

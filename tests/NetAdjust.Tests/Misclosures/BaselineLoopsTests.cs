@@ -220,6 +220,48 @@ public class BaselineLoopsTests
         Assert.Empty(Find([]));
     }
 
+    /// <summary>A lattice of points 1 km apart (rows × columns), joined to their east and north neighbours, each
+    /// part's vectors in the plane (positions are not needed for the count).</summary>
+    private static List<BaselineVector> Lattice(string prefix, int rows, int columns, string? group = null)
+    {
+        double[] cov = [1e-5, 0, 0, 0, 1e-5, 0, 0, 0, 1e-5];
+        var v = new List<BaselineVector>();
+        string Id(int r, int c) => $"{prefix}{r}-{c}";
+        for (int r = 0; r < rows; r++)
+            for (int c = 0; c < columns; c++)
+            {
+                if (c + 1 < columns) v.Add(new BaselineVector(Id(r, c), Id(r, c + 1), 1000, 0, 0, cov, group, null));
+                if (r + 1 < rows) v.Add(new BaselineVector(Id(r, c), Id(r + 1, c), 0, 1000, 0, cov, group, null));
+            }
+        return v;
+    }
+
+    [Fact]
+    public void LoopsOfALatticeAreItsSquares()
+    {
+        // The shortest cycle basis of a plane lattice is its faces (graph theory, common practice): 5 × 5 points,
+        // 40 baselines, 16 loops of four.
+        var loops = BaselineLoops.Find(Lattice("P", 5, 5), Grs80, _ => null, 0.95);
+        Assert.Equal(40 - 25 + 1, loops.Count);
+        Assert.All(loops, l => Assert.Equal(4, l.Baselines.Count));
+    }
+
+    [Fact]
+    public void LargeNetworkInSeveralPartsGetsALoopForEachUnitOfCycleRank()
+    {
+        // Two lattices of 30 × 25 points, all of one session (1,500 points, 2,890 baselines: above the size where
+        // every point's shortest paths are tried): still m − n + c = 2890 − 1500 + 2 = 1392 independent loops, each
+        // closed and trivial. Before the fix the large-network candidates (one tree from the first point, paths
+        // meeting only at it) missed loops: far fewer than the cycle rank came out.
+        var v = Lattice("A", 30, 25, "S1").Concat(Lattice("B", 30, 25, "S1")).ToList();
+        var loops = BaselineLoops.Find(v, Grs80, _ => null, 0.95);
+        Assert.Equal(1392, loops.Count);
+        Assert.Equal(1392, Gf2Rank([.. loops.Select(l => l.Baselines)], v.Count));
+        Assert.All(loops, l => Assert.Equal(l.Points[0], l.Points[^1]));
+        Assert.All(loops, l => Assert.True(l.Trivial));
+        Assert.All(loops, l => Assert.Equal(0, l.Misclosure, 9)); // exact vectors close exactly
+    }
+
     private static double Dist(double x1, double y1, double z1, double x2, double y2, double z2) =>
         Math.Sqrt((x2 - x1) * (x2 - x1) + (y2 - y1) * (y2 - y1) + (z2 - z1) * (z2 - z1));
 
