@@ -151,8 +151,8 @@ internal static partial class CsvObservationReader
                     "read from CSV: write it in the project file"),
             });
             if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, item));
-            result.Add(ObservationMarks.Apply(budget is null ? o : o with { Weighting = budget }, Get("exclude"),
-                Get("sd_factor"), file, lineNo, item));
+            result.Add(ObservationMarks.Apply(o with { Weighting = budget ?? o.Weighting, BookedText = value },
+                Get("exclude"), Get("sd_factor"), file, lineNo, item));
         }
         CheckSlopesHaveZeniths(result, slopes, specs, file);
         return result;

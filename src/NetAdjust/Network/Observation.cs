@@ -117,6 +117,10 @@ public abstract record Observation
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
 
+    /// <summary>The value's text as it is in the file (e.g. <c>123.4567</c> or <c>123-45-56.7</c>), for the blunder
+    /// diagnosis (transposed digits) and its suggested edits; null when not read from a file.</summary>
+    public string? BookedText { get; init; }
+
     /// <summary>
     /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but
     /// is still reported, with its misclosure against the adjusted coordinates. Nothing is deleted from the data.
