@@ -140,6 +140,7 @@ public static class TextReportWriter
 
         RefractionOutput.AppendText(sb, r);
         StatisticsReport.Append(sb, report.Sections, output);
+        DiagnosisOutput.AppendText(sb, report);
         Line(Caution);
         TextChunks.Drain(sb, output);
     }
