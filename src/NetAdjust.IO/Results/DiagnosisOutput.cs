@@ -126,29 +126,41 @@ internal static class DiagnosisOutput
         {
             var o = r.Network.Observations[s.Observation];
             Line();
-            TextReportSections.Wrapped(sb, "  ", Headline(s, o) + "; " + Verdict(s));
-            Line($"    {"#",2} {"Hypothesis",-20} {"q",2} {"Statistic",9} {"Critical",8} {"Size",10} {"sd",8} " +
+            TextReportSections.Wrapped(sb, "  ", Headline(s, o));
+            TextReportSections.Wrapped(sb, "    ", Verdict(s));
+            Line($"  {"#",2} {"Hypothesis",-20} {"q",2} {"Statistic",9} {"Critical",8} {"Size",10} {"sd",8} " +
                  $"{"Unit",-6} {"Candidate",-13} {"After",6} Fits");
             int rank = 0;
             foreach (var h in s.Ranked)
             {
                 var (size, sd, unit) = Size(h, o, units);
-                Line($"    {++rank,2} {TextReportWriter.Clip(Name(h.Kind), 20),-20} {h.Dimension,2} " +
+                Line($"  {++rank,2} {TextReportWriter.Clip(Name(h.Kind), 20),-20} {h.Dimension,2} " +
                      $"{F(h.Statistic),9} {F(h.CriticalValue),8} {size,10} {sd,8} {unit,-6} " +
                      $"{TextReportWriter.Clip(h.Candidate ?? "-", 13),-13} {F(h.MaxAbsWAfter),6} " +
                      (h.FitsAfter ? "yes" : "no"));
-                TextReportSections.Wrapped(sb, "       ", h.Description + Group(h));
+                TextReportSections.Wrapped(sb, "     ", h.Description + Group(h));
             }
             if (Pairs(s) is string pairs) TextReportSections.Wrapped(sb, "    ", pairs);
             if (EditOf(s) is SuggestedEdit e)
             {
                 Line("    Suggested edit of the project file (after checking the field book):");
-                TextReportSections.Wrapped(sb, "      ", EditLine(e, o, s.Observation));
+                EditText(sb, e, o, s.Observation);
             }
         }
         Line();
         TextReportSections.Wrapped(sb, "  ", NeverChanges);
         Line();
+    }
+
+    /// <summary>The edit line, as it is (its double spaces kept); a line too long for the report is split after
+    /// the file and line.</summary>
+    private static void EditText(StringBuilder sb, SuggestedEdit e, Observation o, int index)
+    {
+        string line = "      " + EditLine(e, o, index);
+        if (line.Length <= TextReportSections.MaxWidth) { sb.Append(line).Append('\n'); return; }
+        string where = e.Source ?? o.Source ?? $"observation #{index + 1}";
+        sb.Append("      ").Append(where).Append('\n')
+          .Append("        ").Append(line[(6 + where.Length)..].TrimStart()).Append('\n');
     }
 
     /// <summary>The observations of a group hypothesis, e.g. <c> (observations #3, #4, #9)</c>; empty for one.
