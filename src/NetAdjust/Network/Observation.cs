@@ -117,8 +117,8 @@ public abstract record Observation
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
     public string? Source { get; init; }
 
-    /// <summary>The value's text as it is in the file (e.g. <c>123.4567</c> or <c>123-45-56.7</c>), for the blunder
-    /// diagnosis (transposed digits) and its suggested edits; null when not read from a file.</summary>
+    /// <summary>The value's text as booked in the file (e.g. <c>123.4567</c> or <c>123-45-12.3</c>), for the blunder
+    /// diagnosis (transposed digits); null when not known.</summary>
     public string? BookedText { get; init; }
 
     /// <summary>

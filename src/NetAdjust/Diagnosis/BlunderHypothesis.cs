@@ -1,0 +1,47 @@
+namespace NetAdjust.Diagnosis;
+
+/// <summary>One tested hypothesis (a blunder kind with its best candidate) for one suspect observation.</summary>
+/// <param name="Kind">The blunder kind.</param>
+/// <param name="Description">Plain words, e.g. <c>target height at B7 booked 0.500 m too high</c>.</param>
+/// <param name="Observations">Indices (<see cref="Adjustment.AdjustedObservation.Index"/>) of the observations the
+/// hypothesis biases.</param>
+/// <param name="Dimension">q, the number of bias parameters (1: one amount, spread over one or more observations by
+/// the alternative vector c; more than 1: a matrix C, tested by the generalised likelihood ratio statistic).</param>
+/// <param name="Statistic">q = 1: the w statistic along c, wc = cᵀPv / (σ0 √(cᵀP Qvv P c)), signed as the
+/// w-test of the analysis (v = adjusted − observed), which is Baarda's w of the observation when c is its unit
+/// vector; q &gt; 1: T_q = ŵᵀ(CᵀP Qvv P C)⁻¹ŵ / σ0² with ŵ = CᵀPv (Teunissen 2000).</param>
+/// <param name="CriticalValue">The critical value at α: z(1 − α/2) for |w|, χ²(1 − α; q) for T_q.</param>
+/// <param name="Size">The estimated bias ∇̂ = −(CᵀP Qvv P C)⁻¹CᵀPv in SI units (m, rad, or m per m of height for the
+/// height kinds, i.e. the wrong height amount in m); null for kinds with discrete candidates only.</param>
+/// <param name="SizeSd">Its standard deviation σ0 √((CᵀP Qvv P C)⁻¹); null with <paramref name="Size"/>.</param>
+/// <param name="Candidate">The discrete candidate chosen, in words (<c>0.5 m</c>, <c>ft</c>, <c>B12</c>,
+/// <c>123.4657</c>), or null when the free size is used.</param>
+/// <param name="MaxAbsWAfter">The largest |w| over the network after applying this correction.</param>
+/// <param name="FitsAfter">True when <paramref name="MaxAbsWAfter"/> is within the critical |w| and the global test
+/// then passes.</param>
+/// <param name="Edit">The edit of the project file that applies the correction, when there is one.</param>
+public sealed record BlunderHypothesis(
+    BlunderKind Kind,
+    string Description,
+    IReadOnlyList<int> Observations,
+    int Dimension,
+    double Statistic,
+    double CriticalValue,
+    double? Size,
+    double? SizeSd,
+    string? Candidate,
+    double MaxAbsWAfter,
+    bool FitsAfter,
+    SuggestedEdit? Edit)
+{
+    /// <summary>Indices of the observations the hypothesis biases.</summary>
+    public IReadOnlyList<int> Observations { get; init; } = ReadOnlyCopies.List(Observations);
+
+    /// <summary>True when the statistic exceeds its critical value: the data reject the null model in favour of
+    /// this alternative.</summary>
+    public bool Significant => Dimension == 1 ? Math.Abs(Statistic) > CriticalValue : Statistic > CriticalValue;
+
+    /// <summary>The p-value of the global test after the correction, P(χ²(r′) ≥ vᵀPv′/σ0²) with r′ = r − q for a
+    /// free size and r′ = r for a discrete candidate; the ranking prefers the larger (docs/diagnosis.md).</summary>
+    public double FitAfter { get; init; }
+}
