@@ -4,6 +4,8 @@ using NetAdjust.Diagnosis;
 using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
 using NetAdjust.IO.Text;
+using NetAdjust.Network;
+using NetAdjust.Statistics;
 
 namespace NetAdjust.Cli.Commands;
 
@@ -40,9 +42,9 @@ internal sealed class DiagnosisCliOptions
     }
 
     /// <summary>
-    /// Diagnoses the suspects when <c>--diagnose</c> is given and returns the context carrying the diagnosis: of
-    /// <paramref name="result"/>, or, after a blunder hunt, of the first round (the network as booked, adjusted
-    /// again with the result's options).
+    /// Diagnoses the suspects when <c>--diagnose</c> is given and returns the context carrying the diagnosis: the
+    /// suspects of <paramref name="result"/>; after a blunder hunt that set observations aside, each of them in the
+    /// round it was set aside (the network with the observations set aside before it left out), in the order found.
     /// </summary>
     /// <exception cref="InvalidInputException">When a kind name is unknown, or the skip list is given without
     /// <c>--diagnose</c>.</exception>
@@ -59,8 +61,29 @@ internal sealed class DiagnosisCliOptions
             Enabled = Enabled(skipText), Alpha = result.Options.Analysis.WTestAlpha,
         };
         project.Options.Progress?.Report(new AdjustmentProgress("diagnosing the suspects", null));
-        var diagnosed = context.Hunt is null ? result : Adjuster.Adjust(project.Network, result.Options);
-        return context with { Diagnosis = BlunderDiagnosis.Diagnose(diagnosed, options) };
+        if (context.Hunt is not { SetAside.Count: > 0 } hunt)
+            return context with { Diagnosis = BlunderDiagnosis.Diagnose(result, options) };
+        return context with { Diagnosis = HuntRounds(project.Network, hunt.SetAside, result.Options, options) };
+    }
+
+    /// <summary>The diagnosis of each observation a hunt set aside, in the round it was set aside; an observation
+    /// that is no suspect there (set aside by the tau test, but within the w-test) is left out.</summary>
+    private static NetAdjust.Diagnosis.Diagnosis HuntRounds(SurveyNetwork network, IReadOnlyList<int> setAside,
+        AdjustmentOptions adjustment, DiagnosisOptions options)
+    {
+        // the w of a round needs no external reliability or relative precision (as in the hunt's own rounds)
+        var quick = adjustment with { Analysis = adjustment.Analysis with { ExternalReliability =
+            ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [] } };
+        var suspects = new List<SuspectDiagnosis>();
+        foreach (int k in setAside)
+        {
+            var round = BlunderDiagnosis.Diagnose(Adjuster.Adjust(network, quick), options);
+            if (round.Suspects.FirstOrDefault(s => s.Observation == k) is SuspectDiagnosis found) suspects.Add(found);
+            var obs = network.Observations.ToArray();
+            obs[k] = obs[k] with { Excluded = true };
+            network = new SurveyNetwork(network.Name, network.Points, obs);
+        }
+        return new NetAdjust.Diagnosis.Diagnosis(suspects, options);
     }
 
     /// <summary>Every kind but those named in the skip list (null: all).</summary>

@@ -68,16 +68,25 @@ internal static class DiagnosisOutput
 
     /// <summary>The explanation above the suspects (text report lines; the HTML report joins them).</summary>
     private static string Basis(DiagnosisResult d, ReportContext c, double critical) =>
-        "Suspects: the observations that fail the w-test (alpha " + d.Options.Alpha.ToString("0.####", Inv) +
-        $", critical |w| {F(critical)}) in the adjustment of all observations as booked" +
-        (c.Hunt is null ? "" : " (the first round of the blunder hunt)") +
-        $", or the {d.Options.WorstWhenGlobalFails} largest |w| when only the global test fails. Each hypothesis " +
+        (HuntRounds(c)
+            ? "Suspects: each observation the blunder hunt set aside, in the round it was set aside (the " +
+              "observations set aside before it left out), where it fails the w-test (alpha " + A(d) +
+              $", critical |w| {F(critical)}). Each hypothesis "
+            : "Suspects: the observations that fail the w-test (alpha " + A(d) + $", critical |w| {F(critical)}) " +
+              $"in the adjustment, or the {d.Options.WorstWhenGlobalFails} largest |w| when only the global test " +
+              "fails. Each hypothesis ") +
         "is a model of how a field blunder biases the suspect (or a group of observations with it); its statistic " +
         "is w for one observation (q = 1) or the generalised likelihood ratio statistic T for q observations, " +
         "against its critical value. Size = the estimated blunder and sd its standard deviation; After = the " +
         "largest |w| in the network once it is corrected; Fits = After below the critical |w| and the global " +
         "test passed. Kinds tried: " + string.Join(", ", Enum.GetValues<BlunderKind>()
             .Where(d.Options.Enabled.Contains).Select(Name)) + ".";
+
+    /// <summary>True when the suspects are the observations a blunder hunt set aside, each diagnosed in its round.
+    /// </summary>
+    private static bool HuntRounds(ReportContext c) => c.Hunt is { SetAside.Count: > 0 };
+
+    private static string A(DiagnosisResult d) => d.Options.Alpha.ToString("0.####", Inv);
 
     /// <summary>The suspect's headline, e.g. <c>#26 distance H3→H4 (site.yaml:59): w = -7.23</c>.</summary>
     private static string Headline(SuspectDiagnosis s, Observation o) =>
@@ -102,12 +111,13 @@ internal static class DiagnosisOutput
         {
             case SizeClass.Angle:
                 string A(double? v) => v is double x && double.IsFinite(x) ? units.SmallAngle(x) : "-";
-                return (A(h.Size), A(h.SizeSd), units.SmallAngleSymbol);
+                return (A(h.Size), A(h.SizeSd), h.Size is null ? "" : units.SmallAngleSymbol);
             case SizeClass.Factor:
                 string Fa(double? v) => v is double x && double.IsFinite(x) ? x.ToString("F6", Inv) : "-";
-                return (Fa(h.Size), Fa(h.SizeSd), "factor");
+                return (Fa(h.Size), Fa(h.SizeSd), h.Size is null ? "" : "factor");
             default:
-                return (units.SmallLength(h.Size), units.SmallLength(h.SizeSd), units.LengthSymbol);
+                return (units.SmallLength(h.Size), units.SmallLength(h.SizeSd),
+                    h.Size is null ? "" : units.LengthSymbol);
         }
     }
 
@@ -136,7 +146,7 @@ internal static class DiagnosisOutput
                 var (size, sd, unit) = Size(h, o, units);
                 Line($"  {++rank,2} {TextReportWriter.Clip(Name(h.Kind), 20),-20} {h.Dimension,2} " +
                      $"{F(h.Statistic),9} {F(h.CriticalValue),8} {size,10} {sd,8} {unit,-6} " +
-                     $"{TextReportWriter.Clip(h.Candidate ?? "-", 13),-13} {F(h.MaxAbsWAfter),6} " +
+                     $"{TextReportWriter.Clip(h.Candidate ?? "-", 13),-13} {After(h.MaxAbsWAfter),6} " +
                      (h.FitsAfter ? "yes" : "no"));
                 TextReportSections.Wrapped(sb, "     ", h.Description + Group(h));
             }
@@ -217,7 +227,7 @@ internal static class DiagnosisOutput
         if (report.Context.Diagnosis is not DiagnosisResult d) return null;
         var r = report.Result;
         return new ResultJson.DiagnosisSection(d.Options.Alpha, report.WCritical,
-            report.Context.Hunt is null ? "adjustment" : "first_hunt_round",
+            HuntRounds(report.Context) ? "hunt_rounds" : "adjustment",
             Enum.GetValues<BlunderKind>().Where(d.Options.Enabled.Contains).Select(Name),
             d.Suspects.Select(s =>
             {
@@ -244,6 +254,10 @@ internal static class DiagnosisOutput
             h.Edit is SuggestedEdit e ? new ResultJson.Edit(e.Source, e.Item, e.Booked, e.Suggested,
                 EditLine(e, o, index)) : null);
     }
+
+    /// <summary>The largest |w| after a correction for the text report's narrow column: above 999.99 as
+    /// <c>&gt;999</c> (the JSON has the value).</summary>
+    private static string After(double v) => v > 999.99 ? ">999" : F(v);
 
     private static string F(double v) => double.IsFinite(v) ? v.ToString("F2", Inv) : "-";
 }

@@ -4,7 +4,7 @@ namespace NetAdjust.IO.Results;
 internal static partial class ResultJson
 {
     /// <summary>Key <c>diagnosis</c>: the w-test level and critical value, which adjustment was diagnosed
-    /// (<c>adjustment</c> or <c>first_hunt_round</c>), the kinds tried, the suspects and the note that the input is
+    /// (<c>adjustment</c> or <c>hunt_rounds</c>), the kinds tried, the suspects and the note that the input is
     /// never changed.</summary>
     internal sealed record DiagnosisSection(double Alpha, double Critical, string Diagnosed, IEnumerable<string> Kinds,
         IEnumerable<Suspect> Suspects, string Note);
