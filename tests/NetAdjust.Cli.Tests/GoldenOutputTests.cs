@@ -51,7 +51,9 @@ public sealed class GoldenOutputTests : IDisposable
                  })
             foreach (var variant in Variants.Keys)
                 data.Add(demo, variant);
-        foreach (var variant in BlunderVariants.Keys) data.Add("harrowfield-blunder", variant);
+        foreach (var demo in new[] { "harrowfield-blunder", "corvan-fell-target-height" })
+            foreach (var variant in BlunderVariants.Keys)
+                data.Add(demo, variant);
         return data;
     }
 

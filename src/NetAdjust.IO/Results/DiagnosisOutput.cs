@@ -66,6 +66,16 @@ internal static class DiagnosisOutput
     internal static SuggestedEdit? EditOf(SuspectDiagnosis s) =>
         s.Explained && s.Ranked.Count > 0 ? s.Ranked[0].Edit : null;
 
+    /// <summary>The suspect listed before <paramref name="s"/> whose edit is the same (one blunder found through two
+    /// of its observations, e.g. a target height through a zenith angle and a slope distance), or null.</summary>
+    private static int? SameEdit(DiagnosisResult d, SuspectDiagnosis s)
+    {
+        var edit = EditOf(s);
+        foreach (var before in d.Suspects.TakeWhile(x => !ReferenceEquals(x, s)))
+            if (EditOf(before) is SuggestedEdit e && e == edit) return before.Observation;
+        return null;
+    }
+
     /// <summary>The explanation above the suspects (text report lines; the HTML report joins them).</summary>
     private static string Basis(DiagnosisResult d, ReportContext c, double critical) =>
         (HuntRounds(c)
@@ -153,8 +163,13 @@ internal static class DiagnosisOutput
             if (Pairs(s) is string pairs) TextReportSections.Wrapped(sb, "    ", pairs);
             if (EditOf(s) is SuggestedEdit e)
             {
-                Line("    Suggested edit of the project file (after checking the field book):");
-                EditText(sb, e, o, s.Observation);
+                if (SameEdit(d, s) is int earlier)
+                    Line($"    Suggested edit: the same as for #{earlier + 1}.");
+                else
+                {
+                    Line("    Suggested edit of the project file (after checking the field book):");
+                    EditText(sb, e, o, s.Observation);
+                }
             }
         }
         Line();
@@ -215,8 +230,13 @@ internal static class DiagnosisOutput
             sb.Append("</tbody>\n</table>\n");
             if (Pairs(s) is string pairs) sb.Append("<p class=\"note\">").Append(E(pairs)).Append("</p>\n");
             if (EditOf(s) is SuggestedEdit e)
-                sb.Append("<p>Suggested edit of the project file (after checking the field book):</p>\n<pre>")
-                  .Append(E(EditLine(e, o, s.Observation))).Append("</pre>\n");
+            {
+                if (SameEdit(d, s) is int earlier)
+                    sb.Append("<p>Suggested edit: the same as for #").Append(earlier + 1).Append(".</p>\n");
+                else
+                    sb.Append("<p>Suggested edit of the project file (after checking the field book):</p>\n<pre>")
+                      .Append(E(EditLine(e, o, s.Observation))).Append("</pre>\n");
+            }
         }
         sb.Append("<p class=\"note\">").Append(E(NeverChanges)).Append("</p>\n</section>\n");
     }

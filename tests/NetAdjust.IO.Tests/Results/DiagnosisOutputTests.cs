@@ -178,4 +178,26 @@ public sealed class DiagnosisOutputTests
             """, "p.yaml", ".", _ => "");
         Assert.Equal("1.2500", Assert.Single(levelled.Network.Observations).BookedText);
     }
+
+    [Fact]
+    public void OneBlunderFoundThroughTwoSuspectsPrintsItsEditOnce()
+    {
+        // One edit explains both suspects (as a target height explains a zenith angle and a slope distance).
+        var edit = new SuggestedEdit("site.yaml:48", "target_height", "2.654", "1.654");
+        SuspectDiagnosis Suspect(int index) => new(index, 5.0,
+            [new BlunderHypothesis(BlunderKind.TargetHeight, "target height booked 1.000 m too high", [24, 25], 1,
+                5.0, 3.29, 1.0, 0.003, "+1.0 m", 1.0, true, edit)], [], true);
+        var (result, units) = Demo();
+        var report = ResultReport.Build(result, new ReportContext("x.yaml", TestProjects.RunDate, units)
+            { Diagnosis = new DiagnosisResult([Suspect(Distance), Suspect(Direction)], DiagnosisOptions.Default) });
+        string text = TextReportWriter.Write(report);
+        Assert.Single(text.Split('\n'), l => l.Contains(" -> ", StringComparison.Ordinal));
+        Assert.Contains("    Suggested edit: the same as for #26.\n", text, StringComparison.Ordinal);
+        string html = HtmlReportWriter.Write(report);
+        Assert.Single(html.Split('\n'), l => l.Contains("-&gt;", StringComparison.Ordinal));
+        // The JSON states the edit of each suspect.
+        using var doc = JsonDocument.Parse(JsonResultWriter.Write(report));
+        Assert.All(doc.RootElement.GetProperty("diagnosis").GetProperty("suspects").EnumerateArray(), x =>
+            Assert.Equal("site.yaml:48  target_height  2.654 -> 1.654", x.GetProperty("suggested_edit").GetString()));
+    }
 }
