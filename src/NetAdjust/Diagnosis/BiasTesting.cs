@@ -64,6 +64,14 @@ internal sealed class BiasTesting
     /// <summary>Baarda's w of a row, (Pv)ᵢ / (σ0 √(P Qvv P)ᵢᵢ), signed as in the analysis.</summary>
     public double W(int row) => _pv[row] / (Sigma0 * Math.Sqrt(_pqp[row]));
 
+    /// <summary>The largest |w| over the testable rows.</summary>
+    public double MaxAbsW()
+    {
+        double max = 0;
+        for (int i = 0; i < _pv.Length; i++) if (_testable[i]) max = Math.Max(max, Math.Abs(W(i)));
+        return max;
+    }
+
     private void Block(WeightBlock blk, double minRedundancy)
     {
         var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0))
@@ -199,9 +207,11 @@ internal sealed class BiasTesting
         dof <= 0 ? (vtpvAfter <= 1e-12 * Math.Max(1, Vtpv) ? 1 : 0)
             : 1 - ChiSquared.CDF(dof, vtpvAfter / Sigma0Squared);
 
-    /// <summary>True when the global test (two-tailed, the adjustment's α) passes with r′ degrees of freedom.</summary>
+    /// <summary>True when vᵀPv′/σ0² stays below the upper bound of the global test (the adjustment's α, r′ degrees
+    /// of freedom): a correction is not blamed for a small vᵀPv.</summary>
     public bool GlobalPasses(double vtpvAfter, int dof) =>
-        GlobalTest.Compute(vtpvAfter, Sigma0Squared, dof, GlobalAlpha).Passed != false;
+        GlobalTest.Compute(vtpvAfter, Sigma0Squared, dof, GlobalAlpha) is var g && (g.Upper is null
+            || g.Statistic <= g.Upper);
 
     /// <summary>cᵀP Qvv P d of two prepared one-column alternatives.</summary>
     public static double Inner(Alternative a, Alternative b)

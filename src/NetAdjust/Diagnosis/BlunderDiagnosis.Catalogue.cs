@@ -11,13 +11,42 @@ public static partial class BlunderDiagnosis
 {
     /// <summary>A discrete candidate: the amount ∇ along the trial's vector c that it means, with its words and
     /// edit.</summary>
-    private sealed record Candidate(string Label, double Nabla, string Description, SuggestedEdit? Edit);
+    private sealed record Candidate(string Label, double Nabla, string Description, SuggestedEdit? Edit)
+    {
+        /// <summary>The point a wrong-point candidate names, or null.</summary>
+        public string? Point { get; init; }
+
+        /// <summary>True when a wrong-point candidate replaces an angle's backsight.</summary>
+        public bool Backsight { get; init; }
+    }
 
     /// <summary>One kind's bias model for one suspect: its vector c (row → entry; the bias of the booked
     /// observations per unit ∇), whether ∇ is free, and its discrete candidates.</summary>
     private sealed record Trial(BlunderKind Kind, IReadOnlyDictionary<int, double> C, IReadOnlyList<int> Observations,
         IReadOnlyList<Candidate> Candidates, bool Free, Func<double, double, string> FreeDescription,
-        Func<double, SuggestedEdit?> FreeEdit);
+        Func<double, SuggestedEdit?> FreeEdit)
+    {
+        /// <summary>How the correction is applied to a copy of the observations: the values less c∇ (default),
+        /// the heights less ∇, or the target replaced.</summary>
+        public Correction Applies { get; init; } = Correction.Values;
+
+        /// <summary>Applies the correction by ∇ (or the candidate) to a copy of the network's observations.</summary>
+        public void Apply(Observation[] obs, double nabla, Candidate? candidate)
+        {
+            foreach (var (j, c) in C)
+                obs[j] = Applies switch
+                {
+                    Correction.TargetHeight => ObservationEdits.WithHeight(obs[j], -nabla, target: true),
+                    Correction.InstrumentHeight => ObservationEdits.WithHeight(obs[j], -nabla, target: false),
+                    Correction.Target when candidate?.Point is string p =>
+                        ObservationEdits.Retarget(obs[j], p, candidate.Backsight),
+                    _ => ObservationEdits.WithValue(obs[j], obs[j].Value - (c * nabla)),
+                };
+        }
+    }
+
+    /// <summary>How a trial's correction is applied.</summary>
+    private enum Correction { Values, TargetHeight, InstrumentHeight, Target }
 
     private const double HeightStep = 0.001; // m, for ∂f/∂(height) by a forward difference
     private const double InternationalFoot = 0.3048;          // m, exact by definition (common practice)
@@ -25,11 +54,16 @@ public static partial class BlunderDiagnosis
 
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    private static IEnumerable<Trial> Catalogue(AdjustmentResult result, int s, DiagnosisOptions options)
+    /// <summary>The trials of one suspect. Candidate biases and vectors are evaluated at <paramref name="at"/>:
+    /// the adjustment with the suspect set aside, which its blunder does not distort.</summary>
+    private static IEnumerable<Trial> Catalogue(AdjustmentResult result, AdjustmentResult at, int s,
+        DiagnosisOptions options) => Catalogue(result, new AdjustedCoordinates(at), s, options);
+
+    private static IEnumerable<Trial> Catalogue(AdjustmentResult result, ICoordinates at, int s,
+        DiagnosisOptions options)
     {
         var all = result.Observations;
         var o = all[s].Input;
-        var at = new AdjustedCoordinates(result);
         bool On(BlunderKind k) => options.Enabled.Contains(k);
         string booked = BookedOrFormatted(o);
         var unit = new Dictionary<int, double> { [s] = 1.0 };
@@ -59,7 +93,8 @@ public static partial class BlunderDiagnosis
             yield return new Trial(BlunderKind.TargetHeight, c, group, cands, group.Count > 1,
                 (x, sd) => $"target height at {o.To} ({occupation}) booked {x.ToString("F3", Inv)} m too high " +
                     $"(sd {sd.ToString("F3", Inv)} m)",
-                x => new SuggestedEdit(o.Source, "target_height", th.ToString("F3", Inv), (th - x).ToString("F3", Inv)));
+                x => new SuggestedEdit(o.Source, "target_height", th.ToString("F3", Inv), (th - x).ToString("F3", Inv)))
+                { Applies = Correction.TargetHeight };
         }
 
         if (trig && On(BlunderKind.InstrumentHeight))
@@ -81,7 +116,8 @@ public static partial class BlunderDiagnosis
                 x => ih - x >= 0
                     ? new SuggestedEdit(o.Source, "instrument_height", ih.ToString("F3", Inv),
                         (ih - x).ToString("F3", Inv))
-                    : null);
+                    : null)
+                { Applies = Correction.InstrumentHeight };
         }
 
         if (distance && On(BlunderKind.PrismConstant))
@@ -168,7 +204,8 @@ public static partial class BlunderDiagnosis
                 .Concat(o.Kind == ObservationKind.Angle ? WrongPoints(result, o, at, options, backsight: true) : [])
                 .ToList();
             if (cands.Count > 0)
-                yield return new Trial(BlunderKind.WrongPoint, unit, [s], cands, false, (_, _) => "", _ => null);
+                yield return new Trial(BlunderKind.WrongPoint, unit, [s], cands, false, (_, _) => "", _ => null)
+                    { Applies = Correction.Target };
         }
 
         if (On(BlunderKind.SetBacksight) && o is DirectionObservation dir)
@@ -218,55 +255,20 @@ public static partial class BlunderDiagnosis
                 && Math.Sqrt(((p.E!.Value - be) * (p.E.Value - be)) + ((p.N!.Value - bn) * (p.N.Value - bn)))
                     > options.ReachMetres)
                 continue;
-            var moved = Retarget(o, p.Id, backsight);
+            var moved = ObservationEdits.Retarget(o, p.Id, backsight);
             double f1 = ObservationKindRegistry.Evaluate(moved, at).Value;
             double nabla = ObservationKinds.ValueIsAngle(o.Kind) ? Angle.ReduceSigned(f1 - f0) : f1 - f0;
             yield return new Candidate(p.Id, nabla,
                 $"{o.Describe()} booked to {booked}, probably sighted to {p.Id}",
-                new SuggestedEdit(o.Source, backsight ? "from" : "to", booked, p.Id));
+                new SuggestedEdit(o.Source, backsight ? "from" : "to", booked, p.Id)) { Point = p.Id, Backsight = backsight };
         }
     }
-
-    /// <summary>The observation with its target (or an angle's backsight) replaced, for evaluating its equation.
-    /// </summary>
-    private static Observation Retarget(Observation o, string to, bool backsight) => o switch
-    {
-        DistanceObservation d => new DistanceObservation(d.From, to, d.Distance),
-        DirectionObservation d => d with { Target = to },
-        AngleObservation a => backsight ? a with { Backsight = to } : a with { Foresight = to },
-        AzimuthObservation a => new AzimuthObservation(a.From, to, a.Azimuth),
-        HeightDifferenceObservation h => new HeightDifferenceObservation(h.From, to, h.Difference, h.LineLength),
-        SlopeDistanceObservation sd => new SlopeDistanceObservation(sd.From, to, sd.Distance, sd.InstrumentHeight,
-            sd.TargetHeight) { PlaneHeight = sd.PlaneHeight },
-        ZenithObservation z => new ZenithObservation(z.From, to, z.Zenith, z.InstrumentHeight, z.TargetHeight)
-        {
-            PlaneHeight = z.PlaneHeight, Refraction = z.Refraction, RefractionGroup = z.RefractionGroup,
-            RefractionEstimated = z.RefractionEstimated,
-        },
-        _ => throw new ArgumentOutOfRangeException(nameof(o), o.Kind, "no retargeting for this kind"),
-    };
 
     /// <summary>The bias of the booked observation per metre of height booked too high: −∂f/∂(height), by a forward
     /// difference of the equation at the adjusted coordinates.</summary>
     private static double HeightSensitivity(Observation o, ICoordinates at, bool target)
     {
-        Observation moved = (o, target) switch
-        {
-            (SlopeDistanceObservation sd, true) => sd with
-            {
-                TargetHeight = Length.FromMetres(sd.TargetHeight.Metres + HeightStep),
-            },
-            (SlopeDistanceObservation sd, false) => sd with
-            {
-                InstrumentHeight = Length.FromMetres(sd.InstrumentHeight.Metres + HeightStep),
-            },
-            (ZenithObservation z, true) => z with { TargetHeight = Length.FromMetres(z.TargetHeight.Metres + HeightStep) },
-            (ZenithObservation z, false) => z with
-            {
-                InstrumentHeight = Length.FromMetres(z.InstrumentHeight.Metres + HeightStep),
-            },
-            _ => o,
-        };
+        var moved = ObservationEdits.WithHeight(o, HeightStep, target);
         double f0 = ObservationKindRegistry.Evaluate(o, at).Value, f1 = ObservationKindRegistry.Evaluate(moved, at).Value;
         double df = ObservationKinds.ValueIsAngle(o.Kind) ? Angle.ReduceSigned(f1 - f0) : f1 - f0;
         return -df / HeightStep;

@@ -21,6 +21,10 @@ public sealed record DiagnosisOptions
     /// does (≥ 0; 3 by default).</summary>
     public int WorstWhenGlobalFails { get; init; } = 3;
 
+    /// <summary>The largest number of suspects diagnosed (≥ 1; 10 by default), largest |w| first: one large blunder
+    /// makes many w-tests fail, and each suspect costs a few re-adjustments.</summary>
+    public int MaxSuspects { get; init; } = 10;
+
     /// <summary>Round amounts (m, positive; each tried with both signs) by which an instrument or target height may
     /// have been booked wrong. Default 0.1, 0.2, 0.5, 1.0, 1.5, 2.0 m (common practice).</summary>
     public IReadOnlyList<double> RoundHeightsMetres
@@ -58,6 +62,7 @@ public sealed record DiagnosisOptions
             throw new InvalidInputException($"the diagnosis test level α must be between 0 and 1, not {Alpha}");
         if (WorstWhenGlobalFails < 0)
             throw new InvalidInputException("the number of worst observations to diagnose must be 0 or more");
+        if (MaxSuspects < 1) throw new InvalidInputException("the diagnosis needs to diagnose at least 1 suspect");
         if (RoundHeightsMetres.Any(h => !(h > 0) || !double.IsFinite(h)))
             throw new InvalidInputException("the round height amounts must be positive numbers of metres");
         if (PrismConstantsMetres.Any(h => !double.IsFinite(h)))
