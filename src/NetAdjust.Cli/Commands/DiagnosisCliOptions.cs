@@ -56,9 +56,10 @@ internal sealed class DiagnosisCliOptions
             if (skipText is not null) throw new InvalidInputException("--diagnose-skip applies only with --diagnose");
             return context;
         }
-        var options = DiagnosisOptions.Default with
+        // the project's diagnosis section (kinds skipped there, candidate lists), then the command line's skip list
+        var options = project.Diagnosis with
         {
-            Enabled = Enabled(skipText), Alpha = result.Options.Analysis.WTestAlpha,
+            Enabled = Enabled(project.Diagnosis.Enabled, skipText), Alpha = result.Options.Analysis.WTestAlpha,
         };
         project.Options.Progress?.Report(new AdjustmentProgress("diagnosing the suspects", null));
         if (context.Hunt is not { SetAside.Count: > 0 } hunt)
@@ -86,10 +87,10 @@ internal sealed class DiagnosisCliOptions
         return new NetAdjust.Diagnosis.Diagnosis(suspects, options);
     }
 
-    /// <summary>Every kind but those named in the skip list (null: all).</summary>
-    internal static HashSet<BlunderKind> Enabled(string? skipText)
+    /// <summary>The kinds enabled (by the project) but those named in the skip list (null: none).</summary>
+    internal static HashSet<BlunderKind> Enabled(IEnumerable<BlunderKind> project, string? skipText)
     {
-        var enabled = new HashSet<BlunderKind>(Enum.GetValues<BlunderKind>());
+        var enabled = new HashSet<BlunderKind>(project);
         if (skipText is null) return enabled;
         var words = skipText.Split(',', StringSplitOptions.TrimEntries);
         if (words.All(w => w.Length == 0))

@@ -18,7 +18,7 @@ public static partial class ProjectReader
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
         "targets", "levels", "statistics", "crs", "datum", "grid",
-        "survey", "refraction_groups", "reduction", "checks", "standards"];
+        "survey", "refraction_groups", "reduction", "checks", "standards", "diagnosis"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -192,7 +192,7 @@ public static partial class ProjectReader
             Warnings = [.. ProjectWarnings.Find(network, listedTwice), .. RoundsWarnings(specs.Rounds, units)],
             Rounds = specs.Rounds,
             Particulars = ReadParticulars(ctx, root), Checks = checks, Standards = standards,
-            Instruments = [.. specs.Instruments.Values],
+            Instruments = [.. specs.Instruments.Values], Diagnosis = ReadDiagnosis(ctx, root, lengths),
         };
     }
 

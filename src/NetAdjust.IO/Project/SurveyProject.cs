@@ -1,3 +1,4 @@
+using NetAdjust.Diagnosis;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 
@@ -50,4 +51,8 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>The total stations the project specifies (key <c>instruments</c>), in file order; the candidates of
     /// a procedure recommendation.</summary>
     public IReadOnlyList<TotalStationSpecification> Instruments { get; init; } = [];
+
+    /// <summary>The options of the blunder diagnosis (key <c>diagnosis</c>: the kinds not tried, the round heights
+    /// and prism constants tried); <see cref="DiagnosisOptions.Default"/> without the key.</summary>
+    public DiagnosisOptions Diagnosis { get; init; } = DiagnosisOptions.Default;
 }

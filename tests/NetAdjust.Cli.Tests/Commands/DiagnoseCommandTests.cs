@@ -67,6 +67,24 @@ public sealed class DiagnoseCommandTests : IDisposable
     }
 
     [Fact]
+    public void TheProjectsSkipListAndTheCommandLinesAddUp()
+    {
+        string copy = Path.Combine(_tmp, "harrowfield-skip.yaml");
+        File.WriteAllText(copy, File.ReadAllText(Demo) + "diagnosis:\n  skip: [prism_constant]\n");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", copy, "--diagnose", "--quiet");
+        Assert.True(code == ExitCodes.Success, stderr);
+        string section = stdout[stdout.IndexOf("BLUNDER DIAGNOSIS", StringComparison.Ordinal)..];
+        Assert.DoesNotContain(" prism_constant ", section, StringComparison.Ordinal);
+        Assert.Contains(" wrong_point ", section, StringComparison.Ordinal);
+        (code, stdout, stderr) = CliHarness.Run("adjust", copy, "--diagnose", "--diagnose-skip", "wrong_point",
+            "--quiet");
+        Assert.True(code == ExitCodes.Success, stderr);
+        section = stdout[stdout.IndexOf("BLUNDER DIAGNOSIS", StringComparison.Ordinal)..];
+        Assert.DoesNotContain(" prism_constant ", section, StringComparison.Ordinal);
+        Assert.DoesNotContain(" wrong_point ", section, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void AnUnknownKindNameIsRefusedWithItsMessage()
     {
         string report = Path.Combine(_tmp, "report.txt");
