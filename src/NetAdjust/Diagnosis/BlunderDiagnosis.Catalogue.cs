@@ -89,7 +89,8 @@ public static partial class BlunderDiagnosis
                 cands.Add(new Candidate($"{d.ToString("+0.0##;-0.0##", Inv)} m", d,
                     $"target height at {o.To} ({occupation}) booked {Math.Abs(d).ToString("F3", Inv)} m too " +
                     (d > 0 ? "high" : "low"),
-                    new SuggestedEdit(o.Source, "target_height", th.ToString("F3", Inv), (th - d).ToString("F3", Inv))));
+                    new SuggestedEdit(o.Source, "target_height", th.ToString("F3", Inv),
+                        (th - d).ToString("F3", Inv))));
             yield return new Trial(BlunderKind.TargetHeight, c, group, cands, group.Count > 1,
                 (x, sd) => $"target height at {o.To} ({occupation}) booked {x.ToString("F3", Inv)} m too high " +
                     $"(sd {sd.ToString("F3", Inv)} m)",
@@ -229,7 +230,8 @@ public static partial class BlunderDiagnosis
             if (group.Count > 1)
                 yield return new Trial(BlunderKind.SetBacksight, group.ToDictionary(j => j, _ => 1.0), group, [],
                     true,
-                    (x, sd) => $"wrong backsight on {ang.Backsight} at {occupation}: every angle turned from it is off " +
+                    (x, sd) => $"wrong backsight on {ang.Backsight} at {occupation}: every angle turned from it is " +
+                        "off " +
                         $"by {Amount(o, x)} (sd {Amount(o, sd)})",
                     _ => null);
         }
@@ -247,7 +249,8 @@ public static partial class BlunderDiagnosis
         double f0 = ObservationKindRegistry.Evaluate(o, at).Value;
         foreach (var p in result.Points)
         {
-            if (p.Id == booked || p.Id == station || (o.Kind == ObservationKind.Angle && (p.Id == o.From || p.Id == o.To)))
+            if (p.Id == booked || p.Id == station
+                || (o.Kind == ObservationKind.Angle && (p.Id == o.From || p.Id == o.To)))
                 continue;
             if (plane && (p.E is null || p.N is null)) continue;
             if (height && p.H is null) continue;
@@ -260,7 +263,10 @@ public static partial class BlunderDiagnosis
             double nabla = ObservationKinds.ValueIsAngle(o.Kind) ? Angle.ReduceSigned(f1 - f0) : f1 - f0;
             yield return new Candidate(p.Id, nabla,
                 $"{o.Describe()} booked to {booked}, probably sighted to {p.Id}",
-                new SuggestedEdit(o.Source, backsight ? "from" : "to", booked, p.Id)) { Point = p.Id, Backsight = backsight };
+                new SuggestedEdit(o.Source, backsight ? "from" : "to", booked, p.Id))
+            {
+                Point = p.Id, Backsight = backsight,
+            };
         }
     }
 
@@ -269,7 +275,8 @@ public static partial class BlunderDiagnosis
     private static double HeightSensitivity(Observation o, ICoordinates at, bool target)
     {
         var moved = ObservationEdits.WithHeight(o, HeightStep, target);
-        double f0 = ObservationKindRegistry.Evaluate(o, at).Value, f1 = ObservationKindRegistry.Evaluate(moved, at).Value;
+        double f0 = ObservationKindRegistry.Evaluate(o, at).Value;
+        double f1 = ObservationKindRegistry.Evaluate(moved, at).Value;
         double df = ObservationKinds.ValueIsAngle(o.Kind) ? Angle.ReduceSigned(f1 - f0) : f1 - f0;
         return -df / HeightStep;
     }

@@ -40,7 +40,8 @@ public static partial class BlunderDiagnosis
         {
             Analysis = result.Options.Analysis with
             {
-                ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false, RelativePairs = [],
+                ExternalReliability = ExternalReliabilityMode.Never, RelativeForObservedPairs = false,
+                RelativePairs = [],
             },
         });
         foreach (var (index, w) in suspects.Take(options.MaxSuspects))

@@ -11,8 +11,10 @@ namespace NetAdjust.Diagnosis;
 /// w-test of the analysis (v = adjusted − observed), which is Baarda's w of the observation when c is its unit
 /// vector; q &gt; 1: T_q = ŵᵀ(CᵀP Qvv P C)⁻¹ŵ / σ0² with ŵ = CᵀPv (Teunissen 2000).</param>
 /// <param name="CriticalValue">The critical value at α: z(1 − α/2) for |w|, χ²(1 − α; q) for T_q.</param>
-/// <param name="Size">The estimated bias ∇̂ = −(CᵀP Qvv P C)⁻¹CᵀPv in SI units (m, rad, or m per m of height for the
-/// height kinds, i.e. the wrong height amount in m); null for kinds with discrete candidates only.</param>
+/// <param name="Size">The estimated bias ∇̂ in SI units (m or rad; for the height kinds the wrong height in m):
+/// (cᵀQe⁻¹c)⁻¹cᵀQe⁻¹e from the misclosures e of its observations in the adjustment without them, which in the linear
+/// model equals −(CᵀP Qvv P C)⁻¹CᵀPv of the null model (docs/diagnosis.md); null for kinds with discrete candidates
+/// only.</param>
 /// <param name="SizeSd">Its standard deviation σ0 √((CᵀP Qvv P C)⁻¹); null with <paramref name="Size"/>.</param>
 /// <param name="Candidate">The discrete candidate chosen, in words (<c>0.5 m</c>, <c>ft</c>, <c>B12</c>,
 /// <c>123.4657</c>), or null when the free size is used.</param>

@@ -23,7 +23,8 @@ internal sealed class LeaveOut
     private LeaveOut(AdjustmentResult result, int[] group, Vector<double> e, Matrix<double> qe, double vtpv,
         double maxW, double sigma0)
     {
-        Result = result; _group = group; _e = e; _qe = qe; _qeInv = qe.Inverse(); Vtpv = vtpv; MaxW = maxW; _sigma0 = sigma0;
+        Result = result; _group = group; _e = e; _qe = qe; _qeInv = qe.Inverse();
+        Vtpv = vtpv; MaxW = maxW; _sigma0 = sigma0;
     }
 
     /// <summary>The adjustment without the group.</summary>

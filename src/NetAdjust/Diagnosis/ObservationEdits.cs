@@ -29,7 +29,10 @@ internal static class ObservationEdits
     /// <paramref name="delta"/> metres; other kinds unchanged.</summary>
     public static Observation WithHeight(Observation o, double delta, bool target) => (o, target) switch
     {
-        (SlopeDistanceObservation s, true) => s with { TargetHeight = Length.FromMetres(s.TargetHeight.Metres + delta) },
+        (SlopeDistanceObservation s, true) => s with
+        {
+            TargetHeight = Length.FromMetres(s.TargetHeight.Metres + delta),
+        },
         (SlopeDistanceObservation s, false) => s with
         {
             InstrumentHeight = Length.FromMetres(Math.Max(0, s.InstrumentHeight.Metres + delta)),

@@ -53,7 +53,8 @@ internal static class DiagnosisNetworks
                 ? new Point(id) { E = t.E, N = t.N, H = t.H, Fixed = Fixity.ENH }
                 : new Point(id)
                 {
-                    E = Math.Round(t.E + noise.Uniform(-0.2, 0.2), 1), N = Math.Round(t.N + noise.Uniform(-0.2, 0.2), 1),
+                    E = Math.Round(t.E + noise.Uniform(-0.2, 0.2), 1),
+                    N = Math.Round(t.N + noise.Uniform(-0.2, 0.2), 1),
                     H = Math.Round(t.H + noise.Uniform(-0.2, 0.2), 1),
                 });
         var obs = new List<Observation>();
