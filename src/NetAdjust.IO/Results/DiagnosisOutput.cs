@@ -16,7 +16,7 @@ namespace NetAdjust.IO.Results;
 /// correction and whether the network then fits; the pairs of hypotheses this data cannot tell apart; and, for an
 /// explained suspect, the edit of the project file the surveyor may apply by hand. Nothing is written when no
 /// diagnosis was run. Sizes in the report's units: lengths in the project's length unit, angles in its angular sd
-/// unit, unit factors as plain numbers; in JSON lengths in metres and angles in arcseconds.
+/// unit; in JSON lengths in metres and angles in arcseconds.
 /// </summary>
 internal static class DiagnosisOutput
 {
@@ -34,18 +34,14 @@ internal static class DiagnosisOutput
 
         /// <summary>An angle (radians inside).</summary>
         Angle,
-
-        /// <summary>A unit factor (dimensionless).</summary>
-        Factor,
     }
 
     /// <summary>What the size of a hypothesis of this kind measures, for a suspect of this observation kind: heights
-    /// and prism constants are lengths, foot mix-ups factors, a set's rotation an angle, and the other kinds a bias
-    /// of the suspect's own value.</summary>
+    /// and prism constants are lengths, a wrong backsight an angle, and the other kinds (the foot mix-ups included,
+    /// docs/diagnosis.md) a bias of the suspect's own value.</summary>
     internal static SizeClass ClassOf(BlunderKind kind, ObservationKind suspect) => kind switch
     {
         BlunderKind.TargetHeight or BlunderKind.InstrumentHeight or BlunderKind.PrismConstant => SizeClass.Length,
-        BlunderKind.FeetForMetres or BlunderKind.SurveyFootForFoot => SizeClass.Factor,
         BlunderKind.SetBacksight => SizeClass.Angle,
         _ => ObservationLabels.IsAngular(suspect) ? SizeClass.Angle : SizeClass.Length,
     };
@@ -122,9 +118,6 @@ internal static class DiagnosisOutput
             case SizeClass.Angle:
                 string A(double? v) => v is double x && double.IsFinite(x) ? units.SmallAngle(x) : "-";
                 return (A(h.Size), A(h.SizeSd), h.Size is null ? "" : units.SmallAngleSymbol);
-            case SizeClass.Factor:
-                string Fa(double? v) => v is double x && double.IsFinite(x) ? x.ToString("F6", Inv) : "-";
-                return (Fa(h.Size), Fa(h.SizeSd), h.Size is null ? "" : "factor");
             default:
                 return (units.SmallLength(h.Size), units.SmallLength(h.SizeSd),
                     h.Size is null ? "" : units.LengthSymbol);
@@ -269,7 +262,7 @@ internal static class DiagnosisOutput
         return new ResultJson.Hypothesis(Name(h.Kind), h.Description, h.Observations, h.Dimension,
             JsonResultWriter.Finite(h.Statistic), JsonResultWriter.Finite(h.CriticalValue),
             JsonResultWriter.Finite(h.Size * factor), JsonResultWriter.Finite(h.SizeSd * factor),
-            cls switch { SizeClass.Angle => "arcsec", SizeClass.Factor => "factor", _ => "m" }, h.Candidate,
+            cls == SizeClass.Angle ? "arcsec" : "m", h.Candidate,
             JsonResultWriter.Finite(h.MaxAbsWAfter), h.FitsAfter,
             h.Edit is SuggestedEdit e ? new ResultJson.Edit(e.Source, e.Item, e.Booked, e.Suggested,
                 EditLine(e, o, index)) : null);

@@ -20,7 +20,7 @@ internal static partial class ResultJson
     internal sealed record SuspectObservation(int Index, string Kind, string? At, string From, string To,
         string? Source, string? Booked);
 
-    /// <summary>One hypothesis: sizes in metres, arcseconds or as a factor (<c>size_unit</c>).</summary>
+    /// <summary>One hypothesis: sizes in metres or arcseconds (<c>size_unit</c>).</summary>
     internal sealed record Hypothesis(string Kind, string Description, IEnumerable<int> Observations, int Dimension,
         double? Statistic, double? CriticalValue, double? Size, double? SizeSd, string SizeUnit, string? Candidate,
         double? MaxAbsWAfter, bool FitsAfter, Edit? Edit);
