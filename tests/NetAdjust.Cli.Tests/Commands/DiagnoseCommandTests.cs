@@ -46,6 +46,35 @@ public sealed class DiagnoseCommandTests : IDisposable
     }
 
     [Fact]
+    public void WithTheHuntEachSetAsideObservationIsDiagnosedInItsRound()
+    {
+        // data/corvan-fell-target-height.yaml books the target height on CF3 at CF2 as 2.654 m; the prism stood at
+        // 1.654 m (data/README.md). The hunt sets aside the zenith angle (#12), then the slope distance (#13); each
+        // is diagnosed in its round and both are one blunder with one edit.
+        string demo = CliHarness.DataFile("corvan-fell-target-height.yaml");
+        int line = File.ReadLines(demo).ToList().FindIndex(t => t.Contains("target_height: 2.654",
+            StringComparison.Ordinal)) + 1;
+        Assert.True(line > 0);
+        string json = Path.Combine(_tmp, "result.json");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--snoop", "--diagnose", "--quiet", "--json",
+            json);
+        Assert.True(code == ExitCodes.Success, stderr);
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var d = doc.RootElement.GetProperty("diagnosis");
+        Assert.Equal("hunt_rounds", d.GetProperty("diagnosed").GetString());
+        var suspects = d.GetProperty("suspects").EnumerateArray().ToList();
+        Assert.Equal([11, 12], suspects.Select(x => x.GetProperty("observation").GetProperty("index").GetInt32()));
+        Assert.All(suspects, x =>
+        {
+            Assert.True(x.GetProperty("explained").GetBoolean());
+            Assert.Equal("target_height", x.GetProperty("ranked")[0].GetProperty("kind").GetString());
+            Assert.Equal($"{demo}:{line}  target_height  2.654 -> 1.654", x.GetProperty("suggested_edit").GetString());
+        });
+        Assert.Single(stdout.Split('\n'), l => l.Contains(" -> ", StringComparison.Ordinal));
+        Assert.Contains("Suggested edit: the same as for #12.", stdout, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void TheInputIsNeverChanged()
     {
         byte[] before = File.ReadAllBytes(Demo);
