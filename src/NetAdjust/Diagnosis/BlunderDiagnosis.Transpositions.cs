@@ -47,7 +47,9 @@ public static partial class BlunderDiagnosis
     /// cannot be read so.</summary>
     internal static double? ValueOfText(Observation o, string booked, string text)
     {
-        if (AnglePattern.TryNumber(booked, out double b) && AnglePattern.TryNumber(text, out double t))
+        var (bn, bs) = SplitUnit(booked);
+        var (tn, ts) = SplitUnit(text);
+        if (bs == ts && AnglePattern.TryNumber(bn, out double b) && AnglePattern.TryNumber(tn, out double t))
             return b != 0 ? o.Value * (t / b) : null;
         if (!ObservationKinds.ValueIsAngle(o.Kind)) return null;
         var pb = AnglePattern.Dms.Parse(booked);
@@ -58,11 +60,12 @@ public static partial class BlunderDiagnosis
     /// <summary>The text of a corrected SI value in the unit and style of the booked text (decimals kept).</summary>
     internal static string TextOfValue(Observation o, string booked, double corrected)
     {
-        if (AnglePattern.TryNumber(booked, out double b) && b != 0 && o.Value != 0)
+        var (number, unit) = SplitUnit(booked);
+        if (AnglePattern.TryNumber(number, out double b) && b != 0 && o.Value != 0)
         {
-            int dot = booked.IndexOf('.', StringComparison.Ordinal);
-            int decimals = dot < 0 ? 0 : booked.Length - dot - 1;
-            return (b * corrected / o.Value).ToString("F" + decimals, CultureInfo.InvariantCulture);
+            int dot = number.IndexOf('.', StringComparison.Ordinal);
+            int decimals = dot < 0 ? 0 : number.Length - dot - 1;
+            return (b * corrected / o.Value).ToString("F" + decimals, CultureInfo.InvariantCulture) + unit;
         }
         if (ObservationKinds.ValueIsAngle(o.Kind))
         {
@@ -72,5 +75,14 @@ public static partial class BlunderDiagnosis
                 .FormatDirection(Angle.FromRadians(corrected));
         }
         return corrected.ToString("F4", CultureInfo.InvariantCulture);
+    }
+
+    /// <summary>A decimal text split into its number and a trailing unit mark kept as written (<c>419.3846 ft</c> →
+    /// <c>419.3846</c>, <c> ft</c>; <c>123.4567°</c> → <c>123.4567</c>, <c>°</c>).</summary>
+    private static (string Number, string Unit) SplitUnit(string text)
+    {
+        int end = text.Length;
+        while (end > 0 && !char.IsAsciiDigit(text[end - 1]) && text[end - 1] != '.') end--;
+        return (text[..end], text[end..]);
     }
 }

@@ -175,8 +175,9 @@ public static partial class BlunderDiagnosis
         }
         if (trial.Free)
         {
+            // a candidate that fits is kept (it names the amount); otherwise the better of the two fits
             var free = Fit(size, r - 1);
-            if (best is null || free.P > bestFit.P)
+            if (best is null || (!bestFit.Fits && (free.Fits || free.P > bestFit.P)))
             {
                 return new Tested(new BlunderHypothesis(trial.Kind, trial.FreeDescription(size, sd), trial.Observations,
                     1, wc, crit, size, sd, null, free.MaxW, free.Fits, trial.FreeEdit(size)) { FitAfter = free.P },

@@ -41,3 +41,30 @@ public class TranspositionTests
         Assert.Equal(["78-06-58.4", "87-60-58.4", "87-06-85.4"], BlunderDiagnosis.Transpositions("87-06-58.4"));
     }
 }
+
+public class TranspositionValueTests
+{
+    [Theory]
+    // booked text, candidate, booked SI value, expected SI value of the candidate (hand-worked)
+    [InlineData("419.3846", "419.3486", 419.3846, 419.3486)]
+    [InlineData("419.3846 ft", "419.3486 ft", 127.8291, 127.8291 * 419.3486 / 419.3846)] // the unit factor kept
+    public void ACandidateTextKeepsTheUnitOfTheBookedText(string booked, string text, double value, double expected)
+    {
+        var o = new NetAdjust.Network.DistanceObservation("A", "B", NetAdjust.Units.Length.FromMetres(value));
+        Assert.Equal(expected, BlunderDiagnosis.ValueOfText(o, booked, text)!.Value, 1e-9);
+        double back = BlunderDiagnosis.ValueOfText(o, text, booked)!.Value;
+        Assert.Equal(booked, BlunderDiagnosis.TextOfValue(o, text, back)); // written back in the text's unit
+    }
+
+    [Fact]
+    public void ADmsCandidateAddsItsDifferenceInArcseconds()
+    {
+        // Hand-worked: 87-06-58.4 → 78-06-58.4 is 9° less.
+        var o = new NetAdjust.Network.ZenithObservation("A", "B", NetAdjust.Units.Angle.FromDms(87, 6, 58.4),
+            NetAdjust.Units.Length.FromMetres(1.5), NetAdjust.Units.Length.FromMetres(1.6));
+        double v = BlunderDiagnosis.ValueOfText(o, "87-06-58.4", "78-06-58.4")!.Value;
+        Assert.Equal(NetAdjust.Units.Angle.FromDms(78, 6, 58.4).Radians, v, 1e-12);
+        Assert.Null(BlunderDiagnosis.ValueOfText(o, "87-06-58.4", "87-60-58.4")); // 60 minutes cannot be read
+        Assert.Equal("78-06-58.4", BlunderDiagnosis.TextOfValue(o, "87-06-58.4", v));
+    }
+}
