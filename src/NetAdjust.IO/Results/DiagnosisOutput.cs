@@ -201,7 +201,8 @@ internal static class DiagnosisOutput
         {
             var o = r.Network.Observations[s.Observation];
             sb.Append("<h3>").Append(E(Headline(s, o))).Append("</h3>\n<p class=\"verdict ")
-              .Append(s.Explained ? "pass" : "fail").Append("\"><strong>").Append(E(Verdict(s)))
+              .Append(s.Explained ? "pass" : "fail").Append("\"><strong>").Append(s.Explained ? "✓ " : "✗ ")
+              .Append(E(Verdict(s)))
               .Append("</strong></p>\n<table class=\"model\">\n<thead><tr><th class=\"num\">Rank</th>")
               .Append("<th>Hypothesis</th><th>Description</th><th class=\"num\">q</th>")
               .Append("<th class=\"num\">Statistic</th><th class=\"num\">Critical</th><th class=\"num\">Size</th>")
