@@ -1,8 +1,10 @@
 #!/usr/bin/env bash
-# Cold start of the command, measured from the shell: publishes netadjust twice for this machine's runtime (plain
-# JIT and ReadyToRun, the csproj's default when a runtime is named), then runs the small traverse of data/ RUNS times
-# with each (default 10) and prints wall, user and system time of every run and the median wall time, with the load
-# average. Usage: benchmarks/cold-start.sh [RUNS]   (from the repository root; needs GNU time at /usr/bin/time)
+# Cold start of the command, measured from the shell: publishes netadjust for this machine's runtime twice (plain JIT
+# and ReadyToRun, the csproj's default when a runtime is named), packs the tool and installs it with `dotnet tool
+# install` into a temporary path (on linux-x64 the install takes the ReadyToRun package), then runs the small traverse
+# of data/ RUNS times with each (default 10) and prints the median wall time and the mean user + system CPU time, with
+# the load average. Usage: benchmarks/cold-start.sh [RUNS]   (from the repository root; needs GNU time at
+# /usr/bin/time)
 set -euo pipefail
 runs="${1:-10}"
 rid="$(dotnet --info | sed -n 's/^ *RID: *//p' | head -1)"
@@ -11,11 +13,17 @@ trap 'rm -rf "$work"' EXIT
 dotnet publish src/NetAdjust.Cli -c Release -r "$rid" --self-contained false -p:PublishReadyToRun=false \
     -o "$work/jit" >/dev/null
 dotnet publish src/NetAdjust.Cli -c Release -r "$rid" --self-contained false -o "$work/r2r" >/dev/null
-for build in jit r2r; do
+version=$(dotnet msbuild src/NetAdjust.Cli -getProperty:Version)
+dotnet pack src/NetAdjust.Cli -c Release -o "$work/feed" >/dev/null
+NUGET_PACKAGES="$work/nuget" dotnet tool install NetAdjust.Tool --version "$version" --tool-path "$work/installed" \
+    --add-source "$work/feed" >/dev/null
+for build in jit r2r installed; do
+    command="$work/$build/NetAdjust.Cli"
+    [ "$build" = installed ] && command="$work/installed/netadjust"
     : > "$work/$build.times"
     for ((i = 0; i < runs; i++)); do
         /usr/bin/time -f "%e %U %S" -a -o "$work/$build.times" \
-            "$work/$build/NetAdjust.Cli" adjust data/brackenmoor.yaml --date 2026-12-01 --quiet >/dev/null
+            "$command" adjust data/brackenmoor.yaml --date 2026-12-01 --quiet >/dev/null
     done
     median="$(cut -d' ' -f1 "$work/$build.times" | sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}')"
     cpu="$(awk '{s += $2 + $3} END {printf "%.2f", s / NR}' "$work/$build.times")"

@@ -8,6 +8,7 @@ using NetAdjust.IO.Project;
 using NetAdjust.IO.Results;
 using NetAdjust.Network;
 using NetAdjust.Procedures;
+using NetAdjust.Statistics;
 using NetAdjust.Stochastic;
 using NetAdjust.Units;
 
@@ -89,8 +90,19 @@ Console.WriteLine(string.Create(inv, $"global test {(statistics.GlobalTest.Passe
 Console.WriteLine($"blunder hunt: {hunt.StopReason}; observations set aside: {hunt.SetAside.Count}");
 var s3 = result.Points.Single(p => p.Id == "S3");
 var bmk3 = result.Points.Single(p => p.Id == "BMK3");
-Console.WriteLine(string.Create(inv, $"S3: E {s3.E:F4} N {s3.N:F4} m (sd {s3.SdE:F4} {s3.SdN:F4})"));
-Console.WriteLine(string.Create(inv, $"BMK3: H {bmk3.H:F4} m (sd {bmk3.SdH:F4})"));
+var mm = LengthUnit.Millimetre;
+// Results are typed like the inputs: coordinates and their standard deviations are lengths, an observation's
+// residual is a Quantity (a length or an angle by its kind), an error ellipse has lengths and an angle.
+Console.WriteLine(string.Create(inv, $"S3: E {s3.Easting?.Metres:F4} N {s3.Northing?.Metres:F4} m " +
+    $"(sd {s3.SdEasting?.In(mm):F1} {s3.SdNorthing?.In(mm):F1} mm)"));
+Console.WriteLine(string.Create(inv, $"BMK3: H {bmk3.Height?.Metres:F4} m (sd {bmk3.SdHeight?.In(mm):F1} mm)"));
+var largest = result.Observations.Where(o => o.ResidualValue.IsAngle)
+    .MaxBy(o => Math.Abs(o.ResidualValue.AsAngle!.Value.Arcseconds))!;
+Console.WriteLine(string.Create(inv, $"largest angular residual: {largest.Input.Describe()}: " +
+    $"{largest.ResidualValue.AsAngle!.Value.Arcseconds:F1}\""));
+var ellipse = result.Analysis.Points.Single(p => p.Id == "S3").Ellipse!.Value;
+Console.WriteLine(string.Create(inv, $"S3 standard error ellipse: a {ellipse.SemiMajorAxis.In(mm):F1} mm, " +
+    $"b {ellipse.SemiMinorAxis.In(mm):F1} mm, azimuth {ellipse.MajorAxisAzimuth.Degrees:F1}°"));
 
 // Each observation's a-priori standard deviation, derived from the equipment at the adjusted coordinates, is typed
 // like its value: an angle for a direction, a length for a distance (an observation can also be given one directly,
@@ -103,3 +115,4 @@ string html = args.Length > 0 ? args[0] : "sample-report.html";
 var context = new ReportContext("(built in code)", new DateOnly(2026, 12, 1), ProjectUnits.Default) { Hunt = hunt };
 File.WriteAllText(html, HtmlReportWriter.Write(ResultReport.Build(result, context)));
 Console.WriteLine($"report written to {html}");
+

@@ -16,6 +16,10 @@ internal static partial class CsvObservationReader
         ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor",
             .. TotalStationColumns];
 
+    /// <summary>The columns a plain row fills: the others (marks, level and instrument fields) are empty in it.
+    /// </summary>
+    private static readonly string[] BasicColumns = ["kind", "at", "from", "to", "value", "sd", "length", "set"];
+
     private static readonly Dictionary<string, ObservationKind> KindByName =
         ObservationKinds.All.ToDictionary(k => k.Name(), StringComparer.Ordinal);
 
@@ -30,16 +34,32 @@ internal static partial class CsvObservationReader
     {
         var result = new List<Observation>();
         var slopes = new List<(SlopeDistanceObservation Slope, int Line, string Item)>();
-        string[] lines = text.Split(["\r\n", "\r", "\n"], StringSplitOptions.None); // CR, LF and CRLF alike
+        // The row's fields as ranges of the text; each becomes a string only when asked (CsvRow): a row of the
+        // usual kinds with no marks or instrument fields makes strings only for its point ids (shared) and its
+        // source.
+        var row = new CsvRow(text);
         Dictionary<string, int>? col = null;
-        for (int i = 0; i < lines.Length; i++)
+        int cKind = -1, cAt = -1, cFrom = -1, cTo = -1, cValue = -1, cSd = -1, cSet = -1;
+        int[] optional = [];
+        string Get(string name) => col!.TryGetValue(name, out int k) ? row.Field(k) : "";
+        Func<string, string> get = Get;
+        var sdCache = new SdCache();
+        string? lastSetAt = null, lastSet = null, lastSetId = null;
+        int lineNo = 0;
+        for (int pos = 0; pos <= text.Length;)
         {
-            int lineNo = i + 1;
-            string line = lines[i].TrimEnd('\r');
+            // lines end at CR LF, CR or LF alike
+            int lineStart = pos, eol = text.AsSpan(pos).IndexOfAny('\r', '\n');
+            int lineEnd = eol < 0 ? text.Length : pos + eol;
+            pos = eol < 0 ? text.Length + 1
+                : lineEnd + (text[lineEnd] == '\r' && lineEnd + 1 < text.Length && text[lineEnd + 1] == '\n' ? 2 : 1);
+            lineNo++;
+            var line = text.AsSpan(lineStart, lineEnd - lineStart);
             if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
-            string[] f = CsvLimits.Fields(line, file, lineNo);
+            row.Split(lineStart, lineEnd, file, lineNo);
             if (col is null)
             {
+                string[] f = row.All();
                 col = new Dictionary<string, int>(StringComparer.Ordinal);
                 for (int k = 0; k < f.Length; k++)
                 {
@@ -52,37 +72,45 @@ internal static partial class CsvObservationReader
                 foreach (var need in new[] { "kind", "value" })
                     if (!col.ContainsKey(need))
                         throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
+                int C(string name) => col.GetValueOrDefault(name, -1);
+                (cKind, cAt, cFrom, cTo, cValue, cSd, cSet) =
+                    (C("kind"), C("at"), C("from"), C("to"), C("value"), C("sd"), C("set"));
+                optional = col.Where(c => !BasicColumns.Contains(c.Key)).Select(c => c.Value).ToArray();
                 continue;
             }
-            if (f.Length != col.Count)
+            if (row.Count != col.Count)
                 throw new ProjectFileException(file, lineNo, "",
-                    $"expected {col.Count} fields as in the header, found {f.Length}");
-            string Get(string name) => col.TryGetValue(name, out int k) ? f[k] : "";
-            string kindText = Get("kind");
+                    $"expected {col.Count} fields as in the header, found {row.Count}");
+            string kindText = row.Field(cKind);
             var kind = (KindByName.TryGetValue(kindText, out var named) ? named : (ObservationKind?)null)
                 ?? throw new ProjectFileException(file, lineNo, kindText,
                     $"unknown observation kind (expected one of: " +
                     $"{string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");
-            string at = Get("at"), from = Get("from"), to = Get("to"), value = Get("value");
+            string at = row.Id(cAt), from = row.Id(cFrom), to = row.Id(cTo);
             string Need(string name, string v) =>
                 v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, kindText,
                 $"the '{name}' field is empty");
-            string item = kind switch
+            // the item named in messages, made only for a message or a row that needs it
+            string? itemText = null;
+            string Item() => itemText ??= kind switch
             {
                 ObservationKind.Angle => $"angle at {at} from {from} to {to}",
                 ObservationKind.Direction => $"direction {at}→{to}",
                 _ => $"{kind.Name().Replace('_', ' ')} {from}→{to}",
             };
+            // the columns beyond kind, points, value, sd, length and set: all empty in a plain row
+            bool plain = true;
+            foreach (int k in optional) plain &= row.IsEmpty(k);
             double sd;
-            string sdText = Get("sd");
             ObservationWeighting? budget = null;
-            string levelText = Get("level");
-            if (kind != ObservationKind.HeightDifference &&
+            string levelText = plain ? "" : Get("level");
+            if (!plain && kind != ObservationKind.HeightDifference &&
                 (levelText.Length > 0 || Get("setups").Length > 0 || Get("runs").Length > 0))
-                throw new ProjectFileException(file, lineNo, item,
+                throw new ProjectFileException(file, lineNo, Item(),
                     "the 'level', 'setups' and 'runs' fields are for height differences only");
-            if (sdText.Length == 0 && levelText.Length > 0)
+            if (row.IsEmpty(cSd) && levelText.Length > 0)
             {
+                string item = Item();
                 int? Count(string name, int max)
                 {
                     string t = Get(name);
@@ -106,53 +134,91 @@ internal static partial class CsvObservationReader
                         e.Message); }
                 sd = double.NaN; // derived from the level by the stochastic model
             }
-            else if (sdText.Length == 0 && Get("instrument").Length > 0)
+            else if (row.IsEmpty(cSd) && !plain && Get("instrument").Length > 0)
             {
-                budget = InstrumentWeighting(kind, Get, specs, file, lineNo, item);
+                budget = InstrumentWeighting(kind, get, specs, file, lineNo, Item());
                 sd = double.NaN; // derived from the instrument by the stochastic model
             }
-            else if (sdText.Length > 0)
+            else if (!row.IsEmpty(cSd))
             {
-                sd = ProjectReader.ParseSd(sdText, kind, units, out string? err);
-                if (err is not null) throw new ProjectFileException(file, lineNo, item, err);
+                sd = sdCache.Parse(row, cSd, kind, units, out string? err);
+                if (err is not null) throw new ProjectFileException(file, lineNo, Item(), err);
             }
             else if (!defaults.TryGetValue(kind, out sd))
-                throw new ProjectFileException(file, lineNo, item,
+                throw new ProjectFileException(file, lineNo, Item(),
                     $"no standard deviation: fill the 'sd' column or give default_sd.{kind.Name()} in the project " +
                     $"file");
-            Angle A() { var r = angles.Parse(value); return r.Success ? r.Value : throw new ProjectFileException(file,
-                lineNo, item, r.Error!); }
-            Length L(string v) { var r =
-                lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, item,
-                r.Error!); }
-            string source = $"{file}:{lineNo}";
-            CheckTotalStationFields(kind, Get, file, lineNo, item);
-            Observation o = ProjectReader.GuardedRow(file, lineNo, item, () => kind switch
+            Angle A()
             {
-                ObservationKind.Distance =>
-                    new DistanceObservation(Need("from", from), Need("to", to),
-                    L(Need("value", value))) { StandardDeviation = sd, Source = source },
-                ObservationKind.Azimuth =>
-                    new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
-                    Source = source },
-                ObservationKind.Angle =>
-                    new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
-                    A()) { StandardDeviation = sd, Source = source },
-                ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
-                    $"{Need("at", at)}/{file}#{(Get("set").Length > 0 ? Get("set") : "1")}") { StandardDeviation = sd,
+                if (row.TryNumber(cValue, out double v))
+                    switch (angles.Style) // a plain number: as AnglePattern.Parse reads it
+                    {
+                        case AngleFormat.Degrees: return Angle.FromDegrees(v);
+                        case AngleFormat.Gons: return Angle.FromGons(v);
+                    }
+                var r = angles.Parse(row.Field(cValue));
+                return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, Item(), r.Error!);
+            }
+            Length L(string v) { var r =
+                lengths.Parse(v); return r.Success ? r.Value : throw new ProjectFileException(file, lineNo, Item(),
+                r.Error!); }
+            Length LValue()
+            {
+                if (row.IsEmpty(cValue)) _ = Need("value", "");
+                return row.TryNumber(cValue, out double v) ? Length.From(v, lengths.Unit) // as Parse reads it
+                    : L(row.Field(cValue));
+            }
+            string SetId()
+            {
+                // the directions of a set follow one another: their set id is made once
+                bool same = ReferenceEquals(at, lastSetAt) && (row.IsEmpty(cSet) ? lastSet == "1"
+                    : row.FieldEquals(cSet, lastSet));
+                if (!same)
+                {
+                    string set = row.IsEmpty(cSet) ? "1" : row.Field(cSet);
+                    (lastSetAt, lastSet, lastSetId) = (at, set, $"{at}/{file}#{set}");
+                }
+                return lastSetId!;
+            }
+            string source = $"{file}:{lineNo}";
+            if (!plain) CheckTotalStationFields(kind, get, file, lineNo, Item());
+            Observation o;
+            try
+            {
+                o = kind switch
+                {
+                    ObservationKind.Distance =>
+                        new DistanceObservation(Need("from", from), Need("to", to), LValue())
+                        { StandardDeviation = sd, Source = source },
+                    ObservationKind.Azimuth =>
+                        new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
                         Source = source },
-                ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from), Need("to", to),
-                    L(Need("value", value)), Get("length").Length > 0 ? L(Get("length")) : null)
-                { StandardDeviation = sd, Source = source },
-                ObservationKind.SlopeDistance or ObservationKind.Zenith =>
-                    Trigonometric(kind, Need("from", from), Need("to", to), value, Get, L, angles, specs, file, lineNo,
-                        item) with { StandardDeviation = sd, Source = source },
-                _ => throw new ProjectFileException(file, lineNo, item, $"a {kind.Name().Replace('_', ' ')} is not " +
-                    "read from CSV: write it in the project file"),
-            });
-            if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, item));
-            result.Add(ObservationMarks.Apply(o with { Weighting = budget ?? o.Weighting, BookedText = value },
-                Get("exclude"), Get("sd_factor"), file, lineNo, item));
+                    ObservationKind.Angle =>
+                        new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
+                        A()) { StandardDeviation = sd, Source = source },
+                    ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
+                        SetId()) { StandardDeviation = sd, Source = source },
+                    ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from),
+                        Need("to", to), LValue(),
+                        Get("length").Length > 0 ? L(Get("length")) : null)
+                    { StandardDeviation = sd, Source = source },
+                    ObservationKind.SlopeDistance or ObservationKind.Zenith =>
+                        Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get, L, angles,
+                            specs, file, lineNo, Item()) with { StandardDeviation = sd, Source = source },
+                    _ => throw new ProjectFileException(file, lineNo, Item(), $"a {kind.Name().Replace('_', ' ')} " +
+                        "is not read from CSV: write it in the project file"),
+                };
+            }
+            catch (ArgumentException e)
+            {
+                throw new ProjectFileException(file, lineNo, Item(), ProjectReader.GuardProblem(e));
+            }
+            if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, Item()));
+            // the weighting, and the value's text as booked (for the blunder diagnosis): one copy of the row
+            o = o with { Weighting = budget ?? o.Weighting, BookedText = row.Field(cValue) };
+            // marks: none in a plain row (ObservationMarks.Apply returns the row as it is for empty marks)
+            if (!plain) o = ObservationMarks.Apply(o, Get("exclude"), Get("sd_factor"), file, lineNo, Item());
+            result.Add(o);
         }
         CheckSlopesHaveZeniths(result, slopes, specs, file);
         return result;

@@ -15,6 +15,7 @@ internal static class YamlGuard
     {
         var parser = new Parser(new StringReader(text));
         var anchors = new HashSet<string>(StringComparer.Ordinal);
+        var open = new Stack<string?>(); // the anchors of the mappings and lists being read
         int depth = 0, documents = 0, lastLine = 1;
         try
         {
@@ -37,9 +38,11 @@ internal static class YamlGuard
                                 $"mappings and lists are nested deeper than {InputLimits.MaxNestingDepth} levels " +
                                 "(docs/input-format.md, \"Limits\")");
                         Anchor(((NodeEvent)ev).Anchor);
+                        open.Push(((NodeEvent)ev).Anchor.IsEmpty ? null : ((NodeEvent)ev).Anchor.Value);
                         break;
                     case MappingEnd or SequenceEnd:
                         depth--;
+                        if (open.Count > 0) open.Pop();
                         break;
                     case Scalar s:
                         if (s.Value.Length > InputLimits.MaxValueLength && !(s.Value.Length <= InputLimits.MaxWktLength
@@ -55,6 +58,11 @@ internal static class YamlGuard
                             throw new ProjectFileException(file, line, "",
                                 $"this is not valid YAML: the alias '*{InputLimits.Excerpt(a.Value.Value)}' " +
                                     $"names no anchor defined above");
+                        // an alias inside the node it names makes a structure that holds itself
+                        if (open.Contains(a.Value.Value))
+                            throw new ProjectFileException(file, line, "",
+                                $"the alias '*{InputLimits.Excerpt(a.Value.Value)}' stands inside the list or " +
+                                    "mapping it names (a structure that holds itself): write the values out");
                         break;
                 }
             }

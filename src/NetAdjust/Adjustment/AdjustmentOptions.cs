@@ -13,11 +13,27 @@ public sealed record AdjustmentOptions
 
     /// <summary>Convergence: every coordinate correction of the last iteration is below this (m). Default 1e−6
     /// m.</summary>
-    public double LengthTolerance { get; init; } = 1e-6;
+    internal double LengthTolerance { get; init; } = 1e-6;
+
+    /// <summary>Convergence: every coordinate correction of the last iteration is below this. Default 0.001 mm.
+    /// </summary>
+    public Units.Length CoordinateTolerance
+    {
+        get => Units.Length.FromMetres(LengthTolerance);
+        init => LengthTolerance = value.Metres;
+    }
 
     /// <summary>Convergence: every orientation correction of the last iteration is below this (rad). Default 1e−8 rad
     /// (0.002″).</summary>
-    public double AngleTolerance { get; init; } = 1e-8;
+    internal double AngleTolerance { get; init; } = 1e-8;
+
+    /// <summary>Convergence: every orientation correction of the last iteration is below this. Default 0.002″.
+    /// </summary>
+    public Units.Angle OrientationTolerance
+    {
+        get => Units.Angle.FromRadians(AngleTolerance);
+        init => AngleTolerance = value.Radians;
+    }
 
     /// <summary>The a-priori variance factor σ0² (positive). Default 1.</summary>
     public double AprioriVarianceFactor { get; init; } = 1.0;

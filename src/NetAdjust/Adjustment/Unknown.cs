@@ -31,7 +31,7 @@ public sealed class UnknownIndex
     private readonly List<Unknown> _list = new();
 
     /// <summary>Creates an empty numbering (the adjuster fills it).</summary>
-    public UnknownIndex() => Unknowns = _list.AsReadOnly();
+    internal UnknownIndex() => Unknowns = _list.AsReadOnly();
 
     /// <summary>The unknowns in index order (a read-only view).</summary>
     public IReadOnlyList<Unknown> Unknowns { get; }

@@ -156,6 +156,8 @@ public static partial class BlunderDiagnosis
         double sd = t.Sigma0 / Math.Sqrt(m);
         if (lo is not null && lo.Estimate(trial.C) is var (s2, sd2)) (size, sd) = (s2, sd2);
         int r = t.DegreesOfFreedom;
+        bool angular = trial.Applies == Correction.Values && trial.Observations.Count > 0
+            && Network.ObservationKinds.ValueIsAngle(t.Result.Observations[trial.Observations[0]].Input.Kind);
 
         (double MaxW, double P, bool Fits) Fit(double nabla, int dof)
         {
@@ -180,11 +182,14 @@ public static partial class BlunderDiagnosis
             if (best is null || (!bestFit.Fits && (free.Fits || free.P > bestFit.P)))
             {
                 return new Tested(new BlunderHypothesis(trial.Kind, trial.FreeDescription(size, sd), trial.Observations,
-                    1, wc, crit, size, sd, null, free.MaxW, free.Fits, trial.FreeEdit(size)) { FitAfter = free.P },
+                    1, wc, crit, size, sd, null, free.MaxW, free.Fits, trial.FreeEdit(size))
+                    { FitAfter = free.P, SizeIsAngle = angular },
                     alt, trial, size, null);
             }
             return new Tested(new BlunderHypothesis(trial.Kind, best.Description, trial.Observations, 1, wc, crit,
-                size, sd, best.Label, bestFit.MaxW, bestFit.Fits, best.Edit) { FitAfter = bestFit.P }, alt, trial,
+                size, sd, best.Label, bestFit.MaxW, bestFit.Fits, best.Edit) { FitAfter = bestFit.P,
+                    SizeIsAngle = angular },
+                alt, trial,
                 best.Nabla, best);
         }
         if (best is null) return null;

@@ -1,3 +1,5 @@
+using NetAdjust.Units;
+
 namespace NetAdjust.Diagnosis;
 
 /// <summary>One tested hypothesis (a blunder kind with its best candidate) for one suspect observation.</summary>
@@ -36,6 +38,25 @@ public sealed record BlunderHypothesis(
     bool FitsAfter,
     SuggestedEdit? Edit)
 {
+    /// <summary>The estimated bias ∇̂ in SI units, for the library and its writers; the public, typed view is
+    /// <see cref="EstimatedSize"/>.</summary>
+    internal double? Size { get; init; } = Size;
+
+    /// <summary>Its standard deviation in SI units; the public, typed view is <see cref="EstimatedSizeSd"/>.
+    /// </summary>
+    internal double? SizeSd { get; init; } = SizeSd;
+
+    /// <summary>True when <see cref="Size"/> is an angle (a bias of the values of angular observations).</summary>
+    internal bool SizeIsAngle { get; init; }
+
+    /// <summary>The estimated bias ∇̂, typed: an angle for a bias of directions, angles, azimuths or zenith
+    /// angles, a length otherwise (distances, height differences, and the wrong height of the height kinds); null
+    /// for kinds with discrete candidates only.</summary>
+    public Quantity? EstimatedSize => Size is double s ? Quantity.FromSi(s, SizeIsAngle) : null;
+
+    /// <summary>The standard deviation of <see cref="EstimatedSize"/>, typed like it.</summary>
+    public Quantity? EstimatedSizeSd => SizeSd is double s ? Quantity.FromSi(s, SizeIsAngle) : null;
+
     /// <summary>Indices of the observations the hypothesis biases.</summary>
     public IReadOnlyList<int> Observations { get; init; } = ReadOnlyCopies.List(Observations);
 

@@ -1,3 +1,4 @@
+using NetAdjust.Units;
 namespace NetAdjust.Misclosures;
 
 /// <summary>What a levelling closure closes.</summary>
@@ -63,22 +64,59 @@ public sealed record MisclosureOptions
 
 /// <summary>
 /// The misclosure of one level loop, line between benchmarks, or section levelled twice. Lengths in metres.
+/// Made by the checks before the adjustment only (the constructor is internal).
 /// </summary>
-/// <param name="Kind">Loop, line or section.</param>
-/// <param name="Points">The points in the order the closure runs (a loop repeats its first point at the end).</param>
-/// <param name="Observations">Indices of the height differences in the network's observation list, in running
-/// order.</param>
-/// <param name="Misclosure">Σ Δh along the run, minus the given height difference of the end benchmarks for a
-/// line (m).</param>
-/// <param name="Length">The levelled length K (m): the sum of the sections' lengths (for a section levelled twice,
-/// the shorter run); NaN when a section's length is not known.</param>
-/// <param name="Sd">The expected standard deviation of the misclosure, √Σσᵢ² (m).</param>
-/// <param name="SdAllowance">The misclosure allowed by the expected standard deviation, z·σ (m).</param>
-/// <param name="Allowance">c·√K (m); null when no constant is set or K is not known.</param>
-public sealed record LevelClosure(LevelClosureKind Kind, IReadOnlyList<string> Points,
-    IReadOnlyList<int> Observations, double Misclosure, double Length, double Sd, double SdAllowance,
-    double? Allowance)
+public sealed record LevelClosure
 {
+    /// <summary>Made by the checks before the adjustment.</summary>
+    internal LevelClosure(LevelClosureKind Kind, IReadOnlyList<string> Points, IReadOnlyList<int> Observations,
+        double Misclosure, double Length, double Sd, double SdAllowance, double? Allowance)
+    {
+        this.Kind = Kind; this.Points = Points; this.Observations = Observations; this.Misclosure = Misclosure;
+        this.Length = Length; this.Sd = Sd; this.SdAllowance = SdAllowance; this.Allowance = Allowance;
+    }
+
+    /// <summary>Loop, line or section.</summary>
+    public LevelClosureKind Kind { get; internal init; }
+
+    /// <summary>The points in the order the closure runs (a loop repeats its first point at the end).</summary>
+    public IReadOnlyList<string> Points { get; internal init; }
+
+    /// <summary>Indices of the height differences in the network's observation list, in running order.</summary>
+    public IReadOnlyList<int> Observations { get; internal init; }
+
+    /// <summary>Σ Δh along the run, minus the given height difference of the end benchmarks for a line (m).</summary>
+    internal double Misclosure { get; init; }
+
+    /// <summary>The levelled length K (m): the sum of the sections' lengths (for a section levelled twice, the shorter
+    /// run); NaN when a section's length is not known.</summary>
+    internal double Length { get; init; }
+
+    /// <summary>The expected standard deviation of the misclosure, √Σσᵢ² (m).</summary>
+    internal double Sd { get; init; }
+
+    /// <summary>The misclosure allowed by the expected standard deviation, z·σ (m).</summary>
+    internal double SdAllowance { get; init; }
+
+    /// <summary>c·√K (m); null when no constant is set or K is not known.</summary>
+    internal double? Allowance { get; init; }
+
+    /// <summary>Σ Δh along the run, minus the given height difference of the end benchmarks for a line.</summary>
+    public Length MisclosureLength => Lengths.Metres(Misclosure);
+
+    /// <summary>The levelled length K: the sum of the sections' lengths (for a section levelled twice, the shorter
+    /// run); NaN when a section's length is not known.</summary>
+    public Length LevelledLength => Lengths.Metres(Length);
+
+    /// <summary>The expected standard deviation of the misclosure, √Σσᵢ².</summary>
+    public Length SdMisclosure => Lengths.Metres(Sd);
+
+    /// <summary>The misclosure allowed by the expected standard deviation, z·σ.</summary>
+    public Length SdAllowanceLength => Lengths.Metres(SdAllowance);
+
+    /// <summary>c·√K; null when no constant is set or K is not known.</summary>
+    public Length? AllowanceLength => Lengths.Of(Allowance);
+
     /// <summary>The largest ratio |misclosure| / allowance over the allowances that apply (≤ 1 passes).</summary>
     public double Ratio => Math.Max(Math.Abs(Misclosure) / SdAllowance,
         Allowance is double a ? Math.Abs(Misclosure) / a : 0);
@@ -90,25 +128,71 @@ public sealed record LevelClosure(LevelClosureKind Kind, IReadOnlyList<string> P
 /// <summary>
 /// The misclosures of one traverse: angular (against its expected standard deviation) and linear (with its
 /// precision ratio 1:k, tested against its expected covariance after the angles are balanced). SI units.
+/// Made by the checks before the adjustment only (the constructor is internal).
 /// </summary>
-/// <param name="Kind">Link or closed.</param>
-/// <param name="Points">The stations in running order (reference points not included).</param>
-/// <param name="Observations">Indices of the angles, directions and distances used, in the network's
-/// order.</param>
-/// <param name="AngularMisclosure">Carried minus known azimuth at the end (rad, in (−π, π]); NaN when the
-/// traverse ends on a known point without a closing angle.</param>
-/// <param name="AngularSd">Expected standard deviation of the angular misclosure, √Σσα² (rad); NaN likewise.</param>
-/// <param name="AngularAllowance">z·σ (rad); NaN likewise.</param>
-/// <param name="LinearMisclosure">The length of the closing vector after the angles are balanced (m).</param>
-/// <param name="Length">The traverse length Σd (m).</param>
-/// <param name="LinearStatistic">fᵀ C⁻¹ f of the closing vector f with its expected covariance C; NaN when C is
-/// singular.</param>
-/// <param name="LinearCritical">The χ²(2) quantile at the check's confidence.</param>
-/// <param name="MinimumRatio">The least precision ratio k required, or null.</param>
-public sealed record TraverseClosure(TraverseKind Kind, IReadOnlyList<string> Points,
-    IReadOnlyList<int> Observations, double AngularMisclosure, double AngularSd, double AngularAllowance,
-    double LinearMisclosure, double Length, double LinearStatistic, double LinearCritical, double? MinimumRatio)
+public sealed record TraverseClosure
 {
+    /// <summary>Made by the checks before the adjustment.</summary>
+    internal TraverseClosure(TraverseKind Kind, IReadOnlyList<string> Points, IReadOnlyList<int> Observations,
+        double AngularMisclosure, double AngularSd, double AngularAllowance, double LinearMisclosure, double Length,
+        double LinearStatistic, double LinearCritical, double? MinimumRatio)
+    {
+        this.Kind = Kind; this.Points = Points; this.Observations = Observations;
+        this.AngularMisclosure = AngularMisclosure; this.AngularSd = AngularSd;
+        this.AngularAllowance = AngularAllowance; this.LinearMisclosure = LinearMisclosure; this.Length = Length;
+        this.LinearStatistic = LinearStatistic; this.LinearCritical = LinearCritical; this.MinimumRatio = MinimumRatio;
+    }
+
+    /// <summary>Link or closed.</summary>
+    public TraverseKind Kind { get; internal init; }
+
+    /// <summary>The stations in running order (reference points not included).</summary>
+    public IReadOnlyList<string> Points { get; internal init; }
+
+    /// <summary>Indices of the angles, directions and distances used, in the network's order.</summary>
+    public IReadOnlyList<int> Observations { get; internal init; }
+
+    /// <summary>Carried minus known azimuth at the end (rad, in (−π, π]); NaN when the traverse ends on a known point
+    /// without a closing angle.</summary>
+    internal double AngularMisclosure { get; init; }
+
+    /// <summary>Expected standard deviation of the angular misclosure, √Σσα² (rad); NaN likewise.</summary>
+    internal double AngularSd { get; init; }
+
+    /// <summary>z·σ (rad); NaN likewise.</summary>
+    internal double AngularAllowance { get; init; }
+
+    /// <summary>The length of the closing vector after the angles are balanced (m).</summary>
+    internal double LinearMisclosure { get; init; }
+
+    /// <summary>The traverse length Σd (m).</summary>
+    internal double Length { get; init; }
+
+    /// <summary>fᵀ C⁻¹ f of the closing vector f with its expected covariance C; NaN when C is singular.</summary>
+    public double LinearStatistic { get; internal init; }
+
+    /// <summary>The χ²(2) quantile at the check's confidence.</summary>
+    public double LinearCritical { get; internal init; }
+
+    /// <summary>The least precision ratio k required, or null.</summary>
+    public double? MinimumRatio { get; internal init; }
+
+    /// <summary>Carried minus known azimuth at the end (rad, in (−π, π]); NaN when the traverse ends on a known point
+    /// without a closing angle.</summary>
+    public Angle AngularMisclosureAngle => Lengths.Radians(AngularMisclosure);
+
+    /// <summary>Expected standard deviation of the angular misclosure, √Σσα²; NaN likewise.</summary>
+    public Angle SdAngularMisclosure => Lengths.Radians(AngularSd);
+
+    /// <summary>z·σ; NaN likewise.</summary>
+    public Angle AngularAllowanceAngle => Lengths.Radians(AngularAllowance);
+
+    /// <summary>The length of the closing vector after the angles are balanced.</summary>
+    public Length LinearMisclosureLength => Lengths.Metres(LinearMisclosure);
+
+    /// <summary>The traverse length Σd.</summary>
+    public Length TraverseLength => Lengths.Metres(Length);
+
     /// <summary>The precision ratio k of 1:k (length / linear misclosure); infinite for a zero misclosure.</summary>
     public double PrecisionRatio => LinearMisclosure > 0 ? Length / LinearMisclosure : double.PositiveInfinity;
 
@@ -136,13 +220,26 @@ public sealed record TraverseClosure(TraverseKind Kind, IReadOnlyList<string> Po
     public bool Passed => Ratio <= 1;
 }
 
-/// <summary>The checks before the adjustment: every level closure and traverse found in a network.</summary>
-/// <param name="Options">The options used.</param>
-/// <param name="Levels">Level loops, lines between benchmarks and sections levelled twice, in the order found.</param>
-/// <param name="Traverses">Link and closed traverses, in the order found.</param>
-public sealed record MisclosureReport(MisclosureOptions Options, IReadOnlyList<LevelClosure> Levels,
-    IReadOnlyList<TraverseClosure> Traverses)
+/// <summary>The checks before the adjustment: every level closure and traverse found in a network. Made by the checks
+/// before the adjustment only (the constructor is internal).</summary>
+public sealed record MisclosureReport
 {
+    /// <summary>Made by the checks before the adjustment.</summary>
+    internal MisclosureReport(MisclosureOptions Options, IReadOnlyList<LevelClosure> Levels,
+        IReadOnlyList<TraverseClosure> Traverses)
+    {
+        this.Options = Options; this.Levels = Levels; this.Traverses = Traverses;
+    }
+
+    /// <summary>The options used.</summary>
+    public MisclosureOptions Options { get; internal init; }
+
+    /// <summary>Level loops, lines between benchmarks and sections levelled twice, in the order found.</summary>
+    public IReadOnlyList<LevelClosure> Levels { get; internal init; }
+
+    /// <summary>Link and closed traverses, in the order found.</summary>
+    public IReadOnlyList<TraverseClosure> Traverses { get; internal init; }
+
     /// <summary>True when nothing was found to check.</summary>
     public bool IsEmpty => Levels.Count == 0 && Traverses.Count == 0;
 }

@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using NetAdjust.Network;
 
 namespace NetAdjust.Misclosures;
@@ -14,18 +15,54 @@ namespace NetAdjust.Misclosures;
 /// </summary>
 internal static class TraverseClosures
 {
-    private sealed record Measured(double Value, double Var, IReadOnlyList<int> Obs);
+    /// <summary>A weighted mean of repeated measurements; <c>First</c> heads its chain of contributions (the
+    /// observations it comes from, listed only for a traverse found: <see cref="Data.ObservationsOf"/>).</summary>
+    private readonly record struct Measured(double Value, double Var, int First);
 
-    private sealed class Data
+    /// <summary>
+    /// What the walks need, with the points as their indices in the network (strings are hashed only once per
+    /// observation): the mean angle at a station from one point to another, the mean distance of a pair, and the
+    /// ways on from each station in the order they were first met.
+    /// </summary>
+    private sealed class Data(int points)
     {
-        public readonly Dictionary<(string At, string From, string To), Measured> Angles = [];
-        public readonly Dictionary<(string, string), Measured> Distances = [];
-        public readonly Dictionary<string, List<string>> Ways = new(StringComparer.Ordinal);
+        /// <summary>Index into <see cref="Means"/> of the mean angle at a station from one point to another.
+        /// </summary>
+        public readonly Dictionary<(int At, int From, int To), int> Angles = [];
+
+        /// <summary>Index into <see cref="Means"/> of the mean distance of a pair (lower index first).</summary>
+        public readonly Dictionary<(int, int), int> Distances = [];
+
+        public readonly List<Measured> Means = [];
+        public readonly List<int>?[] Ways = new List<int>?[points];
+
+        /// <summary>Contributions: one or two observation indices and the next contribution of the same mean.
+        /// </summary>
+        public readonly List<(int Obs1, int Obs2, int Next)> Contributions = [];
+
+        public List<int> Ways0(int at) => Ways[at] ?? [];
+
+        public Measured Angle(int at, int from, int to) => Means[Angles[(at, from, to)]];
+
+        public Measured Distance(int a, int b) => Means[Distances[Pair(a, b)]];
+
+        /// <summary>Memo of <see cref="OneWayOn"/> by (station, previous station).</summary>
+        public readonly Dictionary<(int, int), int> WayOn = [];
+
+        public IEnumerable<int> ObservationsOf(Measured m)
+        {
+            for (int c = m.First; c >= 0; c = Contributions[c].Next)
+            {
+                yield return Contributions[c].Obs1;
+                if (Contributions[c].Obs2 >= 0) yield return Contributions[c].Obs2;
+            }
+        }
     }
 
     public static List<TraverseClosure> Find(SurveyNetwork network, IReadOnlyList<double> sd, MisclosureOptions o,
         double z, double chi2)
     {
+        var known = network.Points.Select(IsKnown).ToArray();
         var data = Collect(network, sd);
         var found = new List<TraverseClosure>();
         var keys = new HashSet<string>(StringComparer.Ordinal);
@@ -36,31 +73,38 @@ internal static class TraverseClosures
                 .Select(i => Key(t.Points[i], t.Points[i + 1])).Order(StringComparer.Ordinal);
             if (keys.Add(string.Join("|", legs))) found.Add(t);
         }
-        bool Known(string id) => IsKnown(network[id]);
+        var visited = new HashSet<int>();
         // Link traverses, from each given point with a given reference.
-        foreach (var start in network.Points.Where(IsKnown))
-            foreach (var reference in data.Ways.GetValueOrDefault(start.Id) ?? [])
+        for (int start = 0; start < network.Points.Count; start++)
+        {
+            if (!known[start]) continue;
+            foreach (var reference in data.Ways0(start))
             {
-                if (!Known(reference)) continue;
-                foreach (var next in data.Ways[start.Id])
-                    if (next != reference && data.Angles.ContainsKey((start.Id, reference, next)) &&
-                        data.Distances.ContainsKey(Pair(start.Id, next)))
-                        Add(Walk(network, data, start.Id, reference, next, o, z, chi2));
+                if (!known[reference]) continue;
+                foreach (var next in data.Ways0(start))
+                    if (next != reference && data.Angles.ContainsKey((start, reference, next)) &&
+                        data.Distances.ContainsKey(Pair(start, next)))
+                        Add(Walk(network, known, data, visited, start, reference, next, o, z, chi2));
             }
+        }
         // Closed traverses with no given reference, from each station (its angles in the order found).
-        var byStation = data.Angles.Keys.GroupBy(k => k.At, StringComparer.Ordinal)
-            .ToDictionary(g => g.Key, g => g.ToList(), StringComparer.Ordinal);
-        var covered = new HashSet<string>(found.SelectMany(t => t.Points), StringComparer.Ordinal);
-        foreach (var start in network.Points)
-            foreach (var (at, back, next) in byStation.GetValueOrDefault(start.Id) ?? [])
+        var byStation = new List<(int Back, int Next)>?[network.Points.Count];
+        foreach (var (at, back, next) in data.Angles.Keys) (byStation[at] ??= []).Add((back, next));
+        var covered = new bool[network.Points.Count];
+        foreach (var t in found) foreach (var id in t.Points) covered[network.IndexOf(id)] = true;
+        for (int start = 0; start < network.Points.Count; start++)
+            foreach (var (back, next) in byStation[start] ?? [])
             {
                 // a station of a traverse already found starts no other walk: each loop is walked once
-                if (covered.Contains(at)) break;
-                if (data.Distances.ContainsKey(Pair(at, back)) && data.Distances.ContainsKey(Pair(at, next)) &&
-                    Walk(network, data, at, back, next, o, z, chi2, closed: true) is TraverseClosure t)
+                if (covered[start]) break;
+                // the walk's second station needs one way on (the walk would stop there: saves most walks)
+                if (next != start && OneWayOn(data, next, start) < 0) continue;
+                if (data.Distances.ContainsKey(Pair(start, back)) && data.Distances.ContainsKey(Pair(start, next)) &&
+                    Walk(network, known, data, visited, start, back, next, o, z, chi2, closed: true)
+                        is TraverseClosure t)
                 {
                     Add(t);
-                    covered.UnionWith(t.Points);
+                    foreach (var id in t.Points) covered[network.IndexOf(id)] = true;
                 }
             }
         return found;
@@ -69,55 +113,77 @@ internal static class TraverseClosures
     private static bool IsKnown(Point p) => p.E.HasValue && p.N.HasValue &&
         (p.IsFixed(Fixity.EN) || (p.SdE.HasValue && p.SdN.HasValue));
 
-    private static TraverseClosure? Walk(SurveyNetwork network, Data data, string start, string reference,
-        string first, MisclosureOptions o, double z, double chi2, bool closed = false)
+    /// <summary>The one way on from <paramref name="cur"/> coming from <paramref name="prev"/> (an angle and a
+    /// distance), or -1 when there is none or more than one.</summary>
+    private static int OneWayOn(Data data, int cur, int prev)
     {
-        var stations = new List<string> { start };
-        var visited = new HashSet<string>(StringComparer.Ordinal) { start };
+        ref int memo = ref CollectionsMarshal.GetValueRefOrAddDefault(data.WayOn,
+            (cur, prev), out bool exists);
+        if (!exists) memo = FindOneWayOn(data, cur, prev);
+        return memo;
+    }
+
+    private static int FindOneWayOn(Data data, int cur, int prev)
+    {
+        int way = -1, count = 0;
+        foreach (var w in data.Ways0(cur))
+            if (w != prev && data.Angles.ContainsKey((cur, prev, w)) && data.Distances.ContainsKey(Pair(cur, w)))
+            {
+                way = w;
+                count++;
+            }
+        return count == 1 ? way : -1;
+    }
+
+    private static TraverseClosure? Walk(SurveyNetwork network, bool[] known, Data data, HashSet<int> visited,
+        int start, int reference, int first, MisclosureOptions o, double z, double chi2, bool closed = false)
+    {
+        var stations = new List<int> { start };
+        visited.Clear();
+        visited.Add(start);
         var angles = new List<Measured>();
         var legs = new List<(Measured D, int Before)>();
-        string prev = reference, cur = start, next = first;
+        int prev = reference, cur = start, next = first;
         double? endAzimuth = null;
         bool knownEnd = false;
+        Point P(int i) => network.Points[i];
         while (true)
         {
             // a closed traverse's angle at its first station is its closing angle, taken at the end
-            if (!closed || cur != start) angles.Add(data.Angles[(cur, prev, next)]);
-            legs.Add((data.Distances[Pair(cur, next)], angles.Count));
+            if (!closed || cur != start) angles.Add(data.Angle(cur, prev, next));
+            legs.Add((data.Distance(cur, next), angles.Count));
             prev = cur;
             cur = next;
             if (closed && cur == start)
             {
                 // the closing angle at the first station, from the last station to the first leg
-                if (!data.Angles.TryGetValue((start, prev, first), out var closing)) return null;
-                angles.Add(closing);
+                if (!data.Angles.TryGetValue((start, prev, first), out int closing)) return null;
+                angles.Add(data.Means[closing]);
                 break;
             }
             if (visited.Contains(cur) && !(cur == start && !closed)) return null;
             stations.Add(cur);
             visited.Add(cur);
-            if (!closed && IsKnown(network[cur]))
+            if (!closed && known[cur])
             {
                 knownEnd = true;
-                var foresight = (data.Ways.GetValueOrDefault(cur) ?? []).FirstOrDefault(f => f != prev &&
-                    IsKnown(network[f]) && data.Angles.ContainsKey((cur, prev, f)));
-                if (foresight is not null)
+                int foresight = data.Ways0(cur).FirstOrDefault(f => f != prev && known[f] &&
+                    data.Angles.ContainsKey((cur, prev, f)), -1);
+                if (foresight >= 0)
                 {
-                    angles.Add(data.Angles[(cur, prev, foresight)]);
-                    endAzimuth = Azimuth(network[cur], network[foresight]);
+                    angles.Add(data.Angle(cur, prev, foresight));
+                    endAzimuth = Azimuth(P(cur), P(foresight));
                 }
                 break;
             }
-            var ways = (data.Ways.GetValueOrDefault(cur) ?? []).Where(w => w != prev &&
-                data.Angles.ContainsKey((cur, prev, w)) && data.Distances.ContainsKey(Pair(cur, w))).ToList();
-            if (ways.Count != 1 || stations.Count > network.Points.Count) return null;
-            next = ways[0];
+            next = OneWayOn(data, cur, prev);
+            if (next < 0 || stations.Count > network.Points.Count) return null;
         }
         if (!closed && !knownEnd) return null;
         if (closed && stations.Count < 3) return null;
 
         // Carry the azimuths: az(cur→next) = az(cur→prev) + angle = az(prev→cur) + π + angle.
-        double az0 = closed ? 0 : Azimuth(network[start], network[reference]);
+        double az0 = closed ? 0 : Azimuth(P(start), P(reference));
         double sum = angles.Sum(a => a.Value);
         int nAngles = angles.Count;
         double w = double.NaN, angularSd = double.NaN;
@@ -132,7 +198,7 @@ internal static class TraverseClosures
         double share = double.IsNaN(w) ? 0 : w / nAngles; // balancing: each angle takes an equal share
 
         // Carry the coordinates with the balanced angles; leg i has angles 0..Before-1 before it.
-        double e = closed ? 0 : network[start].E!.Value, nn = closed ? 0 : network[start].N!.Value;
+        double e = closed ? 0 : P(start).E!.Value, nn = closed ? 0 : P(start).N!.Value;
         var az = new double[legs.Count];
         double running = az0 - (closed ? 0 : Math.PI);
         for (int i = 0; i < legs.Count; i++)
@@ -142,7 +208,7 @@ internal static class TraverseClosures
             e += legs[i].D.Value * Math.Sin(running);
             nn += legs[i].D.Value * Math.Cos(running);
         }
-        double fE = closed ? e : e - network[cur].E!.Value, fN = closed ? nn : nn - network[cur].N!.Value;
+        double fE = closed ? e : e - P(cur).E!.Value, fN = closed ? nn : nn - P(cur).N!.Value;
 
         // Covariance of the closing vector: angles through the balanced azimuths, distances directly.
         double cEE = 0, cNN = 0, cEN = 0;
@@ -166,23 +232,65 @@ internal static class TraverseClosures
         double det = (cEE * cNN) - (cEN * cEN);
         double stat = det > 1e-30 * Math.Max(1e-300, cEE * cNN)
             ? ((cNN * fE * fE) - (2 * cEN * fE * fN) + (cEE * fN * fN)) / det : double.NaN;
-        var obs = angles.SelectMany(a => a.Obs).Concat(legs.SelectMany(l => l.D.Obs)).Distinct().Order().ToList();
-        var points = closed ? [.. stations, start] : stations;
+        var obs = angles.SelectMany(data.ObservationsOf).Concat(legs.SelectMany(l => data.ObservationsOf(l.D)))
+            .Distinct().Order().ToList();
+        var names = stations.Select(i => P(i).Id).ToList();
+        var points = closed ? [.. names, P(start).Id] : names;
         return new TraverseClosure(closed ? TraverseKind.Closed : TraverseKind.Link, points, obs, w, angularSd,
             z * angularSd, Math.Sqrt((fE * fE) + (fN * fN)), legs.Sum(l => l.D.Value), stat, chi2,
             o.MinimumTraverseRatio);
     }
 
+    /// <summary>A running weighted mean (angles aligned to the first within half a turn), its contributions
+    /// chained from <c>First</c> to <c>Last</c>.</summary>
+    private record struct Running(double FirstValue, double Sw, double Swx, int First, int Last);
+
     private static Data Collect(SurveyNetwork network, IReadOnlyList<double> sd)
     {
-        var angles = new Dictionary<(string, string, string), List<(double, double, int[])>>();
-        var distances = new Dictionary<(string, string), List<(double, double, int[])>>();
-        void AddAngle(string at, string from, string to, double value, double var, int[] obs)
+        var data = new Data(network.Points.Count);
+        var angleMeans = new List<Running>();
+        var distances = new Dictionary<(int, int), Running>();
+        void Accumulate(ref Running r, bool exists, double value, double var, int obs1, int obs2, bool angular)
+        {
+            int c = data.Contributions.Count;
+            data.Contributions.Add((obs1, obs2, -1));
+            if (!exists) r = new Running(value, 0, 0, c, c);
+            else
+            {
+                data.Contributions[r.Last] = data.Contributions[r.Last] with { Next = c };
+                r.Last = c;
+            }
+            // the weighted mean as a sum in the order of the observations
+            double x = angular ? r.FirstValue + Wrap(value - r.FirstValue) : value;
+            double wt = var > 0 ? 1 / var : 1e300;
+            r.Sw += wt;
+            r.Swx += wt * x;
+        }
+        void PushAngle((int, int, int) key, double value, double var, int obs1, int obs2)
+        {
+            ref int index = ref CollectionsMarshal.GetValueRefOrAddDefault(data.Angles,
+                key, out bool exists);
+            if (!exists)
+            {
+                index = angleMeans.Count;
+                angleMeans.Add(default);
+            }
+            var span = CollectionsMarshal.AsSpan(angleMeans);
+            Accumulate(ref span[index], exists, value, var, obs1, obs2, angular: true);
+        }
+        void AddAngle(int at, int from, int to, double value, double var, int obs1, int obs2)
         {
             value = Normalise(value);
-            Push(angles, (at, from, to), (value, var, obs));
-            Push(angles, (at, to, from), (Normalise((2 * Math.PI) - value), var, obs));
+            PushAngle((at, from, to), value, var, obs1, obs2);
+            PushAngle((at, to, from), Normalise((2 * Math.PI) - value), var, obs1, obs2);
         }
+        void PushDistance((int, int) key, double value, double var, int obs)
+        {
+            ref var r = ref CollectionsMarshal.GetValueRefOrAddDefault(distances, key,
+                out bool exists);
+            Accumulate(ref r, exists, value, var, obs, -1, angular: false);
+        }
+        int Ix(string id) => network.IndexOf(id);
         var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
         for (int i = 0; i < network.Observations.Count; i++)
         {
@@ -191,68 +299,62 @@ internal static class TraverseClosures
             switch (ob)
             {
                 case AngleObservation a:
-                    AddAngle(a.Station, a.Backsight, a.Foresight, a.Value, sd[i] * sd[i], [i]);
+                    AddAngle(Ix(a.Station), Ix(a.Backsight), Ix(a.Foresight), a.Value, sd[i] * sd[i], i, -1);
                     break;
                 case DirectionObservation d:
                     if (!sets.TryGetValue(d.SetId, out var list)) sets[d.SetId] = list = [];
                     list.Add(i);
                     break;
                 case DistanceObservation s:
-                    Push(distances, Pair(s.From, s.To), (s.Value, sd[i] * sd[i], [i]));
+                    PushDistance(Pair(Ix(s.From), Ix(s.To)), s.Value, sd[i] * sd[i], i);
                     break;
             }
         }
         foreach (var set in sets.Values)
+        {
+            var targets = set.Select(i => Ix(((DirectionObservation)network.Observations[i]).Target)).ToArray();
+            var stations = set.Select(i => Ix(((DirectionObservation)network.Observations[i]).Station)).ToArray();
             for (int x = 0; x < set.Count; x++)
                 for (int y = x + 1; y < set.Count; y++)
                 {
+                    if (targets[x] == targets[y]) continue;
                     var a = (DirectionObservation)network.Observations[set[x]];
                     var b = (DirectionObservation)network.Observations[set[y]];
-                    if (a.Target == b.Target) continue;
-                    AddAngle(a.Station, a.Target, b.Target, b.Value - a.Value,
-                        (sd[set[x]] * sd[set[x]]) + (sd[set[y]] * sd[set[y]]), [set[x], set[y]]);
+                    AddAngle(stations[x], targets[x], targets[y], b.Value - a.Value,
+                        (sd[set[x]] * sd[set[x]]) + (sd[set[y]] * sd[set[y]]), set[x], set[y]);
                 }
-        var data = new Data();
-        foreach (var (key, list) in angles)
+        }
+        foreach (var r in angleMeans) data.Means.Add(Mean(r, angular: true));
+        foreach (var key in data.Angles.Keys)
         {
-            data.Angles[key] = Mean(list, angular: true);
             Way(data, key.Item1, key.Item2);
             Way(data, key.Item1, key.Item3);
         }
-        foreach (var (key, list) in distances) data.Distances[key] = Mean(list, angular: false);
+        foreach (var (key, r) in distances)
+        {
+            data.Distances[key] = data.Means.Count;
+            data.Means.Add(Mean(r, angular: false));
+        }
         return data;
     }
 
-    private static void Way(Data data, string at, string to)
+    private static void Way(Data data, int at, int to)
     {
-        if (!data.Ways.TryGetValue(at, out var list)) data.Ways[at] = list = [];
+        var list = data.Ways[at] ??= [];
         if (!list.Contains(to)) list.Add(to);
     }
 
-    private static void Push<TKey>(Dictionary<TKey, List<(double, double, int[])>> d, TKey key,
-        (double, double, int[]) item) where TKey : notnull
-    {
-        if (!d.TryGetValue(key, out var list)) d[key] = list = [];
-        list.Add(item);
-    }
-
     /// <summary>The weighted mean of repeated measurements (angles aligned to the first within half a turn).</summary>
-    private static Measured Mean(List<(double Value, double Var, int[] Obs)> list, bool angular)
+    private static Measured Mean(Running r, bool angular)
     {
-        double first = list[0].Value, sw = 0, swx = 0;
-        foreach (var (v, var, _) in list)
-        {
-            double x = angular ? first + Wrap(v - first) : v;
-            double wt = var > 0 ? 1 / var : 1e300;
-            sw += wt; swx += wt * x;
-        }
-        double mean = swx / sw;
-        return new Measured(angular ? Normalise(mean) : mean, 1 / sw, list.SelectMany(l => l.Obs).ToList());
+        double mean = r.Swx / r.Sw;
+        return new Measured(angular ? Normalise(mean) : mean, 1 / r.Sw, r.First);
     }
 
-    private static (string, string) Pair(string a, string b) => string.CompareOrdinal(a, b) <= 0 ? (a, b) : (b, a);
+    private static (int, int) Pair(int a, int b) => a <= b ? (a, b) : (b, a);
 
-    private static string Key(string a, string b) { var (x, y) = Pair(a, b); return x + "\u0001" + y; }
+    private static string Key(string a, string b) =>
+        string.CompareOrdinal(a, b) <= 0 ? a + "\u0001" + b : b + "\u0001" + a;
 
     private static double Azimuth(Point from, Point to) =>
         Normalise(Math.Atan2(to.E!.Value - from.E!.Value, to.N!.Value - from.N!.Value));

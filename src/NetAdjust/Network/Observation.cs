@@ -76,6 +76,9 @@ public abstract record Observation
     /// <summary>The measured value in SI units (metres or radians).</summary>
     public abstract double Value { get; }
 
+    /// <summary>The measured value, typed: a length or an angle by the kind.</summary>
+    public Quantity ObservedValue => Quantity.FromSi(Value, ObservationKinds.ValueIsAngle(Kind));
+
     /// <summary>The station (instrument point) for angles and directions; null for other kinds.</summary>
     public virtual string? At => null;
 

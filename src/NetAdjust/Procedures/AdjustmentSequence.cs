@@ -5,6 +5,7 @@ using NetAdjust.Geometry;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 using NetAdjust.Statistics;
+using NetAdjust.Units;
 
 namespace NetAdjust.Procedures;
 
@@ -14,20 +15,43 @@ namespace NetAdjust.Procedures;
 /// constraints when the control is right (one-tailed, reject when T &gt; χ²(1 − α; Δr)). When σ0 is estimated,
 /// F = ((Ω_c − Ω_m)/Δr) / (Ω_m / r_m) follows F(Δr, r_m). Koch (1999), §4.3 (test of linear hypotheses);
 /// Caspary (1987), §4 (testing control in network analysis).
+/// Made by the adjustment sequence only (the constructor is internal).
 /// </summary>
-/// <param name="Alpha">Significance level α.</param>
-/// <param name="AddedConstraints">Δr = r_c − r_m.</param>
-/// <param name="VtpvIncrease">Ω_c − Ω_m.</param>
-/// <param name="ChiSquare">T = (Ω_c − Ω_m)/σ0².</param>
-/// <param name="ChiSquareCritical">χ²(1 − α; Δr); null when Δr = 0.</param>
-/// <param name="F">The F statistic; null when Δr = 0 or r_m = 0.</param>
-/// <param name="FCritical">F(1 − α; Δr, r_m); null with <paramref name="F"/>.</param>
-/// <param name="SigmaEstimated">True when the variance factor is taken as estimated (statistics option): the F test
-/// decides.</param>
-public sealed record ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, double ChiSquare,
-    double? ChiSquareCritical,
-    double? F, double? FCritical, bool SigmaEstimated = false)
+public sealed record ConstraintTest
 {
+    /// <summary>Made by the adjustment sequence.</summary>
+    internal ConstraintTest(double Alpha, int AddedConstraints, double VtpvIncrease, double ChiSquare,
+        double? ChiSquareCritical, double? F, double? FCritical, bool SigmaEstimated = false)
+    {
+        this.Alpha = Alpha; this.AddedConstraints = AddedConstraints; this.VtpvIncrease = VtpvIncrease;
+        this.ChiSquare = ChiSquare; this.ChiSquareCritical = ChiSquareCritical; this.F = F; this.FCritical = FCritical;
+        this.SigmaEstimated = SigmaEstimated;
+    }
+
+    /// <summary>Significance level α.</summary>
+    public double Alpha { get; internal init; }
+
+    /// <summary>Δr = r_c − r_m.</summary>
+    public int AddedConstraints { get; internal init; }
+
+    /// <summary>Ω_c − Ω_m.</summary>
+    public double VtpvIncrease { get; internal init; }
+
+    /// <summary>T = (Ω_c − Ω_m)/σ0².</summary>
+    public double ChiSquare { get; internal init; }
+
+    /// <summary>χ²(1 − α; Δr); null when Δr = 0.</summary>
+    public double? ChiSquareCritical { get; internal init; }
+
+    /// <summary>The F statistic; null when Δr = 0 or r_m = 0.</summary>
+    public double? F { get; internal init; }
+
+    /// <summary>F(1 − α; Δr, r_m); null with <see cref="F"/>.</summary>
+    public double? FCritical { get; internal init; }
+
+    /// <summary>True when the variance factor is taken as estimated (statistics option): the F test decides.</summary>
+    public bool SigmaEstimated { get; internal init; }
+
     /// <summary>The χ² decision (σ0 known): true when the control fits, null when there is nothing to test.</summary>
     public bool? PassedChiSquare => ChiSquareCritical is double c ? ChiSquare <= c : null;
 
@@ -47,17 +71,55 @@ public sealed record ConstraintTest(double Alpha, int AddedConstraints, double V
 /// d = given − adjusted, per component with its standard deviation √(σ0² Q_dd) and standardised value w = d/σ_d.
 /// Q_dd is the point's cofactor in the minimally-constrained datum (plus the given variance of weighted control).
 /// Components not controlled are null.
+/// Made by the adjustment sequence only (the constructor is internal).
 /// </summary>
-/// <param name="Id">The point.</param>
-/// <param name="DE">Easting discrepancy (m).</param>
-/// <param name="DN">Northing discrepancy (m).</param>
-/// <param name="DH">Height discrepancy (m).</param>
-/// <param name="SdE">Its standard deviation (m).</param>
-/// <param name="SdN">Its standard deviation (m).</param>
-/// <param name="SdH">Its standard deviation (m).</param>
-public sealed record ControlDiscrepancy(string Id, double? DE, double? DN, double? DH, double? SdE, double? SdN,
-    double? SdH)
+public sealed record ControlDiscrepancy
 {
+    /// <summary>Made by the adjustment sequence.</summary>
+    internal ControlDiscrepancy(string Id, double? DE, double? DN, double? DH, double? SdE, double? SdN, double? SdH)
+    {
+        this.Id = Id; this.DE = DE; this.DN = DN; this.DH = DH; this.SdE = SdE; this.SdN = SdN; this.SdH = SdH;
+    }
+
+    /// <summary>The point.</summary>
+    public string Id { get; internal init; }
+
+    /// <summary>Easting discrepancy (m).</summary>
+    internal double? DE { get; init; }
+
+    /// <summary>Northing discrepancy (m).</summary>
+    internal double? DN { get; init; }
+
+    /// <summary>Height discrepancy (m).</summary>
+    internal double? DH { get; init; }
+
+    /// <summary>Standard deviation of the easting discrepancy (m).</summary>
+    internal double? SdE { get; init; }
+
+    /// <summary>Standard deviation of the northing discrepancy (m).</summary>
+    internal double? SdN { get; init; }
+
+    /// <summary>Standard deviation of the height discrepancy (m).</summary>
+    internal double? SdH { get; init; }
+
+    /// <summary>Easting discrepancy.</summary>
+    public Length? EastingDiscrepancy => Lengths.Of(DE);
+
+    /// <summary>Northing discrepancy.</summary>
+    public Length? NorthingDiscrepancy => Lengths.Of(DN);
+
+    /// <summary>Height discrepancy.</summary>
+    public Length? HeightDiscrepancy => Lengths.Of(DH);
+
+    /// <summary>Standard deviation of the easting discrepancy.</summary>
+    public Length? SdEasting => Lengths.Of(SdE);
+
+    /// <summary>Standard deviation of the northing discrepancy.</summary>
+    public Length? SdNorthing => Lengths.Of(SdN);
+
+    /// <summary>Standard deviation of the height discrepancy.</summary>
+    public Length? SdHeight => Lengths.Of(SdH);
+
     /// <summary>Standardised easting discrepancy d/σ_d.</summary>
     public double? WE => Standardise(DE, SdE);
 
@@ -77,49 +139,89 @@ public sealed record ControlDiscrepancy(string Id, double? DE, double? DN, doubl
 }
 
 /// <summary>The change of a point's coordinates from the minimally-constrained to the constrained solution (constrained
-/// − minimal), m.</summary>
-/// <param name="Id">The point.</param>
-/// <param name="DE">Easting shift.</param>
-/// <param name="DN">Northing shift.</param>
-/// <param name="DH">Height shift.</param>
-public sealed record CoordinateShift(string Id, double? DE, double? DN, double? DH)
+/// − minimal), m. Made by the adjustment sequence only (the constructor is internal).</summary>
+public sealed record CoordinateShift
 {
+    /// <summary>Made by the adjustment sequence.</summary>
+    internal CoordinateShift(string Id, double? DE, double? DN, double? DH)
+    {
+        this.Id = Id; this.DE = DE; this.DN = DN; this.DH = DH;
+    }
+
+    /// <summary>The point.</summary>
+    public string Id { get; internal init; }
+
+    /// <summary>Easting shift.</summary>
+    internal double? DE { get; init; }
+
+    /// <summary>Northing shift.</summary>
+    internal double? DN { get; init; }
+
+    /// <summary>Height shift.</summary>
+    internal double? DH { get; init; }
+
+    /// <summary>Easting shift.</summary>
+    public Length? EastingShift => Lengths.Of(DE);
+
+    /// <summary>Northing shift.</summary>
+    public Length? NorthingShift => Lengths.Of(DN);
+
+    /// <summary>Height shift.</summary>
+    public Length? HeightShift => Lengths.Of(DH);
+
     /// <summary>The horizontal shift √(ΔE² + ΔN²); null when not a plane point.</summary>
-    public double? Horizontal => DE is double e && DN is double n ? Math.Sqrt((e * e) + (n * n)) : null;
+    public Length? HorizontalShift => Lengths.Of(Horizontal);
+
+    /// <summary>The horizontal shift √(ΔE² + ΔN²) (m); null when not a plane point.</summary>
+    internal double? Horizontal => DE is double e && DN is double n ? Math.Sqrt((e * e) + (n * n)) : null;
 }
 
-/// <summary>The result of the sequence: minimally-constrained, then constrained, and their comparison.</summary>
-/// <param name="Minimal">The minimally-constrained solution (tests the observations alone).</param>
-/// <param name="Constrained">The solution with all control as given.</param>
-/// <param name="MinimalDatum">The datum of the first solution, in words.</param>
-/// <param name="Test">The test of the added constraints.</param>
-/// <param name="Discrepancies">Per control point, in input order.</param>
-/// <param name="Shifts">Per point, in input order.</param>
-public sealed record SequenceResult(AdjustmentResult Minimal, AdjustmentResult Constrained, string MinimalDatum,
-    ConstraintTest Test, IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts)
+/// <summary>The result of the sequence: minimally-constrained, then constrained, and their comparison. Made by the
+/// adjustment sequence only (the constructor is internal).</summary>
+public sealed record SequenceResult
 {
+    /// <summary>Made by the adjustment sequence.</summary>
+    internal SequenceResult(AdjustmentResult Minimal, AdjustmentResult Constrained, string MinimalDatum,
+        ConstraintTest Test, IReadOnlyList<ControlDiscrepancy> Discrepancies, IReadOnlyList<CoordinateShift> Shifts)
+    {
+        this.Minimal = Minimal; this.Constrained = Constrained; this.MinimalDatum = MinimalDatum; this.Test = Test;
+        this.Discrepancies = Discrepancies; this.Shifts = Shifts;
+    }
+
+    /// <summary>The minimally-constrained solution (tests the observations alone).</summary>
+    public AdjustmentResult Minimal { get; internal init; }
+
+    /// <summary>The solution with all control as given.</summary>
+    public AdjustmentResult Constrained { get; internal init; }
+
+    /// <summary>The datum of the first solution, in words.</summary>
+    public string MinimalDatum { get; internal init; }
+
+    /// <summary>The test of the added constraints.</summary>
+    public ConstraintTest Test { get; internal init; }
+
     /// <summary>Per controlled component (E, N, H) of each control mark, whether the observations can check it: its
     /// redundancy number in the constrained step and the components it cannot be told apart from
     /// (<see cref="ControlTestability"/>).</summary>
     public IReadOnlyList<ControlTestability> Testability
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
+        internal init => field = ReadOnlyCopies.List(value);
     } = ReadOnlyCopies.List<ControlTestability>([]);
 
     /// <summary>Per control point, in input order.</summary>
     public IReadOnlyList<ControlDiscrepancy> Discrepancies
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(Discrepancies);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>Per point, in input order.</summary>
     public IReadOnlyList<CoordinateShift> Shifts
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(Shifts);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 }
 
 /// <summary>

@@ -17,25 +17,38 @@ namespace NetAdjust.Procedures;
 /// <see cref="SeparabilityLimit"/>, ρ from I − H) cannot be told apart: the data sees an error, not in which of them
 /// it lies. A component is testable when r_i reaches the limit and no other component of the same mark is
 /// inseparable from it. docs/methods.md, "Datum" (control testability).
+/// Made by the adjustment sequence only (the constructor is internal).
 /// </summary>
-/// <param name="Id">The control mark.</param>
-/// <param name="Component">The controlled coordinate: <see cref="Parameter.E"/>, <see cref="Parameter.N"/> or
-/// <see cref="Parameter.H"/>.</param>
-/// <param name="Redundancy">r_i in [0, 1]; null when not computed (more than <see cref="MaxUnknowns"/> unknowns).
-/// </param>
-/// <param name="Testable">True when an error in the component shows in its discrepancy and can be told apart from
-/// the mark's other components; null when not computed.</param>
-/// <param name="CannotBeToldApartFrom">The other control components (<c>id E|N|H</c>) whose discrepancies are fully
-/// correlated with this one, in input order.</param>
-public sealed record ControlTestability(string Id, Parameter Component, double? Redundancy, bool? Testable,
-    IReadOnlyList<string> CannotBeToldApartFrom)
+public sealed record ControlTestability
 {
+    /// <summary>Made by the adjustment sequence.</summary>
+    internal ControlTestability(string Id, Parameter Component, double? Redundancy, bool? Testable,
+        IReadOnlyList<string> CannotBeToldApartFrom)
+    {
+        this.Id = Id; this.Component = Component; this.Redundancy = Redundancy; this.Testable = Testable;
+        this.CannotBeToldApartFrom = CannotBeToldApartFrom;
+    }
+
+    /// <summary>The control mark.</summary>
+    public string Id { get; internal init; }
+
+    /// <summary>The controlled coordinate: <see cref="Parameter.E"/>, <see cref="Parameter.N"/> or <see
+    /// cref="Parameter.H"/>.</summary>
+    public Parameter Component { get; internal init; }
+
+    /// <summary>r_i in [0, 1]; null when not computed (more than <see cref="MaxUnknowns"/> unknowns).</summary>
+    public double? Redundancy { get; internal init; }
+
+    /// <summary>True when an error in the component shows in its discrepancy and can be told apart from the mark's
+    /// other components; null when not computed.</summary>
+    public bool? Testable { get; internal init; }
+
     /// <summary>The other control components whose discrepancies are fully correlated with this one.</summary>
     public IReadOnlyList<string> CannotBeToldApartFrom
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(CannotBeToldApartFrom);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>|ρ| at or above which two control components cannot be told apart.</summary>
     public const double SeparabilityLimit = 0.99;

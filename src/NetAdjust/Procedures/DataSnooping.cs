@@ -4,41 +4,76 @@ using NetAdjust.Statistics;
 
 namespace NetAdjust.Procedures;
 
-/// <summary>One round of a blunder hunt: one adjustment, its worst test, and what was done.</summary>
-/// <param name="Round">1, 2, …</param>
-/// <param name="DegreesOfFreedom">r of this round's adjustment.</param>
-/// <param name="VarianceFactor">σ̂0² of this round; null when r = 0.</param>
-/// <param name="GlobalTestPassed">The global test of this round; null when not possible.</param>
-/// <param name="WorstIndex">The observation with the largest test statistic (index in the network), or null when none
-/// can be tested.</param>
-/// <param name="WorstStatistic">Its w (variance factor known) or tau (estimated).</param>
-/// <param name="Critical">The critical value it was compared with.</param>
-/// <param name="SetAside">True when the worst observation failed and was set aside for the next round.</param>
-public sealed record SnoopingRound(int Round, int DegreesOfFreedom, double? VarianceFactor, bool? GlobalTestPassed,
-    int? WorstIndex, double? WorstStatistic, double Critical, bool SetAside);
-
-/// <summary>The outcome of iterative data snooping.</summary>
-/// <param name="Rounds">The log, one entry per adjustment.</param>
-/// <param name="SetAside">Indices of the observations set aside, in the order found.</param>
-/// <param name="StopReason">Why the hunt stopped, in words.</param>
-/// <param name="Final">The last adjustment (with the set-aside observations excluded, still reported with their
-/// misclosures).</param>
-public sealed record BlunderHunt(IReadOnlyList<SnoopingRound> Rounds, IReadOnlyList<int> SetAside, string StopReason,
-    AdjustmentResult Final)
+/// <summary>One round of a blunder hunt: one adjustment, its worst test, and what was done. Made by the blunder hunt
+/// only (the constructor is internal).</summary>
+public sealed record SnoopingRound
 {
+    /// <summary>Made by the blunder hunt.</summary>
+    internal SnoopingRound(int Round, int DegreesOfFreedom, double? VarianceFactor, bool? GlobalTestPassed,
+        int? WorstIndex, double? WorstStatistic, double Critical, bool SetAside)
+    {
+        this.Round = Round; this.DegreesOfFreedom = DegreesOfFreedom; this.VarianceFactor = VarianceFactor;
+        this.GlobalTestPassed = GlobalTestPassed; this.WorstIndex = WorstIndex; this.WorstStatistic = WorstStatistic;
+        this.Critical = Critical; this.SetAside = SetAside;
+    }
+
+    /// <summary>1, 2, …</summary>
+    public int Round { get; internal init; }
+
+    /// <summary>r of this round's adjustment.</summary>
+    public int DegreesOfFreedom { get; internal init; }
+
+    /// <summary>σ̂0² of this round; null when r = 0.</summary>
+    public double? VarianceFactor { get; internal init; }
+
+    /// <summary>The global test of this round; null when not possible.</summary>
+    public bool? GlobalTestPassed { get; internal init; }
+
+    /// <summary>The observation with the largest test statistic (index in the network), or null when none can be
+    /// tested.</summary>
+    public int? WorstIndex { get; internal init; }
+
+    /// <summary>Its w (variance factor known) or tau (estimated).</summary>
+    public double? WorstStatistic { get; internal init; }
+
+    /// <summary>The critical value it was compared with.</summary>
+    public double Critical { get; internal init; }
+
+    /// <summary>True when the worst observation failed and was set aside for the next round.</summary>
+    public bool SetAside { get; internal init; }
+}
+
+/// <summary>The outcome of iterative data snooping. Made by the blunder hunt only (the constructor is
+/// internal).</summary>
+public sealed record BlunderHunt
+{
+    /// <summary>Made by the blunder hunt.</summary>
+    internal BlunderHunt(IReadOnlyList<SnoopingRound> Rounds, IReadOnlyList<int> SetAside, string StopReason,
+        AdjustmentResult Final)
+    {
+        this.Rounds = Rounds; this.SetAside = SetAside; this.StopReason = StopReason; this.Final = Final;
+    }
+
+    /// <summary>Why the hunt stopped, in words.</summary>
+    public string StopReason { get; internal init; }
+
+    /// <summary>The last adjustment (with the set-aside observations excluded, still reported with their
+    /// misclosures).</summary>
+    public AdjustmentResult Final { get; internal init; }
+
     /// <summary>The log, one entry per adjustment.</summary>
     public IReadOnlyList<SnoopingRound> Rounds
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(Rounds);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>Indices of the observations set aside, in the order found.</summary>
     public IReadOnlyList<int> SetAside
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(SetAside);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 }
 
 /// <summary>

@@ -5,37 +5,99 @@ using NetAdjust.Units;
 
 namespace NetAdjust.Procedures;
 
-/// <summary>How one observation was reduced to the grid (docs/methods.md, "Grid and ground").</summary>
-/// <param name="Index">The observation's index in the network.</param>
-/// <param name="Observed">The observation as measured.</param>
-/// <param name="Reduced">The observation on the grid, as adjusted.</param>
-/// <param name="ElevationFactor">R / (R + h) of a horizontal distance; null where it does not apply or no height is
-/// known.</param>
-/// <param name="ScaleFactor">The line scale factor (Simpson's rule) or the project scale; null where it does not
-/// apply.</param>
-/// <param name="CombinedFactor">The factor the length was multiplied by (grid / ground); null for angles.</param>
-/// <param name="AngleCorrection">The correction added to an angular observation in radians (arc-to-chord, and for a
-/// geodetic azimuth minus the convergence); null for lengths.</param>
-/// <param name="EllipsoidalHeight">The mean ellipsoidal height of the line in metres; null when not used.</param>
-public sealed record ObservationReduction(int Index, Observation Observed, Observation Reduced,
-    double? ElevationFactor, double? ScaleFactor, double? CombinedFactor, double? AngleCorrection,
-    double? EllipsoidalHeight);
+/// <summary>How one observation was reduced to the grid (docs/methods.md, "Grid and ground"). Made by the grid
+/// reduction only (the constructor is internal).</summary>
+public sealed record ObservationReduction
+{
+    /// <summary>Made by the grid reduction.</summary>
+    internal ObservationReduction(int Index, Observation Observed, Observation Reduced, double? ElevationFactor,
+        double? ScaleFactor, double? CombinedFactor, double? AngleCorrection, double? EllipsoidalHeight)
+    {
+        this.Index = Index; this.Observed = Observed; this.Reduced = Reduced; this.ElevationFactor = ElevationFactor;
+        this.ScaleFactor = ScaleFactor; this.CombinedFactor = CombinedFactor; this.AngleCorrection = AngleCorrection;
+        this.EllipsoidalHeight = EllipsoidalHeight;
+    }
 
-/// <summary>The projection's quantities at one point.</summary>
-/// <param name="Point">The point id.</param>
-/// <param name="ScaleFactor">The point scale factor k.</param>
-/// <param name="Convergence">The meridian convergence γ in radians (grid azimuth = geodetic azimuth − γ).</param>
-public sealed record PointGridFactors(string Point, double ScaleFactor, double Convergence);
+    /// <summary>The observation's index in the network.</summary>
+    public int Index { get; internal init; }
 
-/// <summary>A network reduced to the grid, with what was done to each observation.</summary>
-/// <param name="Network">The reduced network (same points and observations in the same order).</param>
-/// <param name="System">The grid system.</param>
-/// <param name="Observations">One entry per observation that was (or, for grid distances, could be) reduced, in
-/// input order.</param>
-/// <param name="Points">The projection's factors at every point with plane coordinates (empty without a
-/// projection).</param>
-public sealed record GridReductionResult(SurveyNetwork Network, GridSystem System,
-    IReadOnlyList<ObservationReduction> Observations, IReadOnlyList<PointGridFactors> Points);
+    /// <summary>The observation as measured.</summary>
+    public Observation Observed { get; internal init; }
+
+    /// <summary>The observation on the grid, as adjusted.</summary>
+    public Observation Reduced { get; internal init; }
+
+    /// <summary>R / (R + h) of a horizontal distance; null where it does not apply or no height is known.</summary>
+    public double? ElevationFactor { get; internal init; }
+
+    /// <summary>The line scale factor (Simpson's rule) or the project scale; null where it does not apply.</summary>
+    public double? ScaleFactor { get; internal init; }
+
+    /// <summary>The factor the length was multiplied by (grid / ground); null for angles.</summary>
+    public double? CombinedFactor { get; internal init; }
+
+    /// <summary>The correction added to an angular observation in radians (arc-to-chord, and for a geodetic azimuth
+    /// minus the convergence); null for lengths.</summary>
+    internal double? AngleCorrection { get; init; }
+
+    /// <summary>The mean ellipsoidal height of the line in metres; null when not used.</summary>
+    internal double? EllipsoidalHeight { get; init; }
+
+    /// <summary>The correction added to an angular observation (arc-to-chord, and for a geodetic azimuth minus the
+    /// convergence); null for lengths.</summary>
+    public Angle? AngularCorrection => Lengths.AngleOf(AngleCorrection);
+
+    /// <summary>The mean ellipsoidal height of the line; null when not used.</summary>
+    public Length? EllipsoidalHeightLength => Lengths.Of(EllipsoidalHeight);
+}
+
+/// <summary>The projection's quantities at one point. Made by the grid reduction only (the constructor is
+/// internal).</summary>
+public sealed record PointGridFactors
+{
+    /// <summary>Made by the grid reduction.</summary>
+    internal PointGridFactors(string Point, double ScaleFactor, double Convergence)
+    {
+        this.Point = Point; this.ScaleFactor = ScaleFactor; this.Convergence = Convergence;
+    }
+
+    /// <summary>The point id.</summary>
+    public string Point { get; internal init; }
+
+    /// <summary>The point scale factor k.</summary>
+    public double ScaleFactor { get; internal init; }
+
+    /// <summary>The meridian convergence γ in radians (grid azimuth = geodetic azimuth − γ).</summary>
+    internal double Convergence { get; init; }
+
+    /// <summary>The meridian convergence γ (grid azimuth = geodetic azimuth − γ).</summary>
+    public Angle ConvergenceAngle => Lengths.Radians(Convergence);
+}
+
+/// <summary>A network reduced to the grid, with what was done to each observation. Made by the grid reduction only (the
+/// constructor is internal).</summary>
+public sealed record GridReductionResult
+{
+    /// <summary>Made by the grid reduction.</summary>
+    internal GridReductionResult(SurveyNetwork Network, GridSystem System,
+        IReadOnlyList<ObservationReduction> Observations, IReadOnlyList<PointGridFactors> Points)
+    {
+        this.Network = Network; this.System = System; this.Observations = Observations; this.Points = Points;
+    }
+
+    /// <summary>The reduced network (same points and observations in the same order).</summary>
+    public SurveyNetwork Network { get; internal init; }
+
+    /// <summary>The grid system.</summary>
+    public GridSystem System { get; internal init; }
+
+    /// <summary>One entry per observation that was (or, for grid distances, could be) reduced, in input
+    /// order.</summary>
+    public IReadOnlyList<ObservationReduction> Observations { get; internal init; }
+
+    /// <summary>The projection's factors at every point with plane coordinates (empty without a projection).</summary>
+    public IReadOnlyList<PointGridFactors> Points { get; internal init; }
+}
 
 /// <summary>
 /// Reduces a network's observations to the grid before the adjustment (docs/methods.md, "Grid and ground"):

@@ -4,6 +4,7 @@ using NetAdjust.Misclosures;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 using NetAdjust.Standards;
+using NetAdjust.Units;
 
 namespace NetAdjust.Procedures;
 
@@ -143,30 +144,75 @@ public static class NetworkDesign
     }
 }
 
-/// <summary>The worst ratio of a plan observed with a number of sets against a standard.</summary>
-/// <param name="Sets">Number of sets.</param>
-/// <param name="WorstRatio">The largest value / allowance over the standard's items (≤ 1 meets it); NaN when the
-/// standard has no item with an allowance.</param>
-/// <param name="WorstItem">The item with that ratio, or null.</param>
-public sealed record SetsTrial(int Sets, double WorstRatio, string? WorstItem);
+/// <summary>The worst ratio of a plan observed with a number of sets against a standard. Made by the procedure
+/// recommendation only (the constructor is internal).</summary>
+public sealed record SetsTrial
+{
+    /// <summary>Made by the procedure recommendation.</summary>
+    internal SetsTrial(int Sets, double WorstRatio, string? WorstItem)
+    {
+        this.Sets = Sets; this.WorstRatio = WorstRatio; this.WorstItem = WorstItem;
+    }
+
+    /// <summary>Number of sets.</summary>
+    public int Sets { get; internal init; }
+
+    /// <summary>The largest value / allowance over the standard's items (≤ 1 meets it); NaN when the standard has no
+    /// item with an allowance.</summary>
+    public double WorstRatio { get; internal init; }
+
+    /// <summary>The item with that ratio, or null.</summary>
+    public string? WorstItem { get; internal init; }
+}
 
 /// <summary>The recommendation for one instrument: its trials for 1..N sets and the smallest number that meets the
-/// standard.</summary>
-/// <param name="Instrument">The instrument's id (or <c>plan</c> for the plan's own weights).</param>
-/// <param name="DirectionSd">Its ISO 17123-3 direction standard deviation (rad); NaN for the plan's own.</param>
-/// <param name="Trials">One trial per number of sets, 1..N.</param>
-/// <param name="SmallestSets">The smallest number of sets that meets the standard everywhere; null when none of
-/// 1..N does.</param>
-public sealed record InstrumentTrials(string Instrument, double DirectionSd, IReadOnlyList<SetsTrial> Trials,
-    int? SmallestSets);
+/// standard. Made by the procedure recommendation only (the constructor is internal).</summary>
+public sealed record InstrumentTrials
+{
+    /// <summary>Made by the procedure recommendation.</summary>
+    internal InstrumentTrials(string Instrument, double DirectionSd, IReadOnlyList<SetsTrial> Trials, int? SmallestSets)
+    {
+        this.Instrument = Instrument; this.DirectionSd = DirectionSd; this.Trials = Trials;
+        this.SmallestSets = SmallestSets;
+    }
 
-/// <summary>The procedure recommendation for a plan and a standard.</summary>
-/// <param name="Standard">The standard.</param>
-/// <param name="Instruments">One entry per candidate (the least precise first), or the plan's own weights.</param>
-/// <param name="Recommended">The least precise instrument that meets the standard within the sets tried (with its
-/// smallest number of sets), or null when none does.</param>
-public sealed record ProcedureRecommendation(AccuracyStandard Standard, IReadOnlyList<InstrumentTrials> Instruments,
-    InstrumentTrials? Recommended);
+    /// <summary>The instrument's id (or <c>plan</c> for the plan's own weights).</summary>
+    public string Instrument { get; internal init; }
+
+    /// <summary>Its ISO 17123-3 direction standard deviation (rad); NaN for the plan's own.</summary>
+    internal double DirectionSd { get; init; }
+
+    /// <summary>One trial per number of sets, 1..N.</summary>
+    public IReadOnlyList<SetsTrial> Trials { get; internal init; }
+
+    /// <summary>The smallest number of sets that meets the standard everywhere; null when none of 1..N does.</summary>
+    public int? SmallestSets { get; internal init; }
+
+    /// <summary>Its ISO 17123-3 direction standard deviation; NaN for the plan's own.</summary>
+    public Angle DirectionSdAngle => Lengths.Radians(DirectionSd);
+}
+
+/// <summary>The procedure recommendation for a plan and a standard. Made by the procedure recommendation only (the
+/// constructor is internal).</summary>
+public sealed record ProcedureRecommendation
+{
+    /// <summary>Made by the procedure recommendation.</summary>
+    internal ProcedureRecommendation(AccuracyStandard Standard, IReadOnlyList<InstrumentTrials> Instruments,
+        InstrumentTrials? Recommended)
+    {
+        this.Standard = Standard; this.Instruments = Instruments; this.Recommended = Recommended;
+    }
+
+    /// <summary>The standard.</summary>
+    public AccuracyStandard Standard { get; internal init; }
+
+    /// <summary>One entry per candidate (the least precise first), or the plan's own weights.</summary>
+    public IReadOnlyList<InstrumentTrials> Instruments { get; internal init; }
+
+    /// <summary>The least precise instrument that meets the standard within the sets tried (with its smallest number of
+    /// sets), or null when none does.</summary>
+    public InstrumentTrials? Recommended { get; internal init; }
+}
 
 /// <summary>
 /// Recommends a procedure for a plan: the smallest number of sets (and, from candidate total stations, the least

@@ -15,44 +15,55 @@ public enum RobustMethod
     Danish,
 }
 
-/// <summary>The outcome of a robust (iteratively re-weighted) adjustment.</summary>
-/// <param name="Method">The weight function.</param>
-/// <param name="Tuning">Its constant c.</param>
-/// <param name="Iterations">Re-weighting iterations made.</param>
-/// <param name="Converged">True when the weight factors settled (largest change below 0.001).</param>
-/// <param name="WeightFactors">The final weight factor of each observation (1 = full weight), in network order.</param>
-/// <param name="Standardised">The final robust standardised residual |u| (<see cref="RobustEstimation.Standardised"/>):
-/// the |w| each
-/// observation would get at full weight against the others as finally weighted (|v| / (σ √r) instead where the others
-/// leave
-/// it uncontrolled), in network order (NaN when not tested).</param>
-/// <param name="Suspected">Observations whose robust standardised residual exceeds the w-test critical value, largest
-/// first.</param>
-/// <param name="Final">The last re-weighted adjustment (standard deviations inflated by 1/√factor).</param>
-public sealed record RobustEstimate(RobustMethod Method, double Tuning, int Iterations, bool Converged,
-    IReadOnlyList<double> WeightFactors,
-    IReadOnlyList<double> Standardised, IReadOnlyList<int> Suspected, AdjustmentResult Final)
+/// <summary>The outcome of a robust (iteratively re-weighted) adjustment. Made by the robust estimation only (the
+/// constructor is internal).</summary>
+public sealed record RobustEstimate
 {
+    /// <summary>Made by the robust estimation.</summary>
+    internal RobustEstimate(RobustMethod Method, double Tuning, int Iterations, bool Converged,
+        IReadOnlyList<double> WeightFactors, IReadOnlyList<double> Standardised, IReadOnlyList<int> Suspected,
+        AdjustmentResult Final)
+    {
+        this.Method = Method; this.Tuning = Tuning; this.Iterations = Iterations; this.Converged = Converged;
+        this.WeightFactors = WeightFactors; this.Standardised = Standardised; this.Suspected = Suspected;
+        this.Final = Final;
+    }
+
+    /// <summary>The weight function.</summary>
+    public RobustMethod Method { get; internal init; }
+
+    /// <summary>Its constant c.</summary>
+    public double Tuning { get; internal init; }
+
+    /// <summary>Re-weighting iterations made.</summary>
+    public int Iterations { get; internal init; }
+
+    /// <summary>True when the weight factors settled (largest change below 0.001).</summary>
+    public bool Converged { get; internal init; }
+
+    /// <summary>The last re-weighted adjustment (standard deviations inflated by 1/√factor).</summary>
+    public AdjustmentResult Final { get; internal init; }
+
     /// <summary>The final weight factor of each observation, in network order.</summary>
     public IReadOnlyList<double> WeightFactors
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(WeightFactors);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>The final robust standardised residual of each observation, in network order.</summary>
     public IReadOnlyList<double> Standardised
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(Standardised);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 
     /// <summary>Observations whose robust standardised residual exceeds the critical value, largest first.</summary>
     public IReadOnlyList<int> Suspected
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(Suspected);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 }
 
 /// <summary>

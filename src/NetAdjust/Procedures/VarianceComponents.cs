@@ -1,40 +1,88 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
+using NetAdjust.Units;
 
 namespace NetAdjust.Procedures;
 
-/// <summary>The estimated variance component(s) of one observation group.</summary>
-/// <param name="Kind">The observation kind of the group.</param>
-/// <param name="Count">Observations in the group (not excluded).</param>
-/// <param name="Redundancy">The group's share of the redundancy, Σ rᵢ over the group, in the final adjustment.</param>
-/// <param name="VarianceFactor">The group's variance factor against the standard deviations given: Σ vᵢ²/σᵢ² / Σ rᵢ (1
-/// means the given σ fit).</param>
-/// <param name="SdScale">√ of <see cref="VarianceFactor"/>: multiply the given standard deviations by this.</param>
-/// <param name="ScaledSd">When every observation of the group had the same σ: that σ times <see cref="SdScale"/> (m or
-/// rad); else null.</param>
-/// <param name="ConstantPart">Distances with a fitted spec: the constant part a (m); else null.</param>
-/// <param name="PpmPart">Distances with a fitted spec: the proportional part b (ppm); else null.</param>
-/// <param name="Note">Why a spec was not fitted or why the estimate is weak; null when none.</param>
-public sealed record VarianceComponent(ObservationKind Kind, int Count, double Redundancy, double VarianceFactor,
-    double SdScale,
-    double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note);
-
-/// <summary>The outcome of a variance component estimation.</summary>
-/// <param name="Groups">One entry per observation kind present, in kind order.</param>
-/// <param name="Iterations">Iterations made.</param>
-/// <param name="Converged">True when no observation's standard deviation changed by more than 0.005% in the last
-/// iteration.</param>
-/// <param name="Final">The adjustment with the re-estimated standard deviations.</param>
-public sealed record VarianceComponentEstimate(IReadOnlyList<VarianceComponent> Groups, int Iterations, bool Converged,
-    AdjustmentResult Final)
+/// <summary>The estimated variance component(s) of one observation group. Made by the variance component estimation
+/// only (the constructor is internal).</summary>
+public sealed record VarianceComponent
 {
+    /// <summary>Made by the variance component estimation.</summary>
+    internal VarianceComponent(ObservationKind Kind, int Count, double Redundancy, double VarianceFactor,
+        double SdScale, double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note)
+    {
+        this.Kind = Kind; this.Count = Count; this.Redundancy = Redundancy; this.VarianceFactor = VarianceFactor;
+        this.SdScale = SdScale; this.ScaledSd = ScaledSd; this.ConstantPart = ConstantPart; this.PpmPart = PpmPart;
+        this.Note = Note;
+    }
+
+    /// <summary>The observation kind of the group.</summary>
+    public ObservationKind Kind { get; internal init; }
+
+    /// <summary>Observations in the group (not excluded).</summary>
+    public int Count { get; internal init; }
+
+    /// <summary>The group's share of the redundancy, Σ rᵢ over the group, in the final adjustment.</summary>
+    public double Redundancy { get; internal init; }
+
+    /// <summary>The group's variance factor against the standard deviations given: Σ vᵢ²/σᵢ² / Σ rᵢ (1 means the given
+    /// σ fit).</summary>
+    public double VarianceFactor { get; internal init; }
+
+    /// <summary>√ of <see cref="VarianceFactor"/>: multiply the given standard deviations by this.</summary>
+    public double SdScale { get; internal init; }
+
+    /// <summary>When every observation of the group had the same σ: that σ times <see cref="SdScale"/> (m or rad); else
+    /// null.</summary>
+    internal double? ScaledSd { get; init; }
+
+    /// <summary>Distances with a fitted spec: the constant part a (m); else null.</summary>
+    internal double? ConstantPart { get; init; }
+
+    /// <summary>Distances with a fitted spec: the proportional part b (ppm); else null.</summary>
+    public double? PpmPart { get; internal init; }
+
+    /// <summary>Why a spec was not fitted or why the estimate is weak; null when none.</summary>
+    public string? Note { get; internal init; }
+
+    /// <summary>When every observation of the group had the same σ: that σ times <see cref="SdScale"/>; else
+    /// null.</summary>
+    public Quantity? ScaledSdValue =>
+        ScaledSd is double q ? Quantity.FromSi(q, ObservationKinds.ValueIsAngle(Kind)) : null;
+
+    /// <summary>Distances with a fitted spec: the constant part a; else null.</summary>
+    public Length? ConstantPartLength => Lengths.Of(ConstantPart);
+}
+
+/// <summary>The outcome of a variance component estimation. Made by the variance component estimation only (the
+/// constructor is internal).</summary>
+public sealed record VarianceComponentEstimate
+{
+    /// <summary>Made by the variance component estimation.</summary>
+    internal VarianceComponentEstimate(IReadOnlyList<VarianceComponent> Groups, int Iterations, bool Converged,
+        AdjustmentResult Final)
+    {
+        this.Groups = Groups; this.Iterations = Iterations; this.Converged = Converged; this.Final = Final;
+    }
+
+    /// <summary>Iterations made.</summary>
+    public int Iterations { get; internal init; }
+
+    /// <summary>True when no observation's standard deviation changed by more than 0.005% in the last
+    /// iteration.</summary>
+    public bool Converged { get; internal init; }
+
+    /// <summary>The adjustment with the re-estimated standard deviations.</summary>
+    public AdjustmentResult Final { get; internal init; }
+
     /// <summary>One entry per observation kind present, in kind order.</summary>
     public IReadOnlyList<VarianceComponent> Groups
     {
         get;
-        init => field = ReadOnlyCopies.List(value);
-    } = ReadOnlyCopies.List(Groups);
+        internal init => field = ReadOnlyCopies.List(value);
+    }
 }
 
 /// <summary>

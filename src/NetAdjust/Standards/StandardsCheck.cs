@@ -2,22 +2,51 @@ using MathNet.Numerics.Distributions;
 using NetAdjust.Adjustment;
 using NetAdjust.Misclosures;
 using NetAdjust.Statistics;
+using NetAdjust.Units;
 
 namespace NetAdjust.Standards;
 
 /// <summary>
 /// One checked item of an accuracy standard: a pair, a point or a levelling closure. Lengths in metres.
+/// Made by the standards check only (the constructor is internal).
 /// </summary>
-/// <param name="Standard">The standard's name.</param>
-/// <param name="Item">The pair (<c>A–B</c>), the point, or the closure (its points).</param>
-/// <param name="Quantity">What is measured, e.g. <c>relative 95%</c>, <c>network horizontal</c>,
-/// <c>loop</c>.</param>
-/// <param name="Value">The 95% value or the misclosure's size (m).</param>
-/// <param name="Allowance">The allowance (m); null when the standard sets none (a class is reported instead).</param>
-/// <param name="ClassReached">The accuracy class reached (m), for geodetic accuracy; null otherwise.</param>
-public sealed record StandardItem(string Standard, string Item, string Quantity, double Value, double? Allowance,
-    double? ClassReached)
+public sealed record StandardItem
 {
+    /// <summary>Made by the standards check.</summary>
+    internal StandardItem(string Standard, string Item, string Quantity, double Value, double? Allowance,
+        double? ClassReached)
+    {
+        this.Standard = Standard; this.Item = Item; this.Quantity = Quantity; this.Value = Value;
+        this.Allowance = Allowance; this.ClassReached = ClassReached;
+    }
+
+    /// <summary>The standard's name.</summary>
+    public string Standard { get; internal init; }
+
+    /// <summary>The pair (<c>A–B</c>), the point, or the closure (its points).</summary>
+    public string Item { get; internal init; }
+
+    /// <summary>What is measured, e.g. <c>relative 95%</c>, <c>network horizontal</c>, <c>loop</c>.</summary>
+    public string Quantity { get; internal init; }
+
+    /// <summary>The 95% value or the misclosure's size (m).</summary>
+    internal double Value { get; init; }
+
+    /// <summary>The allowance (m); null when the standard sets none (a class is reported instead).</summary>
+    internal double? Allowance { get; init; }
+
+    /// <summary>The accuracy class reached (m), for geodetic accuracy; null otherwise.</summary>
+    internal double? ClassReached { get; init; }
+
+    /// <summary>The 95% value or the misclosure's size.</summary>
+    public Length ValueLength => Lengths.Metres(Value);
+
+    /// <summary>The allowance; null when the standard sets none (a class is reported instead).</summary>
+    public Length? AllowanceLength => Lengths.Of(Allowance);
+
+    /// <summary>The accuracy class reached, for geodetic accuracy; null otherwise.</summary>
+    public Length? ClassReachedLength => Lengths.Of(ClassReached);
+
     /// <summary>Value / allowance (≤ 1 passes); null without an allowance.</summary>
     public double? Ratio => Allowance is double a ? (a > 0 ? Value / a : double.PositiveInfinity) : null;
 
@@ -25,11 +54,22 @@ public sealed record StandardItem(string Standard, string Item, string Quantity,
     public bool? Passed => Ratio is double r ? r <= 1 : null;
 }
 
-/// <summary>The outcome of applying accuracy standards: every item, worst first within each standard.</summary>
-/// <param name="Standards">The standards applied, in the order given.</param>
-/// <param name="Items">The items, grouped by standard in that order, each group worst (largest ratio) first.</param>
-public sealed record StandardsReport(IReadOnlyList<AccuracyStandard> Standards, IReadOnlyList<StandardItem> Items)
+/// <summary>The outcome of applying accuracy standards: every item, worst first within each standard. Made by the
+/// standards check only (the constructor is internal).</summary>
+public sealed record StandardsReport
 {
+    /// <summary>Made by the standards check.</summary>
+    internal StandardsReport(IReadOnlyList<AccuracyStandard> Standards, IReadOnlyList<StandardItem> Items)
+    {
+        this.Standards = Standards; this.Items = Items;
+    }
+
+    /// <summary>The standards applied, in the order given.</summary>
+    public IReadOnlyList<AccuracyStandard> Standards { get; internal init; }
+
+    /// <summary>The items, grouped by standard in that order, each group worst (largest ratio) first.</summary>
+    public IReadOnlyList<StandardItem> Items { get; internal init; }
+
     /// <summary>The caution every report of standards carries.</summary>
     public const string Caution = "A computed pass is evidence for the surveyor in charge, not a certification: " +
         "local regulations and the contract decide whether the work complies.";

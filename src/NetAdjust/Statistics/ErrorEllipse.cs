@@ -1,18 +1,44 @@
+using NetAdjust.Units;
+
 namespace NetAdjust.Statistics;
 
 /// <summary>
 /// The error ellipse of a 2×2 covariance matrix of (easting, northing): semi-axes a ≥ b (the square roots of the
-/// eigenvalues) and the azimuth of the major axis, clockwise from north, in [0, π). Immutable; lengths in metres.
+/// eigenvalues) and the azimuth of the major axis, clockwise from north, in [0°, 180°). Immutable and made by the
+/// library (<see cref="FromCovariance"/>); read it as <see cref="SemiMajorAxis"/>, <see cref="SemiMinorAxis"/>
+/// (lengths) and <see cref="MajorAxisAzimuth"/> (an angle).
 /// </summary>
 /// <remarks>
 /// a², b² = (σE² + σN²)/2 ± √(((σN² − σE²)/2)² + σEN²); azimuth θ = ½ atan2(2σEN, σN² − σE²)
 /// (Mikhail &amp; Ackermann 1976, error ellipses; see docs/methods.md).
 /// </remarks>
-/// <param name="A">Semi-major axis (m), ≥ <paramref name="B"/>.</param>
-/// <param name="B">Semi-minor axis (m), ≥ 0.</param>
-/// <param name="Azimuth">Azimuth of the semi-major axis, radians clockwise from north, in [0, π).</param>
-public readonly record struct ErrorEllipse(double A, double B, double Azimuth)
+public readonly record struct ErrorEllipse
 {
+    /// <summary>Made by the library (<see cref="FromCovariance"/>, <see cref="Scaled"/>): semi-axes in m, azimuth in
+    /// rad clockwise from north in [0, π).</summary>
+    internal ErrorEllipse(double A, double B, double Azimuth)
+    {
+        this.A = A; this.B = B; this.Azimuth = Azimuth;
+    }
+
+    /// <summary>Semi-major axis (m), ≥ <see cref="B"/>.</summary>
+    internal double A { get; init; }
+
+    /// <summary>Semi-minor axis (m), ≥ 0.</summary>
+    internal double B { get; init; }
+
+    /// <summary>Azimuth of the semi-major axis, radians clockwise from north, in [0, π).</summary>
+    internal double Azimuth { get; init; }
+
+    /// <summary>The semi-major axis a (≥ <see cref="SemiMinorAxis"/>).</summary>
+    public Length SemiMajorAxis => Length.FromMetres(A);
+
+    /// <summary>The semi-minor axis b (≥ 0).</summary>
+    public Length SemiMinorAxis => Length.FromMetres(B);
+
+    /// <summary>The azimuth of the semi-major axis, clockwise from north, in [0°, 180°).</summary>
+    public Angle MajorAxisAzimuth => Angle.FromRadians(Azimuth);
+
     /// <summary>The azimuth of the semi-major axis in degrees, in [0, 180).</summary>
     public double AzimuthDegrees => Azimuth * 180.0 / Math.PI;
 
@@ -51,10 +77,14 @@ public readonly record struct ErrorEllipse(double A, double B, double Azimuth)
 
     /// <summary>
     /// The standard deviation along a direction: √(uᵀ C u) for the unit vector u at the given azimuth. Along the major
-    /// axis it is <see cref="A"/>, across it <see cref="B"/>.
+    /// axis it is <see cref="SemiMajorAxis"/>, across it <see cref="SemiMinorAxis"/>.
     /// </summary>
+    /// <param name="azimuth">Azimuth of the direction, clockwise from north.</param>
+    public Length SdAlong(Angle azimuth) => Length.FromMetres(SdAlong(azimuth.Radians));
+
+    /// <summary>The standard deviation along a direction (m), the azimuth in radians clockwise from north.</summary>
     /// <param name="azimuth">Azimuth of the direction, radians clockwise from north.</param>
-    public double SdAlong(double azimuth)
+    internal double SdAlong(double azimuth)
     {
         double d = azimuth - Azimuth;
         double c = Math.Cos(d), s = Math.Sin(d);

@@ -1,6 +1,7 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
 using NetAdjust.Statistics;
+using NetAdjust.Units;
 
 namespace NetAdjust.Statistics;
 
@@ -42,72 +43,221 @@ public static class ObservationFlags
 }
 
 /// <summary>
-/// Tests and reliability of one observation (or one weighted-control component). Values in SI units of the
-/// observation (m or rad) unless stated.
+/// Tests and reliability of one observation (or one weighted-control component). Made by the analysis only (the
+/// constructor is internal). The minimal detectable bias is a <see cref="Quantity"/> typed like the observation
+/// (a length for a control component); the external reliability is a length.
 /// </summary>
-/// <param name="Index">Position in the result's observation list (or in the control list).</param>
-/// <param name="Redundancy">Redundancy number rᵢ = (Qvv P)ᵢᵢ in [0, 1]; 0 for excluded.</param>
-/// <param name="W">Standardised residual wᵢ (Baarda); for an excluded observation its standardised misclosure; null
-/// when uncontrolled.</param>
-/// <param name="Tau">Pope's τᵢ = wᵢ σ0/σ̂0; null when uncontrolled, excluded or r = 0.</param>
-/// <param name="Mdb">Minimal detectable bias (m or rad); null when uncontrolled or excluded.</param>
-/// <param name="ExternalReliability">Largest coordinate shift (m) an undetected MDB would cause; null when not
-/// computed.</param>
-/// <param name="ExternalReliabilityPoint">The point that shift falls on; null when not computed.</param>
-/// <param name="BiasToNoiseRatio">λ̄ᵢ = δ0 √((1 − rᵢ)/rᵢ): the effect of an MDB on any estimated quantity, in its
-/// standard deviations.</param>
-/// <param name="WPassed">The w-test outcome; null when not possible.</param>
-/// <param name="TauPassed">The tau-test outcome; null when not possible.</param>
-/// <param name="Flag">The summary flag.</param>
-public sealed record ObservationTest(int Index, double Redundancy, double? W, double? Tau, double? Mdb,
-    double? ExternalReliability,
-    string? ExternalReliabilityPoint, double? BiasToNoiseRatio, bool? WPassed, bool? TauPassed, ObservationFlag Flag);
-
-/// <summary>A weighted-control component treated as an observation, with its test.</summary>
-/// <param name="PointId">The control point.</param>
-/// <param name="Component">The coordinate tested: <see cref="Parameter.E"/>, <see cref="Parameter.N"/> or
-/// <see cref="Parameter.H"/>.</param>
-/// <param name="Residual">v = adjusted − given (m).</param>
-/// <param name="Test">Its redundancy and tests.</param>
-public sealed record ControlTest(string PointId, Parameter Component, double Residual, ObservationTest Test);
-
-/// <summary>The precision of one adjusted point.</summary>
-/// <param name="Id">The point id.</param>
-/// <param name="Ellipse">The standard error ellipse (m); null when the point has no adjusted plane coordinates.</param>
-/// <param name="Confidence">The confidence ellipse (the standard one scaled by <see
-/// cref="NetworkAnalysis.EllipseScale"/>); null likewise.</param>
-/// <param name="SdHeight">Standard deviation of the height (m); null when the height is not adjusted.</param>
-/// <param name="HeightConfidence">Half-width of the height confidence interval (m); null likewise.</param>
-public sealed record PointPrecision(string Id, ErrorEllipse? Ellipse, ErrorEllipse? Confidence, double? SdHeight,
-    double? HeightConfidence);
-
-/// <summary>The relative precision of two points: the ellipse of the coordinate difference (to − from).</summary>
-/// <param name="From">First point.</param>
-/// <param name="To">Second point.</param>
-/// <param name="Ellipse">Standard relative ellipse (m).</param>
-/// <param name="Confidence">Confidence relative ellipse (m).</param>
-/// <param name="Distance">Adjusted horizontal distance (m).</param>
-/// <param name="SdDistance">Standard deviation of that distance (m).</param>
-/// <param name="SdAzimuth">Standard deviation of the azimuth from → to (rad).</param>
-/// <param name="Observed">True when the pair is joined by an observation; false when listed by the user.</param>
-public sealed record RelativePrecision(string From, string To, ErrorEllipse Ellipse, ErrorEllipse Confidence,
-    double Distance,
-    double SdDistance, double SdAzimuth, bool Observed)
+public sealed record ObservationTest
 {
+    /// <summary>Made by the analysis: MDB in the SI unit of the row (m or rad), external reliability in m.</summary>
+    internal ObservationTest(int Index, double Redundancy, double? W, double? Tau, double? Mdb,
+        double? ExternalReliability, string? ExternalReliabilityPoint, double? BiasToNoiseRatio, bool? WPassed,
+        bool? TauPassed, ObservationFlag Flag)
+    {
+        this.Index = Index; this.Redundancy = Redundancy; this.W = W; this.Tau = Tau; this.Mdb = Mdb;
+        this.ExternalReliability = ExternalReliability; this.ExternalReliabilityPoint = ExternalReliabilityPoint;
+        this.BiasToNoiseRatio = BiasToNoiseRatio; this.WPassed = WPassed; this.TauPassed = TauPassed;
+        this.Flag = Flag;
+    }
+
+    /// <summary>Position in the result's observation list (or in the control list).</summary>
+    public int Index { get; internal init; }
+
+    /// <summary>Redundancy number rᵢ = (Qvv P)ᵢᵢ in [0, 1]; 0 for excluded.</summary>
+    public double Redundancy { get; internal init; }
+
+    /// <summary>Standardised residual wᵢ (Baarda); for an excluded observation its standardised misclosure; null
+    /// when uncontrolled.</summary>
+    public double? W { get; internal init; }
+
+    /// <summary>Pope's τᵢ = wᵢ σ0/σ̂0; null when uncontrolled, excluded or r = 0.</summary>
+    public double? Tau { get; internal init; }
+
+    /// <summary>Minimal detectable bias (m or rad); null when uncontrolled or excluded.</summary>
+    internal double? Mdb { get; init; }
+
+    /// <summary>True when the row is an angular observation (its MDB is an angle).</summary>
+    internal bool IsAngle { get; init; }
+
+    /// <summary>Largest coordinate shift (m) an undetected MDB would cause; null when not computed.</summary>
+    internal double? ExternalReliability { get; init; }
+
+    /// <summary>The point that shift falls on; null when not computed.</summary>
+    public string? ExternalReliabilityPoint { get; internal init; }
+
+    /// <summary>λ̄ᵢ = δ0 √((1 − rᵢ)/rᵢ): the effect of an MDB on any estimated quantity, in its standard
+    /// deviations.</summary>
+    public double? BiasToNoiseRatio { get; internal init; }
+
+    /// <summary>The w-test outcome; null when not possible.</summary>
+    public bool? WPassed { get; internal init; }
+
+    /// <summary>The tau-test outcome; null when not possible.</summary>
+    public bool? TauPassed { get; internal init; }
+
+    /// <summary>The summary flag.</summary>
+    public ObservationFlag Flag { get; internal init; }
+
+    /// <summary>Minimal detectable bias, typed like the observation (an angle for angular kinds, a length
+    /// otherwise); null when uncontrolled or excluded.</summary>
+    public Quantity? MinimalDetectableBias => Mdb is double m ? Quantity.FromSi(m, IsAngle) : null;
+
+    /// <summary>External reliability: the largest coordinate shift an undetected minimal detectable bias would
+    /// cause (at <see cref="ExternalReliabilityPoint"/>); null when not computed.</summary>
+    public Length? ExternalReliabilityShift => Lengths.Of(ExternalReliability);
+}
+
+/// <summary>A weighted-control component treated as an observation, with its test. Made by the analysis only.
+/// </summary>
+public sealed record ControlTest
+{
+    /// <summary>Made by the analysis: residual in m.</summary>
+    internal ControlTest(string PointId, Parameter Component, double Residual, ObservationTest Test)
+    {
+        this.PointId = PointId; this.Component = Component; this.Residual = Residual; this.Test = Test;
+    }
+
+    /// <summary>The control point.</summary>
+    public string PointId { get; internal init; }
+
+    /// <summary>The coordinate tested: <see cref="Parameter.E"/>, <see cref="Parameter.N"/> or
+    /// <see cref="Parameter.H"/>.</summary>
+    public Parameter Component { get; internal init; }
+
+    /// <summary>v = adjusted − given (m).</summary>
+    internal double Residual { get; init; }
+
+    /// <summary>Its redundancy and tests.</summary>
+    public ObservationTest Test { get; internal init; }
+
+    /// <summary>The residual v = adjusted − given of the control coordinate.</summary>
+    public Length ResidualLength => Length.FromMetres(Residual);
+}
+
+/// <summary>The precision of one adjusted point. Made by the analysis only.</summary>
+public sealed record PointPrecision
+{
+    /// <summary>Made by the analysis: height standard deviation and interval in m.</summary>
+    internal PointPrecision(string Id, ErrorEllipse? Ellipse, ErrorEllipse? Confidence, double? SdHeight,
+        double? HeightConfidence)
+    {
+        this.Id = Id; this.Ellipse = Ellipse; this.Confidence = Confidence; this.SdHeight = SdHeight;
+        this.HeightConfidence = HeightConfidence;
+    }
+
+    /// <summary>The point id.</summary>
+    public string Id { get; internal init; }
+
+    /// <summary>The standard error ellipse; null when the point has no adjusted plane coordinates.</summary>
+    public ErrorEllipse? Ellipse { get; internal init; }
+
+    /// <summary>The confidence ellipse (the standard one scaled by <see cref="NetworkAnalysis.EllipseScale"/>);
+    /// null likewise.</summary>
+    public ErrorEllipse? Confidence { get; internal init; }
+
+    /// <summary>Standard deviation of the height (m); null when the height is not adjusted.</summary>
+    internal double? SdHeight { get; init; }
+
+    /// <summary>Half-width of the height confidence interval (m); null likewise.</summary>
+    internal double? HeightConfidence { get; init; }
+
+    /// <summary>Standard deviation of the height; null when the height is not adjusted.</summary>
+    public Length? SdHeightLength => Lengths.Of(SdHeight);
+
+    /// <summary>Half-width of the height's confidence interval; null when the height is not adjusted.</summary>
+    public Length? HeightConfidenceLength => Lengths.Of(HeightConfidence);
+}
+
+/// <summary>The relative precision of two points: the ellipse of the coordinate difference (to − from). Made by the
+/// analysis only.</summary>
+public sealed record RelativePrecision
+{
+    /// <summary>Made by the analysis: distance and its standard deviation in m, azimuth standard deviation in
+    /// rad.</summary>
+    internal RelativePrecision(string From, string To, ErrorEllipse Ellipse, ErrorEllipse Confidence,
+        double Distance, double SdDistance, double SdAzimuth, bool Observed)
+    {
+        this.From = From; this.To = To; this.Ellipse = Ellipse; this.Confidence = Confidence;
+        this.Distance = Distance; this.SdDistance = SdDistance; this.SdAzimuth = SdAzimuth; this.Observed = Observed;
+    }
+
+    /// <summary>First point.</summary>
+    public string From { get; internal init; }
+
+    /// <summary>Second point.</summary>
+    public string To { get; internal init; }
+
+    /// <summary>Standard relative ellipse.</summary>
+    public ErrorEllipse Ellipse { get; internal init; }
+
+    /// <summary>Confidence relative ellipse.</summary>
+    public ErrorEllipse Confidence { get; internal init; }
+
+    /// <summary>Adjusted horizontal distance (m).</summary>
+    internal double Distance { get; init; }
+
+    /// <summary>Standard deviation of that distance (m).</summary>
+    internal double SdDistance { get; init; }
+
+    /// <summary>Standard deviation of the azimuth from → to (rad).</summary>
+    internal double SdAzimuth { get; init; }
+
+    /// <summary>True when the pair is joined by an observation; false when listed by the user.</summary>
+    public bool Observed { get; internal init; }
+
+    /// <summary>The adjusted horizontal distance.</summary>
+    public Length DistanceLength => Length.FromMetres(Distance);
+
+    /// <summary>The standard deviation of <see cref="DistanceLength"/>.</summary>
+    public Length SdDistanceLength => Length.FromMetres(SdDistance);
+
+    /// <summary>The standard deviation of the azimuth from → to.</summary>
+    public Angle SdAzimuthAngle => Angle.FromRadians(SdAzimuth);
+
     /// <summary>Relative distance precision as the denominator of 1 : k (distance / its standard deviation); infinite
     /// when exact.</summary>
     public double Ratio => SdDistance > 0 ? Distance / SdDistance : double.PositiveInfinity;
 }
 
-/// <summary>The relative precision of the heights of two points: the standard deviation of H(to) − H(from).</summary>
-/// <param name="From">First point.</param>
-/// <param name="To">Second point.</param>
-/// <param name="Difference">Adjusted height difference H(to) − H(from) (m).</param>
-/// <param name="SdDifference">Its standard deviation (m).</param>
-/// <param name="Confidence">Half-width of its confidence interval (m).</param>
-/// <param name="Observed">True when the pair is joined by a height difference; false when listed by the user.</param>
-public sealed record RelativeHeightPrecision(string From, string To, double Difference, double SdDifference,
-    double Confidence, bool Observed);
+/// <summary>The relative precision of the heights of two points: the standard deviation of H(to) − H(from). Made by
+/// the analysis only.</summary>
+public sealed record RelativeHeightPrecision
+{
+    /// <summary>Made by the analysis: lengths in m.</summary>
+    internal RelativeHeightPrecision(string From, string To, double Difference, double SdDifference,
+        double Confidence, bool Observed)
+    {
+        this.From = From; this.To = To; this.Difference = Difference; this.SdDifference = SdDifference;
+        this.Confidence = Confidence; this.Observed = Observed;
+    }
+
+    /// <summary>First point.</summary>
+    public string From { get; internal init; }
+
+    /// <summary>Second point.</summary>
+    public string To { get; internal init; }
+
+    /// <summary>Adjusted height difference H(to) − H(from) (m).</summary>
+    internal double Difference { get; init; }
+
+    /// <summary>Its standard deviation (m).</summary>
+    internal double SdDifference { get; init; }
+
+    /// <summary>Half-width of its confidence interval (m).</summary>
+    internal double Confidence { get; init; }
+
+    /// <summary>True when the pair is joined by a height difference; false when listed by the user.</summary>
+    public bool Observed { get; internal init; }
+
+    /// <summary>The adjusted height difference H(to) − H(from).</summary>
+    public Length DifferenceLength => Length.FromMetres(Difference);
+
+    /// <summary>The standard deviation of <see cref="DifferenceLength"/>.</summary>
+    public Length SdDifferenceLength => Length.FromMetres(SdDifference);
+
+    /// <summary>The half-width of the confidence interval of <see cref="DifferenceLength"/>.</summary>
+    public Length ConfidenceLength => Length.FromMetres(Confidence);
+}
 
 /// <summary>
 /// The statistics of one adjustment (see docs/methods.md): observation tests and reliability, absolute and relative
@@ -115,6 +265,11 @@ public sealed record RelativeHeightPrecision(string From, string To, double Diff
 /// </summary>
 public sealed record NetworkAnalysis
 {
+    /// <summary>Made by the analysis (<see cref="ResultAnalysis.Analyse"/>).</summary>
+    internal NetworkAnalysis()
+    {
+    }
+
     /// <summary>The options used.</summary>
     public required AnalysisOptions Options { get; init; }
 

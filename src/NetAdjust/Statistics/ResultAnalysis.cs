@@ -66,6 +66,21 @@ public static class ResultAnalysis
         var weighted = new bool[m];
         foreach (var blk in weights.Blocks)
         {
+            if (blk.Size == 1)
+            {
+                // one observation: the arithmetic of the general case below without its small matrices
+                double p1 = blk[0, 0];
+                if (p1 == 0) continue;
+                int row1 = blk.Rows[0];
+                double q1 = (1 / p1) - AQA(rows[row1], rows[row1]);
+                weighted[row1] = true;
+                double r1 = 0, s1 = 0, y1 = 0;
+                r1 += q1 * p1;
+                y1 += p1 * v[row1];
+                s1 += p1 * q1 * p1;
+                red[row1] = r1; pqp[row1] = s1; pv[row1] = y1;
+                continue;
+            }
             var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a,
                 b] != 0)).ToArray();
             int k = kept.Length;
@@ -105,7 +120,7 @@ public static class ResultAnalysis
         };
         var pointCols = PointColumns(result);
 
-        ObservationTest TestRow(int row, int index, bool excluded, double sd)
+        ObservationTest TestRow(int row, int index, bool excluded, double sd, bool isAngle = false)
         {
             if (excluded || !weighted[row])
             {
@@ -115,12 +130,12 @@ public static class ResultAnalysis
                 double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
                 double? wx = denom > 0 ? v[row] / denom : null;
                 return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null,
-                    ObservationFlag.Excluded);
+                    ObservationFlag.Excluded) { IsAngle = isAngle };
             }
             double ri = Math.Clamp(red[row], 0, 1);
             if (ri < options.UncontrolledRedundancy || !(pqp[row] > 0))
                 return new ObservationTest(index, ri, null, null, null, null, null, null, null, null,
-                    ObservationFlag.Uncontrolled);
+                    ObservationFlag.Uncontrolled) { IsAngle = isAngle };
             double w = pv[row] / (Math.Sqrt(s0sq) * Math.Sqrt(pqp[row]));
             double? tau = sigmaHat is double s ? pv[row] / (s * Math.Sqrt(pqp[row])) : null;
             double mdb = delta0 * Math.Sqrt(s0sq) / Math.Sqrt(pqp[row]);
@@ -133,14 +148,15 @@ public static class ResultAnalysis
                 : ObservationFlag.None;
             double? ext = null; string? extPoint = null;
             if (external) (ext, extPoint) = ExternalShift(result, rows, weights, row, mdb, pointCols);
-            return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag);
+            return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag)
+                { IsAngle = isAngle };
         }
 
         var obsTests = new ObservationTest[nObs];
         for (int i = 0; i < nObs; i++)
         {
             var o = result.Observations[i].Input;
-            obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation);
+            obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation, ObservationKinds.ValueIsAngle(o.Kind));
         }
         var controlTests = new ControlTest[control.Count];
         for (int k = 0; k < control.Count; k++)
@@ -277,19 +293,28 @@ public static class ResultAnalysis
 
         // Pairs of points whose unknowns meet in one weighted design row or weight block: their Qxx block lies on the
         // pattern of N. Other pairs are computed by solves.
-        var onPattern = new HashSet<(string, string)>();
+        // (points as indices: the owner of each coordinate unknown, -1 for other unknowns)
+        var pointIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        var ownerOf = result.Unknowns.Unknowns.Select(u => u.Parameter is Parameter.E or Parameter.N or Parameter.H
+            ? (pointIndex.TryGetValue(u.Owner, out int ix) ? ix : pointIndex[u.Owner] = pointIndex.Count) : -1)
+            .ToArray();
+        var onPattern = new HashSet<(int, int)>();
+        var owners = new List<int>();
         foreach (var blk in result.Weights.Blocks)
         {
-            var owners = new SortedSet<string>(StringComparer.Ordinal);
+            owners.Clear();
             for (int a = 0; a < blk.Size; a++)
             {
-                if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
+                bool any = false;
+                for (int b = 0; b < blk.Size && !any; b++) any = blk[a, b] != 0;
+                if (!any) continue;
                 foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
-                    if (result.Unknowns.Unknowns[c].Parameter is Parameter.E or Parameter.N or Parameter.H)
-                        owners.Add(result.Unknowns.Unknowns[c].Owner);
+                    if (ownerOf[c] >= 0 && !owners.Contains(ownerOf[c])) owners.Add(ownerOf[c]);
             }
             foreach (var x in owners) foreach (var y in owners) onPattern.Add((x, y));
         }
+        bool OnPattern(string a, string b) => pointIndex.TryGetValue(a, out int x) && pointIndex.TryGetValue(b,
+            out int y) && onPattern.Contains((x, y));
 
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
         var list = new List<RelativePrecision>();
@@ -303,7 +328,7 @@ public static class ResultAnalysis
             if (ia.All(c => c < 0) && ib.All(c => c < 0)) continue; // both held: nothing to report
             double Own(int i, int j) => i >= 0 && j >= 0 ? q(i, j) : 0.0;
             var cross = new double[2, 2]; // Qxx(from-component, to-component)
-            if (onPattern.Contains((from, to)))
+            if (OnPattern(from, to))
             {
                 for (int s = 0; s < 2; s++) for (int t = 0; t < 2; t++) cross[s, t] = Own(ia[s], ib[t]);
             }

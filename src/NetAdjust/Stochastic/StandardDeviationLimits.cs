@@ -6,7 +6,7 @@ namespace NetAdjust.Stochastic;
 /// The sane range of an a-priori standard deviation, given or derived from specifications (docs/input-format.md,
 /// "Limits"): outside it the weights 1/σ² lose meaning (or overflow) long before any survey gets there.
 /// </summary>
-public static class StandardDeviationLimits
+internal static class StandardDeviationLimits
 {
     /// <summary>Smallest standard deviation of a length: 1 µm (no survey measures better).</summary>
     public const double MinLength = 1e-6;

@@ -64,6 +64,8 @@ public class BlunderDiagnosisTests
         Assert.Equal(BlunderKind.TargetHeight, top.Kind);
         Assert.Equal("+0.5 m", top.Candidate);
         Assert.InRange(top.Size!.Value, 0.5 - (4 * top.SizeSd!.Value), 0.5 + (4 * top.SizeSd.Value));
+        // the typed view: a wrong height is a length even though the biased zenith angles are angles
+        Assert.Equal(top.Size.Value, top.EstimatedSize!.Value.AsLength!.Value.Metres);
         Assert.Equal("target_height", top.Edit!.Item);
         double booked = double.Parse(top.Edit.Booked!, System.Globalization.CultureInfo.InvariantCulture);
         Assert.Equal((booked - 0.5).ToString("F3", System.Globalization.CultureInfo.InvariantCulture),
@@ -169,6 +171,7 @@ public class DemoDiagnosisTests
         Assert.Equal(("H3", "H4"), (o.From, o.To));
         var bias = first.Ranked.Single(h => h.Kind == BlunderKind.UnexplainedBias);
         Assert.InRange(bias.Size!.Value, 0.040 - (3 * bias.SizeSd!.Value), 0.040 + (3 * bias.SizeSd.Value));
+        Assert.Equal(bias.SizeSd.Value, bias.EstimatedSizeSd!.Value.AsLength!.Value.Metres);
         Assert.True(bias.FitsAfter);
     }
 }

@@ -1,0 +1,75 @@
+using System.Diagnostics;
+using System.Globalization;
+using NetAdjust.Adjustment;
+using NetAdjust.IO.Project;
+using NetAdjust.IO.Results;
+using NetAdjust.Statistics;
+
+namespace NetAdjust.Benchmarks;
+
+/// <summary>
+/// The phases of <c>netadjust adjust FILE --json OUT --report OUT.txt</c> (default statistics), timed in process:
+/// <c>-- command FILE [RUNS]</c> runs the same library calls as the command, in its order (read, misclosures,
+/// adjustment, statistics analysis, report model, JSON, text report; the outputs go to a null stream), and prints the
+/// wall and CPU time (user + system, of the whole process) of each phase, for the first run (cold: JIT included) and
+/// for each further run (warm).
+/// </summary>
+internal static class CommandPhases
+{
+    public static void Run(string[] args)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        string path = args.Length > 1 ? args[1] : throw new ArgumentException("usage: command FILE [RUNS]");
+        int runs = args.Length > 2 ? int.Parse(args[2], inv) : 1;
+        for (int run = 0; run < runs; run++)
+        {
+            var clock = new PhaseClock();
+            var project = ProjectReader.Read(path);
+            clock.Lap("read");
+            var context = new ReportContext(path, new DateOnly(2026, 12, 1), project.Units)
+            {
+                Misclosures = NetAdjust.Misclosures.MisclosureCheck.Run(project.Network, project.Checks),
+            };
+            clock.Lap("misclosures");
+            var result = Adjuster.Adjust(project.Network, project.Options);
+            clock.Lap("adjustment");
+            _ = result.Analysis;
+            clock.Lap("statistics analysis");
+            var model = ResultReport.Build(result, context);
+            clock.Lap("report model");
+            JsonResultWriter.Write(Stream.Null, model);
+            clock.Lap("JSON");
+            using (var w = new StreamWriter(Stream.Null)) TextReportWriter.Write(w, model);
+            clock.Lap("text report");
+            Console.WriteLine(string.Create(inv, $"run {run + 1} ({(run == 0 ? "cold" : "warm")}): " +
+                $"{project.Network.Points.Count} points, {project.Network.Observations.Count} observations; " +
+                $"load average {ReadingProbe.LoadAverage()}; peak working set " +
+                $"{Process.GetCurrentProcess().PeakWorkingSet64 / 1048576} MiB"));
+            clock.Print();
+        }
+    }
+
+    private sealed class PhaseClock
+    {
+        private readonly Stopwatch _wall = Stopwatch.StartNew();
+        private TimeSpan _cpu = Process.GetCurrentProcess().TotalProcessorTime;
+        private readonly List<(string Phase, double Wall, double Cpu)> _laps = [];
+
+        public void Lap(string phase)
+        {
+            var cpu = Process.GetCurrentProcess().TotalProcessorTime;
+            _laps.Add((phase, _wall.Elapsed.TotalSeconds, (cpu - _cpu).TotalSeconds));
+            _cpu = cpu;
+            _wall.Restart();
+        }
+
+        public void Print()
+        {
+            foreach (var (phase, wall, cpu) in _laps)
+                Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                    $"  {phase,-22} wall {wall,7:F3} s   CPU {cpu,7:F3} s"));
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"  {"total",-22} wall {_laps.Sum(l => l.Wall),7:F3} s   CPU {_laps.Sum(l => l.Cpu),7:F3} s"));
+        }
+    }
+}

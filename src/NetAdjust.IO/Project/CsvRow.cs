@@ -1,0 +1,118 @@
+using System.Globalization;
+using NetAdjust.Network;
+using NetAdjust.Observations;
+
+namespace NetAdjust.IO.Project;
+
+/// <summary>
+/// One CSV line split into trimmed fields within the documented limits (<see cref="InputLimits"/>), as ranges of the
+/// file's text: a field becomes a string only when asked, and point ids are shared (one string per id of the file).
+/// Reused from line to line by <see cref="CsvObservationReader"/>.
+/// </summary>
+internal sealed class CsvRow(string text)
+{
+    private const NumberStyles Number =
+        NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint | NumberStyles.AllowExponent;
+    private readonly Dictionary<string, string> _ids = new(StringComparer.Ordinal);
+    private int[] _start = new int[16], _length = new int[16];
+    private string?[] _strings = new string?[16];
+
+    /// <summary>The number of fields of the line.</summary>
+    public int Count { get; private set; }
+
+    /// <summary>Splits the line <c>text[lineStart..lineEnd]</c> at its commas; throws when the line or a field is over
+    /// its limit.</summary>
+    public void Split(int lineStart, int lineEnd, string file, int lineNo)
+    {
+        if (lineEnd - lineStart > InputLimits.MaxCsvLineLength)
+            throw new ProjectFileException(file, lineNo, "",
+                $"the line has {lineEnd - lineStart} characters, more than the limit of " +
+                $"{InputLimits.MaxCsvLineLength} (docs/input-format.md, \"Limits\")");
+        Count = 0;
+        for (int p = lineStart; ;)
+        {
+            int comma = text.AsSpan(p, lineEnd - p).IndexOf(',');
+            int end = comma < 0 ? lineEnd : p + comma;
+            int a = p, b = end;
+            while (a < b && char.IsWhiteSpace(text[a])) a++;
+            while (b > a && char.IsWhiteSpace(text[b - 1])) b--;
+            if (Count == _start.Length)
+            {
+                Array.Resize(ref _start, Count * 2);
+                Array.Resize(ref _length, Count * 2);
+                Array.Resize(ref _strings, Count * 2);
+            }
+            _start[Count] = a;
+            _length[Count] = b - a;
+            _strings[Count] = null;
+            Count++;
+            if (comma < 0) break;
+            p = end + 1;
+        }
+        for (int k = 0; k < Count; k++)
+            if (_length[k] > InputLimits.MaxValueLength)
+                throw new ProjectFileException(file, lineNo, "",
+                    $"a field of {_length[k]} characters is longer than the limit of {InputLimits.MaxValueLength} " +
+                    $"(it starts '{InputLimits.Excerpt(Field(k))}')");
+    }
+
+    private ReadOnlySpan<char> Span(int k) => text.AsSpan(_start[k], _length[k]);
+
+    /// <summary>True when the field is empty or the column is absent (<paramref name="k"/> &lt; 0).</summary>
+    public bool IsEmpty(int k) => k < 0 || _length[k] == 0;
+
+    /// <summary>The field as a string ("" when empty or absent).</summary>
+    public string Field(int k) => IsEmpty(k) ? "" : _strings[k] ??= Span(k).ToString();
+
+    /// <summary>The field as a point id: the same string for the same id throughout the file.</summary>
+    public string Id(int k)
+    {
+        if (IsEmpty(k)) return "";
+        var lookup = _ids.GetAlternateLookup<ReadOnlySpan<char>>();
+        if (!lookup.TryGetValue(Span(k), out var id))
+        {
+            id = Span(k).ToString();
+            _ids[id] = id;
+        }
+        return id;
+    }
+
+    /// <summary>True when the field holds the same characters as <paramref name="s"/>.</summary>
+    public bool FieldEquals(int k, string? s) => s is not null && !IsEmpty(k) && Span(k).SequenceEqual(s);
+
+    /// <summary>The field as a plain finite number (as <c>AnglePattern.TryNumber</c> reads one), without a string.
+    /// </summary>
+    public bool TryNumber(int k, out double value)
+    {
+        value = 0;
+        return !IsEmpty(k) && double.TryParse(Span(k), Number, CultureInfo.InvariantCulture, out value) &&
+            double.IsFinite(value);
+    }
+
+    /// <summary>Every field as a string (the header).</summary>
+    public string[] All() => [.. Enumerable.Range(0, Count).Select(Field)];
+}
+
+/// <summary>The standard deviations of the rows: the same text as the row before (of the same angular or linear
+/// kind) is not parsed again.</summary>
+internal sealed class SdCache
+{
+    private string? _angularText, _linearText;
+    private double _angular, _linear;
+
+    public double Parse(CsvRow row, int k, ObservationKind kind, ProjectUnits units, out string? error)
+    {
+        bool angular = kind.IsAngular();
+        error = null;
+        if (angular ? row.FieldEquals(k, _angularText) : row.FieldEquals(k, _linearText))
+            return angular ? _angular : _linear;
+        string text = row.Field(k);
+        double v = ProjectReader.ParseSd(text, kind, units, out error);
+        if (error is null)
+        {
+            if (angular) (_angularText, _angular) = (text, v);
+            else (_linearText, _linear) = (text, v);
+        }
+        return v;
+    }
+}
