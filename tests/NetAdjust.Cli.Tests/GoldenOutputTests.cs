@@ -47,7 +47,7 @@ public sealed class GoldenOutputTests : IDisposable
         foreach (var demo in new[]
                  {
                      "brackenmoor", "brackenmoor-auto", "harrowfield-blunder", "harrowgate-control", "corvan-fell-3d",
-                     "tarnholm-grid",
+                     "tarnholm-grid", "skelmoor-gnss",
                  })
             foreach (var variant in Variants.Keys)
                 data.Add(demo, variant);

@@ -33,9 +33,6 @@ public sealed partial class PublicSurfaceTests
             + "(Distance, Reading, Zenith, ...) and every observation as ObservedValue",
         ["NetAdjust.Network.ZenithObservation.RefractionSd"] =
             "σ of the dimensionless refraction coefficient k; its documentation names radians for its effect on z",
-        ["NetAdjust.Stochastic.ErrorContribution.Value"] = "NOT YET TYPED: a part of an error budget is metres or "
-            + "radians by the observation it belongs to, which the budget does not know (a typed view needs the "
-            + "kind passed to the budget builders)",
     };
 
     [Fact]

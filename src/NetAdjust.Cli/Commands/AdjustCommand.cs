@@ -75,6 +75,7 @@ internal static class AdjustCommand
             var context0 = new ReportContext(path, runDate, project.Units)
             {
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction,
+                GnssFrame = project.GnssFrame,
                 Warnings = project.Warnings,
                 Particulars = project.Particulars, Rounds = project.Rounds,
                 Misclosures = NetAdjust.Misclosures.MisclosureCheck.Run(project.Network, project.Checks),

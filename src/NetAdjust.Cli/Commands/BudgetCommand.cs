@@ -135,7 +135,7 @@ internal static class BudgetCommand
                     throw new InvalidInputException("--length is needed to count centering errors");
                 budget = lt is null
                     ? new ErrorBudget([new(ContributionNames.PointingReading,
-                        DirectionBudgetBuilder.PointingReading(sd, procedure))])
+                        Quantity.Of(DirectionBudgetBuilder.PointingReading(Angle.FromRadians(sd), procedure)))])
                     : DirectionBudgetBuilder.Build(ts, target, procedure,
                         RequiredLength(lt, "--length", unit, positive: true));
                 title = $"horizontal direction, {iso1}, {proc}";
@@ -155,10 +155,10 @@ internal static class BudgetCommand
                     if (!a.Success) throw new InvalidInputException($"--angle: {a.Error}");
                     budget = AngleBudgetBuilder.Build(ts, target, target, procedure, RequiredLength(bt, "--backsight",
                         unit, positive: true),
-                        RequiredLength(ft, "--foresight", unit, positive: true), a.Value.Radians);
+                        RequiredLength(ft, "--foresight", unit, positive: true), a.Value);
                 }
-                else budget = new ErrorBudget([new(ContributionNames.PointingReading, Math.Sqrt(2.0) *
-                    DirectionBudgetBuilder.PointingReading(sd, procedure))]);
+                else budget = new ErrorBudget([new(ContributionNames.PointingReading, Quantity.Of(Math.Sqrt(2.0) *
+                    DirectionBudgetBuilder.PointingReading(Angle.FromRadians(sd), procedure)))]);
                 title = $"horizontal angle, {iso1}, {proc}";
             }
             return Print(console, p.GetValue(common.Json), angle ? "angle" : "direction", title, budget, au.Symbol(),
@@ -248,22 +248,27 @@ internal static class BudgetCommand
                 w.WriteString("kind", kind);
                 w.WriteString("unit", unit);
                 w.WriteStartObject("sd_components");
-                foreach (var c in budget.Contributions) w.WriteNumber(c.Name, c.Value * factor);
+                foreach (var c in budget.Contributions) w.WriteNumber(c.Name, Si(c.Sd) * factor);
                 w.WriteEndObject();
-                w.WriteNumber("sd", budget.Total * factor);
+                w.WriteNumber("sd", Si(budget.TotalSd) * factor);
                 w.WriteEndObject();
             }
             console.Out.Write(Encoding.UTF8.GetString(ms.ToArray()) + "\n");
             return ExitCodes.Success;
         }
         console.Out.WriteLine($"Error budget: {title}");
+        double total = Si(budget.TotalSd);
         foreach (var c in budget.Contributions)
             console.Out.WriteLine(
-                $"  {c.Name,-24} {Fmt(c.Value * factor, decimals),12} {unit}  " +
-                $"{Fmt(100 * Math.Pow(c.Value / budget.Total, 2), 1),5} % of variance");
-        console.Out.WriteLine($"  {"total",-24} {Fmt(budget.Total * factor, decimals),12} {unit}  (root-sum-square)");
+                $"  {c.Name,-24} {Fmt(Si(c.Sd) * factor, decimals),12} {unit}  " +
+                $"{Fmt(100 * Math.Pow(Si(c.Sd) / total, 2), 1),5} % of variance");
+        console.Out.WriteLine($"  {"total",-24} {Fmt(total * factor, decimals),12} {unit}  (root-sum-square)");
         return ExitCodes.Success;
     }
+
+    /// <summary>A budget's value in SI units (radians for an angle, metres for a length), scaled by the caller.
+    /// </summary>
+    private static double Si(Quantity q) => q.AsAngle?.Radians ?? q.AsLength!.Value.Metres;
 
     private static string Fmt(double v, int decimals) => v.ToString("F" + decimals, Inv);
 

@@ -14,7 +14,7 @@ internal static partial class CsvObservationReader
 {
     private static readonly string[] Columns =
         ["kind", "at", "from", "to", "value", "sd", "length", "set", "level", "setups", "runs", "exclude", "sd_factor",
-            .. TotalStationColumns];
+            .. TotalStationColumns, .. BaselineColumns];
 
     /// <summary>The columns a plain row fills: the others (marks, level and instrument fields) are empty in it.
     /// </summary>
@@ -70,7 +70,7 @@ internal static partial class CsvObservationReader
                         throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
                 }
                 foreach (var need in new[] { "kind", "value" })
-                    if (!col.ContainsKey(need))
+                    if (!col.ContainsKey(need) && !(need == "value" && col.ContainsKey("dx")))
                         throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
                 int C(string name) => col.GetValueOrDefault(name, -1);
                 (cKind, cAt, cFrom, cTo, cValue, cSd, cSet) =
@@ -98,9 +98,15 @@ internal static partial class CsvObservationReader
                 ObservationKind.Direction => $"direction {at}→{to}",
                 _ => $"{kind.Name().Replace('_', ' ')} {from}→{to}",
             };
+            if (kind == ObservationKind.Baseline)
+            {
+                result.AddRange(BaselineRow(Need("from", from), Need("to", to), get, file, lineNo, Item()));
+                continue;
+            }
             // the columns beyond kind, points, value, sd, length and set: all empty in a plain row
             bool plain = true;
             foreach (int k in optional) plain &= row.IsEmpty(k);
+            if (!plain) CheckNoBaselineFields(get, file, lineNo, Item());
             double sd;
             ObservationWeighting? budget = null;
             string levelText = plain ? "" : Get("level");

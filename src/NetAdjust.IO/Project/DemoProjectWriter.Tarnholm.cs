@@ -14,17 +14,23 @@ public static partial class DemoProjectWriter
     private const double Arcsecond = 1.0 / Angle.ArcsecondsPerRadian;
 
     /// <summary>
-    /// Draws a demo scenario with what it needs from this assembly: the Tarnholm scenario through the ProjNET
-    /// projection of its grid (WGS 84 / UTM zone 33N), the same projection its project file names and the reduction
-    /// uses; the others as <see cref="DemoScenarios.Draw"/> does.
+    /// Draws a demo scenario with what it needs from this assembly: the Tarnholm and Skelmoor scenarios through the
+    /// ProjNET projection of their grid (WGS 84 / UTM zone 33N; ETRS89 / UTM zone 32N), the same projection their
+    /// project files name and the reduction uses; the others as <see cref="DemoScenarios.Draw"/> does.
     /// </summary>
     /// <param name="scenario">The scenario.</param>
     /// <param name="seed">The random seed.</param>
     public static DemoSurvey Draw(DemoScenario scenario, int seed)
     {
-        if (scenario != DemoScenario.Tarnholm) return DemoScenarios.Draw(scenario, seed);
-        var (name, wkt) = CoordinateSystemCatalogue.Find(TarnholmCode)!.Value;
-        return DemoScenarios.Draw(scenario, seed, ProjNetProjection.FromWkt(wkt, $"EPSG:{TarnholmCode} ({name})"));
+        int code = scenario switch
+        {
+            DemoScenario.Tarnholm => TarnholmCode,
+            DemoScenario.Skelmoor => SkelmoorCode,
+            _ => 0,
+        };
+        if (code == 0) return DemoScenarios.Draw(scenario, seed);
+        var (name, wkt) = CoordinateSystemCatalogue.Find(code)!.Value;
+        return DemoScenarios.Draw(scenario, seed, ProjNetProjection.FromWkt(wkt, $"EPSG:{code} ({name})"));
     }
 
     private static string Tarnholm(DemoSurvey s, string how)

@@ -36,6 +36,7 @@ public static partial class DemoProjectWriter
             DemoScenario.Harrowfield => [(baseName + ".yaml", Harrowfield(survey, how))],
             DemoScenario.CorvanFell => [(baseName + ".yaml", CorvanFell(survey, how))],
             DemoScenario.Tarnholm => [(baseName + ".yaml", Tarnholm(survey, how))],
+            DemoScenario.Skelmoor => [(baseName + ".yaml", Skelmoor(survey, how))],
             _ => [(baseName + ".yaml", Harrowgate(survey, how))],
         };
     }

@@ -18,7 +18,7 @@ public static partial class ProjectReader
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
         "targets", "levels", "statistics", "crs", "datum", "grid",
-        "survey", "refraction_groups", "reduction", "checks", "standards", "diagnosis"];
+        "survey", "refraction_groups", "reduction", "checks", "standards", "gnss", "diagnosis"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -151,6 +151,7 @@ public static partial class ProjectReader
             foreach (var node in ctx.Sequence(lev, "levelling"))
                 observations.Add(Guarded(ctx, node, "a levelling section",
                     () => ReadLevelling(ctx, node, lengths, units, defaults, specs)));
+        var gnss = ReadGnss(ctx, root, observations);
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
         var listedTwice = new List<string>();
@@ -179,6 +180,7 @@ public static partial class ProjectReader
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
+        observations = FinishBaselines(ctx, gnss, grid, observations);
         var (planeHeight, planeBasis) = ReadPlaneHeight(ctx, root, units, points, grid);
         ApplyPlaneHeight(observations, planeHeight);
         var network = new SurveyNetwork(name, points, observations);
@@ -192,7 +194,8 @@ public static partial class ProjectReader
             Warnings = [.. ProjectWarnings.Find(network, listedTwice), .. RoundsWarnings(specs.Rounds, units)],
             Rounds = specs.Rounds,
             Particulars = ReadParticulars(ctx, root), Checks = checks, Standards = standards,
-            Instruments = [.. specs.Instruments.Values], Diagnosis = ReadDiagnosis(ctx, root, lengths),
+            Instruments = [.. specs.Instruments.Values],
+            GnssFrame = gnss.FrameLabel, Diagnosis = ReadDiagnosis(ctx, root, lengths),
         };
     }
 

@@ -8,11 +8,11 @@ using NetAdjust.Standards;
 namespace NetAdjust.IO.Results;
 
 /// <summary>
-/// The report sections of the checks before the adjustment (level closures, traverses) and of the accuracy
-/// standards (docs/output-format.md, "Misclosures" and "Accuracy standards"), for the text and HTML reports and for
-/// <c>netadjust check</c>. Lengths in the project's units, angles in its angular sd unit.
+/// The report sections of the checks before the adjustment (level closures, traverses, GNSS baseline loops) and of
+/// the accuracy standards (docs/output-format.md, "Misclosures" and "Accuracy standards"), for the text and HTML
+/// reports and for <c>netadjust check</c>. Lengths in the project's units, angles in its angular sd unit.
 /// </summary>
-internal static class CheckSections
+internal static partial class CheckSections
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
@@ -131,6 +131,7 @@ internal static class CheckSections
                 rows, Omitted(shown.Count, m.Traverses.Count, "traverses"))
                 { HtmlSummary = Summary(m.Traverses.Count(t => !t.Passed), m.Traverses.Count, "traverse") });
         }
+        if (m.BaselineLoops.Count > 0) list.Add(BaselineLoopSection(m, network, u));
         return list;
     }
 

@@ -214,6 +214,7 @@ public static class HtmlReportWriter
         }
 
         RefractionOutput.AppendHtml(sb, r);
+        BaselineSection.AppendHtml(sb, r, c);
         foreach (var section in report.Sections) AppendSection(sb, section);
         DiagnosisOutput.AppendHtml(sb, report);
 

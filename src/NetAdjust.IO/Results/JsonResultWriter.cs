@@ -104,6 +104,7 @@ public static class JsonResultWriter
                 new ResultJson.Orientation(o.SetId, o.Station, Angle.FromRadians(o.Orientation).Degrees,
                     o.Sd * Angle.ArcsecondsPerRadian)),
             Refraction = RefractionOutput.Json(r),
+            Gnss = BaselineSection.Json(r, c),
             Testing = Testing(r.Analysis),
             Relative = r.Analysis.Relative.Select(x => new ResultJson.Relative(x.From, x.To, x.Ellipse.A, x.Ellipse.B,
                 x.Ellipse.AzimuthDegrees, x.Confidence.A, x.Confidence.B, x.Distance, x.SdDistance, Finite(x.Ratio),
@@ -203,7 +204,7 @@ public static class JsonResultWriter
         vc.Converged, vc.Groups.Select(g => new ResultJson.ComponentGroup(ObservationLabels.Key(g.Kind), g.Count,
             g.Redundancy, Finite(g.VarianceFactor), Finite(g.SdScale),
             Finite(g.ScaledSd * ObservationLabels.JsonSmallFactor(g.Kind)),
-            Finite(g.ConstantPart), Finite(g.PpmPart), g.Note)));
+            Finite(g.ConstantPart), Finite(g.PpmPart), g.Note) { Group = g.Group }));
 
     /// <summary>A finite number, or null for a missing or non-finite value (written as JSON null).</summary>
     internal static double? Finite(double? v) => v is double x && double.IsFinite(x) ? x : null;

@@ -36,6 +36,10 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// </summary>
     public SurveyParticulars? Particulars { get; init; }
 
+    /// <summary>The frame of the GNSS baselines as the project names it (<see cref="SurveyProject.GnssFrame"/>), or
+    /// null.</summary>
+    public string? GnssFrame { get; init; }
+
     /// <summary>The rounds of the project, reduced before the adjustment (<see cref="SurveyProject.Rounds"/>);
     /// empty for none.</summary>
     public IReadOnlyList<SetupRounds> Rounds { get; init; } = [];

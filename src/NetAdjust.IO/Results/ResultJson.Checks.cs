@@ -30,7 +30,28 @@ internal static partial class ResultJson
                 t.Observations.Select(i => i + 1), Num(t.AngularMisclosure * Angle.ArcsecondsPerRadian),
                 Num(t.AngularSd * Angle.ArcsecondsPerRadian), Num(t.AngularAllowance * Angle.ArcsecondsPerRadian),
                 t.LinearMisclosure, t.Length, Num(t.PrecisionRatio), Num(t.LinearStatistic), t.LinearCritical,
-                Num(t.Ratio), t.Passed)));
+                Num(t.Ratio), t.Passed)))
+        {
+            BaselineLoops = m.BaselineLoops.Count == 0 ? null : m.BaselineLoops.Select(BaselineLoop.Of),
+        };
+
+        /// <summary>Key <c>baseline_loops</c>: GNSS baseline loops; left out when there are none.</summary>
+        [System.Text.Json.Serialization.JsonIgnore(
+            Condition = System.Text.Json.Serialization.JsonIgnoreCondition.WhenWritingNull)]
+        public IEnumerable<BaselineLoop>? BaselineLoops { get; init; }
+    }
+
+    /// <summary>One loop of GNSS baselines (lengths m); observations are 1-based numbers of the observation list
+    /// (ΔX, ΔY, ΔZ of each baseline in running order).</summary>
+    internal sealed record BaselineLoop(IEnumerable<string> Points, IEnumerable<int> Observations,
+        IEnumerable<string?> Groups, bool Trivial, double Dx, double Dy, double Dz, double Misclosure, double Length,
+        double? Ppm, double? East, double? North, double? Up, double? SdEast, double? SdNorth, double? SdUp,
+        double? Statistic, double Critical, double? Ratio, double? ComponentRatio, bool Passed)
+    {
+        public static BaselineLoop Of(NetAdjust.Misclosures.BaselineLoop l) => new(l.Points,
+            l.Observations.Select(i => i + 1), l.Groups, l.Trivial, l.Dx, l.Dy, l.Dz, l.Misclosure, l.Length,
+            Num(l.Ppm), Num(l.East), Num(l.North), Num(l.Up), Num(l.SdEast), Num(l.SdNorth), Num(l.SdUp),
+            Num(l.Statistic), l.Critical, Num(l.Ratio), Num(l.ComponentRatio), l.Passed);
     }
 
     /// <summary>One level closure; observations are 1-based numbers of the observation list.</summary>

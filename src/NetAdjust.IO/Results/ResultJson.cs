@@ -41,6 +41,9 @@ internal static partial class ResultJson
 
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
         public IReadOnlyList<Refraction>? Refraction { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public Gnss? Gnss { get; init; }
         public required Testing Testing { get; init; }
         public required IEnumerable<Relative> Relative { get; init; }
         public required IEnumerable<RelativeHeight> RelativeHeights { get; init; }
@@ -191,7 +194,12 @@ internal static partial class ResultJson
     internal sealed record VarianceComponents(int Iterations, bool Converged, IEnumerable<ComponentGroup> Groups);
 
     internal sealed record ComponentGroup(string Kind, int Count, double Redundancy, double? VarianceFactor,
-        double? SdScale, double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note);
+        double? SdScale, double? ScaledSd, double? ConstantPart, double? PpmPart, string? Note)
+    {
+        /// <summary>The group of GNSS baselines (empty for baselines in no group); left out for other kinds.</summary>
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public string? Group { get; init; }
+    }
 
     /// <summary>The sequence document: both solutions, the constraint test, discrepancies and shifts.</summary>
     internal sealed record Sequence(string Format, string Generator, string MinimalDatum,

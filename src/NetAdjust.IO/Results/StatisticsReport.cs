@@ -305,7 +305,8 @@ internal static class StatisticsReport
                     : double.IsFinite(g.SdScale) ? $"given sd x {g.SdScale.ToString("0.000", Inv)}" : "not estimable";
                 List<string> notes = g.Note is null ? [] : Wrap("note: " + g.Note, 94).Select(p => "    " + p).ToList();
                 groups.Add(new SectionRow([
-                    ObservationLabels.Short(g.Kind), g.Count.ToString(Inv), Num(g.Redundancy, 2),
+                    ObservationLabels.Short(g.Kind) + (g.Group is { Length: > 0 } bg ? " " + bg : ""),
+                    g.Count.ToString(Inv), Num(g.Redundancy, 2),
                     Num(g.VarianceFactor, 3), Num(g.SdScale, 3), spec,
                 ], After: notes));
             }

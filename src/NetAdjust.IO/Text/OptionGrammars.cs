@@ -57,6 +57,13 @@ public static class OptionGrammars
         "ground (measured at the marks' height) or grid (already reduced to the grid)", false,
         ("ground", Geodesy.DistanceBasis.Ground), ("grid", Geodesy.DistanceBasis.Grid));
 
+    /// <summary>Which frame parameters between the GNSS frame and the local control are unknowns
+    /// (<c>gnss.frame_parameters</c>).</summary>
+    public static TextChoice<FrameParameterSet> FrameParameterSets { get; } = new("a choice of frame parameters",
+        "none, rotations (three small rotations) or rotations_and_scale (three rotations and a scale)", false,
+        ("none", FrameParameterSet.None), ("rotations", FrameParameterSet.Rotations),
+        ("rotations_and_scale", FrameParameterSet.RotationsAndScale));
+
     /// <summary>What the azimuths of a project are (<c>grid.azimuths</c>).</summary>
     public static TextChoice<Geodesy.AzimuthBasis> AzimuthBases { get; } = new("a kind of azimuth",
         "geodetic (from true north; astronomic azimuths too) or grid (grid bearings)", false,
@@ -115,11 +122,12 @@ public static class OptionGrammars
     /// <summary>The demo scenarios of data/ (<c>simulate --scenario</c>).</summary>
     public static TextChoice<DemoScenario> DemoScenarios { get; } = new("a demo scenario",
         "brackenmoor (traverse and level loop), harrowfield (braced network with a blunder), harrowgate "
-        + "(control check with a disturbed mark), corvan (3D traverse in rounds of both faces) or tarnholm (braced "
-        + "network on a UTM grid, ground distances)", false,
+        + "(control check with a disturbed mark), corvan (3D traverse in rounds of both faces), tarnholm (braced "
+        + "network on a UTM grid, ground distances) or skelmoor (GNSS baselines with a traverse and a level line)",
+        false,
         ("brackenmoor", DemoScenario.Brackenmoor), ("harrowfield", DemoScenario.Harrowfield),
         ("harrowgate", DemoScenario.Harrowgate), ("corvan", DemoScenario.CorvanFell),
-        ("tarnholm", DemoScenario.Tarnholm));
+        ("tarnholm", DemoScenario.Tarnholm), ("skelmoor", DemoScenario.Skelmoor));
 
     /// <summary>
     /// Reads the held components of a point (<c>fix</c>): the letters e, n and h in any order (e.g. <c>en</c>,

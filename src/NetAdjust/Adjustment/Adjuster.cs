@@ -106,7 +106,10 @@ public static partial class Adjuster
         return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points,
             observations, orientations, stats,
             solver.Name, finalRows, weights)
-        { Refractions = AdjustedRefractions(index, state, finalFactor, s0) };
+        {
+            Refractions = AdjustedRefractions(index, state, finalFactor, s0),
+            FrameParameters = FrameParameters.Adjusted(index, state, finalFactor, s0),
+        };
     }
 
     private static double Sq(double x) => x * x;
@@ -190,6 +193,8 @@ public static partial class Adjuster
                 {
                     Parameter.Orientation => options.AngleTolerance,
                     Parameter.Refraction => RefractionTolerance,
+                    Parameter.FrameRotationX or Parameter.FrameRotationY or Parameter.FrameRotationZ
+                        or Parameter.FrameScale => FrameParameters.Tolerance,
                     _ => options.LengthTolerance,
                 };
                 if (Math.Abs(lastDx[j]) >= tol) converged = false;
@@ -205,7 +210,10 @@ public static partial class Adjuster
                 return weights.Quadratic(trial.Value.L);
             });
             if (lambda == Math.Pow(0.5, trials - 1)) current = trial;
-            if (lambda < 1) converged = false;
+            // A shortened step (λ < 1) does not by itself stop convergence: when every correction is already below
+            // its tolerance the state is within the tolerances of the solution whatever λ, and a step that small is
+            // halved by rounding alone (an earth-centred baseline, a difference of coordinates near 6.4e6 m, moves by
+            // an ulp of 1e-9 m and vᵀPv by more than the step control's 1e-9 relative margin, at every trial).
         }
         return iterations;
     }
@@ -256,6 +264,9 @@ public static partial class Adjuster
             if (p.SdH is double sh && index.IndexOf(p.Id, Parameter.H) >= 0)
                 rows.Add(new(p.Id, Parameter.H, p.H!.Value, sh));
         }
+        // Frame parameters with a-priori standard deviations: direct observations of zero, after the points.
+        foreach (var (owner, par, sd) in FrameParameters.Weighted(network, index))
+            rows.Add(new(owner, par, 0.0, sd));
         return rows;
     }
 

@@ -258,6 +258,14 @@ public sealed class AdjustmentResult
         init => field = ReadOnlyCopies.List(value);
     } = ReadOnlyCopies.List<AdjustedRefraction>([]);
 
+    /// <summary>Estimated frame parameters between GNSS frames and the local control (docs/methods.md, "GNSS
+    /// baselines"), in unknown order; empty when none is estimated.</summary>
+    public IReadOnlyList<AdjustedFrameParameter> FrameParameters
+    {
+        get;
+        init => field = ReadOnlyCopies.List(value);
+    } = ReadOnlyCopies.List<AdjustedFrameParameter>([]);
+
     /// <summary>Overall statistics and the global test.</summary>
     public AdjustmentStatistics Statistics { get; }
 

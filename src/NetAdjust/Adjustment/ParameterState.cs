@@ -10,12 +10,28 @@ namespace NetAdjust.Adjustment;
 public sealed class ParameterState : ICoordinates
 {
     private readonly Dictionary<string, double> _e, _n, _h, _orientation, _refraction;
+    private readonly Dictionary<string, double> _rx = new(StringComparer.Ordinal), _ry = new(StringComparer.Ordinal),
+        _rz = new(StringComparer.Ordinal), _scale = new(StringComparer.Ordinal);
 
     internal ParameterState(Dictionary<string, double> e, Dictionary<string, double> n, Dictionary<string, double> h,
         Dictionary<string, double> orientation, Dictionary<string, double>? refraction = null)
     {
         _e = e; _n = n; _h = h; _orientation = orientation;
         _refraction = refraction ?? new Dictionary<string, double>(StringComparer.Ordinal);
+    }
+
+    /// <summary>The current value of a frame parameter of a GNSS frame whose parameters are unknowns (radians for
+    /// rotations, dimensionless for the scale difference); 0 for others.</summary>
+    /// <param name="frame">The frame's id.</param>
+    /// <param name="parameter">One of the frame parameters.</param>
+    public double Frame(string frame, Parameter parameter) =>
+        Map(parameter).TryGetValue(frame, out double v) ? v : 0.0;
+
+    /// <summary>Starts the parameters of a frame at zero.</summary>
+    internal void AddFrame(string frame, bool scale)
+    {
+        _rx[frame] = 0; _ry[frame] = 0; _rz[frame] = 0;
+        if (scale) _scale[frame] = 0;
     }
 
     /// <summary>The plane coordinates of a point (m).</summary>
@@ -51,6 +67,10 @@ public sealed class ParameterState : ICoordinates
         Parameter.N => _n,
         Parameter.H => _h,
         Parameter.Refraction => _refraction,
+        Parameter.FrameRotationX => _rx,
+        Parameter.FrameRotationY => _ry,
+        Parameter.FrameRotationZ => _rz,
+        Parameter.FrameScale => _scale,
         _ => _orientation,
     };
 }

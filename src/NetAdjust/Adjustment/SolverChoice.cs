@@ -48,6 +48,7 @@ internal static class SolverChoice
         foreach (var o in network.Observations)
             if (o is DirectionObservation d) stationOfSet.TryAdd(d.SetId, d.Station);
             else if (o is ZenithObservation { RefractionGroup: string g } z) stationOfGroup.TryAdd(g, z.From);
+            else if (o is BaselineObservation { Frame: { } f } b) stationOfGroup.TryAdd("\u0001frame " + f.Id, b.From);
         var groupOf = new int[index.Count];
         var x = new double[network.Points.Count];
         var y = new double[network.Points.Count];
@@ -63,6 +64,7 @@ internal static class SolverChoice
             {
                 Geometry.Parameter.Orientation => stationOfSet[u.Owner],
                 Geometry.Parameter.Refraction => stationOfGroup[u.Owner], // placed with its group's first station
+                _ when FrameParameters.IsFrame(u.Parameter) => stationOfGroup["\u0001frame " + u.Owner], // 1st baseline
                 _ => u.Owner,
             };
             groupOf[j] = network.IndexOf(owner);

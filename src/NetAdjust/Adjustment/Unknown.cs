@@ -15,6 +15,10 @@ public readonly record struct Unknown(string Owner, Parameter Parameter)
         Parameter.N => $"northing of {Owner}",
         Parameter.H => $"height of {Owner}",
         Parameter.Refraction => $"refraction coefficient of group {Owner}",
+        Parameter.FrameRotationX => $"rotation about X of frame {Owner}",
+        Parameter.FrameRotationY => $"rotation about Y of frame {Owner}",
+        Parameter.FrameRotationZ => $"rotation about Z of frame {Owner}",
+        Parameter.FrameScale => $"scale difference of frame {Owner}",
         _ => $"orientation of direction set {Owner}",
     };
 }

@@ -7,7 +7,7 @@ namespace NetAdjust.Geodesy;
 /// <param name="Name">The ellipsoid's name, e.g. <c>GRS 1980</c>.</param>
 /// <param name="SemiMajorAxis">a in metres (positive).</param>
 /// <param name="InverseFlattening">1/f (greater than 1).</param>
-public sealed record Ellipsoid(string Name, double SemiMajorAxis, double InverseFlattening)
+public sealed partial record Ellipsoid(string Name, double SemiMajorAxis, double InverseFlattening)
 {
     /// <summary>GRS 80: a = 6 378 137 m, 1/f = 298.257222101 (Moritz 1980; docs/references.md §11). The ellipsoid of
     /// ETRS89 and NAD83.</summary>
@@ -31,7 +31,7 @@ public sealed record Ellipsoid(string Name, double SemiMajorAxis, double Inverse
 
     /// <summary>The radius of curvature of the meridian M = a (1 − e²) / (1 − e² sin²φ)^(3/2), in metres.</summary>
     /// <param name="latitude">Geodetic latitude φ in radians.</param>
-    public double MeridianRadius(double latitude)
+    internal double MeridianRadius(double latitude)
     {
         double e2 = EccentricitySquared, s = Math.Sin(latitude);
         return SemiMajorAxis * (1 - e2) / Math.Pow(1 - e2 * s * s, 1.5);
@@ -39,7 +39,7 @@ public sealed record Ellipsoid(string Name, double SemiMajorAxis, double Inverse
 
     /// <summary>The radius of curvature in the prime vertical ν = a / (1 − e² sin²φ)^(1/2), in metres.</summary>
     /// <param name="latitude">Geodetic latitude φ in radians.</param>
-    public double PrimeVerticalRadius(double latitude)
+    internal double PrimeVerticalRadius(double latitude)
     {
         double e2 = EccentricitySquared, s = Math.Sin(latitude);
         return SemiMajorAxis / Math.Sqrt(1 - e2 * s * s);
@@ -49,7 +49,7 @@ public sealed record Ellipsoid(string Name, double SemiMajorAxis, double Inverse
     /// R_α = M ν / (M sin²α + ν cos²α), in metres.</summary>
     /// <param name="latitude">Geodetic latitude φ in radians.</param>
     /// <param name="azimuth">Azimuth α of the section in radians, clockwise from north.</param>
-    public double RadiusInAzimuth(double latitude, double azimuth)
+    internal double RadiusInAzimuth(double latitude, double azimuth)
     {
         double m = MeridianRadius(latitude), nu = PrimeVerticalRadius(latitude);
         double s = Math.Sin(azimuth), c = Math.Cos(azimuth);
@@ -58,6 +58,6 @@ public sealed record Ellipsoid(string Name, double SemiMajorAxis, double Inverse
 
     /// <summary>The Gaussian mean radius √(M ν) in metres.</summary>
     /// <param name="latitude">Geodetic latitude φ in radians.</param>
-    public double GaussianMeanRadius(double latitude) => Math.Sqrt(MeridianRadius(latitude) *
+    internal double GaussianMeanRadius(double latitude) => Math.Sqrt(MeridianRadius(latitude) *
         PrimeVerticalRadius(latitude));
 }

@@ -17,7 +17,7 @@ namespace NetAdjust.Geodesy;
 /// projection computed to 1e-9 m this gives k and γ to about 1e-10 and the arc-to-chord correction to better than
 /// 0.001″ on lines of a few kilometres (checked against independent series and Vincenty's inverse in the tests).
 /// </summary>
-public static class ProjectionFactors
+public static partial class ProjectionFactors
 {
     private const double LatitudeStep = 1e-5;
     private const double GridStep = 200.0;
@@ -34,7 +34,7 @@ public static class ProjectionFactors
     /// <param name="projection">The projection.</param>
     /// <param name="easting">Easting in metres.</param>
     /// <param name="northing">Northing in metres.</param>
-    public static double Convergence(IMapProjection projection, double easting, double northing) =>
+    internal static double Convergence(IMapProjection projection, double easting, double northing) =>
         Local(projection, easting, northing).Convergence;
 
     /// <summary>The line scale factor between two grid positions by Simpson's rule, (k₁ + 4 k_m + k₂) / 6.</summary>
@@ -60,7 +60,7 @@ public static class ProjectionFactors
     /// <param name="n1">Northing of the station in metres.</param>
     /// <param name="e2">Easting of the target in metres.</param>
     /// <param name="n2">Northing of the target in metres.</param>
-    public static double ArcToChord(IMapProjection projection, double e1, double n1, double e2, double n2)
+    internal static double ArcToChord(IMapProjection projection, double e1, double n1, double e2, double n2)
     {
         ArgumentNullException.ThrowIfNull(projection);
         double de = e2 - e1, dn = n2 - n1, d = Math.Sqrt(de * de + dn * dn);
@@ -79,7 +79,7 @@ public static class ProjectionFactors
     /// <param name="latitude">Geodetic latitude of the line's mid-point in radians.</param>
     /// <param name="azimuth">Azimuth of the line in radians.</param>
     /// <param name="height">Mean ellipsoidal height of the line in metres.</param>
-    public static double ElevationFactor(Ellipsoid ellipsoid, double latitude, double azimuth, double height)
+    internal static double ElevationFactor(Ellipsoid ellipsoid, double latitude, double azimuth, double height)
     {
         ArgumentNullException.ThrowIfNull(ellipsoid);
         double r = ellipsoid.RadiusInAzimuth(latitude, azimuth);

@@ -26,6 +26,20 @@ public enum Parameter
     /// <summary>The refraction coefficient k of a group of zenith angles, when it is estimated (dimensionless; the
     /// owner is the group's id).</summary>
     Refraction,
+
+    /// <summary>The small rotation about the earth-centred X axis between a GNSS frame and the local control
+    /// (radians; the owner is the frame's id).</summary>
+    FrameRotationX,
+
+    /// <summary>The small rotation about the earth-centred Y axis (radians; the owner is the frame's id).</summary>
+    FrameRotationY,
+
+    /// <summary>The small rotation about the earth-centred Z axis (radians; the owner is the frame's id).</summary>
+    FrameRotationZ,
+
+    /// <summary>The scale difference μ between a GNSS frame and the local control (dimensionless; the owner is the
+    /// frame's id).</summary>
+    FrameScale,
 }
 
 /// <summary>One partial derivative: ∂f/∂(parameter of owner).</summary>

@@ -28,7 +28,8 @@ public static class MisclosureCheck
         double chi2 = ChiSquared.InvCDF(2, o.Confidence);
         var levels = LevelClosures.Find(network, sd, o, z);
         var traverses = TraverseClosures.Find(network, sd, o, z, chi2);
-        return new MisclosureReport(o, levels, traverses);
+        return new MisclosureReport(o, levels, traverses)
+            { BaselineLoops = NetAdjust.Misclosures.BaselineLoops.Check(network, o.Confidence) };
     }
 
     /// <summary>

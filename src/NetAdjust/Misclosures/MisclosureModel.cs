@@ -240,6 +240,9 @@ public sealed record MisclosureReport
     /// <summary>Link and closed traverses, in the order found.</summary>
     public IReadOnlyList<TraverseClosure> Traverses { get; internal init; }
 
+    /// <summary>Closed loops of GNSS baselines, shortest first (empty when the network has none).</summary>
+    public IReadOnlyList<BaselineLoop> BaselineLoops { get; internal init; } = [];
+
     /// <summary>True when nothing was found to check.</summary>
-    public bool IsEmpty => Levels.Count == 0 && Traverses.Count == 0;
+    public bool IsEmpty => Levels.Count == 0 && Traverses.Count == 0 && BaselineLoops.Count == 0;
 }

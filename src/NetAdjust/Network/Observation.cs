@@ -27,6 +27,10 @@ public enum ObservationKind
     /// <summary>Zenith angle (0 at the zenith) from the instrument to the target, with instrument and target
     /// heights.</summary>
     Zenith,
+
+    /// <summary>One component (ΔX, ΔY or ΔZ) of a GNSS baseline: an earth-centred vector to − from whose three
+    /// components share one 3×3 covariance (<see cref="BaselineObservation"/>).</summary>
+    Baseline,
 }
 
 /// <summary>
@@ -46,6 +50,7 @@ public static class ObservationKinds
         ObservationKind.HeightDifference => "height_difference",
         ObservationKind.SlopeDistance => "slope_distance",
         ObservationKind.Zenith => "zenith",
+        ObservationKind.Baseline => "baseline",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -56,7 +61,8 @@ public static class ObservationKinds
     /// kind's description in <c>NetAdjust.Observations</c> (a test keeps them equal).</summary>
     internal static bool ValueIsAngle(ObservationKind kind) => kind switch
     {
-        ObservationKind.Distance or ObservationKind.HeightDifference or ObservationKind.SlopeDistance => false,
+        ObservationKind.Distance or ObservationKind.HeightDifference or ObservationKind.SlopeDistance
+            or ObservationKind.Baseline => false,
         ObservationKind.Direction or ObservationKind.Angle or ObservationKind.Azimuth or ObservationKind.Zenith => true,
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };

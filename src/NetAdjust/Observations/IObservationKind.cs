@@ -155,4 +155,12 @@ public interface ICoordinates
     /// <param name="group">The group's id.</param>
     /// <param name="assumed">The group's assumed k (the start value of the unknown).</param>
     double Refraction(string group, double assumed) => assumed;
+
+    /// <summary>
+    /// The current value of a frame parameter of a GNSS frame (radians for rotations, dimensionless for the scale
+    /// difference); coordinates that hold no frame unknowns (the default) give back 0.
+    /// </summary>
+    /// <param name="frame">The frame's id.</param>
+    /// <param name="parameter">One of the frame parameters (<see cref="Parameter.FrameRotationX"/> ...).</param>
+    double Frame(string frame, Parameter parameter) => 0.0;
 }

@@ -18,6 +18,7 @@ public static class ObservationKindRegistry
         new HeightDifferenceKind(),
         new SlopeDistanceKind(),
         new ZenithKind(),
+        new BaselineKind(),
     ];
 
     private static readonly IObservationKind[] ByEnum = Build();

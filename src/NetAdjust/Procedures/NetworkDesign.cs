@@ -90,7 +90,7 @@ public static class NetworkDesign
     /// <summary>The value of an observation replaced (the record's kind and everything else kept).</summary>
     /// <param name="o">The observation.</param>
     /// <param name="value">The new value in SI units (m or rad).</param>
-    public static Observation WithValue(Observation o, double value)
+    internal static Observation WithValue(Observation o, double value)
     {
         ArgumentNullException.ThrowIfNull(o);
         return o switch

@@ -163,7 +163,7 @@ public static class RobustEstimation
     /// <param name="redundancy">rᵢ in the current adjustment, in (0, 1].</param>
     /// <param name="factor">The current weight factor f in (0, 1].</param>
     /// <returns>|u| ≥ 0.</returns>
-    public static double Standardised(double residual, double givenSd, double redundancy, double factor) =>
+    internal static double Standardised(double residual, double givenSd, double redundancy, double factor) =>
         Math.Abs(residual) / (redundancy * givenSd * Math.Sqrt(1 + (((1 / redundancy) - 1) / factor)));
 
     /// <summary>The weight factor of an observation with standardised residual u.</summary>

@@ -54,6 +54,11 @@ public sealed record VarianceComponent
 
     /// <summary>Distances with a fitted spec: the constant part a; else null.</summary>
     public Length? ConstantPartLength => Lengths.Of(ConstantPart);
+
+    /// <summary>For GNSS baselines, the group of baselines this component belongs to (empty text for baselines in no
+    /// group); null for other kinds. Baselines get one component per group, estimated from their full 3×3 blocks
+    /// (σ̂² = Σ vᵀ Σ⁻¹ v / Σ rᵢ over the group's baselines).</summary>
+    public string? Group { get; internal init; }
 }
 
 /// <summary>The outcome of a variance component estimation. Made by the variance component estimation only (the
@@ -130,7 +135,7 @@ public static class VarianceComponents
         var given = obs.Select(o => o.StandardDeviation * o.StandardDeviation).ToArray();
 
         // Components: (kind, t_i per observation (0 when not in it), θ)
-        var comps = new List<(ObservationKind Kind, double[] T, double Theta, ComponentPart Name)>();
+        var comps = new List<(ObservationKind Kind, double[] T, double Theta, ComponentPart Name, string? Group)>();
         var notes = new Dictionary<ObservationKind, string>();
         var fitted = new HashSet<ObservationKind>();
         foreach (var kind in ObservationKinds.All)
@@ -147,8 +152,8 @@ public static class VarianceComponents
                     double med = sd[sd.Length / 2], medD = d.OrderBy(x => x).ElementAt(d.Length / 2);
                     var tA = new double[n]; var tB = new double[n];
                     foreach (int i in members) { tA[i] = 1; tB[i] = obs[i].Value * obs[i].Value; }
-                    comps.Add((kind, tA, med * med / 2, ComponentPart.Constant));
-                    comps.Add((kind, tB, med * med / 2 / (medD * medD), ComponentPart.Proportional));
+                    comps.Add((kind, tA, med * med / 2, ComponentPart.Constant, null));
+                    comps.Add((kind, tB, med * med / 2 / (medD * medD), ComponentPart.Proportional, null));
                     fitted.Add(kind);
                     continue;
                 }
@@ -157,9 +162,12 @@ public static class VarianceComponents
                     $"least {MinimumLengthRatioForSpecFit:0}× the shortest; the given standard deviations were " +
                     $"scaled instead";
             }
-            var t = new double[n];
-            foreach (int i in members) t[i] = given[i];
-            comps.Add((kind, t, 1.0, ComponentPart.Scale));
+            foreach (var (group, part) in Groups(obs, kind, members))
+            {
+                var t = new double[n];
+                foreach (int i in part) t[i] = given[i];
+                comps.Add((kind, t, 1.0, ComponentPart.Scale, group));
+            }
         }
 
         double[] Variances()
@@ -194,9 +202,10 @@ public static class VarianceComponents
                     if (c.T[i] == 0 || a.Observations[i].Flag == ObservationFlag.Excluded) continue;
                     double share = c.Theta * c.T[i] / s2[i];
                     double v = result.Observations[i].Residual;
-                    num += v * v / s2[i] * share;
+                    num += c.Group is null ? v * v / s2[i] * share : 0;
                     den += a.Observations[i].Redundancy * share;
                 }
+                if (c.Group is not null) num = BlockQuadratic(result, c.T); // vᵀ Σ⁻¹ v over the group's blocks
                 if (!(den > 1e-6)) continue; // no redundancy in this component: keep it
                 double ratio = num / den;
                 if (!(ratio > 0)) ratio = 1e-6; // a perfect fit: let the component shrink, never vanish
@@ -212,12 +221,14 @@ public static class VarianceComponents
         var fin = result.Analysis;
         var groups = new List<VarianceComponent>();
         foreach (var kind in ObservationKinds.All)
+        foreach (var (group, members) in Groups(obs, kind, Enumerable.Range(0, n)
+            .Where(i => obs[i].Kind == kind && !obs[i].Excluded).ToArray()))
         {
-            var members = Enumerable.Range(0, n).Where(i => obs[i].Kind == kind && !obs[i].Excluded).ToArray();
             if (members.Length == 0) continue;
             double r = members.Sum(i => fin.Observations[i].Redundancy);
-            double sumSq = members.Sum(i => result.Observations[i].Residual *
-                result.Observations[i].Residual / given[i]);
+            double sumSq = group is null ? members.Sum(i => result.Observations[i].Residual *
+                result.Observations[i].Residual / given[i])
+                : comps.First(c => c.Group == group).Theta * BlockQuadratic(result, members.Select(i => i).ToArray());
             double vf = r > 1e-6 ? sumSq / r : double.NaN;
             double? same = members.All(i => given[i] == given[members[0]]) ? Math.Sqrt(given[members[0]]) : null;
             double? aPart = null, bPart = null;
@@ -235,9 +246,44 @@ public static class VarianceComponents
                     WeakInterval(vf, r)
                 : "the group has no redundancy: its variance factor cannot be estimated");
             groups.Add(new VarianceComponent(kind, members.Length, r, vf, Math.Sqrt(vf), same * Math.Sqrt(vf), aPart,
-                bPart, note));
+                bPart, note) { Group = group });
         }
         return new VarianceComponentEstimate(groups, it, converged, result);
+    }
+
+    /// <summary>The members of a kind split into its estimated groups: GNSS baselines by their group (empty text for
+    /// none), every other kind as one group (null).</summary>
+    private static IEnumerable<(string? Group, int[] Members)> Groups(IReadOnlyList<Observation> obs,
+        ObservationKind kind, int[] members)
+    {
+        if (kind != ObservationKind.Baseline)
+        {
+            yield return (null, members);
+            yield break;
+        }
+        foreach (var g in members.GroupBy(i => ((BaselineObservation)obs[i]).Group ?? "", StringComparer.Ordinal))
+            yield return (g.Key, g.ToArray());
+    }
+
+    /// <summary>Σ vᵀ Σ⁻¹ v over the weight blocks that hold the rows marked (non-zero entries of
+    /// <paramref name="marked"/>, or the rows listed), Σ⁻¹ = P / σ0² of the result.</summary>
+    private static double BlockQuadratic(AdjustmentResult result, double[] marked) =>
+        BlockQuadratic(result, Enumerable.Range(0, marked.Length).Where(i => marked[i] != 0).ToArray());
+
+    private static double BlockQuadratic(AdjustmentResult result, int[] rows)
+    {
+        var seen = new HashSet<LinearAlgebra.WeightBlock>(ReferenceEqualityComparer.Instance);
+        double s = 0;
+        foreach (int row in rows)
+        {
+            var (blk, _) = result.Weights.BlockOf(row);
+            if (!seen.Add(blk)) continue;
+            for (int a = 0; a < blk.Size; a++)
+                for (int b = 0; b < blk.Size; b++)
+                    s += result.Observations[blk.Rows[a]].Residual * blk[a, b]
+                        * result.Observations[blk.Rows[b]].Residual;
+        }
+        return s / result.Statistics.AprioriVarianceFactor;
     }
 
     /// <summary>

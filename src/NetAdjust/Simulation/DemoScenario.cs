@@ -17,4 +17,8 @@ public enum DemoScenario
 
     /// <summary>Tarnholm quarry extension: a braced network on a UTM grid, distances measured on the ground.</summary>
     Tarnholm,
+
+    /// <summary>Skelmoor: four GNSS control marks in two sessions, a traverse between them and a level line, on
+    /// ETRS89 / UTM zone 32N.</summary>
+    Skelmoor,
 }

@@ -20,14 +20,16 @@ public static class DemoScenarios
     {
         DemoScenario.Harrowgate or DemoScenario.Tarnholm => 20261202,
         DemoScenario.CorvanFell => 20261203,
+        DemoScenario.Skelmoor => 20261219,
         _ => 20261201,
     };
 
     /// <summary>Draws a scenario.</summary>
     /// <param name="scenario">The scenario.</param>
     /// <param name="seed">The random seed; the same seed gives the same survey on every machine.</param>
-    /// <param name="projection">The map projection of a scenario on a grid (Tarnholm: WGS 84 / UTM zone 33N), whose
-    /// factors turn the grid truth into ground distances and geodesic directions; unused by the others.</param>
+    /// <param name="projection">The map projection of a scenario on a grid (Tarnholm: WGS 84 / UTM zone 33N; Skelmoor:
+    /// ETRS89 / UTM zone 32N), whose factors turn the grid truth into ground distances and geodesic directions and
+    /// whose inverse turns it into earth-centred baselines; unused by the others.</param>
     /// <exception cref="ArgumentException">When a scenario on a grid is drawn without its projection.</exception>
     public static DemoSurvey Draw(DemoScenario scenario, int seed, IMapProjection? projection = null) =>
         scenario switch
@@ -38,6 +40,8 @@ public static class DemoScenarios
         DemoScenario.CorvanFell => CorvanFellDraw(seed),
         DemoScenario.Tarnholm => TarnholmGrid.Draw(seed, projection ?? throw new ArgumentException(
             "the Tarnholm scenario is drawn through its map projection", nameof(projection)), new SeededNoise(seed)),
+        DemoScenario.Skelmoor => SkelmoorGnss.Draw(seed, projection ?? throw new ArgumentException(
+            "the Skelmoor scenario is drawn through its map projection", nameof(projection)), new SeededNoise(seed)),
         _ => throw new ArgumentOutOfRangeException(nameof(scenario), scenario, "unknown scenario"),
     };
 

@@ -22,4 +22,8 @@ public sealed record DemoSurvey(
     /// <summary>Setups booked as raw rounds in both faces (their observations are not in <see cref="Setups"/>);
     /// empty for the scenarios without them.</summary>
     public IReadOnlyList<DemoRoundsSetup> Rounds { get; init; } = [];
+
+    /// <summary>GNSS baselines, in the order the sessions listed them; empty for the scenarios without them.
+    /// </summary>
+    public IReadOnlyList<DemoBaseline> Baselines { get; init; } = [];
 }

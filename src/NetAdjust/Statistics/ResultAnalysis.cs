@@ -158,8 +158,11 @@ public static class ResultAnalysis
             var o = result.Observations[i].Input;
             obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation, ObservationKinds.ValueIsAngle(o.Kind));
         }
-        var controlTests = new ControlTest[control.Count];
-        for (int k = 0; k < control.Count; k++)
+        // Weighted frame parameters are rows of the model too (after the points' control) but not control points:
+        // they are tested with the rest and left out of the control list.
+        int pointControl = control.Count(c => !FrameParameters.IsFrame(c.Component));
+        var controlTests = new ControlTest[pointControl];
+        for (int k = 0; k < pointControl; k++)
             controlTests[k] = new ControlTest(control[k].PointId, control[k].Component, control[k].Residual,
                 TestRow(nObs + k, k, false, control[k].Sd));
 
@@ -258,6 +261,10 @@ public static class ResultAnalysis
             if (p.SdH is double sv && result.Unknowns.IndexOf(p.Id, Parameter.H) >= 0)
                 list.Add(new(p.Id, Parameter.H, ap.H!.Value - p.H!.Value, sv));
         }
+        if (result.Options.Datum.Mode != Adjustment.Datum.DatumMode.Control) return list; // as the adjuster did
+        foreach (var (owner, par, sd) in FrameParameters.Weighted(result.Network, result.Unknowns))
+            list.Add(new(owner, par, result.FrameParameters.Single(f => f.Frame == owner && f.Parameter == par).Value,
+                sd));
         return list;
     }
 

@@ -1,4 +1,5 @@
 using NetAdjust.Network;
+using NetAdjust.Units;
 
 namespace NetAdjust.Stochastic;
 
@@ -35,14 +36,22 @@ public static class DirectionBudgetBuilder
             new(ContributionNames.PointingReading, PointingReading(instrument.DirectionSd, procedure)),
             new(ContributionNames.InstrumentCentering, instrument.CenteringSd / distance),
             new(ContributionNames.TargetCentering, (target?.CenteringSd ?? 0.0) / distance),
-        ]);
+        ], isAngle: true);
     }
 
     /// <summary>σ of the mean direction of n sets: σ_ISO/√n in both faces, σ_ISO·√2/√n in one face.</summary>
+    /// <param name="isoSd">ISO 17123-3 σ of one direction in both faces.</param>
+    /// <param name="procedure">Sets and faces.</param>
+    /// <returns>The standard deviation of the mean direction.</returns>
+    public static Angle PointingReading(Angle isoSd, ObservingProcedure procedure) =>
+        Angle.FromRadians(PointingReading(isoSd.Radians, procedure));
+
+    /// <summary>σ of the mean direction of n sets, for the library: see
+    /// <see cref="PointingReading(Angle, ObservingProcedure)"/>.</summary>
     /// <param name="isoSd">ISO 17123-3 σ of one direction in both faces (radians or any angular unit).</param>
     /// <param name="procedure">Sets and faces.</param>
     /// <returns>In the unit of <paramref name="isoSd"/>.</returns>
-    public static double PointingReading(double isoSd, ObservingProcedure procedure)
+    internal static double PointingReading(double isoSd, ObservingProcedure procedure)
     {
         ArgumentNullException.ThrowIfNull(procedure);
         double oneSet = procedure.Faces == Faces.Both ? isoSd : isoSd * Math.Sqrt(2.0);

@@ -31,6 +31,6 @@ public static class DistanceBudgetBuilder
             new(ContributionNames.EdmProportional, edm.Ppm * 1e-6 * distance),
             new(ContributionNames.InstrumentCentering, instrument.CenteringSd),
             new(ContributionNames.TargetCentering, target?.CenteringSd ?? 0.0),
-        ]);
+        ], isAngle: false);
     }
 }

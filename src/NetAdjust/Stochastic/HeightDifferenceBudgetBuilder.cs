@@ -35,7 +35,7 @@ public static class HeightDifferenceBudgetBuilder
             Checks.Positive(l, "the section length");
             int runs = procedure?.Runs ?? 2;
             double sd = perKm * Math.Sqrt(l / 1000.0) * Math.Sqrt(2.0 / runs);
-            return new ErrorBudget([new(ContributionNames.LevellingPerKm, sd)]);
+            return new ErrorBudget([new(ContributionNames.LevellingPerKm, sd)], isAngle: false);
         }
         if (procedure is null)
             throw new InvalidInputException(
@@ -48,6 +48,6 @@ public static class HeightDifferenceBudgetBuilder
         [
             new(ContributionNames.RodReadings, readings),
             new(ContributionNames.RodRounding, rounding),
-        ]);
+        ], isAngle: false);
     }
 }

@@ -38,7 +38,7 @@ public sealed class StochasticModel
     public IReadOnlyList<ErrorBudget?> Budgets { get; }
 
     /// <summary>The weight blocks σ0² Σ⁻¹ of the setups with correlated centering (none for independent
-    /// centering).</summary>
+    /// centering), then one 3×3 block per GNSS baseline (<see cref="BaselineBlocks"/>).</summary>
     public IReadOnlyList<CorrelatedBlock> Blocks { get; }
 
     /// <summary>True when some standard deviation was derived from specifications at the coordinates.</summary>
@@ -92,6 +92,7 @@ public sealed class StochasticModel
         }
         var blocks = centering == CenteringModel.Correlated
             ? SetupBlocks(network, at, sd, budgets, aprioriVarianceFactor) : [];
+        blocks = [.. blocks, .. BaselineBlocks.Build(network, sd, aprioriVarianceFactor)];
         return new StochasticModel(sd, budgets, blocks, derived);
     }
 

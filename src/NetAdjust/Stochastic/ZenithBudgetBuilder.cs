@@ -7,7 +7,7 @@ namespace NetAdjust.Stochastic;
 /// <list type="bullet">
 /// <item>pointing and reading of the vertical circle: σ_ISO,z/√n in both faces, σ_ISO,z·√2/√n in one face, with
 /// σ_ISO,z the instrument's ISO 17123-3 zenith-angle standard deviation (one zenith angle in both faces), taken as
-/// for directions (<see cref="DirectionBudgetBuilder.PointingReading"/>);</item>
+/// for directions (<see cref="DirectionBudgetBuilder.PointingReading(Units.Angle, ObservingProcedure)"/>);</item>
 /// <item>instrument height and target height: an error σ_h in the height of either end moves the zenith angle by
 /// σ_h·s/D² (the equation's partial derivative by that height, s the horizontal and D the slope distance), which is
 /// σ_h/s for a horizontal sight and less for an inclined one; the budget takes σ_h/s (common practice, the safe
@@ -31,7 +31,7 @@ public static class ZenithBudgetBuilder
     /// <param name="refractionSd">σ_k of the assumed refraction coefficient (≥ 0; 0 when k is estimated or its
     /// uncertainty not counted).</param>
     /// <returns>Contributions <c>zenith_pointing_reading</c>, <c>instrument_height</c>, <c>target_height</c>,
-    /// <c>refraction</c> (radians).</returns>
+    /// <c>refraction</c>, angles.</returns>
     /// <exception cref="InvalidInputException">When s is not positive, σ_k is negative or the instrument has no
     /// zenith standard deviation.</exception>
     public static ErrorBudget Build(TotalStationSpecification instrument, TargetSpecification? target,
@@ -54,6 +54,6 @@ public static class ZenithBudgetBuilder
             new(ContributionNames.TargetHeight, (target?.HeightSd ?? 0.0) / horizontalDistance),
             new(ContributionNames.Refraction,
                 refractionSd * Math.Abs(Geometry.SpatialGeometry.ZenithByRefraction(horizontalDistance))),
-        ]);
+        ], isAngle: true);
     }
 }

@@ -82,7 +82,7 @@ public readonly record struct Angle : IComparable<Angle>
     /// <summary>Reduces a value in radians to (−π, π].</summary>
     /// <param name="radians">Any finite value, in radians.</param>
     /// <returns>The equivalent value in (−π, π].</returns>
-    public static double ReduceSigned(double radians)
+    internal static double ReduceSigned(double radians)
     {
         double r = Math.IEEERemainder(radians, 2 * Math.PI); // in [−π, π]
         return r <= -Math.PI ? r + (2 * Math.PI) : r;
@@ -90,7 +90,7 @@ public readonly record struct Angle : IComparable<Angle>
 
     /// <summary>Reduces a value in radians to [0, 2π).</summary>
     /// <param name="radians">Any finite value, in radians.</param>
-    public static double Reduce0To2Pi(double radians) => FromRadians(radians).Normalized0To2Pi().Radians;
+    internal static double Reduce0To2Pi(double radians) => FromRadians(radians).Normalized0To2Pi().Radians;
 
     /// <inheritdoc />
     public int CompareTo(Angle other) => Radians.CompareTo(other.Radians);

@@ -22,7 +22,7 @@ public sealed class FuzzTests : IDisposable
     private static readonly TimeSpan TimeLimit = TimeSpan.FromSeconds(30);
 
     private static readonly string[] Projects = ["brackenmoor.yaml", "brackenmoor-auto.yaml",
-        "harrowfield-blunder.yaml", "harrowgate-control.yaml", "corvan-fell-3d.yaml"];
+        "harrowfield-blunder.yaml", "harrowgate-control.yaml", "corvan-fell-3d.yaml", "skelmoor-gnss.yaml"];
 
     private static readonly string[] Extremes =
         ["1e308", "-1e308", "1e-300", "0", "-0", "NaN", ".inf", "1e999", "99999999999", "-1", "0.0000001", "1e30",

@@ -36,6 +36,7 @@ internal static class ApproximateCoordinates
     public static void Plane(SurveyNetwork network, IReadOnlyCollection<string> plane, Dictionary<string, double> e,
         Dictionary<string, double> n, bool seedWhenNothingKnown)
     {
+        LocateByBaselines(network, plane, e, n);
         // Observations set aside (e.g. by the blunder hunt) are used only for points nothing else reaches.
         if (network.Observations.Any(o => o.Excluded))
         {
@@ -67,7 +68,34 @@ internal static class ApproximateCoordinates
         PlanePoint? At(string id) => e is not null && n is not null && e.TryGetValue(id, out double pe)
             && n.TryGetValue(id, out double pn) ? new PlanePoint(pe, pn) : null;
         Constructions.LevellingTree(network.Points.Select(p => p.Id).Where(height.Contains).ToList(),
-            [.. ApproximationOffers.LevellingEdges(network), .. ApproximationOffers.TrigonometricEdges(network, At)],
+            [.. ApproximationOffers.LevellingEdges(network), .. ApproximationOffers.BaselineEdges(network, At),
+                .. ApproximationOffers.TrigonometricEdges(network, At)],
             h);
+    }
+
+    /// <summary>
+    /// GNSS baselines place a point directly from a located end (<see cref="ApproximationOffers.BaselineStep"/>):
+    /// repeated until no baseline reaches a further point, before the plane constructions.
+    /// </summary>
+    private static void LocateByBaselines(SurveyNetwork network, IReadOnlyCollection<string> plane,
+        Dictionary<string, double> e, Dictionary<string, double> n)
+    {
+        var baselines = ApproximationOffers.Baselines(network).ToList();
+        for (bool progress = baselines.Count > 0; progress;)
+        {
+            progress = false;
+            foreach (var b in baselines)
+            {
+                bool fromKnown = e.ContainsKey(b.From), toKnown = e.ContainsKey(b.To);
+                if (fromKnown == toKnown) continue;
+                string other = fromKnown ? b.To : b.From;
+                if (!plane.Contains(other)) continue;
+                var (pe, pn, _) = fromKnown ? ApproximationOffers.BaselineStep(b, true, e[b.From], n[b.From])
+                    : ApproximationOffers.BaselineStep(b, false, e[b.To], n[b.To]);
+                if (!double.IsFinite(pe) || !double.IsFinite(pn)) continue;
+                e[other] = pe; n[other] = pn;
+                progress = true;
+            }
+        }
     }
 }

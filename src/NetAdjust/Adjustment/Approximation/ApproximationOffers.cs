@@ -25,6 +25,47 @@ internal static class ApproximationOffers
     /// <summary>Whether the observation ties plane positions (every kind but height differences).</summary>
     public static bool IsPlane(Observation o) => ObservationKindRegistry.IsHorizontal(o.Kind);
 
+    /// <summary>GNSS baselines that can place their ends (one record per baseline, modelled on a projection);
+    /// set-aside ones last.</summary>
+    public static IEnumerable<BaselineObservation> Baselines(SurveyNetwork network) =>
+        network.Observations.OfType<BaselineObservation>().Where(b => b.Grid?.Projection is not null)
+            .DistinctBy(b => (b.BaselineId ?? b.Source, b.From, b.To)).OrderBy(b => b.Excluded);
+
+    /// <summary>
+    /// The other end of a GNSS baseline from a located end: its grid position, and the height difference
+    /// H(other) − H(known), through the exact chain (grid → geodetic → earth-centred, plus or minus the vector, and
+    /// back), the known end's height taken as 0 (a height error of 100 m moves the other end by about 1 mm on a
+    /// 5 km baseline: enough for a start value).
+    /// </summary>
+    /// <param name="b">The baseline.</param>
+    /// <param name="fromKnown">True when the known end is <see cref="Observation.From"/>.</param>
+    /// <param name="e">Easting of the known end.</param>
+    /// <param name="n">Northing of the known end.</param>
+    public static (double E, double N, double Dh) BaselineStep(BaselineObservation b, bool fromKnown, double e,
+        double n)
+    {
+        var grid = b.Grid!;
+        var p = grid.Projection!;
+        string known = fromKnown ? b.From : b.To, other = fromKnown ? b.To : b.From;
+        double sign = fromKnown ? 1 : -1;
+        var (lat, lon) = p.Inverse(e, n);
+        var x = Geodesy.Geocentric.ToGeocentric(p.Ellipsoid, lat, lon, grid.EllipsoidalHeight(known, 0)!.Value);
+        var (lat2, lon2, h2) = Geodesy.Geocentric.ToGeodetic(p.Ellipsoid, x.X + (sign * b.Dx.Metres),
+            x.Y + (sign * b.Dy.Metres), x.Z + (sign * b.Dz.Metres));
+        var (e2, n2) = p.Forward(lat2, lon2);
+        return (e2, n2, h2 - grid.EllipsoidalHeight(other, 0)!.Value);
+    }
+
+    /// <summary>Height differences (from, to, H(to) − H(from)) of GNSS baselines whose start is located.</summary>
+    /// <param name="network">The network.</param>
+    /// <param name="plane">The located plane coordinates of a point, or null when it has none yet.</param>
+    public static IEnumerable<(string From, string To, double Dh)> BaselineEdges(SurveyNetwork network,
+        Func<string, PlanePoint?> plane)
+    {
+        foreach (var b in Baselines(network))
+            if (plane(b.From) is PlanePoint a) yield return (b.From, b.To, BaselineStep(b, true, a.E, a.N).Dh);
+    }
+
     /// <summary>Height differences as (from, to, H(to) − H(from)); set-aside observations last, so that they
     /// are used only where nothing else reaches.</summary>
     public static IEnumerable<(string From, string To, double Dh)> LevellingEdges(SurveyNetwork network) =>

@@ -81,7 +81,8 @@ internal static class DatumConditions
                 double v = 0;
                 if (unk.Parameter == Parameter.Orientation) v = defects[k] == DatumDefect.Rotation ? 1 / len : 0;
                 else if (unk.Parameter == Parameter.H) v = defects[k] == DatumDefect.Height ? 1 : 0;
-                else if (unk.Parameter == Parameter.Refraction) v = 0; // k is not moved by any datum change
+                else if (unk.Parameter == Parameter.Refraction || FrameParameters.IsFrame(unk.Parameter))
+                    v = 0; // k and the frame parameters are not moved by any datum change
                 else
                 {
                     var p = at(unk.Owner);
@@ -118,7 +119,8 @@ internal static class DatumConditions
             for (int j = 0; j < unknowns.Count; j++)
             {
                 var unk = unknowns[j];
-                if (unk.Parameter is not (Parameter.Orientation or Parameter.Refraction)
+                if (unk.Parameter is not (Parameter.Orientation or Parameter.Refraction) && !FrameParameters.IsFrame(
+                        unk.Parameter)
                     && (subset is null || subset.Contains(unk.Owner)))
                     b[k][j] = g[k][j];
             }

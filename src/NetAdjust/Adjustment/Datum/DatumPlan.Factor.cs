@@ -78,6 +78,12 @@ internal sealed partial class DatumPlan
                     "between points whose heights are known from elsewhere (held, or levelled). Observe " +
                     $"reciprocal zenith angles, or assume k for group {what.Owner} instead of estimating it.",
                     [what.Describe()]);
+            if (FrameParameters.IsFrame(what.Parameter))
+                throw new DatumDefectException(
+                    $"The observations do not determine the {what.Describe()}: frame parameters need baselines " +
+                    "between points whose coordinates are known from elsewhere (held or weighted control, or " +
+                    "terrestrial observations). Hold more control, give the parameters standard deviations, or " +
+                    "leave them out (gnss.frame_parameters: none).", [what.Describe()]);
             throw new DatumDefectException(
                 $"The datum is not defined: the observations and control do not determine the {what.Describe()}. " +
                 "The network holds its datum, but the geometry there is too weak: a point reached by a single " +

@@ -158,6 +158,13 @@ internal sealed partial class DatumPlan
             if (used) index.Add(new Unknown(group, Parameter.Refraction));
         }
         var state = new ParameterState(e, nn, h, orientation, refraction);
+        // Frame parameters of GNSS baselines: rotations (and a scale) per frame, started at zero.
+        foreach (var (frame, used) in FrameParameters.Frames(network))
+        {
+            state.AddFrame(frame.Id, frame.HasScale);
+            if (!used) continue;
+            foreach (var par in FrameParameters.Of(frame)) index.Add(new Unknown(frame.Id, par));
+        }
         return new DatumPlan(definition, index, state, planePoints,
             new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string,
                 double>(nn, StringComparer.Ordinal),

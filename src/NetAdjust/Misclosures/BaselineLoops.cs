@@ -1,0 +1,374 @@
+using MathNet.Numerics.Distributions;
+using NetAdjust.Geodesy;
+using NetAdjust.Network;
+
+namespace NetAdjust.Misclosures;
+
+/// <summary>
+/// Finds independent closed loops of GNSS baselines and computes their misclosures (docs/methods.md, "Misclosures
+/// before the adjustment", baseline loops). The baselines form a graph of points (a baseline measured twice is a
+/// loop of two). The loops are a shortest basis of its cycle space: candidates are Horton's cycles (for every point
+/// v and baseline x–y, the shortest paths v–x and y–v closed by the baseline, when they meet only at v) and, for
+/// every baseline, the shortest path back through baselines of other groups; they are taken shortest first,
+/// loops that mix groups before loops of one group, each one only when it is independent of those taken (Gaussian
+/// elimination over GF(2)), until the cycle rank m − n + c is reached. A loop whose baselines all come from one
+/// group (one session) closes by construction of the processing and is only a trivial check: it is kept (a wrong
+/// label or a copying error still shows in it) but marked <see cref="BaselineLoop.Trivial"/>.
+/// </summary>
+internal static class BaselineLoops
+{
+    /// <summary>Above this many Horton candidates (points × baselines) only the cross-group candidates and the
+    /// fundamental cycles of one breadth-first tree are used: still a basis, not always the shortest.</summary>
+    private const long MaxHortonCandidates = 2_000_000;
+
+    private sealed record Candidate(int[] Edges, bool Trivial, double Length, int Order);
+
+    /// <summary>
+    /// The loops of a network's GNSS baselines: every baseline whose three components are present, none set aside,
+    /// with a 3×3 covariance (the group scale applied). The mean position of a loop comes from its points' given or
+    /// approximate grid coordinates through the baselines' projection (none without one: no east, north, up).
+    /// </summary>
+    /// <param name="network">The network.</param>
+    /// <param name="confidence">The confidence of the tests, in (0, 1).</param>
+    /// <returns>The loops, each with the indices of its baselines' component observations.</returns>
+    public static List<BaselineLoop> Check(SurveyNetwork network, double confidence)
+    {
+        var vectors = new List<BaselineVector>();
+        var components = new List<int[]>();
+        IMapProjection? projection = null;
+        var byId = new Dictionary<string, int[]>(StringComparer.Ordinal);
+        var order = new List<string>();
+        for (int i = 0; i < network.Observations.Count; i++)
+        {
+            if (network.Observations[i] is not BaselineObservation { BaselineId: string id } b) continue;
+            if (!byId.TryGetValue(id, out var slots))
+            {
+                byId[id] = slots = [-1, -1, -1];
+                order.Add(id);
+            }
+            slots[(int)b.Component] = i;
+        }
+        foreach (string id in order)
+        {
+            int[] slots = byId[id];
+            if (slots.Any(i => i < 0)) continue;
+            var parts = slots.Select(i => (BaselineObservation)network.Observations[i]).ToArray();
+            if (parts.Any(p => p.Excluded || p.Covariance is null)) continue;
+            var b = parts[0];
+            projection ??= b.Grid?.Projection;
+            var (dx, dy, dz) = b.Vector;
+            vectors.Add(new BaselineVector(b.From, b.To, dx, dy, dz, [.. b.Covariance!], b.Group, b.Source ?? id));
+            components.Add(slots);
+        }
+        if (vectors.Count == 0) return [];
+        (double Lat, double Lon)? Position(string point)
+        {
+            if (projection is null || !network.Contains(point)) return null;
+            var p = network.Points[network.IndexOf(point)];
+            return p.E is double e && p.N is double n ? projection.Inverse(e, n) : null;
+        }
+        var loops = Find(vectors, projection?.Ellipsoid ?? Ellipsoid.Grs80, Position, confidence);
+        return [.. loops.Select(l => l with { Observations = [.. l.Baselines.SelectMany(k => components[k])] })];
+    }
+
+    /// <summary>Finds and checks the loops.</summary>
+    /// <param name="vectors">The baselines (those set aside already left out).</param>
+    /// <param name="ellipsoid">The ellipsoid of the positions (for the mean position of a loop).</param>
+    /// <param name="position">Geodetic latitude and longitude (radians) of a point by id, or null when not known;
+    /// a loop with no known point has no north, east, up (NaN).</param>
+    /// <param name="confidence">The confidence of the tests, in (0, 1).</param>
+    /// <returns>The loops, in the order taken (shortest first).</returns>
+    public static List<BaselineLoop> Find(IReadOnlyList<BaselineVector> vectors, Ellipsoid ellipsoid,
+        Func<string, (double Lat, double Lon)?> position, double confidence)
+    {
+        ArgumentNullException.ThrowIfNull(vectors);
+        // Points in order of first appearance; a baseline from a point to itself closes nothing and is left out.
+        var index = new Dictionary<string, int>(StringComparer.Ordinal);
+        var names = new List<string>();
+        var edges = new List<(int A, int B, int Vector)>();
+        for (int i = 0; i < vectors.Count; i++)
+        {
+            var v = vectors[i];
+            if (v.From == v.To) continue;
+            edges.Add((Node(v.From), Node(v.To), i));
+        }
+        int n = names.Count, m = edges.Count;
+        if (m == 0) return [];
+        var adjacency = new List<int>[n];
+        for (int i = 0; i < n; i++) adjacency[i] = [];
+        for (int e = 0; e < m; e++) { adjacency[edges[e].A].Add(e); adjacency[edges[e].B].Add(e); }
+        int rank = m - n + Components(n, adjacency, edges);
+        if (rank == 0) return [];
+
+        var lengths = edges.Select(e => Norm(vectors[e.Vector])).ToArray();
+        var candidates = new List<Candidate>();
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        void Add(List<int> cycle)
+        {
+            cycle.Sort();
+            if (cycle.Count < 2 || !seen.Add(string.Join(',', cycle))) return;
+            var groups = cycle.Select(e => vectors[edges[e].Vector].Group).Distinct().ToList();
+            bool trivial = groups.Count == 1 && groups[0] is not null;
+            candidates.Add(new Candidate([.. cycle], trivial, cycle.Sum(e => lengths[e]), candidates.Count));
+        }
+
+        // For every baseline, the shortest way back through baselines of other groups (mixes groups by design).
+        for (int e = 0; e < m; e++)
+        {
+            string? g = vectors[edges[e].Vector].Group;
+            var path = ShortestPath(edges[e].B, edges[e].A, adjacency, edges,
+                f => f != e && (g is null || vectors[edges[f].Vector].Group != g));
+            if (path is not null) Add([e, .. path]);
+        }
+        // Horton's candidates (or the fundamental cycles of one tree when the network is very large).
+        IEnumerable<int> roots = (long)n * m <= MaxHortonCandidates ? Enumerable.Range(0, n) : [0];
+        foreach (int v in roots) AddHorton(v, n, adjacency, edges, Add);
+
+        // Shortest basis: mixed loops before trivial ones, then fewest baselines, then shortest, then order found.
+        var ordered = candidates.OrderBy(c => c.Trivial).ThenBy(c => c.Edges.Length).ThenBy(c => c.Length)
+            .ThenBy(c => c.Order);
+        int words = (m + 63) / 64;
+        var basis = new Dictionary<int, ulong[]>();
+        var loops = new List<BaselineLoop>();
+        double z = Normal.InvCDF(0, 1, 1 - ((1 - confidence) / 2));
+        double chi2 = ChiSquared.InvCDF(3, confidence);
+        foreach (var c in ordered)
+        {
+            if (loops.Count == rank) break;
+            var bits = new ulong[words];
+            foreach (int e in c.Edges) bits[e >> 6] ^= 1UL << (e & 63);
+            if (!Independent(bits, basis)) continue;
+            loops.Add(Loop(c, vectors, edges, names, ellipsoid, position, z, chi2));
+        }
+        return loops;
+
+        int Node(string id)
+        {
+            if (index.TryGetValue(id, out int k)) return k;
+            index[id] = names.Count;
+            names.Add(id);
+            return names.Count - 1;
+        }
+    }
+
+    /// <summary>Reduces a cycle against the basis (rows keyed by their lowest bit); adds it and returns true when
+    /// independent.</summary>
+    private static bool Independent(ulong[] bits, Dictionary<int, ulong[]> basis)
+    {
+        while (true)
+        {
+            int low = LowestBit(bits);
+            if (low < 0) return false;
+            if (!basis.TryGetValue(low, out var row))
+            {
+                basis[low] = bits;
+                return true;
+            }
+            for (int w = 0; w < bits.Length; w++) bits[w] ^= row[w];
+        }
+    }
+
+    private static int LowestBit(ulong[] bits)
+    {
+        for (int w = 0; w < bits.Length; w++)
+            if (bits[w] != 0) return (w << 6) + System.Numerics.BitOperations.TrailingZeroCount(bits[w]);
+        return -1;
+    }
+
+    /// <summary>Horton's candidates of one root: the breadth-first tree of shortest paths from v (fewest baselines,
+    /// ties by input order) and, for every baseline outside it, the two tree paths closed by it when they meet only
+    /// at v.</summary>
+    private static void AddHorton(int v, int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges,
+        Action<List<int>> add)
+    {
+        var parent = new int[n];
+        var depth = new int[n];
+        Array.Fill(parent, -2);
+        parent[v] = -1;
+        var queue = new Queue<int>([v]);
+        while (queue.Count > 0)
+        {
+            int u = queue.Dequeue();
+            foreach (int e in adjacency[u])
+            {
+                int w = Other(edges[e], u);
+                if (parent[w] != -2) continue;
+                parent[w] = e;
+                depth[w] = depth[u] + 1;
+                queue.Enqueue(w);
+            }
+        }
+        for (int e = 0; e < edges.Count; e++)
+        {
+            var (a, b, _) = edges[e];
+            if (parent[a] == -2 || parent[b] == -2 || parent[a] == e || parent[b] == e) continue;
+            var pa = PathToRoot(a, parent, edges);
+            var pb = PathToRoot(b, parent, edges);
+            if (Meet(a, b, parent, edges) != v) continue;
+            add([e, .. pa, .. pb]);
+        }
+    }
+
+    /// <summary>The tree edges from a node up to the root.</summary>
+    private static List<int> PathToRoot(int node, int[] parent, List<(int A, int B, int Vector)> edges)
+    {
+        var path = new List<int>();
+        for (int u = node; parent[u] >= 0; u = Other(edges[parent[u]], u)) path.Add(parent[u]);
+        return path;
+    }
+
+    /// <summary>The first common node of the two tree paths to the root.</summary>
+    private static int Meet(int a, int b, int[] parent, List<(int A, int B, int Vector)> edges)
+    {
+        var onA = new HashSet<int>();
+        for (int u = a; ; u = Other(edges[parent[u]], u))
+        {
+            onA.Add(u);
+            if (parent[u] < 0) break;
+        }
+        for (int u = b; ; u = Other(edges[parent[u]], u))
+        {
+            if (onA.Contains(u)) return u;
+            if (parent[u] < 0) return -1;
+        }
+    }
+
+    /// <summary>Breadth-first shortest path (fewest baselines, ties by input order) over the allowed edges; the
+    /// edge indices, or null when there is none.</summary>
+    private static List<int>? ShortestPath(int from, int to, List<int>[] adjacency,
+        List<(int A, int B, int Vector)> edges, Func<int, bool> allowed)
+    {
+        var via = new Dictionary<int, int> { [from] = -1 };
+        var queue = new Queue<int>([from]);
+        while (queue.Count > 0 && !via.ContainsKey(to))
+        {
+            int u = queue.Dequeue();
+            foreach (int e in adjacency[u])
+            {
+                if (!allowed(e)) continue;
+                int w = Other(edges[e], u);
+                if (via.ContainsKey(w)) continue;
+                via[w] = e;
+                queue.Enqueue(w);
+            }
+        }
+        if (!via.ContainsKey(to)) return null;
+        var path = new List<int>();
+        for (int u = to; u != from; u = Other(edges[via[u]], u)) path.Add(via[u]);
+        return path;
+    }
+
+    private static int Components(int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges)
+    {
+        var seen = new bool[n];
+        int count = 0;
+        for (int s = 0; s < n; s++)
+        {
+            if (seen[s]) continue;
+            count++;
+            seen[s] = true;
+            var stack = new Stack<int>([s]);
+            while (stack.Count > 0)
+            {
+                int u = stack.Pop();
+                foreach (int e in adjacency[u])
+                {
+                    int w = Other(edges[e], u);
+                    if (!seen[w]) { seen[w] = true; stack.Push(w); }
+                }
+            }
+        }
+        return count;
+    }
+
+    /// <summary>Walks the cycle from the first point of its first baseline (in input order), sums the vectors
+    /// with the sign of the direction of travel and their covariances, and tests the misclosure.</summary>
+    private static BaselineLoop Loop(Candidate c, IReadOnlyList<BaselineVector> vectors,
+        List<(int A, int B, int Vector)> edges, List<string> names, Ellipsoid ellipsoid,
+        Func<string, (double Lat, double Lon)?> position, double z, double chi2)
+    {
+        var left = new List<int>(c.Edges);
+        int first = left[0];
+        int start = edges[first].A, at = start;
+        var points = new List<string> { names[start] };
+        var used = new List<int>();
+        var reversed = new List<bool>();
+        double wx = 0, wy = 0, wz = 0;
+        var cov = new double[9];
+        while (left.Count > 0)
+        {
+            int k = used.Count == 0 ? 0 : left.FindIndex(e => edges[e].A == at || edges[e].B == at);
+            int e = left[k];
+            left.RemoveAt(k);
+            bool forward = edges[e].A == at;
+            var v = vectors[edges[e].Vector];
+            double s = forward ? 1 : -1;
+            wx += s * v.Dx;
+            wy += s * v.Dy;
+            wz += s * v.Dz;
+            for (int i = 0; i < 9; i++) cov[i] += v.Covariance[i];
+            used.Add(edges[e].Vector);
+            reversed.Add(!forward);
+            at = forward ? edges[e].B : edges[e].A;
+            points.Add(names[at]);
+        }
+        var groups = used.Select(i => vectors[i].Group).Distinct().ToList();
+
+        double statistic = QuadraticForm(cov, wx, wy, wz);
+        // Local frame at the mean position of the loop's known points (mean of their earth-centred unit positions).
+        double east = double.NaN, north = double.NaN, up = double.NaN;
+        double sdE = double.NaN, sdN = double.NaN, sdU = double.NaN;
+        var known = points.Skip(1).Select(position).Where(p => p is not null).Select(p => p!.Value).ToList();
+        if (known.Count > 0)
+        {
+            double sx = 0, sy = 0, sz = 0;
+            foreach (var (lat, lon) in known)
+            {
+                var (x, y, zz) = Geocentric.ToGeocentric(ellipsoid, lat, lon, 0);
+                sx += x; sy += y; sz += zz;
+            }
+            var (mLat, mLon, _) = Geocentric.ToGeodetic(ellipsoid, sx / known.Count, sy / known.Count,
+                sz / known.Count);
+            double[] r = Geocentric.LocalRotation(mLat, mLon);
+            east = r[0] * wx + r[1] * wy + r[2] * wz;
+            north = r[3] * wx + r[4] * wy + r[5] * wz;
+            up = r[6] * wx + r[7] * wy + r[8] * wz;
+            sdE = Math.Sqrt(RowVariance(r, 0, cov));
+            sdN = Math.Sqrt(RowVariance(r, 1, cov));
+            sdU = Math.Sqrt(RowVariance(r, 2, cov));
+        }
+        return new BaselineLoop(points, used, reversed, groups, c.Trivial, wx, wy, wz, c.Length, east, north, up,
+            sdE, sdN, sdU, statistic, chi2, z);
+    }
+
+    /// <summary>rᵢ C rᵢᵀ for row i of R.</summary>
+    private static double RowVariance(double[] r, int i, double[] c)
+    {
+        double v = 0;
+        for (int a = 0; a < 3; a++)
+            for (int b = 0; b < 3; b++) v += r[3 * i + a] * c[3 * a + b] * r[3 * i + b];
+        return v;
+    }
+
+    /// <summary>wᵀ C⁻¹ w by Cholesky; NaN when C is not positive definite.</summary>
+    private static double QuadraticForm(double[] c, double x, double y, double z)
+    {
+        double l00 = c[0];
+        if (!(l00 > 0)) return double.NaN;
+        l00 = Math.Sqrt(l00);
+        double l10 = c[3] / l00, l20 = c[6] / l00;
+        double d1 = c[4] - l10 * l10;
+        if (!(d1 > 0)) return double.NaN;
+        double l11 = Math.Sqrt(d1);
+        double l21 = (c[7] - l20 * l10) / l11;
+        double d2 = c[8] - l20 * l20 - l21 * l21;
+        if (!(d2 > 0)) return double.NaN;
+        double l22 = Math.Sqrt(d2);
+        double y0 = x / l00, y1 = (y - l10 * y0) / l11, y2 = (z - l20 * y0 - l21 * y1) / l22;
+        return y0 * y0 + y1 * y1 + y2 * y2;
+    }
+
+    private static double Norm(BaselineVector v) => Math.Sqrt(v.Dx * v.Dx + v.Dy * v.Dy + v.Dz * v.Dz);
+
+    private static int Other((int A, int B, int Vector) e, int v) => e.A == v ? e.B : e.A;
+}

@@ -1,0 +1,69 @@
+using NetAdjust.Geometry;
+using NetAdjust.Network;
+
+namespace NetAdjust.Observations;
+
+/// <summary>
+/// One component (ΔX, ΔY or ΔZ) of a GNSS baseline (<see cref="BaselineObservation"/>), modelled through the exact
+/// chain grid → geodetic → geocentric (<see cref="BaselineGeometry"/>); its three components share one 3×3 weight
+/// block. It uses the plane coordinates and the heights of both ends and fixes orientation and scale (the vector's
+/// direction and length), not the position nor the height datum.
+/// </summary>
+public sealed class BaselineKind : IObservationKind
+{
+    /// <inheritdoc />
+    public ObservationKind Kind => ObservationKind.Baseline;
+
+    /// <inheritdoc />
+    public string Name => Kind.Name();
+
+    /// <inheritdoc />
+    public UnitClass Unit => UnitClass.Length;
+
+    /// <inheritdoc />
+    public string ReportLabel => "baseline";
+
+    /// <inheritdoc />
+    public CoordinateAxes Axes => CoordinateAxes.Plane | CoordinateAxes.Height;
+
+    /// <inheritdoc />
+    public DatumElements Fixes => DatumElements.Orientation | DatumElements.Scale;
+
+    /// <inheritdoc />
+    public Measurement Measurement => Measurement.Given;
+
+    /// <inheritdoc />
+    public ObservationColumns Columns { get; } = new("gnss.baselines",
+        ["from", "to", "dx", "dy", "dz", "sd", "corr", "cov", "group", "exclude", "sd_factor"],
+        ["from", "to", "dx", "dy", "dz", "sd_x", "sd_y", "sd_z", "r_xy", "r_xz", "r_yz", "group"]);
+
+    /// <inheritdoc />
+    /// <exception cref="InvalidInputException">When the baseline has no grid system with a projection.</exception>
+    public EquationValue Evaluate(Observation observation, ICoordinates at)
+    {
+        ArgumentNullException.ThrowIfNull(observation);
+        ArgumentNullException.ThrowIfNull(at);
+        var b = (BaselineObservation)observation;
+        if (b.Grid?.Projection is not { } projection)
+            throw new InvalidInputException($"{b.Describe()}: a GNSS baseline needs the project's map projection " +
+                "(crs and grid) to be modelled on the grid");
+        BaselineEnd End(string id)
+        {
+            var p = at.Plane(id);
+            double h = at.Height(id);
+            return new BaselineEnd(id, p.E, p.N, h, b.Grid.EllipsoidalHeight(id, h)!.Value - h);
+        }
+        FrameState? frame = b.Frame is { HasRotations: true } f
+            ? new FrameState(f.Id, at.Frame(f.Id, Parameter.FrameRotationX), at.Frame(f.Id, Parameter.FrameRotationY),
+                at.Frame(f.Id, Parameter.FrameRotationZ), f.HasScale ? at.Frame(f.Id, Parameter.FrameScale) : 0,
+                true, f.HasScale)
+            : null;
+        return BaselineGeometry.Component(projection, End(b.From), End(b.To), (int)b.Component, frame);
+    }
+
+    /// <inheritdoc />
+    public string? Instrument(Observation observation) => null;
+
+    /// <inheritdoc />
+    public IReadOnlyList<string> Targets(Observation observation) => [];
+}
