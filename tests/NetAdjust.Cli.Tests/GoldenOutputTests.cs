@@ -34,6 +34,13 @@ public sealed class GoldenOutputTests : IDisposable
         ["robust-huber"] = ["--robust", "huber"],
     };
 
+    // Golden folder name → the extra options of the runs made only on the demos with a planted blunder.
+    private static readonly Dictionary<string, string[]> BlunderVariants = new(StringComparer.Ordinal)
+    {
+        ["diagnose"] = ["--diagnose"],
+        ["snoop-diagnose"] = ["--snoop", "--diagnose"],
+    };
+
     public static TheoryData<string, string> Cases()
     {
         var data = new TheoryData<string, string>();
@@ -44,6 +51,9 @@ public sealed class GoldenOutputTests : IDisposable
                  })
             foreach (var variant in Variants.Keys)
                 data.Add(demo, variant);
+        foreach (var demo in new[] { "harrowfield-blunder", "corvan-fell-target-height" })
+            foreach (var variant in BlunderVariants.Keys)
+                data.Add(demo, variant);
         return data;
     }
 
@@ -53,7 +63,7 @@ public sealed class GoldenOutputTests : IDisposable
     {
         // Run from the repository root with a relative input path, as the outputs name the input as given.
         var args = new List<string> { "adjust", $"data/{demo}.yaml", "--date", RunDate, "--quiet" };
-        args.AddRange(Variants[variant]);
+        args.AddRange(Variants.TryGetValue(variant, out var extra) ? extra : BlunderVariants[variant]);
         foreach (var (option, file) in Outputs) { args.Add(option); args.Add(Path.Combine(_tmp, file)); }
         var run = CliHarness.RunProcess(CliHarness.RepoRoot, [.. args]);
         Assert.True(run.Code == ExitCodes.Success, run.Err);

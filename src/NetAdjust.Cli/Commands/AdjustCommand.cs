@@ -43,6 +43,7 @@ internal static class AdjustCommand
         var quiet = new Option<bool>("--quiet") { Description =
             "Print no progress on standard error (progress is shown only for runs longer than a second)." };
         var stats = new StatisticsCliOptions();
+        var diagnosis = new DiagnosisCliOptions();
         var exchange = ExchangeOutputs.Create();
         var cmd = new Command("adjust",
             "Adjust a project by least squares and report coordinates, residuals and the global test.")
@@ -50,6 +51,7 @@ internal static class AdjustCommand
             file, json, report, date, budgets, sequence, solution, quiet,
         };
         stats.AddTo(cmd);
+        diagnosis.AddTo(cmd);
         exchange.AddTo(cmd);
         cmd.SetAction(parse => CommandRunner.Guard(console, () =>
         {
@@ -94,7 +96,7 @@ internal static class AdjustCommand
                 // The sequence runs two plain adjustments; the blunder hunt, robust and component options do not apply
                 // to it.
                 var clash = parse.Tokens.Select(t => t.Value).FirstOrDefault(t =>
-                    t is "--snoop" or "--robust" or "--components");
+                    t is "--snoop" or "--robust" or "--components" || DiagnosisCliOptions.Names.Contains(t));
                 if (clash is not null)
                     throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
@@ -106,6 +108,7 @@ internal static class AdjustCommand
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
+                context = diagnosis.Run(parse, project, result, context);
                 if (project.Standards.Count > 0)
                     context = context with { Standards = NetAdjust.Standards.StandardsCheck.Apply(result,
                         project.Standards, context.Misclosures) };

@@ -220,7 +220,8 @@ internal static partial class CsvObservationReader
                 throw new ProjectFileException(file, lineNo, Item(), ProjectReader.GuardProblem(e));
             }
             if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, Item()));
-            if (budget is not null) o = o with { Weighting = budget };
+            // the weighting, and the value's text as booked (for the blunder diagnosis): one copy of the row
+            o = o with { Weighting = budget ?? o.Weighting, BookedText = row.Field(cValue) };
             // marks: none in a plain row (ObservationMarks.Apply returns the row as it is for empty marks)
             if (!plain) o = ObservationMarks.Apply(o, Get("exclude"), Get("sd_factor"), file, lineNo, Item());
             result.Add(o);

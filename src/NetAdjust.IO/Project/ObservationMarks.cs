@@ -20,6 +20,7 @@ internal static class ObservationMarks
         if (node is not YamlMappingNode m) return o;
         string? Get(string key) =>
             m.Children.TryGetValue(new YamlScalarNode(key), out var v) ? (v as YamlScalarNode)?.Value ?? "" : null;
+        o = o with { BookedText = Get("value") ?? Get("dh") }; // the value's text as booked, for the diagnosis
         int line = (int)node.Start.Line;
         string item = (o with { Source = null }).Describe(); // the message names file and line itself
         var ex = Get("exclude");

@@ -18,7 +18,7 @@ public static partial class ProjectReader
     private static readonly string[] TopKeys =
         ["project", "units", "adjustment", "default_sd", "points", "setups", "levelling", "files", "instruments",
         "targets", "levels", "statistics", "crs", "datum", "grid",
-        "survey", "refraction_groups", "reduction", "checks", "standards", "gnss"];
+        "survey", "refraction_groups", "reduction", "checks", "standards", "gnss", "diagnosis"];
 
     /// <summary>Reads a project file from disk.</summary>
     /// <param name="path">Path of the YAML project file.</param>
@@ -195,7 +195,7 @@ public static partial class ProjectReader
             Rounds = specs.Rounds,
             Particulars = ReadParticulars(ctx, root), Checks = checks, Standards = standards,
             Instruments = [.. specs.Instruments.Values],
-            GnssFrame = gnss.FrameLabel,
+            GnssFrame = gnss.FrameLabel, Diagnosis = ReadDiagnosis(ctx, root, lengths),
         };
     }
 

@@ -1,3 +1,4 @@
+using NetAdjust.Diagnosis;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 
@@ -54,4 +55,8 @@ public sealed record SurveyProject(SurveyNetwork Network, ProjectUnits Units, Ad
     /// <summary>The frame the GNSS baselines are given in, as the project names it (key <c>gnss.frame</c>, e.g.
     /// <c>ITRF2014 @ 2026.9</c>), for reports; null when not given.</summary>
     public string? GnssFrame { get; init; }
+
+    /// <summary>The options of the blunder diagnosis (key <c>diagnosis</c>: the kinds not tried, the round heights
+    /// and prism constants tried); <see cref="DiagnosisOptions.Default"/> without the key.</summary>
+    public DiagnosisOptions Diagnosis { get; init; } = DiagnosisOptions.Default;
 }

@@ -216,6 +216,7 @@ public static class HtmlReportWriter
         RefractionOutput.AppendHtml(sb, r);
         BaselineSection.AppendHtml(sb, r, c);
         foreach (var section in report.Sections) AppendSection(sb, section);
+        DiagnosisOutput.AppendHtml(sb, report);
 
         sb.Append("<section id=\"caution\">\n<h2>Caution</h2>\n<p class=\"caution\">")
             .Append(E(TextReportWriter.Caution.Replace("\n", " "))).Append("</p>\n");

@@ -118,6 +118,7 @@ public static class JsonResultWriter
                 ExternalReliabilityPoint = null, BiasToNoise = null, Flag = null,
             }, x.Test, 1.0)),
             BlunderHunt = c.Hunt is BlunderHunt h ? Hunt(h) : null,
+            Diagnosis = DiagnosisOutput.Json(report),
             Robust = c.Robust is RobustEstimate rb ? Robust(rb) : null,
             VarianceComponents = c.Components is VarianceComponentEstimate vc ? Components(vc) : null,
             Rounds = RoundsReport.Json(c),

@@ -59,6 +59,11 @@ public sealed record ReportContext(string InputName, DateOnly RunDate, ProjectUn
     /// <summary>The blunder hunt that produced the result, when one was run (its log is reported).</summary>
     public BlunderHunt? Hunt { get; init; }
 
+    /// <summary>The blunder diagnosis (docs/diagnosis.md), when one was run: of the reported adjustment, or, when
+    /// <see cref="Hunt"/> set observations aside, of each of them in the round it was set aside (the outputs say
+    /// which); indices are those of the observation list.</summary>
+    public global::NetAdjust.Diagnosis.Diagnosis? Diagnosis { get; init; }
+
     /// <summary>The robust estimation run beside the result, when one was run.</summary>
     public RobustEstimate? Robust { get; init; }
 

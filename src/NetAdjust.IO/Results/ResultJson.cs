@@ -53,6 +53,9 @@ internal static partial class ResultJson
         public BlunderHunt? BlunderHunt { get; init; }
 
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+        public DiagnosisSection? Diagnosis { get; init; }
+
+        [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
         public Robust? Robust { get; init; }
 
         [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]

@@ -141,6 +141,7 @@ public static class TextReportWriter
         RefractionOutput.AppendText(sb, r);
         BaselineSection.AppendText(sb, r, c);
         StatisticsReport.Append(sb, report.Sections, output);
+        DiagnosisOutput.AppendText(sb, report);
         Line(Caution);
         TextChunks.Drain(sb, output);
     }

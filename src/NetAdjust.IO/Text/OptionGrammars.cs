@@ -1,6 +1,7 @@
 using NetAdjust.Procedures;
 using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
+using NetAdjust.Diagnosis;
 using NetAdjust.Simulation;
 using NetAdjust.IO.Project;
 using NetAdjust.Network;
@@ -95,6 +96,19 @@ public static class OptionGrammars
     /// <summary>The robust re-weighting method (<c>--robust</c>).</summary>
     public static TextChoice<RobustMethod> RobustMethods { get; } = new("a robust method", "huber or danish", false,
         ("huber", RobustMethod.Huber), ("danish", RobustMethod.Danish));
+
+    /// <summary>
+    /// The kinds of field blunder the diagnosis tries (<c>adjust --diagnose-skip</c>, docs/diagnosis.md); the JSON
+    /// result names them with the same words.
+    /// </summary>
+    public static TextChoice<BlunderKind> BlunderKinds { get; } = new("a kind of blunder",
+        "unexplained_bias, target_height, instrument_height, prism_constant, feet_for_metres, survey_foot_for_foot, "
+        + "face_mix_up, transposition, wrong_point or set_backsight", false,
+        ("unexplained_bias", BlunderKind.UnexplainedBias), ("target_height", BlunderKind.TargetHeight),
+        ("instrument_height", BlunderKind.InstrumentHeight), ("prism_constant", BlunderKind.PrismConstant),
+        ("feet_for_metres", BlunderKind.FeetForMetres), ("survey_foot_for_foot", BlunderKind.SurveyFootForFoot),
+        ("face_mix_up", BlunderKind.FaceMixUp), ("transposition", BlunderKind.Transposition),
+        ("wrong_point", BlunderKind.WrongPoint), ("set_backsight", BlunderKind.SetBacksight));
 
     /// <summary>A yes-or-no mark such as <c>exclude</c> (letter case ignored).</summary>
     public static TextChoice<bool> YesNo { get; } = new("true or false", "true or false (also yes/no, 1/0)", true,

@@ -87,7 +87,8 @@ public sealed class FuzzTests : IDisposable
 
         string[] extra = c.Extra switch
         {
-            0 => ["--snoop"], 1 => ["--sequence"], 2 => ["--components"], 4 => ["--robust", "huber"], _ => [],
+            0 => ["--snoop"], 1 => ["--sequence"], 2 => ["--components"], 4 => ["--robust", "huber"],
+            5 => ["--snoop", "--diagnose"], _ => [],
         };
         var watch = Stopwatch.StartNew();
         var (code, _, err) = CliHarness.Run(

@@ -112,6 +112,10 @@ public sealed class ProjectSchemaTests
             "    directions:\n      - {to: B, value: 0-00-00}\n      - {to: C, value: 315-00-00}\n",
             "    rounds:\n      - readings:\n          - {to: B, hz_left: 0-00-00, hz_rigth: 180-00-00}\n",
             "unknown key 'hz_rigth'" },
+        { "unknown kind of blunder", "statistics:", "diagnosis: {skip: [prism]}\nstatistics:", "diagnosis.skip" },
+        { "the reference kind skipped", "statistics:", "diagnosis: {skip: [unexplained_bias]}\nstatistics:",
+            "cannot be skipped" },
+        { "negative round height", "statistics:", "diagnosis: {round_heights: [-0.5]}\nstatistics:", "positive" },
     };
 
     [Fact]

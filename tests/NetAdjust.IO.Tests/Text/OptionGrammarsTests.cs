@@ -1,3 +1,4 @@
+using NetAdjust.Diagnosis;
 using NetAdjust.Procedures;
 using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
@@ -167,6 +168,27 @@ public class OptionGrammarsTests
         Illegal(OptionGrammars.RobustMethods, text, "is not a robust method: use huber or danish");
 
     [Theory]
+    [InlineData("unexplained_bias", BlunderKind.UnexplainedBias)]
+    [InlineData("target_height", BlunderKind.TargetHeight)]
+    [InlineData("instrument_height", BlunderKind.InstrumentHeight)]
+    [InlineData("prism_constant", BlunderKind.PrismConstant)]
+    [InlineData("feet_for_metres", BlunderKind.FeetForMetres)]
+    [InlineData("survey_foot_for_foot", BlunderKind.SurveyFootForFoot)]
+    [InlineData("face_mix_up", BlunderKind.FaceMixUp)]
+    [InlineData(" transposition ", BlunderKind.Transposition)]
+    [InlineData("wrong_point", BlunderKind.WrongPoint)]
+    [InlineData("set_backsight", BlunderKind.SetBacksight)]
+    public void Blunder_kinds_legal(string text, BlunderKind expected) =>
+        Assert.Equal(expected, OptionGrammars.BlunderKinds.Parse(text).Value);
+
+    [Theory]
+    [InlineData("prism")]
+    [InlineData("Target_Height")]
+    [InlineData("target height")]
+    public void Blunder_kinds_illegal(string text) =>
+        Illegal(OptionGrammars.BlunderKinds, text, "is not a kind of blunder: use unexplained_bias, target_height");
+
+    [Theory]
     [InlineData("true", true)]
     [InlineData("YES", true)]
     [InlineData("1", true)]
@@ -258,6 +280,7 @@ public class OptionGrammarsTests
         RoundTrip(OptionGrammars.YesNo);
         RoundTrip(OptionGrammars.SyntheticKinds);
         RoundTrip(OptionGrammars.DemoScenarios);
+        RoundTrip(OptionGrammars.BlunderKinds);
         Assert.Equal("yes", OptionGrammars.YesNo.Words[1]); // an alias reads, but the first word is written
         Assert.Equal("true", OptionGrammars.YesNo.Format(true));
     }
@@ -277,6 +300,7 @@ public class OptionGrammarsTests
         Covers(OptionGrammars.RobustMethods);
         Covers(OptionGrammars.SyntheticKinds);
         Covers(OptionGrammars.DemoScenarios);
+        Covers(OptionGrammars.BlunderKinds);
     }
 
     private static void Illegal<T>(TextChoice<T> grammar, string text, string message)
