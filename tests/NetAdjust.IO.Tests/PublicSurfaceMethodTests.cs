@@ -30,6 +30,10 @@ public sealed partial class PublicSurfaceTests
         ["NetAdjust.Geometry.SpatialGeometry.ZenithByRefraction → return"] = EvaluationSeam
             + "; ∂z/∂k is a coefficient of the design matrix (radians per unit of k), not an angle",
         ["NetAdjust.Adjustment.ParameterState.Orientation → return"] = EvaluationSeam,
+        ["NetAdjust.Adjustment.ParameterState.Frame → return"] = EvaluationSeam
+            + "; the current frame rotation or scale difference of a GNSS frame, as the baseline equation takes it",
+        ["NetAdjust.Observations.ICoordinates.Frame → return"] = EvaluationSeam
+            + "; the current frame rotation or scale difference of a GNSS frame, as the baseline equation takes it",
     };
 
     /// <summary>The reason shared by the seam a projection library is wrapped behind.</summary>
