@@ -42,7 +42,8 @@ public sealed record BlunderHypothesis
     public string Description { get; internal init; }
 
     /// <summary>q, the number of bias parameters (1: one amount, spread over one or more observations by
-    /// the alternative vector c; more than 1: a matrix C, tested by the generalised likelihood ratio statistic).</summary>
+    /// the alternative vector c; more than 1: a matrix C, tested by the generalised likelihood ratio
+    /// statistic).</summary>
     public int Dimension { get; internal init; }
 
     /// <summary>q = 1: the w statistic along c, wc = cᵀPv / (σ0 √(cᵀP Qvv P c)), signed as the

@@ -39,15 +39,16 @@ public readonly record struct ErrorEllipse
     /// <summary>The azimuth of the semi-major axis, clockwise from north, in [0°, 180°).</summary>
     public Angle MajorAxisAzimuth => Angle.FromRadians(Azimuth);
 
-    /// <summary>The azimuth of the semi-major axis in degrees, in [0, 180).</summary>
-    public double AzimuthDegrees => Azimuth * 180.0 / Math.PI;
+    /// <summary>The azimuth of the semi-major axis in degrees, in [0, 180), for the writers (units at the edge);
+    /// the public, typed view is <see cref="MajorAxisAzimuth"/>.</summary>
+    internal double AzimuthDegrees => Azimuth * 180.0 / Math.PI;
 
     /// <summary>
     /// The azimuth of the semi-major axis in degrees rounded to <paramref name="decimals"/> (midpoints away from zero),
     /// still in [0, 180) after rounding: 179.99996° to four decimals is 0, never 180.
     /// </summary>
     /// <param name="decimals">Decimals kept, 0..15.</param>
-    public double AzimuthDegreesRounded(int decimals)
+    internal double AzimuthDegreesRounded(int decimals)
     {
         double x = Math.Round(AzimuthDegrees, decimals, MidpointRounding.AwayFromZero);
         return x >= 180 ? x - 180 : x;
