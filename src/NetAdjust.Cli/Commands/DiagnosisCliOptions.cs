@@ -20,7 +20,8 @@ internal sealed class DiagnosisCliOptions
         Description =
             "Say what probably went wrong in the field for each suspect observation (w-test failure): test each " +
             "kind of field blunder, rank them and print the edit of the project file that would correct an " +
-            "explained one. With --snoop, the suspects of the hunt's first round are diagnosed. NetAdjust never " +
+            "explained one. With --snoop, each observation the hunt set aside is diagnosed in the round it was set " +
+            "aside. NetAdjust never " +
             "changes the input.",
     };
 

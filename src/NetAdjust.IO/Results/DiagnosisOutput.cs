@@ -98,9 +98,13 @@ internal static class DiagnosisOutput
     private static string Headline(SuspectDiagnosis s, Observation o) =>
         $"#{s.Observation + 1} {o.Describe()}: w = {F(s.W)}";
 
-    /// <summary>The verdict on a suspect in words.</summary>
+    /// <summary>The verdict on a suspect in words.
+    /// An explained suspect whose unexplained bias fits as well says so: the data then favour the named cause only
+    /// because its amount is a usual one, which the field book must confirm.</summary>
     private static string Verdict(SuspectDiagnosis s) => s.Explained
-        ? $"explained as {Words(s.Ranked[0].Kind)}"
+        ? $"explained as {Words(s.Ranked[0].Kind)}" + (s.Ranked.Any(h => h.Kind == BlunderKind.UnexplainedBias
+            && h.FitsAfter) ? " (an unexplained bias fits as well: confirm the cause in the field book before "
+            + "applying the edit)" : "")
         : "not explained by a named kind: treat it as an unexplained bias (check the field book, or re-measure)";
 
     private static string Words(BlunderKind kind) => Name(kind).Replace('_', ' ');
