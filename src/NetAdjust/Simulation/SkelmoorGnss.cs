@@ -94,13 +94,14 @@ internal static class SkelmoorGnss
             double zero = noise.Uniform(0, 2 * Math.PI);
             foreach (var t in targets)
             {
-                double value = Geodesic(projection, truth[st], truth[t]) - zero + noise.Gauss(DirectionSd);
-                obs.Add(new DirectionObservation(st, t, Circle(value), st + "/1") { StandardDeviation = DirectionSd });
+                double value = GridTruth.Geodesic(projection, truth[st], truth[t]) - zero + noise.Gauss(DirectionSd);
+                obs.Add(new DirectionObservation(st, t, GridTruth.Circle(value), st + "/1")
+                    { StandardDeviation = DirectionSd });
             }
             if (i < Traverse.Length - 1)
             {
                 string t = Traverse[i + 1];
-                double d = Ground(projection, truth[st], truth[t]) + noise.Gauss(DistanceSd);
+                double d = GridTruth.Ground(projection, truth[st], truth[t], GeoidSeparation) + noise.Gauss(DistanceSd);
                 obs.Add(new DistanceObservation(st, t, Length.FromMetres(d)) { StandardDeviation = DistanceSd });
             }
             setups.Add((st, obs));
@@ -172,23 +173,4 @@ internal static class SkelmoorGnss
         return new DemoBaseline(from, to, dx + (l00 * g0), dy + (l10 * g0) + (l11 * g1),
             dz + (l20 * g0) + (l21 * g1) + (l22 * g2), c, session);
     }
-
-    /// <summary>The grid bearing of the chord minus the arc-to-chord correction: what a direction measured at the
-    /// station gives once oriented on grid north.</summary>
-    private static double Geodesic(IMapProjection p, (double E, double N, double H) a, (double E, double N, double H) b)
-        => Math.Atan2(b.E - a.E, b.N - a.N) - ProjectionFactors.ArcToChord(p, a.E, a.N, b.E, b.N);
-
-    /// <summary>The horizontal ground distance: grid distance / (elevation factor × line scale factor) at the mean
-    /// ellipsoidal height of the line.</summary>
-    private static double Ground(IMapProjection p, (double E, double N, double H) a, (double E, double N, double H) b)
-    {
-        double grid = Math.Sqrt(((b.E - a.E) * (b.E - a.E)) + ((b.N - a.N) * (b.N - a.N)));
-        double k = ProjectionFactors.LineScaleFactor(p, a.E, a.N, b.E, b.N);
-        var (lat, _) = p.Inverse((a.E + b.E) / 2, (a.N + b.N) / 2);
-        double h = ((a.H + b.H) / 2) + GeoidSeparation;
-        double ef = ProjectionFactors.ElevationFactor(p.Ellipsoid, lat, Math.Atan2(b.E - a.E, b.N - a.N), h);
-        return grid / (ef * k);
-    }
-
-    private static Angle Circle(double radians) => Angle.FromRadians(Angle.Reduce0To2Pi(radians));
 }

@@ -54,39 +54,23 @@ internal static class TarnholmGrid
             double zero = noise.Uniform(0, 2 * Math.PI);
             foreach (var t in directions)
             {
-                double value = Geodesic(projection, truth[st], truth[t]) - zero + noise.Gauss(DirectionSd);
-                obs.Add(new DirectionObservation(st, t, Circle(value), st + "/1") { StandardDeviation = DirectionSd });
+                double value = GridTruth.Geodesic(projection, truth[st], truth[t]) - zero + noise.Gauss(DirectionSd);
+                obs.Add(new DirectionObservation(st, t, GridTruth.Circle(value), st + "/1")
+                    { StandardDeviation = DirectionSd });
             }
             foreach (var t in distances)
             {
-                double d = Ground(projection, truth[st], truth[t]) + noise.Gauss(DistanceSd);
+                double d = GridTruth.Ground(projection, truth[st], truth[t], GeoidSeparation) + noise.Gauss(DistanceSd);
                 obs.Add(new DistanceObservation(st, t, Length.FromMetres(d)) { StandardDeviation = DistanceSd });
             }
             setups.Add((st, obs));
         }
         var (from, to) = (truth["S3"], truth["S5"]);
-        double azimuth = Geodesic(projection, from, to) + ProjectionFactors.Convergence(projection, from.E, from.N) +
+        double azimuth =
+            GridTruth.Geodesic(projection, from, to) + ProjectionFactors.Convergence(projection, from.E, from.N) +
             noise.Gauss(AzimuthSd);
-        setups.Add(("S3", [new AzimuthObservation("S3", "S5", Circle(azimuth)) { StandardDeviation = AzimuthSd }]));
+        setups.Add(("S3", [new AzimuthObservation("S3", "S5", GridTruth.Circle(azimuth))
+            { StandardDeviation = AzimuthSd }]));
         return new DemoSurvey(DemoScenario.Tarnholm, seed, points, setups, [], truth, []);
     }
-
-    /// <summary>The grid bearing of the chord minus the arc-to-chord correction: the projected geodesic's bearing at
-    /// the station, i.e. what a direction measured there gives once oriented on grid north.</summary>
-    private static double Geodesic(IMapProjection p, (double E, double N, double H) a, (double E, double N, double H) b)
-        => Math.Atan2(b.E - a.E, b.N - a.N) - ProjectionFactors.ArcToChord(p, a.E, a.N, b.E, b.N);
-
-    /// <summary>The horizontal ground distance: grid distance / (elevation factor × line scale factor), the factors
-    /// taken at the truth and the mean ellipsoidal height of the line.</summary>
-    private static double Ground(IMapProjection p, (double E, double N, double H) a, (double E, double N, double H) b)
-    {
-        double grid = Math.Sqrt(((b.E - a.E) * (b.E - a.E)) + ((b.N - a.N) * (b.N - a.N)));
-        double k = ProjectionFactors.LineScaleFactor(p, a.E, a.N, b.E, b.N);
-        var (lat, _) = p.Inverse((a.E + b.E) / 2, (a.N + b.N) / 2);
-        double h = ((a.H + b.H) / 2) + GeoidSeparation;
-        double ef = ProjectionFactors.ElevationFactor(p.Ellipsoid, lat, Math.Atan2(b.E - a.E, b.N - a.N), h);
-        return grid / (ef * k);
-    }
-
-    private static Angle Circle(double radians) => Angle.FromRadians(Angle.Reduce0To2Pi(radians));
 }
