@@ -26,26 +26,6 @@ internal static class DiagnosisOutput
     public const string NeverChanges =
         "NetAdjust never changes the input: check the field book, apply an edit by hand, then adjust again.";
 
-    /// <summary>What a hypothesis's size measures.</summary>
-    internal enum SizeClass
-    {
-        /// <summary>A length (metres inside).</summary>
-        Length,
-
-        /// <summary>An angle (radians inside).</summary>
-        Angle,
-    }
-
-    /// <summary>What the size of a hypothesis of this kind measures, for a suspect of this observation kind: heights
-    /// and prism constants are lengths, a wrong backsight an angle, and the other kinds (the foot mix-ups included,
-    /// docs/diagnosis.md) a bias of the suspect's own value.</summary>
-    internal static SizeClass ClassOf(BlunderKind kind, ObservationKind suspect) => kind switch
-    {
-        BlunderKind.TargetHeight or BlunderKind.InstrumentHeight or BlunderKind.PrismConstant => SizeClass.Length,
-        BlunderKind.SetBacksight => SizeClass.Angle,
-        _ => ObservationLabels.IsAngular(suspect) ? SizeClass.Angle : SizeClass.Length,
-    };
-
     /// <summary>The word of a kind, as the command line takes it and the JSON writes it (e.g.
     /// <c>target_height</c>).</summary>
     internal static string Name(BlunderKind kind) => OptionGrammars.BlunderKinds.Format(kind);
@@ -115,17 +95,12 @@ internal static class DiagnosisOutput
             s.Indistinguishable.Select(p => $"{Name(p.First)} and {Name(p.Second)}")) + ".";
 
     /// <summary>The size and its sd in the report's units, and the unit's symbol.</summary>
-    private static (string Size, string Sd, string Unit) Size(BlunderHypothesis h, Observation o, ReportUnits units)
+    private static (string Size, string Sd, string Unit) Size(BlunderHypothesis h, ReportUnits units)
     {
-        switch (ClassOf(h.Kind, o.Kind))
-        {
-            case SizeClass.Angle:
-                string A(double? v) => v is double x && double.IsFinite(x) ? units.SmallAngle(x) : "-";
-                return (A(h.Size), A(h.SizeSd), h.Size is null ? "" : units.SmallAngleSymbol);
-            default:
-                return (units.SmallLength(h.Size), units.SmallLength(h.SizeSd),
-                    h.Size is null ? "" : units.LengthSymbol);
-        }
+        if (!h.SizeIsAngle)
+            return (units.SmallLength(h.Size), units.SmallLength(h.SizeSd), h.Size is null ? "" : units.LengthSymbol);
+        string A(double? v) => v is double x && double.IsFinite(x) ? units.SmallAngle(x) : "-";
+        return (A(h.Size), A(h.SizeSd), h.Size is null ? "" : units.SmallAngleSymbol);
     }
 
     /// <summary>Appends the diagnosis to the text report (at most 100 columns); nothing when none was run.</summary>
@@ -150,7 +125,7 @@ internal static class DiagnosisOutput
             int rank = 0;
             foreach (var h in s.Ranked)
             {
-                var (size, sd, unit) = Size(h, o, units);
+                var (size, sd, unit) = Size(h, units);
                 Line($"  {++rank,2} {TextReportWriter.Clip(Name(h.Kind), 20),-20} {h.Dimension,2} " +
                      $"{F(h.Statistic),9} {F(h.CriticalValue),8} {size,10} {sd,8} {unit,-6} " +
                      $"{TextReportWriter.Clip(h.Candidate ?? "-", 13),-13} {After(h.MaxAbsWAfter),6} " +
@@ -215,7 +190,7 @@ internal static class DiagnosisOutput
             int rank = 0;
             foreach (var h in s.Ranked)
             {
-                var (size, sd, unit) = Size(h, o, units);
+                var (size, sd, unit) = Size(h, units);
                 sb.Append("<tr><td class=\"num\">").Append(++rank).Append("</td><td>").Append(E(Name(h.Kind)))
                   .Append("</td><td>").Append(E(h.Description + Group(h))).Append("</td><td class=\"num\">")
                   .Append(h.Dimension.ToString(Inv)).Append("</td><td class=\"num\">").Append(F(h.Statistic))
@@ -262,12 +237,11 @@ internal static class DiagnosisOutput
 
     private static ResultJson.Hypothesis Hypothesis(BlunderHypothesis h, Observation o, int index)
     {
-        var cls = ClassOf(h.Kind, o.Kind);
-        double factor = cls == SizeClass.Angle ? Angle.ArcsecondsPerRadian : 1.0;
+        double factor = h.SizeIsAngle ? Angle.ArcsecondsPerRadian : 1.0;
         return new ResultJson.Hypothesis(Name(h.Kind), h.Description, h.Observations, h.Dimension,
             JsonResultWriter.Finite(h.Statistic), JsonResultWriter.Finite(h.CriticalValue),
             JsonResultWriter.Finite(h.Size * factor), JsonResultWriter.Finite(h.SizeSd * factor),
-            cls == SizeClass.Angle ? "arcsec" : "m", h.Candidate,
+            h.SizeIsAngle ? "arcsec" : "m", h.Candidate,
             JsonResultWriter.Finite(h.MaxAbsWAfter), h.FitsAfter,
             h.Edit is SuggestedEdit e ? new ResultJson.Edit(e.Source, e.Item, e.Booked, e.Suggested,
                 EditLine(e, o, index)) : null);

@@ -156,7 +156,9 @@ public static partial class BlunderDiagnosis
         double sd = t.Sigma0 / Math.Sqrt(m);
         if (lo is not null && lo.Estimate(trial.C) is var (s2, sd2)) (size, sd) = (s2, sd2);
         int r = t.DegreesOfFreedom;
-        bool angular = trial.Applies == Correction.Values && trial.Observations.Count > 0
+        // the size is a wrong height (a length) for the height kinds, else a bias of the observations' own values
+        bool angular = trial.Applies is not (Correction.TargetHeight or Correction.InstrumentHeight)
+            && trial.Observations.Count > 0
             && Network.ObservationKinds.ValueIsAngle(t.Result.Observations[trial.Observations[0]].Input.Kind);
 
         (double MaxW, double P, bool Fits) Fit(double nabla, int dof)
@@ -187,14 +189,13 @@ public static partial class BlunderDiagnosis
                     alt, trial, size, null);
             }
             return new Tested(new BlunderHypothesis(trial.Kind, best.Description, trial.Observations, 1, wc, crit,
-                size, sd, best.Label, bestFit.MaxW, bestFit.Fits, best.Edit) { FitAfter = bestFit.P,
-                    SizeIsAngle = angular },
-                alt, trial,
-                best.Nabla, best);
+                size, sd, best.Label, bestFit.MaxW, bestFit.Fits, best.Edit)
+                { FitAfter = bestFit.P, SizeIsAngle = angular }, alt, trial, best.Nabla, best);
         }
         if (best is null) return null;
         return new Tested(new BlunderHypothesis(trial.Kind, best.Description, trial.Observations, 1, wc, crit,
-            null, null, best.Label, bestFit.MaxW, bestFit.Fits, best.Edit) { FitAfter = bestFit.P }, alt, trial,
+            null, null, best.Label, bestFit.MaxW, bestFit.Fits, best.Edit)
+            { FitAfter = bestFit.P, SizeIsAngle = angular }, alt, trial,
             best.Nabla, best);
     }
 

@@ -42,9 +42,10 @@ public sealed class DiagnosisOutputTests
         [
             new BlunderHypothesis(BlunderKind.UnexplainedBias, "direction H3→H4 biased by a free amount",
                 [Direction], 1, 3.32, 3.29, Angle.FromArcseconds(10).Radians, Angle.FromArcseconds(3).Radians, null,
-                2.10, false, null),
+                2.10, false, null) { SizeIsAngle = true },
             new BlunderHypothesis(BlunderKind.SetBacksight, "the set at H3 rotated", [22, 23, Direction], 3, 4.0,
-                16.27, Angle.FromArcseconds(-6).Radians, Angle.FromArcseconds(2).Radians, null, 3.10, false, null),
+                16.27, Angle.FromArcseconds(-6).Radians, Angle.FromArcseconds(2).Radians, null, 3.10, false, null)
+                { SizeIsAngle = true },
         ], [], false),
     ], DiagnosisOptions.Default);
 

@@ -173,5 +173,8 @@ public class DemoDiagnosisTests
         Assert.InRange(bias.Size!.Value, 0.040 - (3 * bias.SizeSd!.Value), 0.040 + (3 * bias.SizeSd.Value));
         Assert.Equal(bias.SizeSd.Value, bias.EstimatedSizeSd!.Value.AsLength!.Value.Metres);
         Assert.True(bias.FitsAfter);
+        // a free bias of a direction suspect is an angle (the outputs print it in arcseconds)
+        var direction = d.Suspects.First(x => net.Observations[x.Observation].Kind == ObservationKind.Direction);
+        Assert.True(direction.Ranked.Single(h => h.Kind == BlunderKind.UnexplainedBias).EstimatedSize!.Value.IsAngle);
     }
 }
