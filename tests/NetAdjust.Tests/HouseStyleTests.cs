@@ -35,7 +35,7 @@ public class HouseStyleTests
             $"{tooLong.Count} lines longer than {MaxLineLength} characters:\n" + string.Join("\n", tooLong));
     }
 
-    private static string RepoRoot()
+    internal static string RepoRoot()
     {
         var d = new DirectoryInfo(AppContext.BaseDirectory);
         while (d is not null && !File.Exists(Path.Combine(d.FullName, "NetAdjust.sln"))) d = d.Parent;
