@@ -187,6 +187,8 @@ internal static partial class CsvObservationReader
                 return lastSetId!;
             }
             string source = $"{file}:{lineNo}";
+            // the value's text as booked (for the blunder diagnosis): one copy of the row
+            string booked = row.Field(cValue);
             if (!plain) CheckTotalStationFields(kind, get, file, lineNo, Item());
             Observation o;
             try
@@ -195,22 +197,24 @@ internal static partial class CsvObservationReader
                 {
                     ObservationKind.Distance =>
                         new DistanceObservation(Need("from", from), Need("to", to), LValue())
-                        { StandardDeviation = sd, Source = source },
+                        { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Azimuth =>
                         new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
-                        Source = source },
+                        Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Angle =>
                         new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
-                        A()) { StandardDeviation = sd, Source = source },
+                        A()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
-                        SetId()) { StandardDeviation = sd, Source = source },
+                        SetId()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from),
                         Need("to", to), LValue(),
                         Get("length").Length > 0 ? L(Get("length")) : null)
-                    { StandardDeviation = sd, Source = source },
+                    { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.SlopeDistance or ObservationKind.Zenith =>
                         Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get, L, angles,
-                            specs, file, lineNo, Item()) with { StandardDeviation = sd, Source = source },
+                            specs, file, lineNo, Item()) is var t ? t with
+                            { StandardDeviation = sd, Source = source, Weighting = budget ?? t.Weighting,
+                                BookedText = booked } : t,
                     _ => throw new ProjectFileException(file, lineNo, Item(), $"a {kind.Name().Replace('_', ' ')} " +
                         "is not read from CSV: write it in the project file"),
                 };
@@ -220,8 +224,6 @@ internal static partial class CsvObservationReader
                 throw new ProjectFileException(file, lineNo, Item(), ProjectReader.GuardProblem(e));
             }
             if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, Item()));
-            // the weighting, and the value's text as booked (for the blunder diagnosis): one copy of the row
-            o = o with { Weighting = budget ?? o.Weighting, BookedText = row.Field(cValue) };
             // marks: none in a plain row (ObservationMarks.Apply returns the row as it is for empty marks)
             if (!plain) o = ObservationMarks.Apply(o, Get("exclude"), Get("sd_factor"), file, lineNo, Item());
             result.Add(o);
