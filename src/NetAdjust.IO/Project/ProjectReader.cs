@@ -98,9 +98,9 @@ public static partial class ProjectReader
         YamlMappingNode root;
         try
         {
-            YamlGuard.Check(text, displayName);
+            // one pass: the guard checks each event before the document model takes it
             var stream = new YamlStream();
-            stream.Load(new StringReader(text));
+            stream.Load(new YamlGuard(text, displayName));
             if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
                 throw new ProjectFileException(displayName, 1, "",
                     "the project file must be a YAML mapping with keys such as 'points' and 'setups'");
