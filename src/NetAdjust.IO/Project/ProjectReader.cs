@@ -146,6 +146,7 @@ public static partial class ProjectReader
         var listedTwice = new List<string>();
         if (ctx.Child(root, "files") is YamlNode files)
         {
+            string[] pointIds = [.. points.Select(p => p.Id)]; // the strings the files' point ids share
             foreach (var node in ctx.Sequence(files, "files"))
             {
                 string rel = ctx.Scalar(node, "a CSV file path");
@@ -160,7 +161,7 @@ public static partial class ProjectReader
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
                 observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                    specs.WeightingOfLevel, CsvSpecifications(specs)));
+                    specs.WeightingOfLevel, CsvSpecifications(specs), pointIds));
             }
         }
 
