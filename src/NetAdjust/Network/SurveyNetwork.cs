@@ -18,7 +18,7 @@ public sealed class SurveyNetwork
         Name = name;
         Points = ReadOnlyCopies.List(points);
         Observations = ReadOnlyCopies.List(observations);
-        _index = new Dictionary<string, int>(StringComparer.Ordinal);
+        _index = new Dictionary<string, int>(Points.Count, StringComparer.Ordinal);
         var problems = new List<string>();
         for (int i = 0; i < Points.Count; i++)
         {
