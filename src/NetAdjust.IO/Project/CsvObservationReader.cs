@@ -23,6 +23,9 @@ internal static partial class CsvObservationReader
     private static readonly Dictionary<string, ObservationKind> KindByName =
         ObservationKinds.All.ToDictionary(k => k.Name(), StringComparer.Ordinal);
 
+    private static readonly Dictionary<string, ObservationKind>.AlternateLookup<ReadOnlySpan<char>> KindOfChars =
+        KindByName.GetAlternateLookup<ReadOnlySpan<char>>();
+
     /// <summary>Weighting of a height difference from a named level: (level id, section length, setups, runs) →
     /// weighting; throws <see cref="InvalidInputException"/>.</summary>
     internal delegate ObservationWeighting LevelBudget(string level, Length? length, int? setups, int? runs);
@@ -30,14 +33,15 @@ internal static partial class CsvObservationReader
     public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles,
         ProjectUnits units,
         IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null,
-        CsvSpecifications? specs = null)
+        CsvSpecifications? specs = null, IReadOnlyCollection<string>? pointIds = null)
     {
-        var result = new List<Observation>();
+        // a row per line at most: the list is not grown row by row
+        var result = new List<Observation>(text.AsSpan().Count('\n') + 1);
         var slopes = new List<(SlopeDistanceObservation Slope, int Line, string Item)>();
         // The row's fields as ranges of the text; each becomes a string only when asked (CsvRow): a row of the
         // usual kinds with no marks or instrument fields makes strings only for its point ids (shared) and its
         // source.
-        var row = new CsvRow(text);
+        var row = new CsvRow(text, pointIds);
         Dictionary<string, int>? col = null;
         int cKind = -1, cAt = -1, cFrom = -1, cTo = -1, cValue = -1, cSd = -1, cSet = -1;
         int[] optional = [];
@@ -81,14 +85,13 @@ internal static partial class CsvObservationReader
             if (row.Count != col.Count)
                 throw new ProjectFileException(file, lineNo, "",
                     $"expected {col.Count} fields as in the header, found {row.Count}");
-            string kindText = row.Field(cKind);
-            var kind = (KindByName.TryGetValue(kindText, out var named) ? named : (ObservationKind?)null)
-                ?? throw new ProjectFileException(file, lineNo, kindText,
+            var kind = (KindOfChars.TryGetValue(row.Chars(cKind), out var named) ? named : (ObservationKind?)null)
+                ?? throw new ProjectFileException(file, lineNo, row.Field(cKind),
                     $"unknown observation kind (expected one of: " +
                     $"{string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");
             string at = row.Id(cAt), from = row.Id(cFrom), to = row.Id(cTo);
             string Need(string name, string v) =>
-                v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, kindText,
+                v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, row.Field(cKind),
                 $"the '{name}' field is empty");
             // the item named in messages, made only for a message or a row that needs it
             string? itemText = null;
@@ -187,6 +190,8 @@ internal static partial class CsvObservationReader
                 return lastSetId!;
             }
             string source = $"{file}:{lineNo}";
+            // the value's text as booked (for the blunder diagnosis): one copy of the row
+            string booked = row.Field(cValue);
             if (!plain) CheckTotalStationFields(kind, get, file, lineNo, Item());
             Observation o;
             try
@@ -195,22 +200,24 @@ internal static partial class CsvObservationReader
                 {
                     ObservationKind.Distance =>
                         new DistanceObservation(Need("from", from), Need("to", to), LValue())
-                        { StandardDeviation = sd, Source = source },
+                        { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Azimuth =>
                         new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
-                        Source = source },
+                        Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Angle =>
                         new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
-                        A()) { StandardDeviation = sd, Source = source },
+                        A()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
-                        SetId()) { StandardDeviation = sd, Source = source },
+                        SetId()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from),
                         Need("to", to), LValue(),
                         Get("length").Length > 0 ? L(Get("length")) : null)
-                    { StandardDeviation = sd, Source = source },
+                    { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
                     ObservationKind.SlopeDistance or ObservationKind.Zenith =>
                         Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get, L, angles,
-                            specs, file, lineNo, Item()) with { StandardDeviation = sd, Source = source },
+                            specs, file, lineNo, Item()) is var t ? t with
+                            { StandardDeviation = sd, Source = source, Weighting = budget ?? t.Weighting,
+                                BookedText = booked } : t,
                     _ => throw new ProjectFileException(file, lineNo, Item(), $"a {kind.Name().Replace('_', ' ')} " +
                         "is not read from CSV: write it in the project file"),
                 };
@@ -220,8 +227,6 @@ internal static partial class CsvObservationReader
                 throw new ProjectFileException(file, lineNo, Item(), ProjectReader.GuardProblem(e));
             }
             if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, Item()));
-            // the weighting, and the value's text as booked (for the blunder diagnosis): one copy of the row
-            o = o with { Weighting = budget ?? o.Weighting, BookedText = row.Field(cValue) };
             // marks: none in a plain row (ObservationMarks.Apply returns the row as it is for empty marks)
             if (!plain) o = ObservationMarks.Apply(o, Get("exclude"), Get("sd_factor"), file, lineNo, Item());
             result.Add(o);

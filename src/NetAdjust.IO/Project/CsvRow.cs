@@ -9,11 +9,23 @@ namespace NetAdjust.IO.Project;
 /// file's text: a field becomes a string only when asked, and point ids are shared (one string per id of the file).
 /// Reused from line to line by <see cref="CsvObservationReader"/>.
 /// </summary>
-internal sealed class CsvRow(string text)
+internal sealed class CsvRow
 {
     private const NumberStyles Number =
         NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint | NumberStyles.AllowExponent;
-    private readonly Dictionary<string, string> _ids = new(StringComparer.Ordinal);
+    private readonly string text;
+    private readonly Dictionary<string, string> _ids;
+    private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _idLookup;
+
+    /// <summary>The rows of <paramref name="text"/>; <paramref name="knownIds"/> (e.g. the project's points) are the
+    /// strings its point ids share.</summary>
+    public CsvRow(string text, IReadOnlyCollection<string>? knownIds = null)
+    {
+        this.text = text;
+        _ids = new(knownIds?.Count ?? 0, StringComparer.Ordinal);
+        if (knownIds is not null) foreach (string id in knownIds) _ids.TryAdd(id, id);
+        _idLookup = _ids.GetAlternateLookup<ReadOnlySpan<char>>();
+    }
     private int[] _start = new int[16], _length = new int[16];
     private string?[] _strings = new string?[16];
 
@@ -68,14 +80,16 @@ internal sealed class CsvRow(string text)
     public string Id(int k)
     {
         if (IsEmpty(k)) return "";
-        var lookup = _ids.GetAlternateLookup<ReadOnlySpan<char>>();
-        if (!lookup.TryGetValue(Span(k), out var id))
+        if (!_idLookup.TryGetValue(Span(k), out var id))
         {
             id = Span(k).ToString();
             _ids[id] = id;
         }
         return id;
     }
+
+    /// <summary>The field's characters (empty when empty or absent), without a string.</summary>
+    public ReadOnlySpan<char> Chars(int k) => IsEmpty(k) ? [] : Span(k);
 
     /// <summary>True when the field holds the same characters as <paramref name="s"/>.</summary>
     public bool FieldEquals(int k, string? s) => s is not null && !IsEmpty(k) && Span(k).SequenceEqual(s);

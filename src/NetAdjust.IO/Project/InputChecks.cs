@@ -16,15 +16,33 @@ internal static class InputChecks
     {
         foreach (var p in points)
         {
+            // the values in the order e, n, h, then sd_e, sd_n, sd_h; the place is made for an error only
+            Coordinate(p, "e", p.E, file);
+            Coordinate(p, "n", p.N, file);
+            Coordinate(p, "h", p.H, file);
+            Sd(p, "sd_e", p.SdE, file);
+            Sd(p, "sd_n", p.SdN, file);
+            Sd(p, "sd_h", p.SdH, file);
+        }
+    }
+
+    private static void Coordinate(Point p, string key, double? v, string file)
+    {
+        if (v is double x && !(Math.Abs(x) <= InputLimits.MaxCoordinate))
+        {
             var (f, line) = Where(p.Source, file);
-            foreach (var (key, v) in new[] { ("e", p.E), ("n", p.N), ("h", p.H) })
-                if (v is double x && !(Math.Abs(x) <= InputLimits.MaxCoordinate))
-                    throw new ProjectFileException(f, line, "point " + p.Id,
-                        $"{key} = {G(x)} m is beyond the limit of ±1e8 m for coordinates and heights " +
-                            $"(docs/input-format.md, \"Limits\")");
-            foreach (var (key, v) in new[] { ("sd_e", p.SdE), ("sd_n", p.SdN), ("sd_h", p.SdH) })
-                if (v is double sd && InputLimits.SdProblem(sd, angular: false) is string problem)
-                    throw new ProjectFileException(f, line, "point " + p.Id, $"{key}: {problem}");
+            throw new ProjectFileException(f, line, "point " + p.Id,
+                $"{key} = {G(x)} m is beyond the limit of ±1e8 m for coordinates and heights " +
+                    $"(docs/input-format.md, \"Limits\")");
+        }
+    }
+
+    private static void Sd(Point p, string key, double? v, string file)
+    {
+        if (v is double sd && InputLimits.SdProblem(sd, angular: false) is string problem)
+        {
+            var (f, line) = Where(p.Source, file);
+            throw new ProjectFileException(f, line, "point " + p.Id, $"{key}: {problem}");
         }
     }
 

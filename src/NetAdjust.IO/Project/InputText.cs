@@ -12,7 +12,26 @@ internal static class InputText
     /// as /dev/zero).</summary>
     public static byte[] ReadBounded(Stream stream, string file)
     {
+        // a file of known length is read straight into its array (no growing buffer, no copy)
+        if (stream.CanSeek && stream.Length - stream.Position is long left and <= InputLimits.MaxFileBytes)
+        {
+            var bytes = new byte[left];
+            int got = stream.ReadAtLeast(bytes, bytes.Length, throwOnEndOfStream: false);
+            if (got < bytes.Length) return bytes.AsSpan(0, got).ToArray(); // it shrank meanwhile
+            int next = stream.ReadByte();
+            if (next < 0) return bytes;
+            // it grew meanwhile: read on as for a stream of unknown length
+            using var grown = new MemoryStream();
+            grown.Write(bytes);
+            grown.WriteByte((byte)next);
+            return ReadOn(stream, grown, file);
+        }
         using var buffer = new MemoryStream();
+        return ReadOn(stream, buffer, file);
+    }
+
+    private static byte[] ReadOn(Stream stream, MemoryStream buffer, string file)
+    {
         var chunk = new byte[81920];
         int n;
         while ((n = stream.Read(chunk, 0, chunk.Length)) > 0)

@@ -93,10 +93,13 @@ public static partial class ProjectReader
         foreach (var p in points)
         {
             if (p.H is not null || !needed.Contains(p.Id)) continue;
-            var node = ctx.Sequence(ctx.Child(root, "points")!, "points").First(n =>
-                n is YamlMappingNode pm && ctx.Child(pm, "id") is YamlScalarNode s && s.Value == p.Id);
-            throw ctx.Error(node, "point " + p.Id, "has no height, but the project's distances are ground " +
-                "distances on a projection: give the point a height (h) or the project a grid.mean_height");
+            // the point's line is in its source (file:line), whether the list was read from its lines or not
+            int colon = p.Source?.LastIndexOf(':') ?? -1;
+            int line = colon > 0 && int.TryParse(p.Source.AsSpan(colon + 1), System.Globalization.NumberStyles.None,
+                System.Globalization.CultureInfo.InvariantCulture, out int l) ? l : Line(root);
+            throw new ProjectFileException(ctx.File, line, "point " + p.Id, "has no height, but the project's " +
+                "distances are ground distances on a projection: give the point a height (h) or the project a " +
+                "grid.mean_height");
         }
     }
 

@@ -95,32 +95,15 @@ public static partial class ProjectReader
         Func<string, string, string> readFile, bool planned = false)
     {
         var ctx = new Context(displayName) { Planned = planned };
+        // a points list of one plain entry per line is read from its lines, the rest by the document model
+        // (any doubt, and any error, goes to the document model reading the whole text, as without the lines)
+        var pointLines = PointLines.Find(text);
         YamlMappingNode root;
-        try
-        {
-            YamlGuard.Check(text, displayName);
-            var stream = new YamlStream();
-            stream.Load(new StringReader(text));
-            if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
-                throw new ProjectFileException(displayName, 1, "",
-                    "the project file must be a YAML mapping with keys such as 'points' and 'setups'");
-            root = m;
-        }
-        catch (YamlException e)
-        {
-            throw new ProjectFileException(displayName, (int)e.Start.Line, "",
-                "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
-        }
-        catch (ArgumentException) // YamlDotNet's document model refuses some event orders the parser lets through
-        {
-            throw YamlGuard.Unreadable(displayName, text);
-        }
-        // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
-        catch (InvalidOperationException)
-        {
-            throw UnclosedBracket(displayName, text);
-        }
-
+        try { root = Load(pointLines?.Blanked ?? text, text, displayName); }
+        catch (ProjectFileException) when (pointLines is not null) { (pointLines, root) = (null, Load(text, text,
+            displayName)); }
+        if (pointLines is not null && !HoldsEmptyPoints(ctx, root, pointLines.KeyLine))
+            (pointLines, root) = (null, Load(text, text, displayName));
         ctx.CheckKeys(root, TopKeys, "the project");
         string name = ctx.OptionalString(root, "project") ?? Path.GetFileNameWithoutExtension(displayName);
         var units = ReadUnits(ctx, root);
@@ -131,10 +114,16 @@ public static partial class ProjectReader
         options = options with { Datum = ReadDatum(ctx, root) };
         var defaults = ReadDefaults(ctx, root, units);
 
-        var points = new List<Point>();
-        if (ctx.Child(root, "points") is YamlNode pts)
-            foreach (var node in ctx.Sequence(pts, "points"))
-                points.Add(Guarded(ctx, node, "a point", () => ReadPoint(ctx, node, lengths)));
+        var points = pointLines?.Read(displayName, lengths);
+        if (pointLines is not null && points is null) // an entry the lines do not take: the model names its problem
+            root = Load(text, text, displayName);
+        if (points is null)
+        {
+            points = [];
+            if (ctx.Child(root, "points") is YamlNode pts)
+                foreach (var node in ctx.Sequence(pts, "points"))
+                    points.Add(Guarded(ctx, node, "a point", () => ReadPoint(ctx, node, lengths)));
+        }
         InputChecks.Points(points, displayName);
 
         var specs = ReadSpecifications(ctx, root, units, points);
@@ -157,6 +146,7 @@ public static partial class ProjectReader
         var listedTwice = new List<string>();
         if (ctx.Child(root, "files") is YamlNode files)
         {
+            string[] pointIds = [.. points.Select(p => p.Id)]; // the strings the files' point ids share
             foreach (var node in ctx.Sequence(files, "files"))
             {
                 string rel = ctx.Scalar(node, "a CSV file path");
@@ -171,7 +161,7 @@ public static partial class ProjectReader
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
                 observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                    specs.WeightingOfLevel, CsvSpecifications(specs)));
+                    specs.WeightingOfLevel, CsvSpecifications(specs), pointIds));
             }
         }
 
@@ -197,6 +187,46 @@ public static partial class ProjectReader
             Instruments = [.. specs.Instruments.Values],
             GnssFrame = gnss.FrameLabel, Diagnosis = ReadDiagnosis(ctx, root, lengths),
         };
+    }
+
+    /// <summary>Loads the project's YAML (<paramref name="yaml"/>: the project <paramref name="text"/> or its text with
+    /// the point lines emptied) as one mapping; errors name the file and line.</summary>
+    private static YamlMappingNode Load(string yaml, string text, string displayName)
+    {
+        try
+        {
+            // one pass: the guard checks each event before the document model takes it
+            var stream = new YamlStream();
+            stream.Load(new YamlGuard(yaml, displayName));
+            if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode m)
+                throw new ProjectFileException(displayName, 1, "",
+                    "the project file must be a YAML mapping with keys such as 'points' and 'setups'");
+            return m;
+        }
+        catch (YamlException e)
+        {
+            throw new ProjectFileException(displayName, (int)e.Start.Line, "",
+                "this is not valid YAML: " + FirstLine(e.InnerException?.Message ?? e.Message));
+        }
+        catch (ArgumentException) // YamlDotNet's document model refuses some event orders the parser lets through
+        {
+            throw YamlGuard.Unreadable(displayName, text);
+        }
+        // YamlDotNet's scanner fails this way on an unclosed '{' or '[' before a new line
+        catch (InvalidOperationException)
+        {
+            throw UnclosedBracket(displayName, text);
+        }
+    }
+
+    /// <summary>True when the top-level key 'points' stands at <paramref name="line"/> with no value (the document
+    /// model's view of the text whose point lines were emptied).</summary>
+    private static bool HoldsEmptyPoints(Context ctx, YamlMappingNode root, int line)
+    {
+        foreach (var (k, v) in root.Children)
+            if (k is YamlScalarNode { Value: "points" } key)
+                return Line(key) == line && v is YamlScalarNode && ctx.Child(root, "points") is null;
+        return false;
     }
 
     internal static int Line(YamlNode node) => (int)node.Start.Line;

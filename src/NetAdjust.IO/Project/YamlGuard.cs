@@ -4,82 +4,99 @@ using YamlDotNet.Core.Events;
 namespace NetAdjust.IO.Project;
 
 /// <summary>
-/// Checks project YAML before the document model is built (which recurses once per nesting level): one document
-/// only, nesting within <see cref="InputLimits.MaxNestingDepth"/>, values within <see
-/// cref="InputLimits.MaxValueLength"/>,
-/// every alias defined earlier. Parser errors are given the line of the offending character.
+/// The parser of project YAML, checking each event as the document model takes it (one pass over the text): one
+/// document only, nesting within <see cref="InputLimits.MaxNestingDepth"/> (checked before the model, which recurses
+/// once per nesting level, goes deeper), values within <see cref="InputLimits.MaxValueLength"/>, every alias defined
+/// earlier. Parser errors are given the line of the offending character.
 /// </summary>
-internal static class YamlGuard
+internal sealed class YamlGuard : IParser
 {
-    public static void Check(string text, string file)
+    private readonly Parser _parser;
+    private readonly string _text, _file;
+    private readonly HashSet<string> _anchors = new(StringComparer.Ordinal);
+    private readonly Stack<string?> _open = new(); // the anchors of the mappings and lists being read
+    private int _depth, _documents, _lastLine = 1;
+
+    /// <summary>A guarded parser over <paramref name="text"/>; errors name <paramref name="file"/>.</summary>
+    public YamlGuard(string text, string file)
     {
-        var parser = new Parser(new StringReader(text));
-        var anchors = new HashSet<string>(StringComparer.Ordinal);
-        var open = new Stack<string?>(); // the anchors of the mappings and lists being read
-        int depth = 0, documents = 0, lastLine = 1;
+        _parser = new Parser(new StringReader(text));
+        (_text, _file) = (text, file);
+    }
+
+    /// <inheritdoc />
+    public ParsingEvent? Current => _parser.Current;
+
+    /// <inheritdoc />
+    public bool MoveNext()
+    {
+        bool more;
         try
         {
-            while (parser.MoveNext())
-            {
-                var ev = parser.Current!;
-                int line = (int)ev.Start.Line;
-                lastLine = Math.Max(1, line);
-                switch (ev)
-                {
-                    case DocumentStart:
-                        if (++documents > 1)
-                            throw new ProjectFileException(file, line, "",
-                                "a second YAML document ('---') follows the project: a project file holds one " +
-                                    "document");
-                        break;
-                    case MappingStart or SequenceStart:
-                        if (++depth > InputLimits.MaxNestingDepth)
-                            throw new ProjectFileException(file, line, "",
-                                $"mappings and lists are nested deeper than {InputLimits.MaxNestingDepth} levels " +
-                                "(docs/input-format.md, \"Limits\")");
-                        Anchor(((NodeEvent)ev).Anchor);
-                        open.Push(((NodeEvent)ev).Anchor.IsEmpty ? null : ((NodeEvent)ev).Anchor.Value);
-                        break;
-                    case MappingEnd or SequenceEnd:
-                        depth--;
-                        if (open.Count > 0) open.Pop();
-                        break;
-                    case Scalar s:
-                        if (s.Value.Length > InputLimits.MaxValueLength && !(s.Value.Length <= InputLimits.MaxWktLength
-                            && s.Value.StartsWith("PROJCS[", StringComparison.OrdinalIgnoreCase)))
-                            throw new ProjectFileException(file, line, "",
-                                $"a value of {s.Value.Length} characters is longer than the limit of " +
-                                    $"{InputLimits.MaxValueLength} " +
-                                $"(it starts '{InputLimits.Excerpt(s.Value)}'; docs/input-format.md, \"Limits\")");
-                        Anchor(s.Anchor);
-                        break;
-                    case AnchorAlias a:
-                        if (!anchors.Contains(a.Value.Value))
-                            throw new ProjectFileException(file, line, "",
-                                $"this is not valid YAML: the alias '*{InputLimits.Excerpt(a.Value.Value)}' " +
-                                    $"names no anchor defined above");
-                        // an alias inside the node it names makes a structure that holds itself
-                        if (open.Contains(a.Value.Value))
-                            throw new ProjectFileException(file, line, "",
-                                $"the alias '*{InputLimits.Excerpt(a.Value.Value)}' stands inside the list or " +
-                                    "mapping it names (a structure that holds itself): write the values out");
-                        break;
-                }
-            }
+            more = _parser.MoveNext();
         }
         catch (YamlException e)
         {
-            throw Explain(file, text, e);
+            throw Explain(_file, _text, e);
         }
         catch (InvalidOperationException) // YamlDotNet's scanner fails this way, e.g. on an unclosed '{' or '['
         {
-            throw ProjectReader.UnclosedBracket(file, text, lastLine);
+            throw ProjectReader.UnclosedBracket(_file, _text, _lastLine);
         }
+        if (more) Check(_parser.Current!);
+        return more;
+    }
 
-        void Anchor(AnchorName name)
+    private void Check(ParsingEvent ev)
+    {
+        int line = (int)ev.Start.Line;
+        _lastLine = Math.Max(1, line);
+        switch (ev)
         {
-            if (!name.IsEmpty) anchors.Add(name.Value);
+            case DocumentStart:
+                if (++_documents > 1)
+                    throw new ProjectFileException(_file, line, "",
+                        "a second YAML document ('---') follows the project: a project file holds one " +
+                            "document");
+                break;
+            case MappingStart or SequenceStart:
+                if (++_depth > InputLimits.MaxNestingDepth)
+                    throw new ProjectFileException(_file, line, "",
+                        $"mappings and lists are nested deeper than {InputLimits.MaxNestingDepth} levels " +
+                        "(docs/input-format.md, \"Limits\")");
+                Anchor(((NodeEvent)ev).Anchor);
+                _open.Push(((NodeEvent)ev).Anchor.IsEmpty ? null : ((NodeEvent)ev).Anchor.Value);
+                break;
+            case MappingEnd or SequenceEnd:
+                _depth--;
+                if (_open.Count > 0) _open.Pop();
+                break;
+            case Scalar s:
+                if (s.Value.Length > InputLimits.MaxValueLength && !(s.Value.Length <= InputLimits.MaxWktLength
+                    && s.Value.StartsWith("PROJCS[", StringComparison.OrdinalIgnoreCase)))
+                    throw new ProjectFileException(_file, line, "",
+                        $"a value of {s.Value.Length} characters is longer than the limit of " +
+                            $"{InputLimits.MaxValueLength} " +
+                        $"(it starts '{InputLimits.Excerpt(s.Value)}'; docs/input-format.md, \"Limits\")");
+                Anchor(s.Anchor);
+                break;
+            case AnchorAlias a:
+                if (!_anchors.Contains(a.Value.Value))
+                    throw new ProjectFileException(_file, line, "",
+                        $"this is not valid YAML: the alias '*{InputLimits.Excerpt(a.Value.Value)}' " +
+                            $"names no anchor defined above");
+                // an alias inside the node it names makes a structure that holds itself
+                if (_open.Contains(a.Value.Value))
+                    throw new ProjectFileException(_file, line, "",
+                        $"the alias '*{InputLimits.Excerpt(a.Value.Value)}' stands inside the list or " +
+                            "mapping it names (a structure that holds itself): write the values out");
+                break;
         }
+    }
+
+    private void Anchor(AnchorName name)
+    {
+        if (!name.IsEmpty) _anchors.Add(name.Value);
     }
 
     /// <summary>

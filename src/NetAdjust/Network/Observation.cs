@@ -158,7 +158,16 @@ public abstract record Observation
     public string? SetupId { get; init; }
 
     /// <summary>All points the observation involves, without repeats.</summary>
-    public IEnumerable<string> Points => new[] { At, From, To }.OfType<string>().Distinct(StringComparer.Ordinal);
+    public IEnumerable<string> Points => Distinct(At, From, To);
+
+    /// <summary>The ids in order without nulls and repeats; no LINQ and no array (the reader and the adjustment ask
+    /// it once per observation, and a result holds nothing that can be changed).</summary>
+    private static IEnumerable<string> Distinct(string? at, string? from, string? to)
+    {
+        if (at is not null) yield return at;
+        if (from is not null && from != at) yield return from;
+        if (to is not null && to != at && to != from) yield return to;
+    }
 
     /// <summary>A short description for messages, e.g. <c>distance T1→T2 (site.yaml:41)</c>.</summary>
     public string Describe()

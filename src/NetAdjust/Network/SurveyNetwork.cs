@@ -18,7 +18,7 @@ public sealed class SurveyNetwork
         Name = name;
         Points = ReadOnlyCopies.List(points);
         Observations = ReadOnlyCopies.List(observations);
-        _index = new Dictionary<string, int>(StringComparer.Ordinal);
+        _index = new Dictionary<string, int>(Points.Count, StringComparer.Ordinal);
         var problems = new List<string>();
         for (int i = 0; i < Points.Count; i++)
         {
@@ -39,9 +39,12 @@ public sealed class SurveyNetwork
         var sets = new Dictionary<string, string>(StringComparer.Ordinal);
         foreach (var o in Observations)
         {
-            foreach (var id in o.Points)
-                if (!_index.ContainsKey(id))
-                    problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
+            // the observation's points (Observation.Points) without a list per observation
+            string? oAt = o.At;
+            string oFrom = o.From, oTo = o.To;
+            if (oAt is not null && !_index.ContainsKey(oAt)) Undefined(o, oAt, problems);
+            if (oFrom is not null && oFrom != oAt && !_index.ContainsKey(oFrom)) Undefined(o, oFrom, problems);
+            if (oTo is not null && oTo != oAt && oTo != oFrom && !_index.ContainsKey(oTo)) Undefined(o, oTo, problems);
             if (o.From == o.To ||
                 (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
                 problems.Add($"{o.Describe()}: an observation needs distinct points");
@@ -64,6 +67,9 @@ public sealed class SurveyNetwork
             throw new InvalidInputException("The network is not valid:" + Environment.NewLine + "  " +
                 string.Join(Environment.NewLine + "  ", problems));
     }
+
+    private static void Undefined(Observation o, string id, List<string> problems) =>
+        problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
 
     private static void CheckWeighted(Point p, double? sd, double? value, Fixity c, string name, string at,
         List<string> problems)

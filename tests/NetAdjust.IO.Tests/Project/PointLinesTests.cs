@@ -1,0 +1,121 @@
+using NetAdjust.IO.Project;
+
+namespace NetAdjust.IO.Tests.Project;
+
+/// <summary>
+/// The points list read from its lines (<see cref="PointLines"/>) gives what the YAML document model gives for the
+/// same text: the same points, the same errors at the same lines; other writings are left to the model.
+/// </summary>
+public class PointLinesTests
+{
+    private const string Head = """
+        units: {length: m, angle: dms}
+        default_sd: {distance: 3 mm}
+        points:
+        """;
+
+    private const string Tail = """
+        setups:
+          - at: A
+            distances:
+              - {to: B, value: 99.99}
+        """;
+
+    private static string Project(string entries) => Head + "\n" + entries + "\n" + Tail;
+
+    private static SurveyProject Parse(string yaml) =>
+        ProjectReader.Parse(yaml, "p.yaml", Path.GetTempPath(), File.ReadAllText);
+
+    // The same entries; a comment after the last one (the same lines) makes the document model read the list.
+    private const string Lines = """
+          - {id: A, e: 1000.125, n: 2000.5, h: 12.25, fix: enh}
+          - {id: B, e: 1.1e3, n: -2.5, sd_e: 0.01, sd_n: 0.02}
+
+          # a comment line inside the list
+          - {id: C_1.x, e: 100ft, n: +7, sd_h: 5mm, h: 3}
+          - {id: D}
+        """;
+
+    [Fact]
+    public void PointLinesGiveTheSamePointsAsTheDocumentModel()
+    {
+        string fast = Project(Lines), model = Project(Lines + "  # end of the points");
+        Assert.NotNull(PointLines.Find(fast));
+        Assert.Null(PointLines.Find(model));
+        var a = Parse(fast).Network.Points;
+        var b = Parse(model).Network.Points;
+        Assert.Equal(4, a.Count);
+        // records: id, coordinates, held components, standard deviations and source (file:line) alike
+        Assert.Equal(b, a);
+        Assert.Equal("p.yaml:8", a[2].Source);
+        Assert.Equal(30.48, a[2].E!.Value, 12); // 100 ft: the international foot is 0.3048 m (common practice)
+    }
+
+    [Fact]
+    public void LinesAfterThePointsKeepTheirNumbers()
+    {
+        // an error in the setups (line 13) is named at its line whether the points were read from their lines or not
+        string fast = Project(Lines).Replace("value: 99.99", "value: x"), model = fast.Replace("- {id: D}",
+            "- {id: D}  # end");
+        Assert.NotNull(PointLines.Find(fast));
+        var e1 = Assert.Throws<ProjectFileException>(() => Parse(fast));
+        var e2 = Assert.Throws<ProjectFileException>(() => Parse(model));
+        Assert.StartsWith("p.yaml:13: ", e1.Message);
+        Assert.Equal(e2.Message, e1.Message);
+    }
+
+    [Theory]
+    [InlineData("  - {id: A, e: abc, n: 2}")] // not a length
+    [InlineData("  - {id: A, e: 1, n: 2, sd_e: -1}")] // a standard deviation the point refuses
+    [InlineData("  - {id: A, e: 1, n: 2, fix: q}")] // not held components
+    [InlineData("  - {id: A, e: 1, n: 2, sd_n: 0.01}\n  - {id: A, e: 1, n: 2}")] // an id twice
+    public void ARefusedEntryGivesTheDocumentModelsError(string entries)
+    {
+        string fast = Project(entries), model = Project(entries + "  # end");
+        Assert.NotNull(PointLines.Find(fast));
+        var e1 = Assert.ThrowsAny<InvalidInputException>(() => Parse(fast));
+        var e2 = Assert.ThrowsAny<InvalidInputException>(() => Parse(model));
+        Assert.Equal(e2.Message, e1.Message);
+        Assert.Contains("p.yaml:", e1.Message);
+    }
+
+    [Theory]
+    [InlineData("  - {id: 'A', e: 1, n: 2}")] // quoted
+    [InlineData("  - {id: A, e: 1, n: 2} # comment")]
+    [InlineData("  - {id: A,\n     e: 1, n: 2}")] // over two lines
+    [InlineData("  - id: A\n    e: 1")] // a block mapping
+    [InlineData("  - {id: A, e: 1, n: 2, x: 3}")] // an unknown key
+    [InlineData("  - {id: A, e: 1, e: 2}")] // a key twice
+    [InlineData("  - {id: A B, e: 1}")] // a value with a space
+    [InlineData("  - {id: A, e: 1,}")] // a trailing comma
+    [InlineData("  - {id: &a A, e: 1}")] // an anchor
+    [InlineData("  - {id: -, e: 1}")] // an indicator alone
+    [InlineData("  - {id: A, e:1}")] // no space after the colon
+    [InlineData("  - {e: 1, n: 2}")] // no id
+    [InlineData("  - {id: A}\n    - {id: B}")] // another indentation
+    [InlineData("  - {id: A}\n\t- {id: B}")] // a tab
+    [InlineData("  - {id: A}\r  - {id: B}")] // a line ending in CR alone
+    [InlineData("")] // no entry
+    public void OtherWritingsAreLeftToTheDocumentModel(string entries)
+    {
+        Assert.Null(PointLines.Find(Project(entries)));
+    }
+
+    [Fact]
+    public void APointsKeyWithAValueOrTwiceIsLeftToTheDocumentModel()
+    {
+        Assert.Null(PointLines.Find(Project("  - {id: A}").Replace("points:", "points: # the marks")));
+        Assert.Null(PointLines.Find(Project("  - {id: A}") + "\npoints:\n  - {id: B}\n"));
+        Assert.Null(PointLines.Find(Project("  - {id: A}").Replace("points:", "  points:")));
+    }
+
+    [Fact]
+    public void WindowsLineEndsAreRead()
+    {
+        string fast = Project(Lines).Replace("\n", "\r\n");
+        var lines = PointLines.Find(fast);
+        Assert.NotNull(lines);
+        Assert.Equal(4, lines.Count);
+        Assert.Equal(Parse(Project(Lines)).Network.Points, Parse(fast).Network.Points);
+    }
+}
