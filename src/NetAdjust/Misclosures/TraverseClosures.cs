@@ -67,8 +67,12 @@ internal static class TraverseClosures
 
         public Measured Distance(int a, int b) => DistanceMeans[Distances[Pair(a, b)]];
 
+        /// <summary>The target of each direction observation by its index in the network (by the observation's
+        /// index; 0 for other observations).</summary>
+        public readonly int[] Targets = new int[network.Observations.Count];
+
         /// <summary>The target of direction observation <paramref name="i"/>, by its index in the network.</summary>
-        public int Target(int i) => network.IndexOf(((DirectionObservation)network.Observations[i]).Target);
+        public int Target(int i) => Targets[i];
 
         /// <summary>
         /// The weighted mean of the angle at <paramref name="at"/> from <paramref name="from"/> to
@@ -312,6 +316,8 @@ internal static class TraverseClosures
         // Distances: a weighted mean per pair, summed in the order of the observations.
         var distances = new List<(double Sw, double Swx, List<int> Obs)>();
         var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
+        (string? Id, List<int>? Directions) last = (null, null); // a set's directions mostly follow each other
+        long angles = 0; // at most this many angles (two per angle observation or pair of directions of a set)
         for (int i = 0; i < network.Observations.Count; i++)
         {
             var ob = network.Observations[i];
@@ -320,14 +326,18 @@ internal static class TraverseClosures
             {
                 case AngleObservation a:
                     (data.AngleObservations[network.IndexOf(a.Station)] ??= []).Add(i);
+                    angles += 2;
                     break;
                 case DirectionObservation d:
-                    if (!sets.TryGetValue(d.SetId, out var list))
+                    if (last.Id != d.SetId && !sets.TryGetValue(d.SetId, out last.Directions))
                     {
-                        sets[d.SetId] = list = [];
-                        (data.Sets[network.IndexOf(d.Station)] ??= []).Add(list);
+                        sets[d.SetId] = last.Directions = [];
+                        (data.Sets[network.IndexOf(d.Station)] ??= []).Add(last.Directions);
                     }
-                    list.Add(i);
+                    last.Id = d.SetId;
+                    angles += 2 * last.Directions!.Count;
+                    last.Directions.Add(i);
+                    data.Targets[i] = network.IndexOf(d.Target);
                     break;
                 case DistanceObservation s:
                     ref int k = ref CollectionsMarshal.GetValueRefOrAddDefault(data.Distances,
@@ -350,6 +360,7 @@ internal static class TraverseClosures
         // The angles at each station in the order first met (angle observations, then pairs of directions of a
         // set; each both ways), and the ways on in the order their angles first name them. The points of one
         // station are numbered locally, so that a small table tells which angles it has so far.
+        data.From.Capacity = data.To.Capacity = (int)Math.Min(angles, Array.MaxLength);
         var local = new int[points];
         Array.Fill(local, -1);
         var locals = new List<int>();

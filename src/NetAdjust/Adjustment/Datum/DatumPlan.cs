@@ -100,9 +100,10 @@ internal sealed partial class DatumPlan
             foreach (int p in ids.Of(i)) use[p] |= (byte)flags;
         }
 
-        var e = new Dictionary<string, double>(StringComparer.Ordinal);
-        var nn = new Dictionary<string, double>(StringComparer.Ordinal);
-        var h = new Dictionary<string, double>(StringComparer.Ordinal);
+        int inPlane = use.Count(u => (u & InPlane) != 0), inHeight = use.Count(u => (u & InHeight) != 0);
+        var e = new Dictionary<string, double>(inPlane, StringComparer.Ordinal);
+        var nn = new Dictionary<string, double>(inPlane, StringComparer.Ordinal);
+        var h = new Dictionary<string, double>(inHeight, StringComparer.Ordinal);
         bool planeMissing = false, anyHeight = false;
         for (int i = 0; i < points.Count; i++)
         {
