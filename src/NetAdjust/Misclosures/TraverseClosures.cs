@@ -37,11 +37,23 @@ internal static class TraverseClosures
 
         public readonly List<int> Ways = [];
 
-        /// <summary>Index into <see cref="DistanceMeans"/> of the mean distance of a pair (lower index first).
-        /// </summary>
+        /// <summary>Index into <see cref="DistanceSums"/> of the distances of a pair (lower index first).</summary>
         public readonly Dictionary<(int, int), int> Distances = [];
 
-        public readonly List<Measured> DistanceMeans = [];
+        /// <summary>Per pair: the sums of the weights and of the weighted distances (in the order of the
+        /// observations), and the first and last of its observations, chained by <see cref="NextDistance"/>.</summary>
+        public readonly List<(double Sw, double Swx, int First, int Last)> DistanceSums = [];
+
+        /// <summary>The next observation of the same pair after each distance observation (−1 at the end).</summary>
+        public readonly int[] NextDistance = new int[network.Observations.Count];
+
+        /// <summary>The one way on from each station by the point it is entered from (<see cref="OneWayOn"/>): for
+        /// station s, <see cref="EnteredFrom"/>[k] → <see cref="WayOn"/>[k] for k in [<see cref="WayOnStart"/>[s],
+        /// <see cref="WayOnStart"/>[s + 1]), sorted by the point entered from; −1 when there is none or more than
+        /// one.</summary>
+        public readonly int[] WayOnStart = new int[points + 1];
+
+        public readonly List<int> EnteredFrom = [], WayOn = [];
 
         /// <summary>The angle observations at each station, in input order; those set aside left out.</summary>
         public readonly List<int>?[] AngleObservations = new List<int>?[points];
@@ -49,9 +61,6 @@ internal static class TraverseClosures
         /// <summary>The direction sets at each station in order of first appearance, each its directions in input
         /// order; those set aside left out.</summary>
         public readonly List<List<int>>?[] Sets = new List<List<int>>?[points];
-
-        /// <summary>Memo of <see cref="OneWayOn"/> by (station, previous station).</summary>
-        public readonly Dictionary<(int, int), int> WayOn = [];
 
         public ReadOnlySpan<int> WaysOf(int at) =>
             CollectionsMarshal.AsSpan(Ways)[WayStart[at]..WayStart[at + 1]];
@@ -65,7 +74,14 @@ internal static class TraverseClosures
 
         public bool HasDistance(int a, int b) => Distances.ContainsKey(Pair(a, b));
 
-        public Measured Distance(int a, int b) => DistanceMeans[Distances[Pair(a, b)]];
+        /// <summary>The weighted mean of the distances of a pair.</summary>
+        public Measured Distance(int a, int b)
+        {
+            var (sw, swx, first, _) = DistanceSums[Distances[Pair(a, b)]];
+            var obs = new List<int>();
+            for (int i = first; i >= 0; i = NextDistance[i]) obs.Add(i);
+            return new Measured(swx / sw, 1 / sw, obs);
+        }
 
         /// <summary>The target of each direction observation by its index in the network (by the observation's
         /// index; 0 for other observations).</summary>
@@ -180,26 +196,9 @@ internal static class TraverseClosures
     /// distance), or -1 when there is none or more than one.</summary>
     private static int OneWayOn(Data data, int cur, int prev)
     {
-        ref int memo = ref CollectionsMarshal.GetValueRefOrAddDefault(data.WayOn,
-            (cur, prev), out bool exists);
-        if (!exists) memo = FindOneWayOn(data, cur, prev);
-        return memo;
-    }
-
-    private static int FindOneWayOn(Data data, int cur, int prev)
-    {
-        // each angle from prev at cur is listed once, and its far point is one of cur's ways on
-        int way = -1, count = 0;
-        for (int k = data.Start[cur]; k < data.Start[cur + 1]; k++)
-        {
-            int w = data.To[k];
-            if (data.From[k] == prev && w != prev && data.HasDistance(cur, w))
-            {
-                way = w;
-                count++;
-            }
-        }
-        return count == 1 ? way : -1;
+        int k = data.EnteredFrom.BinarySearch(data.WayOnStart[cur], data.WayOnStart[cur + 1] - data.WayOnStart[cur],
+            prev, null);
+        return k >= 0 ? data.WayOn[k] : -1;
     }
 
     private static TraverseClosure? Walk(SurveyNetwork network, bool[] known, Data data, HashSet<int> visited,
@@ -314,7 +313,7 @@ internal static class TraverseClosures
         int points = network.Points.Count;
         var data = new Data(network, sd, points);
         // Distances: a weighted mean per pair, summed in the order of the observations.
-        var distances = new List<(double Sw, double Swx, List<int> Obs)>();
+        var distances = data.DistanceSums;
         var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
         (string? Id, List<int>? Directions) last = (null, null); // a set's directions mostly follow each other
         long angles = 0; // at most this many angles (two per angle observation or pair of directions of a set)
@@ -345,17 +344,17 @@ internal static class TraverseClosures
                     if (!exists)
                     {
                         k = distances.Count;
-                        distances.Add((0, 0, []));
+                        distances.Add((0, 0, i, i));
                     }
-                    var (sw, swx, obs) = distances[k];
+                    var (sw, swx, first, previous) = distances[k];
                     double var = sd[i] * sd[i];
                     double wt = var > 0 ? 1 / var : 1e300;
-                    obs.Add(i);
-                    distances[k] = (sw + wt, swx + (wt * s.Value), obs);
+                    data.NextDistance[previous] = i;
+                    data.NextDistance[i] = -1;
+                    distances[k] = (sw + wt, swx + (wt * s.Value), first, i);
                     break;
             }
         }
-        foreach (var (sw, swx, obs) in distances) data.DistanceMeans.Add(new Measured(swx / sw, 1 / sw, obs));
 
         // The angles at each station in the order first met (angle observations, then pairs of directions of a
         // set; each both ways), and the ways on in the order their angles first name them. The points of one
@@ -365,7 +364,8 @@ internal static class TraverseClosures
         Array.Fill(local, -1);
         var locals = new List<int>();
         bool[] table = [];
-        bool[] isWay = [];
+        bool[] isWay = [], legs = [];
+        int[] count = [], way = [];
         int m = 0;
         void Local(int p)
         {
@@ -387,6 +387,7 @@ internal static class TraverseClosures
         {
             data.Start[at] = data.From.Count;
             data.WayStart[at] = data.Ways.Count;
+            data.WayOnStart[at] = data.EnteredFrom.Count;
             var angleObs = data.AngleObservations[at];
             var atSets = data.Sets[at];
             if (angleObs is null && atSets is null) continue;
@@ -421,11 +422,28 @@ internal static class TraverseClosures
                         Push(targets[y], targets[x]);
                     }
             }
+            // The one way on by the point entered from: an angle from it to a point with a distance from here.
+            if (count.Length < m) (count, way, legs) = (new int[2 * m], new int[2 * m], new bool[2 * m]);
+            for (int l = 0; l < m; l++) (count[l], legs[l]) = (0, data.HasDistance(at, locals[l]));
+            for (int k = data.Start[at]; k < data.From.Count; k++)
+                if (legs[local[data.To[k]]])
+                {
+                    count[local[data.From[k]]]++;
+                    way[local[data.From[k]]] = data.To[k];
+                }
+            data.WayOnStart[at] = data.EnteredFrom.Count;
+            locals.Sort();
+            foreach (int p in locals)
+            {
+                data.EnteredFrom.Add(p);
+                data.WayOn.Add(count[local[p]] == 1 ? way[local[p]] : -1);
+            }
             foreach (int p in locals) local[p] = -1;
             locals.Clear();
         }
         data.Start[points] = data.From.Count;
         data.WayStart[points] = data.Ways.Count;
+        data.WayOnStart[points] = data.EnteredFrom.Count;
         return data;
     }
 

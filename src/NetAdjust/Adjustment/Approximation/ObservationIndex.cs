@@ -47,7 +47,11 @@ internal sealed class ObservationIndex
     public static int PointsOf(SurveyNetwork network, Observation o, Span<int> indices)
     {
         int count = 0;
-        foreach (string? id in (ReadOnlySpan<string?>)[o.At, o.From, o.To])
+        // (a repeated id is not looked up again)
+        string? at = o.At, from = o.From, to = o.To;
+        from = from == at ? null : from;
+        to = to == at || to == o.From ? null : to;
+        foreach (string? id in (ReadOnlySpan<string?>)[at, from, to])
         {
             if (id is null) continue;
             int k = network.IndexOf(id);

@@ -168,15 +168,17 @@ internal sealed partial class DatumPlan
         var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
         var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
         var setOrder = new List<List<int>>();
+        (string? Id, List<int>? Directions) last = (null, null); // a set's directions mostly follow each other
         for (int i = 0; i < ids.Count; i++)
             if (network.Observations[i] is DirectionObservation d)
             {
-                if (!sets.TryGetValue(d.SetId, out var list))
+                if (last.Id != d.SetId && !sets.TryGetValue(d.SetId, out last.Directions))
                 {
-                    sets[d.SetId] = list = [];
-                    setOrder.Add(list);
+                    sets[d.SetId] = last.Directions = [];
+                    setOrder.Add(last.Directions);
                 }
-                list.Add(i);
+                last.Id = d.SetId;
+                last.Directions!.Add(i);
             }
         var values = new List<double>();
         foreach (var set in setOrder)
