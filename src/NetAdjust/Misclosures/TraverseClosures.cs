@@ -15,47 +15,128 @@ namespace NetAdjust.Misclosures;
 /// </summary>
 internal static class TraverseClosures
 {
-    /// <summary>A weighted mean of repeated measurements; <c>First</c> heads its chain of contributions (the
-    /// observations it comes from, listed only for a traverse found: <see cref="Data.ObservationsOf"/>).</summary>
-    private readonly record struct Measured(double Value, double Var, int First);
+    /// <summary>A weighted mean of repeated measurements and the observations it comes from.</summary>
+    private readonly record struct Measured(double Value, double Var, List<int> Observations);
 
     /// <summary>
     /// What the walks need, with the points as their indices in the network (strings are hashed only once per
-    /// observation): the mean angle at a station from one point to another, the mean distance of a pair, and the
-    /// ways on from each station in the order they were first met.
+    /// observation): for each station the angles it has (from one point to another, in the order they were first
+    /// met), the ways on from it (in the same order), and the mean distance of each pair. The mean of an angle is
+    /// computed when a walk takes it (<see cref="Angle"/>), from the station's angles and direction sets.
     /// </summary>
-    private sealed class Data(int points)
+    private sealed class Data(SurveyNetwork network, IReadOnlyList<double> sd, int points)
     {
-        /// <summary>Index into <see cref="Means"/> of the mean angle at a station from one point to another.
-        /// </summary>
-        public readonly Dictionary<(int At, int From, int To), int> Angles = [];
+        /// <summary>The angles of station s are <see cref="From"/>[k] → <see cref="To"/>[k] for k in
+        /// [<see cref="Start"/>[s], <see cref="Start"/>[s + 1]).</summary>
+        public readonly int[] Start = new int[points + 1];
 
-        /// <summary>Index into <see cref="Means"/> of the mean distance of a pair (lower index first).</summary>
+        public readonly List<int> From = [], To = [];
+
+        /// <summary>The ways on from each station, in <see cref="WayStart"/> ranges like the angles.</summary>
+        public readonly int[] WayStart = new int[points + 1];
+
+        public readonly List<int> Ways = [];
+
+        /// <summary>Index into <see cref="DistanceSums"/> of the distances of a pair (lower index first).</summary>
         public readonly Dictionary<(int, int), int> Distances = [];
 
-        public readonly List<Measured> Means = [];
-        public readonly List<int>?[] Ways = new List<int>?[points];
+        /// <summary>Per pair: the sums of the weights and of the weighted distances (in the order of the
+        /// observations), and the first and last of its observations, chained by <see cref="NextDistance"/>.</summary>
+        public readonly List<(double Sw, double Swx, int First, int Last)> DistanceSums = [];
 
-        /// <summary>Contributions: one or two observation indices and the next contribution of the same mean.
-        /// </summary>
-        public readonly List<(int Obs1, int Obs2, int Next)> Contributions = [];
+        /// <summary>The next observation of the same pair after each distance observation (−1 at the end).</summary>
+        public readonly int[] NextDistance = new int[network.Observations.Count];
 
-        public List<int> Ways0(int at) => Ways[at] ?? [];
+        /// <summary>The one way on from each station by the point it is entered from (<see cref="OneWayOn"/>): for
+        /// station s, <see cref="EnteredFrom"/>[k] → <see cref="WayOn"/>[k] for k in [<see cref="WayOnStart"/>[s],
+        /// <see cref="WayOnStart"/>[s + 1]), sorted by the point entered from; −1 when there is none or more than
+        /// one.</summary>
+        public readonly int[] WayOnStart = new int[points + 1];
 
-        public Measured Angle(int at, int from, int to) => Means[Angles[(at, from, to)]];
+        public readonly List<int> EnteredFrom = [], WayOn = [];
 
-        public Measured Distance(int a, int b) => Means[Distances[Pair(a, b)]];
+        /// <summary>The angle observations at each station, in input order; those set aside left out.</summary>
+        public readonly List<int>?[] AngleObservations = new List<int>?[points];
 
-        /// <summary>Memo of <see cref="OneWayOn"/> by (station, previous station).</summary>
-        public readonly Dictionary<(int, int), int> WayOn = [];
+        /// <summary>The direction sets at each station in order of first appearance, each its directions in input
+        /// order; those set aside left out.</summary>
+        public readonly List<List<int>>?[] Sets = new List<List<int>>?[points];
 
-        public IEnumerable<int> ObservationsOf(Measured m)
+        public ReadOnlySpan<int> WaysOf(int at) =>
+            CollectionsMarshal.AsSpan(Ways)[WayStart[at]..WayStart[at + 1]];
+
+        public bool HasAngle(int at, int from, int to)
         {
-            for (int c = m.First; c >= 0; c = Contributions[c].Next)
+            for (int k = Start[at]; k < Start[at + 1]; k++)
+                if (From[k] == from && To[k] == to) return true;
+            return false;
+        }
+
+        public bool HasDistance(int a, int b) => Distances.ContainsKey(Pair(a, b));
+
+        /// <summary>The weighted mean of the distances of a pair.</summary>
+        public Measured Distance(int a, int b)
+        {
+            var (sw, swx, first, _) = DistanceSums[Distances[Pair(a, b)]];
+            var obs = new List<int>();
+            for (int i = first; i >= 0; i = NextDistance[i]) obs.Add(i);
+            return new Measured(swx / sw, 1 / sw, obs);
+        }
+
+        /// <summary>The target of each direction observation by its index in the network (by the observation's
+        /// index; 0 for other observations).</summary>
+        public readonly int[] Targets = new int[network.Observations.Count];
+
+        /// <summary>The target of direction observation <paramref name="i"/>, by its index in the network.</summary>
+        public int Target(int i) => Targets[i];
+
+        /// <summary>
+        /// The weighted mean of the angle at <paramref name="at"/> from <paramref name="from"/> to
+        /// <paramref name="to"/> (angles aligned to the first within half a turn): each angle observation and each
+        /// pair of directions of one set gives the angle one way and its complement the other way, summed in the
+        /// order of the observations (the angle observations first, then the sets).
+        /// </summary>
+        public Measured Angle(int at, int from, int to)
+        {
+            double first = 0, sw = 0, swx = 0;
+            bool any = false;
+            var obs = new List<int>();
+            void Push(double value, double var, int obs1, int obs2)
             {
-                yield return Contributions[c].Obs1;
-                if (Contributions[c].Obs2 >= 0) yield return Contributions[c].Obs2;
+                if (!any) { first = value; any = true; }
+                obs.Add(obs1);
+                if (obs2 >= 0) obs.Add(obs2);
+                double x = first + Wrap(value - first);
+                double wt = var > 0 ? 1 / var : 1e300;
+                sw += wt;
+                swx += wt * x;
             }
+            void Both(int a, int b, double value, double var, int obs1, int obs2)
+            {
+                value = Normalise(value);
+                if (a == from && b == to) Push(value, var, obs1, obs2);
+                if (b == from && a == to) Push(Normalise((2 * Math.PI) - value), var, obs1, obs2);
+            }
+            foreach (int i in AngleObservations[at] ?? [])
+            {
+                var a = (AngleObservation)network.Observations[i];
+                Both(network.IndexOf(a.Backsight), network.IndexOf(a.Foresight), a.Value, sd[i] * sd[i], i, -1);
+            }
+            foreach (var set in Sets[at] ?? [])
+            {
+                var targets = set.Select(Target).ToArray();
+                for (int x = 0; x < set.Count; x++)
+                    for (int y = x + 1; y < set.Count; y++)
+                    {
+                        if (targets[x] == targets[y]) continue;
+                        if (!(targets[x] == from && targets[y] == to) && !(targets[y] == from && targets[x] == to))
+                            continue;
+                        Both(targets[x], targets[y],
+                            network.Observations[set[y]].Value - network.Observations[set[x]].Value,
+                            (sd[set[x]] * sd[set[x]]) + (sd[set[y]] * sd[set[y]]), set[x], set[y]);
+                    }
+            }
+            return new Measured(Normalise(swx / sw), 1 / sw, obs);
         }
     }
 
@@ -78,28 +159,26 @@ internal static class TraverseClosures
         for (int start = 0; start < network.Points.Count; start++)
         {
             if (!known[start]) continue;
-            foreach (var reference in data.Ways0(start))
+            foreach (var reference in data.WaysOf(start))
             {
                 if (!known[reference]) continue;
-                foreach (var next in data.Ways0(start))
-                    if (next != reference && data.Angles.ContainsKey((start, reference, next)) &&
-                        data.Distances.ContainsKey(Pair(start, next)))
+                foreach (var next in data.WaysOf(start))
+                    if (next != reference && data.HasAngle(start, reference, next) && data.HasDistance(start, next))
                         Add(Walk(network, known, data, visited, start, reference, next, o, z, chi2));
             }
         }
         // Closed traverses with no given reference, from each station (its angles in the order found).
-        var byStation = new List<(int Back, int Next)>?[network.Points.Count];
-        foreach (var (at, back, next) in data.Angles.Keys) (byStation[at] ??= []).Add((back, next));
         var covered = new bool[network.Points.Count];
         foreach (var t in found) foreach (var id in t.Points) covered[network.IndexOf(id)] = true;
         for (int start = 0; start < network.Points.Count; start++)
-            foreach (var (back, next) in byStation[start] ?? [])
+            for (int k = data.Start[start]; k < data.Start[start + 1]; k++)
             {
+                int back = data.From[k], next = data.To[k];
                 // a station of a traverse already found starts no other walk: each loop is walked once
                 if (covered[start]) break;
                 // the walk's second station needs one way on (the walk would stop there: saves most walks)
                 if (next != start && OneWayOn(data, next, start) < 0) continue;
-                if (data.Distances.ContainsKey(Pair(start, back)) && data.Distances.ContainsKey(Pair(start, next)) &&
+                if (data.HasDistance(start, back) && data.HasDistance(start, next) &&
                     Walk(network, known, data, visited, start, back, next, o, z, chi2, closed: true)
                         is TraverseClosure t)
                 {
@@ -117,22 +196,9 @@ internal static class TraverseClosures
     /// distance), or -1 when there is none or more than one.</summary>
     private static int OneWayOn(Data data, int cur, int prev)
     {
-        ref int memo = ref CollectionsMarshal.GetValueRefOrAddDefault(data.WayOn,
-            (cur, prev), out bool exists);
-        if (!exists) memo = FindOneWayOn(data, cur, prev);
-        return memo;
-    }
-
-    private static int FindOneWayOn(Data data, int cur, int prev)
-    {
-        int way = -1, count = 0;
-        foreach (var w in data.Ways0(cur))
-            if (w != prev && data.Angles.ContainsKey((cur, prev, w)) && data.Distances.ContainsKey(Pair(cur, w)))
-            {
-                way = w;
-                count++;
-            }
-        return count == 1 ? way : -1;
+        int k = data.EnteredFrom.BinarySearch(data.WayOnStart[cur], data.WayOnStart[cur + 1] - data.WayOnStart[cur],
+            prev, null);
+        return k >= 0 ? data.WayOn[k] : -1;
     }
 
     private static TraverseClosure? Walk(SurveyNetwork network, bool[] known, Data data, HashSet<int> visited,
@@ -157,8 +223,8 @@ internal static class TraverseClosures
             if (closed && cur == start)
             {
                 // the closing angle at the first station, from the last station to the first leg
-                if (!data.Angles.TryGetValue((start, prev, first), out int closing)) return null;
-                angles.Add(data.Means[closing]);
+                if (!data.HasAngle(start, prev, first)) return null;
+                angles.Add(data.Angle(start, prev, first));
                 break;
             }
             if (visited.Contains(cur) && !(cur == start && !closed)) return null;
@@ -167,8 +233,9 @@ internal static class TraverseClosures
             if (!closed && known[cur])
             {
                 knownEnd = true;
-                int foresight = data.Ways0(cur).FirstOrDefault(f => f != prev && known[f] &&
-                    data.Angles.ContainsKey((cur, prev, f)), -1);
+                int foresight = -1;
+                foreach (int f in data.WaysOf(cur))
+                    if (f != prev && known[f] && data.HasAngle(cur, prev, f)) { foresight = f; break; }
                 if (foresight >= 0)
                 {
                     angles.Add(data.Angle(cur, prev, foresight));
@@ -232,7 +299,7 @@ internal static class TraverseClosures
         double det = (cEE * cNN) - (cEN * cEN);
         double stat = det > 1e-30 * Math.Max(1e-300, cEE * cNN)
             ? ((cNN * fE * fE) - (2 * cEN * fE * fN) + (cEE * fN * fN)) / det : double.NaN;
-        var obs = angles.SelectMany(data.ObservationsOf).Concat(legs.SelectMany(l => data.ObservationsOf(l.D)))
+        var obs = angles.SelectMany(a => a.Observations).Concat(legs.SelectMany(l => l.D.Observations))
             .Distinct().Order().ToList();
         var names = stations.Select(i => P(i).Id).ToList();
         var points = closed ? [.. names, P(start).Id] : names;
@@ -241,57 +308,15 @@ internal static class TraverseClosures
             o.MinimumTraverseRatio);
     }
 
-    /// <summary>A running weighted mean (angles aligned to the first within half a turn), its contributions
-    /// chained from <c>First</c> to <c>Last</c>.</summary>
-    private record struct Running(double FirstValue, double Sw, double Swx, int First, int Last);
-
     private static Data Collect(SurveyNetwork network, IReadOnlyList<double> sd)
     {
-        var data = new Data(network.Points.Count);
-        var angleMeans = new List<Running>();
-        var distances = new Dictionary<(int, int), Running>();
-        void Accumulate(ref Running r, bool exists, double value, double var, int obs1, int obs2, bool angular)
-        {
-            int c = data.Contributions.Count;
-            data.Contributions.Add((obs1, obs2, -1));
-            if (!exists) r = new Running(value, 0, 0, c, c);
-            else
-            {
-                data.Contributions[r.Last] = data.Contributions[r.Last] with { Next = c };
-                r.Last = c;
-            }
-            // the weighted mean as a sum in the order of the observations
-            double x = angular ? r.FirstValue + Wrap(value - r.FirstValue) : value;
-            double wt = var > 0 ? 1 / var : 1e300;
-            r.Sw += wt;
-            r.Swx += wt * x;
-        }
-        void PushAngle((int, int, int) key, double value, double var, int obs1, int obs2)
-        {
-            ref int index = ref CollectionsMarshal.GetValueRefOrAddDefault(data.Angles,
-                key, out bool exists);
-            if (!exists)
-            {
-                index = angleMeans.Count;
-                angleMeans.Add(default);
-            }
-            var span = CollectionsMarshal.AsSpan(angleMeans);
-            Accumulate(ref span[index], exists, value, var, obs1, obs2, angular: true);
-        }
-        void AddAngle(int at, int from, int to, double value, double var, int obs1, int obs2)
-        {
-            value = Normalise(value);
-            PushAngle((at, from, to), value, var, obs1, obs2);
-            PushAngle((at, to, from), Normalise((2 * Math.PI) - value), var, obs1, obs2);
-        }
-        void PushDistance((int, int) key, double value, double var, int obs)
-        {
-            ref var r = ref CollectionsMarshal.GetValueRefOrAddDefault(distances, key,
-                out bool exists);
-            Accumulate(ref r, exists, value, var, obs, -1, angular: false);
-        }
-        int Ix(string id) => network.IndexOf(id);
+        int points = network.Points.Count;
+        var data = new Data(network, sd, points);
+        // Distances: a weighted mean per pair, summed in the order of the observations.
+        var distances = data.DistanceSums;
         var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
+        (string? Id, List<int>? Directions) last = (null, null); // a set's directions mostly follow each other
+        long angles = 0; // at most this many angles (two per angle observation or pair of directions of a set)
         for (int i = 0; i < network.Observations.Count; i++)
         {
             var ob = network.Observations[i];
@@ -299,56 +324,127 @@ internal static class TraverseClosures
             switch (ob)
             {
                 case AngleObservation a:
-                    AddAngle(Ix(a.Station), Ix(a.Backsight), Ix(a.Foresight), a.Value, sd[i] * sd[i], i, -1);
+                    (data.AngleObservations[network.IndexOf(a.Station)] ??= []).Add(i);
+                    angles += 2;
                     break;
                 case DirectionObservation d:
-                    if (!sets.TryGetValue(d.SetId, out var list)) sets[d.SetId] = list = [];
-                    list.Add(i);
+                    if (last.Id != d.SetId && !sets.TryGetValue(d.SetId, out last.Directions))
+                    {
+                        sets[d.SetId] = last.Directions = [];
+                        (data.Sets[network.IndexOf(d.Station)] ??= []).Add(last.Directions);
+                    }
+                    last.Id = d.SetId;
+                    angles += 2 * last.Directions!.Count;
+                    last.Directions.Add(i);
+                    data.Targets[i] = network.IndexOf(d.Target);
                     break;
                 case DistanceObservation s:
-                    PushDistance(Pair(Ix(s.From), Ix(s.To)), s.Value, sd[i] * sd[i], i);
+                    ref int k = ref CollectionsMarshal.GetValueRefOrAddDefault(data.Distances,
+                        Pair(network.IndexOf(s.From), network.IndexOf(s.To)), out bool exists);
+                    if (!exists)
+                    {
+                        k = distances.Count;
+                        distances.Add((0, 0, i, i));
+                    }
+                    var (sw, swx, first, previous) = distances[k];
+                    double var = sd[i] * sd[i];
+                    double wt = var > 0 ? 1 / var : 1e300;
+                    data.NextDistance[previous] = i;
+                    data.NextDistance[i] = -1;
+                    distances[k] = (sw + wt, swx + (wt * s.Value), first, i);
                     break;
             }
         }
-        foreach (var set in sets.Values)
+
+        // The angles at each station in the order first met (angle observations, then pairs of directions of a
+        // set; each both ways), and the ways on in the order their angles first name them. The points of one
+        // station are numbered locally, so that a small table tells which angles it has so far.
+        data.From.Capacity = data.To.Capacity = (int)Math.Min(angles, Array.MaxLength);
+        var local = new int[points];
+        Array.Fill(local, -1);
+        var locals = new List<int>();
+        bool[] table = [];
+        bool[] isWay = [], legs = [];
+        int[] count = [], way = [];
+        int m = 0;
+        void Local(int p)
         {
-            var targets = set.Select(i => Ix(((DirectionObservation)network.Observations[i]).Target)).ToArray();
-            var stations = set.Select(i => Ix(((DirectionObservation)network.Observations[i]).Station)).ToArray();
-            for (int x = 0; x < set.Count; x++)
-                for (int y = x + 1; y < set.Count; y++)
+            if (local[p] >= 0) return;
+            local[p] = locals.Count;
+            locals.Add(p);
+        }
+        void Push(int a, int b)
+        {
+            int la = local[a], lb = local[b];
+            if (table[(la * m) + lb]) return;
+            table[(la * m) + lb] = true;
+            data.From.Add(a);
+            data.To.Add(b);
+            if (!isWay[la]) { isWay[la] = true; data.Ways.Add(a); }
+            if (!isWay[lb]) { isWay[lb] = true; data.Ways.Add(b); }
+        }
+        for (int at = 0; at < points; at++)
+        {
+            data.Start[at] = data.From.Count;
+            data.WayStart[at] = data.Ways.Count;
+            data.WayOnStart[at] = data.EnteredFrom.Count;
+            var angleObs = data.AngleObservations[at];
+            var atSets = data.Sets[at];
+            if (angleObs is null && atSets is null) continue;
+            foreach (int i in angleObs ?? [])
+            {
+                var a = (AngleObservation)network.Observations[i];
+                Local(network.IndexOf(a.Backsight));
+                Local(network.IndexOf(a.Foresight));
+            }
+            foreach (var set in atSets ?? [])
+                foreach (int i in set) Local(data.Target(i));
+            m = locals.Count;
+            if (table.Length < m * m) table = new bool[Math.Max(m * m, 2 * table.Length)];
+            if (isWay.Length < m) isWay = new bool[Math.Max(m, 2 * isWay.Length)];
+            Array.Clear(table, 0, m * m);
+            Array.Clear(isWay, 0, m);
+            foreach (int i in angleObs ?? [])
+            {
+                var a = (AngleObservation)network.Observations[i];
+                int b = network.IndexOf(a.Backsight), f = network.IndexOf(a.Foresight);
+                Push(b, f);
+                Push(f, b);
+            }
+            foreach (var set in atSets ?? [])
+            {
+                var targets = set.Select(data.Target).ToArray();
+                for (int x = 0; x < set.Count; x++)
+                    for (int y = x + 1; y < set.Count; y++)
+                    {
+                        if (targets[x] == targets[y]) continue;
+                        Push(targets[x], targets[y]);
+                        Push(targets[y], targets[x]);
+                    }
+            }
+            // The one way on by the point entered from: an angle from it to a point with a distance from here.
+            if (count.Length < m) (count, way, legs) = (new int[2 * m], new int[2 * m], new bool[2 * m]);
+            for (int l = 0; l < m; l++) (count[l], legs[l]) = (0, data.HasDistance(at, locals[l]));
+            for (int k = data.Start[at]; k < data.From.Count; k++)
+                if (legs[local[data.To[k]]])
                 {
-                    if (targets[x] == targets[y]) continue;
-                    var a = (DirectionObservation)network.Observations[set[x]];
-                    var b = (DirectionObservation)network.Observations[set[y]];
-                    AddAngle(stations[x], targets[x], targets[y], b.Value - a.Value,
-                        (sd[set[x]] * sd[set[x]]) + (sd[set[y]] * sd[set[y]]), set[x], set[y]);
+                    count[local[data.From[k]]]++;
+                    way[local[data.From[k]]] = data.To[k];
                 }
+            data.WayOnStart[at] = data.EnteredFrom.Count;
+            locals.Sort();
+            foreach (int p in locals)
+            {
+                data.EnteredFrom.Add(p);
+                data.WayOn.Add(count[local[p]] == 1 ? way[local[p]] : -1);
+            }
+            foreach (int p in locals) local[p] = -1;
+            locals.Clear();
         }
-        foreach (var r in angleMeans) data.Means.Add(Mean(r, angular: true));
-        foreach (var key in data.Angles.Keys)
-        {
-            Way(data, key.Item1, key.Item2);
-            Way(data, key.Item1, key.Item3);
-        }
-        foreach (var (key, r) in distances)
-        {
-            data.Distances[key] = data.Means.Count;
-            data.Means.Add(Mean(r, angular: false));
-        }
+        data.Start[points] = data.From.Count;
+        data.WayStart[points] = data.Ways.Count;
+        data.WayOnStart[points] = data.EnteredFrom.Count;
         return data;
-    }
-
-    private static void Way(Data data, int at, int to)
-    {
-        var list = data.Ways[at] ??= [];
-        if (!list.Contains(to)) list.Add(to);
-    }
-
-    /// <summary>The weighted mean of repeated measurements (angles aligned to the first within half a turn).</summary>
-    private static Measured Mean(Running r, bool angular)
-    {
-        double mean = r.Swx / r.Sw;
-        return new Measured(angular ? Normalise(mean) : mean, 1 / r.Sw, r.First);
     }
 
     private static (int, int) Pair(int a, int b) => a <= b ? (a, b) : (b, a);

@@ -148,4 +148,31 @@ public class TraverseClosureTests
         Assert.Equal(10 * Arcsec, Math.Abs(blundered.AngularMisclosure), 12);
         Assert.False(blundered.Passed);
     }
+
+    [Fact]
+    public void AngleMeasuredAlsoByADirectionSetEntersAsTheWeightedMean()
+    {
+        // The angle at P2 is also measured by a set of two directions (1″ each: the angle 1″·√2) that reads it 6″
+        // too large. Weighted by 1/σ² (common practice): (1 × 0″ + ½ × 6″) / (1 + ½) = 2″ in the angular
+        // misclosure, and the angle's variance 1 / (1 + ½) = ⅔ (arcsec²) beside the other five angles' 1 each.
+        var net = LinkTraverse();
+        double zero = 1.234;
+        double Reading(string to) => (((Azimuth("P2", to) - zero) % (2 * Math.PI)) + (2 * Math.PI)) % (2 * Math.PI);
+        var set = new Observation[]
+        {
+            new DirectionObservation("P2", "P1", Angle.FromRadians(Reading("P1")), "P2/1")
+                { StandardDeviation = 1 * Arcsec },
+            new DirectionObservation("P2", "P3", Angle.FromRadians(Reading("P3") + (6 * Arcsec)), "P2/1")
+                { StandardDeviation = 1 * Arcsec },
+        };
+        net = new SurveyNetwork("t", net.Points, [.. net.Observations, .. set]);
+        var t = Assert.Single(MisclosureCheck.Run(net).Traverses);
+        Assert.Equal(["A", "P1", "P2", "P3", "P4", "B"], t.Points);
+        Assert.Equal(2 * Arcsec, t.AngularMisclosure, 12);
+        Assert.Equal(Math.Sqrt(5 + (2.0 / 3)) * Arcsec, t.AngularSd, 12);
+        int first = net.Observations.Count - 2;
+        Assert.Contains(first, t.Observations);
+        Assert.Contains(first + 1, t.Observations);
+        Assert.Contains(t.Observations, i => net.Observations[i] is AngleObservation { Station: "P2" });
+    }
 }

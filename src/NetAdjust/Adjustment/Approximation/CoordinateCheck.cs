@@ -21,36 +21,51 @@ internal static class CoordinateCheck
     /// all precision.</summary>
     public const double MaxCoordinate = 1e10;
 
+    /// <summary>Checks the coordinates located so far (<paramref name="e"/>, <paramref name="n"/>: given and
+    /// approximate, by point id); <paramref name="ids"/> are the points of the network's observations.</summary>
+    /// <returns>The easting and northing of each point by its index in the network, and whether it has them.</returns>
     /// <exception cref="InvalidInputException">When a coordinate is not finite or two joined points
     /// coincide.</exception>
-    public static void Check(SurveyNetwork network, Dictionary<string, double> e, Dictionary<string, double> n)
+    public static (double[] E, double[] N, bool[] Located) Check(SurveyNetwork network, ObservationPoints ids,
+        Dictionary<string, double> e, Dictionary<string, double> n)
     {
-        foreach (var p in network.Points)
-            if (e.TryGetValue(p.Id, out double x) && n.TryGetValue(p.Id, out double y)
-                && !(Math.Abs(x) <= MaxCoordinate && Math.Abs(y) <= MaxCoordinate))
+        var points = network.Points;
+        var pe = new double[points.Count];
+        var pn = new double[points.Count];
+        var located = new bool[points.Count];
+        for (int i = 0; i < points.Count; i++)
+        {
+            var p = points[i];
+            if (!e.TryGetValue(p.Id, out double x) || !n.TryGetValue(p.Id, out double y)) continue;
+            (pe[i], pn[i], located[i]) = (x, y, true);
+            if (!(Math.Abs(x) <= MaxCoordinate && Math.Abs(y) <= MaxCoordinate))
                 throw new InvalidInputException($"point {p.Id}{Where(p.Source)}: its " +
                     $"{(p.E is null ? "approximate " : "")}coordinates " +
                     $"({G(x)}, {G(y)}) are beyond ±1e10 m or not numbers: give coordinates of a sensible size");
-        foreach (var o in network.Observations)
+        }
+        for (int i = 0; i < ids.Count; i++)
         {
+            var o = network.Observations[i];
             if (o.Excluded || !ObservationKindRegistry.IsHorizontal(o.Kind)) continue;
-            var ids = o.Points.ToList();
-            for (int a = 0; a < ids.Count; a++)
-                for (int b = a + 1; b < ids.Count; b++)
+            var of = ids.Of(i);
+            for (int a = 0; a < of.Length; a++)
+                for (int b = a + 1; b < of.Length; b++)
                 {
-                    if (!e.TryGetValue(ids[a], out double ea) || !e.TryGetValue(ids[b], out double eb)) continue;
-                    double na = n[ids[a]], nb = n[ids[b]];
+                    int ia = of[a], ib = of[b];
+                    if (!located[ia] || !located[ib]) continue;
+                    double ea = pe[ia], eb = pe[ib], na = pn[ia], nb = pn[ib];
                     double scale = Math.Max(1.0, Math.Max(Math.Abs(ea), Math.Abs(na)));
                     if (Math.Abs(ea - eb) + Math.Abs(na - nb) > 1e-12 * scale) continue;
-                    bool given = network[ids[a]].E is not null && network[ids[b]].E is not null;
+                    bool given = points[ia].E is not null && points[ib].E is not null;
                     throw new InvalidInputException(
-                        $"{o.Describe()}: points {ids[a]} and {ids[b]} have the same " +
+                        $"{o.Describe()}: points {points[ia].Id} and {points[ib].Id} have the same " +
                             $"{(given ? "" : "approximate ")}coordinates " +
                         $"({G(ea)}, {G(na)}), so the direction between them is undefined. " +
                         (given ? "Check the coordinates given for them (a copied line?)." : "Give approximate " +
                             "coordinates (e, n) for them."));
                 }
         }
+        return (pe, pn, located);
     }
 
     /// <summary>

@@ -38,6 +38,29 @@ internal sealed class ObservationIndex
             }
     }
 
+    /// <summary>
+    /// The indices in <paramref name="network"/>'s points of the points observation <paramref name="o"/> involves, as
+    /// <see cref="Observation.Points"/> lists them (station, from, to; without repeats), written to
+    /// <paramref name="indices"/> (at least three long).
+    /// </summary>
+    /// <returns>How many were written.</returns>
+    public static int PointsOf(SurveyNetwork network, Observation o, Span<int> indices)
+    {
+        int count = 0;
+        // (a repeated id is not looked up again)
+        string? at = o.At, from = o.From, to = o.To;
+        from = from == at ? null : from;
+        to = to == at || to == o.From ? null : to;
+        foreach (string? id in (ReadOnlySpan<string?>)[at, from, to])
+        {
+            if (id is null) continue;
+            int k = network.IndexOf(id);
+            if (indices[..count].Contains(k)) continue;
+            indices[count++] = k;
+        }
+        return count;
+    }
+
     /// <summary>The network indexed.</summary>
     public SurveyNetwork Network { get; }
 

@@ -28,6 +28,15 @@ internal static class SetOrientation
         return count > 0 ? first + (sum / count) : null;
     }
 
+    /// <summary>The azimuth from (<paramref name="e0"/>, <paramref name="n0"/>) to (<paramref name="e1"/>,
+    /// <paramref name="n1"/>) in [0, 2π), computed as the observation equation of a direction computes it.</summary>
+    public static double Azimuth(double e0, double n0, double e1, double n1)
+    {
+        double t = Math.Atan2(e1 - e0, n1 - n0);
+        if (t < 0) t += 2 * Math.PI;
+        return t;
+    }
+
     /// <summary>The orientation of a set at <paramref name="station"/> from readings to located targets.</summary>
     /// <param name="station">Coordinates of the station.</param>
     /// <param name="sightings">Each located target's coordinates and the set's reading to it, radians.</param>

@@ -1,3 +1,4 @@
+using NetAdjust.Adjustment.Approximation;
 using NetAdjust.Adjustment;
 using NetAdjust.Network;
 using NetAdjust.Observations;
@@ -24,50 +25,73 @@ internal static class DatumDiagnosis
 
     /// <summary>The connected parts over the observations of one kind (plane or height), in input order of their first
     /// point.</summary>
-    internal static List<Part> Parts(SurveyNetwork network, bool plane)
+    internal static List<Part> Parts(SurveyNetwork network, bool plane) =>
+        Parts(network, new ObservationPoints(network), plane);
+
+    /// <summary>The connected parts, with the points of the observations looked up already.</summary>
+    internal static List<Part> Parts(SurveyNetwork network, ObservationPoints ids, bool plane)
     {
-        var parent = new Dictionary<string, string>(StringComparer.Ordinal);
-        string Find(string x)
+        // Union-find over the points' indices in the network; −1 for a point no observation of the kind reaches.
+        var points = network.Points;
+        var parent = new int[points.Count];
+        Array.Fill(parent, -1);
+        int Find(int x)
         {
             while (parent[x] != x) x = parent[x] = parent[parent[x]];
             return x;
         }
         // Set-aside observations carry no weight: they neither join parts nor fix scale or orientation.
-        var obs = network.Observations.Where(o => ObservationKindRegistry.Of(o).Axes
-            .HasFlag(plane ? CoordinateAxes.Plane : CoordinateAxes.Height) && !o.Excluded).ToList();
-        foreach (var o in obs)
-            foreach (var id in o.Points) parent.TryAdd(id, id);
-        foreach (var o in obs)
+        var axes = plane ? CoordinateAxes.Plane : CoordinateAxes.Height;
+        var obs = new List<int>();
+        for (int i = 0; i < network.Observations.Count; i++)
         {
-            var ids = o.Points.ToList();
-            for (int k = 1; k < ids.Count; k++)
+            var o = network.Observations[i];
+            if (!o.Excluded && (ObservationKindRegistry.Of(o.Kind).Axes & axes) != 0) obs.Add(i);
+        }
+        foreach (int i in obs)
+            foreach (int p in ids.Of(i))
+                if (parent[p] < 0) parent[p] = p;
+        foreach (int i in obs)
+        {
+            var of = ids.Of(i);
+            for (int k = 1; k < of.Length; k++)
             {
-                string a = Find(ids[0]), b = Find(ids[k]);
+                int a = Find(of[0]), b = Find(of[k]);
                 if (a != b) parent[b] = a;
             }
         }
-        var parts = new Dictionary<string, List<string>>(StringComparer.Ordinal);
-        var order = new List<string>();
-        foreach (var p in network.Points)
+        // The parts in input order of their first point; each with the observations from its points.
+        var partOf = new int[points.Count];
+        Array.Fill(partOf, -1);
+        var parts = new List<List<string>>();
+        for (int i = 0; i < points.Count; i++)
         {
-            if (!parent.ContainsKey(p.Id)) continue;
-            string r = Find(p.Id);
-            if (!parts.TryGetValue(r, out var list)) { parts[r] = list = []; order.Add(r); }
-            list.Add(p.Id);
+            if (parent[i] < 0) continue;
+            int r = Find(i);
+            if (partOf[r] < 0) { partOf[r] = parts.Count; parts.Add([]); }
+            parts[partOf[r]].Add(points[i].Id);
         }
-        return order.Select(r =>
+        var fixes = new DatumElements[parts.Count];
+        foreach (int i in obs) // (ObservationKindRegistry.FixedBy, per part)
         {
-            var set = new HashSet<string>(parts[r], StringComparer.Ordinal);
-            var fixes = ObservationKindRegistry.FixedBy(obs.Where(o => set.Contains(o.From)));
-            return new Part(parts[r], fixes.HasFlag(DatumElements.Orientation), fixes.HasFlag(DatumElements.Scale));
-        }).ToList();
+            var o = network.Observations[i];
+            int f = ids.Of(i)[o.At is null || o.At == o.From ? 0 : 1]; // From, as Observation.Points lists it
+            if (parent[f] >= 0) fixes[partOf[Find(f)]] |= ObservationKindRegistry.Of(o.Kind).Fixes;
+        }
+        return parts.Select((list, k) => new Part(list, fixes[k].HasFlag(DatumElements.Orientation),
+            fixes[k].HasFlag(DatumElements.Scale))).ToList();
     }
 
     /// <summary>Throws <see cref="DatumDefectException"/> when the datum is not defined.</summary>
-    internal static void Check(SurveyNetwork network, DatumDefinition datum)
+    internal static void Check(SurveyNetwork network, DatumDefinition datum) =>
+        Check(network, new ObservationPoints(network), datum);
+
+    /// <summary>Throws <see cref="DatumDefectException"/> when the datum is not defined (the points of the
+    /// observations looked up already).</summary>
+    internal static void Check(SurveyNetwork network, ObservationPoints ids, DatumDefinition datum)
     {
-        var plane = Parts(network, plane: true);
-        var height = Parts(network, plane: false);
+        var plane = Parts(network, ids, plane: true);
+        var height = Parts(network, ids, plane: false);
         if (datum.Mode == DatumMode.Control) CheckControl(network, plane, height);
         else CheckConnected(plane, height, datum);
     }

@@ -82,49 +82,72 @@ internal sealed partial class DatumPlan
     /// unknown points.</exception>
     public static DatumPlan Create(SurveyNetwork network, DatumDefinition definition)
     {
-        DatumDiagnosis.Check(network, definition);
-        var plane = new HashSet<string>(StringComparer.Ordinal);
-        var height = new HashSet<string>(StringComparer.Ordinal);
-        // Points and direction sets reached only by set-aside observations get no unknowns (they carry no weight);
-        // they keep their given or approximate values so that those observations are still reported.
-        var active = new HashSet<(string, bool)>();
-        foreach (var o in network.Observations)
-            foreach (var id in o.Points)
-            {
-                // A kind may use both (slope distance, zenith angle): its points get plane and height unknowns.
-                var axes = ObservationKindRegistry.Of(o).Axes;
-                if (axes.HasFlag(CoordinateAxes.Plane)) plane.Add(id);
-                if (axes.HasFlag(CoordinateAxes.Height)) height.Add(id);
-                if (o.Excluded) continue;
-                if (axes.HasFlag(CoordinateAxes.Plane)) active.Add((id, true));
-                if (axes.HasFlag(CoordinateAxes.Height)) active.Add((id, false));
-            }
-
-        var e = new Dictionary<string, double>(StringComparer.Ordinal);
-        var nn = new Dictionary<string, double>(StringComparer.Ordinal);
-        var h = new Dictionary<string, double>(StringComparer.Ordinal);
-        foreach (var p in network.Points)
+        var ids = new ObservationPoints(network);
+        DatumDiagnosis.Check(network, ids, definition);
+        // What each point takes part in, by its index in the network: plane or height observations, and whether any
+        // of them is not set aside. Points and direction sets reached only by set-aside observations get no unknowns
+        // (they carry no weight); they keep their given or approximate values so that those observations are still
+        // reported. A kind may use both (slope distance, zenith angle): its points get plane and height unknowns.
+        const byte InPlane = 1, InHeight = 2, ActivePlane = 4, ActiveHeight = 8;
+        var points = network.Points;
+        var use = new byte[points.Count];
+        for (int i = 0; i < ids.Count; i++)
         {
-            if (plane.Contains(p.Id) && p.E is double pe && p.N is double pn) { e[p.Id] = pe; nn[p.Id] = pn; }
-            if (height.Contains(p.Id) && p.H is double ph) h[p.Id] = ph;
+            var o = network.Observations[i];
+            var axes = ObservationKindRegistry.Of(o.Kind).Axes;
+            int flags = ((axes & CoordinateAxes.Plane) != 0 ? InPlane | (o.Excluded ? 0 : ActivePlane) : 0)
+                | ((axes & CoordinateAxes.Height) != 0 ? InHeight | (o.Excluded ? 0 : ActiveHeight) : 0);
+            foreach (int p in ids.Of(i)) use[p] |= (byte)flags;
         }
-        // Constructions are judged in units of σ, which for observations weighted from specifications need sight
-        // lengths: provisional ones until the adjustment weights at its own coordinates.
-        ApproximateCoordinates.Plane(StochasticModel.WithProvisionalDeviations(network), plane, e, nn,
-            seedWhenNothingKnown: definition.Mode != DatumMode.Control);
-        ApproximateCoordinates.Heights(network, height, h, e, nn);
-        CoordinateCheck.Check(network, e, nn);
+
+        int inPlane = use.Count(u => (u & InPlane) != 0), inHeight = use.Count(u => (u & InHeight) != 0);
+        var e = new Dictionary<string, double>(inPlane, StringComparer.Ordinal);
+        var nn = new Dictionary<string, double>(inPlane, StringComparer.Ordinal);
+        var h = new Dictionary<string, double>(inHeight, StringComparer.Ordinal);
+        bool planeMissing = false, anyHeight = false;
+        for (int i = 0; i < points.Count; i++)
+        {
+            var p = points[i];
+            if ((use[i] & InPlane) != 0)
+            {
+                if (p.E is double pe && p.N is double pn) { e[p.Id] = pe; nn[p.Id] = pn; }
+                else planeMissing = true;
+            }
+            if ((use[i] & InHeight) != 0)
+            {
+                anyHeight = true;
+                if (p.H is double ph) h[p.Id] = ph;
+            }
+        }
+        // When every plane point has coordinates there is nothing to locate (the constructions would leave them as
+        // they are); likewise heights with no height observation.
+        if (planeMissing)
+        {
+            // Constructions are judged in units of σ, which for observations weighted from specifications need sight
+            // lengths: provisional ones until the adjustment weights at its own coordinates.
+            ApproximateCoordinates.Plane(StochasticModel.WithProvisionalDeviations(network),
+                PointsIn(network, CoordinateAxes.Plane), e, nn,
+                seedWhenNothingKnown: definition.Mode != DatumMode.Control);
+        }
+        if (anyHeight) ApproximateCoordinates.Heights(network, PointsIn(network, CoordinateAxes.Height), h, e, nn);
+        var (pe0, pn0, located) = CoordinateCheck.Check(network, ids, e, nn);
 
         bool control = definition.Mode == DatumMode.Control;
-        var planePoints = network.Points.Select(p => p.Id).Where(id => active.Contains((id, true))).ToList();
-        var heightPoints = network.Points.Select(p => p.Id).Where(id => active.Contains((id, false))).ToList();
+        var planePoints = new List<string>();
+        var heightPoints = new List<string>();
+        for (int i = 0; i < points.Count; i++)
+        {
+            if ((use[i] & ActivePlane) != 0) planePoints.Add(points[i].Id);
+            if ((use[i] & ActiveHeight) != 0) heightPoints.Add(points[i].Id);
+        }
         var sel = Select(network, definition, planePoints, heightPoints, e, nn);
         var index = new UnknownIndex();
-        foreach (var p in network.Points)
+        for (int i = 0; i < points.Count; i++)
         {
+            var p = points[i];
             bool heldInFull = sel.HeldPoints.Contains(p.Id);
-            var alongLine = sel.AlongLine.FirstOrDefault(x => x.Id == p.Id);
-            if (active.Contains((p.Id, true)))
+            var alongLine = sel.AlongLine.Count == 0 ? null : sel.AlongLine.FirstOrDefault(x => x.Id == p.Id);
+            if ((use[i] & ActivePlane) != 0)
             {
                 if (heldInFull && (p.E is null || p.N is null))
                     throw new InvalidInputException(
@@ -135,7 +158,7 @@ internal sealed partial class DatumPlan
                 if (!heldInFull && alongLine?.Held != Parameter.N && (!control || !p.IsFixed(Fixity.N)))
                     index.Add(new Unknown(p.Id, Parameter.N));
             }
-            if (active.Contains((p.Id, false)))
+            if ((use[i] & ActiveHeight) != 0)
             {
                 if (!control || !p.IsFixed(Fixity.H)) index.Add(new Unknown(p.Id, Parameter.H));
             }
@@ -143,12 +166,39 @@ internal sealed partial class DatumPlan
 
         // Orientation unknowns: start from the mean of (azimuth − reading) over the set, taken circularly.
         var orientation = new Dictionary<string, double>(StringComparer.Ordinal);
-        foreach (var set in network.Observations.OfType<DirectionObservation>().GroupBy(d => d.SetId))
+        var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
+        var setOrder = new List<List<int>>();
+        (string? Id, List<int>? Directions) last = (null, null); // a set's directions mostly follow each other
+        for (int i = 0; i < ids.Count; i++)
+            if (network.Observations[i] is DirectionObservation d)
+            {
+                if (last.Id != d.SetId && !sets.TryGetValue(d.SetId, out last.Directions))
+                {
+                    sets[d.SetId] = last.Directions = [];
+                    setOrder.Add(last.Directions);
+                }
+                last.Id = d.SetId;
+                last.Directions!.Add(i);
+            }
+        var values = new List<double>();
+        foreach (var set in setOrder)
         {
-            orientation[set.Key] = SetOrientation.Mean(set.Select(d => PlaneGeometry.Azimuth(d.Station,
-                new PlanePoint(e[d.Station], nn[d.Station]), d.Target, new PlanePoint(e[d.Target], nn[d.Target])).Value
-                - d.Reading.Radians))!.Value;
-            if (set.Any(d => !d.Excluded)) index.Add(new Unknown(set.Key, Parameter.Orientation));
+            values.Clear();
+            bool used = false;
+            foreach (int i in set)
+            {
+                var d = (DirectionObservation)network.Observations[i];
+                var of = ids.Of(i); // station, target
+                int s = of[0], t = of[1];
+                if (!located[s] || !located[t])
+                    throw new KeyNotFoundException($"point {(located[s] ? d.Target : d.Station)} has no plane " +
+                        "coordinates");
+                values.Add(SetOrientation.Azimuth(pe0[s], pn0[s], pe0[t], pn0[t]) - d.Reading.Radians);
+                used |= !d.Excluded;
+            }
+            string setId = ((DirectionObservation)network.Observations[set[0]]).SetId;
+            orientation[setId] = SetOrientation.Mean(values)!.Value;
+            if (used) index.Add(new Unknown(setId, Parameter.Orientation));
         }
         // Refraction unknowns: one per group of zenith angles whose k is estimated, started at its assumed k.
         var refraction = new Dictionary<string, double>(StringComparer.Ordinal);
@@ -169,6 +219,17 @@ internal sealed partial class DatumPlan
             new Dictionary<string, double>(e, StringComparer.Ordinal), new Dictionary<string,
                 double>(nn, StringComparer.Ordinal),
             new Dictionary<string, double>(h, StringComparer.Ordinal), sel);
+    }
+
+    /// <summary>The ids of the points that observations of <paramref name="axes"/> involve, in the order those
+    /// observations first name them (as <see cref="Observation.Points"/> lists them).</summary>
+    private static HashSet<string> PointsIn(SurveyNetwork network, CoordinateAxes axes)
+    {
+        var set = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var o in network.Observations)
+            if (ObservationKindRegistry.Of(o).Axes.HasFlag(axes))
+                foreach (var id in o.Points) set.Add(id);
+        return set;
     }
 
     /// <summary>
