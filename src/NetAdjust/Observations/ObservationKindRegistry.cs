@@ -48,6 +48,79 @@ public static class ObservationKindRegistry
     public static EquationValue Evaluate(Observation observation, ICoordinates at) =>
         Of(observation).Evaluate(observation, at);
 
+    /// <summary>The most slots an observation's equation reads (<see cref="Slots"/>).</summary>
+    internal const int MostSlots = 3;
+
+    /// <summary>
+    /// The slots of the points (and direction set) whose coordinates an observation's equation reads, for
+    /// <see cref="EvaluateInto"/>: station or from point, then target, then the direction set or the foresight. Only
+    /// the plane kinds are evaluated by slots; for the others no slot is written.
+    /// </summary>
+    /// <param name="observation">The observation.</param>
+    /// <param name="at">The coordinates.</param>
+    /// <param name="slots">Room for <see cref="MostSlots"/> slots.</param>
+    /// <returns>The number of slots written; 0 when the kind is evaluated by names.</returns>
+    internal static int Slots(Observation observation, IIndexedCoordinates at, Span<int> slots)
+    {
+        switch (observation)
+        {
+            case DistanceObservation or AzimuthObservation:
+                slots[0] = at.PointSlot(observation.From);
+                slots[1] = at.PointSlot(observation.To);
+                return 2;
+            case DirectionObservation r:
+                slots[0] = at.PointSlot(r.Station);
+                slots[1] = at.PointSlot(r.Target);
+                slots[2] = at.SetSlot(r.SetId);
+                return 3;
+            case AngleObservation a:
+                slots[0] = at.PointSlot(a.Station);
+                slots[1] = at.PointSlot(a.Backsight);
+                slots[2] = at.PointSlot(a.Foresight);
+                return 3;
+            default:
+                return 0;
+        }
+    }
+
+    /// <summary>
+    /// Evaluates the observation equation without allocating: the computed value, and the derivatives in the order of
+    /// <see cref="Evaluate"/>'s partials (whose owners and parameters do not depend on the coordinates) written to
+    /// <paramref name="partials"/>. The plane kinds are computed from the slots <see cref="Slots"/> gave (the same
+    /// arithmetic as <see cref="Evaluate"/>); the others through <see cref="IObservationKind.Evaluate"/>.
+    /// </summary>
+    /// <param name="observation">The observation.</param>
+    /// <param name="at">The coordinates.</param>
+    /// <param name="slots">The observation's slots from <see cref="Slots"/> (empty for a kind evaluated by
+    /// names).</param>
+    /// <param name="partials">Room for the derivatives (at least as many as the equation has).</param>
+    /// <param name="count">The number of derivatives written.</param>
+    internal static double EvaluateInto(Observation observation, IIndexedCoordinates at, ReadOnlySpan<int> slots,
+        Span<double> partials, out int count)
+    {
+        if (slots.Length > 0)
+            switch (observation.Kind)
+            {
+                case ObservationKind.Distance:
+                    count = 4;
+                    return PlaneGeometry.Distance(at.Plane(slots[0]), at.Plane(slots[1]), partials);
+                case ObservationKind.Direction:
+                    count = 5;
+                    return PlaneGeometry.Direction(at.Plane(slots[0]), at.Plane(slots[1]), at.Orientation(slots[2]),
+                        partials);
+                case ObservationKind.Azimuth:
+                    count = 4;
+                    return PlaneGeometry.Azimuth(at.Plane(slots[0]), at.Plane(slots[1]), partials);
+                case ObservationKind.Angle:
+                    count = 6;
+                    return PlaneGeometry.Angle(at.Plane(slots[0]), at.Plane(slots[1]), at.Plane(slots[2]), partials);
+            }
+        var eq = Evaluate(observation, at);
+        count = eq.Partials.Length;
+        for (int k = 0; k < count; k++) partials[k] = eq.Partials[k].Derivative;
+        return eq.Value;
+    }
+
     /// <summary>True when the kind's values are angles (radians internally).</summary>
     /// <param name="kind">The kind.</param>
     public static bool IsAngular(this ObservationKind kind) => Of(kind).Unit == UnitClass.Angle;
