@@ -1,3 +1,4 @@
+using NetAdjust.Geometry;
 using NetAdjust.LinearAlgebra;
 using NetAdjust.LinearAlgebra.Sparse;
 using NetAdjust.Network;
@@ -21,6 +22,9 @@ public static partial class Adjuster
         for (int k = 0; k < control.Count; k++) diagonal[network.Observations.Count + k] = 1 / Sq(control[k].Sd);
         return (index.Count, rows, WeightMatrix.Diagonal(diagonal), SolverChoice.GeometryOf(network, index));
     }
+
+    /// <summary>Design patterns resolved on this thread (for the tests of their reuse).</summary>
+    [ThreadStatic] internal static int PatternCount;
 
     /// <summary>
     /// The pattern of A, resolved once per adjustment: the unknowns an observation's equation reaches do not change
@@ -64,11 +68,14 @@ public static partial class Adjuster
         /// <summary>The largest number of partial derivatives of one observation's equation.</summary>
         public int MostPartials { get; }
 
-        /// <summary>Resolves the pattern at the current state, and gives the linearisation there.</summary>
+        /// <summary>Resolves the pattern at the current state, and gives the linearisation there. The unknowns of
+        /// a kind evaluated by slots are found through its points' and set's slots, the others' by their
+        /// names.</summary>
         public static (DesignPattern Pattern, Linearisation First) Resolve(SurveyNetwork network, UnknownIndex index,
             ParameterState state, List<ControlRow> control)
         {
             LinearisationCount++;
+            PatternCount++;
             int m = network.Observations.Count;
             var columns = new int[m + control.Count][];
             var rows = new SparseRow[columns.Length];
@@ -78,29 +85,44 @@ public static partial class Adjuster
             var cols = new List<int>();
             var vals = new List<double>();
             int most = 0;
-            var slots = new int[ObservationKindRegistry.MostSlots * m];
+            const int stride = ObservationKindRegistry.MostSlots;
+            var slots = new int[stride * m];
             var slotCount = new byte[m];
+            var (pointColumn, setColumn) = ColumnsBySlot(index, state);
+            var d = new double[8];
             for (int i = 0; i < m; i++)
             {
                 var o = network.Observations[i];
-                var eq = ObservationKindRegistry.Evaluate(o, state);
-                l[i] = -ObservationKindRegistry.Difference(o.Kind, eq.Value, o.Value);
+                var mine = slots.AsSpan(stride * i, stride);
+                int ns = ObservationKindRegistry.Slots(o, state, mine);
+                slotCount[i] = (byte)ns;
+                double value;
+                int count;
                 cols.Clear();
                 vals.Clear();
-                foreach (var p in eq.Partials)
+                if (ns > 0)
                 {
-                    int j = index.IndexOf(p.Owner, p.Parameter);
-                    if (j < 0) { target.Add(Held); continue; }
-                    int at = cols.IndexOf(j);
-                    if (at >= 0) { vals[at] += p.Derivative; target.Add(-2 - at); }
-                    else { target.Add(cols.Count); cols.Add(j); vals.Add(p.Derivative); }
+                    value = ObservationKindRegistry.EvaluateInto(o, state, mine[..ns], d, out count);
+                    var by = ObservationKindRegistry.PartialsBySlot(o.Kind);
+                    for (int k = 0; k < count; k++)
+                    {
+                        var (slot, parameter) = by[k];
+                        int j = parameter == Parameter.Orientation ? setColumn[mine[slot]]
+                            : pointColumn[(3 * mine[slot]) + (int)parameter];
+                        Place(j, d[k]);
+                    }
                 }
-                most = Math.Max(most, eq.Partials.Length);
+                else
+                {
+                    var eq = ObservationKindRegistry.Evaluate(o, state);
+                    (value, count) = (eq.Value, eq.Partials.Length);
+                    foreach (var p in eq.Partials) Place(index.IndexOf(p.Owner, p.Parameter), p.Derivative);
+                }
+                l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
+                most = Math.Max(most, count);
                 partialStart[i + 1] = target.Count;
                 columns[i] = cols.ToArray();
                 rows[i] = new SparseRow(columns[i], vals.ToArray());
-                slotCount[i] = (byte)ObservationKindRegistry.Slots(o, state,
-                    slots.AsSpan(ObservationKindRegistry.MostSlots * i, ObservationKindRegistry.MostSlots));
             }
             for (int k = 0; k < control.Count; k++)
             {
@@ -112,6 +134,35 @@ public static partial class Adjuster
             }
             return (new DesignPattern(columns, partialStart, target.ToArray(), most, slots, slotCount),
                 new Linearisation(rows, l));
+
+            // One partial derivative into the row: a new column, added to a repeated one, or left out (held).
+            void Place(int j, double derivative)
+            {
+                if (j < 0) { target.Add(Held); return; }
+                int at = cols.IndexOf(j);
+                if (at >= 0) { vals[at] += derivative; target.Add(-2 - at); }
+                else { target.Add(cols.Count); cols.Add(j); vals.Add(derivative); }
+            }
+        }
+
+        /// <summary>The unknown of each coordinate of each point slot (3 slot + E, N or H) and of each set slot's
+        /// orientation; −1 for a held one.</summary>
+        private static (int[] Points, int[] Sets) ColumnsBySlot(UnknownIndex index, ParameterState state)
+        {
+            var points = new int[3 * state.PointSlots];
+            var sets = new int[state.SetSlots];
+            Array.Fill(points, -1);
+            Array.Fill(sets, -1);
+            for (int j = 0; j < index.Count; j++)
+            {
+                var u = index.Unknowns[j];
+                if (u.Parameter is Parameter.E or Parameter.N or Parameter.H
+                    && state.PointSlotOrNone(u.Owner) is int p and >= 0)
+                    points[(3 * p) + (int)u.Parameter] = j;
+                else if (u.Parameter == Parameter.Orientation && state.SetSlotOrNone(u.Owner) is int s and >= 0)
+                    sets[s] = j;
+            }
+            return (points, sets);
         }
 
         /// <summary>The values of observation <paramref name="row"/>'s row of A from its equation's partial

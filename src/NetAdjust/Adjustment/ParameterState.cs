@@ -140,7 +140,23 @@ public sealed class ParameterState : ICoordinates, IIndexedCoordinates
         }
     }
 
-    int IIndexedCoordinates.PointSlot(string id) => PointSlot(id);
+    int IIndexedCoordinates.PlaneSlot(string id)
+    {
+        int slot = PointSlot(id);
+        return _hasE[slot] && _hasN[slot] ? slot : throw Missing(id);
+    }
+
+    /// <summary>The number of point slots.</summary>
+    internal int PointSlots => _e.Length;
+
+    /// <summary>The number of set slots.</summary>
+    internal int SetSlots => _orientation.Length;
+
+    /// <summary>The slot of a point, or −1 when the state holds none of its coordinates.</summary>
+    internal int PointSlotOrNone(string id) => _pointSlot.TryGetValue(id, out int slot) ? slot : -1;
+
+    /// <summary>The slot of a direction set, or −1 when the state holds no such set.</summary>
+    internal int SetSlotOrNone(string setId) => _setSlot.TryGetValue(setId, out int slot) ? slot : -1;
 
     int IIndexedCoordinates.SetSlot(string setId) =>
         _setSlot.TryGetValue(setId, out int slot) ? slot : throw Missing(setId);

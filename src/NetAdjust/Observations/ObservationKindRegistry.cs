@@ -65,23 +65,46 @@ public static class ObservationKindRegistry
         switch (observation)
         {
             case DistanceObservation or AzimuthObservation:
-                slots[0] = at.PointSlot(observation.From);
-                slots[1] = at.PointSlot(observation.To);
+                slots[0] = at.PlaneSlot(observation.From);
+                slots[1] = at.PlaneSlot(observation.To);
                 return 2;
             case DirectionObservation r:
-                slots[0] = at.PointSlot(r.Station);
-                slots[1] = at.PointSlot(r.Target);
+                slots[0] = at.PlaneSlot(r.Station);
+                slots[1] = at.PlaneSlot(r.Target);
                 slots[2] = at.SetSlot(r.SetId);
                 return 3;
             case AngleObservation a:
-                slots[0] = at.PointSlot(a.Station);
-                slots[1] = at.PointSlot(a.Backsight);
-                slots[2] = at.PointSlot(a.Foresight);
+                slots[0] = at.PlaneSlot(a.Station);
+                slots[1] = at.PlaneSlot(a.Backsight);
+                slots[2] = at.PlaneSlot(a.Foresight);
                 return 3;
             default:
                 return 0;
         }
     }
+
+    private static readonly (int Slot, Parameter Parameter)[] TwoPoints =
+        [(0, Parameter.E), (0, Parameter.N), (1, Parameter.E), (1, Parameter.N)];
+
+    private static readonly (int Slot, Parameter Parameter)[] DirectionPartials =
+        [.. TwoPoints, (2, Parameter.Orientation)];
+
+    private static readonly (int Slot, Parameter Parameter)[] ThreePoints =
+        [.. TwoPoints, (2, Parameter.E), (2, Parameter.N)];
+
+    /// <summary>
+    /// What each derivative <see cref="EvaluateInto"/> writes for a kind evaluated by slots is taken by: the
+    /// position in <see cref="Slots"/> of its point (or set) and the parameter, in the order of the derivatives
+    /// (the order of <see cref="Evaluate"/>'s partials); empty for a kind evaluated by names.
+    /// </summary>
+    /// <param name="kind">The kind.</param>
+    internal static ReadOnlySpan<(int Slot, Parameter Parameter)> PartialsBySlot(ObservationKind kind) => kind switch
+    {
+        ObservationKind.Distance or ObservationKind.Azimuth => TwoPoints,
+        ObservationKind.Direction => DirectionPartials,
+        ObservationKind.Angle => ThreePoints,
+        _ => [],
+    };
 
     /// <summary>
     /// Evaluates the observation equation without allocating: the computed value, and the derivatives in the order of
