@@ -36,6 +36,8 @@ public static partial class Adjuster
         int n = network.Observations.Count + control.Count;
         int u = index.Count;
         var solver = SolverChoice.For(options, network, index);
+        // The columns of every row are resolved once, with the first linearisation.
+        var (pattern, first) = DesignPattern.Resolve(network, index, state, control);
 
         // The weights come from the stochastic model at the current coordinates (sight lengths and centering
         // sensitivities); once converged it is evaluated again at the adjusted coordinates, and while it changes the
@@ -46,10 +48,12 @@ public static partial class Adjuster
 
         int iterations = 0;
         // The linearisation at the current state, when the step control has made it (reused, not repeated).
-        Linearisation? current = null;
+        Linearisation? current = first;
         for (int round = 1; ; round++)
         {
-            if (u > 0) iterations += Iterate(network, options, plan, solver, control, weights, iterations, ref current);
+            if (u > 0)
+                iterations += Iterate(network, options, plan, solver, pattern, control, weights, iterations,
+                    ref current);
             var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
             if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
             if (round == MaxStochasticRounds)
@@ -64,7 +68,7 @@ public static partial class Adjuster
         // Final linearisation at the solution: residuals, covariance.
         options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
         // (the σ the model filled in do not enter the linearisation, so the one at the last state still holds)
-        var (finalRows, finalL) = current ?? Linearise(network, index, state, control);
+        var (finalRows, finalL) = current ?? Linearise(network, pattern, state, control);
         INormalFactor? finalFactor = u > 0 ? plan.Factorize(solver, finalRows, weights) : null;
         double vtpv = weights.Quadratic(finalL); // v = −l at the solution
         int dof = n - u + plan.ConditionCount;
@@ -158,8 +162,8 @@ public static partial class Adjuster
     /// <returns>The number of iterations made. <c>current</c>, the linearisation at the current state when known, is
     /// used and then replaced by the one the step control made at the state it leaves (or null).</returns>
     private static int Iterate(SurveyNetwork network, AdjustmentOptions options, DatumPlan plan,
-        INormalEquationsSolver solver, List<ControlRow> control, WeightMatrix weights, int before,
-        ref Linearisation? current)
+        INormalEquationsSolver solver, DesignPattern pattern, List<ControlRow> control, WeightMatrix weights,
+        int before, ref Linearisation? current)
     {
         var (index, state) = (plan.Index, plan.State);
         int u = index.Count, iterations = 0;
@@ -171,7 +175,7 @@ public static partial class Adjuster
                 throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
             iterations++;
             options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {before + iterations}", null));
-            var (rows, l) = current ?? Linearise(network, index, state, control);
+            var (rows, l) = current ?? Linearise(network, pattern, state, control);
             current = null;
             var factor = plan.Factorize(solver, rows, weights);
             var pl = weights.Multiply(l);
@@ -206,7 +210,7 @@ public static partial class Adjuster
             double lambda = StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () =>
             {
                 trials++;
-                trial = Linearise(network, index, state, control);
+                trial = Linearise(network, pattern, state, control);
                 return weights.Quadratic(trial.Value.L);
             });
             if (lambda == Math.Pow(0.5, trials - 1)) current = trial;
@@ -276,37 +280,29 @@ public static partial class Adjuster
     /// <summary>Linearisations made on this thread (for the tests of their reuse).</summary>
     [ThreadStatic] internal static int LinearisationCount;
 
-    /// <summary>Rows of A and misclosures l = observed − computed at the current state.</summary>
-    private static Linearisation Linearise(SurveyNetwork network, UnknownIndex index,
-        ParameterState state, List<ControlRow> control)
+    /// <summary>Rows of A and misclosures l = observed − computed at the current state, on the pattern resolved
+    /// once (<see cref="DesignPattern"/>): only the values are computed, with no lookup of unknowns.</summary>
+    private static Linearisation Linearise(SurveyNetwork network, DesignPattern pattern, ParameterState state,
+        List<ControlRow> control)
     {
         LinearisationCount++;
         int m = network.Observations.Count;
         var rows = new SparseRow[m + control.Count];
         var l = new double[rows.Length];
+        Span<double> d = pattern.MostPartials <= 64 ? stackalloc double[pattern.MostPartials]
+            : new double[pattern.MostPartials];
         for (int i = 0; i < m; i++)
         {
             var o = network.Observations[i];
-            var eq = ObservationKindRegistry.Evaluate(o, state);
-            l[i] = -ObservationKindRegistry.Difference(o.Kind, eq.Value, o.Value);
-            var cols = new List<int>(eq.Partials.Length);
-            var vals = new List<double>(eq.Partials.Length);
-            foreach (var p in eq.Partials)
-            {
-                int j = index.IndexOf(p.Owner, p.Parameter);
-                if (j < 0) continue;
-                int at = cols.IndexOf(j);
-                if (at >= 0) vals[at] += p.Derivative;
-                else { cols.Add(j); vals.Add(p.Derivative); }
-            }
-            rows[i] = new SparseRow(cols.ToArray(), vals.ToArray());
+            double value = ObservationKindRegistry.EvaluateInto(o, state, pattern.Slots(i), d, out int count);
+            l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
+            rows[i] = new SparseRow(pattern.Columns[i], pattern.Values(i, d[..count]));
         }
         for (int k = 0; k < control.Count; k++)
         {
             var c = control[k];
-            int j = index.IndexOf(c.PointId, c.Parameter);
             state.TryGet(c.PointId, c.Parameter, out double current);
-            rows[m + k] = new SparseRow([j], [1.0]);
+            rows[m + k] = new SparseRow(pattern.Columns[m + k], [1.0]);
             l[m + k] = c.Given - current;
         }
         return new Linearisation(rows, l);

@@ -66,14 +66,24 @@ public static class PlaneGeometry
     /// <param name="to">Coordinates of the to point.</param>
     public static EquationValue Distance(string fromId, PlanePoint from, string toId, PlanePoint to)
     {
+        Span<double> g = stackalloc double[4];
+        double d = Distance(from, to, g);
+        return new EquationValue(d,
+        [
+            new(fromId, Parameter.E, g[0]), new(fromId, Parameter.N, g[1]),
+            new(toId, Parameter.E, g[2]), new(toId, Parameter.N, g[3]),
+        ]);
+    }
+
+    /// <summary>Horizontal distance without allocating: the value, and its derivatives by E and N of the from
+    /// point, then of the to point, written to <paramref name="partials"/> (4 entries).</summary>
+    internal static double Distance(PlanePoint from, PlanePoint to, Span<double> partials)
+    {
         double de = to.E - from.E, dn = to.N - from.N;
         double d = Math.Sqrt((de * de) + (dn * dn));
         double se = de / d, sn = dn / d;
-        return new EquationValue(d,
-        [
-            new(fromId, Parameter.E, -se), new(fromId, Parameter.N, -sn),
-            new(toId, Parameter.E, se), new(toId, Parameter.N, sn),
-        ]);
+        partials[0] = -se; partials[1] = -sn; partials[2] = se; partials[3] = sn;
+        return d;
     }
 
     /// <summary>Grid azimuth t = atan2(ΔE, ΔN) in [0, 2π) and its derivatives ∂t/∂E_to = ΔN/d², ∂t/∂N_to =
@@ -84,16 +94,26 @@ public static class PlaneGeometry
     /// <param name="to">Coordinates of the to point.</param>
     public static EquationValue Azimuth(string fromId, PlanePoint from, string toId, PlanePoint to)
     {
+        Span<double> g = stackalloc double[4];
+        double t = Azimuth(from, to, g);
+        return new EquationValue(t,
+        [
+            new(fromId, Parameter.E, g[0]), new(fromId, Parameter.N, g[1]),
+            new(toId, Parameter.E, g[2]), new(toId, Parameter.N, g[3]),
+        ]);
+    }
+
+    /// <summary>Grid azimuth without allocating: the value, and its derivatives by E and N of the from point, then
+    /// of the to point, written to <paramref name="partials"/> (4 entries).</summary>
+    internal static double Azimuth(PlanePoint from, PlanePoint to, Span<double> partials)
+    {
         double de = to.E - from.E, dn = to.N - from.N;
         double d2 = (de * de) + (dn * dn);
         double t = Math.Atan2(de, dn);
         if (t < 0) t += 2 * Math.PI;
         double ge = dn / d2, gn = -de / d2;
-        return new EquationValue(t,
-        [
-            new(fromId, Parameter.E, -ge), new(fromId, Parameter.N, -gn),
-            new(toId, Parameter.E, ge), new(toId, Parameter.N, gn),
-        ]);
+        partials[0] = -ge; partials[1] = -gn; partials[2] = ge; partials[3] = gn;
+        return t;
     }
 
     /// <summary>Horizontal direction r = t(station→target) − ω, with ω the set's orientation unknown.</summary>
@@ -106,11 +126,24 @@ public static class PlaneGeometry
     public static EquationValue Direction(string stationId, PlanePoint station, string targetId, PlanePoint target,
         string setId, double orientation)
     {
-        var az = Azimuth(stationId, station, targetId, target);
-        var partials = new Partial[az.Partials.Length + 1];
-        az.Partials.CopyTo(partials, 0);
-        partials[^1] = new Partial(setId, Parameter.Orientation, -1.0);
-        return new EquationValue(az.Value - orientation, partials);
+        Span<double> g = stackalloc double[5];
+        double r = Direction(station, target, orientation, g);
+        return new EquationValue(r,
+        [
+            new(stationId, Parameter.E, g[0]), new(stationId, Parameter.N, g[1]),
+            new(targetId, Parameter.E, g[2]), new(targetId, Parameter.N, g[3]),
+            new(setId, Parameter.Orientation, g[4]),
+        ]);
+    }
+
+    /// <summary>Horizontal direction without allocating: the value, and its derivatives by E and N of the station,
+    /// of the target, and by the orientation, written to <paramref name="partials"/> (5 entries).</summary>
+    internal static double Direction(PlanePoint station, PlanePoint target, double orientation,
+        Span<double> partials)
+    {
+        double t = Azimuth(station, target, partials);
+        partials[4] = -1.0;
+        return t - orientation;
     }
 
     /// <summary>Horizontal angle α = t(at→foresight) − t(at→backsight), clockwise, in [0, 2π).</summary>
@@ -123,18 +156,28 @@ public static class PlaneGeometry
     public static EquationValue Angle(string atId, PlanePoint at, string backId, PlanePoint back, string foreId,
         PlanePoint fore)
     {
-        var tf = Azimuth(atId, at, foreId, fore);
-        var tb = Azimuth(atId, at, backId, back);
-        double a = tf.Value - tb.Value;
-        if (a < 0) a += 2 * Math.PI;
-        // ∂α = ∂t_f − ∂t_b; the station's derivatives combine both.
+        Span<double> g = stackalloc double[6];
+        double a = Angle(at, back, fore, g);
         return new EquationValue(a,
         [
-            new(atId, Parameter.E, tf.Partials[0].Derivative - tb.Partials[0].Derivative),
-            new(atId, Parameter.N, tf.Partials[1].Derivative - tb.Partials[1].Derivative),
-            new(backId, Parameter.E, -tb.Partials[2].Derivative), new(backId, Parameter.N, -tb.Partials[3].Derivative),
-            new(foreId, Parameter.E, tf.Partials[2].Derivative), new(foreId, Parameter.N, tf.Partials[3].Derivative),
+            new(atId, Parameter.E, g[0]), new(atId, Parameter.N, g[1]),
+            new(backId, Parameter.E, g[2]), new(backId, Parameter.N, g[3]),
+            new(foreId, Parameter.E, g[4]), new(foreId, Parameter.N, g[5]),
         ]);
+    }
+
+    /// <summary>Horizontal angle without allocating: the value, and its derivatives by E and N of the station, the
+    /// backsight and the foresight, written to <paramref name="partials"/> (6 entries).</summary>
+    internal static double Angle(PlanePoint at, PlanePoint back, PlanePoint fore, Span<double> partials)
+    {
+        Span<double> tf = stackalloc double[4], tb = stackalloc double[4];
+        double a = Azimuth(at, fore, tf) - Azimuth(at, back, tb);
+        if (a < 0) a += 2 * Math.PI;
+        // ∂α = ∂t_f − ∂t_b; the station's derivatives combine both.
+        partials[0] = tf[0] - tb[0]; partials[1] = tf[1] - tb[1];
+        partials[2] = -tb[2]; partials[3] = -tb[3];
+        partials[4] = tf[2]; partials[5] = tf[3];
+        return a;
     }
 
     /// <summary>Height difference Δh = H_to − H_from.</summary>

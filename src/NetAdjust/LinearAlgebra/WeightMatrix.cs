@@ -52,7 +52,15 @@ public sealed class WeightMatrix
         for (int i = 0; i < rowCount; i++)
             if (_blockOfRow[i] < 0) throw new ArgumentException($"row {i} has no weight");
         IsDiagonal = blocks.All(b => b.Size == 1);
+        if (IsDiagonal)
+        {
+            DiagonalWeights = new double[rowCount];
+            foreach (var b in blocks) DiagonalWeights[b.Rows[0]] = b.Matrix[0];
+        }
     }
+
+    /// <summary>P_ii by row when every block has one row (<see cref="IsDiagonal"/>), else null.</summary>
+    internal double[]? DiagonalWeights { get; }
 
     /// <summary>A diagonal weight matrix.</summary>
     /// <param name="weights">The positive weights, one per row.</param>
@@ -166,6 +174,16 @@ public sealed class WeightMatrix
     public double[] Multiply(ReadOnlySpan<double> v)
     {
         var y = new double[RowCount];
+        if (DiagonalWeights is { } w)
+        {
+            for (int i = 0; i < RowCount; i++)
+            {
+                double s = 0; // the sum of the one-row block below, in its order
+                s += w[i] * v[i];
+                y[i] = s;
+            }
+            return y;
+        }
         foreach (var b in _blocks)
             for (int a = 0; a < b.Size; a++)
             {
@@ -180,8 +198,18 @@ public sealed class WeightMatrix
     /// <param name="v">A vector of <see cref="RowCount"/> entries.</param>
     public double Quadratic(ReadOnlySpan<double> v)
     {
-        var pv = Multiply(v);
         double s = 0;
+        if (DiagonalWeights is { } w)
+        {
+            for (int i = 0; i < RowCount; i++)
+            {
+                double pvi = 0; // (P v)_i as Multiply sums it
+                pvi += w[i] * v[i];
+                s += v[i] * pvi;
+            }
+            return s;
+        }
+        var pv = Multiply(v);
         for (int i = 0; i < RowCount; i++) s += v[i] * pv[i];
         return s;
     }

@@ -48,6 +48,102 @@ public static class ObservationKindRegistry
     public static EquationValue Evaluate(Observation observation, ICoordinates at) =>
         Of(observation).Evaluate(observation, at);
 
+    /// <summary>The most slots an observation's equation reads (<see cref="Slots"/>).</summary>
+    internal const int MostSlots = 3;
+
+    /// <summary>
+    /// The slots of the points (and direction set) whose coordinates an observation's equation reads, for
+    /// <see cref="EvaluateInto"/>: station or from point, then target, then the direction set or the foresight. Only
+    /// the plane kinds are evaluated by slots; for the others no slot is written.
+    /// </summary>
+    /// <param name="observation">The observation.</param>
+    /// <param name="at">The coordinates.</param>
+    /// <param name="slots">Room for <see cref="MostSlots"/> slots.</param>
+    /// <returns>The number of slots written; 0 when the kind is evaluated by names.</returns>
+    internal static int Slots(Observation observation, IIndexedCoordinates at, Span<int> slots)
+    {
+        switch (observation)
+        {
+            case DistanceObservation or AzimuthObservation:
+                slots[0] = at.PlaneSlot(observation.From);
+                slots[1] = at.PlaneSlot(observation.To);
+                return 2;
+            case DirectionObservation r:
+                slots[0] = at.PlaneSlot(r.Station);
+                slots[1] = at.PlaneSlot(r.Target);
+                slots[2] = at.SetSlot(r.SetId);
+                return 3;
+            case AngleObservation a:
+                slots[0] = at.PlaneSlot(a.Station);
+                slots[1] = at.PlaneSlot(a.Backsight);
+                slots[2] = at.PlaneSlot(a.Foresight);
+                return 3;
+            default:
+                return 0;
+        }
+    }
+
+    private static readonly (int Slot, Parameter Parameter)[] TwoPoints =
+        [(0, Parameter.E), (0, Parameter.N), (1, Parameter.E), (1, Parameter.N)];
+
+    private static readonly (int Slot, Parameter Parameter)[] DirectionPartials =
+        [.. TwoPoints, (2, Parameter.Orientation)];
+
+    private static readonly (int Slot, Parameter Parameter)[] ThreePoints =
+        [.. TwoPoints, (2, Parameter.E), (2, Parameter.N)];
+
+    /// <summary>
+    /// What each derivative <see cref="EvaluateInto"/> writes for a kind evaluated by slots is taken by: the
+    /// position in <see cref="Slots"/> of its point (or set) and the parameter, in the order of the derivatives
+    /// (the order of <see cref="Evaluate"/>'s partials); empty for a kind evaluated by names.
+    /// </summary>
+    /// <param name="kind">The kind.</param>
+    internal static ReadOnlySpan<(int Slot, Parameter Parameter)> PartialsBySlot(ObservationKind kind) => kind switch
+    {
+        ObservationKind.Distance or ObservationKind.Azimuth => TwoPoints,
+        ObservationKind.Direction => DirectionPartials,
+        ObservationKind.Angle => ThreePoints,
+        _ => [],
+    };
+
+    /// <summary>
+    /// Evaluates the observation equation without allocating: the computed value, and the derivatives in the order of
+    /// <see cref="Evaluate"/>'s partials (whose owners and parameters do not depend on the coordinates) written to
+    /// <paramref name="partials"/>. The plane kinds are computed from the slots <see cref="Slots"/> gave (the same
+    /// arithmetic as <see cref="Evaluate"/>); the others through <see cref="IObservationKind.Evaluate"/>.
+    /// </summary>
+    /// <param name="observation">The observation.</param>
+    /// <param name="at">The coordinates.</param>
+    /// <param name="slots">The observation's slots from <see cref="Slots"/> (empty for a kind evaluated by
+    /// names).</param>
+    /// <param name="partials">Room for the derivatives (at least as many as the equation has).</param>
+    /// <param name="count">The number of derivatives written.</param>
+    internal static double EvaluateInto(Observation observation, IIndexedCoordinates at, ReadOnlySpan<int> slots,
+        Span<double> partials, out int count)
+    {
+        if (slots.Length > 0)
+            switch (observation.Kind)
+            {
+                case ObservationKind.Distance:
+                    count = 4;
+                    return PlaneGeometry.Distance(at.Plane(slots[0]), at.Plane(slots[1]), partials);
+                case ObservationKind.Direction:
+                    count = 5;
+                    return PlaneGeometry.Direction(at.Plane(slots[0]), at.Plane(slots[1]), at.Orientation(slots[2]),
+                        partials);
+                case ObservationKind.Azimuth:
+                    count = 4;
+                    return PlaneGeometry.Azimuth(at.Plane(slots[0]), at.Plane(slots[1]), partials);
+                case ObservationKind.Angle:
+                    count = 6;
+                    return PlaneGeometry.Angle(at.Plane(slots[0]), at.Plane(slots[1]), at.Plane(slots[2]), partials);
+            }
+        var eq = Evaluate(observation, at);
+        count = eq.Partials.Length;
+        for (int k = 0; k < count; k++) partials[k] = eq.Partials[k].Derivative;
+        return eq.Value;
+    }
+
     /// <summary>True when the kind's values are angles (radians internally).</summary>
     /// <param name="kind">The kind.</param>
     public static bool IsAngular(this ObservationKind kind) => Of(kind).Unit == UnitClass.Angle;

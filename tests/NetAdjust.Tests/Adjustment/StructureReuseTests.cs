@@ -1,5 +1,7 @@
 using NetAdjust.Adjustment;
+using NetAdjust.Geometry;
 using NetAdjust.Network;
+using NetAdjust.Observations;
 using NetAdjust.Procedures;
 using NetAdjust.Simulation;
 
@@ -8,7 +10,8 @@ namespace NetAdjust.Tests.Adjustment;
 /// <summary>
 /// What an adjustment computes once and reuses: the linearisation at each state (the step control's trial at the new
 /// state is the next iteration's linearisation, and the last one serves the residuals), and, by default, the sparse
-/// engine's symbolic analysis over every round of a procedure.
+/// engine's symbolic analysis over every round of a procedure; the columns of the design matrix, resolved once per
+/// adjustment.
 /// </summary>
 public class StructureReuseTests
 {
@@ -37,6 +40,52 @@ public class StructureReuseTests
         // one at the start, one per iteration at the state it reaches (the step control's trial, reused by the next
         // iteration and by the residuals); the step control halved no step here
         Assert.Equal(result.Statistics.Iterations + 1, made);
+    }
+
+    [Fact]
+    public void TheColumnsOfTheDesignMatrixAreResolvedOnceAndMatchALookupByNames()
+    {
+        // Directions, slope distances, zenith angles and angles, with two held points (held columns left out).
+        var network = NetAdjust.Tests.Diagnosis.DiagnosisNetworks.Draw(3);
+        int before = Adjuster.PatternCount;
+        var result = Adjuster.Adjust(network);
+        Assert.Equal(1, Adjuster.PatternCount - before);
+        Assert.True(result.Statistics.Iterations >= 2, "the test needs more than one iteration");
+        // The final rows (made on the pattern) against the rows found as before the pattern existed: each partial
+        // derivative of the equation at the adjusted coordinates looked up by its unknown's name, a repeated
+        // column added.
+        var at = new AdjustedCoordinates(result);
+        for (int i = 0; i < network.Observations.Count; i++)
+        {
+            var cols = new List<int>();
+            var vals = new List<double>();
+            foreach (var p in ObservationKindRegistry.Evaluate(network.Observations[i], at).Partials)
+            {
+                int j = result.Unknowns.IndexOf(p.Owner, p.Parameter);
+                if (j < 0) continue;
+                int k = cols.IndexOf(j);
+                if (k >= 0) vals[k] += p.Derivative;
+                else { cols.Add(j); vals.Add(p.Derivative); }
+            }
+            var row = result.DesignRows[i];
+            Assert.Equal(cols, row.Columns);
+            Assert.Equal(vals.Select(BitConverter.DoubleToInt64Bits),
+                row.Values.Select(BitConverter.DoubleToInt64Bits));
+        }
+    }
+
+    /// <summary>The adjusted coordinates (the state the last linearisation was made at); orientations, which no
+    /// partial derivative depends on, are zero.</summary>
+    private sealed class AdjustedCoordinates(AdjustmentResult result) : ICoordinates
+    {
+        private readonly Dictionary<string, AdjustedPoint> _points =
+            result.Points.ToDictionary(p => p.Input.Id, StringComparer.Ordinal);
+
+        public PlanePoint Plane(string id) => new(_points[id].E!.Value, _points[id].N!.Value);
+
+        public double Height(string id) => _points[id].H!.Value;
+
+        public double Orientation(string setId) => 0;
     }
 
     [Fact]

@@ -41,7 +41,7 @@ public class RefractionBudgetTests
             RefractionGroup = estimated ? "G" : null, RefractionEstimated = estimated,
         };
 
-    private sealed class Flat : Observations.ICoordinates
+    private sealed class Flat : NetAdjust.Observations.ICoordinates
     {
         public PlanePoint Plane(string id) => id == "A" ? new(0, 0) : new(600, 800);
 

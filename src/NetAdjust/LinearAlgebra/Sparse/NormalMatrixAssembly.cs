@@ -51,6 +51,8 @@ internal sealed class NormalMatrixAssembly
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public double[] Assemble(IReadOnlyList<SparseRow> rows, WeightMatrix weights)
     {
+        var a = rows as SparseRow[] ?? [.. rows];
+        var diagonal = weights.DiagonalWeights; // P_ss by row when every block has one row, else null
         var lower = _symbolic.LowerC;
         var perm = _symbolic.Perm;
         var iperm = _symbolic.InversePerm;
@@ -69,25 +71,41 @@ internal sealed class NormalMatrixAssembly
             for (int e = _atStart[j]; e < _atStart[j + 1]; e++)
             {
                 int s = _atRow[e];
-                double a = rows[s].Values[_atPos[e]];
+                double asj = a[s].Values[_atPos[e]];
+                if (diagonal is not null)
+                {
+                    double c = asj * diagonal[s];
+                    if (c != 0) Scatter(a[s], c, k, iperm, stamp, position, values);
+                    continue;
+                }
                 var (block, ps) = weights.BlockOf(s);
                 for (int t = 0; t < block.Size; t++)
                 {
-                    double c = a * block[ps, t];
+                    double c = asj * block[ps, t];
                     if (c == 0) continue;
-                    var rt = rows[block.Rows[t]];
-                    for (int q = 0; q < rt.Columns.Length; q++)
-                    {
-                        int i = iperm[rt.Columns[q]];
-                        if (i < k) continue;
-                        if (stamp[i] != k)
-                            throw new InvalidOperationException(
-                                "The design rows reach outside the analysed pattern of the normal matrix.");
-                        values[position[i]] += c * rt.Values[q];
-                    }
+                    Scatter(a[block.Rows[t]], c, k, iperm, stamp, position, values);
                 }
             }
         }
         return values;
+    }
+
+    /// <summary>Adds c·a_t to the entries of column k of C on or below the diagonal.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
+    private static void Scatter(SparseRow rt, double c, int k, int[] iperm, int[] stamp, int[] position,
+        double[] values)
+    {
+        var columns = rt.Columns;
+        var coefficients = rt.Values;
+        for (int q = 0; q < columns.Length; q++)
+        {
+            int i = iperm[columns[q]];
+            if (i < k) continue;
+            if (stamp[i] != k)
+                throw new InvalidOperationException(
+                    "The design rows reach outside the analysed pattern of the normal matrix.");
+            values[position[i]] += c * coefficients[q];
+        }
     }
 }
