@@ -7,7 +7,9 @@ namespace NetAdjust.Benchmarks;
 /// or a one-shot phase timing: <c>... -- phases plane|levels POINTS [auto|nd|md]</c>;
 /// or the orderings against the reference AMD: <c>... -- orderings [plane|levels POINTS]...</c>;
 /// or the project reader's speed: <c>... -- reading [POINTS] [RUNS]</c>;
-/// or the phases of the adjust command in process: <c>... -- command FILE [RUNS]</c>.
+/// or the phases of the adjust command in process: <c>... -- command FILE [RUNS]</c>;
+/// or the sparse engine's share of it (factorisation, selected inverse, statistics): <c>... -- covariance FILE
+/// [RUNS]</c>.
 /// </summary>
 public static class Program
 {
@@ -19,6 +21,7 @@ public static class Program
         if (args.Length > 0 && args[0] == "orderings") { OrderingComparison.Run(args); return; }
         if (args.Length > 0 && args[0] == "reading") { ReadingProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "command") { CommandPhases.Run(args); return; }
+        if (args.Length > 0 && args[0] == "covariance") { CovarianceProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
         if (args.Length > 0 && args[0] == "crossover") { Crossover.Run(); return; }
         if (args.Length > 1 && args[0] == "dense")
