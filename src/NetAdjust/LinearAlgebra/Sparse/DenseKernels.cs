@@ -34,6 +34,49 @@ internal static class DenseKernels
         return s;
     }
 
+    /// <summary>
+    /// The four dot products of <see cref="Dot"/> for the pairs (a0, b0), (a0, b1), (a1, b0), (a1, b1) over n entries,
+    /// each with exactly the arithmetic of <see cref="Dot"/> (same accumulators, same order: bit-identical results),
+    /// loading each vector once for two products.
+    /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    public static void Dot2x2Exact(ReadOnlySpan<double> a0, ReadOnlySpan<double> a1, ReadOnlySpan<double> b0,
+        ReadOnlySpan<double> b1, int n, out double s00, out double s01, out double s10, out double s11)
+    {
+        int w = Vector<double>.Count, t = 0;
+        s00 = s01 = s10 = s11 = 0;
+        if (n >= 2 * w)
+        {
+            var va0 = MemoryMarshal.Cast<double, Vector<double>>(a0[..n]);
+            var va1 = MemoryMarshal.Cast<double, Vector<double>>(a1[..n]);
+            var vb0 = MemoryMarshal.Cast<double, Vector<double>>(b0[..n]);
+            var vb1 = MemoryMarshal.Cast<double, Vector<double>>(b1[..n]);
+            Vector<double> p00 = default, p01 = default, p10 = default, p11 = default; // acc0 of Dot
+            Vector<double> q00 = default, q01 = default, q10 = default, q11 = default; // acc1 of Dot
+            int v = 0, len = va0.Length;
+            for (; v + 1 < len; v += 2)
+            {
+                var x0 = va0[v]; var x1 = va1[v]; var y0 = vb0[v]; var y1 = vb1[v];
+                p00 += x0 * y0; p01 += x0 * y1; p10 += x1 * y0; p11 += x1 * y1;
+                x0 = va0[v + 1]; x1 = va1[v + 1]; y0 = vb0[v + 1]; y1 = vb1[v + 1];
+                q00 += x0 * y0; q01 += x0 * y1; q10 += x1 * y0; q11 += x1 * y1;
+            }
+            if (v < len)
+            {
+                var x0 = va0[v]; var x1 = va1[v]; var y0 = vb0[v]; var y1 = vb1[v];
+                p00 += x0 * y0; p01 += x0 * y1; p10 += x1 * y0; p11 += x1 * y1;
+            }
+            s00 = Vector.Sum(p00 + q00); s01 = Vector.Sum(p01 + q01);
+            s10 = Vector.Sum(p10 + q10); s11 = Vector.Sum(p11 + q11);
+            t = len * w;
+        }
+        for (; t < n; t++)
+        {
+            s00 += a0[t] * b0[t]; s01 += a0[t] * b1[t]; s10 += a1[t] * b0[t]; s11 += a1[t] * b1[t];
+        }
+    }
+
     /// <summary>y[0..n) −= α x[0..n).</summary>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
