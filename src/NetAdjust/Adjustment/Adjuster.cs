@@ -91,17 +91,7 @@ public static partial class Adjuster
                 Budget = model.Budgets[i],
             };
         }
-        var orientations = network.Observations.OfType<DirectionObservation>()
-            .Select(d => (d.SetId, d.Station)).Distinct()
-            .Where(s => index.IndexOf(s.SetId,
-                Parameter.Orientation) >= 0) // a set wholly set aside has no orientation unknown
-            .Select(s =>
-            {
-                int j = index.IndexOf(s.SetId, Parameter.Orientation);
-                double sd = finalFactor is null ? 0 : Math.Sqrt(Math.Max(0, s0 * finalFactor.InverseEntry(j, j)));
-                return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)),
-                    sd);
-            }).ToArray();
+        var orientations = AdjustedOrientations(network, index, state, finalFactor, s0);
 
         return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points,
             observations, orientations, stats,
@@ -113,6 +103,30 @@ public static partial class Adjuster
     }
 
     private static double Sq(double x) => x * x;
+
+    /// <summary>One orientation per distinct (set, station) of the directions, in order of first appearance; a set
+    /// wholly set aside has no orientation unknown and is left out.</summary>
+    private static AdjustedOrientation[] AdjustedOrientations(SurveyNetwork network, UnknownIndex index,
+        ParameterState state, INormalFactor? f, double s0)
+    {
+        var seen = new HashSet<(string, string)>();
+        var list = new List<AdjustedOrientation>();
+        string? lastSet = null, lastStation = null;
+        foreach (var o in network.Observations)
+        {
+            if (o is not DirectionObservation d) continue;
+            // the directions of a set usually follow one another: skip the set look-up for a repeat of the last one
+            if (d.SetId == lastSet && d.Station == lastStation) continue;
+            (lastSet, lastStation) = (d.SetId, d.Station);
+            if (!seen.Add((d.SetId, d.Station))) continue;
+            int j = index.IndexOf(d.SetId, Parameter.Orientation);
+            if (j < 0) continue;
+            double sd = f is null ? 0 : Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(j, j)));
+            list.Add(new AdjustedOrientation(d.SetId, d.Station, Units.Angle.Reduce0To2Pi(state.Orientation(d.SetId)),
+                sd));
+        }
+        return list.ToArray();
+    }
 
     /// <summary>The largest correction to an estimated refraction coefficient that counts as converged: it moves a
     /// zenith angle over 1 km by 8e-11 rad.</summary>
