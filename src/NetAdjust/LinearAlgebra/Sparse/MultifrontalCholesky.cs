@@ -150,7 +150,21 @@ internal static class MultifrontalCholesky
         void RowRange(int lo, int hi)
         {
             var ls = L.AsSpan();
-            for (int i = lo; i < hi; i++)
+            int i = lo;
+            for (; i + 1 < hi; i += 2)
+            {
+                // two rows at once, each with the arithmetic of the single-row loop below
+                var ri0 = ls.Slice((int)(off + ((long)i * k)), k);
+                var ri1 = ls.Slice((int)(off + ((long)(i + 1) * k)), k);
+                for (int c = 0; c < k; c++)
+                {
+                    var rc = ls.Slice((int)(off + ((long)c * k)), k);
+                    DenseKernels.Dot1x2Exact(rc, ri0, ri1, c, out double d0, out double d1);
+                    ri0[c] = (ri0[c] - d0) / rc[c];
+                    ri1[c] = (ri1[c] - d1) / rc[c];
+                }
+            }
+            for (; i < hi; i++)
             {
                 var ri = ls.Slice((int)(off + ((long)i * k)), k);
                 for (int c = 0; c < k; c++)
