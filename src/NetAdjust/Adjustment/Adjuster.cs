@@ -75,6 +75,7 @@ public static partial class Adjuster
         var points = network.Points.Select(p => AdjustedPointOf(plan.AsUsed(p), index, state, finalFactor,
             s0)).ToArray();
         var observations = new AdjustedObservation[network.Observations.Count];
+        var rowCofactors = new double[observations.Length];
         for (int i = 0; i < observations.Length; i++)
         {
             if (options.Progress is not null && i % 65536 == 0)
@@ -86,6 +87,7 @@ public static partial class Adjuster
             if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
             double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) :
                 Quadratic(finalRows[i], finalFactor);
+            rowCofactors[i] = o.Excluded ? double.NaN : qll;
             observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
             {
                 Budget = model.Budgets[i],
@@ -97,6 +99,7 @@ public static partial class Adjuster
             observations, orientations, stats,
             solver.Name, finalRows, weights)
         {
+            RowCofactors = finalFactor is null ? null : rowCofactors,
             Refractions = AdjustedRefractions(index, state, finalFactor, s0),
             FrameParameters = FrameParameters.Adjusted(index, state, finalFactor, s0),
         };

@@ -60,6 +60,7 @@ public static class ResultAnalysis
             return s;
         }
 
+        var rowCofactors = result.RowCofactors;
         var red = new double[m];
         var pqp = new double[m];   // (P Qvv P)ᵢᵢ
         var pv = new double[m];    // (P v)ᵢ
@@ -72,7 +73,10 @@ public static class ResultAnalysis
                 double p1 = blk[0, 0];
                 if (p1 == 0) continue;
                 int row1 = blk.Rows[0];
-                double q1 = (1 / p1) - AQA(rows[row1], rows[row1]);
+                // a Qxx aᵀ as the adjuster computed it (same products in the same order as AQA), else computed
+                double aqa1 = hasFactor && rowCofactors is not null && row1 < rowCofactors.Length &&
+                    !double.IsNaN(rowCofactors[row1]) ? rowCofactors[row1] : AQA(rows[row1], rows[row1]);
+                double q1 = (1 / p1) - aqa1;
                 weighted[row1] = true;
                 double r1 = 0, s1 = 0, y1 = 0;
                 r1 += q1 * p1;
