@@ -74,7 +74,8 @@ internal static class CovarianceProbe
         Console.WriteLine("least CPU of the warm runs:");
         for (int p = 0; p < best[0].Count; p++)
             Console.WriteLine(string.Create(inv,
-                $"  {best[0][p].Phase,-30} CPU {best.Min(b => b[p].Cpu),7:F3} s   wall {best.Min(b => b[p].Wall),7:F3} s"));
+                $"  {best[0][p].Phase,-30} CPU {best.Min(b => b[p].Cpu),7:F3} s   " +
+                $"wall {best.Min(b => b[p].Wall),7:F3} s"));
     }
 
     private sealed class Clock
