@@ -238,6 +238,8 @@ public static partial class Adjuster
     /// <summary>a Qxx aᵀ for one design row.</summary>
     internal static double Quadratic(SparseRow a, INormalFactor f)
     {
+        // the sparse factor sums the same products in the same order, locating each pair of unknowns once
+        if (f is LinearAlgebra.Sparse.SparseCholeskyFactor sparse) return sparse.QuadraticForm(a.Columns, a.Values);
         double s = 0;
         for (int p = 0; p < a.Columns.Length; p++)
             for (int q = 0; q < a.Columns.Length; q++)
