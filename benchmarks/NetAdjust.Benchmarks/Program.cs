@@ -9,7 +9,9 @@ namespace NetAdjust.Benchmarks;
 /// or the project reader's speed: <c>... -- reading [POINTS] [RUNS]</c>;
 /// or the phases of the adjust command in process: <c>... -- command FILE [RUNS]</c>;
 /// or the work before the first iteration: <c>... -- setup FILE [RUNS] [DUMP]</c>;
-/// or where the adjustment's CPU time goes: <c>... -- iteration FILE [RUNS]</c>.
+/// or where the adjustment's CPU time goes: <c>... -- iteration FILE [RUNS]</c>;
+/// or the sparse engine's share of it (factorisation, selected inverse, statistics): <c>... -- covariance FILE
+/// [RUNS]</c>.
 /// </summary>
 public static class Program
 {
@@ -23,6 +25,7 @@ public static class Program
         if (args.Length > 0 && args[0] == "command") { CommandPhases.Run(args); return; }
         if (args.Length > 0 && args[0] == "setup") { SetupPhases.Run(args); return; }
         if (args.Length > 0 && args[0] == "iteration") { IterationProbe.Run(args); return; }
+        if (args.Length > 0 && args[0] == "covariance") { CovarianceProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
         if (args.Length > 0 && args[0] == "crossover") { Crossover.Run(); return; }
         if (args.Length > 1 && args[0] == "dense")

@@ -79,6 +79,7 @@ public static partial class Adjuster
         var points = network.Points.Select(p => AdjustedPointOf(plan.AsUsed(p), index, state, finalFactor,
             s0)).ToArray();
         var observations = new AdjustedObservation[network.Observations.Count];
+        var rowCofactors = new double[observations.Length];
         for (int i = 0; i < observations.Length; i++)
         {
             if (options.Progress is not null && i % 65536 == 0)
@@ -90,33 +91,49 @@ public static partial class Adjuster
             if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
             double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) :
                 Quadratic(finalRows[i], finalFactor);
+            rowCofactors[i] = o.Excluded ? double.NaN : qll;
             observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
             {
                 Budget = model.Budgets[i],
             };
         }
-        var orientations = network.Observations.OfType<DirectionObservation>()
-            .Select(d => (d.SetId, d.Station)).Distinct()
-            .Where(s => index.IndexOf(s.SetId,
-                Parameter.Orientation) >= 0) // a set wholly set aside has no orientation unknown
-            .Select(s =>
-            {
-                int j = index.IndexOf(s.SetId, Parameter.Orientation);
-                double sd = finalFactor is null ? 0 : Math.Sqrt(Math.Max(0, s0 * finalFactor.InverseEntry(j, j)));
-                return new AdjustedOrientation(s.SetId, s.Station, Units.Angle.Reduce0To2Pi(state.Orientation(s.SetId)),
-                    sd);
-            }).ToArray();
+        var orientations = AdjustedOrientations(network, index, state, finalFactor, s0);
 
         return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points,
             observations, orientations, stats,
             solver.Name, finalRows, weights)
         {
+            RowCofactors = finalFactor is null ? null : rowCofactors,
             Refractions = AdjustedRefractions(index, state, finalFactor, s0),
             FrameParameters = FrameParameters.Adjusted(index, state, finalFactor, s0),
         };
     }
 
     private static double Sq(double x) => x * x;
+
+    /// <summary>One orientation per distinct (set, station) of the directions, in order of first appearance; a set
+    /// wholly set aside has no orientation unknown and is left out.</summary>
+    private static AdjustedOrientation[] AdjustedOrientations(SurveyNetwork network, UnknownIndex index,
+        ParameterState state, INormalFactor? f, double s0)
+    {
+        var seen = new HashSet<(string, string)>();
+        var list = new List<AdjustedOrientation>();
+        string? lastSet = null, lastStation = null;
+        foreach (var o in network.Observations)
+        {
+            if (o is not DirectionObservation d) continue;
+            // the directions of a set usually follow one another: skip the set look-up for a repeat of the last one
+            if (d.SetId == lastSet && d.Station == lastStation) continue;
+            (lastSet, lastStation) = (d.SetId, d.Station);
+            if (!seen.Add((d.SetId, d.Station))) continue;
+            int j = index.IndexOf(d.SetId, Parameter.Orientation);
+            if (j < 0) continue;
+            double sd = f is null ? 0 : Math.Sqrt(Math.Max(0, s0 * f.InverseEntry(j, j)));
+            list.Add(new AdjustedOrientation(d.SetId, d.Station, Units.Angle.Reduce0To2Pi(state.Orientation(d.SetId)),
+                sd));
+        }
+        return list.ToArray();
+    }
 
     /// <summary>The largest correction to an estimated refraction coefficient that counts as converged: it moves a
     /// zenith angle over 1 km by 8e-11 rad.</summary>
@@ -225,6 +242,8 @@ public static partial class Adjuster
     /// <summary>a Qxx aᵀ for one design row.</summary>
     internal static double Quadratic(SparseRow a, INormalFactor f)
     {
+        // the sparse factor sums the same products in the same order, locating each pair of unknowns once
+        if (f is LinearAlgebra.Sparse.SparseCholeskyFactor sparse) return sparse.QuadraticForm(a.Columns, a.Values);
         double s = 0;
         for (int p = 0; p < a.Columns.Length; p++)
             for (int q = 0; q < a.Columns.Length; q++)

@@ -223,6 +223,10 @@ public sealed class AdjustmentResult
         SolverName = solverName; DesignRows = designRows; Weights = weights;
     }
 
+    /// <summary>a Qxx aᵀ of each observation's design row, as the adjuster computed it for the observation's standard
+    /// deviation (NaN for a set-aside observation; null without unknowns): the statistics reuse it.</summary>
+    internal double[]? RowCofactors { get; init; }
+
     /// <summary>True when the adjustment has unknowns, so that <see cref="Cofactor"/> and <see cref="Solve"/> can be
     /// used.</summary>
     public bool HasFactor => _factor is not null;

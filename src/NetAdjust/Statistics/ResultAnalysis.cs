@@ -60,6 +60,7 @@ public static class ResultAnalysis
             return s;
         }
 
+        var rowCofactors = result.RowCofactors;
         var red = new double[m];
         var pqp = new double[m];   // (P Qvv P)ᵢᵢ
         var pv = new double[m];    // (P v)ᵢ
@@ -72,7 +73,10 @@ public static class ResultAnalysis
                 double p1 = blk[0, 0];
                 if (p1 == 0) continue;
                 int row1 = blk.Rows[0];
-                double q1 = (1 / p1) - AQA(rows[row1], rows[row1]);
+                // a Qxx aᵀ as the adjuster computed it (same products in the same order as AQA), else computed
+                double aqa1 = hasFactor && rowCofactors is not null && row1 < rowCofactors.Length &&
+                    !double.IsNaN(rowCofactors[row1]) ? rowCofactors[row1] : AQA(rows[row1], rows[row1]);
+                double q1 = (1 / p1) - aqa1;
                 weighted[row1] = true;
                 double r1 = 0, s1 = 0, y1 = 0;
                 r1 += q1 * p1;
@@ -302,9 +306,14 @@ public static class ResultAnalysis
         // pattern of N. Other pairs are computed by solves.
         // (points as indices: the owner of each coordinate unknown, -1 for other unknowns)
         var pointIndex = new Dictionary<string, int>(StringComparer.Ordinal);
-        var ownerOf = result.Unknowns.Unknowns.Select(u => u.Parameter is Parameter.E or Parameter.N or Parameter.H
-            ? (pointIndex.TryGetValue(u.Owner, out int ix) ? ix : pointIndex[u.Owner] = pointIndex.Count) : -1)
-            .ToArray();
+        var unknowns = result.Unknowns.Unknowns;
+        var ownerOf = new int[unknowns.Count];
+        for (int j = 0; j < ownerOf.Length; j++)
+        {
+            var u = unknowns[j];
+            ownerOf[j] = u.Parameter is Parameter.E or Parameter.N or Parameter.H
+                ? (pointIndex.TryGetValue(u.Owner, out int ix) ? ix : pointIndex[u.Owner] = pointIndex.Count) : -1;
+        }
         var onPattern = new HashSet<(int, int)>();
         var owners = new List<int>();
         foreach (var blk in result.Weights.Blocks)
@@ -331,29 +340,33 @@ public static class ResultAnalysis
             if (pa.E is null || pa.N is null || pb.E is null || pb.N is null || pa.SdE is null || pb.SdE is null)
                 continue;
             var ca = cols[from]; var cb = cols[to];
-            int[] ia = [ca.E, ca.N], ib = [cb.E, cb.N];
-            if (ia.All(c => c < 0) && ib.All(c => c < 0)) continue; // both held: nothing to report
+            int ia0 = ca.E, ia1 = ca.N, ib0 = cb.E, ib1 = cb.N;
+            bool aHeld = ia0 < 0 && ia1 < 0;
+            if (aHeld && ib0 < 0 && ib1 < 0) continue; // both held: nothing to report
             double Own(int i, int j) => i >= 0 && j >= 0 ? q(i, j) : 0.0;
-            var cross = new double[2, 2]; // Qxx(from-component, to-component)
+            double c00 = 0, c01 = 0, c10 = 0, c11 = 0; // Qxx(from-component, to-component)
             if (OnPattern(from, to))
             {
-                for (int s = 0; s < 2; s++) for (int t = 0; t < 2; t++) cross[s, t] = Own(ia[s], ib[t]);
+                c00 = Own(ia0, ib0); c01 = Own(ia0, ib1); c10 = Own(ia1, ib0); c11 = Own(ia1, ib1);
             }
-            else if (result.HasFactor)
+            else if (result.HasFactor && !aHeld)
             {
-                for (int t = 0; t < 2; t++)
+                int size = result.Unknowns.Count;
+                if (ib0 >= 0)
                 {
-                    if (ib[t] < 0 || ia.All(c => c < 0)) continue;
-                    var e = new double[result.Unknowns.Count];
-                    e[ib[t]] = 1;
-                    var col = result.Solve(e); // column ib[t] of Qxx = N⁻¹ e
-                    for (int s = 0; s < 2; s++) cross[s, t] = ia[s] >= 0 ? col[ia[s]] : 0;
+                    var col = result.Solve(UnitVector(ib0, size)); // column ib0 of Qxx = N⁻¹ e
+                    c00 = ia0 >= 0 ? col[ia0] : 0; c10 = ia1 >= 0 ? col[ia1] : 0;
+                }
+                if (ib1 >= 0)
+                {
+                    var col = result.Solve(UnitVector(ib1, size));
+                    c01 = ia0 >= 0 ? col[ia0] : 0; c11 = ia1 >= 0 ? col[ia1] : 0;
                 }
             }
             // D = Q_bb + Q_aa − Q_ab − Q_ba for Δ = to − from
-            double dee = Own(ib[0], ib[0]) + Own(ia[0], ia[0]) - (2 * cross[0, 0]);
-            double dnn = Own(ib[1], ib[1]) + Own(ia[1], ia[1]) - (2 * cross[1, 1]);
-            double den = Own(ib[0], ib[1]) + Own(ia[0], ia[1]) - cross[0, 1] - cross[1, 0];
+            double dee = Own(ib0, ib0) + Own(ia0, ia0) - (2 * c00);
+            double dnn = Own(ib1, ib1) + Own(ia1, ia1) - (2 * c11);
+            double den = Own(ib0, ib1) + Own(ia0, ia1) - c01 - c10;
             dee *= vf; dnn *= vf; den *= vf;
             var ell = ErrorEllipse.FromCovariance(dee, dnn, den);
             double de = pb.E.Value - pa.E.Value, dn = pb.N.Value - pa.N.Value;
@@ -388,21 +401,27 @@ public static class ResultAnalysis
                 if (ObservationKindRegistry.Of(o).Axes.HasFlag(CoordinateAxes.Height)) Add(o.From, o.To, true);
         foreach (var (a, b) in options.RelativePairs) Add(a, b, false);
 
+        var list = new List<RelativeHeightPrecision>();
+        if (pairs.Count == 0) return list;
+
         // Pairs joined by a weighted height-difference row have their Qxx entry on the pattern of N.
         var onPattern = new HashSet<(int, int)>();
+        var unknowns = result.Unknowns.Unknowns;
+        var hs = new List<int>();
         foreach (var blk in result.Weights.Blocks)
         {
-            var hs = new List<int>();
+            hs.Clear();
             for (int a = 0; a < blk.Size; a++)
             {
-                if (!Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0)) continue;
-                hs.AddRange(result.DesignRows[blk.Rows[a]].Columns.Where(c =>
-                    result.Unknowns.Unknowns[c].Parameter == Parameter.H));
+                bool any = false;
+                for (int b = 0; b < blk.Size && !any; b++) any = blk[a, b] != 0;
+                if (!any) continue;
+                foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
+                    if (unknowns[c].Parameter == Parameter.H) hs.Add(c);
             }
             foreach (int x in hs) foreach (int y in hs) onPattern.Add((x, y));
         }
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
-        var list = new List<RelativeHeightPrecision>();
         foreach (var (from, to, observed) in pairs)
         {
             var pa = byId[from]; var pb = byId[to];

@@ -56,10 +56,12 @@ internal sealed class AdjacencyGraph
     }
 
     /// <summary>Builds a graph as the union of cliques (each clique given by its vertices).</summary>
-    internal static AdjacencyGraph FromCliques(int n, List<int> cliqueStart, List<int> cliqueVertices)
+    internal static AdjacencyGraph FromCliques(int n, List<int> cliqueStartList, List<int> cliqueVerticesList)
     {
+        var cliqueStart = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(cliqueStartList);
+        var cliqueVertices = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(cliqueVerticesList);
         var degree = new int[n + 1];
-        for (int q = 0; q + 1 < cliqueStart.Count; q++)
+        for (int q = 0; q + 1 < cliqueStart.Length; q++)
         {
             int size = cliqueStart[q + 1] - cliqueStart[q];
             for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++) degree[cliqueVertices[t]] += size - 1;
@@ -69,24 +71,29 @@ internal sealed class AdjacencyGraph
         var fill = new int[n];
         Array.Copy(start, fill, n);
         var adj = new int[start[n]];
-        for (int q = 0; q + 1 < cliqueStart.Count; q++)
+        for (int q = 0; q + 1 < cliqueStart.Length; q++)
             for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++)
             {
                 int v = cliqueVertices[t];
                 for (int s = cliqueStart[q]; s < cliqueStart[q + 1]; s++)
                     if (s != t) adj[fill[v]++] = cliqueVertices[s];
             }
-        // Sort and remove duplicates per vertex, compacting in place.
+        // Remove duplicates per vertex (a neighbour seen twice in one list), compacting in place, then sort the
+        // distinct neighbours.
         var newStart = new int[n + 1];
+        var seen = fill; // reused: seen[u] == v + 1 once u is kept in the list of v
+        Array.Clear(seen);
         int w = 0;
         for (int v = 0; v < n; v++)
         {
             int a = start[v], e = start[v + 1];
-            Array.Sort(adj, a, e - a);
             newStart[v] = w;
-            int last = -1;
             for (int p = a; p < e; p++)
-                if (adj[p] != last) { last = adj[p]; adj[w++] = last; }
+            {
+                int u = adj[p];
+                if (seen[u] != v + 1) { seen[u] = v + 1; adj[w++] = u; }
+            }
+            Array.Sort(adj, newStart[v], w - newStart[v]);
         }
         newStart[n] = w;
         Array.Resize(ref adj, w);

@@ -34,7 +34,8 @@ internal static class MultifrontalCholesky
             scale[k] = 1.0 / Math.Sqrt(d);
         }
 
-        var L = new double[sym.StoredEntries];
+        // Each front's block is cleared just before its assembly (cache-warm), not the whole array up front.
+        var L = GC.AllocateUninitializedArray<double>(checked((int)sym.StoredEntries));
         int ns = sym.SupernodeCount;
         var updates = new double[]?[ns];
         var relpos = new int[n];
@@ -47,6 +48,7 @@ internal static class MultifrontalCholesky
             int r0 = sym.SnRowStart[s], m = sym.SnRowStart[s + 1] - r0, mu = m - k;
             long off = sym.SnValueStart[s];
             for (int t = 0; t < m; t++) relpos[sym.SnRows[r0 + t]] = t;
+            L.AsSpan((int)off, m * k).Clear();
 
             // Update matrix of this front (lower, row-major mu×mu), zeroed.
             double[]? U = null;
@@ -89,26 +91,26 @@ internal static class MultifrontalCholesky
                 int kc = sym.SnStart[c + 1] - sym.SnStart[c];
                 int rc = sym.SnRowStart[c], mc = sym.SnRowStart[c + 1] - rc, muc = mc - kc;
                 for (int a = 0; a < muc; a++) rowMap[a] = relpos[sym.SnRows[rc + kc + a]];
-                for (int a = 0; a < muc; a++)
+                // rowMap ascends (both row lists are sorted): rows [0, split) of Uc fall in the pivot block, the rest
+                // in the update matrix; each entry still receives one addition, in the same order as before.
+                int split = 0;
+                while (split < muc && rowMap[split] < k) split++;
+                var ls = L.AsSpan();
+                for (int a = 0; a < split; a++)
+                {
+                    // row inside the pivot block: every column b ≤ a also maps below k
+                    var lrow = ls.Slice((int)(off + ((long)rowMap[a] * k)), k);
+                    var urow = Uc.AsSpan(a * muc, a + 1);
+                    for (int b = 0; b < urow.Length; b++) lrow[rowMap[b]] += urow[b];
+                }
+                for (int a = split; a < muc; a++)
                 {
                     int pa = rowMap[a];
-                    int rowA = a * muc;
-                    if (pa < k)
-                    {
-                        // row inside the pivot block: every column b ≤ a also maps below k
-                        for (int b = 0; b <= a; b++) L[off + ((long)pa * k) + rowMap[b]] += Uc[rowA + b];
-                    }
-                    else
-                    {
-                        long lrow = off + ((long)pa * k);
-                        int urow = (pa - k) * mu;
-                        for (int b = 0; b <= a; b++)
-                        {
-                            int pb = rowMap[b];
-                            if (pb < k) L[lrow + pb] += Uc[rowA + b];
-                            else U![urow + pb - k] += Uc[rowA + b];
-                        }
-                    }
+                    var lrow = ls.Slice((int)(off + ((long)pa * k)), k);
+                    var uc = Uc.AsSpan(a * muc, a + 1);
+                    for (int b = 0; b < split; b++) lrow[rowMap[b]] += uc[b];
+                    var urow = U.AsSpan((pa - k) * mu, mu);
+                    for (int b = split; b < uc.Length; b++) urow[rowMap[b] - k] += uc[b];
                 }
                 pool.Return(Uc);
                 updates[c] = null;
@@ -148,7 +150,21 @@ internal static class MultifrontalCholesky
         void RowRange(int lo, int hi)
         {
             var ls = L.AsSpan();
-            for (int i = lo; i < hi; i++)
+            int i = lo;
+            for (; i + 1 < hi; i += 2)
+            {
+                // two rows at once, each with the arithmetic of the single-row loop below
+                var ri0 = ls.Slice((int)(off + ((long)i * k)), k);
+                var ri1 = ls.Slice((int)(off + ((long)(i + 1) * k)), k);
+                for (int c = 0; c < k; c++)
+                {
+                    var rc = ls.Slice((int)(off + ((long)c * k)), k);
+                    DenseKernels.Dot1x2Exact(rc, ri0, ri1, c, out double d0, out double d1);
+                    ri0[c] = (ri0[c] - d0) / rc[c];
+                    ri1[c] = (ri1[c] - d1) / rc[c];
+                }
+            }
+            for (; i < hi; i++)
             {
                 var ri = ls.Slice((int)(off + ((long)i * k)), k);
                 for (int c = 0; c < k; c++)

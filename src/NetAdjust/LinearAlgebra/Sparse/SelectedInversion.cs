@@ -21,7 +21,8 @@ internal static class SelectedInversion
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static double[] Compute(SymbolicCholesky sym, double[] L)
     {
-        var Z = new double[L.Length];
+        var Z = GC.AllocateUninitializedArray<double>(L.Length); // every entry is written below
+        var pool = System.Buffers.ArrayPool<double>.Shared;
         for (int s = sym.SupernodeCount - 1; s >= 0; s--)
         {
             int f = sym.SnStart[s], k = sym.SnStart[s + 1] - f;
@@ -29,9 +30,10 @@ internal static class SelectedInversion
             long off = sym.SnValueStart[s];
 
             // T = L_JJ⁻ᵀ stored row-major: T(c, d) = (L_JJ⁻¹)(d, c), nonzero for d ≥ c.
-            var T = new double[k * k];
+            var T = pool.Rent(k * k);
             for (int c = 0; c < k; c++)
             {
+                for (int d = 0; d < c; d++) T[(c * k) + d] = 0;
                 // column c of L_JJ⁻¹: solve L_JJ w = e_c, w(d) for d ≥ c
                 T[(c * k) + c] = 1.0 / L[off + ((long)c * k) + c];
                 for (int d = c + 1; d < k; d++)
@@ -50,7 +52,7 @@ internal static class SelectedInversion
                     Z[off + ((long)c * k) + d] = v;
                     Z[off + ((long)d * k) + c] = v;
                 }
-            if (mu == 0) continue;
+            if (mu == 0) { pool.Return(T); continue; }
 
             // Yᵀ (k×mu, row-major) with Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
             var Yt = System.Buffers.ArrayPool<double>.Shared.Rent(k * mu);
@@ -68,7 +70,27 @@ internal static class SelectedInversion
             var Zt = System.Buffers.ArrayPool<double>.Shared.Rent(k * mu);
             void Rows(int lo, int hi)
             {
-                for (int a = lo; a < hi; a++)
+                // two rows of Z_RR by two columns of Y at a time, each product as DenseKernels.Dot computes it
+                int a = lo;
+                for (; a + 1 < hi; a += 2)
+                {
+                    var za0 = zrr.AsSpan(a * mu, mu);
+                    var za1 = zrr.AsSpan((a + 1) * mu, mu);
+                    int c = 0;
+                    for (; c + 1 < k; c += 2)
+                    {
+                        DenseKernels.Dot2x2Exact(Yt.AsSpan(c * mu, mu), Yt.AsSpan((c + 1) * mu, mu), za0, za1, mu,
+                            out double s00, out double s01, out double s10, out double s11);
+                        Zt[(c * mu) + a] = -s00; Zt[(c * mu) + a + 1] = -s01;
+                        Zt[((c + 1) * mu) + a] = -s10; Zt[((c + 1) * mu) + a + 1] = -s11;
+                    }
+                    for (; c < k; c++)
+                    {
+                        Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za0, mu);
+                        Zt[(c * mu) + a + 1] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za1, mu);
+                    }
+                }
+                for (; a < hi; a++)
                 {
                     var za = zrr.AsSpan(a * mu, mu);
                     for (int c = 0; c < k; c++) Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za, mu);
@@ -83,13 +105,17 @@ internal static class SelectedInversion
             for (int a = 0; a < mu; a++)
                 for (int c = 0; c < k; c++) Z[off + ((long)(k + a) * k) + c] = Zt[(c * mu) + a];
 
-            // Z_JJ −= Yᵀ Z_RJ: (c, d) −= Σ_a Y(a, c) Z_RJ(a, d).
+            // Z_JJ −= Yᵀ Z_RJ: (c, d) −= Σ_a Y(a, c) Z_RJ(a, d), on the lower triangle (the only one read: by the
+            // gathers of Z_RR and by look-ups of (row ≥ column)); the upper triangle is its mirror.
             for (int c = 0; c < k; c++)
-                for (int d = 0; d < k; d++)
+                for (int d = 0; d <= c; d++)
                     Z[off + ((long)c * k) + d] -= DenseKernels.Dot(Yt.AsSpan(c * mu, mu), Zt.AsSpan(d * mu, mu), mu);
-            System.Buffers.ArrayPool<double>.Shared.Return(Yt);
-            System.Buffers.ArrayPool<double>.Shared.Return(Zt);
-            System.Buffers.ArrayPool<double>.Shared.Return(zrr);
+            for (int c = 0; c < k; c++)
+                for (int d = c + 1; d < k; d++) Z[off + ((long)c * k) + d] = Z[off + ((long)d * k) + c];
+            pool.Return(T);
+            pool.Return(Yt);
+            pool.Return(Zt);
+            pool.Return(zrr);
         }
         return Z;
     }

@@ -96,6 +96,46 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         }
     }
 
+    /// <summary>
+    /// a Qxx aᵀ for one design row: Σ_p Σ_q a_p a_q Qxx(c_p, c_q) summed in that order, each entry the number
+    /// <see cref="InverseEntry"/> gives (bit-identical), with the position of each unordered pair located once.
+    /// </summary>
+    /// <param name="columns">The row's unknowns.</param>
+    /// <param name="values">Its coefficients.</param>
+    internal double QuadraticForm(ReadOnlySpan<int> columns, ReadOnlySpan<double> values)
+    {
+        int n = columns.Length;
+        if (n > 16) return QuadraticFormByEntries(columns, values);
+        var z = _z;
+        if (z is null)
+            lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, _l);
+        Span<int> perm = stackalloc int[n];
+        Span<long> at = stackalloc long[n * n];
+        for (int p = 0; p < n; p++) perm[p] = Symbolic.InversePerm[columns[p]];
+        for (int p = 0; p < n; p++)
+            for (int q = 0; q <= p; q++)
+            {
+                if (!Symbolic.TryLocate(Math.Max(perm[p], perm[q]), Math.Min(perm[p], perm[q]), out long o))
+                    return QuadraticFormByEntries(columns, values); // off the pattern: entries by solves
+                at[(p * n) + q] = o;
+                at[(q * n) + p] = o;
+            }
+        double s = 0;
+        for (int p = 0; p < n; p++)
+            for (int q = 0; q < n; q++)
+                s += values[p] * values[q] * (z[at[(p * n) + q]] * _scale[perm[p]] * _scale[perm[q]]);
+        return s;
+    }
+
+    private double QuadraticFormByEntries(ReadOnlySpan<int> columns, ReadOnlySpan<double> values)
+    {
+        double s = 0;
+        for (int p = 0; p < columns.Length; p++)
+            for (int q = 0; q < columns.Length; q++)
+                s += values[p] * values[q] * InverseEntry(columns[p], columns[q]);
+        return s;
+    }
+
     /// <summary>Computes the selected inverse now (otherwise done on the first <see cref="InverseEntry"/> on the
     /// pattern).</summary>
     public void ComputeSelectedInverse()

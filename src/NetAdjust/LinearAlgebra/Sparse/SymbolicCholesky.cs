@@ -185,9 +185,19 @@ internal sealed class SymbolicCholesky
         if (i < SnStart[s + 1]) pos = i - f;
         else
         {
-            pos = Array.BinarySearch(SnRows, SnRowStart[s] + k, SnRowStart[s + 1] - SnRowStart[s] - k, i);
+            // binary search of i among the sorted rows below the supernode's own columns
+            var rows = SnRows;
+            int r0 = SnRowStart[s], lo = r0 + k, hi = SnRowStart[s + 1] - 1;
+            pos = -1;
+            while (lo <= hi)
+            {
+                int mid = (int)((uint)(lo + hi) >> 1);
+                int v = rows[mid];
+                if (v == i) { pos = mid - r0; break; }
+                if (v < i) lo = mid + 1;
+                else hi = mid - 1;
+            }
             if (pos < 0) { offset = -1; return false; }
-            pos -= SnRowStart[s];
         }
         offset = SnValueStart[s] + ((long)pos * k) + (j - f);
         return true;
