@@ -13,7 +13,8 @@ public static partial class JsonResultWriter
         public static readonly JsonEncodedText Alpha = JsonEncodedText.Encode("alpha");
         public static readonly JsonEncodedText Angle = JsonEncodedText.Encode("angle");
         public static readonly JsonEncodedText AngularResidualAndSd = JsonEncodedText.Encode("angular_residual_and_sd");
-        public static readonly JsonEncodedText AprioriVarianceFactor = JsonEncodedText.Encode("apriori_variance_factor");
+        public static readonly JsonEncodedText AprioriVarianceFactor =
+            JsonEncodedText.Encode("apriori_variance_factor");
         public static readonly JsonEncodedText At = JsonEncodedText.Encode("at");
         public static readonly JsonEncodedText Azimuth = JsonEncodedText.Encode("azimuth");
         public static readonly JsonEncodedText B = JsonEncodedText.Encode("b");
@@ -37,8 +38,10 @@ public static partial class JsonResultWriter
         public static readonly JsonEncodedText EllipseScale = JsonEncodedText.Encode("ellipse_scale");
         public static readonly JsonEncodedText Excluded = JsonEncodedText.Encode("excluded");
         public static readonly JsonEncodedText ExternalReliability = JsonEncodedText.Encode("external_reliability");
-        public static readonly JsonEncodedText ExternalReliabilityComputed = JsonEncodedText.Encode("external_reliability_computed");
-        public static readonly JsonEncodedText ExternalReliabilityPoint = JsonEncodedText.Encode("external_reliability_point");
+        public static readonly JsonEncodedText ExternalReliabilityComputed =
+            JsonEncodedText.Encode("external_reliability_computed");
+        public static readonly JsonEncodedText ExternalReliabilityPoint =
+            JsonEncodedText.Encode("external_reliability_point");
         public static readonly JsonEncodedText Fixed = JsonEncodedText.Encode("fixed");
         public static readonly JsonEncodedText Flag = JsonEncodedText.Encode("flag");
         public static readonly JsonEncodedText Format = JsonEncodedText.Encode("format");
