@@ -14,10 +14,12 @@ namespace NetAdjust.IO.Results;
 /// <summary>
 /// Writes an adjustment result as JSON (format <c>netadjust-result/1</c>, keys in docs/output-format.md).
 /// Lengths in metres; angle values in decimal degrees; residuals and standard deviations of angular
-/// observations in arcseconds. Output is deterministic: same result, same bytes. The document is serialised by
-/// System.Text.Json (source-generated, <see cref="ResultJsonContext"/>) straight to a stream.
+/// observations in arcseconds. Output is deterministic: same result, same bytes. The document is written member by
+/// member with a <see cref="Utf8JsonWriter"/> straight to a stream, the long lists row by row from the report model;
+/// the sections of the other procedures (when run) through System.Text.Json's source-generated metadata
+/// (<see cref="ResultJsonContext"/>).
 /// </summary>
-public static class JsonResultWriter
+public static partial class JsonResultWriter
 {
     /// <summary>The format identifier written under <c>format</c>.</summary>
     public const string Format = "netadjust-result/1";
@@ -28,11 +30,12 @@ public static class JsonResultWriter
         new() { Indented = true, NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
 
     /// <summary>The same options for the serialiser, over the source-generated metadata of <see
-    /// cref="ResultJson"/>.</summary>
-    private static readonly JsonSerializerOptions SerializerOptions = new(ResultJsonContext.Default.Options)
-    {
-        NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
-    };
+    /// cref="ResultJson"/>; made on first use only (the plain adjustment's document needs no metadata).</summary>
+    private static readonly Lazy<JsonSerializerOptions> SerializerOptions = new(() =>
+        new(ResultJsonContext.Default.Options)
+        {
+            NewLine = "\n", Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+        });
 
     /// <summary>Renders the result as UTF-8 JSON text.</summary>
     /// <param name="result">The result.</param>
@@ -49,18 +52,9 @@ public static class JsonResultWriter
     /// <param name="report">The report model.</param>
     public static void Write(Stream stream, ResultReport report)
     {
-        ArgumentNullException.ThrowIfNull(report);
-        Serialise(stream, Document(report));
-    }
-
-    /// <summary>
-    /// Serialises a document to a stream, then a line feed. The serialiser works from metadata (no fast path), so it
-    /// writes in chunks of about its buffer size while it enumerates the rows: no whole document is held in memory.
-    /// </summary>
-    internal static void Serialise<T>(Stream stream, T document)
-    {
         ArgumentNullException.ThrowIfNull(stream);
-        JsonSerializer.Serialize(stream, document, (JsonTypeInfo<T>)SerializerOptions.GetTypeInfo(typeof(T)));
+        ArgumentNullException.ThrowIfNull(report);
+        using (var sink = new JsonSink(stream)) WriteDocument(sink, report);
         stream.WriteByte((byte)'\n');
     }
 
@@ -74,137 +68,317 @@ public static class JsonResultWriter
 
     private static string Day(DateOnly d) => d.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
 
-    /// <summary>The JSON document of one result.</summary>
-    internal static ResultJson.Document Document(ResultReport report)
+    /// <summary>
+    /// Writes a section through the source-generated metadata, as the value of the member <paramref name="name"/>;
+    /// nothing (no key) when the section is null.
+    /// </summary>
+    internal static void Section<T>(Utf8JsonWriter j, JsonEncodedText name, T? section) where T : class
     {
+        if (section is null) return;
+        j.WritePropertyName(name);
+        JsonSerializer.Serialize(j, section, (JsonTypeInfo<T>)SerializerOptions.Value.GetTypeInfo(typeof(T)));
+    }
+
+    /// <summary>
+    /// Writes the JSON object of one result (the whole <c>netadjust-result/1</c> document, or one of a sequence's
+    /// solutions), passing the bytes on to the writer's stream as the rows are written.
+    /// </summary>
+    internal static void WriteDocument(JsonSink sink, ResultReport report)
+    {
+        var j = sink.Json;
         var r = report.Result;
         var c = report.Context;
         var s = r.Statistics;
         var g = s.GlobalTest;
-        return new ResultJson.Document
+        j.WriteStartObject();
+        j.WriteString(Keys.Format, Format);
+        j.WriteString(Keys.Generator, Results.Generator.Name);
+        j.WriteString(Keys.Project, r.Network.Name);
+        j.WriteString(Keys.Input, c.InputName);
+        j.WriteString(Keys.RunDate, Day(c.RunDate));
+        j.WriteString(Keys.Solver, r.SolverName);
+        j.WriteString(Keys.Datum, r.Options.Datum.Describe());
+        sink.PassWhenFull();
+        Section(j, Keys.Survey, c.Particulars is { } sp ? new ResultJson.Particulars(sp.Client, sp.Site, sp.Reference,
+            sp.Surveyor, sp.Firm, sp.Observed.Select(Day), sp.Equipment.Select(e => new ResultJson.Equipment(e.Item,
+                e.Serial, e.Calibrated is DateOnly d ? Day(d) : null)), sp.Weather, sp.Note) : null);
+        if (ReportWarnings.ForJson(c) is { } warnings)
         {
-            Format = Format,
-            Generator = Results.Generator.Name,
-            Project = r.Network.Name,
-            Input = c.InputName,
-            RunDate = c.RunDate.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
-            Solver = r.SolverName,
-            Datum = r.Options.Datum.Describe(),
-            Survey = c.Particulars is { } sp ? new(sp.Client, sp.Site, sp.Reference, sp.Surveyor, sp.Firm,
-                sp.Observed.Select(Day), sp.Equipment.Select(e => new ResultJson.Equipment(e.Item, e.Serial,
-                    e.Calibrated is DateOnly d ? Day(d) : null)), sp.Weather, sp.Note) : null,
-            Warnings = ReportWarnings.ForJson(c),
-            Units = new("m", "deg", "arcsec"),
-            Statistics = new(s.Observations, s.Unknowns, s.DegreesOfFreedom, s.Vtpv, s.AprioriVarianceFactor,
-                Finite(s.VarianceFactor), Finite(s.Sigma0), s.Iterations,
-                new(g.Alpha, g.Statistic, Finite(g.Lower), Finite(g.Upper), g.Passed)),
-            Points = report.Points.Rows.Select(p => Point(r, p)),
-            Observations = report.Observations.Rows.Select(Observation),
-            Orientations = r.Orientations.Select(o =>
-                new ResultJson.Orientation(o.SetId, o.Station, Angle.FromRadians(o.Orientation).Degrees,
-                    o.Sd * Angle.ArcsecondsPerRadian)),
-            Refraction = RefractionOutput.Json(r),
-            Gnss = BaselineSection.Json(r, c),
-            Testing = Testing(r.Analysis),
-            Relative = r.Analysis.Relative.Select(x => new ResultJson.Relative(x.From, x.To, x.Ellipse.A, x.Ellipse.B,
-                x.Ellipse.AzimuthDegrees, x.Confidence.A, x.Confidence.B, x.Distance, x.SdDistance, Finite(x.Ratio),
-                x.SdAzimuth * Angle.ArcsecondsPerRadian, x.Observed)),
-            RelativeHeights = r.Analysis.RelativeHeights.Select(x =>
-                new ResultJson.RelativeHeight(x.From, x.To, x.Difference, x.SdDifference, x.Confidence, x.Observed)),
-            ControlTests = r.Analysis.Control.Select(x => Fill(new ResultJson.ControlTest
-            {
-                Point = x.PointId, Component = ObservationLabels.ComponentKey(x.Component), Residual = x.Residual,
-                Redundancy = 0, W = null, Tau = null, Mdb = null, ExternalReliability = null,
-                ExternalReliabilityPoint = null, BiasToNoise = null, Flag = null,
-            }, x.Test, 1.0)),
-            BlunderHunt = c.Hunt is BlunderHunt h ? Hunt(h) : null,
-            Diagnosis = DiagnosisOutput.Json(report),
-            Robust = c.Robust is RobustEstimate rb ? Robust(rb) : null,
-            VarianceComponents = c.Components is VarianceComponentEstimate vc ? Components(vc) : null,
-            Rounds = RoundsReport.Json(c),
-            Grid = GridReport.Json(r, c),
-            Misclosures = ResultJson.Misclosures.Of(c.Misclosures),
-            Standards = ResultJson.Standards.Of(c.Standards),
-        };
+            j.WriteStartArray(Keys.Warnings);
+            foreach (var w in warnings) j.WriteStringValue(w);
+            j.WriteEndArray();
+        }
+        j.WriteStartObject(Keys.Units);
+        j.WriteString(Keys.Length, "m");
+        j.WriteString(Keys.Angle, "deg");
+        j.WriteString(Keys.AngularResidualAndSd, "arcsec");
+        j.WriteEndObject();
+
+        j.WriteStartObject(Keys.Statistics);
+        j.WriteNumber(Keys.Observations, s.Observations);
+        j.WriteNumber(Keys.Unknowns, s.Unknowns);
+        j.WriteNumber(Keys.DegreesOfFreedom, s.DegreesOfFreedom);
+        j.WriteNumber(Keys.Vtpv, s.Vtpv);
+        j.WriteNumber(Keys.AprioriVarianceFactor, s.AprioriVarianceFactor);
+        Num(j, Keys.VarianceFactor, s.VarianceFactor);
+        Num(j, Keys.Sigma0, s.Sigma0);
+        j.WriteNumber(Keys.Iterations, s.Iterations);
+        j.WriteStartObject(Keys.GlobalTest);
+        j.WriteNumber(Keys.Alpha, g.Alpha);
+        j.WriteNumber(Keys.Statistic, g.Statistic);
+        Num(j, Keys.Lower, g.Lower);
+        Num(j, Keys.Upper, g.Upper);
+        Bool(j, Keys.Passed, g.Passed);
+        j.WriteEndObject();
+        j.WriteEndObject();
+
+        j.WriteStartArray(Keys.Points);
+        foreach (var row in report.Points.Rows)
+        {
+            Point(j, r, row);
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+
+        j.WriteStartArray(Keys.Observations);
+        foreach (var row in report.Observations.Rows)
+        {
+            Observation(j, row);
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+
+        j.WriteStartArray(Keys.Orientations);
+        foreach (var o in r.Orientations)
+        {
+            j.WriteStartObject();
+            j.WriteString(Keys.Set, o.SetId);
+            j.WriteString(Keys.Station, o.Station);
+            j.WriteNumber(Keys.Orientation, Angle.FromRadians(o.Orientation).Degrees);
+            j.WriteNumber(Keys.Sd, o.Sd * Angle.ArcsecondsPerRadian);
+            j.WriteEndObject();
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+
+        Section(j, Keys.Refraction, RefractionOutput.Json(r));
+        Section(j, Keys.Gnss, BaselineSection.Json(r, c));
+        Testing(j, r.Analysis);
+
+        j.WriteStartArray(Keys.Relative);
+        foreach (var x in r.Analysis.Relative)
+        {
+            j.WriteStartObject();
+            j.WriteString(Keys.From, x.From);
+            j.WriteString(Keys.To, x.To);
+            j.WriteNumber(Keys.A, x.Ellipse.A);
+            j.WriteNumber(Keys.B, x.Ellipse.B);
+            j.WriteNumber(Keys.Azimuth, x.Ellipse.AzimuthDegrees);
+            j.WriteNumber(Keys.A95, x.Confidence.A);
+            j.WriteNumber(Keys.B95, x.Confidence.B);
+            j.WriteNumber(Keys.Distance, x.Distance);
+            j.WriteNumber(Keys.SdDistance, x.SdDistance);
+            Num(j, Keys.Ratio, x.Ratio);
+            j.WriteNumber(Keys.SdAzimuth, x.SdAzimuth * Angle.ArcsecondsPerRadian);
+            j.WriteBoolean(Keys.Observed, x.Observed);
+            j.WriteEndObject();
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+
+        j.WriteStartArray(Keys.RelativeHeights);
+        foreach (var x in r.Analysis.RelativeHeights)
+        {
+            j.WriteStartObject();
+            j.WriteString(Keys.From, x.From);
+            j.WriteString(Keys.To, x.To);
+            j.WriteNumber(Keys.Dh, x.Difference);
+            j.WriteNumber(Keys.SdDh, x.SdDifference);
+            j.WriteNumber(Keys.Dh95, x.Confidence);
+            j.WriteBoolean(Keys.Observed, x.Observed);
+            j.WriteEndObject();
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+
+        j.WriteStartArray(Keys.ControlTests);
+        foreach (var x in r.Analysis.Control)
+        {
+            j.WriteStartObject();
+            j.WriteString(Keys.Point, x.PointId);
+            j.WriteString(Keys.Component, ObservationLabels.ComponentKey(x.Component));
+            j.WriteNumber(Keys.Residual, x.Residual);
+            Reliability(j, x.Test, 1.0);
+            j.WriteEndObject();
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+
+        Section(j, Keys.BlunderHunt, c.Hunt is BlunderHunt h ? Hunt(h) : null);
+        Section(j, Keys.Diagnosis, DiagnosisOutput.Json(report));
+        if (c.Robust is RobustEstimate rb) Robust(sink, rb);
+        Section(j, Keys.VarianceComponents, c.Components is VarianceComponentEstimate vc ? Components(vc) : null);
+        Section(j, Keys.Rounds, RoundsReport.Json(c));
+        Section(j, Keys.Grid, GridReport.Json(r, c));
+        Section(j, Keys.Misclosures, ResultJson.Misclosures.Of(c.Misclosures));
+        Section(j, Keys.Standards, ResultJson.Standards.Of(c.Standards));
+        j.WriteEndObject();
+        sink.Pass();
     }
 
-    private static ResultJson.Point Point(AdjustmentResult r, PointRow row)
+    private static void Point(Utf8JsonWriter j, AdjustmentResult r, PointRow row)
     {
         // The JSON keeps its documented a-priori standard deviations (docs/output-format.md), beside the
         // ellipse at the variance factor named under testing.variance_factor_basis.
         var p = row.Source;
         var pp = r.Analysis.Points[r.Network.IndexOf(p.Id)];
-        var ellipse = pp.Ellipse is ErrorEllipse e && pp.Confidence is ErrorEllipse k
-            ? new ResultJson.Ellipse(e.A, e.B, e.AzimuthDegrees, k.A, k.B) : null;
-        return new(p.Id, Finite(p.E), Finite(p.N), Finite(p.H), row.Held, row.Weighted, Finite(p.SdE), Finite(p.SdN),
-            Finite(p.SdH), Finite(p.CovEN), ellipse, Finite(pp.HeightConfidence));
+        j.WriteStartObject();
+        j.WriteString(Keys.Id, p.Id);
+        Num(j, Keys.E, p.E);
+        Num(j, Keys.N, p.N);
+        Num(j, Keys.H, p.H);
+        j.WriteString(Keys.Fixed, row.Held);
+        j.WriteString(Keys.Weighted, row.Weighted);
+        Num(j, Keys.SdE, p.SdE);
+        Num(j, Keys.SdN, p.SdN);
+        Num(j, Keys.SdH, p.SdH);
+        Num(j, Keys.CovEN, p.CovEN);
+        if (pp.Ellipse is ErrorEllipse e && pp.Confidence is ErrorEllipse k)
+        {
+            j.WriteStartObject(Keys.Ellipse);
+            j.WriteNumber(Keys.A, e.A);
+            j.WriteNumber(Keys.B, e.B);
+            j.WriteNumber(Keys.Azimuth, e.AzimuthDegrees);
+            j.WriteNumber(Keys.A95, k.A);
+            j.WriteNumber(Keys.B95, k.B);
+            j.WriteEndObject();
+        }
+        else j.WriteNull(Keys.Ellipse);
+        Num(j, Keys.SdH95, pp.HeightConfidence);
+        j.WriteEndObject();
     }
 
-    private static ResultJson.Observation Observation(ObservationRow row)
+    private static void Observation(Utf8JsonWriter j, ObservationRow row)
     {
         var o = row.Source;
         var i = o.Input;
         double k = ObservationLabels.JsonSmallFactor(i.Kind);
-        var components = new Dictionary<string, double>(StringComparer.Ordinal);
+        j.WriteStartObject();
+        j.WriteNumber(Keys.Index, o.Index);
+        j.WriteString(Keys.Kind, ObservationLabels.Key(i.Kind));
+        j.WriteString(Keys.At, ObservationLabels.Station(i));
+        j.WriteString(Keys.From, i.From);
+        j.WriteString(Keys.To, i.To);
+        if ((i as Network.DirectionObservation)?.SetId is string set) j.WriteString(Keys.Set, set);
+        j.WriteNumber(Keys.Observed, ObservationLabels.JsonValue(i.Kind, i.Value));
+        j.WriteNumber(Keys.Adjusted, ObservationLabels.JsonValue(i.Kind, o.Adjusted));
+        j.WriteNumber(Keys.Residual, o.Residual * k);
+        j.WriteNumber(Keys.Sd, i.StandardDeviation * k);
+        j.WriteStartObject(Keys.SdComponents);
         if (ResultReport.BudgetOf(o) is { } budget)
-            foreach (var ct in budget.Contributions) components.Add(ct.Name, ct.Value * k);
-        else components.Add(BudgetOutput.Stated, i.StandardDeviation * k);
-        return Fill(new ResultJson.Observation
         {
-            Index = o.Index,
-            Kind = ObservationLabels.Key(i.Kind),
-            At = ObservationLabels.Station(i),
-            From = i.From,
-            To = i.To,
-            Set = (i as Network.DirectionObservation)?.SetId,
-            Observed = ObservationLabels.JsonValue(i.Kind, i.Value),
-            Adjusted = ObservationLabels.JsonValue(i.Kind, o.Adjusted),
-            Residual = o.Residual * k,
-            Sd = i.StandardDeviation * k,
-            SdComponents = components,
-            SdAdjusted = o.SdAdjusted * k,
-            Source = i.Source,
-            Excluded = i.Excluded,
-            SdFactor = i.SdFactor != 1.0 ? i.SdFactor : null,
-            Redundancy = 0, W = null, Tau = null, Mdb = null, ExternalReliability = null,
-            ExternalReliabilityPoint = null, BiasToNoise = null, Flag = null,
-        }, row.Test, k);
+            // one member per name, as a dictionary keeps them (a repeated name is an error of the budget)
+            var names = new HashSet<string>(StringComparer.Ordinal);
+            foreach (var ct in budget.Contributions)
+            {
+                if (!names.Add(ct.Name))
+                    throw new ArgumentException($"error budget of observation {o.Index + 1}: '{ct.Name}' twice");
+                j.WriteNumber(ct.Name, ct.Value * k);
+            }
+        }
+        else j.WriteNumber(Keys.Stated, i.StandardDeviation * k);
+        j.WriteEndObject();
+        j.WriteNumber(Keys.SdAdjusted, o.SdAdjusted * k);
+        if (i.Source is string source) j.WriteString(Keys.Source, source);
+        j.WriteBoolean(Keys.Excluded, i.Excluded);
+        if (i.SdFactor != 1.0) j.WriteNumber(Keys.SdFactor, i.SdFactor);
+        Reliability(j, row.Test, k);
+        j.WriteEndObject();
     }
 
-    /// <summary>The test members of an observation or control component (MDB in JSON units by <paramref name="k"/>).
-    /// </summary>
-    private static T Fill<T>(T row, ObservationTest t, double k) where T : ResultJson.Reliability => row with
+    /// <summary>The test members of an observation or control component (MDB in JSON units by <paramref name="k"/>),
+    /// written last in its object.</summary>
+    private static void Reliability(Utf8JsonWriter j, ObservationTest t, double k)
     {
-        Redundancy = t.Redundancy,
-        W = Finite(t.W),
-        Tau = Finite(t.Tau),
-        Mdb = Finite(t.Mdb * k),
-        ExternalReliability = Finite(t.ExternalReliability),
-        ExternalReliabilityPoint = t.ExternalReliabilityPoint,
-        BiasToNoise = Finite(t.BiasToNoiseRatio),
-        Flag = t.Flag.Name(),
-    };
+        j.WriteNumber(Keys.Redundancy, t.Redundancy);
+        Num(j, Keys.W, t.W);
+        Num(j, Keys.Tau, t.Tau);
+        Num(j, Keys.Mdb, t.Mdb * k);
+        Num(j, Keys.ExternalReliability, t.ExternalReliability);
+        j.WriteString(Keys.ExternalReliabilityPoint, t.ExternalReliabilityPoint);
+        Num(j, Keys.BiasToNoise, t.BiasToNoiseRatio);
+        j.WriteString(Keys.Flag, t.Flag.Name());
+    }
 
-    private static ResultJson.Testing Testing(NetworkAnalysis a) => new(
-        a.Basis == VarianceFactorBasis.Known ? "known" : "estimated", a.VarianceFactor, a.Options.WTestAlpha,
-        a.WCritical, a.Options.TypeIIError, a.Delta0, a.Options.TauAlpha,
-        a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "sidak" : "bonferroni", Finite(a.TauCritical),
-        a.Options.ConfidenceLevel, a.EllipseScale, a.IntervalScale, a.ExternalReliabilityComputed, a.RedundancySum);
+    private static void Testing(Utf8JsonWriter j, NetworkAnalysis a)
+    {
+        j.WriteStartObject(Keys.Testing);
+        j.WriteString(Keys.VarianceFactorBasis, a.Basis == VarianceFactorBasis.Known ? "known" : "estimated");
+        j.WriteNumber(Keys.VarianceFactorUsed, a.VarianceFactor);
+        j.WriteNumber(Keys.WAlpha, a.Options.WTestAlpha);
+        j.WriteNumber(Keys.WCritical, a.WCritical);
+        j.WriteNumber(Keys.TypeIIError, a.Options.TypeIIError);
+        j.WriteNumber(Keys.Delta0, a.Delta0);
+        j.WriteNumber(Keys.TauAlpha, a.Options.TauAlpha);
+        j.WriteString(Keys.TauAdjustment, a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "sidak"
+            : "bonferroni");
+        Num(j, Keys.TauCritical, a.TauCritical);
+        j.WriteNumber(Keys.Confidence, a.Options.ConfidenceLevel);
+        j.WriteNumber(Keys.EllipseScale, a.EllipseScale);
+        j.WriteNumber(Keys.IntervalScale, a.IntervalScale);
+        j.WriteBoolean(Keys.ExternalReliabilityComputed, a.ExternalReliabilityComputed);
+        j.WriteNumber(Keys.RedundancySum, a.RedundancySum);
+        j.WriteEndObject();
+    }
 
     private static ResultJson.BlunderHunt Hunt(BlunderHunt h) => new(h.StopReason, h.SetAside,
         h.Rounds.Select(x => new ResultJson.HuntRound(x.Round, x.DegreesOfFreedom, Finite(x.VarianceFactor),
             x.GlobalTestPassed, x.WorstIndex, Finite(x.WorstStatistic), Finite(x.Critical), x.SetAside)));
 
-    private static ResultJson.Robust Robust(RobustEstimate rb) => new(
-        rb.Method == RobustMethod.Huber ? "huber" : "danish", rb.Tuning, rb.Iterations, rb.Converged, rb.Suspected,
-        Enumerable.Range(0, rb.WeightFactors.Count).Select(i =>
-            new ResultJson.RobustObservation(i, rb.WeightFactors[i], Finite(rb.Standardised[i]))));
+    /// <summary>The robust estimation (key <c>robust</c>), its rows one per observation.</summary>
+    private static void Robust(JsonSink sink, RobustEstimate rb)
+    {
+        var j = sink.Json;
+        j.WriteStartObject(Keys.Robust);
+        j.WriteString(Keys.Method, rb.Method == RobustMethod.Huber ? "huber" : "danish");
+        j.WriteNumber(Keys.Tuning, rb.Tuning);
+        j.WriteNumber(Keys.Iterations, rb.Iterations);
+        j.WriteBoolean(Keys.Converged, rb.Converged);
+        j.WriteStartArray(Keys.Suspected);
+        foreach (int i in rb.Suspected) j.WriteNumberValue(i);
+        j.WriteEndArray();
+        j.WriteStartArray(Keys.Observations);
+        for (int i = 0; i < rb.WeightFactors.Count; i++)
+        {
+            j.WriteStartObject();
+            j.WriteNumber(Keys.Index, i);
+            j.WriteNumber(Keys.WeightFactor, rb.WeightFactors[i]);
+            Num(j, Keys.StandardisedResidual, rb.Standardised[i]);
+            j.WriteEndObject();
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
+        j.WriteEndObject();
+    }
 
     private static ResultJson.VarianceComponents Components(VarianceComponentEstimate vc) => new(vc.Iterations,
         vc.Converged, vc.Groups.Select(g => new ResultJson.ComponentGroup(ObservationLabels.Key(g.Kind), g.Count,
             g.Redundancy, Finite(g.VarianceFactor), Finite(g.SdScale),
             Finite(g.ScaledSd * ObservationLabels.JsonSmallFactor(g.Kind)),
             Finite(g.ConstantPart), Finite(g.PpmPart), g.Note) { Group = g.Group }));
+
+    /// <summary>A number member: the value when finite, else null (a missing or non-finite value).</summary>
+    internal static void Num(Utf8JsonWriter j, JsonEncodedText name, double? v)
+    {
+        if (v is double x && double.IsFinite(x)) j.WriteNumber(name, x);
+        else j.WriteNull(name);
+    }
+
+    private static void Bool(Utf8JsonWriter j, JsonEncodedText name, bool? v)
+    {
+        if (v is bool b) j.WriteBoolean(name, b);
+        else j.WriteNull(name);
+    }
 
     /// <summary>A finite number, or null for a missing or non-finite value (written as JSON null).</summary>
     internal static double? Finite(double? v) => v is double x && double.IsFinite(x) ? x : null;

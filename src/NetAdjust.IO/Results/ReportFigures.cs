@@ -54,11 +54,22 @@ internal static class ReportFigures
     public static List<(AdjustedObservation Observation, double W)> Worst(AdjustmentResult r, IReadOnlyList<double?>? w,
         int count)
     {
-        if (w is null) return [];
-        return r.Observations.Where(o => o.Index < w.Count && w[o.Index] is double x && double.IsFinite(x))
-            .Select(o => (o, w[o.Index]!.Value))
-            .OrderByDescending(t => Math.Abs(t.Item2)).ThenBy(t => t.o.Index)
-            .Take(count).ToList();
+        if (w is null || count <= 0) return [];
+        // one pass keeping the leading few in order (largest |w| first, ties by input order), not a sort of all
+        var worst = new List<(AdjustedObservation Observation, double W)>(count + 1);
+        foreach (var o in r.Observations)
+        {
+            if (o.Index >= w.Count || w[o.Index] is not double x || !double.IsFinite(x)) continue;
+            int at = worst.Count;
+            while (at > 0 && Before((o, x), worst[at - 1])) at--;
+            if (at >= count) continue;
+            worst.Insert(at, (o, x));
+            if (worst.Count > count) worst.RemoveAt(count);
+        }
+        return worst;
+
+        static bool Before((AdjustedObservation O, double W) a, (AdjustedObservation O, double W) b) =>
+            Math.Abs(a.W) > Math.Abs(b.W) || (Math.Abs(a.W) == Math.Abs(b.W) && a.O.Index < b.O.Index);
     }
 
     /// <summary>The point's role in the plan network: fixed control, weighted control or new point.</summary>

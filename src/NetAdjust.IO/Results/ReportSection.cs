@@ -83,10 +83,11 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
         void Line(string s) => sb.Append(s.TrimEnd()).Append('\n');
         Line(Title);
         foreach (var line in Before) Line(line);
-        if (TextHeader) Line(Layout(Columns.Select(c => c.TextHeading ?? c.Header).ToList(), clip: false));
+        if (TextHeader) Layout(sb, Columns.Select(c => c.TextHeading ?? c.Header).ToList(), clip: false);
         foreach (var row in Rows)
         {
-            Line(TextLayout is null ? Layout(row.Cells, clip: true) : TextLayout(row.Cells));
+            if (TextLayout is null) Layout(sb, row.Cells, clip: true);
+            else Line(TextLayout(row.Cells));
             foreach (var line in row.After ?? []) Line(line);
             TextChunks.Spill(sb, output);
         }
@@ -94,16 +95,56 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
         Line("");
     }
 
-    private string Layout(IReadOnlyList<string> cells, bool clip)
+    /// <summary>Appends one line of cells in the columns' widths and alignments, without trailing white space.
+    /// </summary>
+    private void Layout(StringBuilder sb, IReadOnlyList<string> cells, bool clip)
     {
-        var sb = new StringBuilder("  ");
+        int start = sb.Length;
+        sb.Append("  ");
         for (int i = 0; i < Columns.Count; i++)
         {
             var c = Columns[i];
             string text = clip && c.Clip && c.Width > 0 ? TextReportWriter.Clip(cells[i], c.Width) : cells[i];
             if (i > 0) sb.Append(c.Gap);
-            sb.Append(c.Left ? text.PadRight(c.Width) : text.PadLeft(c.Width));
+            int pad = c.Width - text.Length;
+            if (!c.Left && pad > 0) sb.Append(' ', pad);
+            sb.Append(text);
+            if (c.Left && pad > 0) sb.Append(' ', pad);
         }
-        return sb.ToString();
+        TrimEnd(sb, start);
+        sb.Append('\n');
     }
+
+    /// <summary>Removes the white space at the end of the builder, back to <paramref name="start"/> at most (as
+    /// <see cref="string.TrimEnd()"/> on the line that starts there).</summary>
+    internal static void TrimEnd(StringBuilder sb, int start)
+    {
+        int end = sb.Length;
+        while (end > start && char.IsWhiteSpace(sb[end - 1])) end--;
+        sb.Length = end;
+    }
+}
+
+/// <summary>
+/// The rows of a long section, made from their index each time they are read (by the text or HTML report), so that
+/// the report model never holds a long table whole as text.
+/// </summary>
+/// <param name="count">The number of rows.</param>
+/// <param name="row">Makes the row of an index.</param>
+internal sealed class RowsOnDemand(int count, Func<int, SectionRow> row) : IReadOnlyList<SectionRow>
+{
+    /// <inheritdoc />
+    public int Count => count;
+
+    /// <inheritdoc />
+    public SectionRow this[int index] =>
+        (uint)index < (uint)count ? row(index) : throw new ArgumentOutOfRangeException(nameof(index));
+
+    /// <inheritdoc />
+    public IEnumerator<SectionRow> GetEnumerator()
+    {
+        for (int i = 0; i < count; i++) yield return row(i);
+    }
+
+    System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
 }

@@ -15,12 +15,42 @@ internal sealed class ReportUnits
 
     private readonly Dictionary<ObservationKind, LengthPattern> _booked = [];
 
+    // The patterns' formats, made once (the patterns build them on every call); the same text as the patterns.
+    private readonly string _lenFormat, _angFormat, _azFormat;
+    private readonly AnglePattern _az;
+    private readonly string _halfTurn, _zeroAzimuth;
+    private readonly double _radPerSmall;
+
     public ReportUnits(ProjectUnits units)
     {
         Units = units;
         _len = new LengthPattern(units.Length, Decimals);
         _ang = new AnglePattern(units.Angle, units.Angle == AngleFormat.Dms ? 1 : 5);
+        _lenFormat = "F" + _len.Decimals;
+        _angFormat = "F" + _ang.Decimals;
+        _az = units.Angle == AngleFormat.Dms ? new AnglePattern(AngleFormat.Dms, 0) : new AnglePattern(units.Angle, 2);
+        _azFormat = "F" + _az.Decimals;
+        _halfTurn = _az.Format(Angle.FromRadians(Math.PI));
+        _zeroAzimuth = _az.Format(Angle.FromRadians(0));
+        _radPerSmall = units.AngleSd.RadiansPerUnit();
     }
+
+    /// <summary>The decimal formats of the length units (F4 for 4 decimals), made once.</summary>
+    private static readonly string[] FixedFormats = ["F0", "F1", "F2", "F3", "F4", "F5", "F6", "F7", "F8"];
+
+    /// <summary>The text of a length as <see cref="LengthPattern.Format"/> writes it.</summary>
+    private static string Format(LengthPattern p, double metres) =>
+        NetAdjust.Units.Length.FromMetres(metres).In(p.Unit)
+            .ToString(p.Decimals < FixedFormats.Length ? FixedFormats[p.Decimals] : "F" + p.Decimals, Inv);
+
+    /// <summary>The text of an angle as <see cref="AnglePattern.Format"/> of <paramref name="p"/> writes it, with
+    /// the decimal format <paramref name="format"/> of its decimals.</summary>
+    private static string Format(AnglePattern p, string format, double radians) => p.Style switch
+    {
+        AngleFormat.Degrees => Angle.FromRadians(radians).Degrees.ToString(format, Inv),
+        AngleFormat.Gons => Angle.FromRadians(radians).Gons.ToString(format, Inv),
+        _ => p.Format(Angle.FromRadians(radians)),
+    };
 
     /// <summary>The decimals of lengths in the project's unit (0.1 mm in metres).</summary>
     public const int Decimals = 4;
@@ -59,7 +89,7 @@ internal sealed class ReportUnits
 
     /// <summary>A length of an observation kind (value, residual, sd), to the decimals it was booked to.</summary>
     public string KindLength(ObservationKind kind, double? metres) => metres is double m && double.IsFinite(m)
-        ? (_booked.TryGetValue(kind, out var p) ? p : _len).Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+        ? Format(_booked.Count > 0 && _booked.TryGetValue(kind, out var p) ? p : _len, m) : "-";
 
     public ProjectUnits Units { get; }
 
@@ -76,18 +106,25 @@ internal sealed class ReportUnits
 
     /// <summary>A coordinate or distance, or "-" when absent.</summary>
     public string Length(double? metres) => metres is double m &&
-        double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+        double.IsFinite(m) ? Format(_len, m) : "-";
 
     /// <summary>A standard deviation or residual length, or "-" when absent.</summary>
     public string SmallLength(double? metres) => metres is double m &&
-        double.IsFinite(m) ? _len.Format(NetAdjust.Units.Length.FromMetres(m)) : "-";
+        double.IsFinite(m) ? Format(_len, m) : "-";
 
     /// <summary>An angle value in the project's angle format.</summary>
     // in [0, 360) after rounding
-    public string AngleValue(double radians) => _ang.FormatDirection(Angle.FromRadians(radians));
+    public string AngleValue(double radians)
+    {
+        // As AnglePattern.FormatDirection, which parses its text back to tell a value rounded up to a full turn:
+        // only a direction within a hundredth of a radian of the full turn can be one, so only those are parsed.
+        double reduced = Angle.Reduce0To2Pi(radians);
+        return reduced < (2 * Math.PI) - 0.01 ? Format(_ang, _angFormat, reduced)
+            : _ang.FormatDirection(Angle.FromRadians(radians));
+    }
 
     /// <summary>A small angle (sd, residual) in arcsec or mgon, 2 decimals.</summary>
-    public string SmallAngle(double radians) => (radians / Units.AngleSd.RadiansPerUnit()).ToString("F2", Inv);
+    public string SmallAngle(double radians) => (radians / _radPerSmall).ToString("F2", Inv);
 
     /// <summary>An observed or adjusted value of an observation.</summary>
     public string ObservationValue(ObservationKind kind, double si) =>
@@ -101,11 +138,12 @@ internal sealed class ReportUnits
     /// decimals).</summary>
     public string Azimuth(double radians)
     {
-        var pattern = Units.Angle == AngleFormat.Dms ? new AnglePattern(AngleFormat.Dms, 0) :
-            new AnglePattern(Units.Angle, 2);
-        string text = pattern.Format(Angle.FromRadians(radians));
-        var back = pattern.Parse(text); // rounded up to a half turn (180-00-00, 200.00 gon): the axis points at 0
-        return back.Success && back.Value.Radians >= Math.PI - 1e-12 ? pattern.Format(Angle.FromRadians(0)) : text;
+        string text = Format(_az, _azFormat, radians);
+        // rounded up to a half turn (180-00-00, 200.00 gon): the axis points at 0; only an azimuth within a
+        // hundredth of a radian of the half turn can round up to it, so only those are parsed back
+        if (radians < Math.PI - 0.01 && text != _halfTurn) return text;
+        var back = _az.Parse(text);
+        return back.Success && back.Value.Radians >= Math.PI - 1e-12 ? _zeroAzimuth : text;
     }
 
     /// <summary>Invariant fixed-point text.</summary>

@@ -38,7 +38,7 @@ internal static class StatisticsReport
         string Len(double? m) => units.Length(m);
         string Small(Observation o, double? si) =>
             si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-";
-        string Num(double? v, int d) => v is double x && double.IsFinite(x) ? x.ToString("F" + d, Inv) : "-";
+        string Num(double? v, int d) => v is double x && double.IsFinite(x) ? x.ToString(Fixed(d), Inv) : "-";
         // azimuths in the project's angle format, as in the coordinate table and the plot
         string azUnit = u.Angle switch { AngleFormat.Dms => "d-mm-ss", AngleFormat.Gons => "gon", _ => "deg" };
         string Az(double rad) => units.Azimuth(rad);
@@ -53,20 +53,26 @@ internal static class StatisticsReport
             new(header, unit, ValueKind.Number, width, false, gap);
         string mixed = $"{lu} or {au}";
 
-        // Tests of the observations.
-        var rows = new List<SectionRow>();
+        // Tests of the observations: the counts now, the rows when a writer reads them (a long table is never held
+        // whole as text).
         int rejected = 0, uncontrolled = 0, weak = 0, excluded = 0;
         foreach (var o in r.Observations)
         {
-            var i = o.Input;
-            var t = a.Observations[o.Index];
-            switch (t.Flag)
+            switch (a.Observations[o.Index].Flag)
             {
                 case ObservationFlag.Rejected: rejected++; break;
                 case ObservationFlag.Uncontrolled: uncontrolled++; break;
                 case ObservationFlag.Weak: weak++; break;
                 case ObservationFlag.Excluded: excluded++; break;
             }
+        }
+        var observations = r.Observations;
+        var tests = a.Observations;
+        SectionRow TestRow(int index)
+        {
+            var o = observations[index];
+            var i = o.Input;
+            var t = tests[o.Index];
             string flag = t.Flag switch
             {
                 ObservationFlag.Rejected => "REJECTED",
@@ -82,12 +88,13 @@ internal static class StatisticsReport
                 ObservationFlag.Uncontrolled or ObservationFlag.Weak => RowState.Warn,
                 _ => RowState.Normal,
             };
-            rows.Add(new SectionRow([
+            return new SectionRow([
                 (o.Index + 1).ToString(Inv), ObservationLabels.Short(i.Kind), ObservationLabels.Station(i) ?? "",
                 ObservationLabels.FromShown(i), i.To, Small(i, o.Residual),
                 Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2), Num(t.W, 2), Num(t.Tau, 2),
-                Small(i, t.Mdb), Len(t.ExternalReliability), flag], state));
+                Small(i, t.Mdb), Len(t.ExternalReliability), flag], state);
         }
+        var rows = new RowsOnDemand(observations.Count, TestRow);
         var after = new List<string>
         {
             $"  Rejected: {rejected}; uncontrolled (r < {F(a.Options.UncontrolledRedundancy, 2)}): {uncontrolled}; " +
@@ -141,22 +148,23 @@ internal static class StatisticsReport
         string level = (a.Options.ConfidenceLevel * 100).ToString("0.#", Inv) + "%";
         if (a.Points.Any(p => p.Ellipse is not null || p.SdHeight is not null))
         {
-            var ellipses = new List<SectionRow>();
-            foreach (var p in a.Points)
+            var precisions = a.Points;
+            var shown = new List<int>();
+            for (int pi = 0; pi < precisions.Count; pi++)
+                if (precisions[pi].Ellipse is not null || precisions[pi].SdHeight is not null) shown.Add(pi);
+            SectionRow EllipseRow(int index)
             {
-                if (p.Ellipse is null && p.SdHeight is null) continue;
+                var p = precisions[shown[index]];
                 var e = p.Ellipse; var k = p.Confidence;
                 var input = r.Network[p.Id];
                 if ((e is null || input.IsFixed(Fixity.EN)) && (p.SdHeight is null || input.IsFixed(Fixity.H)))
-                {
-                    ellipses.Add(new SectionRow([p.Id, "held", "", "", "", "", "", ""]));
-                    continue;
-                }
-                ellipses.Add(new SectionRow([
+                    return new SectionRow([p.Id, "held", "", "", "", "", "", ""]);
+                return new SectionRow([
                     p.Id, Len(e?.A), Len(e?.B), e is ErrorEllipse ee ? Az(ee.Azimuth) : "-", Len(k?.A), Len(k?.B),
                     Len(p.SdHeight), Len(p.HeightConfidence),
-                ]));
+                ]);
             }
+            var ellipses = new RowsOnDemand(shown.Count, EllipseRow);
             sections.Add(new ReportSection("ellipses",
                 $"ERROR ELLIPSES ({lu}; azimuth of the semi-major axis in {azUnit} from north)", "Error ellipses",
                 [
@@ -173,7 +181,8 @@ internal static class StatisticsReport
                 ellipses, []));
         }
 
-        if (a.Relative.Count > 0)
+        var relative = a.Relative;
+        if (relative.Count > 0)
         {
             sections.Add(new ReportSection("relative",
                 $"RELATIVE ERROR ELLIPSES ({lu}; azimuth in {azUnit}; distance precision 1:k; " +
@@ -183,18 +192,23 @@ internal static class StatisticsReport
                     Nr("a " + level, lu, 8), Nr("Distance", lu, 11), Nr("sd dist", lu, 8), Nr("1:k", null, 9),
                     Nr("sd az", au, 7), Txt("", 0, gap: ""),
                 ],
-                a.Relative.Select(rel => new SectionRow([
-                    rel.From, rel.To, Len(rel.Ellipse.A), Len(rel.Ellipse.B), Az(rel.Ellipse.Azimuth),
-                    Len(rel.Confidence.A), Len(rel.Distance), Len(rel.SdDistance),
-                    double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact",
-                    units.SmallAngle(rel.SdAzimuth),
-                    rel.Observed ? "" : " *",
-                ])).ToList(),
+                new RowsOnDemand(relative.Count, x =>
+                {
+                    var rel = relative[x];
+                    return new SectionRow([
+                        rel.From, rel.To, Len(rel.Ellipse.A), Len(rel.Ellipse.B), Az(rel.Ellipse.Azimuth),
+                        Len(rel.Confidence.A), Len(rel.Distance), Len(rel.SdDistance),
+                        double.IsFinite(rel.Ratio) ? rel.Ratio.ToString("F0", Inv) : "exact",
+                        units.SmallAngle(rel.SdAzimuth),
+                        rel.Observed ? "" : " *",
+                    ]);
+                }),
                 a.Relative.Any(x => !x.Observed)
                     ? ["  * pair listed in the project file (not joined by an observation)"] : []));
         }
 
-        if (a.RelativeHeights.Count > 0)
+        var relativeHeights = a.RelativeHeights;
+        if (relativeHeights.Count > 0)
         {
             string Dh(double? m) => units.KindLength(ObservationKind.HeightDifference, m);
             sections.Add(new ReportSection("relative-heights",
@@ -204,10 +218,14 @@ internal static class StatisticsReport
                     Id("From", 10), Id("To", 10), Nr("dH", lu, 11), Nr("sd dH", lu, 9), Nr("dH " + level, lu, 9),
                     Txt("", 0, gap: ""),
                 ],
-                a.RelativeHeights.Select(rh => new SectionRow([
-                    rh.From, rh.To, Dh(rh.Difference), Dh(rh.SdDifference), Dh(rh.Confidence),
-                    rh.Observed ? "" : " *",
-                ])).ToList(),
+                new RowsOnDemand(relativeHeights.Count, x =>
+                {
+                    var rh = relativeHeights[x];
+                    return new SectionRow([
+                        rh.From, rh.To, Dh(rh.Difference), Dh(rh.SdDifference), Dh(rh.Confidence),
+                        rh.Observed ? "" : " *",
+                    ]);
+                }),
                 a.RelativeHeights.Any(x => !x.Observed)
                     ? ["  * pair listed in the project file (not joined by an observation)"] : []));
         }
@@ -330,7 +348,13 @@ internal static class StatisticsReport
         _ => RowState.Normal,
     };
 
-    private static string F(double v, int d) => v.ToString("F" + d, Inv);
+    private static string F(double v, int d) => v.ToString(Fixed(d), Inv);
+
+    /// <summary>The format of <paramref name="d"/> decimals ("F2"), made once for the usual decimals.</summary>
+    private static string Fixed(int d) => d switch
+    {
+        0 => "F0", 1 => "F1", 2 => "F2", 3 => "F3", 4 => "F4", _ => "F" + d,
+    };
 
     private static IEnumerable<string> Wrap(string text, int width)
     {

@@ -96,8 +96,11 @@ public static class TextReportWriter
             var p = row.Source;
             string held = row.Held, weighted = row.Weighted;
             string role = held + (weighted.Length > 0 ? (held.Length > 0 ? " " : "") + $"w:{weighted}" : "");
-            Line(($"  {Clip(p.Id, 12),-12} {E(p.E, 14)} {E(p.N, 14)} {E(p.H, 11)} " +
-                  $"{E(row.SdE, 8)} {E(row.SdN, 8)} {E(row.SdH, 8)}  {role}").TrimEnd());
+            int start = sb.Length;
+            sb.Append($"  {Clip(p.Id, 12),-12} {E(p.E, 14)} {E(p.N, 14)} {E(p.H, 11)} ")
+                .Append($"{E(row.SdE, 8)} {E(row.SdN, 8)} {E(row.SdH, 8)}  {role}");
+            ReportSection.TrimEnd(sb, start);
+            sb.Append('\n');
             TextChunks.Spill(sb, output);
         }
         Line();
@@ -112,13 +115,11 @@ public static class TextReportWriter
         {
             var i = row.Input;
             var k = i.Kind;
-            Line(
-                $"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(row.AtShown, 8),-8} " +
-                $"{Clip(row.FromShown, 8),-8} " +
-                 $"{Clip(i.To, 8),-8} {units.ObservationValue(k, i.Value),14} " +
-                     $"{units.ObservationValue(k, row.Source.Adjusted),14} " +
-                 $"{units.ObservationSmall(k, row.Source.Residual),9} " +
-                     $"{units.ObservationSmall(k, i.StandardDeviation),7}");
+            sb.Append($"  {row.Number,4} {ObservationLabels.Short(k),-9} {Clip(row.AtShown, 8),-8} ")
+                .Append($"{Clip(row.FromShown, 8),-8} {Clip(i.To, 8),-8} {units.ObservationValue(k, i.Value),14} ")
+                .Append($"{units.ObservationValue(k, row.Source.Adjusted),14} ")
+                .Append($"{units.ObservationSmall(k, row.Source.Residual),9} ")
+                .Append($"{units.ObservationSmall(k, i.StandardDeviation),7}").Append('\n');
             TextChunks.Spill(sb, output);
         }
         Line();

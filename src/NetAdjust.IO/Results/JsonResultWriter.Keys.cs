@@ -1,0 +1,130 @@
+using System.Text.Json;
+
+namespace NetAdjust.IO.Results;
+
+public static partial class JsonResultWriter
+{
+    /// <summary>The member names of the JSON result (snake case, docs/output-format.md), encoded once.</summary>
+    internal static class Keys
+    {
+        public static readonly JsonEncodedText A = JsonEncodedText.Encode("a");
+        public static readonly JsonEncodedText A95 = JsonEncodedText.Encode("a95");
+        public static readonly JsonEncodedText Adjusted = JsonEncodedText.Encode("adjusted");
+        public static readonly JsonEncodedText Alpha = JsonEncodedText.Encode("alpha");
+        public static readonly JsonEncodedText Angle = JsonEncodedText.Encode("angle");
+        public static readonly JsonEncodedText AngularResidualAndSd = JsonEncodedText.Encode("angular_residual_and_sd");
+        public static readonly JsonEncodedText AprioriVarianceFactor =
+            JsonEncodedText.Encode("apriori_variance_factor");
+        public static readonly JsonEncodedText At = JsonEncodedText.Encode("at");
+        public static readonly JsonEncodedText Azimuth = JsonEncodedText.Encode("azimuth");
+        public static readonly JsonEncodedText B = JsonEncodedText.Encode("b");
+        public static readonly JsonEncodedText B95 = JsonEncodedText.Encode("b95");
+        public static readonly JsonEncodedText BiasToNoise = JsonEncodedText.Encode("bias_to_noise");
+        public static readonly JsonEncodedText BlunderHunt = JsonEncodedText.Encode("blunder_hunt");
+        public static readonly JsonEncodedText Component = JsonEncodedText.Encode("component");
+        public static readonly JsonEncodedText Confidence = JsonEncodedText.Encode("confidence");
+        public static readonly JsonEncodedText ControlTests = JsonEncodedText.Encode("control_tests");
+        public static readonly JsonEncodedText Converged = JsonEncodedText.Encode("converged");
+        public static readonly JsonEncodedText CovEN = JsonEncodedText.Encode("cov_en");
+        public static readonly JsonEncodedText Datum = JsonEncodedText.Encode("datum");
+        public static readonly JsonEncodedText DegreesOfFreedom = JsonEncodedText.Encode("degrees_of_freedom");
+        public static readonly JsonEncodedText Delta0 = JsonEncodedText.Encode("delta0");
+        public static readonly JsonEncodedText Dh = JsonEncodedText.Encode("dh");
+        public static readonly JsonEncodedText Dh95 = JsonEncodedText.Encode("dh95");
+        public static readonly JsonEncodedText Diagnosis = JsonEncodedText.Encode("diagnosis");
+        public static readonly JsonEncodedText Distance = JsonEncodedText.Encode("distance");
+        public static readonly JsonEncodedText E = JsonEncodedText.Encode("e");
+        public static readonly JsonEncodedText Ellipse = JsonEncodedText.Encode("ellipse");
+        public static readonly JsonEncodedText EllipseScale = JsonEncodedText.Encode("ellipse_scale");
+        public static readonly JsonEncodedText Excluded = JsonEncodedText.Encode("excluded");
+        public static readonly JsonEncodedText ExternalReliability = JsonEncodedText.Encode("external_reliability");
+        public static readonly JsonEncodedText ExternalReliabilityComputed =
+            JsonEncodedText.Encode("external_reliability_computed");
+        public static readonly JsonEncodedText ExternalReliabilityPoint =
+            JsonEncodedText.Encode("external_reliability_point");
+        public static readonly JsonEncodedText Fixed = JsonEncodedText.Encode("fixed");
+        public static readonly JsonEncodedText Flag = JsonEncodedText.Encode("flag");
+        public static readonly JsonEncodedText Format = JsonEncodedText.Encode("format");
+        public static readonly JsonEncodedText From = JsonEncodedText.Encode("from");
+        public static readonly JsonEncodedText Generator = JsonEncodedText.Encode("generator");
+        public static readonly JsonEncodedText GlobalTest = JsonEncodedText.Encode("global_test");
+        public static readonly JsonEncodedText Gnss = JsonEncodedText.Encode("gnss");
+        public static readonly JsonEncodedText Grid = JsonEncodedText.Encode("grid");
+        public static readonly JsonEncodedText H = JsonEncodedText.Encode("h");
+        public static readonly JsonEncodedText Id = JsonEncodedText.Encode("id");
+        public static readonly JsonEncodedText Index = JsonEncodedText.Encode("index");
+        public static readonly JsonEncodedText Input = JsonEncodedText.Encode("input");
+        public static readonly JsonEncodedText IntervalScale = JsonEncodedText.Encode("interval_scale");
+        public static readonly JsonEncodedText Iterations = JsonEncodedText.Encode("iterations");
+        public static readonly JsonEncodedText Kind = JsonEncodedText.Encode("kind");
+        public static readonly JsonEncodedText Length = JsonEncodedText.Encode("length");
+        public static readonly JsonEncodedText Lower = JsonEncodedText.Encode("lower");
+        public static readonly JsonEncodedText Mdb = JsonEncodedText.Encode("mdb");
+        public static readonly JsonEncodedText Method = JsonEncodedText.Encode("method");
+        public static readonly JsonEncodedText Misclosures = JsonEncodedText.Encode("misclosures");
+        public static readonly JsonEncodedText N = JsonEncodedText.Encode("n");
+        public static readonly JsonEncodedText Observations = JsonEncodedText.Encode("observations");
+        public static readonly JsonEncodedText Observed = JsonEncodedText.Encode("observed");
+        public static readonly JsonEncodedText Orientation = JsonEncodedText.Encode("orientation");
+        public static readonly JsonEncodedText Orientations = JsonEncodedText.Encode("orientations");
+        public static readonly JsonEncodedText Passed = JsonEncodedText.Encode("passed");
+        public static readonly JsonEncodedText Point = JsonEncodedText.Encode("point");
+        public static readonly JsonEncodedText Points = JsonEncodedText.Encode("points");
+        public static readonly JsonEncodedText Project = JsonEncodedText.Encode("project");
+        public static readonly JsonEncodedText Ratio = JsonEncodedText.Encode("ratio");
+        public static readonly JsonEncodedText Redundancy = JsonEncodedText.Encode("redundancy");
+        public static readonly JsonEncodedText RedundancySum = JsonEncodedText.Encode("redundancy_sum");
+        public static readonly JsonEncodedText Refraction = JsonEncodedText.Encode("refraction");
+        public static readonly JsonEncodedText Relative = JsonEncodedText.Encode("relative");
+        public static readonly JsonEncodedText RelativeHeights = JsonEncodedText.Encode("relative_heights");
+        public static readonly JsonEncodedText Residual = JsonEncodedText.Encode("residual");
+        public static readonly JsonEncodedText Robust = JsonEncodedText.Encode("robust");
+        public static readonly JsonEncodedText Rounds = JsonEncodedText.Encode("rounds");
+        public static readonly JsonEncodedText RunDate = JsonEncodedText.Encode("run_date");
+        public static readonly JsonEncodedText Sd = JsonEncodedText.Encode("sd");
+        public static readonly JsonEncodedText SdAdjusted = JsonEncodedText.Encode("sd_adjusted");
+        public static readonly JsonEncodedText SdAzimuth = JsonEncodedText.Encode("sd_azimuth");
+        public static readonly JsonEncodedText SdComponents = JsonEncodedText.Encode("sd_components");
+        public static readonly JsonEncodedText SdDh = JsonEncodedText.Encode("sd_dh");
+        public static readonly JsonEncodedText SdDistance = JsonEncodedText.Encode("sd_distance");
+        public static readonly JsonEncodedText SdE = JsonEncodedText.Encode("sd_e");
+        public static readonly JsonEncodedText SdFactor = JsonEncodedText.Encode("sd_factor");
+        public static readonly JsonEncodedText SdH = JsonEncodedText.Encode("sd_h");
+        public static readonly JsonEncodedText SdH95 = JsonEncodedText.Encode("sd_h95");
+        public static readonly JsonEncodedText SdN = JsonEncodedText.Encode("sd_n");
+        public static readonly JsonEncodedText Set = JsonEncodedText.Encode("set");
+        public static readonly JsonEncodedText Sigma0 = JsonEncodedText.Encode("sigma0");
+        public static readonly JsonEncodedText Solver = JsonEncodedText.Encode("solver");
+        public static readonly JsonEncodedText Source = JsonEncodedText.Encode("source");
+        public static readonly JsonEncodedText StandardisedResidual = JsonEncodedText.Encode("standardised_residual");
+        public static readonly JsonEncodedText Standards = JsonEncodedText.Encode("standards");
+        public static readonly JsonEncodedText Stated = JsonEncodedText.Encode(BudgetOutput.Stated);
+        public static readonly JsonEncodedText Station = JsonEncodedText.Encode("station");
+        public static readonly JsonEncodedText Statistic = JsonEncodedText.Encode("statistic");
+        public static readonly JsonEncodedText Statistics = JsonEncodedText.Encode("statistics");
+        public static readonly JsonEncodedText Survey = JsonEncodedText.Encode("survey");
+        public static readonly JsonEncodedText Suspected = JsonEncodedText.Encode("suspected");
+        public static readonly JsonEncodedText Tau = JsonEncodedText.Encode("tau");
+        public static readonly JsonEncodedText TauAdjustment = JsonEncodedText.Encode("tau_adjustment");
+        public static readonly JsonEncodedText TauAlpha = JsonEncodedText.Encode("tau_alpha");
+        public static readonly JsonEncodedText TauCritical = JsonEncodedText.Encode("tau_critical");
+        public static readonly JsonEncodedText Testing = JsonEncodedText.Encode("testing");
+        public static readonly JsonEncodedText To = JsonEncodedText.Encode("to");
+        public static readonly JsonEncodedText Tuning = JsonEncodedText.Encode("tuning");
+        public static readonly JsonEncodedText TypeIIError = JsonEncodedText.Encode("type_ii_error");
+        public static readonly JsonEncodedText Units = JsonEncodedText.Encode("units");
+        public static readonly JsonEncodedText Unknowns = JsonEncodedText.Encode("unknowns");
+        public static readonly JsonEncodedText Upper = JsonEncodedText.Encode("upper");
+        public static readonly JsonEncodedText VarianceComponents = JsonEncodedText.Encode("variance_components");
+        public static readonly JsonEncodedText VarianceFactor = JsonEncodedText.Encode("variance_factor");
+        public static readonly JsonEncodedText VarianceFactorBasis = JsonEncodedText.Encode("variance_factor_basis");
+        public static readonly JsonEncodedText VarianceFactorUsed = JsonEncodedText.Encode("variance_factor_used");
+        public static readonly JsonEncodedText Vtpv = JsonEncodedText.Encode("vtpv");
+        public static readonly JsonEncodedText W = JsonEncodedText.Encode("w");
+        public static readonly JsonEncodedText WAlpha = JsonEncodedText.Encode("w_alpha");
+        public static readonly JsonEncodedText WCritical = JsonEncodedText.Encode("w_critical");
+        public static readonly JsonEncodedText Warnings = JsonEncodedText.Encode("warnings");
+        public static readonly JsonEncodedText WeightFactor = JsonEncodedText.Encode("weight_factor");
+        public static readonly JsonEncodedText Weighted = JsonEncodedText.Encode("weighted");
+    }
+}
