@@ -7,8 +7,13 @@ namespace NetAdjust.IO.Project;
 /// </summary>
 public static class InputLimits
 {
-    /// <summary>Largest project or CSV file read, in bytes (64 MiB).</summary>
+    /// <summary>Largest project file (YAML) read, in bytes (64 MiB; a project of a million points with their
+    /// observations in CSV files has about 50 MB).</summary>
     public const long MaxFileBytes = 64L * 1024 * 1024;
+
+    /// <summary>Largest CSV observation file read, in bytes (1 GiB; the 9.2 million observations of a million-point
+    /// network take about 460 MB). Its text must also fit one string of at most about a billion characters.</summary>
+    public const long MaxCsvFileBytes = 1024L * 1024 * 1024;
 
     /// <summary>Deepest nesting of YAML mappings and sequences (the format needs 4).</summary>
     public const int MaxNestingDepth = 32;

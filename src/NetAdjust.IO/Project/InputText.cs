@@ -2,18 +2,20 @@ using System.Text;
 
 namespace NetAdjust.IO.Project;
 
-/// <summary>Reads input files within <see cref="InputLimits.MaxFileBytes"/> and decodes them as strict UTF-8.</summary>
+/// <summary>Reads input files within a size limit (<see cref="InputLimits.MaxFileBytes"/> for a project file,
+/// <see cref="InputLimits.MaxCsvFileBytes"/> for a CSV file) and decodes them as strict UTF-8.</summary>
 internal static class InputText
 {
     private static readonly UTF8Encoding Strict = new(encoderShouldEmitUTF8Identifier: false,
         throwOnInvalidBytes: true);
 
-    /// <summary>Reads at most the size limit from the stream; refuses a longer stream (also an endless one such
-    /// as /dev/zero).</summary>
-    public static byte[] ReadBounded(Stream stream, string file)
+    /// <summary>Reads at most <paramref name="limit"/> bytes from the stream; refuses a longer stream (also an
+    /// endless one such as /dev/zero).</summary>
+    public static byte[] ReadBounded(Stream stream, string file, long limit)
     {
         // a file of known length is read straight into its array (no growing buffer, no copy)
-        if (stream.CanSeek && stream.Length - stream.Position is long left and <= InputLimits.MaxFileBytes)
+        long left = stream.CanSeek ? stream.Length - stream.Position : -1;
+        if (left >= 0 && left <= limit)
         {
             var bytes = new byte[left];
             int got = stream.ReadAtLeast(bytes, bytes.Length, throwOnEndOfStream: false);
@@ -24,21 +26,21 @@ internal static class InputText
             using var grown = new MemoryStream();
             grown.Write(bytes);
             grown.WriteByte((byte)next);
-            return ReadOn(stream, grown, file);
+            return ReadOn(stream, grown, file, limit);
         }
         using var buffer = new MemoryStream();
-        return ReadOn(stream, buffer, file);
+        return ReadOn(stream, buffer, file, limit);
     }
 
-    private static byte[] ReadOn(Stream stream, MemoryStream buffer, string file)
+    private static byte[] ReadOn(Stream stream, MemoryStream buffer, string file, long limit)
     {
         var chunk = new byte[81920];
         int n;
         while ((n = stream.Read(chunk, 0, chunk.Length)) > 0)
         {
-            if (buffer.Length + n > InputLimits.MaxFileBytes)
+            if (buffer.Length + n > limit)
                 throw new ProjectFileException(file, 0, "",
-                    $"the file is larger than the limit of {InputLimits.MaxFileBytes / (1024 * 1024)} MiB " +
+                    $"the file is larger than the limit of {limit / (1024 * 1024)} MiB " +
                         $"(docs/input-format.md, \"Limits\")");
             buffer.Write(chunk, 0, n);
         }

@@ -49,7 +49,8 @@ public static partial class ProjectReader
     private static SurveyProject Parse(string text, string displayName, string baseDirectory,
         InputFileResolver resolver, bool planned) =>
         Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
-            (full, rel) => ReadText(resolver, full, rel, "the observation file"), planned);
+            (full, rel) => ReadText(resolver, full, rel, "the observation file", InputLimits.MaxCsvFileBytes),
+            planned);
 
     /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref
     /// name="resolver"/>.</summary>
@@ -61,16 +62,17 @@ public static partial class ProjectReader
     {
         ArgumentNullException.ThrowIfNull(resolver);
         return Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
-            (full, rel) => ReadText(resolver, full, rel, "the observation file"));
+            (full, rel) => ReadText(resolver, full, rel, "the observation file", InputLimits.MaxCsvFileBytes));
     }
 
-    private static string ReadText(InputFileResolver resolver, string full, string shown, string what)
+    private static string ReadText(InputFileResolver resolver, string full, string shown, string what,
+        long limit = InputLimits.MaxFileBytes)
     {
         byte[] bytes;
         try
         {
             using var stream = resolver.Open(full);
-            bytes = InputText.ReadBounded(stream, shown);
+            bytes = InputText.ReadBounded(stream, shown, limit);
         }
         catch (FileNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
         catch (DirectoryNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }

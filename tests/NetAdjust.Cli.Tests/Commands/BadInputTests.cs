@@ -268,6 +268,22 @@ public sealed class BadInputTests : IDisposable
     }
 
     [Fact]
+    public void ACsvFileBeyondItsSizeLimitIsRefusedByName()
+    {
+        // The CSV limit is larger than the project file's (a million points, docs/input-format.md "Limits"); a file
+        // one byte over it is refused before it is read, naming the CSV file.
+        string csv = Path.Combine(_tmp, "huge.csv");
+        using (var s = File.Create(csv)) s.SetLength(InputLimits.MaxCsvFileBytes + 1); // sparse: no disk used
+        string f = Path.Combine(_tmp, "huge.yaml");
+        File.WriteAllText(f, "points:\n  - {id: A, e: 0, n: 0, fix: en}\n  - {id: B, e: 100, n: 0}\n" +
+            "files:\n  - huge.csv\n");
+        var run = CliHarness.Run("check", f);
+        Assert.Equal(ExitCodes.InvalidInput, run.Code);
+        Assert.Contains("huge.csv", run.Err);
+        Assert.Contains("larger than the limit of 1024 MiB", run.Err);
+    }
+
+    [Fact]
     public void AnEndlessFileIsRefused()
     {
         if (!File.Exists("/dev/zero")) return; // an endless device exists on Linux and macOS only
