@@ -72,13 +72,17 @@ internal static class AdjustCommand
             var reduction = project.Grid is { } grid ? GridReduction.Reduce(project.Network, grid, project.Options)
                 : null;
             if (reduction is not null) project = project with { Network = reduction.Network };
+            // The misclosure check needs only the network: it runs beside the adjustment (on another core) and is
+            // joined before anything reads it; its result does not depend on the order.
+            var (network, checks) = (project.Network, project.Checks);
+            var misclosureCheck = Task.Run(() => NetAdjust.Misclosures.MisclosureCheck.Run(network, checks));
+            NetAdjust.Misclosures.MisclosureReport Misclosures() => misclosureCheck.GetAwaiter().GetResult();
             var context0 = new ReportContext(path, runDate, project.Units)
             {
                 ObservationBudgets = parse.GetValue(budgets), Crs = project.Crs, Grid = reduction,
                 GnssFrame = project.GnssFrame,
                 Warnings = project.Warnings,
                 Particulars = project.Particulars, Rounds = project.Rounds,
-                Misclosures = NetAdjust.Misclosures.MisclosureCheck.Run(project.Network, project.Checks),
                 PlaneHeight = project.Network.Observations.Any(o => o is NetAdjust.Network.ZenithObservation
                         or NetAdjust.Network.SlopeDistanceObservation)
                     ? project.PlaneHeight : null,
@@ -100,7 +104,7 @@ internal static class AdjustCommand
                 if (clash is not null)
                     throw new InvalidInputException($"--sequence cannot be combined with {clash}: run them separately");
                 var seq = AdjustmentSequence.Run(project.Network, project.Options);
-                (result, context) = (seq.Constrained, context0);
+                (result, context) = (seq.Constrained, context0 with { Misclosures = Misclosures() });
                 text = w => SequenceReportWriter.Write(w, seq, context);
                 model = ResultReport.Build(seq, context, minimal: parse.GetValue(solution) == "minimal");
                 if (jsonPath is not null) files.Add((jsonPath, s => SequenceJsonWriter.Write(s, seq, context)));
@@ -108,6 +112,7 @@ internal static class AdjustCommand
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
+                context = context with { Misclosures = Misclosures() };
                 context = diagnosis.Run(parse, project, result, context);
                 if (project.Standards.Count > 0)
                     context = context with { Standards = NetAdjust.Standards.StandardsCheck.Apply(result,

@@ -8,7 +8,9 @@ namespace NetAdjust.IO.Project;
 /// <summary>
 /// A conformal map projection computed by ProjNET (the .NET port of the OGC coordinate transformation services;
 /// LGPL-2.1-or-later, used unchanged through its NuGet package), made from WKT (version 1). Coordinates outside
-/// are in metres; a system in feet is converted at this edge.
+/// are in metres; a system in feet is converted at this edge. Safe to share between threads: ProjNET's transforms
+/// do not document thread safety, so each call holds the projection's lock (the command checks the misclosures
+/// beside the adjustment, and both may project).
 /// </summary>
 public sealed class ProjNetProjection : IMapProjection
 {
@@ -24,6 +26,7 @@ public sealed class ProjNetProjection : IMapProjection
     private readonly MathTransform _forward;
     private readonly MathTransform _inverse;
     private readonly double _metresPerUnit;
+    private readonly Lock _gate = new();
 
     private ProjNetProjection(string name, Ellipsoid ellipsoid, MathTransform forward, MathTransform inverse,
         double metresPerUnit)
@@ -78,7 +81,8 @@ public sealed class ProjNetProjection : IMapProjection
     {
         try
         {
-            var (x, y) = _forward.Transform(longitude * (180 / Math.PI), latitude * (180 / Math.PI));
+            double x, y;
+            lock (_gate) (x, y) = _forward.Transform(longitude * (180 / Math.PI), latitude * (180 / Math.PI));
             return (x * _metresPerUnit, y * _metresPerUnit);
         }
         catch (Exception e) when (e is ArgumentException or ArithmeticException or InvalidOperationException)
@@ -90,7 +94,8 @@ public sealed class ProjNetProjection : IMapProjection
     {
         try
         {
-            var (lon, lat) = _inverse.Transform(easting / _metresPerUnit, northing / _metresPerUnit);
+            double lon, lat;
+            lock (_gate) (lon, lat) = _inverse.Transform(easting / _metresPerUnit, northing / _metresPerUnit);
             return (lat * (Math.PI / 180), lon * (Math.PI / 180));
         }
         catch (Exception e) when (e is ArgumentException or ArithmeticException or InvalidOperationException)
