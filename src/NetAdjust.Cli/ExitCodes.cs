@@ -18,6 +18,9 @@ public static class ExitCodes
     /// <summary>An output file could not be written (nothing partial was left).</summary>
     public const int OutputFailed = 4;
 
+    /// <summary>The run needed more memory than the process may use (nothing was written).</summary>
+    public const int OutOfMemory = 5;
+
     /// <summary>An unexpected internal error (a defect: please report it).</summary>
     public const int InternalError = 70;
 }

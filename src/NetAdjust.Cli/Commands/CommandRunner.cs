@@ -26,5 +26,13 @@ internal static class CommandRunner
             console.Error.WriteLine($"error: adjustment failed: {e.Message}");
             return ExitCodes.AdjustmentFailed;
         }
+        catch (OutOfMemoryException)
+        {
+            // not a defect: the network is larger than the memory the process may use (the outputs are written only
+            // when all of them are complete, so none was written or replaced)
+            console.Error.WriteLine("error: out of memory: this network needs more memory than the process may " +
+                "use (docs/performance.md gives the measured peak per network size); no output was written");
+            return ExitCodes.OutOfMemory;
+        }
     }
 }
