@@ -67,13 +67,17 @@ public static class PlaneGeometry
     public static EquationValue Distance(string fromId, PlanePoint from, string toId, PlanePoint to)
     {
         Span<double> g = stackalloc double[4];
-        double d = Distance(from, to, g);
-        return new EquationValue(d,
+        return TwoPoint(Distance(from, to, g), fromId, toId, g);
+    }
+
+    /// <summary>A value of two points with its derivatives by E and N of the from point, then of the to point.
+    /// </summary>
+    private static EquationValue TwoPoint(double value, string fromId, string toId, ReadOnlySpan<double> g) =>
+        new(value,
         [
             new(fromId, Parameter.E, g[0]), new(fromId, Parameter.N, g[1]),
             new(toId, Parameter.E, g[2]), new(toId, Parameter.N, g[3]),
         ]);
-    }
 
     /// <summary>Horizontal distance without allocating: the value, and its derivatives by E and N of the from
     /// point, then of the to point, written to <paramref name="partials"/> (4 entries).</summary>
@@ -95,12 +99,7 @@ public static class PlaneGeometry
     public static EquationValue Azimuth(string fromId, PlanePoint from, string toId, PlanePoint to)
     {
         Span<double> g = stackalloc double[4];
-        double t = Azimuth(from, to, g);
-        return new EquationValue(t,
-        [
-            new(fromId, Parameter.E, g[0]), new(fromId, Parameter.N, g[1]),
-            new(toId, Parameter.E, g[2]), new(toId, Parameter.N, g[3]),
-        ]);
+        return TwoPoint(Azimuth(from, to, g), fromId, toId, g);
     }
 
     /// <summary>Grid azimuth without allocating: the value, and its derivatives by E and N of the from point, then
