@@ -11,7 +11,7 @@ mkdir -p "$work"
 rid="$(dotnet --info | sed -n 's/^ *RID: *//p' | head -1)"
 dotnet publish src/NetAdjust.Cli -c Release -r "$rid" --self-contained false -o "$work/publish" >/dev/null
 cmd="$work/publish/NetAdjust.Cli"
-printf '| points | observations | wall (s) | CPU user + sys (s) | peak memory (GB) | load before / after |\n'
+printf '| points | observations | wall (s) | CPU user + sys (s) | peak memory (GiB) | load before / after |\n'
 printf '| ---: | ---: | ---: | ---: | ---: | --- |\n'
 for n in "$@"; do
     net="$work/net$n.yaml"

@@ -48,28 +48,4 @@ internal static class CommandPhases
             clock.Print();
         }
     }
-
-    private sealed class PhaseClock
-    {
-        private readonly Stopwatch _wall = Stopwatch.StartNew();
-        private TimeSpan _cpu = Process.GetCurrentProcess().TotalProcessorTime;
-        private readonly List<(string Phase, double Wall, double Cpu)> _laps = [];
-
-        public void Lap(string phase)
-        {
-            var cpu = Process.GetCurrentProcess().TotalProcessorTime;
-            _laps.Add((phase, _wall.Elapsed.TotalSeconds, (cpu - _cpu).TotalSeconds));
-            _cpu = cpu;
-            _wall.Restart();
-        }
-
-        public void Print()
-        {
-            foreach (var (phase, wall, cpu) in _laps)
-                Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"  {phase,-22} wall {wall,7:F3} s   CPU {cpu,7:F3} s"));
-            Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"  {"total",-22} wall {_laps.Sum(l => l.Wall),7:F3} s   CPU {_laps.Sum(l => l.Cpu),7:F3} s"));
-        }
-    }
 }

@@ -27,7 +27,7 @@ internal static class CovarianceProbe
         var best = new List<List<(string Phase, double Wall, double Cpu)>>();
         for (int run = 0; run < runs; run++)
         {
-            var clock = new Clock();
+            var clock = new PhaseClock();
             var result = Adjuster.Adjust(project.Network, project.Options);
             clock.Lap("adjustment (whole)");
             var rows = result.DesignRows;
@@ -77,7 +77,7 @@ internal static class CovarianceProbe
             Console.WriteLine(string.Create(inv, $"run {run + 1}: {u} unknowns, {rows.Count} rows, " +
                 $"{sym.SupernodeCount} supernodes, nnz(L) {sym.FactorNonZeros}, stored {sym.StoredEntries}; " +
                 $"check {sum:R} {analysis.RedundancySum:R}; load average {ReadingProbe.LoadAverage()}"));
-            clock.Print();
+            clock.Print(30, total: false);
             if (run > 0) best.Add(clock.Laps);
         }
         if (best.Count == 0) return;
@@ -87,30 +87,6 @@ internal static class CovarianceProbe
             var laps = best.SelectMany(b => b).Where(l => l.Phase == phase).ToList();
             Console.WriteLine(string.Create(inv, $"  {phase,-30} CPU {laps.Min(l => l.Cpu),7:F3} s   " +
                 $"wall {laps.Min(l => l.Wall),7:F3} s   ({laps.Count} repetitions)"));
-        }
-    }
-
-    private sealed class Clock
-    {
-        private readonly Stopwatch _wall = Stopwatch.StartNew();
-        private TimeSpan _cpu = Process.GetCurrentProcess().TotalProcessorTime;
-        private readonly List<(string Phase, double Wall, double Cpu)> _laps = [];
-
-        public List<(string Phase, double Wall, double Cpu)> Laps => _laps;
-
-        public void Lap(string phase)
-        {
-            var cpu = Process.GetCurrentProcess().TotalProcessorTime;
-            _laps.Add((phase, _wall.Elapsed.TotalSeconds, (cpu - _cpu).TotalSeconds));
-            _cpu = cpu;
-            _wall.Restart();
-        }
-
-        public void Print()
-        {
-            foreach (var (phase, wall, cpu) in _laps)
-                Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"  {phase,-30} wall {wall,7:F3} s   CPU {cpu,7:F3} s"));
         }
     }
 }
