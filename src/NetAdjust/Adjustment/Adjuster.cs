@@ -203,6 +203,9 @@ public static partial class Adjuster
                 for (int k = 0; k < r.Columns.Length; k++) rhs[r.Columns[k]] += r.Values[k] * pl[i]; // AᵀP l
             }
             lastDx = plan.Step(factor, rhs);
+            // the iteration's factor is not used after its step: its storage serves the next factorisation
+            if (factor is LinearAlgebra.Sparse.SparseCholeskyFactor sparse) sparse.Recycle();
+            else if (factor is DatumFactor datum) datum.Recycle();
             converged = true;
             for (int j = 0; j < u; j++)
             {

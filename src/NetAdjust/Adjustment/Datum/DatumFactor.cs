@@ -58,6 +58,10 @@ internal sealed class DatumFactor : INormalFactor
 
     public int Size => _inner.Size;
 
+    /// <summary>Hands the inner factor's storage to the next factorisation (see
+    /// <see cref="LinearAlgebra.Sparse.SparseCholeskyFactor.Recycle"/>).</summary>
+    internal void Recycle() => (_inner as LinearAlgebra.Sparse.SparseCholeskyFactor)?.Recycle();
+
     private int D => _g.Length;
 
     /// <summary>y = Q_m b = M⁻¹ b − H_K W⁻¹ H_Kᵀ b: the minimal-constraint solve (zero at the held unknowns).</summary>

@@ -35,7 +35,8 @@ internal static class MultifrontalCholesky
         }
 
         // Each front's block is cleared just before its assembly (cache-warm), not the whole array up front.
-        var L = GC.AllocateUninitializedArray<double>(checked((int)sym.StoredEntries));
+        // (a released factor's storage is reused: every entry is written below, so nothing of it survives)
+        var L = sym.TakeSpare() ?? GC.AllocateUninitializedArray<double>(checked((int)sym.StoredEntries));
         int ns = sym.SupernodeCount;
         var updates = new double[]?[ns];
         var relpos = new int[n];

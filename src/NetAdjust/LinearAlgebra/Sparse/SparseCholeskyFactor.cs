@@ -13,7 +13,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// </remarks>
 internal sealed class SparseCholeskyFactor : INormalFactor
 {
-    private readonly double[] _l;
+    private double[] _l;
     private readonly double[] _scale;
     private readonly object _gate = new();
     private double[]? _z;
@@ -40,6 +40,26 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         return new SparseCholeskyFactor(symbolic, l, scale);
     }
 
+    /// <summary>Hands this factor's storage to the next factorisation on the same pattern; the factor is unusable
+    /// afterwards (any use throws). For the Gauss-Newton iterations, whose factors are dropped after their step.
+    /// </summary>
+    internal void Recycle()
+    {
+        lock (_gate)
+        {
+            if (_l.Length == 0) return;
+            var storage = _l;
+            _l = [];
+            _z = null;
+            _cachedSolution = null;
+            _cachedColumn = -1;
+            Symbolic.OfferSpare(storage);
+        }
+    }
+
+    private double[] Live => _l.Length > 0 || Symbolic.StoredEntries == 0 ? _l :
+        throw new InvalidOperationException("this factor was recycled: its storage now belongs to another factor");
+
     /// <summary>The symbolic analysis this factor was computed on.</summary>
     public SymbolicCholesky Symbolic { get; }
 
@@ -55,8 +75,9 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         var perm = Symbolic.Perm;
         var y = new double[n];
         for (int k = 0; k < n; k++) y[k] = rhs[perm[k]] * _scale[k];      // y = S P b
-        SupernodalTriangularSolve.Forward(Symbolic, _l, y);               // y = L \ y
-        SupernodalTriangularSolve.Backward(Symbolic, _l, y);              // y = Lᵀ \ y
+        var l = Live;
+        SupernodalTriangularSolve.Forward(Symbolic, l, y);               // y = L \ y
+        SupernodalTriangularSolve.Backward(Symbolic, l, y);              // y = Lᵀ \ y
         var x = new double[n];
         for (int k = 0; k < n; k++) x[perm[k]] = y[k] * _scale[k];        // x = Pᵀ S y
         return x;
@@ -80,7 +101,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         {
             var z = _z;
             if (z is null)
-                lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, _l);
+                lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, Live);
             return z[at] * _scale[pi] * _scale[pj];
         }
         lock (_gate)
@@ -108,7 +129,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor
         if (n > 16) return QuadraticFormByEntries(columns, values);
         var z = _z;
         if (z is null)
-            lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, _l);
+            lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, Live);
         Span<int> perm = stackalloc int[n];
         Span<long> at = stackalloc long[n * n];
         for (int p = 0; p < n; p++) perm[p] = Symbolic.InversePerm[columns[p]];
@@ -140,6 +161,6 @@ internal sealed class SparseCholeskyFactor : INormalFactor
     /// pattern).</summary>
     public void ComputeSelectedInverse()
     {
-        lock (_gate) _z ??= SelectedInversion.Compute(Symbolic, _l);
+        lock (_gate) _z ??= SelectedInversion.Compute(Symbolic, Live);
     }
 }

@@ -41,6 +41,21 @@ internal sealed class SymbolicCholesky
     /// <summary>The number of values stored for L, explicit zeros of amalgamated supernodes included.</summary>
     public long StoredEntries { get; private init; }
 
+    /// <summary>The storage of a factor on this pattern that its owner no longer uses (<see
+    /// cref="SparseCholeskyFactor.Recycle"/>), taken by the next numeric factorisation instead of fresh memory: a fresh
+    /// array of this size is paged in on first touch, which cost about as much as the factorisation's arithmetic.
+    /// </summary>
+    private double[]? _spare;
+
+    /// <summary>Offers the storage of a released factor for the next factorisation.</summary>
+    internal void OfferSpare(double[] storage)
+    {
+        if (storage.LongLength == StoredEntries) Volatile.Write(ref _spare, storage);
+    }
+
+    /// <summary>Takes the spare storage, if any (each array is handed out once).</summary>
+    internal double[]? TakeSpare() => Interlocked.Exchange(ref _spare, null);
+
     /// <summary>Floating-point operations of one numeric factorisation, Σ_j c_j² with c_j the column counts (Davis
     /// 2006, §4.6).</summary>
     public double FactorFlops { get; private init; }

@@ -34,4 +34,30 @@ public class MultifrontalCholeskyTests
             for (int j = Math.Max(0, i - 8); j <= i; j++)
                 if (first.IsOnPattern(i, j)) Assert.Equal(first.InverseEntry(i, j), second.InverseEntry(i, j));
     }
+
+    [Fact]
+    public void ARecycledFactorsStorageServesTheNextFactorisationWithTheSameBits()
+    {
+        var (u, rows, w) = SparseEngineTests.RandomProblem(13, 300, blocks: true);
+        var graph = AdjacencyGraph.FromNormalEquations(u, rows, w);
+        var sym = SymbolicCholesky.Analyze(graph, ApproximateMinimumDegree.Order(graph));
+        var assembly = new NormalMatrixAssembly(sym, rows);
+        var fresh = SparseCholeskyFactor.Factorize(sym, assembly, rows, w);
+        var expected = fresh.Solve(Enumerable.Range(0, u).Select(i => 1.0 + (i % 7)).ToArray());
+        double qxx = fresh.InverseEntry(3, 3);
+
+        // a factor of another matrix on the same pattern (other weights), recycled: its storage is reused ...
+        var w2 = WeightMatrix.FromBlocks(w.RowCount,
+            w.Blocks.Select(b => new WeightBlock(b.Rows, b.Matrix.Select(x => 2.5 * x).ToArray())));
+        var other = SparseCholeskyFactor.Factorize(sym, assembly, rows, w2);
+        other.Recycle();
+        Assert.Throws<InvalidOperationException>(() => other.Solve(new double[u])); // ... and it is unusable
+        var spare = sym.TakeSpare();
+        Assert.NotNull(spare);
+        sym.OfferSpare(spare!); // put back for the next factorisation, which must take it
+        var reused = SparseCholeskyFactor.Factorize(sym, assembly, rows, w);
+        Assert.Equal(expected, reused.Solve(Enumerable.Range(0, u).Select(i => 1.0 + (i % 7)).ToArray()));
+        Assert.Equal(qxx, reused.InverseEntry(3, 3));
+        Assert.Null(sym.TakeSpare()); // handed out once
+    }
 }
