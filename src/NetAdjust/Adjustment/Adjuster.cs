@@ -204,8 +204,7 @@ public static partial class Adjuster
             }
             lastDx = plan.Step(factor, rhs);
             // the iteration's factor is not used after its step: its storage serves the next factorisation
-            if (factor is LinearAlgebra.Sparse.SparseCholeskyFactor sparse) sparse.Recycle();
-            else if (factor is DatumFactor datum) datum.Recycle();
+            (factor as IRecyclableFactor)?.Recycle();
             converged = true;
             for (int j = 0; j < u; j++)
             {

@@ -36,6 +36,14 @@ public interface INormalFactor
     double InverseEntry(int i, int j);
 }
 
+/// <summary>A factor whose storage can be handed to the next factorisation once its owner is done with it (the
+/// Gauss-Newton iterations' factors); it is unusable afterwards.</summary>
+internal interface IRecyclableFactor
+{
+    /// <summary>Hands the storage on; any later use of the factor throws.</summary>
+    void Recycle();
+}
+
 /// <summary>The normal matrix is numerically singular: some unknown is not determined by the observations and
 /// constraints.</summary>
 public sealed class SingularNormalMatrixException : Exception

@@ -24,7 +24,7 @@ namespace NetAdjust.Adjustment.Datum;
 /// asked for Q_B, so a selected inverse on the pattern of N suffices. Adding G Gᵀ to N instead would fill N densely.
 /// </para>
 /// </summary>
-internal sealed class DatumFactor : INormalFactor
+internal sealed class DatumFactor : INormalFactor, IRecyclableFactor
 {
     private readonly INormalFactor _inner;  // factor of M = N + E_K W E_Kᵀ
     private readonly double[][] _g, _b;    // d columns of length u
@@ -59,8 +59,8 @@ internal sealed class DatumFactor : INormalFactor
     public int Size => _inner.Size;
 
     /// <summary>Hands the inner factor's storage to the next factorisation (see
-    /// <see cref="LinearAlgebra.Sparse.SparseCholeskyFactor.Recycle"/>).</summary>
-    internal void Recycle() => (_inner as LinearAlgebra.Sparse.SparseCholeskyFactor)?.Recycle();
+    /// <see cref="IRecyclableFactor"/>).</summary>
+    public void Recycle() => (_inner as IRecyclableFactor)?.Recycle();
 
     private int D => _g.Length;
 

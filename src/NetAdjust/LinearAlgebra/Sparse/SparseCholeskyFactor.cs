@@ -11,7 +11,7 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// on it. An entry off the pattern is computed by one solve N x = e_j (O(nnz(L))) and the last such column is
 /// cached, so a run of requests in one column costs one solve.
 /// </remarks>
-internal sealed class SparseCholeskyFactor : INormalFactor
+internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
 {
     private double[] _l;
     private readonly double[] _scale;
@@ -43,7 +43,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor
     /// <summary>Hands this factor's storage to the next factorisation on the same pattern; the factor is unusable
     /// afterwards (any use throws). For the Gauss-Newton iterations, whose factors are dropped after their step.
     /// </summary>
-    internal void Recycle()
+    public void Recycle()
     {
         lock (_gate)
         {
