@@ -29,6 +29,15 @@ public static class ResultAnalysis
     /// point.</exception>
     public static NetworkAnalysis Analyse(AdjustmentResult result, AnalysisOptions? options = null)
     {
+        ArgumentNullException.ThrowIfNull(result);
+        return Run(result, options,
+            Environment.ProcessorCount > 1 && result.DesignRows.Count >= SideBySideRows);
+    }
+
+    /// <summary>Analyses a result, with the relative precisions computed on a second core when
+    /// <paramref name="beside"/> is true (the same numbers either way).</summary>
+    internal static NetworkAnalysis Run(AdjustmentResult result, AnalysisOptions? options, bool beside)
+    {
         options ??= AnalysisOptions.Default;
         options.Validate();
         var st = result.Statistics;
@@ -64,7 +73,7 @@ public static class ResultAnalysis
         (List<RelativePrecision>, List<RelativeHeightPrecision>) Relatives() =>
             (Relative(result, options, vf, kEllipse, pointCols, Q),
                 RelativeHeights(result, options, vf, kInterval, pointCols, Q));
-        var beside = m >= SideBySideRows && Environment.ProcessorCount > 1 ? Task.Run(Relatives) : null;
+        var other = beside ? Task.Run(Relatives) : null;
         try
         {
             double AQA(SparseRow a, SparseRow b)
@@ -202,7 +211,7 @@ public static class ResultAnalysis
 
             double Qs(int i, int j) => i >= 0 && j >= 0 ? Q(i, j) : 0.0;
 
-            var (relative, relativeHeights) = beside is null ? Relatives() : beside.GetAwaiter().GetResult();
+            var (relative, relativeHeights) = other is null ? Relatives() : other.GetAwaiter().GetResult();
 
             double sumR = 0;
             for (int i = 0; i < m; i++) if (weighted[i]) sumR += red[i];
@@ -219,7 +228,7 @@ public static class ResultAnalysis
         catch
         {
             // an error here surfaces as it would without the other core, once that core has finished its part
-            try { beside?.Wait(); }
+            try { other?.Wait(); }
             catch (AggregateException) { }
             throw;
         }
