@@ -10,9 +10,9 @@ namespace NetAdjust.Benchmarks;
 /// <summary>
 /// The phases of <c>netadjust adjust FILE --json OUT --report OUT.txt</c> (default statistics), timed in process:
 /// <c>-- command FILE [RUNS]</c> runs the same library calls as the command, in its order (read, misclosures,
-/// adjustment, statistics analysis, report model, JSON, text report; the outputs go to a null stream), and prints the
-/// wall and CPU time (user + system, of the whole process) of each phase, for the first run (cold: JIT included) and
-/// for each further run (warm).
+/// adjustment, statistics analysis, report model, JSON and text report side by side; the outputs go to a null
+/// stream), and prints the wall and CPU time (user + system, of the whole process) of each phase, for the first run
+/// (cold: JIT included) and for each further run (warm).
 /// </summary>
 internal static class CommandPhases
 {
@@ -37,10 +37,11 @@ internal static class CommandPhases
             clock.Lap("statistics analysis");
             var model = ResultReport.Build(result, context);
             clock.Lap("report model");
-            JsonResultWriter.Write(Stream.Null, model);
-            clock.Lap("JSON");
-            using (var w = new StreamWriter(Stream.Null)) TextReportWriter.Write(w, model);
-            clock.Lap("text report");
+            // the command renders its files side by side, one per core
+            Parallel.Invoke(new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount },
+                () => JsonResultWriter.Write(Stream.Null, model),
+                () => { using var w = new StreamWriter(Stream.Null); TextReportWriter.Write(w, model); });
+            clock.Lap("JSON and text report");
             Console.WriteLine(string.Create(inv, $"run {run + 1} ({(run == 0 ? "cold" : "warm")}): " +
                 $"{project.Network.Points.Count} points, {project.Network.Observations.Count} observations; " +
                 $"load average {ReadingProbe.LoadAverage()}; peak working set " +

@@ -1,3 +1,4 @@
+using System.Runtime.ExceptionServices;
 using System.Text;
 
 namespace NetAdjust.IO;
@@ -71,30 +72,105 @@ public static class SafeFileWriter
         var staged = new List<(string Tmp, string Full, string Given)>();
         try
         {
-            foreach (var (path, write) in files)
-            {
-                string full = Path.GetFullPath(path);
-                string tmp = TemporaryPath(full);
-                staged.Add((tmp, full, path));
-                try
-                {
-                    using var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None,
-                        BufferSize);
-                    write(stream);
-                }
-                catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
-                {
-                    throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
-                }
-            }
-            OutputCommit.RenameAll(staged.Select(t => (t.Tmp, t.Full, t.Given)).ToList());
+            foreach (var (path, write) in files) WriteOne(path, write, t => staged.Add(t));
+            OutputCommit.RenameAll(staged);
         }
         finally
         {
-            foreach (var (tmp, _, _) in staged)
-                try { if (File.Exists(tmp)) File.Delete(tmp); }
-                catch (IOException) { } catch (UnauthorizedAccessException) { }
+            foreach (var (tmp, _, _) in staged) TryDelete(tmp);
         }
+    }
+
+    /// <summary>
+    /// Writes several files as one step, as <see cref="WriteAll(IReadOnlyList{ValueTuple{string, Action{Stream}}})"/>
+    /// does, with up to <paramref name="concurrency"/> of the writers running at once (the calling thread and
+    /// others); each file is still written by one writer on one thread, so its bytes are those of a write one after
+    /// the other when the writers do not depend on the order. The writers are started in the files' order. Only
+    /// when all of them are written are the files renamed into place; when one fails, no file is replaced, the
+    /// temporary files are removed, the files after the first failed one are not started, and the exception of the
+    /// first failed file in the files' order is thrown (as a write one after the other would throw it).
+    /// </summary>
+    /// <param name="files">Target paths and the writers of their contents, in order; a writer gets the open
+    /// stream of its temporary file and must not close it. Writers that run at once must be safe to run together
+    /// (they may read shared data, not change it).</param>
+    /// <param name="concurrency">How many writers may run at once (1: one after the other).</param>
+    /// <exception cref="OutputException">When a file cannot be written; the temporary files are removed.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">When <paramref name="concurrency"/> is less than 1.</exception>
+    public static void WriteAll(IReadOnlyList<(string Path, Action<Stream> Write)> files, int concurrency)
+    {
+        ArgumentNullException.ThrowIfNull(files);
+        ArgumentOutOfRangeException.ThrowIfLessThan(concurrency, 1);
+        int workers = Math.Min(concurrency, files.Count);
+        if (workers <= 1)
+        {
+            WriteAll(files);
+            return;
+        }
+        var staged = new (string Tmp, string Full, string Given)?[files.Count];
+        var failures = new ExceptionDispatchInfo?[files.Count];
+        var gate = new object();
+        int next = 0, firstFailed = int.MaxValue;
+        // Each worker takes the next file in order; after a failure, only the files before the failed one are still
+        // started (one of them may fail too, and the first failure in order is the one to report).
+        void Work()
+        {
+            while (true)
+            {
+                int i;
+                lock (gate)
+                {
+                    if (next >= files.Count || next > firstFailed) return;
+                    i = next++;
+                }
+                try { WriteOne(files[i].Path, files[i].Write, t => staged[i] = t); }
+                catch (Exception e)
+                {
+                    failures[i] = ExceptionDispatchInfo.Capture(e);
+                    lock (gate) firstFailed = Math.Min(firstFailed, i);
+                }
+            }
+        }
+        try
+        {
+            var helpers = new Task[workers - 1];
+            for (int k = 0; k < helpers.Length; k++)
+                helpers[k] = Task.Factory.StartNew(Work, CancellationToken.None, TaskCreationOptions.LongRunning,
+                    TaskScheduler.Default);
+            Work();
+            Task.WaitAll(helpers);
+            foreach (var failure in failures) failure?.Throw();
+            OutputCommit.RenameAll(staged.Select(t => t!.Value).ToList());
+        }
+        finally
+        {
+            foreach (var t in staged)
+                if (t is { } s) TryDelete(s.Tmp);
+        }
+    }
+
+    /// <summary>Writes one file to its temporary file, handing the staged paths to <paramref name="stage"/> before
+    /// the file is made (so that it is removed whatever happens next).</summary>
+    private static void WriteOne(string path, Action<Stream> write,
+        Action<(string Tmp, string Full, string Given)> stage)
+    {
+        string full = Path.GetFullPath(path);
+        string tmp = TemporaryPath(full);
+        stage((tmp, full, path));
+        try
+        {
+            using var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None, BufferSize);
+            write(stream);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
+        {
+            throw new OutputException($"{path}: cannot write the file ({e.Message})", e);
+        }
+    }
+
+    private static void TryDelete(string tmp)
+    {
+        try { if (File.Exists(tmp)) File.Delete(tmp); }
+        catch (IOException) { } catch (UnauthorizedAccessException) { }
     }
 
     /// <summary>The buffer of the output streams (bytes).</summary>

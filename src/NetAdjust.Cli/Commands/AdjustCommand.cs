@@ -126,11 +126,10 @@ internal static class AdjustCommand
             files.AddRange(exchange.Render(parse, model ?? ResultReport.Build(result, context)));
             if (reportPath is not null)
                 files.Add((reportPath, s => { using var w = ExchangeOutputs.Utf8(s); text(w); }));
-            SafeFileWriter.WriteAll(files.Select(f => (f.Item1, (Action<Stream>)(s =>
-            {
-                Progress(project, "writing " + f.Item1);
-                f.Item2(s);
-            }))).ToList());
+            // The writers only read the report model, so they render side by side, one file per core; the progress
+            // names them all first, in the files' order, whatever the thread schedule.
+            foreach (var (filePath, _) in files) Progress(project, "writing " + filePath);
+            SafeFileWriter.WriteAll(files, Environment.ProcessorCount);
             if (reportPath is null)
             {
                 Progress(project, "writing the report to standard output");

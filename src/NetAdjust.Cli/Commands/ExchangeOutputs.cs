@@ -8,7 +8,7 @@ namespace NetAdjust.Cli.Commands;
 /// <summary>
 /// The report and exchange outputs of <c>adjust</c>: <c>--html</c>, <c>--svg</c>, <c>--csv</c>, <c>--landxml</c>,
 /// <c>--geojson</c>. They are written with the other outputs through
-/// <see cref="SafeFileWriter.WriteAll(IReadOnlyList{ValueTuple{string, Action{Stream}}})"/>, all or none
+/// <see cref="SafeFileWriter.WriteAll(IReadOnlyList{ValueTuple{string, Action{Stream}}}, int)"/>, all or none
 /// (docs/cli.md, docs/output-format.md).
 /// </summary>
 internal sealed class ExchangeOutputs

@@ -15,6 +15,10 @@ namespace NetAdjust.Adjustment;
 /// </summary>
 public static partial class Adjuster
 {
+    /// <summary>Observations from which the standard deviations of the adjusted observations are computed on two
+    /// cores (below it, the thread would cost more than it saves).</summary>
+    internal const int SideBySideObservations = 4096;
+
     /// <summary>Adjusts a network.</summary>
     /// <param name="network">The network (validated on construction).</param>
     /// <param name="options">Options; null for <see cref="AdjustmentOptions.Default"/>.</param>
@@ -80,22 +84,48 @@ public static partial class Adjuster
             s0)).ToArray();
         var observations = new AdjustedObservation[network.Observations.Count];
         var rowCofactors = new double[observations.Length];
-        for (int i = 0; i < observations.Length; i++)
+        void Progress(int i)
         {
             if (options.Progress is not null && i % 65536 == 0)
                 options.Progress.Report(new AdjustmentProgress("statistics of the observations",
                     100.0 * i / observations.Length));
-            var o = network.Observations[i];
-            double v = -finalL[i];
-            double adjusted = o.Value + v;
-            if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
-            double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) :
-                Quadratic(finalRows[i], finalFactor);
-            rowCofactors[i] = o.Excluded ? double.NaN : qll;
-            observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
+        }
+        void Observations(int from, int to, bool progress)
+        {
+            for (int i = from; i < to; i++)
             {
-                Budget = model.Budgets[i],
-            };
+                if (progress) Progress(i);
+                var o = network.Observations[i];
+                double v = -finalL[i];
+                double adjusted = o.Value + v;
+                if (o.Kind.IsAngular()) adjusted = Units.Angle.Reduce0To2Pi(adjusted);
+                double qll = finalFactor is null ? 0 : o.Excluded ? QuadraticBySolve(finalRows[i], finalFactor) :
+                    Quadratic(finalRows[i], finalFactor);
+                rowCofactors[i] = o.Excluded ? double.NaN : qll;
+                observations[i] = new AdjustedObservation(o, adjusted, v, Math.Sqrt(Math.Max(0, s0 * qll)), i)
+                {
+                    Budget = model.Budgets[i],
+                };
+            }
+        }
+        // On a large network the second half of the observations is done on another core (each observation is
+        // computed alone, into its own slot: the same numbers whatever the schedule); its progress is reported from
+        // this thread once it is done, so the lines come in the same order as on one thread.
+        int half = observations.Length >= SideBySideObservations && Environment.ProcessorCount > 1
+            ? observations.Length / 2 : observations.Length;
+        var other = half < observations.Length
+            ? Task.Run(() => Observations(half, observations.Length, progress: false)) : null;
+        try { Observations(0, half, progress: true); }
+        catch
+        {
+            try { other?.Wait(); }
+            catch (AggregateException) { }
+            throw;
+        }
+        if (other is not null)
+        {
+            other.GetAwaiter().GetResult();
+            for (int i = half; i < observations.Length; i++) Progress(i);
         }
         var orientations = AdjustedOrientations(network, index, state, finalFactor, s0);
 

@@ -116,8 +116,9 @@ public sealed class DenseNormalEquationsSolver : INormalEquationsSolver
 
         public double InverseEntry(int i, int j)
         {
-            _inverse ??= ComputeInverse();
-            return _inverse[(i * _n) + j] * _scale[i] * _scale[j];
+            // made once even when asked from two threads at once (a second computation would give the same numbers)
+            var inverse = LazyInitializer.EnsureInitialized(ref _inverse, ComputeInverse);
+            return inverse[(i * _n) + j] * _scale[i] * _scale[j];
         }
 
         private double[] ComputeInverse()

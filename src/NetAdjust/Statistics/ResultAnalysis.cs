@@ -17,6 +17,10 @@ namespace NetAdjust.Statistics;
 /// </remarks>
 public static class ResultAnalysis
 {
+    /// <summary>Design rows from which the relative precisions are computed on a second core beside the tests (below
+    /// it, the thread would cost more than it saves).</summary>
+    internal const int SideBySideRows = 4096;
+
     /// <summary>Analyses a result.</summary>
     /// <param name="result">The adjustment result.</param>
     /// <param name="options">The options; null for <see cref="AnalysisOptions.Default"/>.</param>
@@ -24,6 +28,15 @@ public static class ResultAnalysis
     /// <exception cref="InvalidInputException">When an option is out of range or a listed pair names an unknown
     /// point.</exception>
     public static NetworkAnalysis Analyse(AdjustmentResult result, AnalysisOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        return Run(result, options,
+            Environment.ProcessorCount > 1 && result.DesignRows.Count >= SideBySideRows);
+    }
+
+    /// <summary>Analyses a result, with the relative precisions computed on a second core when
+    /// <paramref name="beside"/> is true (the same numbers either way).</summary>
+    internal static NetworkAnalysis Run(AdjustmentResult result, AnalysisOptions? options, bool beside)
     {
         options ??= AnalysisOptions.Default;
         options.Validate();
@@ -51,158 +64,174 @@ public static class ResultAnalysis
 
         bool hasFactor = result.HasFactor;
         double Q(int i, int j) => hasFactor ? result.Cofactor(i, j) : 0.0;
-        double AQA(SparseRow a, SparseRow b)
-        {
-            double s = 0;
-            for (int p = 0; p < a.Columns.Length; p++)
-                for (int q = 0; q < b.Columns.Length; q++)
-                    s += a.Values[p] * b.Values[q] * Q(a.Columns[p], b.Columns[q]);
-            return s;
-        }
-
-        var rowCofactors = result.RowCofactors;
-        var red = new double[m];
-        var pqp = new double[m];   // (P Qvv P)ᵢᵢ
-        var pv = new double[m];    // (P v)ᵢ
-        var weighted = new bool[m];
-        foreach (var blk in weights.Blocks)
-        {
-            if (blk.Size == 1)
-            {
-                // one observation: the arithmetic of the general case below without its small matrices
-                double p1 = blk[0, 0];
-                if (p1 == 0) continue;
-                int row1 = blk.Rows[0];
-                // a Qxx aᵀ as the adjuster computed it (same products in the same order as AQA), else computed
-                double aqa1 = hasFactor && rowCofactors is not null && row1 < rowCofactors.Length &&
-                    !double.IsNaN(rowCofactors[row1]) ? rowCofactors[row1] : AQA(rows[row1], rows[row1]);
-                double q1 = (1 / p1) - aqa1;
-                weighted[row1] = true;
-                double r1 = 0, s1 = 0, y1 = 0;
-                r1 += q1 * p1;
-                y1 += p1 * v[row1];
-                s1 += p1 * q1 * p1;
-                red[row1] = r1; pqp[row1] = s1; pv[row1] = y1;
-                continue;
-            }
-            var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a,
-                b] != 0)).ToArray();
-            int k = kept.Length;
-            if (k == 0) continue;
-            var pk = new double[k, k];
-            var qvv = new double[k, k];
-            for (int a = 0; a < k; a++)
-                for (int b = 0; b < k; b++) pk[a, b] = blk[kept[a], kept[b]];
-            var pinv = Invert(pk);
-            for (int a = 0; a < k; a++)
-                for (int b = 0; b <= a; b++)
-                {
-                    // Qvv = P⁻¹ − A Qxx Aᵀ on this block (Qxx entries of unknowns sharing one weight block only)
-                    double q = pinv[a, b] - AQA(rows[blk.Rows[kept[a]]], rows[blk.Rows[kept[b]]]);
-                    qvv[a, b] = q; qvv[b, a] = q;
-                }
-            for (int a = 0; a < k; a++)
-            {
-                int row = blk.Rows[kept[a]];
-                weighted[row] = true;
-                double r = 0, s = 0, y = 0;
-                for (int b = 0; b < k; b++)
-                {
-                    r += qvv[a, b] * pk[b, a];                         // (Qvv P)ᵢᵢ
-                    y += pk[a, b] * v[blk.Rows[kept[b]]];              // (P v)ᵢ
-                    for (int c = 0; c < k; c++) s += pk[a, b] * qvv[b, c] * pk[c, a]; // (P Qvv P)ᵢᵢ
-                }
-                red[row] = r; pqp[row] = s; pv[row] = y;
-            }
-        }
-
-        bool external = hasFactor && options.ExternalReliability switch
-        {
-            ExternalReliabilityMode.Always => true,
-            ExternalReliabilityMode.Never => false,
-            _ => result.Unknowns.Count <= options.ExternalReliabilityUnknownLimit,
-        };
         var pointCols = PointColumns(result);
-
-        ObservationTest TestRow(int row, int index, bool excluded, double sd, bool isAngle = false)
-        {
-            if (excluded || !weighted[row])
-            {
-                // Standardised misclosure of a set-aside row: the w it would get if put back (diagonal weight).
-                // a Qxx aᵀ by a solve: a set-aside row's unknowns need not share any weighted row
-                double aqa = hasFactor ? rows[row].Dot(result.Solve(Dense(rows[row], result.Unknowns.Count))) : 0;
-                double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
-                double? wx = denom > 0 ? v[row] / denom : null;
-                return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null,
-                    ObservationFlag.Excluded) { IsAngle = isAngle };
-            }
-            double ri = Math.Clamp(red[row], 0, 1);
-            if (ri < options.UncontrolledRedundancy || !(pqp[row] > 0))
-                return new ObservationTest(index, ri, null, null, null, null, null, null, null, null,
-                    ObservationFlag.Uncontrolled) { IsAngle = isAngle };
-            double w = pv[row] / (Math.Sqrt(s0sq) * Math.Sqrt(pqp[row]));
-            double? tau = sigmaHat is double s ? pv[row] / (s * Math.Sqrt(pqp[row])) : null;
-            double mdb = delta0 * Math.Sqrt(s0sq) / Math.Sqrt(pqp[row]);
-            double bnr = delta0 * Math.Sqrt(Math.Max(0, 1 - ri) / ri);
-            bool wPassed = Math.Abs(w) <= wCrit;
-            bool? tauPassed = tau is double t && tauCrit is double tc ? Math.Abs(t) <= tc : null;
-            bool rejected = basis == VarianceFactorBasis.Known ? !wPassed : tauPassed == false;
-            var flag = rejected ? ObservationFlag.Rejected
-                : ri < options.WeakRedundancy ? ObservationFlag.Weak
-                : ObservationFlag.None;
-            double? ext = null; string? extPoint = null;
-            if (external) (ext, extPoint) = ExternalShift(result, rows, weights, row, mdb, pointCols);
-            return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag)
-                { IsAngle = isAngle };
-        }
-
-        var obsTests = new ObservationTest[nObs];
-        for (int i = 0; i < nObs; i++)
-        {
-            var o = result.Observations[i].Input;
-            obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation, ObservationKinds.ValueIsAngle(o.Kind));
-        }
-        // Weighted frame parameters are rows of the model too (after the points' control) but not control points:
-        // they are tested with the rest and left out of the control list.
-        int pointControl = control.Count(c => !FrameParameters.IsFrame(c.Component));
-        var controlTests = new ControlTest[pointControl];
-        for (int k = 0; k < pointControl; k++)
-            controlTests[k] = new ControlTest(control[k].PointId, control[k].Component, control[k].Residual,
-                TestRow(nObs + k, k, false, control[k].Sd));
-
         double kEllipse = CriticalValues.Ellipse(options.ConfidenceLevel, basis, Math.Max(1, dof));
         double kInterval = CriticalValues.Interval(options.ConfidenceLevel, basis, Math.Max(1, dof));
-        var points = new PointPrecision[result.Points.Count];
-        for (int p = 0; p < points.Length; p++)
+        // The relative precisions read only the factor and the coordinates: on a large network they are computed on
+        // another core while this thread tests the observations and the points. Each part is computed as it would be
+        // alone (same operations in the same order), so the numbers do not depend on the thread schedule.
+        (List<RelativePrecision>, List<RelativeHeightPrecision>) Relatives() =>
+            (Relative(result, options, vf, kEllipse, pointCols, Q),
+                RelativeHeights(result, options, vf, kInterval, pointCols, Q));
+        var other = beside ? Task.Run(Relatives) : null;
+        try
         {
-            var ap = result.Points[p];
-            var (ie, inn, ih) = pointCols[ap.Id];
-            ErrorEllipse? ell = null, conf = null;
-            if (ap.SdE is not null && ap.SdN is not null)
+            double AQA(SparseRow a, SparseRow b)
             {
-                var e = ErrorEllipse.FromCovariance(vf * Qs(ie, ie), vf * Qs(inn, inn), vf * Qs(ie, inn));
-                ell = e; conf = e.Scaled(kEllipse);
+                double s = 0;
+                for (int p = 0; p < a.Columns.Length; p++)
+                    for (int q = 0; q < b.Columns.Length; q++)
+                        s += a.Values[p] * b.Values[q] * Q(a.Columns[p], b.Columns[q]);
+                return s;
             }
-            double? sdh = ih >= 0 ? Math.Sqrt(Math.Max(0, vf * Q(ih, ih))) : ap.SdH is not null ? 0.0 : null;
-            points[p] = new PointPrecision(ap.Id, ell, conf, sdh, sdh * kInterval);
+
+            var rowCofactors = result.RowCofactors;
+            var red = new double[m];
+            var pqp = new double[m];   // (P Qvv P)ᵢᵢ
+            var pv = new double[m];    // (P v)ᵢ
+            var weighted = new bool[m];
+            foreach (var blk in weights.Blocks)
+            {
+                if (blk.Size == 1)
+                {
+                    // one observation: the arithmetic of the general case below without its small matrices
+                    double p1 = blk[0, 0];
+                    if (p1 == 0) continue;
+                    int row1 = blk.Rows[0];
+                    // a Qxx aᵀ as the adjuster computed it (same products in the same order as AQA), else computed
+                    double aqa1 = hasFactor && rowCofactors is not null && row1 < rowCofactors.Length &&
+                        !double.IsNaN(rowCofactors[row1]) ? rowCofactors[row1] : AQA(rows[row1], rows[row1]);
+                    double q1 = (1 / p1) - aqa1;
+                    weighted[row1] = true;
+                    double r1 = 0, s1 = 0, y1 = 0;
+                    r1 += q1 * p1;
+                    y1 += p1 * v[row1];
+                    s1 += p1 * q1 * p1;
+                    red[row1] = r1; pqp[row1] = s1; pv[row1] = y1;
+                    continue;
+                }
+                var kept = Enumerable.Range(0, blk.Size).Where(a => Enumerable.Range(0, blk.Size).Any(b => blk[a,
+                    b] != 0)).ToArray();
+                int k = kept.Length;
+                if (k == 0) continue;
+                var pk = new double[k, k];
+                var qvv = new double[k, k];
+                for (int a = 0; a < k; a++)
+                    for (int b = 0; b < k; b++) pk[a, b] = blk[kept[a], kept[b]];
+                var pinv = Invert(pk);
+                for (int a = 0; a < k; a++)
+                    for (int b = 0; b <= a; b++)
+                    {
+                        // Qvv = P⁻¹ − A Qxx Aᵀ on this block (Qxx entries of unknowns sharing one weight block only)
+                        double q = pinv[a, b] - AQA(rows[blk.Rows[kept[a]]], rows[blk.Rows[kept[b]]]);
+                        qvv[a, b] = q; qvv[b, a] = q;
+                    }
+                for (int a = 0; a < k; a++)
+                {
+                    int row = blk.Rows[kept[a]];
+                    weighted[row] = true;
+                    double r = 0, s = 0, y = 0;
+                    for (int b = 0; b < k; b++)
+                    {
+                        r += qvv[a, b] * pk[b, a];                         // (Qvv P)ᵢᵢ
+                        y += pk[a, b] * v[blk.Rows[kept[b]]];              // (P v)ᵢ
+                        for (int c = 0; c < k; c++) s += pk[a, b] * qvv[b, c] * pk[c, a]; // (P Qvv P)ᵢᵢ
+                    }
+                    red[row] = r; pqp[row] = s; pv[row] = y;
+                }
+            }
+
+            bool external = hasFactor && options.ExternalReliability switch
+            {
+                ExternalReliabilityMode.Always => true,
+                ExternalReliabilityMode.Never => false,
+                _ => result.Unknowns.Count <= options.ExternalReliabilityUnknownLimit,
+            };
+
+            ObservationTest TestRow(int row, int index, bool excluded, double sd, bool isAngle = false)
+            {
+                if (excluded || !weighted[row])
+                {
+                    // Standardised misclosure of a set-aside row: the w it would get if put back (diagonal weight).
+                    // a Qxx aᵀ by a solve: a set-aside row's unknowns need not share any weighted row
+                    double aqa = hasFactor ? rows[row].Dot(result.Solve(Dense(rows[row], result.Unknowns.Count))) : 0;
+                    double denom = Math.Sqrt((sd * sd) + (s0sq * aqa));
+                    double? wx = denom > 0 ? v[row] / denom : null;
+                    return new ObservationTest(index, 0, wx, null, null, null, null, null, null, null,
+                        ObservationFlag.Excluded) { IsAngle = isAngle };
+                }
+                double ri = Math.Clamp(red[row], 0, 1);
+                if (ri < options.UncontrolledRedundancy || !(pqp[row] > 0))
+                    return new ObservationTest(index, ri, null, null, null, null, null, null, null, null,
+                        ObservationFlag.Uncontrolled) { IsAngle = isAngle };
+                double w = pv[row] / (Math.Sqrt(s0sq) * Math.Sqrt(pqp[row]));
+                double? tau = sigmaHat is double s ? pv[row] / (s * Math.Sqrt(pqp[row])) : null;
+                double mdb = delta0 * Math.Sqrt(s0sq) / Math.Sqrt(pqp[row]);
+                double bnr = delta0 * Math.Sqrt(Math.Max(0, 1 - ri) / ri);
+                bool wPassed = Math.Abs(w) <= wCrit;
+                bool? tauPassed = tau is double t && tauCrit is double tc ? Math.Abs(t) <= tc : null;
+                bool rejected = basis == VarianceFactorBasis.Known ? !wPassed : tauPassed == false;
+                var flag = rejected ? ObservationFlag.Rejected
+                    : ri < options.WeakRedundancy ? ObservationFlag.Weak
+                    : ObservationFlag.None;
+                double? ext = null; string? extPoint = null;
+                if (external) (ext, extPoint) = ExternalShift(result, rows, weights, row, mdb, pointCols);
+                return new ObservationTest(index, ri, w, tau, mdb, ext, extPoint, bnr, wPassed, tauPassed, flag)
+                    { IsAngle = isAngle };
+            }
+
+            var obsTests = new ObservationTest[nObs];
+            for (int i = 0; i < nObs; i++)
+            {
+                var o = result.Observations[i].Input;
+                obsTests[i] = TestRow(i, i, o.Excluded, o.StandardDeviation, ObservationKinds.ValueIsAngle(o.Kind));
+            }
+            // Weighted frame parameters are rows of the model too (after the points' control) but not control points:
+            // they are tested with the rest and left out of the control list.
+            int pointControl = control.Count(c => !FrameParameters.IsFrame(c.Component));
+            var controlTests = new ControlTest[pointControl];
+            for (int k = 0; k < pointControl; k++)
+                controlTests[k] = new ControlTest(control[k].PointId, control[k].Component, control[k].Residual,
+                    TestRow(nObs + k, k, false, control[k].Sd));
+
+            var points = new PointPrecision[result.Points.Count];
+            for (int p = 0; p < points.Length; p++)
+            {
+                var ap = result.Points[p];
+                var (ie, inn, ih) = pointCols[ap.Id];
+                ErrorEllipse? ell = null, conf = null;
+                if (ap.SdE is not null && ap.SdN is not null)
+                {
+                    var e = ErrorEllipse.FromCovariance(vf * Qs(ie, ie), vf * Qs(inn, inn), vf * Qs(ie, inn));
+                    ell = e; conf = e.Scaled(kEllipse);
+                }
+                double? sdh = ih >= 0 ? Math.Sqrt(Math.Max(0, vf * Q(ih, ih))) : ap.SdH is not null ? 0.0 : null;
+                points[p] = new PointPrecision(ap.Id, ell, conf, sdh, sdh * kInterval);
+            }
+
+            double Qs(int i, int j) => i >= 0 && j >= 0 ? Q(i, j) : 0.0;
+
+            var (relative, relativeHeights) = other is null ? Relatives() : other.GetAwaiter().GetResult();
+
+            double sumR = 0;
+            for (int i = 0; i < m; i++) if (weighted[i]) sumR += red[i];
+            return new NetworkAnalysis
+            {
+                Options = options, Basis = basis, VarianceFactor = vf, WCritical = wCrit, Delta0 = delta0, TauCritical =
+                    tauCrit,
+                EllipseScale = kEllipse, IntervalScale = kInterval, ExternalReliabilityComputed = external,
+                Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RelativeHeights =
+                    relativeHeights,
+                RedundancySum = sumR,
+            };
         }
-
-        double Qs(int i, int j) => i >= 0 && j >= 0 ? Q(i, j) : 0.0;
-
-        var relative = Relative(result, options, vf, kEllipse, pointCols, Q);
-        var relativeHeights = RelativeHeights(result, options, vf, kInterval, pointCols, Q);
-
-        double sumR = 0;
-        for (int i = 0; i < m; i++) if (weighted[i]) sumR += red[i];
-        return new NetworkAnalysis
+        catch
         {
-            Options = options, Basis = basis, VarianceFactor = vf, WCritical = wCrit, Delta0 = delta0, TauCritical =
-                tauCrit,
-            EllipseScale = kEllipse, IntervalScale = kInterval, ExternalReliabilityComputed = external,
-            Observations = obsTests, Control = controlTests, Points = points, Relative = relative, RelativeHeights =
-                relativeHeights,
-            RedundancySum = sumR,
-        };
+            // an error here surfaces as it would without the other core, once that core has finished its part
+            try { other?.Wait(); }
+            catch (AggregateException) { }
+            throw;
+        }
     }
 
     /// <summary>∇x = Qxx Aᵀ P eᵢ ∇ᵢ by one solve; the largest point shift (horizontal or height) and its

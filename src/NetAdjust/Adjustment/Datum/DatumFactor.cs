@@ -33,6 +33,7 @@ internal sealed class DatumFactor : INormalFactor, IRecyclableFactor
     private readonly double[] _w;          // W, the weights of the hold rows
     private double[,]? _wq;                // Q_m B, u×d
     private double[,]? _k;                 // Bᵀ Q_m B, d×d
+    private readonly object _gate = new();  // guards the first computation of _wq and _k
 
     public DatumFactor(INormalFactor inner, double[][] g, double[][] b, double[,] btgInverse, double[,] ekgInverse,
         double[] w)
@@ -129,6 +130,13 @@ internal sealed class DatumFactor : INormalFactor, IRecyclableFactor
 
     private void EnsureW()
     {
+        // computed once, under a lock: the statistics may ask entries from two threads at once
+        if (Volatile.Read(ref _wq) is not null) return;
+        lock (_gate) MakeW();
+    }
+
+    private void MakeW()
+    {
         if (_wq is not null) return;
         int u = Size;
         var w = new double[u, D];
@@ -142,6 +150,6 @@ internal sealed class DatumFactor : INormalFactor, IRecyclableFactor
             for (int c = 0; c < D; c++)
                 for (int j = 0; j < u; j++) kk[a, c] += _b[a][j] * w[j, c];
         _k = kk;
-        _wq = w;
+        Volatile.Write(ref _wq, w);
     }
 }
