@@ -56,6 +56,21 @@ internal sealed class SymbolicCholesky
     /// <summary>Takes the spare storage, if any (each array is handed out once).</summary>
     internal double[]? TakeSpare() => Interlocked.Exchange(ref _spare, null);
 
+    private SubtreeSchedule? _schedule;
+
+    /// <summary>The split of the supernodal tree for a tree-level parallel factorisation on <paramref
+    /// name="workers"/> cores, made once per pattern (and again only for another number of workers).</summary>
+    internal SubtreeSchedule ScheduleFor(int workers)
+    {
+        var schedule = Volatile.Read(ref _schedule);
+        if (schedule is null || schedule.Workers != workers)
+        {
+            schedule = SubtreeSchedule.Compute(this, workers);
+            Volatile.Write(ref _schedule, schedule);
+        }
+        return schedule;
+    }
+
     /// <summary>Floating-point operations of one numeric factorisation, Σ_j c_j² with c_j the column counts (Davis
     /// 2006, §4.6).</summary>
     public double FactorFlops { get; private init; }
