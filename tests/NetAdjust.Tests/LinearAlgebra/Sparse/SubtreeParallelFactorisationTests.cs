@@ -14,7 +14,7 @@ public class SubtreeParallelFactorisationTests
     /// <summary>A g×g grid of points with two unknowns each, observed to their neighbours (rows like distances
     /// and directions: random coefficients on both points' unknowns), ordered by geometric nested dissection, so
     /// the tree has the two halves below each separator that the schedule splits.</summary>
-    private static (SymbolicCholesky Sym, double[] Values, int U, SparseRow[] Rows, WeightMatrix W) GridProblem(
+    internal static (SymbolicCholesky Sym, double[] Values, int U, SparseRow[] Rows, WeightMatrix W) GridProblem(
         int g, int seed)
     {
         var rng = new Random(seed);
