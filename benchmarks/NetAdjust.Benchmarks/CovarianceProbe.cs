@@ -14,7 +14,8 @@ namespace NetAdjust.Benchmarks;
 /// look-ups of the adjusted points (σE, σN, σEN, σH) and of a Qxx aᵀ per observation, and the statistics analysis
 /// (twice); wall and CPU (user + system, of the whole process, so that the parallel fronts count) per repetition, for
 /// each run, and the least of each over the warm runs (on a shared machine the least is the figure least disturbed
-/// by the load; <c>DOTNET_PROCESSOR_COUNT=1</c> keeps the fronts serial).
+/// by the load; <c>DOTNET_PROCESSOR_COUNT=1</c> keeps the fronts serial); then the factorisation without the
+/// concurrent subtrees (twice, checked bit-identical) and the subtree schedule's work split.
 /// </summary>
 internal static class CovarianceProbe
 {
@@ -47,6 +48,19 @@ internal static class CovarianceProbe
                 (l, scale) = MultifrontalCholesky.Factorize(sym, values);
                 clock.Lap("multifrontal");
             }
+            for (int k = 0; k < 2; k++)
+            {
+                var (l1, _) = MultifrontalCholesky.Factorize(sym, values, workers: 1, minimumWork: 0);
+                clock.Lap("multifrontal, no subtrees");
+                if (!System.Runtime.InteropServices.MemoryMarshal.AsBytes(l1.AsSpan())
+                    .SequenceEqual(System.Runtime.InteropServices.MemoryMarshal.AsBytes(l.AsSpan())))
+                    throw new InvalidOperationException("the parallel factor differs from the sequential one");
+            }
+            var schedule = sym.ScheduleFor(Environment.ProcessorCount);
+            Console.WriteLine(string.Create(inv, $"subtree schedule for {schedule.Workers} cores (k m^2 per front): " +
+                $"sets {string.Join(" + ", schedule.SetWork.Select(w => w.ToString("E3", inv)))}, top " +
+                $"{schedule.TopWork:E3} ({schedule.Top.Length} fronts) of {schedule.TotalWork:E3}; critical path " +
+                $"{schedule.CriticalPath / schedule.TotalWork:P1} of the work"));
             var factor = new SparseCholeskyFactor(sym, l, scale);
             for (int k = 0; k < 2; k++)
             {

@@ -43,10 +43,20 @@ internal static class IterationProbe
                 problem.Geometry));
             double again = Timed(() => solver.Factorize(problem.Unknowns, problem.Rows, problem.Weights,
                 problem.Geometry));
-            var graph = AdjacencyGraph.FromNormalEquations(problem.Unknowns, problem.Rows, problem.Weights);
-            var symbolic = SymbolicCholesky.Analyze(graph, ApproximateMinimumDegree.Order(graph), "probe");
-            var assembly = new NormalMatrixAssembly(symbolic, problem.Rows);
+            // the first factorisation's own steps (ordering by nested dissection when the points have positions)
+            AdjacencyGraph graph = null!;
+            double tGraph = Timed(() => graph = AdjacencyGraph.FromNormalEquations(problem.Unknowns, problem.Rows,
+                problem.Weights));
+            int[] order = [];
+            bool geometric = problem.Geometry is { HasAllPositions: true };
+            double tOrder = Timed(() => order = geometric ? GeometricNestedDissection.Order(graph, problem.Geometry!)
+                : ApproximateMinimumDegree.Order(graph));
+            SymbolicCholesky symbolic = null!;
+            double tAnalyse = Timed(() => symbolic = SymbolicCholesky.Analyze(graph, order, "probe"));
+            NormalMatrixAssembly assembly = null!;
+            double tPlan = Timed(() => assembly = new NormalMatrixAssembly(symbolic, problem.Rows));
             double assemble = Timed(() => assembly.Assemble(problem.Rows, problem.Weights));
+            double tSchedule = Timed(() => SubtreeSchedule.Compute(symbolic, 2));
 
             int iterations = result.Statistics.Iterations;
             double Mark(string prefix) => marks.First(m => m.Phase.StartsWith(prefix, StringComparison.Ordinal)).Cpu;
@@ -63,6 +73,10 @@ internal static class IterationProbe
             Console.WriteLine(string.Create(inv,
                 $"  on their own: datum plan {plan:F3}, factorisation first {first:F3} / again {again:F3}, " +
                 $"assembly of N {assemble:F3}"));
+            Console.WriteLine(string.Create(inv,
+                $"  first factorisation's steps: graph of N {tGraph:F3}, ordering ({(geometric ? "nested dissection" :
+                "minimum degree")}) {tOrder:F3}, symbolic analysis {tAnalyse:F3}, assembly plan {tPlan:F3}, " +
+                $"subtree schedule {tSchedule:F3}"));
             Console.WriteLine(string.Create(inv,
                 $"  iteration work (setup + iterations - plan - {iterations} factorisations) {work:F3} s CPU"));
         }

@@ -12,6 +12,9 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// </remarks>
 internal sealed class AdjacencyGraph
 {
+    /// <summary>Adjacency entries (duplicates included) from which the lists are cleaned on all cores.</summary>
+    private const int ConcurrentEntries = 200_000;
+
     private AdjacencyGraph(int vertexCount, int[] start, int[] adjacent)
     {
         VertexCount = vertexCount; Start = start; Adjacent = adjacent;
@@ -78,25 +81,43 @@ internal sealed class AdjacencyGraph
                 for (int s = cliqueStart[q]; s < cliqueStart[q + 1]; s++)
                     if (s != t) adj[fill[v]++] = cliqueVertices[s];
             }
-        // Remove duplicates per vertex (a neighbour seen twice in one list), compacting in place, then sort the
-        // distinct neighbours.
+        // Remove duplicates per vertex (a neighbour seen twice in one list) within the vertex's own segment, sort
+        // the distinct neighbours, then close the gaps. The vertices are independent: large graphs run ranges of
+        // them on all cores, each with its own marks (the same lists whatever the split).
+        var kept = fill; // reused: the number of distinct neighbours of each vertex
+        void Distinct(int lo, int hi, int[] seen)
+        {
+            for (int v = lo; v < hi; v++)
+            {
+                int a = start[v], e = start[v + 1], w = a;
+                for (int p = a; p < e; p++)
+                {
+                    int u = adj[p];
+                    if (seen[u] != v + 1) { seen[u] = v + 1; adj[w++] = u; }
+                }
+                Array.Sort(adj, a, w - a);
+                kept[v] = w - a;
+            }
+        }
+        if (start[n] < ConcurrentEntries || Environment.ProcessorCount == 1 || n < 2) Distinct(0, n, new int[n]);
+        else
+        {
+            int parts = Math.Min(Environment.ProcessorCount * 4, n);
+            Parallel.For(0, parts, () => new int[n],
+                (part, _, seen) =>
+                {
+                    Distinct((int)((long)n * part / parts), (int)((long)n * (part + 1) / parts), seen);
+                    return seen;
+                }, _ => { });
+        }
         var newStart = new int[n + 1];
-        var seen = fill; // reused: seen[u] == v + 1 once u is kept in the list of v
-        Array.Clear(seen);
-        int w = 0;
         for (int v = 0; v < n; v++)
         {
-            int a = start[v], e = start[v + 1];
-            newStart[v] = w;
-            for (int p = a; p < e; p++)
-            {
-                int u = adj[p];
-                if (seen[u] != v + 1) { seen[u] = v + 1; adj[w++] = u; }
-            }
-            Array.Sort(adj, newStart[v], w - newStart[v]);
+            newStart[v + 1] = newStart[v] + kept[v];
+            if (newStart[v] != start[v]) Array.Copy(adj, start[v], adj, newStart[v], kept[v]);
         }
-        newStart[n] = w;
-        Array.Resize(ref adj, w);
+        int total = newStart[n];
+        Array.Resize(ref adj, total);
         return new AdjacencyGraph(n, newStart, adj);
     }
 }

@@ -15,11 +15,18 @@ internal static class GeometricNestedDissection
     /// <summary>Groups at or below this count are numbered as they come.</summary>
     public const int LeafGroups = 12;
 
+    /// <summary>Groups from which the two halves of the first split are ordered on two threads.</summary>
+    internal const int ConcurrentGroups = 20_000;
+
     /// <summary>A fill-reducing permutation p (p[k] = unknown placed k-th).</summary>
     /// <param name="graph">G(N).</param>
     /// <param name="geometry">The unknowns' groups and positions; every group must have a position.</param>
     /// <exception cref="ArgumentException">When the geometry does not match the graph or lacks positions.</exception>
-    public static int[] Order(AdjacencyGraph graph, UnknownGeometry geometry)
+    public static int[] Order(AdjacencyGraph graph, UnknownGeometry geometry) => Order(graph, geometry, null);
+
+    /// <summary>The same permutation, the two halves of the first split ordered concurrently or not (null: when
+    /// there are two cores and at least <see cref="ConcurrentGroups"/> groups).</summary>
+    internal static int[] Order(AdjacencyGraph graph, UnknownGeometry geometry, bool? concurrent)
     {
         int n = graph.VertexCount;
         if (geometry.UnknownCount != n)
@@ -62,7 +69,8 @@ internal static class GeometricNestedDissection
         var groupOrder = new List<int>(g);
         var side = new int[g];      // 0 = not in the current part; 1 = first half; 2 = second half
         var all = Enumerable.Range(0, g).Where(k => weight[k] > 0).ToArray();
-        Dissect(all, x, y, gStart, adj, weight, side, groupOrder);
+        Dissect(all, x, y, gStart, adj, weight, side, groupOrder,
+            concurrent ?? (Environment.ProcessorCount > 1 && all.Length >= ConcurrentGroups));
 
         var perm = new int[n];
         int at = 0;
@@ -117,8 +125,11 @@ internal static class GeometricNestedDissection
         return cover;
     }
 
+    // concurrent: order the two halves of this part on two threads (their lists joined in the same order as when
+    // ordered one after the other). No group of one half touches the other once the separator is out, so the
+    // halves read and write disjoint entries of side (the separator's and outer groups' entries stay 0).
     private static void Dissect(int[] part, double[] x, double[] y, int[] gStart, int[] adj, int[] weight, int[] side,
-        List<int> order)
+        List<int> order, bool concurrent = false)
     {
         if (part.Length <= LeafGroups) { order.AddRange(part); return; }
         double minX = double.MaxValue, maxX = double.MinValue, minY = double.MaxValue, maxY = double.MinValue;
@@ -161,8 +172,19 @@ internal static class GeometricNestedDissection
         var a = sorted.Where(k => side[k] == 1).ToArray();
         var b = sorted.Where(k => side[k] == 2).ToArray();
         foreach (int k in sorted) side[k] = 0;
-        Dissect(a, x, y, gStart, adj, weight, side, order);
-        Dissect(b, x, y, gStart, adj, weight, side, order);
+        if (concurrent)
+        {
+            var orderB = new List<int>(b.Length);
+            var second = Task.Run(() => Dissect(b, x, y, gStart, adj, weight, side, orderB));
+            Dissect(a, x, y, gStart, adj, weight, side, order);
+            second.GetAwaiter().GetResult();
+            order.AddRange(orderB);
+        }
+        else
+        {
+            Dissect(a, x, y, gStart, adj, weight, side, order);
+            Dissect(b, x, y, gStart, adj, weight, side, order);
+        }
         order.AddRange(sep);
     }
 }

@@ -6,7 +6,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// Numeric supernodal Cholesky factorisation C_s = L Lᵀ of the Jacobi-scaled matrix C_s = S C S
 /// (S = diag(1/√C_kk)), by the multifrontal method: supernodes in postorder; each assembles its columns of C and
 /// the update matrices of its children (extend-add), factorises its k pivot columns densely (L₁₁ L₁₁ᵀ = F₁₁,
-/// L₂₁ = F₂₁ L₁₁⁻ᵀ) and passes U = F₂₂ − L₂₁ L₂₁ᵀ to its parent. Large fronts run their row loops on all cores.
+/// L₂₁ = F₂₁ L₁₁⁻ᵀ) and passes U = F₂₂ − L₂₁ L₂₁ᵀ to its parent. Independent subtrees run on separate cores
+/// (<see cref="SubtreeSchedule"/>); the large fronts above them run their row loops on all cores.
 /// </summary>
 /// <remarks>
 /// Duff &amp; Reid 1983, "The multifrontal solution of indefinite sparse symmetric linear equations", ACM TOMS
@@ -19,10 +20,20 @@ internal static class MultifrontalCholesky
 {
     private const double ParallelWork = 4e5; // flops above which a front's loops run in parallel
 
+    /// <summary>Estimated work (Σ k·m² over the fronts) above which independent subtrees are factorised
+    /// concurrently (<see cref="SubtreeSchedule"/>); below it the thread hand-over costs more than it saves.</summary>
+    internal const double TreeParallelWork = 2e6;
+
     /// <summary>Factorises; returns the supernodal values of L and the scale S.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(
-        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    public static (double[] L, double[] Scale) Factorize(SymbolicCholesky sym, double[] lowerValues)
+    public static (double[] L, double[] Scale) Factorize(SymbolicCholesky sym, double[] lowerValues) =>
+        Factorize(sym, lowerValues, Environment.ProcessorCount, TreeParallelWork);
+
+    /// <summary>Factorises with independent subtrees on up to <paramref name="workers"/> threads when the
+    /// estimated work reaches <paramref name="minimumWork"/> and the split shortens the critical path; the result
+    /// is bit-identical to the sequential factorisation (each front computed with the same arithmetic, its
+    /// children extend-added in the same order).</summary>
+    internal static (double[] L, double[] Scale) Factorize(SymbolicCholesky sym, double[] lowerValues, int workers,
+        double minimumWork)
     {
         int n = sym.Size;
         var lower = sym.LowerC;
@@ -39,44 +50,94 @@ internal static class MultifrontalCholesky
         var L = sym.TakeSpare() ?? GC.AllocateUninitializedArray<double>(checked((int)sym.StoredEntries));
         int ns = sym.SupernodeCount;
         var updates = new double[]?[ns];
-        var relpos = new int[n];
-        var pool = ArrayPool<double>.Shared;
-        var rowMap = new int[sym.LargestFront];
+        bool rowsInParallel = Environment.ProcessorCount > 1;
 
-        for (int s = 0; s < ns; s++)
+        var schedule = workers > 1 && ns > 1 ? sym.ScheduleFor(workers) : null;
+        if (schedule is null || schedule.TotalWork < minimumWork || !(schedule.CriticalPath < 0.9 * schedule.TotalWork))
         {
-            int f = sym.SnStart[s], k = sym.SnStart[s + 1] - f;
-            int r0 = sym.SnRowStart[s], m = sym.SnRowStart[s + 1] - r0, mu = m - k;
-            long off = sym.SnValueStart[s];
-            for (int t = 0; t < m; t++) relpos[sym.SnRows[r0 + t]] = t;
-            L.AsSpan((int)off, m * k).Clear();
-
-            // Update matrix of this front (lower, row-major mu×mu), zeroed.
-            double[]? U = null;
-            if (mu > 0) { U = pool.Rent(mu * mu); Array.Clear(U, 0, mu * mu); }
-
-            // Assemble the columns of C_s.
-            for (int c = 0; c < k; c++)
-            {
-                int j = f + c;
-                double sj = scale[j];
-                for (int p = lower.Start[j]; p < lower.Start[j + 1]; p++)
-                {
-                    int i = lower.Index[p];
-                    L[off + ((long)relpos[i] * k) + c] += lowerValues[p] * sj * scale[i];
-                }
-            }
-
-            // Extend-add the children's update matrices.
-            ExtendAddChildren(sym, s, updates, relpos, L, off, k, U, mu, rowMap, pool);
-
-            // Dense partial factorisation of the front.
-            FactorPivotBlock(sym, L, off, k, f);
-            SolveOffDiagonal(L, off, k, m);
-            if (mu > 0) DenseUpdate(L, off, k, U!, mu);
-            updates[s] = U;
+            var scratch = new FrontScratch(n, sym.LargestFront);
+            for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, scratch, rowsInParallel);
+            return (L, scale);
         }
+
+        try
+        {
+            // the subtree sets concurrently, each front's own loops sequential
+            Parallel.For(0, schedule.Workers, b =>
+            {
+                var set = schedule.Sets[b];
+                if (set.Length == 0) return;
+                var scratch = new FrontScratch(n, sym.LargestFront);
+                for (int i = 0; i < set.Length; i += 2)
+                    for (int s = set[i]; s <= set[i + 1]; s++)
+                        FactorFront(sym, s, lowerValues, scale, L, updates, scratch, rowsInParallel: false);
+            });
+        }
+        catch (AggregateException e)
+        {
+            foreach (var inner in e.InnerExceptions)
+                if (inner is not SingularNormalMatrixException)
+                    System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(inner).Throw();
+            // A singular pivot: the sequential order decides which column is named, so factorise again in it
+            // (every front is cleared before its assembly; the update matrices left behind are garbage).
+            Array.Clear(updates);
+            var again = new FrontScratch(n, sym.LargestFront);
+            for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, again, rowsInParallel);
+            return (L, scale);
+        }
+        var topScratch = new FrontScratch(n, sym.LargestFront);
+        foreach (int s in schedule.Top) FactorFront(sym, s, lowerValues, scale, L, updates, topScratch, rowsInParallel);
         return (L, scale);
+    }
+
+    /// <summary>Scratch of one thread: the position of each row in the current front, and a child's row map.
+    /// </summary>
+    private sealed class FrontScratch(int n, int largestFront)
+    {
+        public readonly int[] RelPos = new int[n];
+        public readonly int[] RowMap = new int[largestFront];
+    }
+
+    /// <summary>Assembles front s (its columns of C_s and its children's update matrices), factorises its pivot
+    /// columns and leaves its own update matrix in <paramref name="updates"/>.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    private static void FactorFront(SymbolicCholesky sym, int s, double[] lowerValues, double[] scale, double[] L,
+        double[]?[] updates, FrontScratch scratch, bool rowsInParallel)
+    {
+        var lower = sym.LowerC;
+        var relpos = scratch.RelPos;
+        var pool = ArrayPool<double>.Shared;
+        int f = sym.SnStart[s], k = sym.SnStart[s + 1] - f;
+        int r0 = sym.SnRowStart[s], m = sym.SnRowStart[s + 1] - r0, mu = m - k;
+        long off = sym.SnValueStart[s];
+        for (int t = 0; t < m; t++) relpos[sym.SnRows[r0 + t]] = t;
+        L.AsSpan((int)off, m * k).Clear();
+
+        // Update matrix of this front (lower, row-major mu×mu), zeroed.
+        double[]? U = null;
+        if (mu > 0) { U = pool.Rent(mu * mu); Array.Clear(U, 0, mu * mu); }
+
+        // Assemble the columns of C_s.
+        for (int c = 0; c < k; c++)
+        {
+            int j = f + c;
+            double sj = scale[j];
+            for (int p = lower.Start[j]; p < lower.Start[j + 1]; p++)
+            {
+                int i = lower.Index[p];
+                L[off + ((long)relpos[i] * k) + c] += lowerValues[p] * sj * scale[i];
+            }
+        }
+
+        // Extend-add the children's update matrices.
+        ExtendAddChildren(sym, s, updates, relpos, L, off, k, U, mu, scratch.RowMap, pool);
+
+        // Dense partial factorisation of the front.
+        FactorPivotBlock(sym, L, off, k, f);
+        SolveOffDiagonal(L, off, k, m, rowsInParallel);
+        if (mu > 0) DenseUpdate(L, off, k, U!, mu, rowsInParallel);
+        updates[s] = U;
     }
 
     [System.Runtime.CompilerServices.MethodImpl(
@@ -144,7 +205,7 @@ internal static class MultifrontalCholesky
     /// <summary>L₂₁ = F₂₁ L₁₁⁻ᵀ, row by row (each row solves x L₁₁ᵀ = f by forward substitution).</summary>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    private static void SolveOffDiagonal(double[] L, long off, int k, int m)
+    private static void SolveOffDiagonal(double[] L, long off, int k, int m, bool rowsInParallel)
     {
         int rows = m - k;
         if (rows == 0) return;
@@ -176,7 +237,7 @@ internal static class MultifrontalCholesky
             }
         }
         double work = (double)rows * k * k;
-        if (work < ParallelWork || Environment.ProcessorCount == 1) { RowRange(k, m); return; }
+        if (work < ParallelWork || !rowsInParallel) { RowRange(k, m); return; }
         int parts = Math.Min(Environment.ProcessorCount * 4, rows);
         Parallel.For(0, parts, p =>
             RowRange(k + (int)((long)rows * p / parts), k + (int)((long)rows * (p + 1) / parts)));
@@ -185,10 +246,10 @@ internal static class MultifrontalCholesky
     /// <summary>U −= L₂₁ L₂₁ᵀ (lower triangle).</summary>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    private static void DenseUpdate(double[] L, long off, int k, double[] U, int mu)
+    private static void DenseUpdate(double[] L, long off, int k, double[] U, int mu, bool rowsInParallel)
     {
         double work = (double)mu * mu * k;
-        if (work < ParallelWork || Environment.ProcessorCount == 1)
+        if (work < ParallelWork || !rowsInParallel)
         {
             DenseKernels.SyrkLowerRows(L, off, k, k, U, mu, 0, mu); return;
         }

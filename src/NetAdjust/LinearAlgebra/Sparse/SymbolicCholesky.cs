@@ -13,6 +13,9 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// </remarks>
 internal sealed class SymbolicCholesky
 {
+    /// <summary>Graph size (adjacency entries) from which the lower pattern is built on a second core.</summary>
+    private const int ConcurrentPatternEntries = 200_000;
+
     private SymbolicCholesky() { }
 
     /// <summary>The order n of the matrix.</summary>
@@ -55,6 +58,21 @@ internal sealed class SymbolicCholesky
 
     /// <summary>Takes the spare storage, if any (each array is handed out once).</summary>
     internal double[]? TakeSpare() => Interlocked.Exchange(ref _spare, null);
+
+    private SubtreeSchedule? _schedule;
+
+    /// <summary>The split of the supernodal tree for a tree-level parallel factorisation on <paramref
+    /// name="workers"/> cores, made once per pattern (and again only for another number of workers).</summary>
+    internal SubtreeSchedule ScheduleFor(int workers)
+    {
+        var schedule = Volatile.Read(ref _schedule);
+        if (schedule is null || schedule.Workers != workers)
+        {
+            schedule = SubtreeSchedule.Compute(this, workers);
+            Volatile.Write(ref _schedule, schedule);
+        }
+        return schedule;
+    }
 
     /// <summary>Floating-point operations of one numeric factorisation, Σ_j c_j² with c_j the column counts (Davis
     /// 2006, §4.6).</summary>
@@ -102,10 +120,23 @@ internal sealed class SymbolicCholesky
         var post = TreePostorder.Compute(parent0);
         var perm = LinearAlgebra.Sparse.Permutation.Compose(perm0, post);
         var iperm = LinearAlgebra.Sparse.Permutation.Invert(perm);
+        // The lower pattern (needed from the row patterns on) is made on another core meanwhile for large graphs.
+        var lowerTask = graph.Adjacent.Length >= ConcurrentPatternEntries && Environment.ProcessorCount > 1
+            ? Task.Run(() => ColumnPattern.FromGraph(graph, perm, iperm, lower: true))
+            : null;
         var upper = ColumnPattern.FromGraph(graph, perm, iperm, lower: false);
-        var parent = EliminationTree.Compute(upper);
+        // A postorder is an equivalent reordering: the tree of the renumbered matrix is the same tree, renumbered
+        // (Liu 1990), so it is relabelled instead of computed again (checked against a fresh computation in the
+        // tests).
+        var post1 = LinearAlgebra.Sparse.Permutation.Invert(post);
+        var parent = new int[n];
+        for (int k = 0; k < n; k++)
+        {
+            int p0 = parent0[post[k]];
+            parent[k] = p0 < 0 ? -1 : post1[p0];
+        }
         var counts = LinearAlgebra.Sparse.ColumnCounts.Compute(upper, parent);
-        var lower = ColumnPattern.FromGraph(graph, perm, iperm, lower: true);
+        var lower = lowerTask?.GetAwaiter().GetResult() ?? ColumnPattern.FromGraph(graph, perm, iperm, lower: true);
 
         long nnz = 0;
         double flops = 0;

@@ -1,0 +1,24 @@
+using NetAdjust.LinearAlgebra.Sparse;
+
+namespace NetAdjust.Tests.LinearAlgebra.Sparse;
+
+/// <summary>The graph of N against its definition.</summary>
+public class AdjacencyGraphTests
+{
+    [Fact]
+    public void ALargeGraphHasTheNeighboursOfANaiveConstruction()
+    {
+        // large enough (over 200,000 adjacency entries) for the lists to be cleaned on all cores; the oracle is the
+        // definition: i and j adjacent when they share a design row or two rows of one weight block
+        var (u, rows, w) = SparseEngineTests.RandomProblem(9, 20_000, blocks: true);
+        var graph = AdjacencyGraph.FromNormalEquations(u, rows, w);
+        var naive = Enumerable.Range(0, u).Select(_ => new SortedSet<int>()).ToArray();
+        foreach (var block in w.Blocks)
+        {
+            var vertices = block.Rows.SelectMany(r => rows[r].Columns).Distinct().ToArray();
+            foreach (int a in vertices) foreach (int b in vertices) if (a != b) naive[a].Add(b);
+        }
+        Assert.True(graph.Adjacent.Length > 200_000, $"{graph.Adjacent.Length} entries");
+        for (int v = 0; v < u; v++) Assert.Equal(naive[v].ToArray(), graph.Neighbours(v).ToArray());
+    }
+}
