@@ -199,7 +199,7 @@ public static partial class BlunderDiagnosis
                 yield return new Trial(BlunderKind.Transposition, unit, [s], cands, false, (_, _) => "", _ => null);
         }
 
-        if (On(BlunderKind.WrongPoint))
+        if (On(BlunderKind.WrongPoint) && ObservationEdits.CanRetarget(o))
         {
             var cands = WrongPoints(result, o, at, options, backsight: false)
                 .Concat(o.Kind == ObservationKind.Angle ? WrongPoints(result, o, at, options, backsight: true) : [])

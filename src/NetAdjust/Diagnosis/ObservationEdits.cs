@@ -8,7 +8,7 @@ namespace NetAdjust.Diagnosis;
 internal static class ObservationEdits
 {
     /// <summary>The observation with a new SI value (angles of directions, angles and azimuths reduced to
-    /// [0, 2π)); its booked text dropped unless given.</summary>
+    /// [0, 2π); of a GNSS baseline component, that component alone); its booked text dropped unless given.</summary>
     public static Observation WithValue(Observation o, double value, string? booked = null)
     {
         Observation x = o switch
@@ -20,6 +20,13 @@ internal static class ObservationEdits
             HeightDifferenceObservation h => h with { Difference = Length.FromMetres(value) },
             SlopeDistanceObservation s => s with { Distance = Length.FromMetres(value) },
             ZenithObservation z => z with { Zenith = Angle.FromRadians(value) },
+            // a baseline component: only this component's value (the other two are observations of their own)
+            BaselineObservation b => b.Component switch
+            {
+                BaselineComponent.X => b with { Dx = Length.FromMetres(value) },
+                BaselineComponent.Y => b with { Dy = Length.FromMetres(value) },
+                _ => b with { Dz = Length.FromMetres(value) },
+            },
             _ => throw new ArgumentOutOfRangeException(nameof(o), o.Kind, "no value edit for this kind"),
         };
         return x with { BookedText = booked };
@@ -45,8 +52,13 @@ internal static class ObservationEdits
         _ => o,
     };
 
+    /// <summary>True when <see cref="Retarget"/> can move the observation to another point on its own: every kind
+    /// but a GNSS baseline component, whose wrong point would move all three components of its baseline
+    /// together.</summary>
+    public static bool CanRetarget(Observation o) => o.Kind != ObservationKind.Baseline;
+
     /// <summary>The observation with its target (or an angle's backsight) replaced by another point, everything
-    /// else kept.</summary>
+    /// else kept (only for kinds where <see cref="CanRetarget"/> holds).</summary>
     public static Observation Retarget(Observation o, string to, bool backsight)
     {
         Observation x = o switch

@@ -46,6 +46,38 @@ public sealed class DiagnoseCommandTests : IDisposable
     }
 
     [Fact]
+    public void AGnssBaselineAmongTheSuspectsIsDiagnosedWithoutAWrongPointTrial()
+    {
+        // Regression (found by FuzzTests): in data/skelmoor-gnss.yaml with the direction T1→T2 booked 291° too small,
+        // a baseline component is among the suspects; its trials used to end in an internal error (exit 70): no
+        // value edit and no target edit for a baseline. A value edit now changes that component alone; the
+        // wrong-point trial is not offered for baselines (a wrong point moves all three components of a baseline;
+        // docs/diagnosis.md, "Catalogue").
+        string dir = Directory.CreateDirectory(Path.Combine(_tmp, "gnss")).FullName;
+        string demo = Path.Combine(dir, "skelmoor-gnss.yaml");
+        string text = File.ReadAllText(CliHarness.DataFile("skelmoor-gnss.yaml"));
+        const string booked = "{to: T2, value: 291-19-21.4}";
+        Assert.Contains(booked, text, StringComparison.Ordinal);
+        File.WriteAllText(demo, text.Replace(booked, "{to: T2, value: 0-19-21.4}", StringComparison.Ordinal));
+        string json = Path.Combine(dir, "result.json");
+        var (code, stdout, stderr) = CliHarness.Run("adjust", demo, "--diagnose", "--quiet", "--date", "2026-12-01",
+            "--json", json);
+        Assert.True(code == ExitCodes.Success, $"exit {code}: {stderr}");
+        Assert.Contains("BLUNDER DIAGNOSIS", stdout, StringComparison.Ordinal);
+        using var doc = JsonDocument.Parse(File.ReadAllText(json));
+        var baselines = doc.RootElement.GetProperty("diagnosis").GetProperty("suspects").EnumerateArray()
+            .Where(s => s.GetProperty("observation").GetProperty("kind").GetString() == "baseline").ToList();
+        Assert.NotEmpty(baselines);
+        foreach (var suspect in baselines)
+        {
+            var kinds = suspect.GetProperty("ranked").EnumerateArray().Select(h => h.GetProperty("kind").GetString())
+                .ToList();
+            Assert.Contains("unexplained_bias", kinds);
+            Assert.DoesNotContain("wrong_point", kinds);
+        }
+    }
+
+    [Fact]
     public void WithTheHuntEachSetAsideObservationIsDiagnosedInItsRound()
     {
         // data/corvan-fell-target-height.yaml books the target height on CF3 at CF2 as 2.654 m; the prism stood at
