@@ -32,17 +32,27 @@ internal static class ReadingProbe
             ProjectReader.Read(path); // warm-up: JIT and file cache
             var times = new List<double>();
             var cpu = new List<double>();
+            var pause = new List<double>();
+            string gcs = "";
             for (int r = 0; r < runs; r++)
             {
                 GC.Collect();
                 var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
+                var pause0 = GC.GetTotalPauseDuration();
+                int g0 = GC.CollectionCount(0), g1 = GC.CollectionCount(1), g2 = GC.CollectionCount(2);
                 var clock = Stopwatch.StartNew();
                 var project = ProjectReader.Read(path);
                 times.Add(clock.Elapsed.TotalSeconds);
                 cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalSeconds);
+                pause.Add((GC.GetTotalPauseDuration() - pause0).TotalSeconds);
+                gcs = $"{GC.CollectionCount(0) - g0}/{GC.CollectionCount(1) - g1}/{GC.CollectionCount(2) - g2}";
                 if (project.Network.Observations.Count != rows) throw new InvalidOperationException("rows lost");
             }
             Report("project reader (YAML + CSV)", times, cpu, rows);
+            pause.Sort();
+            Console.WriteLine(string.Create(inv,
+                $"  of which collector pauses: median {pause[pause.Count / 2]:F3} s; " +
+                $"collections (gen 0/1/2) in the last run: {gcs}"));
 
             // The CSV observation reader alone, on the text of the file (the part that grows with the rows).
             string csvPath = Directory.GetFiles(dir, "*.csv").Single();
