@@ -194,7 +194,8 @@ internal static partial class CsvObservationReader
                 }
                 return lastSetId!;
             }
-            string source = $"{file}:{lineNo}";
+            // the row's place, file:line, kept as the two (its text is made when asked)
+            var source = SourceText.At(file, lineNo);
             // the value's text as booked (for the blunder diagnosis): one copy of the row
             string booked = row.Field(cValue);
             if (!plain) CheckTotalStationFields(kind, get, file, lineNo, Item());
@@ -205,25 +206,25 @@ internal static partial class CsvObservationReader
                 {
                     ObservationKind.Distance =>
                         new DistanceObservation(Need("from", from), Need("to", to), LValue())
-                        { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                        { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Azimuth =>
                         new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
-                        Source = source, Weighting = budget, BookedText = booked },
+                        SourcePlace = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Angle =>
                         new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
-                        A()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                        A()) { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
                     ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
                         SetId())
-                    { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
                     ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from),
                         Need("to", to), LValue(),
                         Get("length").Length > 0 ? L(Get("length")) : null)
-                    { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
                     ObservationKind.SlopeDistance or ObservationKind.Zenith =>
                         Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get,
                             LengthReader(lengths, file, lineNo, Item()), angles, specs, file, lineNo, Item())
                             is var t ? t with
-                            { StandardDeviation = sd, Source = source, Weighting = budget ?? t.Weighting,
+                            { StandardDeviation = sd, SourcePlace = source, Weighting = budget ?? t.Weighting,
                                 BookedText = booked } : t,
                     _ => throw new ProjectFileException(file, lineNo, Item(), $"a {kind.Name().Replace('_', ' ')} " +
                         "is not read from CSV: write it in the project file"),
