@@ -196,8 +196,8 @@ internal static partial class CsvObservationReader
             }
             // the row's place, file:line, kept as the two (its text is made when asked)
             var source = SourceText.At(file, lineNo);
-            // the value's text as booked (for the blunder diagnosis): one copy of the row
-            string booked = row.Field(cValue);
+            // the value's text as booked (for the blunder diagnosis): a plain decimal kept as its digits
+            var booked = BookedValueText.Of(row.Chars(cValue));
             if (!plain) CheckTotalStationFields(kind, get, file, lineNo, Item());
             Observation o;
             try
@@ -206,26 +206,26 @@ internal static partial class CsvObservationReader
                 {
                     ObservationKind.Distance =>
                         new DistanceObservation(Need("from", from), Need("to", to), LValue())
-                        { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
+                        { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.Azimuth =>
                         new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
-                        SourcePlace = source, Weighting = budget, BookedText = booked },
+                        SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.Angle =>
                         new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
-                        A()) { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
+                        A()) { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
                         SetId())
-                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
+                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from),
                         Need("to", to), LValue(),
                         Get("length").Length > 0 ? L(Get("length")) : null)
-                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedText = booked },
+                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.SlopeDistance or ObservationKind.Zenith =>
                         Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get,
                             LengthReader(lengths, file, lineNo, Item()), angles, specs, file, lineNo, Item())
                             is var t ? t with
                             { StandardDeviation = sd, SourcePlace = source, Weighting = budget ?? t.Weighting,
-                                BookedText = booked } : t,
+                                BookedForm = booked } : t,
                     _ => throw new ProjectFileException(file, lineNo, Item(), $"a {kind.Name().Replace('_', ' ')} " +
                         "is not read from CSV: write it in the project file"),
                 };

@@ -134,7 +134,13 @@ public abstract record Observation
 
     /// <summary>The value's text as booked in the file (e.g. <c>123.4567</c> or <c>123-45-12.3</c>), for the blunder
     /// diagnosis (transposed digits); null when not known.</summary>
-    public string? BookedText { get; init; }
+    public string? BookedText { get => _booked.Text; init => _booked = new BookedValueText(value); }
+
+    /// <summary>The same text as <see cref="BookedText"/>, a plain decimal kept as its digits by a reader of many rows
+    /// (its text is made when asked); equality and hash code are those of the text.</summary>
+    internal BookedValueText BookedForm { get => _booked; init => _booked = value; }
+
+    private readonly BookedValueText _booked;
 
     /// <summary>
     /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but

@@ -130,3 +130,59 @@ public class CsvRowByRowTests
         Assert.Null((read with { Source = null }).Source);
     }
 }
+
+/// <summary>
+/// A booked value kept as its digits (<see cref="BookedValueText"/>) gives back its text character for character, and
+/// is equal to (with the hash code of) the same text kept as a string; texts that are not plain decimals are kept as
+/// they are.
+/// </summary>
+public class BookedValueTextTests
+{
+    [Theory]
+    [InlineData("182.929550247")]
+    [InlineData("100.0100")]
+    [InlineData("-0.5")]
+    [InlineData("-0")]
+    [InlineData("0")]
+    [InlineData("007")]
+    [InlineData("007.000")]
+    [InlineData("1234567890123456789")] // 19 digits: the most kept as a number
+    [InlineData("9999999999.999999999")]
+    [InlineData("12345678901234567890")] // 20 digits: kept as a string
+    [InlineData("1.")]
+    [InlineData(".5")]
+    [InlineData("+1")]
+    [InlineData("1e3")]
+    [InlineData("1.2.3")]
+    [InlineData("--1")]
+    [InlineData("-")]
+    [InlineData("")]
+    [InlineData("123-45-12.3")]
+    [InlineData("12 .5")]
+    [InlineData("١٢")] // Arabic-Indic digits: not plain decimal digits
+    public void ATextComesBackAsBooked(string text)
+    {
+        var kept = BookedValueText.Of(text);
+        var asString = new BookedValueText(text);
+        Assert.Equal(text, kept.Text);
+        Assert.True(kept.Equals(asString));
+        Assert.True(asString.Equals(kept));
+        Assert.Equal(text.GetHashCode(StringComparison.Ordinal), kept.GetHashCode());
+        Assert.Equal(asString.GetHashCode(), kept.GetHashCode());
+        Assert.False(kept.Equals(new BookedValueText(text + "0")));
+        Assert.False(kept.Equals(BookedValueText.Of(text + "1")));
+        Assert.False(kept.Equals(new BookedValueText(null)));
+    }
+
+    [Fact]
+    public void DifferentTextsOfOneNumberStayDifferent()
+    {
+        // 1.50 and 1.5 are one number and two bookings (the diagnosis reads the booked digits)
+        Assert.NotEqual(BookedValueText.Of("1.50"), BookedValueText.Of("1.5"));
+        Assert.NotEqual(BookedValueText.Of("01.5"), BookedValueText.Of("1.5"));
+        Assert.NotEqual(BookedValueText.Of("-1.5"), BookedValueText.Of("1.5"));
+        Assert.NotEqual(BookedValueText.Of("15"), BookedValueText.Of("1.5"));
+        Assert.Equal(BookedValueText.Of("1.5"), BookedValueText.Of("1.5"));
+        Assert.Null(default(BookedValueText).Text);
+    }
+}
