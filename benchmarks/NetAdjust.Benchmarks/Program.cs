@@ -6,7 +6,7 @@ namespace NetAdjust.Benchmarks;
 /// Runs the benchmarks: <c>dotnet run -c Release --project benchmarks/NetAdjust.Benchmarks -- --filter '*'</c>;
 /// or a one-shot phase timing: <c>... -- phases plane|levels POINTS [auto|nd|md]</c>;
 /// or the orderings against the reference AMD: <c>... -- orderings [plane|levels POINTS]...</c>;
-/// or the project reader's speed: <c>... -- reading [POINTS] [RUNS]</c>;
+/// or the project reader's speed: <c>... -- reading [POINTS] [RUNS]</c> or <c>... -- reading FILE.yaml [RUNS]</c>;
 /// or the phases of the adjust command in process: <c>... -- command FILE [RUNS]</c>;
 /// or the work before the first iteration: <c>... -- setup FILE [RUNS] [DUMP]</c>;
 /// or where the adjustment's CPU time goes: <c>... -- iteration FILE [RUNS]</c>;

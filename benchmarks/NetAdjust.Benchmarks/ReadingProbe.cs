@@ -11,11 +11,13 @@ namespace NetAdjust.Benchmarks;
 /// RUNS times (default 5, after one warm-up read) and prints the best and median time and the observation rows per
 /// second, and the best process CPU time of a run (user + system, all threads: on a loaded machine the figure to
 /// compare). The rows are the CSV's observation lines; the YAML's points are read in the same call.
+/// <c>-- reading FILE.yaml [RUNS]</c> reads a given project instead (see <see cref="ReadFile"/>).
 /// </summary>
 internal static class ReadingProbe
 {
     public static void Run(string[] args)
     {
+        if (args.Length > 1 && args[1].EndsWith(".yaml", StringComparison.Ordinal)) { ReadFile(args); return; }
         var inv = CultureInfo.InvariantCulture;
         int points = args.Length > 1 ? int.Parse(args[1], inv) : 100_000;
         int runs = args.Length > 2 ? int.Parse(args[2], inv) : 5;
@@ -32,17 +34,27 @@ internal static class ReadingProbe
             ProjectReader.Read(path); // warm-up: JIT and file cache
             var times = new List<double>();
             var cpu = new List<double>();
+            var pause = new List<double>();
+            string gcs = "";
             for (int r = 0; r < runs; r++)
             {
                 GC.Collect();
                 var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
+                var pause0 = GC.GetTotalPauseDuration();
+                int g0 = GC.CollectionCount(0), g1 = GC.CollectionCount(1), g2 = GC.CollectionCount(2);
                 var clock = Stopwatch.StartNew();
                 var project = ProjectReader.Read(path);
                 times.Add(clock.Elapsed.TotalSeconds);
                 cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalSeconds);
+                pause.Add((GC.GetTotalPauseDuration() - pause0).TotalSeconds);
+                gcs = $"{GC.CollectionCount(0) - g0}/{GC.CollectionCount(1) - g1}/{GC.CollectionCount(2) - g2}";
                 if (project.Network.Observations.Count != rows) throw new InvalidOperationException("rows lost");
             }
             Report("project reader (YAML + CSV)", times, cpu, rows);
+            pause.Sort();
+            Console.WriteLine(string.Create(inv,
+                $"  of which collector pauses: median {pause[pause.Count / 2]:F3} s; " +
+                $"collections (gen 0/1/2) in the last run: {gcs}"));
 
             // The CSV observation reader alone, on the text of the file (the part that grows with the rows).
             string csvPath = Directory.GetFiles(dir, "*.csv").Single();
@@ -68,6 +80,31 @@ internal static class ReadingProbe
             Report("CSV observation reader alone", times, cpu, rows);
         }
         finally { Directory.Delete(dir, recursive: true); }
+    }
+
+    /// <summary><c>-- reading FILE.yaml [RUNS]</c>: reads a project file RUNS times (default 1, no warm-up, so
+    /// that a single read of a large project shows its cold cost and its peak memory) and prints each read's time,
+    /// its process CPU time and the process's peak working set so far.</summary>
+    private static void ReadFile(string[] args)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        int runs = args.Length > 2 ? int.Parse(args[2], inv) : 1;
+        for (int r = 0; r < runs; r++)
+        {
+            GC.Collect();
+            var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
+            var clock = Stopwatch.StartNew();
+            var project = ProjectReader.Read(args[1]);
+            double wall = clock.Elapsed.TotalSeconds;
+            double cpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalSeconds;
+            int rows = project.Network.Observations.Count;
+            using var self = Process.GetCurrentProcess();
+            Console.WriteLine(string.Create(inv,
+                $"{Path.GetFileName(args[1])}: {rows} observations read in {wall:F3} s ({rows / wall:N0} rows/s), " +
+                $"CPU {cpu:F3} s; peak working set {self.PeakWorkingSet64 / 1e9:F2} GB; " +
+                $"load average {LoadAverage()}"));
+            GC.KeepAlive(project);
+        }
     }
 
     private static void Report(string what, List<double> times, List<double> cpu, int rows)

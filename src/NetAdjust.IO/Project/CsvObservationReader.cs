@@ -49,6 +49,8 @@ internal static partial class CsvObservationReader
         Func<string, string> get = Get;
         var sdCache = new SdCache();
         string? lastSetAt = null, lastSet = null, lastSetId = null;
+        ObservationKind lastKind = default;
+        string? lastKindName = null;
         int lineNo = 0;
         for (int pos = 0; pos <= text.Length;)
         {
@@ -85,10 +87,13 @@ internal static partial class CsvObservationReader
             if (row.Count != col.Count)
                 throw new ProjectFileException(file, lineNo, "",
                     $"expected {col.Count} fields as in the header, found {row.Count}");
-            var kind = (KindOfChars.TryGetValue(row.Chars(cKind), out var named) ? named : (ObservationKind?)null)
+            // the kind of the row before, or looked up by name
+            var kind = (lastKindName is not null && row.Chars(cKind).SequenceEqual(lastKindName) ? lastKind
+                : KindOfChars.TryGetValue(row.Chars(cKind), out var named) ? named : (ObservationKind?)null)
                 ?? throw new ProjectFileException(file, lineNo, row.Field(cKind),
                     $"unknown observation kind (expected one of: " +
                     $"{string.Join(", ", ObservationKinds.All.Select(k => k.Name()))})");
+            (lastKind, lastKindName) = (kind, kind.Name());
             string at = row.Id(cAt), from = row.Id(cFrom), to = row.Id(cTo);
             string Need(string name, string v) =>
                 v.Length > 0 ? v : throw new ProjectFileException(file, lineNo, row.Field(cKind),
@@ -189,9 +194,10 @@ internal static partial class CsvObservationReader
                 }
                 return lastSetId!;
             }
-            string source = $"{file}:{lineNo}";
-            // the value's text as booked (for the blunder diagnosis): one copy of the row
-            string booked = row.Field(cValue);
+            // the row's place, file:line, kept as the two (its text is made when asked)
+            var source = SourceText.At(file, lineNo);
+            // the value's text as booked (for the blunder diagnosis): a plain decimal kept as its digits
+            var booked = BookedValueText.Of(row.Chars(cValue));
             if (!plain) CheckTotalStationFields(kind, get, file, lineNo, Item());
             Observation o;
             try
@@ -200,24 +206,26 @@ internal static partial class CsvObservationReader
                 {
                     ObservationKind.Distance =>
                         new DistanceObservation(Need("from", from), Need("to", to), LValue())
-                        { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                        { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.Azimuth =>
                         new AzimuthObservation(Need("from", from), Need("to", to), A()) { StandardDeviation = sd,
-                        Source = source, Weighting = budget, BookedText = booked },
+                        SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.Angle =>
                         new AngleObservation(Need("at", at), Need("from", from), Need("to", to),
-                        A()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                        A()) { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.Direction => new DirectionObservation(Need("at", at), Need("to", to), A(),
-                        SetId()) { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                        SetId())
+                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.HeightDifference => new HeightDifferenceObservation(Need("from", from),
                         Need("to", to), LValue(),
                         Get("length").Length > 0 ? L(Get("length")) : null)
-                    { StandardDeviation = sd, Source = source, Weighting = budget, BookedText = booked },
+                    { StandardDeviation = sd, SourcePlace = source, Weighting = budget, BookedForm = booked },
                     ObservationKind.SlopeDistance or ObservationKind.Zenith =>
-                        Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get, L, angles,
-                            specs, file, lineNo, Item()) is var t ? t with
-                            { StandardDeviation = sd, Source = source, Weighting = budget ?? t.Weighting,
-                                BookedText = booked } : t,
+                        Trigonometric(kind, Need("from", from), Need("to", to), row.Field(cValue), get,
+                            LengthReader(lengths, file, lineNo, Item()), angles, specs, file, lineNo, Item())
+                            is var t ? t with
+                            { StandardDeviation = sd, SourcePlace = source, Weighting = budget ?? t.Weighting,
+                                BookedForm = booked } : t,
                     _ => throw new ProjectFileException(file, lineNo, Item(), $"a {kind.Name().Replace('_', ' ')} " +
                         "is not read from CSV: write it in the project file"),
                 };
@@ -234,4 +242,12 @@ internal static partial class CsvObservationReader
         CheckSlopesHaveZeniths(result, slopes, specs, file);
         return result;
     }
+
+    /// <summary>Reads a length of a row's field (slope distances, heights); the error names the row.</summary>
+    private static Func<string, Length> LengthReader(LengthPattern lengths, string file, int line, string item) =>
+        v =>
+        {
+            var r = lengths.Parse(v);
+            return r.Success ? r.Value : throw new ProjectFileException(file, line, item, r.Error!);
+        };
 }

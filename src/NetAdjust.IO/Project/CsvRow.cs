@@ -80,13 +80,19 @@ internal sealed class CsvRow
     public string Id(int k)
     {
         if (IsEmpty(k)) return "";
+        // the id of the column's row before (e.g. the station of a set), else looked up
+        if (k < _lastIds.Length && _lastIds[k] is string last && Span(k).SequenceEqual(last)) return last;
         if (!_idLookup.TryGetValue(Span(k), out var id))
         {
             id = Span(k).ToString();
             _ids[id] = id;
         }
+        if (k < _lastIds.Length) _lastIds[k] = id;
         return id;
     }
+
+    /// <summary>Per column (the first few), the id its last row held.</summary>
+    private readonly string?[] _lastIds = new string?[8];
 
     /// <summary>The field's characters (empty when empty or absent), without a string.</summary>
     public ReadOnlySpan<char> Chars(int k) => IsEmpty(k) ? [] : Span(k);

@@ -46,10 +46,14 @@ internal static class InputChecks
         }
     }
 
-    public static void Observations(IEnumerable<Observation> observations, string file)
+    /// <summary>Checks the observations; returns the kinds among them, as bits <c>1 &lt;&lt; kind</c> (the reader
+    /// then skips the passes for kinds it does not hold).</summary>
+    public static int Observations(List<Observation> observations, string file)
     {
+        int kinds = 0;
         foreach (var o in observations)
         {
+            kinds |= 1 << (int)o.Kind;
             // A standard deviation still to be derived from specifications (NaN) is checked where it is derived
             // (Stochastic.StochasticModel), with the same limits.
             bool derived = double.IsNaN(o.StandardDeviation) && o.Weighting is not null;
@@ -63,7 +67,12 @@ internal static class InputChecks
             if (o is HeightDifferenceObservation { LineLength: { } len } && !(len.Metres <= InputLimits.MaxCoordinate))
                 throw Error(o, file, $"the section length {G(len.Metres)} m is beyond the limit of 1e8 m");
         }
+        return kinds;
     }
+
+    /// <summary>True when <paramref name="kinds"/> (from <see cref="Observations"/>) holds <paramref name="kind"/>.
+    /// </summary>
+    public static bool Holds(int kinds, ObservationKind kind) => (kinds & (1 << (int)kind)) != 0;
 
     /// <summary>The error of one observation, naming its file, line and item (made only when there is one).</summary>
     private static ProjectFileException Error(Observation o, string file, string problem)

@@ -159,9 +159,10 @@ public static partial class ProjectReader
     /// file or CSV), checks the groups CSV rows name, and applies their scales and the frame parameters to CSV rows.
     /// </summary>
     private static List<Observation> FinishBaselines(Context ctx, GnssInputs g, GridSystem? grid,
-        List<Observation> observations)
+        List<Observation> observations, bool holdsBaselines)
     {
-        var first = observations.OfType<BaselineObservation>().FirstOrDefault();
+        // the list is searched only when the reader's checks saw a baseline among the observations
+        var first = holdsBaselines ? observations.OfType<BaselineObservation>().FirstOrDefault() : null;
         if (first is null)
         {
             if (g.Frame is not null && g.Node is not null)

@@ -168,13 +168,15 @@ public static partial class ProjectReader
         }
 
         CheckDatumPoints(ctx, root, points);
-        InputChecks.Observations(observations, displayName);
+        int kinds = InputChecks.Observations(observations, displayName);
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
         var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
-        observations = FinishBaselines(ctx, gnss, grid, observations);
+        observations = FinishBaselines(ctx, gnss, grid, observations,
+            InputChecks.Holds(kinds, ObservationKind.Baseline));
         var (planeHeight, planeBasis) = ReadPlaneHeight(ctx, root, units, points, grid);
-        ApplyPlaneHeight(observations, planeHeight);
+        if (InputChecks.Holds(kinds, ObservationKind.SlopeDistance) || InputChecks.Holds(kinds, ObservationKind.Zenith))
+            ApplyPlaneHeight(observations, planeHeight);
         var network = new SurveyNetwork(name, points, observations);
         if (planned) network = AtDesign(network);
         StatisticsSection.CheckPairs(root, displayName, network);

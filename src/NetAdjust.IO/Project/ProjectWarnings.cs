@@ -1,3 +1,4 @@
+using System.Text;
 using NetAdjust.Network;
 
 namespace NetAdjust.IO.Project;
@@ -14,26 +15,27 @@ internal static class ProjectWarnings
         var warnings = new List<string>();
         if (network.Observations.Count == 0)
             warnings.Add("the project has no observations: nothing will be adjusted");
-        // the points of the observations that count, and of those set aside (one pass, no list per observation)
-        var reached = new HashSet<string>(StringComparer.Ordinal);
-        var setAside = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var o in network.Observations)
-        {
-            var to = o.Excluded ? setAside : reached;
-            if (o.At is string at) to.Add(at);
-            to.Add(o.From);
-            to.Add(o.To);
-        }
+        // the points of the observations that count, and of those set aside: marked by the network as it checks
+        // each observation's points
         if (network.Observations.Count > 0)
-            foreach (var p in network.Points.Where(p => !reached.Contains(p.Id)))
+            for (int i = 0; i < network.Points.Count; i++)
+            {
+                if (network.IsReached(i)) continue;
+                var p = network.Points[i];
                 warnings.Add($"point {p.Id}{Where(p.Source)} is reached by no observation" +
-                    (setAside.Contains(p.Id) ? " that is not set aside" : "") +
+                    (network.IsReachedBySetAside(i) ? " that is not set aside" : "") +
                     ": it is reported as given and takes no part in the adjustment");
-        // ids that differ only in case: the grouping is made only when two ids have one upper case
-        var upper = new HashSet<string>(StringComparer.Ordinal);
+            }
+        // ids that differ only in case: two ids of one upper case, one of which is not its own upper case (an id
+        // without lower case letters is); the grouping is made only when there are such twins
+        var lowered = new HashSet<string>(StringComparer.Ordinal);
         bool twins = false;
         foreach (var p in network.Points)
-            twins |= !upper.Add(p.Id.ToUpperInvariant());
+        {
+            if (Ascii.IsValid(p.Id) && !p.Id.AsSpan().ContainsAnyInRange('a', 'z')) continue;
+            string u = p.Id.ToUpperInvariant();
+            if (u != p.Id) twins |= network.Contains(u) || !lowered.Add(u);
+        }
         if (twins)
             foreach (var group in network.Points.GroupBy(p => p.Id.ToUpperInvariant()).Where(g => g.Count() > 1))
                 warnings.Add($"the point ids {string.Join(", ", group.Select(p => p.Id + Where(p.Source)))} " +

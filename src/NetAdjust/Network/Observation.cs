@@ -124,11 +124,23 @@ public abstract record Observation
     }
 
     /// <summary>Where the observation was read (e.g. <c>site.yaml:41</c>), for messages; may be null.</summary>
-    public string? Source { get; init; }
+    public string? Source { get => _source.Text; init => _source = new SourceText(value); }
+
+    /// <summary>The same place as <see cref="Source"/>, kept as file and line by a reader of many rows (its text is
+    /// made when asked); equality and hash code are those of the text.</summary>
+    internal SourceText SourcePlace { get => _source; init => _source = value; }
+
+    private readonly SourceText _source;
 
     /// <summary>The value's text as booked in the file (e.g. <c>123.4567</c> or <c>123-45-12.3</c>), for the blunder
     /// diagnosis (transposed digits); null when not known.</summary>
-    public string? BookedText { get; init; }
+    public string? BookedText { get => _booked.Text; init => _booked = new BookedValueText(value); }
+
+    /// <summary>The same text as <see cref="BookedText"/>, a plain decimal kept as its digits by a reader of many rows
+    /// (its text is made when asked); equality and hash code are those of the text.</summary>
+    internal BookedValueText BookedForm { get => _booked; init => _booked = value; }
+
+    private readonly BookedValueText _booked;
 
     /// <summary>
     /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but
@@ -175,7 +187,8 @@ public abstract record Observation
         string what = Kind == ObservationKind.Angle
             ? $"angle at {At} from {From} to {To}"
             : $"{Kind.Name().Replace('_', ' ')} {From}→{To}";
-        return Source is null ? what : $"{what} ({Source})";
+        string? source = Source;
+        return source is null ? what : $"{what} ({source})";
     }
 }
 

@@ -23,28 +23,38 @@ public sealed class SurveyNetwork
         for (int i = 0; i < Points.Count; i++)
         {
             var p = Points[i];
-            string at = p.Source is null ? "" : $"{p.Source}: ";
-            if (string.IsNullOrWhiteSpace(p.Id)) { problems.Add($"{at}a point has an empty id"); continue; }
-            if (!_index.TryAdd(p.Id, i)) problems.Add($"{at}point {p.Id} is defined twice");
+            // the place in messages ("file:line: "), made only for a point with a problem
+            string At() => p.Source is null ? "" : $"{p.Source}: ";
+            if (string.IsNullOrWhiteSpace(p.Id)) { problems.Add($"{At()}a point has an empty id"); continue; }
+            if (!_index.TryAdd(p.Id, i)) problems.Add($"{At()}point {p.Id} is defined twice");
             if (p.IsFixed(Fixity.E) && p.E is null)
-                problems.Add($"{at}point {p.Id} holds its easting fixed but gives no easting");
+                problems.Add($"{At()}point {p.Id} holds its easting fixed but gives no easting");
             if (p.IsFixed(Fixity.N) && p.N is null)
-                problems.Add($"{at}point {p.Id} holds its northing fixed but gives no northing");
+                problems.Add($"{At()}point {p.Id} holds its northing fixed but gives no northing");
             if (p.IsFixed(Fixity.H) && p.H is null)
-                problems.Add($"{at}point {p.Id} holds its height fixed but gives no height");
-            CheckWeighted(p, p.SdE, p.E, Fixity.E, "easting", at, problems);
-            CheckWeighted(p, p.SdN, p.N, Fixity.N, "northing", at, problems);
-            CheckWeighted(p, p.SdH, p.H, Fixity.H, "height", at, problems);
+                problems.Add($"{At()}point {p.Id} holds its height fixed but gives no height");
+            if (p.SdE is not null || p.SdN is not null || p.SdH is not null)
+            {
+                string at = At();
+                CheckWeighted(p, p.SdE, p.E, Fixity.E, "easting", at, problems);
+                CheckWeighted(p, p.SdN, p.N, Fixity.N, "northing", at, problems);
+                CheckWeighted(p, p.SdH, p.H, Fixity.H, "height", at, problems);
+            }
         }
+        _use = new byte[Points.Count];
         var sets = new Dictionary<string, string>(StringComparer.Ordinal);
+        // the set of the direction before (the directions of a set follow one another, often sharing one id string)
+        string? lastSetId = null, lastStation = null;
         foreach (var o in Observations)
         {
-            // the observation's points (Observation.Points) without a list per observation
+            // the observation's points (Observation.Points) without a list per observation; each point found is
+            // marked as reached by a counting or a set-aside observation
             string? oAt = o.At;
             string oFrom = o.From, oTo = o.To;
-            if (oAt is not null && !_index.ContainsKey(oAt)) Undefined(o, oAt, problems);
-            if (oFrom is not null && oFrom != oAt && !_index.ContainsKey(oFrom)) Undefined(o, oFrom, problems);
-            if (oTo is not null && oTo != oAt && oTo != oFrom && !_index.ContainsKey(oTo)) Undefined(o, oTo, problems);
+            byte use = o.Excluded ? SetAsideUse : CountingUse;
+            if (oAt is not null) Reach(o, oAt, use, problems);
+            if (oFrom is not null && oFrom != oAt) Reach(o, oFrom, use, problems);
+            if (oTo is not null && oTo != oAt && oTo != oFrom) Reach(o, oTo, use, problems);
             if (o.From == o.To ||
                 (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
                 problems.Add($"{o.Describe()}: an observation needs distinct points");
@@ -56,11 +66,16 @@ public sealed class SurveyNetwork
             if (!double.IsFinite(o.Value)) problems.Add($"{o.Describe()}: the value is not a finite number");
             if (o.Kind == ObservationKind.Distance && !(o.Value > 0))
                 problems.Add($"{o.Describe()}: a distance must be positive");
-            if (o is DirectionObservation d)
+            // a direction of the same set id string and station as the direction before: the set is already its
+            // station's
+            if (o is DirectionObservation d && !(ReferenceEquals(d.SetId, lastSetId) && d.Station == lastStation))
             {
                 if (sets.TryGetValue(d.SetId, out var st) && st != d.Station)
+                {
                     problems.Add($"{o.Describe()}: direction set {d.SetId} already belongs to station {st}");
-                else sets[d.SetId] = d.Station;
+                    lastSetId = lastStation = null;
+                }
+                else (sets[d.SetId], lastSetId, lastStation) = (d.Station, d.SetId, d.Station);
             }
         }
         if (problems.Count > 0)
@@ -68,8 +83,24 @@ public sealed class SurveyNetwork
                 string.Join(Environment.NewLine + "  ", problems));
     }
 
-    private static void Undefined(Observation o, string id, List<string> problems) =>
-        problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
+    private const byte CountingUse = 1, SetAsideUse = 2;
+
+    /// <summary>Per point: <see cref="CountingUse"/> when an observation that is not set aside involves it,
+    /// <see cref="SetAsideUse"/> when a set-aside one does (both bits when both).</summary>
+    private readonly byte[] _use;
+
+    private void Reach(Observation o, string id, byte use, List<string> problems)
+    {
+        if (_index.TryGetValue(id, out int i)) _use[i] |= use;
+        else problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
+    }
+
+    /// <summary>True when an observation that is not set aside involves the point at <paramref name="index"/> in
+    /// <see cref="Points"/> (the project's warnings: a point no observation reaches).</summary>
+    internal bool IsReached(int index) => (_use[index] & CountingUse) != 0;
+
+    /// <summary>True when a set-aside observation involves the point at <paramref name="index"/>.</summary>
+    internal bool IsReachedBySetAside(int index) => (_use[index] & SetAsideUse) != 0;
 
     private static void CheckWeighted(Point p, double? sd, double? value, Fixity c, string name, string at,
         List<string> problems)

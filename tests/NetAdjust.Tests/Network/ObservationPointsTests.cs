@@ -31,4 +31,25 @@ public class ObservationPointsTests
         Assert.Contains("point Y is not defined", e.Message);
         Assert.DoesNotContain("point S is not defined", e.Message);
     }
+
+    [Fact]
+    public void ASetIdSharedByTwoStationsIsRefusedWhenItsDirectionsFollowOneAnother()
+    {
+        // the directions of a set usually share one set id string: the network skips the set look-up for the same
+        // string and station as the direction before, and still names a second station of that string
+        string set = "S/1";
+        var points = new[] { "S", "T", "U" }.Select(id => new Point(id) { E = 0, N = 0 }).ToArray();
+        Observation Dir(string at, string to, string setId) =>
+            new DirectionObservation(at, to, Angle.FromDegrees(10), setId) { Sd = Angle.FromArcseconds(2) };
+        var e = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("n", points,
+            [Dir("S", "T", set), Dir("S", "U", set), Dir("T", "U", set), Dir("T", "S", set), Dir("S", "T", "S/2")]));
+        Assert.Equal(2, e.Message.Split("direction set S/1 already belongs to station S").Length - 1);
+        // the same id as another string: the same answer
+        var f = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("n", points,
+            [Dir("S", "T", set), Dir("T", "U", new string(set.AsSpan())), Dir("S", "U", set)]));
+        Assert.Contains("direction set S/1 already belongs to station S", f.Message);
+        // one station's directions of one set: no problem
+        Assert.Equal(3, new SurveyNetwork("n", points,
+            [Dir("S", "T", set), Dir("S", "U", new string(set.AsSpan())), Dir("S", "T", set)]).Observations.Count);
+    }
 }
