@@ -190,7 +190,16 @@ internal static class SelectedInversion
     /// </summary>
     internal sealed class TreeSplit
     {
-        private TreeSplit(int[] top, List<int>[] bins) { Top = top; Bins = bins; }
+        private TreeSplit(int[] top, List<int>[] bins, double topWork, double[] binWork)
+        {
+            Top = top; Bins = bins; TopWork = topWork; BinWork = binWork;
+        }
+
+        /// <summary>Estimated flops of the top part (one thread).</summary>
+        public double TopWork { get; }
+
+        /// <summary>Estimated flops of each bin.</summary>
+        public double[] BinWork { get; }
 
         /// <summary>The supernodes of the top part, parents before children.</summary>
         public int[] Top { get; }
@@ -230,6 +239,8 @@ internal static class SelectedInversion
             if (total < minimumWork) return null;
             var top = new List<int>();
             double topWork = 0;
+            TreeSplit? best = null;
+            double bestCost = 0.9 * total; // worth two threads only below this
             for (int step = 0; step < 64 && frontier.Count > 0; step++)
             {
                 // largest first into the lighter bin (ties by index: a deterministic split)
@@ -239,16 +250,22 @@ internal static class SelectedInversion
                 foreach (int s in frontier)
                     if (w0 <= w1) { bins[0].Add(s); w0 += work[s]; }
                     else { bins[1].Add(s); w1 += work[s]; }
-                double below = w0 + w1;
-                if (Math.Max(w0, w1) <= 0.55 * below && bins[1].Count > 0)
-                    return topWork <= 0.5 * total ? new TreeSplit([.. top], bins) : null;
+                // the time on two threads, in flops: the top part's large fronts share their rows between the
+                // threads (counted at 0.6 of their work), then the heavier bin
+                double cost = (0.6 * topWork) + Math.Max(w0, w1);
+                if (bins[1].Count > 0 && cost < bestCost)
+                {
+                    best = new TreeSplit([.. top], bins, topWork, [w0, w1]);
+                    bestCost = cost;
+                }
+                if (Math.Max(w0, w1) <= 0.51 * (w0 + w1) || topWork > 0.5 * total) break;
                 int big = frontier[0];
                 frontier.RemoveAt(0);
                 top.Add(big);
                 topWork += Work(sym, big);
                 for (int c = sym.SnChildHead[big]; c >= 0; c = sym.SnChildNext[c]) frontier.Add(c);
             }
-            return null;
+            return best;
         }
     }
 
