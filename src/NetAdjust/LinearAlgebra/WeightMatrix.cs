@@ -86,6 +86,21 @@ public sealed class WeightMatrix
         return new WeightMatrix(weights.ToArray());
     }
 
+    /// <summary>This diagonal matrix kept as one array, with rows of the given weights added after its rows (zero
+    /// weights allowed, as for set-aside rows); null when it is not kept as one array.</summary>
+    /// <param name="more">The weights of the added rows.</param>
+    internal WeightMatrix? WithDiagonalRows(ReadOnlySpan<double> more)
+    {
+        if (_blocks is null)
+        {
+            var w = new double[RowCount + more.Length];
+            DiagonalWeights!.CopyTo(w, 0);
+            more.CopyTo(w.AsSpan(RowCount));
+            return new WeightMatrix(w);
+        }
+        return null;
+    }
+
     /// <summary>A block-diagonal weight matrix.</summary>
     /// <param name="rowCount">The number of rows.</param>
     /// <param name="blocks">The blocks; every row in exactly one.</param>
