@@ -10,12 +10,13 @@ namespace NetAdjust.Benchmarks;
 /// <summary>
 /// The sparse engine's share of <c>netadjust adjust</c> on a project file, timed in process:
 /// <c>-- covariance FILE [RUNS]</c> adjusts once, then on the final design rows and weights times the symbolic
-/// analysis, the assembly of N (4 times), the numeric factorisation (4 times), the selected inverse (twice), the Qxx
-/// look-ups of the adjusted points (σE, σN, σEN, σH) and of a Qxx aᵀ per observation, and the statistics analysis
-/// (twice); wall and CPU (user + system, of the whole process, so that the parallel fronts count) per repetition, for
-/// each run, and the least of each over the warm runs (on a shared machine the least is the figure least disturbed
-/// by the load; <c>DOTNET_PROCESSOR_COUNT=1</c> keeps the fronts serial); then the factorisation without the
-/// concurrent subtrees (twice, checked bit-identical) and the subtree schedule's work split.
+/// analysis, the assembly of N (4 times), the numeric factorisation (4 times), the selected inverse (once with the
+/// supernodal tree on one thread, once as the command does it), the Qxx look-ups of the adjusted points (σE, σN, σEN,
+/// σH) and of a Qxx aᵀ per observation, and the statistics analysis (twice); wall and CPU (user + system, of the
+/// whole process, so that the parallel fronts count) per repetition, for each run, and the least of each over the
+/// warm runs (on a shared machine the least is the figure least disturbed by the load; <c>DOTNET_PROCESSOR_COUNT=1</c>
+/// keeps the fronts serial); then the factorisation without the concurrent subtrees (twice, checked bit-identical)
+/// and the subtree schedule's work split.
 /// </summary>
 internal static class CovarianceProbe
 {
@@ -64,9 +65,10 @@ internal static class CovarianceProbe
             var factor = new SparseCholeskyFactor(sym, l, scale);
             for (int k = 0; k < 2; k++)
             {
-                factor = new SparseCholeskyFactor(sym, l, scale);
+                // first with the supernodal tree on one thread (the inner loops of large fronts still parallel)
+                factor = new SparseCholeskyFactor(sym, l, scale) { InversionThreads = k == 0 ? 1 : 0 };
                 factor.ComputeSelectedInverse();
-                clock.Lap("selected inverse");
+                clock.Lap(k == 0 ? "selected inverse, tree on 1 thread" : "selected inverse");
             }
             double sum = 0;
             foreach (var p in result.Points)
@@ -91,6 +93,14 @@ internal static class CovarianceProbe
             Console.WriteLine(string.Create(inv, $"run {run + 1}: {u} unknowns, {rows.Count} rows, " +
                 $"{sym.SupernodeCount} supernodes, nnz(L) {sym.FactorNonZeros}, stored {sym.StoredEntries}; " +
                 $"check {sum:R} {analysis.RedundancySum:R}; load average {ReadingProbe.LoadAverage()}"));
+            var split = SelectedInversion.TreeSplit.Plan(sym, SelectedInversion.TreeParallelWork);
+            if (split is not null)
+            {
+                double all = split.TopWork + split.BinWork[0] + split.BinWork[1];
+                Console.WriteLine(string.Create(inv, $"selected inverse, estimated flops {all:G3}: top of the tree " +
+                    $"{split.Top.Length} supernodes {100 * split.TopWork / all:F1}%, subtrees on two threads " +
+                    $"{100 * split.BinWork[0] / all:F1}% + {100 * split.BinWork[1] / all:F1}%"));
+            }
             clock.Print(30, total: false);
             if (run > 0) best.Add(clock.Laps);
         }

@@ -59,8 +59,8 @@ internal sealed class LeaveOut
             var pinv = p.Inverse();
             for (int b = 0; b < g; b++)
             {
-                var (blk2, pb) = r.Weights.BlockOf(group[b]);
-                if (ReferenceEquals(blk, blk2)) qe[a, b] = pinv[pa, pb];
+                int pb = r.Weights.BlockOf(group[b]).Position;
+                if (r.Weights.BlockIndexOf(group[a]) == r.Weights.BlockIndexOf(group[b])) qe[a, b] = pinv[pa, pb];
             }
         }
         if (res.HasFactor)

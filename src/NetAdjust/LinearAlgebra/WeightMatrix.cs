@@ -24,9 +24,19 @@ public sealed record WeightBlock(int[] Rows, double[] Matrix)
 /// </summary>
 public sealed class WeightMatrix
 {
-    private readonly WeightBlock[] _blocks;
-    private readonly int[] _blockOfRow;
-    private readonly int[] _positionInBlock;
+    // null when diagonal and kept as one array (DiagonalWeights; block b is row b, made on request)
+    private readonly WeightBlock[]? _blocks;
+    private readonly int[]? _blockOfRow;
+    private readonly int[]? _positionInBlock;
+
+    /// <summary>A diagonal matrix kept as one array of weights (no block objects per row).</summary>
+    private WeightMatrix(double[] diagonal)
+    {
+        RowCount = diagonal.Length;
+        IsDiagonal = true;
+        DiagonalWeights = diagonal;
+        Blocks = new DiagonalBlocks(diagonal);
+    }
 
     private WeightMatrix(int rowCount, WeightBlock[] blocks)
     {
@@ -57,7 +67,11 @@ public sealed class WeightMatrix
             DiagonalWeights = new double[rowCount];
             foreach (var b in blocks) DiagonalWeights[b.Rows[0]] = b.Matrix[0];
         }
+        Blocks = blocks;
     }
+
+    /// <summary>True when block b is row b (a diagonal matrix kept as one array).</summary>
+    internal bool BlockIsRow => _blocks is null;
 
     /// <summary>P_ii by row when every block has one row (<see cref="IsDiagonal"/>), else null.</summary>
     internal double[]? DiagonalWeights { get; }
@@ -66,14 +80,25 @@ public sealed class WeightMatrix
     /// <param name="weights">The positive weights, one per row.</param>
     public static WeightMatrix Diagonal(ReadOnlySpan<double> weights)
     {
-        var blocks = new WeightBlock[weights.Length];
         for (int i = 0; i < weights.Length; i++)
-        {
             if (!(weights[i] > 0) || !double.IsFinite(weights[i]))
                 throw new ArgumentOutOfRangeException(nameof(weights), $"weight {i} must be positive and finite");
-            blocks[i] = new WeightBlock([i], [weights[i]]);
+        return new WeightMatrix(weights.ToArray());
+    }
+
+    /// <summary>This diagonal matrix kept as one array, with rows of the given weights added after its rows (zero
+    /// weights allowed, as for set-aside rows); null when it is not kept as one array.</summary>
+    /// <param name="more">The weights of the added rows.</param>
+    internal WeightMatrix? WithDiagonalRows(ReadOnlySpan<double> more)
+    {
+        if (_blocks is null)
+        {
+            var w = new double[RowCount + more.Length];
+            DiagonalWeights!.CopyTo(w, 0);
+            more.CopyTo(w.AsSpan(RowCount));
+            return new WeightMatrix(w);
         }
-        return new WeightMatrix(weights.Length, blocks);
+        return null;
     }
 
     /// <summary>A block-diagonal weight matrix.</summary>
@@ -94,6 +119,14 @@ public sealed class WeightMatrix
     public WeightMatrix Excluding(IReadOnlyCollection<int> rows)
     {
         if (rows.Count == 0) return this;
+        if (_blocks is null)
+        {
+            // one-row blocks simply lose the set-aside rows' weight
+            var w = (double[])DiagonalWeights!.Clone();
+            foreach (int r in rows)
+                if ((uint)r < (uint)w.Length) w[r] = 0;
+            return new WeightMatrix(w);
+        }
         var drop = new HashSet<int>(rows);
         var blocks = new WeightBlock[_blocks.Length];
         for (int b = 0; b < _blocks.Length; b++)
@@ -155,18 +188,41 @@ public sealed class WeightMatrix
     public bool IsDiagonal { get; }
 
     /// <summary>The blocks.</summary>
-    public IReadOnlyList<WeightBlock> Blocks => _blocks;
+    public IReadOnlyList<WeightBlock> Blocks { get; }
 
     /// <summary>The block that holds a row and the row's position in it.</summary>
     /// <param name="row">The row.</param>
-    public (WeightBlock Block, int Position) BlockOf(int row) => (_blocks[_blockOfRow[row]], _positionInBlock[row]);
+    public (WeightBlock Block, int Position) BlockOf(int row) => _blocks is null
+        ? (Blocks[row], 0)
+        : (_blocks[_blockOfRow![row]], _positionInBlock![row]);
+
+    /// <summary>The index in <see cref="Blocks"/> of the block that holds a row (a diagonal matrix kept as one array
+    /// makes a new block object at each request: compare blocks by this index, not by reference).</summary>
+    /// <param name="row">The row.</param>
+    internal int BlockIndexOf(int row) => _blocks is null ? row : _blockOfRow![row];
 
     /// <summary>P_ii.</summary>
     /// <param name="row">The row.</param>
     public double DiagonalEntry(int row)
     {
+        if (_blocks is null) return DiagonalWeights![row];
         var (b, k) = BlockOf(row);
         return b[k, k];
+    }
+
+    /// <summary>The one-row blocks of a diagonal matrix kept as one array, each made when asked for.</summary>
+    private sealed class DiagonalBlocks(double[] weights) : IReadOnlyList<WeightBlock>
+    {
+        public WeightBlock this[int index] => new([index], [weights[index]]);
+
+        public int Count => weights.Length;
+
+        public IEnumerator<WeightBlock> GetEnumerator()
+        {
+            for (int i = 0; i < weights.Length; i++) yield return this[i];
+        }
+
+        System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
     }
 
     /// <summary>y = P v.</summary>
@@ -184,7 +240,7 @@ public sealed class WeightMatrix
             }
             return y;
         }
-        foreach (var b in _blocks)
+        foreach (var b in _blocks!)
             for (int a = 0; a < b.Size; a++)
             {
                 double s = 0;

@@ -41,4 +41,25 @@ public class WeightMatrixTests
         Assert.Equal([W[0], 0, W[2], 0, W[4]], Enumerable.Range(0, W.Length).Select(p.DiagonalEntry));
         Assert.Equal([W[0] * V[0], 0, W[2] * V[2], 0, W[4] * V[4]], p.Multiply(V));
     }
+
+    [Fact]
+    public void ADiagonalMatrixKeptAsOneArrayShowsTheBlocksOfItsBlockForm()
+    {
+        // the same matrix built from explicit one-row blocks is the reference
+        var compact = WeightMatrix.Diagonal(W).Excluding([2]);
+        var blocks = WeightMatrix.FromBlocks(W.Length, W.Select((x, i) => new WeightBlock([i], [x]))).Excluding([2]);
+        Assert.Equal(blocks.Blocks.Count, compact.Blocks.Count);
+        for (int i = 0; i < W.Length; i++)
+        {
+            Assert.Equal(blocks.Blocks[i].Rows, compact.Blocks[i].Rows);
+            Assert.Equal(blocks.Blocks[i].Matrix, compact.Blocks[i].Matrix);
+            var (b, k) = compact.BlockOf(i);
+            Assert.Equal([i], b.Rows);
+            Assert.Equal(0, k);
+            Assert.Equal(blocks.DiagonalEntry(i), compact.DiagonalEntry(i));
+        }
+        Assert.Equal(blocks.Blocks.Select(b => b.Matrix[0]), compact.Blocks.Select(b => b.Matrix[0]));
+        Assert.Equal(0, compact.DiagonalEntry(2));
+        Assert.Equal(blocks.Multiply(V), compact.Multiply(V));
+    }
 }

@@ -33,16 +33,17 @@ internal sealed partial class DatumPlan
             for (int k = 0; k < r.Columns.Length; k++) diag[r.Columns[k]] += p * r.Values[k] * r.Values[k];
         }
         var allRows = new List<SparseRow>(rows);
-        var blocks = weights.Blocks.ToList();
         var w = new double[d];
         for (int k = 0; k < d; k++)
         {
             int jk = _held[k];
             w[k] = diag[jk] > 0 && double.IsFinite(diag[jk]) ? diag[jk] : 1.0;
             allRows.Add(new SparseRow([jk], [1.0]));
-            blocks.Add(new WeightBlock([m0 + k], [w[k]]));
         }
-        var inner = FactorizeOrExplain(solver, u, allRows, WeightMatrix.FromBlocks(m0 + d, blocks), j => j);
+        // a diagonal P kept as one array stays one (the same weights as the blocks below)
+        var allWeights = weights.WithDiagonalRows(w) ?? WeightMatrix.FromBlocks(m0 + d,
+            weights.Blocks.Concat(Enumerable.Range(0, d).Select(k => new WeightBlock([m0 + k], [w[k]]))));
+        var inner = FactorizeOrExplain(solver, u, allRows, allWeights, j => j);
         var (g, b) = Bases();
         var btg = new double[ConditionCount, ConditionCount];
         for (int k = 0; k < ConditionCount; k++)

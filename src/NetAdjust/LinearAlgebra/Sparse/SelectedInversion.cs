@@ -12,112 +12,261 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// circuit study", Proc. 8th PICA Conf.; Erisman &amp; Tinney 1975, "On computing certain elements of the inverse
 /// of a sparse matrix", Comm. ACM 18(3):177–179; the supernodal block form of Lin, Yang, Meza, Lu, Ying &amp; E 2011,
 /// "SelInv — an algorithm for selected inversion of a sparse symmetric matrix", ACM TOMS 37(4):40. Work of the same
-/// order as the factorisation; memory one more copy of L.
+/// order as the factorisation; memory one more copy of L, or none when Z overwrites L (scratch of one block).
 /// </remarks>
 internal static class SelectedInversion
 {
-    /// <summary>Z on the supernodal layout of L (rows 0..k−1 of each block: Z_JJ, full; rows k..m−1: Z_RJ).</summary>
+    /// <summary>Below this many estimated flops the supernodes are visited on one thread.</summary>
+    internal const double TreeParallelWork = 2e7;
+
+    /// <summary>Z on the supernodal layout of L (rows 0..k−1 of each block: Z_JJ, full; rows k..m−1: Z_RJ), in a
+    /// new array; L is left as it is.</summary>
+    public static double[] Compute(SymbolicCholesky sym, double[] L) => Compute(sym, L, inPlace: false, threads: 0);
+
+    /// <summary>
+    /// Z on the supernodal layout of L. With <paramref name="inPlace"/>, Z overwrites L block by block (each
+    /// supernode's block of L is copied to scratch before its Z is written: the supernodes still to come read only
+    /// the Z of their ancestors) and the returned array is L itself. With two or more threads, the subtrees below
+    /// the top of the supernodal tree go down concurrently, each supernode computed by the same code as on one
+    /// thread: every entry is bit for bit the same whatever the schedule.
+    /// </summary>
+    /// <param name="sym">The analysis.</param>
+    /// <param name="L">The factor's values.</param>
+    /// <param name="inPlace">Overwrite L with Z.</param>
+    /// <param name="threads">Threads for the tree level (0: the processor count; 1: one thread).</param>
+    /// <param name="parallelWork">Estimated flops below which one thread does it all.</param>
+    internal static double[] Compute(SymbolicCholesky sym, double[] L, bool inPlace, int threads,
+        double parallelWork = TreeParallelWork)
+    {
+        // every entry is written below
+        var Z = inPlace ? L : GC.AllocateUninitializedArray<double>(L.Length);
+        if (threads <= 0) threads = Environment.ProcessorCount;
+        var plan = threads >= 2 ? TreeSplit.Plan(sym, parallelWork) : null;
+        if (plan is null)
+        {
+            for (int s = sym.SupernodeCount - 1; s >= 0; s--) Supernode(sym, L, Z, s, inPlace, innerParallel: true);
+            return Z;
+        }
+        foreach (int s in plan.Top) Supernode(sym, L, Z, s, inPlace, innerParallel: true);
+        void Bin(int b)
+        {
+            var stack = new Stack<int>();
+            foreach (int root in plan.Bins[b])
+            {
+                // parents before children: any such order gives the same entries
+                stack.Push(root);
+                while (stack.Count > 0)
+                {
+                    int s = stack.Pop();
+                    Supernode(sym, L, Z, s, inPlace, innerParallel: false);
+                    for (int c = sym.SnChildHead[s]; c >= 0; c = sym.SnChildNext[c]) stack.Push(c);
+                }
+            }
+        }
+        Parallel.Invoke(() => Bin(0), () => Bin(1));
+        return Z;
+    }
+
+    /// <summary>Z_J of supernode <paramref name="s"/> from its block of L and the Z of its ancestors.</summary>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    public static double[] Compute(SymbolicCholesky sym, double[] L)
+    private static void Supernode(SymbolicCholesky sym, double[] Lall, double[] Z, int s, bool inPlace,
+        bool innerParallel)
     {
-        var Z = GC.AllocateUninitializedArray<double>(L.Length); // every entry is written below
         var pool = System.Buffers.ArrayPool<double>.Shared;
-        for (int s = sym.SupernodeCount - 1; s >= 0; s--)
+        int f = sym.SnStart[s], k = sym.SnStart[s + 1] - f;
+        int r0 = sym.SnRowStart[s], m = sym.SnRowStart[s + 1] - r0, mu = m - k;
+        long off = sym.SnValueStart[s];
+        // The block's L: read where it lies, or from a scratch copy when Z is to overwrite it.
+        double[] L = Lall;
+        long lo0 = off;
+        double[]? copy = null;
+        if (inPlace)
         {
-            int f = sym.SnStart[s], k = sym.SnStart[s + 1] - f;
-            int r0 = sym.SnRowStart[s], m = sym.SnRowStart[s + 1] - r0, mu = m - k;
-            long off = sym.SnValueStart[s];
-
-            // T = L_JJ⁻ᵀ stored row-major: T(c, d) = (L_JJ⁻¹)(d, c), nonzero for d ≥ c.
-            var T = pool.Rent(k * k);
-            for (int c = 0; c < k; c++)
-            {
-                for (int d = 0; d < c; d++) T[(c * k) + d] = 0;
-                // column c of L_JJ⁻¹: solve L_JJ w = e_c, w(d) for d ≥ c
-                T[(c * k) + c] = 1.0 / L[off + ((long)c * k) + c];
-                for (int d = c + 1; d < k; d++)
-                {
-                    double v = 0;
-                    for (int e = c; e < d; e++) v -= L[off + ((long)d * k) + e] * T[(c * k) + e];
-                    T[(c * k) + d] = v / L[off + ((long)d * k) + d];
-                }
-            }
-
-            // Z_JJ ← (L_JJ Lᵀ_JJ)⁻¹ = L_JJ⁻ᵀ L_JJ⁻¹: entry (c, d) = Σ_e T(c, e) T(d, e).
-            for (int c = 0; c < k; c++)
-                for (int d = 0; d <= c; d++)
-                {
-                    double v = DenseKernels.Dot(T.AsSpan((c * k) + c, k - c), T.AsSpan((d * k) + c, k - c), k - c);
-                    Z[off + ((long)c * k) + d] = v;
-                    Z[off + ((long)d * k) + c] = v;
-                }
-            if (mu == 0) { pool.Return(T); continue; }
-
-            // Yᵀ (k×mu, row-major) with Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
-            var Yt = System.Buffers.ArrayPool<double>.Shared.Rent(k * mu);
-            for (int a = 0; a < mu; a++)
-            {
-                var la = L.AsSpan((int)(off + ((long)(k + a) * k)), k);
-                for (int c = 0; c < k; c++)
-                    Yt[(c * mu) + a] = DenseKernels.Dot(la[c..], T.AsSpan((c * k) + c, k - c), k - c);
-            }
-
-            // Z_RR gathered from the ancestors' blocks (symmetric, full).
-            var zrr = GatherZrr(sym, Z, r0 + k, mu);
-
-            // Z_RJ = −Z_RR Y, kept transposed: Zt(c, a) = −Σ_b Y(b, c) Z_RR(a, b).
-            var Zt = System.Buffers.ArrayPool<double>.Shared.Rent(k * mu);
-            void Rows(int lo, int hi)
-            {
-                // two rows of Z_RR by two columns of Y at a time, each product as DenseKernels.Dot computes it
-                int a = lo;
-                for (; a + 1 < hi; a += 2)
-                {
-                    var za0 = zrr.AsSpan(a * mu, mu);
-                    var za1 = zrr.AsSpan((a + 1) * mu, mu);
-                    int c = 0;
-                    for (; c + 1 < k; c += 2)
-                    {
-                        DenseKernels.Dot2x2Exact(Yt.AsSpan(c * mu, mu), Yt.AsSpan((c + 1) * mu, mu), za0, za1, mu,
-                            out double s00, out double s01, out double s10, out double s11);
-                        Zt[(c * mu) + a] = -s00; Zt[(c * mu) + a + 1] = -s01;
-                        Zt[((c + 1) * mu) + a] = -s10; Zt[((c + 1) * mu) + a + 1] = -s11;
-                    }
-                    for (; c < k; c++)
-                    {
-                        Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za0, mu);
-                        Zt[(c * mu) + a + 1] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za1, mu);
-                    }
-                }
-                for (; a < hi; a++)
-                {
-                    var za = zrr.AsSpan(a * mu, mu);
-                    for (int c = 0; c < k; c++) Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za, mu);
-                }
-            }
-            if ((double)mu * mu * k < 4e5 || Environment.ProcessorCount == 1) Rows(0, mu);
-            else
-            {
-                int parts = Math.Min(Environment.ProcessorCount * 4, mu);
-                Parallel.For(0, parts, p => Rows((int)((long)mu * p / parts), (int)((long)mu * (p + 1) / parts)));
-            }
-            for (int a = 0; a < mu; a++)
-                for (int c = 0; c < k; c++) Z[off + ((long)(k + a) * k) + c] = Zt[(c * mu) + a];
-
-            // Z_JJ −= Yᵀ Z_RJ: (c, d) −= Σ_a Y(a, c) Z_RJ(a, d), on the lower triangle (the only one read: by the
-            // gathers of Z_RR and by look-ups of (row ≥ column)); the upper triangle is its mirror.
-            for (int c = 0; c < k; c++)
-                for (int d = 0; d <= c; d++)
-                    Z[off + ((long)c * k) + d] -= DenseKernels.Dot(Yt.AsSpan(c * mu, mu), Zt.AsSpan(d * mu, mu), mu);
-            for (int c = 0; c < k; c++)
-                for (int d = c + 1; d < k; d++) Z[off + ((long)c * k) + d] = Z[off + ((long)d * k) + c];
-            pool.Return(T);
-            pool.Return(Yt);
-            pool.Return(Zt);
-            pool.Return(zrr);
+            copy = pool.Rent(m * k);
+            Array.Copy(Lall, off, copy, 0, (long)m * k);
+            L = copy;
+            lo0 = 0;
         }
-        return Z;
+
+        // T = L_JJ⁻ᵀ stored row-major: T(c, d) = (L_JJ⁻¹)(d, c), nonzero for d ≥ c.
+        var T = pool.Rent(k * k);
+        for (int c = 0; c < k; c++)
+        {
+            for (int d = 0; d < c; d++) T[(c * k) + d] = 0;
+            // column c of L_JJ⁻¹: solve L_JJ w = e_c, w(d) for d ≥ c
+            T[(c * k) + c] = 1.0 / L[lo0 + ((long)c * k) + c];
+            for (int d = c + 1; d < k; d++)
+            {
+                double v = 0;
+                for (int e = c; e < d; e++) v -= L[lo0 + ((long)d * k) + e] * T[(c * k) + e];
+                T[(c * k) + d] = v / L[lo0 + ((long)d * k) + d];
+            }
+        }
+
+        // Z_JJ ← (L_JJ Lᵀ_JJ)⁻¹ = L_JJ⁻ᵀ L_JJ⁻¹: entry (c, d) = Σ_e T(c, e) T(d, e).
+        for (int c = 0; c < k; c++)
+            for (int d = 0; d <= c; d++)
+            {
+                double v = DenseKernels.Dot(T.AsSpan((c * k) + c, k - c), T.AsSpan((d * k) + c, k - c), k - c);
+                Z[off + ((long)c * k) + d] = v;
+                Z[off + ((long)d * k) + c] = v;
+            }
+        if (mu == 0)
+        {
+            pool.Return(T);
+            if (copy is not null) pool.Return(copy);
+            return;
+        }
+
+        // Yᵀ (k×mu, row-major) with Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
+        var Yt = pool.Rent(k * mu);
+        for (int a = 0; a < mu; a++)
+        {
+            var la = new ReadOnlySpan<double>(L, checked((int)(lo0 + ((long)(k + a) * k))), k);
+            for (int c = 0; c < k; c++)
+                Yt[(c * mu) + a] = DenseKernels.Dot(la[c..], T.AsSpan((c * k) + c, k - c), k - c);
+        }
+        if (copy is not null) { pool.Return(copy); copy = null; }
+
+        // Z_RR gathered from the ancestors' blocks (symmetric, full).
+        var zrr = GatherZrr(sym, Z, r0 + k, mu);
+
+        // Z_RJ = −Z_RR Y, kept transposed: Zt(c, a) = −Σ_b Y(b, c) Z_RR(a, b).
+        var Zt = pool.Rent(k * mu);
+        void Rows(int lo, int hi)
+        {
+            // two rows of Z_RR by two columns of Y at a time, each product as DenseKernels.Dot computes it
+            int a = lo;
+            for (; a + 1 < hi; a += 2)
+            {
+                var za0 = zrr.AsSpan(a * mu, mu);
+                var za1 = zrr.AsSpan((a + 1) * mu, mu);
+                int c = 0;
+                for (; c + 1 < k; c += 2)
+                {
+                    DenseKernels.Dot2x2Exact(Yt.AsSpan(c * mu, mu), Yt.AsSpan((c + 1) * mu, mu), za0, za1, mu,
+                        out double s00, out double s01, out double s10, out double s11);
+                    Zt[(c * mu) + a] = -s00; Zt[(c * mu) + a + 1] = -s01;
+                    Zt[((c + 1) * mu) + a] = -s10; Zt[((c + 1) * mu) + a + 1] = -s11;
+                }
+                for (; c < k; c++)
+                {
+                    Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za0, mu);
+                    Zt[(c * mu) + a + 1] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za1, mu);
+                }
+            }
+            for (; a < hi; a++)
+            {
+                var za = zrr.AsSpan(a * mu, mu);
+                for (int c = 0; c < k; c++) Zt[(c * mu) + a] = -DenseKernels.Dot(Yt.AsSpan(c * mu, mu), za, mu);
+            }
+        }
+        if (!innerParallel || (double)mu * mu * k < 4e5 || Environment.ProcessorCount == 1) Rows(0, mu);
+        else
+        {
+            int parts = Math.Min(Environment.ProcessorCount * 4, mu);
+            Parallel.For(0, parts, p => Rows((int)((long)mu * p / parts), (int)((long)mu * (p + 1) / parts)));
+        }
+        for (int a = 0; a < mu; a++)
+            for (int c = 0; c < k; c++) Z[off + ((long)(k + a) * k) + c] = Zt[(c * mu) + a];
+
+        // Z_JJ −= Yᵀ Z_RJ: (c, d) −= Σ_a Y(a, c) Z_RJ(a, d), on the lower triangle (the only one read: by the
+        // gathers of Z_RR and by look-ups of (row ≥ column)); the upper triangle is its mirror.
+        for (int c = 0; c < k; c++)
+            for (int d = 0; d <= c; d++)
+                Z[off + ((long)c * k) + d] -= DenseKernels.Dot(Yt.AsSpan(c * mu, mu), Zt.AsSpan(d * mu, mu), mu);
+        for (int c = 0; c < k; c++)
+            for (int d = c + 1; d < k; d++) Z[off + ((long)c * k) + d] = Z[off + ((long)d * k) + c];
+        pool.Return(T);
+        pool.Return(Yt);
+        pool.Return(Zt);
+        pool.Return(zrr);
+    }
+
+    /// <summary>
+    /// The split of the supernodal tree for two threads: a top part visited first on one thread (from the root
+    /// down), then two bins of disjoint subtrees of about equal work.
+    /// </summary>
+    internal sealed class TreeSplit
+    {
+        private TreeSplit(int[] top, List<int>[] bins, double topWork, double[] binWork)
+        {
+            Top = top; Bins = bins; TopWork = topWork; BinWork = binWork;
+        }
+
+        /// <summary>Estimated flops of the top part (one thread).</summary>
+        public double TopWork { get; }
+
+        /// <summary>Estimated flops of each bin.</summary>
+        public double[] BinWork { get; }
+
+        /// <summary>The supernodes of the top part, parents before children.</summary>
+        public int[] Top { get; }
+
+        /// <summary>Two lists of subtree roots.</summary>
+        public List<int>[] Bins { get; }
+
+        /// <summary>Work estimate of one supernode's Z (flops of its dense products).</summary>
+        internal static double Work(SymbolicCholesky sym, int s)
+        {
+            double k = sym.SnStart[s + 1] - sym.SnStart[s];
+            double mu = sym.SnRowStart[s + 1] - sym.SnRowStart[s] - k;
+            return (k * k * k) + (2 * k * k * mu) + (k * mu * mu) + mu;
+        }
+
+        /// <summary>The split, or null when the tree is too small or cannot be balanced (then one thread).</summary>
+        public static TreeSplit? Plan(SymbolicCholesky sym, double minimumWork)
+        {
+            int ns = sym.SupernodeCount;
+            if (ns < 2) return null;
+            var work = new double[ns];
+            for (int s = 0; s < ns; s++) work[s] += Work(sym, s);
+            // children come before their parents in the supernode numbering (the loop from the root down relies on it)
+            for (int s = 0; s < ns; s++)
+            {
+                int p = sym.SnParent[s];
+                if (p >= 0)
+                {
+                    if (p <= s) return null;
+                    work[p] += work[s];
+                }
+            }
+            double total = 0;
+            var frontier = new List<int>();
+            for (int s = 0; s < ns; s++)
+                if (sym.SnParent[s] < 0) { frontier.Add(s); total += work[s]; }
+            if (total < minimumWork) return null;
+            var top = new List<int>();
+            double topWork = 0;
+            TreeSplit? best = null;
+            double bestCost = 0.9 * total; // worth two threads only below this
+            for (int step = 0; step < 64 && frontier.Count > 0; step++)
+            {
+                // largest first into the lighter bin (ties by index: a deterministic split)
+                frontier.Sort((x, y) => work[y] != work[x] ? work[y].CompareTo(work[x]) : x.CompareTo(y));
+                var bins = new[] { new List<int>(), new List<int>() };
+                double w0 = 0, w1 = 0;
+                foreach (int s in frontier)
+                    if (w0 <= w1) { bins[0].Add(s); w0 += work[s]; }
+                    else { bins[1].Add(s); w1 += work[s]; }
+                // the time on two threads, in flops: the top part's large fronts share their rows between the
+                // threads (counted at 0.6 of their work), then the heavier bin
+                double cost = (0.6 * topWork) + Math.Max(w0, w1);
+                if (bins[1].Count > 0 && cost < bestCost)
+                {
+                    best = new TreeSplit([.. top], bins, topWork, [w0, w1]);
+                    bestCost = cost;
+                }
+                if (Math.Max(w0, w1) <= 0.51 * (w0 + w1) || topWork > 0.5 * total) break;
+                int big = frontier[0];
+                frontier.RemoveAt(0);
+                top.Add(big);
+                topWork += Work(sym, big);
+                for (int c = sym.SnChildHead[big]; c >= 0; c = sym.SnChildNext[c]) frontier.Add(c);
+            }
+            return best;
+        }
     }
 
     /// <summary>The dense symmetric Z_RR for the sorted rows R = SnRows[rStart .. rStart + mu).</summary>

@@ -6,6 +6,12 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// Immutable after construction; the selected inverse is computed once, on the first request, thread-safely.
 /// </summary>
 /// <remarks>
+/// A large factor made by <see cref="Factorize"/> computes its selected inverse in place (Z overwrites L; see
+/// <see cref="InPlaceCovariance"/>): the adjuster and the statistics ask for entries on the pattern, and a solve
+/// asked afterwards (an observation set aside, external reliability, an entry off the pattern, the diagnosis)
+/// first factorises N again from the same rows and weights, which gives L bit for bit.
+/// </remarks>
+/// <remarks>
 /// <see cref="InverseEntry"/> is exact (to rounding) on the pattern of L: any (i, j) of unknowns that share a
 /// design row or weight block, or that share a point's group when points are kept together by the ordering, lies
 /// on it. An entry off the pattern is computed by one solve N x = e_j (O(nnz(L))) and the last such column is
@@ -15,15 +21,37 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
 {
     private double[] _l;
     private readonly double[] _scale;
+    private readonly IReadOnlyList<SparseRow>? _rows;
+    private readonly WeightMatrix? _weights;
+    private bool _recycled;
+    private bool _overwritten; // L's storage holds Z: a solve factorises again
     private readonly object _gate = new();
     private double[]? _z;
     private int _cachedColumn = -1;
     private double[]? _cachedSolution;
 
-    internal SparseCholeskyFactor(SymbolicCholesky symbolic, double[] l, double[] scale)
+    internal SparseCholeskyFactor(SymbolicCholesky symbolic, double[] l, double[] scale,
+        IReadOnlyList<SparseRow>? rows = null, WeightMatrix? weights = null)
     {
-        Symbolic = symbolic; _l = l; _scale = scale;
+        Symbolic = symbolic; _l = l; _scale = scale; _rows = rows; _weights = weights;
     }
+
+    /// <summary>Factors with at least this many stored values compute their selected inverse in place by default
+    /// (64 MiB of L).</summary>
+    internal const long InPlaceMinimumEntries = 1L << 23;
+
+    /// <summary>Whether the selected inverse overwrites L (null: when the factor knows its rows and weights and
+    /// stores at least <see cref="InPlaceMinimumEntries"/> values). Set before the first request.</summary>
+    internal bool? InPlaceCovariance { get; set; }
+
+    /// <summary>Threads for the selected inversion (0: the processor count).</summary>
+    internal int InversionThreads { get; set; }
+
+    /// <summary>How many times L was factorised again after the selected inverse overwrote it.</summary>
+    internal int Refactorizations { get; private set; }
+
+    private bool InPlace => _rows is not null && _weights is not null &&
+        (InPlaceCovariance ?? Symbolic.StoredEntries >= InPlaceMinimumEntries);
 
     /// <summary>Factorises C = P (AᵀPA) Pᵀ on an analysed pattern.</summary>
     /// <param name="symbolic">The symbolic analysis of the pattern.</param>
@@ -37,7 +65,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
     {
         var values = assembly.Assemble(rows, weights);
         var (l, scale) = MultifrontalCholesky.Factorize(symbolic, values);
-        return new SparseCholeskyFactor(symbolic, l, scale);
+        return new SparseCholeskyFactor(symbolic, l, scale, rows, weights);
     }
 
     /// <summary>Hands this factor's storage to the next factorisation on the same pattern; the factor is unusable
@@ -47,18 +75,60 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
     {
         lock (_gate)
         {
-            if (_l.Length == 0) return;
+            if (_recycled) return;
+            _recycled = true;
             var storage = _l;
             _l = [];
             _z = null;
             _cachedSolution = null;
             _cachedColumn = -1;
-            Symbolic.OfferSpare(storage);
+            if (storage.Length > 0 && !_overwritten) Symbolic.OfferSpare(storage);
         }
     }
 
-    private double[] Live => _l.Length > 0 || Symbolic.StoredEntries == 0 ? _l :
-        throw new InvalidOperationException("this factor was recycled: its storage now belongs to another factor");
+    /// <summary>L: the factor's values, factorised again when the selected inverse has overwritten them.</summary>
+    private double[] Live
+    {
+        get
+        {
+            var l = _l;
+            if (l.Length > 0 || Symbolic.StoredEntries == 0) return l;
+            lock (_gate)
+            {
+                if (_recycled)
+                    throw new InvalidOperationException(
+                        "this factor was recycled: its storage now belongs to another factor");
+                if (_l.Length == 0 && _overwritten)
+                {
+                    // same assembly and factorisation as the first time: the same L, bit for bit
+                    var values = new NormalMatrixAssembly(Symbolic, _rows!).Assemble(_rows!, _weights!);
+                    _l = MultifrontalCholesky.Factorize(Symbolic, values).L;
+                    Refactorizations++;
+                }
+                return _l;
+            }
+        }
+    }
+
+    /// <summary>The selected inverse, computed on the first call (under the gate).</summary>
+    private double[] SelectedInverse()
+    {
+        var z = _z;
+        if (z is not null) return z;
+        lock (_gate)
+        {
+            if (_z is not null) return _z;
+            var l = Live;
+            if (InPlace && l.Length > 0)
+            {
+                _overwritten = true;
+                _l = [];
+                _z = SelectedInversion.Compute(Symbolic, l, inPlace: true, InversionThreads);
+            }
+            else _z = SelectedInversion.Compute(Symbolic, l, inPlace: false, InversionThreads);
+            return _z;
+        }
+    }
 
     /// <summary>The symbolic analysis this factor was computed on.</summary>
     public SymbolicCholesky Symbolic { get; }
@@ -99,9 +169,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
         int pi = Symbolic.InversePerm[i], pj = Symbolic.InversePerm[j];
         if (Symbolic.TryLocate(Math.Max(pi, pj), Math.Min(pi, pj), out long at))
         {
-            var z = _z;
-            if (z is null)
-                lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, Live);
+            var z = SelectedInverse();
             return z[at] * _scale[pi] * _scale[pj];
         }
         lock (_gate)
@@ -127,9 +195,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
     {
         int n = columns.Length;
         if (n > 16) return QuadraticFormByEntries(columns, values);
-        var z = _z;
-        if (z is null)
-            lock (_gate) z = _z ??= SelectedInversion.Compute(Symbolic, Live);
+        var z = SelectedInverse();
         Span<int> perm = stackalloc int[n];
         Span<long> at = stackalloc long[n * n];
         for (int p = 0; p < n; p++) perm[p] = Symbolic.InversePerm[columns[p]];
@@ -159,8 +225,5 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
 
     /// <summary>Computes the selected inverse now (otherwise done on the first <see cref="InverseEntry"/> on the
     /// pattern).</summary>
-    public void ComputeSelectedInverse()
-    {
-        lock (_gate) _z ??= SelectedInversion.Compute(Symbolic, Live);
-    }
+    public void ComputeSelectedInverse() => SelectedInverse();
 }

@@ -102,6 +102,7 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
     {
         private readonly int _unknowns;
         private readonly int[] _rowStart, _columns, _blockOfRowStart, _blockRows;
+        private readonly bool _blockIsRow; // one-row blocks in row order, kept as one array of weights
 
         public DesignPattern(int unknowns, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
         {
@@ -110,6 +111,8 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
             for (int s = 0; s < rows.Count; s++) _rowStart[s + 1] = _rowStart[s] + rows[s].Columns.Length;
             _columns = new int[_rowStart[rows.Count]];
             for (int s = 0; s < rows.Count; s++) rows[s].Columns.CopyTo(_columns, _rowStart[s]);
+            _blockIsRow = weights.BlockIsRow;
+            if (_blockIsRow) { _blockOfRowStart = []; _blockRows = []; return; }
             _blockOfRowStart = new int[weights.Blocks.Count + 1];
             for (int b = 0; b < weights.Blocks.Count; b++)
                 _blockOfRowStart[b + 1] = _blockOfRowStart[b] + weights.Blocks[b].Size;
@@ -121,16 +124,27 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
         public bool Matches(int unknowns, IReadOnlyList<SparseRow> rows, WeightMatrix weights)
         {
             if (unknowns != _unknowns || rows.Count + 1 != _rowStart.Length ||
-                weights.Blocks.Count + 1 != _blockOfRowStart.Length)
+                (_blockIsRow ? weights.Blocks.Count != rows.Count :
+                    weights.Blocks.Count + 1 != _blockOfRowStart.Length))
                 return false;
             for (int s = 0; s < rows.Count; s++)
                 if (!rows[s].Columns.AsSpan().SequenceEqual(_columns.AsSpan(_rowStart[s],
                     _rowStart[s + 1] - _rowStart[s])))
                     return false;
+            if (_blockIsRow) return BlocksAreRows(weights);
             for (int b = 0; b < weights.Blocks.Count; b++)
                 if (!weights.Blocks[b].Rows.AsSpan().SequenceEqual(_blockRows.AsSpan(_blockOfRowStart[b],
                     _blockOfRowStart[b + 1] - _blockOfRowStart[b])))
                     return false;
+            return true;
+        }
+
+        /// <summary>True when block b is the one row b, for every b.</summary>
+        private static bool BlocksAreRows(WeightMatrix weights)
+        {
+            if (weights.BlockIsRow) return true;
+            for (int b = 0; b < weights.Blocks.Count; b++)
+                if (weights.Blocks[b].Rows is not [var r] || r != b) return false;
             return true;
         }
     }
