@@ -93,14 +93,6 @@ internal static class CovarianceProbe
             Console.WriteLine(string.Create(inv, $"run {run + 1}: {u} unknowns, {rows.Count} rows, " +
                 $"{sym.SupernodeCount} supernodes, nnz(L) {sym.FactorNonZeros}, stored {sym.StoredEntries}; " +
                 $"check {sum:R} {analysis.RedundancySum:R}; load average {ReadingProbe.LoadAverage()}"));
-            var split = SelectedInversion.TreeSplit.Plan(sym, SelectedInversion.TreeParallelWork);
-            if (split is not null)
-            {
-                double all = split.TopWork + split.BinWork[0] + split.BinWork[1];
-                Console.WriteLine(string.Create(inv, $"selected inverse, estimated flops {all:G3}: top of the tree " +
-                    $"{split.Top.Length} supernodes {100 * split.TopWork / all:F1}%, subtrees on two threads " +
-                    $"{100 * split.BinWork[0] / all:F1}% + {100 * split.BinWork[1] / all:F1}%"));
-            }
             clock.Print(30, total: false);
             if (run > 0) best.Add(clock.Laps);
         }

@@ -53,7 +53,7 @@ internal static class MultifrontalCholesky
         bool rowsInParallel = Environment.ProcessorCount > 1;
 
         var schedule = workers > 1 && ns > 1 ? sym.ScheduleFor(workers) : null;
-        if (schedule is null || schedule.TotalWork < minimumWork || !(schedule.CriticalPath < 0.9 * schedule.TotalWork))
+        if (schedule is null || !schedule.Worthwhile(minimumWork))
         {
             var scratch = new FrontScratch(n, sym.LargestFront);
             for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, scratch, rowsInParallel);

@@ -16,7 +16,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// </remarks>
 internal static class SelectedInversion
 {
-    /// <summary>Below this many estimated flops the supernodes are visited on one thread.</summary>
+    /// <summary>Below this much estimated work (<see cref="SubtreeSchedule.TotalWork"/>) the supernodes are visited
+    /// on one thread.</summary>
     internal const double TreeParallelWork = 2e7;
 
     /// <summary>Z on the supernodal layout of L (rows 0..k−1 of each block: Z_JJ, full; rows k..m−1: Z_RJ), in a
@@ -41,29 +42,23 @@ internal static class SelectedInversion
         // every entry is written below
         var Z = inPlace ? L : GC.AllocateUninitializedArray<double>(L.Length);
         if (threads <= 0) threads = Environment.ProcessorCount;
-        var plan = threads >= 2 ? TreeSplit.Plan(sym, parallelWork) : null;
-        if (plan is null)
+        // the split of the factorisation (SubtreeSchedule): the top part first, parents before children, then
+        // each set's subtrees, from each root down (in postorder a subtree is first..root, so descending order
+        // visits parents before children; any such order gives the same entries)
+        var schedule = threads >= 2 && sym.SupernodeCount > 1 ? sym.ScheduleFor(threads) : null;
+        if (schedule is null || !schedule.Worthwhile(parallelWork))
         {
             for (int s = sym.SupernodeCount - 1; s >= 0; s--) Supernode(sym, L, Z, s, inPlace, innerParallel: true);
             return Z;
         }
-        foreach (int s in plan.Top) Supernode(sym, L, Z, s, inPlace, innerParallel: true);
-        void Bin(int b)
+        for (int t = schedule.Top.Length - 1; t >= 0; t--)
+            Supernode(sym, L, Z, schedule.Top[t], inPlace, innerParallel: true);
+        Parallel.For(0, schedule.Workers, b =>
         {
-            var stack = new Stack<int>();
-            foreach (int root in plan.Bins[b])
-            {
-                // parents before children: any such order gives the same entries
-                stack.Push(root);
-                while (stack.Count > 0)
-                {
-                    int s = stack.Pop();
-                    Supernode(sym, L, Z, s, inPlace, innerParallel: false);
-                    for (int c = sym.SnChildHead[s]; c >= 0; c = sym.SnChildNext[c]) stack.Push(c);
-                }
-            }
-        }
-        Parallel.Invoke(() => Bin(0), () => Bin(1));
+            var set = schedule.Sets[b];
+            for (int i = set.Length - 2; i >= 0; i -= 2)
+                for (int s = set[i + 1]; s >= set[i]; s--) Supernode(sym, L, Z, s, inPlace, innerParallel: false);
+        });
         return Z;
     }
 
@@ -182,91 +177,6 @@ internal static class SelectedInversion
         pool.Return(Yt);
         pool.Return(Zt);
         pool.Return(zrr);
-    }
-
-    /// <summary>
-    /// The split of the supernodal tree for two threads: a top part visited first on one thread (from the root
-    /// down), then two bins of disjoint subtrees of about equal work.
-    /// </summary>
-    internal sealed class TreeSplit
-    {
-        private TreeSplit(int[] top, List<int>[] bins, double topWork, double[] binWork)
-        {
-            Top = top; Bins = bins; TopWork = topWork; BinWork = binWork;
-        }
-
-        /// <summary>Estimated flops of the top part (one thread).</summary>
-        public double TopWork { get; }
-
-        /// <summary>Estimated flops of each bin.</summary>
-        public double[] BinWork { get; }
-
-        /// <summary>The supernodes of the top part, parents before children.</summary>
-        public int[] Top { get; }
-
-        /// <summary>Two lists of subtree roots.</summary>
-        public List<int>[] Bins { get; }
-
-        /// <summary>Work estimate of one supernode's Z (flops of its dense products).</summary>
-        internal static double Work(SymbolicCholesky sym, int s)
-        {
-            double k = sym.SnStart[s + 1] - sym.SnStart[s];
-            double mu = sym.SnRowStart[s + 1] - sym.SnRowStart[s] - k;
-            return (k * k * k) + (2 * k * k * mu) + (k * mu * mu) + mu;
-        }
-
-        /// <summary>The split, or null when the tree is too small or cannot be balanced (then one thread).</summary>
-        public static TreeSplit? Plan(SymbolicCholesky sym, double minimumWork)
-        {
-            int ns = sym.SupernodeCount;
-            if (ns < 2) return null;
-            var work = new double[ns];
-            for (int s = 0; s < ns; s++) work[s] += Work(sym, s);
-            // children come before their parents in the supernode numbering (the loop from the root down relies on it)
-            for (int s = 0; s < ns; s++)
-            {
-                int p = sym.SnParent[s];
-                if (p >= 0)
-                {
-                    if (p <= s) return null;
-                    work[p] += work[s];
-                }
-            }
-            double total = 0;
-            var frontier = new List<int>();
-            for (int s = 0; s < ns; s++)
-                if (sym.SnParent[s] < 0) { frontier.Add(s); total += work[s]; }
-            if (total < minimumWork) return null;
-            var top = new List<int>();
-            double topWork = 0;
-            TreeSplit? best = null;
-            double bestCost = 0.9 * total; // worth two threads only below this
-            for (int step = 0; step < 64 && frontier.Count > 0; step++)
-            {
-                // largest first into the lighter bin (ties by index: a deterministic split)
-                frontier.Sort((x, y) => work[y] != work[x] ? work[y].CompareTo(work[x]) : x.CompareTo(y));
-                var bins = new[] { new List<int>(), new List<int>() };
-                double w0 = 0, w1 = 0;
-                foreach (int s in frontier)
-                    if (w0 <= w1) { bins[0].Add(s); w0 += work[s]; }
-                    else { bins[1].Add(s); w1 += work[s]; }
-                // the time on two threads, in flops: the top part's large fronts share their rows between the
-                // threads (counted at 0.6 of their work), then the heavier bin
-                double cost = (0.6 * topWork) + Math.Max(w0, w1);
-                if (bins[1].Count > 0 && cost < bestCost)
-                {
-                    best = new TreeSplit([.. top], bins, topWork, [w0, w1]);
-                    bestCost = cost;
-                }
-                if (Math.Max(w0, w1) <= 0.51 * (w0 + w1) || topWork > 0.5 * total) break;
-                int big = frontier[0];
-                frontier.RemoveAt(0);
-                top.Add(big);
-                topWork += Work(sym, big);
-                for (int c = sym.SnChildHead[big]; c >= 0; c = sym.SnChildNext[c]) frontier.Add(c);
-            }
-            return best;
-        }
     }
 
     /// <summary>The dense symmetric Z_RR for the sorted rows R = SnRows[rStart .. rStart + mu).</summary>

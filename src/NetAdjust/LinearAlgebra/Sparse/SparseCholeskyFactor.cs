@@ -47,6 +47,9 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
     /// <summary>Threads for the selected inversion (0: the processor count).</summary>
     internal int InversionThreads { get; set; }
 
+    /// <summary>Estimated work below which the selected inversion keeps the tree on one thread.</summary>
+    internal double InversionParallelWork { get; set; } = SelectedInversion.TreeParallelWork;
+
     /// <summary>How many times L was factorised again after the selected inverse overwrote it.</summary>
     internal int Refactorizations { get; private set; }
 
@@ -123,9 +126,9 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
             {
                 _overwritten = true;
                 _l = [];
-                _z = SelectedInversion.Compute(Symbolic, l, inPlace: true, InversionThreads);
+                _z = SelectedInversion.Compute(Symbolic, l, inPlace: true, InversionThreads, InversionParallelWork);
             }
-            else _z = SelectedInversion.Compute(Symbolic, l, inPlace: false, InversionThreads);
+            else _z = SelectedInversion.Compute(Symbolic, l, inPlace: false, InversionThreads, InversionParallelWork);
             return _z;
         }
     }

@@ -44,6 +44,11 @@ internal sealed class SubtreeSchedule
     /// <summary>Estimated critical path: the largest set plus the top part.</summary>
     public double CriticalPath => SetWork.Max() + TopWork;
 
+    /// <summary>True when the tree-level split is worth its threads: the work reaches <paramref name="minimumWork"/>
+    /// (below it the hand-over costs more than it saves) and the critical path is under 90 % of the work.</summary>
+    /// <param name="minimumWork">The least estimated work for a split.</param>
+    public bool Worthwhile(double minimumWork) => TotalWork >= minimumWork && CriticalPath < 0.9 * TotalWork;
+
     /// <summary>Splits the tree of an analysis for the given number of workers (at least 2).</summary>
     /// <param name="sym">The symbolic analysis.</param>
     /// <param name="workers">Number of concurrent sets.</param>

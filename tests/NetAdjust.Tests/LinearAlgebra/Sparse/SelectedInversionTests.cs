@@ -43,7 +43,7 @@ public class SelectedInversionTests
     {
         var (u, rows, w) = Grid(24, 5);
         var (sym, l) = Factor(u, rows, w);
-        Assert.NotNull(SelectedInversion.TreeSplit.Plan(sym, 0)); // the two-thread path is taken below
+        Assert.True(sym.ScheduleFor(2).Worthwhile(0)); // the two-thread path is taken below
         var reference = SelectedInversion.Compute(sym, l, inPlace: false, threads: 1);
         var twoThreads = SelectedInversion.Compute(sym, l, inPlace: false, threads: 2, parallelWork: 0);
         Assert.Equal(reference, twoThreads);
@@ -61,10 +61,11 @@ public class SelectedInversionTests
         var (u, rows, w) = Grid(18, 9);
         var graph = AdjacencyGraph.FromNormalEquations(u, rows, w);
         var sym = SymbolicCholesky.Analyze(graph, ApproximateMinimumDegree.Order(graph));
-        Assert.NotNull(SelectedInversion.TreeSplit.Plan(sym, 0));
+        Assert.True(sym.ScheduleFor(2).Worthwhile(0)); // the two-thread path is taken below
         var factor = SparseCholeskyFactor.Factorize(sym, new NormalMatrixAssembly(sym, rows), rows, w);
         factor.InPlaceCovariance = true;
         factor.InversionThreads = 2;
+        factor.InversionParallelWork = 0;
         // MathNet's dense inverse of N = AᵀPA as the independent oracle
         var inv = SparseEngineTests.DenseNormal(u, rows, w).Inverse();
         int checkedEntries = 0;
