@@ -45,8 +45,12 @@ internal static class SolverChoice
     {
         var stationOfSet = new Dictionary<string, string>(StringComparer.Ordinal);
         var stationOfGroup = new Dictionary<string, string>(StringComparer.Ordinal);
+        string? lastSet = null; // the directions of a set usually follow one another: a repeat adds nothing
         foreach (var o in network.Observations)
-            if (o is DirectionObservation d) stationOfSet.TryAdd(d.SetId, d.Station);
+            if (o is DirectionObservation d)
+            {
+                if (d.SetId != lastSet) stationOfSet.TryAdd(lastSet = d.SetId, d.Station);
+            }
             else if (o is ZenithObservation { RefractionGroup: string g } z) stationOfGroup.TryAdd(g, z.From);
             else if (o is BaselineObservation { Frame: { } f } b) stationOfGroup.TryAdd("\u0001frame " + f.Id, b.From);
         var groupOf = new int[index.Count];

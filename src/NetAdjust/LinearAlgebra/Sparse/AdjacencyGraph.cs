@@ -48,6 +48,17 @@ internal sealed class AdjacencyGraph
         var cliqueVertices = new List<int>(rows.Count * 4);
         var mark = new int[unknownCount];
         Array.Fill(mark, -1);
+        if (weights.BlockIsRow)
+        {
+            // a diagonal P kept as one array: block b is row b (the same cliques, without making each block)
+            for (int b = 0; b < rows.Count; b++)
+            {
+                foreach (int c in rows[b].Columns)
+                    if (mark[c] != b) { mark[c] = b; cliqueVertices.Add(c); }
+                cliqueStart.Add(cliqueVertices.Count);
+            }
+            return FromCliques(unknownCount, cliqueStart, cliqueVertices);
+        }
         for (int b = 0; b < weights.Blocks.Count; b++)
         {
             foreach (int r in weights.Blocks[b].Rows)
