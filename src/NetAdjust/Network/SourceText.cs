@@ -10,23 +10,24 @@ namespace NetAdjust.Network;
 /// </summary>
 internal readonly struct SourceText : IEquatable<SourceText>
 {
-    /// <summary>The whole text (<see cref="_line"/> &lt; 0), or the file name.</summary>
+    /// <summary>The whole text (<see cref="_lineMark"/> = 0), or the file name.</summary>
     private readonly string? _text;
 
-    /// <summary>The line number after the file name, or −1 when <see cref="_text"/> is the whole text.</summary>
-    private readonly int _line;
+    /// <summary>The line number after the file name plus one, or 0 when <see cref="_text"/> is the whole text (so
+    /// that the default value is no text at all, as an observation made without a source has).</summary>
+    private readonly int _lineMark;
 
     /// <summary>A text as it is (null for none).</summary>
     public SourceText(string? text)
     {
         _text = text;
-        _line = -1;
+        _lineMark = 0;
     }
 
     private SourceText(string file, int line)
     {
         _text = file;
-        _line = line;
+        _lineMark = line + 1;
     }
 
     /// <summary>The text <c>file:line</c>, made when asked.</summary>
@@ -40,15 +41,17 @@ internal readonly struct SourceText : IEquatable<SourceText>
     }
 
     /// <summary>The text (a new string for a file and line each time it is asked), or null.</summary>
-    public string? Text => _line < 0 ? _text : string.Concat(_text, ":", _line.ToString(CultureInfo.InvariantCulture));
+    public string? Text => _lineMark == 0 ? _text
+        : string.Concat(_text, ":", (_lineMark - 1).ToString(CultureInfo.InvariantCulture));
 
     /// <inheritdoc />
     public bool Equals(SourceText other)
     {
-        if (_line < 0 && other._line < 0) return string.Equals(_text, other._text, StringComparison.Ordinal);
-        if (_line >= 0 && other._line >= 0)
-            return _line == other._line && string.Equals(_text, other._text, StringComparison.Ordinal);
-        var (text, file, line) = _line < 0 ? (_text, other._text!, other._line) : (other._text, _text!, _line);
+        if (_lineMark == 0 && other._lineMark == 0) return string.Equals(_text, other._text, StringComparison.Ordinal);
+        if (_lineMark > 0 && other._lineMark > 0)
+            return _lineMark == other._lineMark && string.Equals(_text, other._text, StringComparison.Ordinal);
+        var (text, file, line) = _lineMark == 0 ? (_text, other._text!, other._lineMark - 1)
+            : (other._text, _text!, _lineMark - 1);
         if (text is null) return false;
         Span<char> digits = stackalloc char[12];
         line.TryFormat(digits, out int n, default, CultureInfo.InvariantCulture);
@@ -62,12 +65,12 @@ internal readonly struct SourceText : IEquatable<SourceText>
     /// <summary>The hash code of the text (0 for none), made without the string for a file and line.</summary>
     public override int GetHashCode()
     {
-        if (_line < 0) return _text is null ? 0 : string.GetHashCode(_text.AsSpan());
+        if (_lineMark == 0) return _text is null ? 0 : string.GetHashCode(_text.AsSpan());
         int length = _text!.Length + 12;
         Span<char> chars = length <= 256 ? stackalloc char[length] : new char[length];
         _text.AsSpan().CopyTo(chars);
         chars[_text.Length] = ':';
-        _line.TryFormat(chars[(_text.Length + 1)..], out int n, default, CultureInfo.InvariantCulture);
+        (_lineMark - 1).TryFormat(chars[(_text.Length + 1)..], out int n, default, CultureInfo.InvariantCulture);
         return string.GetHashCode(chars[..(_text.Length + 1 + n)]);
     }
 
