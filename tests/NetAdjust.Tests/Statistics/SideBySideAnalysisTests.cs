@@ -18,10 +18,7 @@ public class SideBySideAnalysisTests
     [Fact]
     public void TheRelativePrecisionsOnASecondCoreGiveTheSameAnalysis()
     {
-        var net0 = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, 200, Seed: 7));
-        var obs = net0.Observations.ToArray();
-        obs[11] = obs[11] with { Excluded = true };
-        var net = new SurveyNetwork(net0.Name, net0.Points, obs);
+        var net = SetAsideNetworks.Plane(200, seed: 7, setAside: 11);
         var free = net.Points.Where(p => !p.IsFixed(Fixity.E)).Select(p => p.Id).ToList();
         var options = AnalysisOptions.Default with
         {
