@@ -8,6 +8,7 @@ namespace NetAdjust.Benchmarks;
 /// or the orderings against the reference AMD: <c>... -- orderings [plane|levels POINTS]...</c>;
 /// or the project reader's speed: <c>... -- reading [POINTS] [RUNS]</c> or <c>... -- reading FILE.yaml [RUNS]</c>;
 /// or the phases of the adjust command in process: <c>... -- command FILE [RUNS]</c>;
+/// or its writers one at a time: <c>... -- writers FILE [RUNS]</c>;
 /// or the work before the first iteration: <c>... -- setup FILE [RUNS] [DUMP]</c>;
 /// or where the adjustment's CPU time goes: <c>... -- iteration FILE [RUNS]</c>;
 /// or the sparse engine's share of it (factorisation, selected inverse, statistics): <c>... -- covariance FILE
@@ -23,6 +24,7 @@ public static class Program
         if (args.Length > 0 && args[0] == "orderings") { OrderingComparison.Run(args); return; }
         if (args.Length > 0 && args[0] == "reading") { ReadingProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "command") { CommandPhases.Run(args); return; }
+        if (args.Length > 0 && args[0] == "writers") { WritersProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "setup") { SetupPhases.Run(args); return; }
         if (args.Length > 0 && args[0] == "iteration") { IterationProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "covariance") { CovarianceProbe.Run(args); return; }

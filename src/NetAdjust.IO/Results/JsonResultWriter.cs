@@ -8,6 +8,7 @@ using NetAdjust.Adjustment.Datum;
 using NetAdjust.Adjustment;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
+using NetAdjust.IO.Text;
 
 namespace NetAdjust.IO.Results;
 
@@ -118,14 +119,14 @@ public static partial class JsonResultWriter
         j.WriteNumber(Keys.Observations, s.Observations);
         j.WriteNumber(Keys.Unknowns, s.Unknowns);
         j.WriteNumber(Keys.DegreesOfFreedom, s.DegreesOfFreedom);
-        j.WriteNumber(Keys.Vtpv, s.Vtpv);
-        j.WriteNumber(Keys.AprioriVarianceFactor, s.AprioriVarianceFactor);
+        Real(j, Keys.Vtpv, s.Vtpv);
+        Real(j, Keys.AprioriVarianceFactor, s.AprioriVarianceFactor);
         Num(j, Keys.VarianceFactor, s.VarianceFactor);
         Num(j, Keys.Sigma0, s.Sigma0);
         j.WriteNumber(Keys.Iterations, s.Iterations);
         j.WriteStartObject(Keys.GlobalTest);
-        j.WriteNumber(Keys.Alpha, g.Alpha);
-        j.WriteNumber(Keys.Statistic, g.Statistic);
+        Real(j, Keys.Alpha, g.Alpha);
+        Real(j, Keys.Statistic, g.Statistic);
         Num(j, Keys.Lower, g.Lower);
         Num(j, Keys.Upper, g.Upper);
         Bool(j, Keys.Passed, g.Passed);
@@ -154,8 +155,8 @@ public static partial class JsonResultWriter
             j.WriteStartObject();
             j.WriteString(Keys.Set, o.SetId);
             j.WriteString(Keys.Station, o.Station);
-            j.WriteNumber(Keys.Orientation, Angle.FromRadians(o.Orientation).Degrees);
-            j.WriteNumber(Keys.Sd, o.Sd * Angle.ArcsecondsPerRadian);
+            Real(j, Keys.Orientation, Angle.FromRadians(o.Orientation).Degrees);
+            Real(j, Keys.Sd, o.Sd * Angle.ArcsecondsPerRadian);
             j.WriteEndObject();
             sink.PassWhenFull();
         }
@@ -171,15 +172,15 @@ public static partial class JsonResultWriter
             j.WriteStartObject();
             j.WriteString(Keys.From, x.From);
             j.WriteString(Keys.To, x.To);
-            j.WriteNumber(Keys.A, x.Ellipse.A);
-            j.WriteNumber(Keys.B, x.Ellipse.B);
-            j.WriteNumber(Keys.Azimuth, x.Ellipse.AzimuthDegrees);
-            j.WriteNumber(Keys.A95, x.Confidence.A);
-            j.WriteNumber(Keys.B95, x.Confidence.B);
-            j.WriteNumber(Keys.Distance, x.Distance);
-            j.WriteNumber(Keys.SdDistance, x.SdDistance);
+            Real(j, Keys.A, x.Ellipse.A);
+            Real(j, Keys.B, x.Ellipse.B);
+            Real(j, Keys.Azimuth, x.Ellipse.AzimuthDegrees);
+            Real(j, Keys.A95, x.Confidence.A);
+            Real(j, Keys.B95, x.Confidence.B);
+            Real(j, Keys.Distance, x.Distance);
+            Real(j, Keys.SdDistance, x.SdDistance);
             Num(j, Keys.Ratio, x.Ratio);
-            j.WriteNumber(Keys.SdAzimuth, x.SdAzimuth * Angle.ArcsecondsPerRadian);
+            Real(j, Keys.SdAzimuth, x.SdAzimuth * Angle.ArcsecondsPerRadian);
             j.WriteBoolean(Keys.Observed, x.Observed);
             j.WriteEndObject();
             sink.PassWhenFull();
@@ -192,9 +193,9 @@ public static partial class JsonResultWriter
             j.WriteStartObject();
             j.WriteString(Keys.From, x.From);
             j.WriteString(Keys.To, x.To);
-            j.WriteNumber(Keys.Dh, x.Difference);
-            j.WriteNumber(Keys.SdDh, x.SdDifference);
-            j.WriteNumber(Keys.Dh95, x.Confidence);
+            Real(j, Keys.Dh, x.Difference);
+            Real(j, Keys.SdDh, x.SdDifference);
+            Real(j, Keys.Dh95, x.Confidence);
             j.WriteBoolean(Keys.Observed, x.Observed);
             j.WriteEndObject();
             sink.PassWhenFull();
@@ -207,7 +208,7 @@ public static partial class JsonResultWriter
             j.WriteStartObject();
             j.WriteString(Keys.Point, x.PointId);
             j.WriteString(Keys.Component, ObservationLabels.ComponentKey(x.Component));
-            j.WriteNumber(Keys.Residual, x.Residual);
+            Real(j, Keys.Residual, x.Residual);
             Reliability(j, x.Test, 1.0);
             j.WriteEndObject();
             sink.PassWhenFull();
@@ -246,11 +247,11 @@ public static partial class JsonResultWriter
         if (pp.Ellipse is ErrorEllipse e && pp.Confidence is ErrorEllipse k)
         {
             j.WriteStartObject(Keys.Ellipse);
-            j.WriteNumber(Keys.A, e.A);
-            j.WriteNumber(Keys.B, e.B);
-            j.WriteNumber(Keys.Azimuth, e.AzimuthDegrees);
-            j.WriteNumber(Keys.A95, k.A);
-            j.WriteNumber(Keys.B95, k.B);
+            Real(j, Keys.A, e.A);
+            Real(j, Keys.B, e.B);
+            Real(j, Keys.Azimuth, e.AzimuthDegrees);
+            Real(j, Keys.A95, k.A);
+            Real(j, Keys.B95, k.B);
             j.WriteEndObject();
         }
         else j.WriteNull(Keys.Ellipse);
@@ -270,10 +271,10 @@ public static partial class JsonResultWriter
         j.WriteString(Keys.From, i.From);
         j.WriteString(Keys.To, i.To);
         if ((i as Network.DirectionObservation)?.SetId is string set) j.WriteString(Keys.Set, set);
-        j.WriteNumber(Keys.Observed, ObservationLabels.JsonValue(i.Kind, i.Value));
-        j.WriteNumber(Keys.Adjusted, ObservationLabels.JsonValue(i.Kind, o.Adjusted));
-        j.WriteNumber(Keys.Residual, o.Residual * k);
-        j.WriteNumber(Keys.Sd, i.StandardDeviation * k);
+        Real(j, Keys.Observed, ObservationLabels.JsonValue(i.Kind, i.Value));
+        Real(j, Keys.Adjusted, ObservationLabels.JsonValue(i.Kind, o.Adjusted));
+        Real(j, Keys.Residual, o.Residual * k);
+        Real(j, Keys.Sd, i.StandardDeviation * k);
         j.WriteStartObject(Keys.SdComponents);
         if (ResultReport.BudgetOf(o) is { } budget)
         {
@@ -283,15 +284,15 @@ public static partial class JsonResultWriter
             {
                 if (!names.Add(ct.Name))
                     throw new ArgumentException($"error budget of observation {o.Index + 1}: '{ct.Name}' twice");
-                j.WriteNumber(ct.Name, ct.Value * k);
+                Real(j, ct.Name, ct.Value * k);
             }
         }
-        else j.WriteNumber(Keys.Stated, i.StandardDeviation * k);
+        else Real(j, Keys.Stated, i.StandardDeviation * k);
         j.WriteEndObject();
-        j.WriteNumber(Keys.SdAdjusted, o.SdAdjusted * k);
+        Real(j, Keys.SdAdjusted, o.SdAdjusted * k);
         if (i.Source is string source) j.WriteString(Keys.Source, source);
         j.WriteBoolean(Keys.Excluded, i.Excluded);
-        if (i.SdFactor != 1.0) j.WriteNumber(Keys.SdFactor, i.SdFactor);
+        if (i.SdFactor != 1.0) Real(j, Keys.SdFactor, i.SdFactor);
         Reliability(j, row.Test, k);
         j.WriteEndObject();
     }
@@ -300,7 +301,7 @@ public static partial class JsonResultWriter
     /// written last in its object.</summary>
     private static void Reliability(Utf8JsonWriter j, ObservationTest t, double k)
     {
-        j.WriteNumber(Keys.Redundancy, t.Redundancy);
+        Real(j, Keys.Redundancy, t.Redundancy);
         Num(j, Keys.W, t.W);
         Num(j, Keys.Tau, t.Tau);
         Num(j, Keys.Mdb, t.Mdb * k);
@@ -314,20 +315,20 @@ public static partial class JsonResultWriter
     {
         j.WriteStartObject(Keys.Testing);
         j.WriteString(Keys.VarianceFactorBasis, a.Basis == VarianceFactorBasis.Known ? "known" : "estimated");
-        j.WriteNumber(Keys.VarianceFactorUsed, a.VarianceFactor);
-        j.WriteNumber(Keys.WAlpha, a.Options.WTestAlpha);
-        j.WriteNumber(Keys.WCritical, a.WCritical);
-        j.WriteNumber(Keys.TypeIIError, a.Options.TypeIIError);
-        j.WriteNumber(Keys.Delta0, a.Delta0);
-        j.WriteNumber(Keys.TauAlpha, a.Options.TauAlpha);
+        Real(j, Keys.VarianceFactorUsed, a.VarianceFactor);
+        Real(j, Keys.WAlpha, a.Options.WTestAlpha);
+        Real(j, Keys.WCritical, a.WCritical);
+        Real(j, Keys.TypeIIError, a.Options.TypeIIError);
+        Real(j, Keys.Delta0, a.Delta0);
+        Real(j, Keys.TauAlpha, a.Options.TauAlpha);
         j.WriteString(Keys.TauAdjustment, a.Options.TauAdjustment == MultipleTestAdjustment.Sidak ? "sidak"
             : "bonferroni");
         Num(j, Keys.TauCritical, a.TauCritical);
-        j.WriteNumber(Keys.Confidence, a.Options.ConfidenceLevel);
-        j.WriteNumber(Keys.EllipseScale, a.EllipseScale);
-        j.WriteNumber(Keys.IntervalScale, a.IntervalScale);
+        Real(j, Keys.Confidence, a.Options.ConfidenceLevel);
+        Real(j, Keys.EllipseScale, a.EllipseScale);
+        Real(j, Keys.IntervalScale, a.IntervalScale);
         j.WriteBoolean(Keys.ExternalReliabilityComputed, a.ExternalReliabilityComputed);
-        j.WriteNumber(Keys.RedundancySum, a.RedundancySum);
+        Real(j, Keys.RedundancySum, a.RedundancySum);
         j.WriteEndObject();
     }
 
@@ -341,7 +342,7 @@ public static partial class JsonResultWriter
         var j = sink.Json;
         j.WriteStartObject(Keys.Robust);
         j.WriteString(Keys.Method, rb.Method == RobustMethod.Huber ? "huber" : "danish");
-        j.WriteNumber(Keys.Tuning, rb.Tuning);
+        Real(j, Keys.Tuning, rb.Tuning);
         j.WriteNumber(Keys.Iterations, rb.Iterations);
         j.WriteBoolean(Keys.Converged, rb.Converged);
         j.WriteStartArray(Keys.Suspected);
@@ -352,7 +353,7 @@ public static partial class JsonResultWriter
         {
             j.WriteStartObject();
             j.WriteNumber(Keys.Index, i);
-            j.WriteNumber(Keys.WeightFactor, rb.WeightFactors[i]);
+            Real(j, Keys.WeightFactor, rb.WeightFactors[i]);
             Num(j, Keys.StandardisedResidual, rb.Standardised[i]);
             j.WriteEndObject();
             sink.PassWhenFull();
@@ -370,8 +371,31 @@ public static partial class JsonResultWriter
     /// <summary>A number member: the value when finite, else null (a missing or non-finite value).</summary>
     internal static void Num(Utf8JsonWriter j, JsonEncodedText name, double? v)
     {
-        if (v is double x && double.IsFinite(x)) j.WriteNumber(name, x);
+        if (v is double x && double.IsFinite(x)) Real(j, name, x);
         else j.WriteNull(name);
+    }
+
+    /// <summary>A number member, as <see cref="Utf8JsonWriter.WriteNumber(JsonEncodedText, double)"/> writes it (the
+    /// shortest text that reads back to the value), most values formatted by <see cref="NumberText"/>'s faster path.
+    /// </summary>
+    internal static void Real(Utf8JsonWriter j, JsonEncodedText name, double x)
+    {
+        j.WritePropertyName(name);
+        RealValue(j, x);
+    }
+
+    /// <inheritdoc cref="Real(Utf8JsonWriter, JsonEncodedText, double)"/>
+    internal static void Real(Utf8JsonWriter j, string name, double x)
+    {
+        j.WritePropertyName(name);
+        RealValue(j, x);
+    }
+
+    private static void RealValue(Utf8JsonWriter j, double x)
+    {
+        Span<byte> text = stackalloc byte[32];
+        if (NumberText.TryShortest(x, text, out int n)) j.WriteRawValue(text[..n], skipInputValidation: true);
+        else j.WriteNumberValue(x);
     }
 
     private static void Bool(Utf8JsonWriter j, JsonEncodedText name, bool? v)

@@ -10,8 +10,10 @@ namespace NetAdjust.IO.Results;
 /// </summary>
 internal sealed class JsonSink : IDisposable
 {
-    /// <summary>Bytes gathered before they are passed on.</summary>
-    public const int Threshold = 1 << 13;
+    /// <summary>Bytes gathered before they are passed on: as many as the buffer of the output files (64 KiB), so
+    /// that a buffered file stream writes each piece straight to the file instead of copying it into its buffer.
+    /// </summary>
+    public const int Threshold = 1 << 16;
 
     private readonly Stream _stream;
     private readonly ArrayBufferWriter<byte> _buffer = new(Threshold * 2);

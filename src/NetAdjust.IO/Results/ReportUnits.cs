@@ -1,5 +1,5 @@
-using System.Globalization;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 using NetAdjust.Units;
@@ -9,14 +9,11 @@ namespace NetAdjust.IO.Results;
 /// <summary>Formats values in the project's units for the human-readable reports (text, HTML, plot).</summary>
 internal sealed class ReportUnits
 {
-    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
     private readonly LengthPattern _len;
     private readonly AnglePattern _ang;
 
     private readonly Dictionary<ObservationKind, LengthPattern> _booked = [];
 
-    // The patterns' formats, made once (the patterns build them on every call); the same text as the patterns.
-    private readonly string _lenFormat, _angFormat, _azFormat;
     private readonly AnglePattern _az;
     private readonly string _halfTurn, _zeroAzimuth;
     private readonly double _radPerSmall;
@@ -26,29 +23,21 @@ internal sealed class ReportUnits
         Units = units;
         _len = new LengthPattern(units.Length, Decimals);
         _ang = new AnglePattern(units.Angle, units.Angle == AngleFormat.Dms ? 1 : 5);
-        _lenFormat = "F" + _len.Decimals;
-        _angFormat = "F" + _ang.Decimals;
         _az = units.Angle == AngleFormat.Dms ? new AnglePattern(AngleFormat.Dms, 0) : new AnglePattern(units.Angle, 2);
-        _azFormat = "F" + _az.Decimals;
         _halfTurn = _az.Format(Angle.FromRadians(Math.PI));
         _zeroAzimuth = _az.Format(Angle.FromRadians(0));
         _radPerSmall = units.AngleSd.RadiansPerUnit();
     }
 
-    /// <summary>The decimal formats of the length units (F4 for 4 decimals), made once.</summary>
-    private static readonly string[] FixedFormats = ["F0", "F1", "F2", "F3", "F4", "F5", "F6", "F7", "F8"];
-
     /// <summary>The text of a length as <see cref="LengthPattern.Format"/> writes it.</summary>
     private static string Format(LengthPattern p, double metres) =>
-        NetAdjust.Units.Length.FromMetres(metres).In(p.Unit)
-            .ToString(p.Decimals < FixedFormats.Length ? FixedFormats[p.Decimals] : "F" + p.Decimals, Inv);
+        NumberText.Fixed(NetAdjust.Units.Length.FromMetres(metres).In(p.Unit), p.Decimals);
 
-    /// <summary>The text of an angle as <see cref="AnglePattern.Format"/> of <paramref name="p"/> writes it, with
-    /// the decimal format <paramref name="format"/> of its decimals.</summary>
-    private static string Format(AnglePattern p, string format, double radians) => p.Style switch
+    /// <summary>The text of an angle as <see cref="AnglePattern.Format"/> of <paramref name="p"/> writes it.</summary>
+    private static string Format(AnglePattern p, double radians) => p.Style switch
     {
-        AngleFormat.Degrees => Angle.FromRadians(radians).Degrees.ToString(format, Inv),
-        AngleFormat.Gons => Angle.FromRadians(radians).Gons.ToString(format, Inv),
+        AngleFormat.Degrees => NumberText.Fixed(Angle.FromRadians(radians).Degrees, p.Decimals),
+        AngleFormat.Gons => NumberText.Fixed(Angle.FromRadians(radians).Gons, p.Decimals),
         _ => p.Format(Angle.FromRadians(radians)),
     };
 
@@ -119,12 +108,12 @@ internal sealed class ReportUnits
         // As AnglePattern.FormatDirection, which parses its text back to tell a value rounded up to a full turn:
         // only a direction within a hundredth of a radian of the full turn can be one, so only those are parsed.
         double reduced = Angle.Reduce0To2Pi(radians);
-        return reduced < (2 * Math.PI) - 0.01 ? Format(_ang, _angFormat, reduced)
+        return reduced < (2 * Math.PI) - 0.01 ? Format(_ang, reduced)
             : _ang.FormatDirection(Angle.FromRadians(radians));
     }
 
     /// <summary>A small angle (sd, residual) in arcsec or mgon, 2 decimals.</summary>
-    public string SmallAngle(double radians) => (radians / _radPerSmall).ToString("F2", Inv);
+    public string SmallAngle(double radians) => NumberText.Fixed(radians / _radPerSmall, 2);
 
     /// <summary>An observed or adjusted value of an observation.</summary>
     public string ObservationValue(ObservationKind kind, double si) =>
@@ -138,7 +127,7 @@ internal sealed class ReportUnits
     /// decimals).</summary>
     public string Azimuth(double radians)
     {
-        string text = Format(_az, _azFormat, radians);
+        string text = Format(_az, radians);
         // rounded up to a half turn (180-00-00, 200.00 gon): the axis points at 0; only an azimuth within a
         // hundredth of a radian of the half turn can round up to it, so only those are parsed back
         if (radians < Math.PI - 0.01 && text != _halfTurn) return text;
@@ -147,5 +136,5 @@ internal sealed class ReportUnits
     }
 
     /// <summary>Invariant fixed-point text.</summary>
-    public static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);
+    public static string F(double v, int decimals) => NumberText.Fixed(v, decimals);
 }

@@ -4,6 +4,7 @@ using NetAdjust.Observations;
 using NetAdjust.Procedures;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using NetAdjust.Statistics;
 using NetAdjust.Units;
@@ -38,7 +39,7 @@ internal static class StatisticsReport
         string Len(double? m) => units.Length(m);
         string Small(Observation o, double? si) =>
             si is double x && double.IsFinite(x) ? units.ObservationSmall(o.Kind, x) : "-";
-        string Num(double? v, int d) => v is double x && double.IsFinite(x) ? x.ToString(Fixed(d), Inv) : "-";
+        string Num(double? v, int d) => v is double x && double.IsFinite(x) ? NumberText.Fixed(x, d) : "-";
         // azimuths in the project's angle format, as in the coordinate table and the plot
         string azUnit = u.Angle switch { AngleFormat.Dms => "d-mm-ss", AngleFormat.Gons => "gon", _ => "deg" };
         string Az(double rad) => units.Azimuth(rad);
@@ -348,13 +349,7 @@ internal static class StatisticsReport
         _ => RowState.Normal,
     };
 
-    private static string F(double v, int d) => v.ToString(Fixed(d), Inv);
-
-    /// <summary>The format of <paramref name="d"/> decimals ("F2"), made once for the usual decimals.</summary>
-    private static string Fixed(int d) => d switch
-    {
-        0 => "F0", 1 => "F1", 2 => "F2", 3 => "F3", 4 => "F4", _ => "F" + d,
-    };
+    private static string F(double v, int d) => NumberText.Fixed(v, d);
 
     private static IEnumerable<string> Wrap(string text, int width)
     {

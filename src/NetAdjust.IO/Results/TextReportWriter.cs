@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.IO.Project;
+using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using NetAdjust.Units;
 
@@ -147,7 +148,7 @@ public static class TextReportWriter
         TextChunks.Drain(sb, output);
     }
 
-    private static string F(double v, int decimals) => v.ToString("F" + decimals, Inv);
+    private static string F(double v, int decimals) => NumberText.Fixed(v, decimals);
 
     /// <summary>Cuts text to a column width, marking the cut with a tilde.</summary>
     internal static string Clip(string s, int w) => s.Length <= w ? s : s[..(w - 1)] + "~";
