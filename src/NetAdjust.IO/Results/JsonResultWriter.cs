@@ -133,10 +133,12 @@ public static partial class JsonResultWriter
         j.WriteEndObject();
         j.WriteEndObject();
 
+        var element = new JsonRow(); // one buffer for the objects of the long lists
         j.WriteStartArray(Keys.Points);
         foreach (var row in report.Points.Rows)
         {
-            Point(j, r, row);
+            Point(element.Start(j), r, row);
+            element.WriteTo(j);
             sink.PassWhenFull();
         }
         j.WriteEndArray();
@@ -144,7 +146,8 @@ public static partial class JsonResultWriter
         j.WriteStartArray(Keys.Observations);
         foreach (var row in report.Observations.Rows)
         {
-            Observation(j, row);
+            Observation(element.Start(j), row);
+            element.WriteTo(j);
             sink.PassWhenFull();
         }
         j.WriteEndArray();
@@ -169,20 +172,20 @@ public static partial class JsonResultWriter
         j.WriteStartArray(Keys.Relative);
         foreach (var x in r.Analysis.Relative)
         {
-            j.WriteStartObject();
-            j.WriteString(Keys.From, x.From);
-            j.WriteString(Keys.To, x.To);
-            Real(j, Keys.A, x.Ellipse.A);
-            Real(j, Keys.B, x.Ellipse.B);
-            Real(j, Keys.Azimuth, x.Ellipse.AzimuthDegrees);
-            Real(j, Keys.A95, x.Confidence.A);
-            Real(j, Keys.B95, x.Confidence.B);
-            Real(j, Keys.Distance, x.Distance);
-            Real(j, Keys.SdDistance, x.SdDistance);
-            Num(j, Keys.Ratio, x.Ratio);
-            Real(j, Keys.SdAzimuth, x.SdAzimuth * Angle.ArcsecondsPerRadian);
-            j.WriteBoolean(Keys.Observed, x.Observed);
-            j.WriteEndObject();
+            var e = element.Start(j);
+            e.WriteString(Keys.From, x.From);
+            e.WriteString(Keys.To, x.To);
+            e.Real(Keys.A, x.Ellipse.A);
+            e.Real(Keys.B, x.Ellipse.B);
+            e.Real(Keys.Azimuth, x.Ellipse.AzimuthDegrees);
+            e.Real(Keys.A95, x.Confidence.A);
+            e.Real(Keys.B95, x.Confidence.B);
+            e.Real(Keys.Distance, x.Distance);
+            e.Real(Keys.SdDistance, x.SdDistance);
+            e.Num(Keys.Ratio, x.Ratio);
+            e.Real(Keys.SdAzimuth, x.SdAzimuth * Angle.ArcsecondsPerRadian);
+            e.WriteBoolean(Keys.Observed, x.Observed);
+            e.WriteTo(j);
             sink.PassWhenFull();
         }
         j.WriteEndArray();
@@ -190,14 +193,14 @@ public static partial class JsonResultWriter
         j.WriteStartArray(Keys.RelativeHeights);
         foreach (var x in r.Analysis.RelativeHeights)
         {
-            j.WriteStartObject();
-            j.WriteString(Keys.From, x.From);
-            j.WriteString(Keys.To, x.To);
-            Real(j, Keys.Dh, x.Difference);
-            Real(j, Keys.SdDh, x.SdDifference);
-            Real(j, Keys.Dh95, x.Confidence);
-            j.WriteBoolean(Keys.Observed, x.Observed);
-            j.WriteEndObject();
+            var e = element.Start(j);
+            e.WriteString(Keys.From, x.From);
+            e.WriteString(Keys.To, x.To);
+            e.Real(Keys.Dh, x.Difference);
+            e.Real(Keys.SdDh, x.SdDifference);
+            e.Real(Keys.Dh95, x.Confidence);
+            e.WriteBoolean(Keys.Observed, x.Observed);
+            e.WriteTo(j);
             sink.PassWhenFull();
         }
         j.WriteEndArray();
@@ -205,12 +208,12 @@ public static partial class JsonResultWriter
         j.WriteStartArray(Keys.ControlTests);
         foreach (var x in r.Analysis.Control)
         {
-            j.WriteStartObject();
-            j.WriteString(Keys.Point, x.PointId);
-            j.WriteString(Keys.Component, ObservationLabels.ComponentKey(x.Component));
-            Real(j, Keys.Residual, x.Residual);
-            Reliability(j, x.Test, 1.0);
-            j.WriteEndObject();
+            var e = element.Start(j);
+            e.WriteString(Keys.Point, x.PointId);
+            e.WriteString(Keys.Component, ObservationLabels.ComponentKey(x.Component));
+            e.Real(Keys.Residual, x.Residual);
+            Reliability(e, x.Test, 1.0);
+            e.WriteTo(j);
             sink.PassWhenFull();
         }
         j.WriteEndArray();
@@ -227,54 +230,51 @@ public static partial class JsonResultWriter
         sink.Pass();
     }
 
-    private static void Point(Utf8JsonWriter j, AdjustmentResult r, PointRow row)
+    private static void Point(JsonRow j, AdjustmentResult r, PointRow row)
     {
         // The JSON keeps its documented a-priori standard deviations (docs/output-format.md), beside the
         // ellipse at the variance factor named under testing.variance_factor_basis.
         var p = row.Source;
         var pp = r.Analysis.Points[r.Network.IndexOf(p.Id)];
-        j.WriteStartObject();
         j.WriteString(Keys.Id, p.Id);
-        Num(j, Keys.E, p.E);
-        Num(j, Keys.N, p.N);
-        Num(j, Keys.H, p.H);
+        j.Num(Keys.E, p.E);
+        j.Num(Keys.N, p.N);
+        j.Num(Keys.H, p.H);
         j.WriteString(Keys.Fixed, row.Held);
         j.WriteString(Keys.Weighted, row.Weighted);
-        Num(j, Keys.SdE, p.SdE);
-        Num(j, Keys.SdN, p.SdN);
-        Num(j, Keys.SdH, p.SdH);
-        Num(j, Keys.CovEN, p.CovEN);
+        j.Num(Keys.SdE, p.SdE);
+        j.Num(Keys.SdN, p.SdN);
+        j.Num(Keys.SdH, p.SdH);
+        j.Num(Keys.CovEN, p.CovEN);
         if (pp.Ellipse is ErrorEllipse e && pp.Confidence is ErrorEllipse k)
         {
             j.WriteStartObject(Keys.Ellipse);
-            Real(j, Keys.A, e.A);
-            Real(j, Keys.B, e.B);
-            Real(j, Keys.Azimuth, e.AzimuthDegrees);
-            Real(j, Keys.A95, k.A);
-            Real(j, Keys.B95, k.B);
+            j.Real(Keys.A, e.A);
+            j.Real(Keys.B, e.B);
+            j.Real(Keys.Azimuth, e.AzimuthDegrees);
+            j.Real(Keys.A95, k.A);
+            j.Real(Keys.B95, k.B);
             j.WriteEndObject();
         }
         else j.WriteNull(Keys.Ellipse);
-        Num(j, Keys.SdH95, pp.HeightConfidence);
-        j.WriteEndObject();
+        j.Num(Keys.SdH95, pp.HeightConfidence);
     }
 
-    private static void Observation(Utf8JsonWriter j, ObservationRow row)
+    private static void Observation(JsonRow j, ObservationRow row)
     {
         var o = row.Source;
         var i = o.Input;
         double k = ObservationLabels.JsonSmallFactor(i.Kind);
-        j.WriteStartObject();
         j.WriteNumber(Keys.Index, o.Index);
         j.WriteString(Keys.Kind, ObservationLabels.Key(i.Kind));
         j.WriteString(Keys.At, ObservationLabels.Station(i));
         j.WriteString(Keys.From, i.From);
         j.WriteString(Keys.To, i.To);
         if ((i as Network.DirectionObservation)?.SetId is string set) j.WriteString(Keys.Set, set);
-        Real(j, Keys.Observed, ObservationLabels.JsonValue(i.Kind, i.Value));
-        Real(j, Keys.Adjusted, ObservationLabels.JsonValue(i.Kind, o.Adjusted));
-        Real(j, Keys.Residual, o.Residual * k);
-        Real(j, Keys.Sd, i.StandardDeviation * k);
+        j.Real(Keys.Observed, ObservationLabels.JsonValue(i.Kind, i.Value));
+        j.Real(Keys.Adjusted, ObservationLabels.JsonValue(i.Kind, o.Adjusted));
+        j.Real(Keys.Residual, o.Residual * k);
+        j.Real(Keys.Sd, i.StandardDeviation * k);
         j.WriteStartObject(Keys.SdComponents);
         if (ResultReport.BudgetOf(o) is { } budget)
         {
@@ -284,30 +284,29 @@ public static partial class JsonResultWriter
             {
                 if (!names.Add(ct.Name))
                     throw new ArgumentException($"error budget of observation {o.Index + 1}: '{ct.Name}' twice");
-                Real(j, ct.Name, ct.Value * k);
+                j.Real(ct.Name, ct.Value * k);
             }
         }
-        else Real(j, Keys.Stated, i.StandardDeviation * k);
+        else j.Real(Keys.Stated, i.StandardDeviation * k);
         j.WriteEndObject();
-        Real(j, Keys.SdAdjusted, o.SdAdjusted * k);
+        j.Real(Keys.SdAdjusted, o.SdAdjusted * k);
         if (i.Source is string source) j.WriteString(Keys.Source, source);
         j.WriteBoolean(Keys.Excluded, i.Excluded);
-        if (i.SdFactor != 1.0) Real(j, Keys.SdFactor, i.SdFactor);
+        if (i.SdFactor != 1.0) j.Real(Keys.SdFactor, i.SdFactor);
         Reliability(j, row.Test, k);
-        j.WriteEndObject();
     }
 
     /// <summary>The test members of an observation or control component (MDB in JSON units by <paramref name="k"/>),
     /// written last in its object.</summary>
-    private static void Reliability(Utf8JsonWriter j, ObservationTest t, double k)
+    private static void Reliability(JsonRow j, ObservationTest t, double k)
     {
-        Real(j, Keys.Redundancy, t.Redundancy);
-        Num(j, Keys.W, t.W);
-        Num(j, Keys.Tau, t.Tau);
-        Num(j, Keys.Mdb, t.Mdb * k);
-        Num(j, Keys.ExternalReliability, t.ExternalReliability);
+        j.Real(Keys.Redundancy, t.Redundancy);
+        j.Num(Keys.W, t.W);
+        j.Num(Keys.Tau, t.Tau);
+        j.Num(Keys.Mdb, t.Mdb * k);
+        j.Num(Keys.ExternalReliability, t.ExternalReliability);
         j.WriteString(Keys.ExternalReliabilityPoint, t.ExternalReliabilityPoint);
-        Num(j, Keys.BiasToNoise, t.BiasToNoiseRatio);
+        j.Num(Keys.BiasToNoise, t.BiasToNoiseRatio);
         j.WriteString(Keys.Flag, t.Flag.Name());
     }
 
