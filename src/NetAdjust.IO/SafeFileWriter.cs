@@ -159,7 +159,10 @@ public static class SafeFileWriter
         try
         {
             using var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None, BufferSize);
-            write(stream);
+            // the file is written on a thread of its own while the writer renders the rest
+            using var overlapped = new OverlappedWriteStream(stream);
+            write(overlapped);
+            overlapped.Complete();
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException)
         {
