@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.Runtime.ExceptionServices;
 
 namespace NetAdjust.IO;
@@ -21,8 +20,12 @@ internal sealed class OverlappedWriteStream : Stream
     public const int Depth = 4;
 
     private readonly Stream _inner;
-    private readonly BlockingCollection<(byte[] Block, int Count)> _full = new(Depth);
-    private readonly ConcurrentBag<byte[]> _free = [];
+    // Full blocks waiting and blocks written, under one lock; the two threads wait on it without spinning (a spin
+    // wait per block would take a core from the renderers on a two-core machine).
+    private readonly object _gate = new();
+    private readonly Queue<(byte[] Block, int Count)> _full = new();
+    private readonly Stack<byte[]> _free = new();
+    private bool _noMore;
     private readonly Thread _writer;
     private volatile ExceptionDispatchInfo? _failure;
     private byte[] _block;
@@ -40,14 +43,22 @@ internal sealed class OverlappedWriteStream : Stream
 
     private void WriteBlocks()
     {
-        foreach (var (block, count) in _full.GetConsumingEnumerable())
+        while (true)
         {
+            (byte[] Block, int Count) next;
+            lock (_gate)
+            {
+                while (_full.Count == 0 && !_noMore) Monitor.Wait(_gate);
+                if (_full.Count == 0) return;
+                next = _full.Dequeue();
+                Monitor.PulseAll(_gate);
+            }
             if (_failure is null)
             {
-                try { _inner.Write(block, 0, count); }
+                try { _inner.Write(next.Block, 0, next.Count); }
                 catch (Exception e) { _failure = ExceptionDispatchInfo.Capture(e); }
             }
-            _free.Add(block);
+            lock (_gate) _free.Push(next.Block);
         }
     }
 
@@ -74,9 +85,26 @@ internal sealed class OverlappedWriteStream : Stream
     private void HandOver()
     {
         _failure?.Throw();
-        _full.Add((_block, _count));
-        _block = _free.TryTake(out var free) ? free : new byte[BlockSize];
+        byte[]? free;
+        lock (_gate)
+        {
+            while (_full.Count >= Depth) Monitor.Wait(_gate);
+            _full.Enqueue((_block, _count));
+            Monitor.PulseAll(_gate);
+            _free.TryPop(out free);
+        }
+        _block = free ?? new byte[BlockSize];
         _count = 0;
+    }
+
+    private void NoMore()
+    {
+        lock (_gate)
+        {
+            _noMore = true;
+            Monitor.PulseAll(_gate);
+        }
+        _writer.Join();
     }
 
     /// <summary>Writes what is left, waits for the writing thread to finish and flushes the inner stream; throws the
@@ -86,8 +114,7 @@ internal sealed class OverlappedWriteStream : Stream
         if (_completed) return;
         if (_count > 0) HandOver();
         _completed = true;
-        _full.CompleteAdding();
-        _writer.Join();
+        NoMore();
         _failure?.Throw();
         _inner.Flush();
     }
@@ -99,10 +126,8 @@ internal sealed class OverlappedWriteStream : Stream
         {
             _completed = true;
             _failure ??= ExceptionDispatchInfo.Capture(new ObjectDisposedException(nameof(OverlappedWriteStream)));
-            _full.CompleteAdding();
-            _writer.Join();
+            NoMore();
         }
-        if (disposing) _full.Dispose();
         base.Dispose(disposing);
     }
 

@@ -48,48 +48,78 @@ internal static class NumberText
         int biased = (int)((bits >> 52) & 0x7FF);
         ulong fraction = (ulong)bits & 0xF_FFFF_FFFF_FFFFUL;
         if (biased == 0x7FF || biased == 0 && (fraction != 0 || negative)) return false; // NaN, ∞, subnormal, -0
-        UInt128 scaled;
-        if (biased == 0) scaled = 0;
-        else
+        ulong digits = 0; // the value times 10^decimals, rounded to an integer
+        if (biased != 0)
         {
             ulong m = fraction | (1UL << 52);
             int e = biased - 1075;
-            UInt128 x = (UInt128)m * Pow10[decimals];
+            ulong hi = Math.BigMul(m, Pow10[decimals], out ulong lo); // m·10^d < 2^80, exact
             if (e >= 0)
             {
-                if (e > 10) return false;
-                scaled = x << e;
+                if (e > 10 || hi != 0 || lo >> (63 - e) != 0) return false; // too large for 64 bits
+                digits = lo << e;
             }
-            else
-            {
-                int s = -e;
-                if (s > 100) scaled = 0; // x < 2^80: below a quarter of the last place
-                else
-                {
-                    UInt128 q = x >> s, r = x - (q << s), half = UInt128.One << (s - 1);
-                    if (r == half) return false; // a tie: the runtime's rule decides
-                    scaled = r > half ? q + 1 : q;
-                }
-            }
+            else if (!RoundShifted(hi, lo, -e, out digits)) return false;
         }
-        if (scaled > ulong.MaxValue || negative && scaled == 0) return false;
-        ulong digits = (ulong)scaled;
+        if (negative && digits == 0) return false; // "-0.00": the runtime's sign rule decides
+        // the digits from the right: the decimals, the point, then at least one digit of the whole part
+        Span<char> buffer = stackalloc char[24];
+        int at = buffer.Length;
+        for (int i = 0; i < decimals; i++)
+        {
+            ulong rest = digits / 10;
+            buffer[--at] = (char)('0' + (int)(digits - (rest * 10)));
+            digits = rest;
+        }
+        if (decimals > 0) buffer[--at] = '.';
+        do
+        {
+            ulong rest = digits / 10;
+            buffer[--at] = (char)('0' + (int)(digits - (rest * 10)));
+            digits = rest;
+        }
+        while (digits != 0);
         int pos = 0;
         if (negative) text[pos++] = '-';
-        ulong whole = digits / Pow10[decimals], part = digits - (whole * Pow10[decimals]);
-        if (!whole.TryFormat(text[pos..], out int w, default, Inv)) return false;
-        pos += w;
-        if (decimals > 0)
-        {
-            text[pos++] = '.';
-            for (int i = decimals - 1; i >= 0; i--)
-            {
-                text[pos + i] = (char)('0' + (int)(part % 10));
-                part /= 10;
-            }
-            pos += decimals;
-        }
+        buffer[at..].CopyTo(text[pos..]);
+        pos += buffer.Length - at;
         written = pos;
+        return true;
+    }
+
+    /// <summary>(hi:lo) / 2^s rounded to the nearest integer, for 0 &lt; s; false on an exact tie (the runtime's
+    /// rule decides) or a quotient beyond 64 bits.</summary>
+    private static bool RoundShifted(ulong hi, ulong lo, int s, out ulong rounded)
+    {
+        rounded = 0;
+        ulong q, qHigh, rHigh, rLow, halfHigh, halfLow;
+        if (s < 64)
+        {
+            q = (lo >> s) | (hi << (64 - s));
+            qHigh = hi >> s;
+            rHigh = 0;
+            rLow = lo & ((1UL << s) - 1);
+            halfHigh = 0;
+            halfLow = 1UL << (s - 1);
+        }
+        else if (s < 128)
+        {
+            q = s == 64 ? hi : hi >> (s - 64);
+            qHigh = 0;
+            rHigh = s == 64 ? 0 : hi & ((1UL << (s - 64)) - 1);
+            rLow = lo;
+            (halfHigh, halfLow) = s == 64 ? (0UL, 1UL << 63) : (1UL << (s - 65), 0UL);
+        }
+        else return true; // (hi:lo) < 2^80 lies below half of 2^s: rounds to 0
+        if (qHigh != 0) return false;
+        int order = rHigh != halfHigh ? rHigh.CompareTo(halfHigh) : rLow.CompareTo(halfLow);
+        if (order == 0) return false;
+        if (order > 0)
+        {
+            if (q == ulong.MaxValue) return false;
+            q++;
+        }
+        rounded = q;
         return true;
     }
 
