@@ -24,7 +24,7 @@ public static class Program
         if (args.Length > 0 && args[0] == "orderings") { OrderingComparison.Run(args); return; }
         if (args.Length > 0 && args[0] == "reading") { ReadingProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "command") { CommandPhases.Run(args); return; }
-        if (args.Length > 0 && args[0] == "writers") { WritersProbe.Run(args); return; }
+        if (args.Length > 0 && args[0] == "writers") { CommandPhases.Writers(args); return; }
         if (args.Length > 0 && args[0] == "setup") { SetupPhases.Run(args); return; }
         if (args.Length > 0 && args[0] == "iteration") { IterationProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "covariance") { CovarianceProbe.Run(args); return; }

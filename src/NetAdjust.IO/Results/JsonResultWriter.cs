@@ -134,23 +134,8 @@ public static partial class JsonResultWriter
         j.WriteEndObject();
 
         var element = new JsonRow(); // one buffer for the objects of the long lists
-        j.WriteStartArray(Keys.Points);
-        foreach (var row in report.Points.Rows)
-        {
-            Point(element.Start(j), r, row);
-            element.WriteTo(j);
-            sink.PassWhenFull();
-        }
-        j.WriteEndArray();
-
-        j.WriteStartArray(Keys.Observations);
-        foreach (var row in report.Observations.Rows)
-        {
-            Observation(element.Start(j), row);
-            element.WriteTo(j);
-            sink.PassWhenFull();
-        }
-        j.WriteEndArray();
+        List(sink, element, Keys.Points, report.Points.Rows, (e, row) => Point(e, r, row));
+        List(sink, element, Keys.Observations, report.Observations.Rows, Observation);
 
         j.WriteStartArray(Keys.Orientations);
         foreach (var o in r.Orientations)
@@ -169,10 +154,8 @@ public static partial class JsonResultWriter
         Section(j, Keys.Gnss, BaselineSection.Json(r, c));
         Testing(j, r.Analysis);
 
-        j.WriteStartArray(Keys.Relative);
-        foreach (var x in r.Analysis.Relative)
+        List(sink, element, Keys.Relative, r.Analysis.Relative, (e, x) =>
         {
-            var e = element.Start(j);
             e.WriteString(Keys.From, x.From);
             e.WriteString(Keys.To, x.To);
             e.Real(Keys.A, x.Ellipse.A);
@@ -185,38 +168,23 @@ public static partial class JsonResultWriter
             e.Num(Keys.Ratio, x.Ratio);
             e.Real(Keys.SdAzimuth, x.SdAzimuth * Angle.ArcsecondsPerRadian);
             e.WriteBoolean(Keys.Observed, x.Observed);
-            e.WriteTo(j);
-            sink.PassWhenFull();
-        }
-        j.WriteEndArray();
-
-        j.WriteStartArray(Keys.RelativeHeights);
-        foreach (var x in r.Analysis.RelativeHeights)
+        });
+        List(sink, element, Keys.RelativeHeights, r.Analysis.RelativeHeights, (e, x) =>
         {
-            var e = element.Start(j);
             e.WriteString(Keys.From, x.From);
             e.WriteString(Keys.To, x.To);
             e.Real(Keys.Dh, x.Difference);
             e.Real(Keys.SdDh, x.SdDifference);
             e.Real(Keys.Dh95, x.Confidence);
             e.WriteBoolean(Keys.Observed, x.Observed);
-            e.WriteTo(j);
-            sink.PassWhenFull();
-        }
-        j.WriteEndArray();
-
-        j.WriteStartArray(Keys.ControlTests);
-        foreach (var x in r.Analysis.Control)
+        });
+        List(sink, element, Keys.ControlTests, r.Analysis.Control, (e, x) =>
         {
-            var e = element.Start(j);
             e.WriteString(Keys.Point, x.PointId);
             e.WriteString(Keys.Component, ObservationLabels.ComponentKey(x.Component));
             e.Real(Keys.Residual, x.Residual);
             Reliability(e, x.Test, 1.0);
-            e.WriteTo(j);
-            sink.PassWhenFull();
-        }
-        j.WriteEndArray();
+        });
 
         Section(j, Keys.BlunderHunt, c.Hunt is BlunderHunt h ? Hunt(h) : null);
         Section(j, Keys.Diagnosis, DiagnosisOutput.Json(report));
@@ -228,6 +196,22 @@ public static partial class JsonResultWriter
         Section(j, Keys.Standards, ResultJson.Standards.Of(c.Standards));
         j.WriteEndObject();
         sink.Pass();
+    }
+
+    /// <summary>A long list of the document: one object per item, rendered by <paramref name="element"/> and passed
+    /// on to the stream as the list grows.</summary>
+    private static void List<T>(JsonSink sink, JsonRow element, JsonEncodedText name, IEnumerable<T> items,
+        Action<JsonRow, T> write)
+    {
+        var j = sink.Json;
+        j.WriteStartArray(name);
+        foreach (var item in items)
+        {
+            write(element.Start(j), item);
+            element.WriteTo(j);
+            sink.PassWhenFull();
+        }
+        j.WriteEndArray();
     }
 
     private static void Point(JsonRow j, AdjustmentResult r, PointRow row)

@@ -331,9 +331,9 @@ internal static class NumberText
             ulong output;
             if (vmIsTrailingZeros || vrIsTrailingZeros)
             {
-                while (vp / 10 > vm / 10)
+                // (the rare case: the bounds or the value itself end in zeros) drops one digit of all three
+                void Drop()
                 {
-                    vmIsTrailingZeros &= vm % 10 == 0;
                     vrIsTrailingZeros &= lastRemovedDigit == 0;
                     lastRemovedDigit = (int)(vr % 10);
                     vr /= 10;
@@ -341,18 +341,13 @@ internal static class NumberText
                     vm /= 10;
                     removed++;
                 }
-                if (vmIsTrailingZeros)
+                while (vp / 10 > vm / 10)
                 {
-                    while (vm % 10 == 0)
-                    {
-                        vrIsTrailingZeros &= lastRemovedDigit == 0;
-                        lastRemovedDigit = (int)(vr % 10);
-                        vr /= 10;
-                        vp /= 10;
-                        vm /= 10;
-                        removed++;
-                    }
+                    vmIsTrailingZeros &= vm % 10 == 0;
+                    Drop();
                 }
+                if (vmIsTrailingZeros)
+                    while (vm % 10 == 0) Drop();
                 if (vrIsTrailingZeros && lastRemovedDigit == 5 && vr % 2 == 0) lastRemovedDigit = 4;
                 output = vr + ((vr == vm && (!acceptBounds || !vmIsTrailingZeros)) || lastRemovedDigit >= 5
                     ? 1UL : 0UL);
