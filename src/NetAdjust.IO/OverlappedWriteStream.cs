@@ -9,7 +9,7 @@ namespace NetAdjust.IO;
 /// <see cref="Depth"/> blocks wait at any time, so the memory it holds is bounded. The bytes reach the inner stream
 /// in the order written. A failure of the inner stream surfaces at the next <see cref="Write(ReadOnlySpan{byte})"/>
 /// or at <see cref="Complete"/>, which must be called once everything is written; disposing without it abandons
-/// the blocks not yet written.
+/// the blocks not yet written. Over a <see cref="BlockFile"/>, the blocks are aligned for writes past the page cache.
 /// </summary>
 internal sealed class OverlappedWriteStream : Stream
 {
@@ -19,24 +19,31 @@ internal sealed class OverlappedWriteStream : Stream
     /// <summary>How many full blocks may wait for the writing thread.</summary>
     public const int Depth = 4;
 
-    private readonly Stream _inner;
+    private readonly Stream? _inner;
+    private readonly BlockFile? _file;
     // Full blocks waiting and blocks written, under one lock; the two threads wait on it without spinning (a spin
     // wait per block would take a core from the renderers on a two-core machine).
     private readonly object _gate = new();
-    private readonly Queue<(byte[] Block, int Count)> _full = new();
-    private readonly Stack<byte[]> _free = new();
+    private readonly Queue<((byte[] Array, int Start) Block, int Count)> _full = new();
+    private readonly Stack<(byte[] Array, int Start)> _free = new();
     private bool _noMore;
     private readonly Thread _writer;
     private volatile ExceptionDispatchInfo? _failure;
-    private byte[] _block;
+    private (byte[] Array, int Start) _block;
     private int _count;
     private bool _completed;
 
     /// <summary>Starts the writing thread over <paramref name="inner"/> (left open).</summary>
-    public OverlappedWriteStream(Stream inner)
+    public OverlappedWriteStream(Stream inner) : this(inner, null) { }
+
+    /// <summary>Starts the writing thread over <paramref name="file"/>.</summary>
+    public OverlappedWriteStream(BlockFile file) : this(null, file) { }
+
+    private OverlappedWriteStream(Stream? inner, BlockFile? file)
     {
         _inner = inner;
-        _block = new byte[BlockSize];
+        _file = file;
+        _block = BlockFile.AllocateBlock(BlockSize);
         _writer = new Thread(WriteBlocks) { IsBackground = true, Name = "netadjust file writer" };
         _writer.Start();
     }
@@ -45,7 +52,7 @@ internal sealed class OverlappedWriteStream : Stream
     {
         while (true)
         {
-            (byte[] Block, int Count) next;
+            ((byte[] Array, int Start) Block, int Count) next;
             lock (_gate)
             {
                 while (_full.Count == 0 && !_noMore) Monitor.Wait(_gate);
@@ -55,7 +62,11 @@ internal sealed class OverlappedWriteStream : Stream
             }
             if (_failure is null)
             {
-                try { _inner.Write(next.Block, 0, next.Count); }
+                try
+                {
+                    if (_file is not null) _file.Append(next.Block.Array, next.Block.Start, next.Count);
+                    else _inner!.Write(next.Block.Array, next.Block.Start, next.Count);
+                }
                 catch (Exception e) { _failure = ExceptionDispatchInfo.Capture(e); }
             }
             lock (_gate) _free.Push(next.Block);
@@ -69,7 +80,7 @@ internal sealed class OverlappedWriteStream : Stream
         while (buffer.Length > 0)
         {
             int n = Math.Min(buffer.Length, BlockSize - _count);
-            buffer[..n].CopyTo(_block.AsSpan(_count));
+            buffer[..n].CopyTo(_block.Array.AsSpan(_block.Start + _count));
             _count += n;
             buffer = buffer[n..];
             if (_count == BlockSize) HandOver();
@@ -85,15 +96,16 @@ internal sealed class OverlappedWriteStream : Stream
     private void HandOver()
     {
         _failure?.Throw();
-        byte[]? free;
+        (byte[] Array, int Start) free;
+        bool reuse;
         lock (_gate)
         {
             while (_full.Count >= Depth) Monitor.Wait(_gate);
             _full.Enqueue((_block, _count));
             Monitor.PulseAll(_gate);
-            _free.TryPop(out free);
+            reuse = _free.TryPop(out free);
         }
-        _block = free ?? new byte[BlockSize];
+        _block = reuse ? free : BlockFile.AllocateBlock(BlockSize);
         _count = 0;
     }
 
@@ -108,7 +120,7 @@ internal sealed class OverlappedWriteStream : Stream
     }
 
     /// <summary>Writes what is left, waits for the writing thread to finish and flushes the inner stream; throws the
-    /// inner stream's failure, if any.</summary>
+    /// inner stream's (or file's) failure, if any.</summary>
     public void Complete()
     {
         if (_completed) return;
@@ -116,7 +128,7 @@ internal sealed class OverlappedWriteStream : Stream
         _completed = true;
         NoMore();
         _failure?.Throw();
-        _inner.Flush();
+        _inner?.Flush();
     }
 
     /// <inheritdoc />

@@ -158,9 +158,10 @@ public static class SafeFileWriter
         stage((tmp, full, path));
         try
         {
-            using var stream = new FileStream(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None, BufferSize);
-            // the file is written on a thread of its own while the writer renders the rest
-            using var overlapped = new OverlappedWriteStream(stream);
+            using var handle = File.OpenHandle(tmp, FileMode.CreateNew, FileAccess.Write, FileShare.None);
+            // the file is written on a thread of its own while the writer renders the rest, past the page cache
+            // where the system allows it (BlockFile)
+            using var overlapped = new OverlappedWriteStream(new BlockFile(handle, direct: true));
             write(overlapped);
             overlapped.Complete();
         }
