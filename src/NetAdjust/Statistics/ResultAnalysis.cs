@@ -301,17 +301,62 @@ public static class ResultAnalysis
         return list;
     }
 
+    /// <summary>The key of an unordered pair of points by their positions in the network.</summary>
+    private static long PairKey(SurveyNetwork network, int x, int y) =>
+        x < y ? ((long)x * network.Points.Count) + y : ((long)y * network.Points.Count) + x;
+
+    /// <summary>Marks, among the wanted pairs, those of two points in <paramref name="points"/> (positions in the
+    /// network).</summary>
+    private static void MarkPairs(SurveyNetwork network, List<int> points, Dictionary<long, int> pairOf,
+        bool[] marked)
+    {
+        for (int i = 0; i < points.Count; i++)
+            for (int j = i + 1; j < points.Count; j++)
+                if (pairOf.TryGetValue(PairKey(network, points[i], points[j]), out int p)) marked[p] = true;
+    }
+
+    /// <summary>Calls <paramref name="visit"/> once per weight block with the block's rows that carry weight (a
+    /// nonzero entry in the block's row); a diagonal weight matrix is read row by row, without a block object.
+    /// </summary>
+    private static void ForEachWeightedBlock(WeightMatrix weights, Action<List<int>> visit)
+    {
+        var rows = new List<int>();
+        if (weights.IsDiagonal)
+        {
+            for (int r = 0; r < weights.RowCount; r++)
+            {
+                if (weights.DiagonalEntry(r) == 0) continue; // no weighted row: nothing to visit
+                rows.Clear();
+                rows.Add(r);
+                visit(rows);
+            }
+            return;
+        }
+        foreach (var blk in weights.Blocks)
+        {
+            rows.Clear();
+            for (int a = 0; a < blk.Size; a++)
+            {
+                bool any = false;
+                for (int b = 0; b < blk.Size && !any; b++) any = blk[a, b] != 0;
+                if (any) rows.Add(blk.Rows[a]);
+            }
+            visit(rows);
+        }
+    }
+
     private static List<RelativePrecision> Relative(AdjustmentResult result, AnalysisOptions options, double vf,
         double k,
         Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
     {
         var network = result.Network;
         var pairs = new List<(string From, string To, bool Observed)>();
-        var seen = new HashSet<(string, string)>();
+        // each unordered pair once, in the order first met, by the points' positions in the network
+        var pairOf = new Dictionary<long, int>();
         void Add(string a, string b, bool observed)
         {
-            var key = string.CompareOrdinal(a, b) < 0 ? (a, b) : (b, a);
-            if (a != b && seen.Add(key)) pairs.Add((a, b, observed));
+            if (a != b && pairOf.TryAdd(PairKey(network, network.IndexOf(a), network.IndexOf(b)), pairs.Count))
+                pairs.Add((a, b, observed));
         }
         if (options.RelativeForObservedPairs)
             foreach (var o in network.Observations)
@@ -333,38 +378,31 @@ public static class ResultAnalysis
 
         // Pairs of points whose unknowns meet in one weighted design row or weight block: their Qxx block lies on the
         // pattern of N. Other pairs are computed by solves.
-        // (points as indices: the owner of each coordinate unknown, -1 for other unknowns)
-        var pointIndex = new Dictionary<string, int>(StringComparer.Ordinal);
+        // (the owner of each coordinate unknown as its position in the network, -1 for other unknowns)
         var unknowns = result.Unknowns.Unknowns;
         var ownerOf = new int[unknowns.Count];
         for (int j = 0; j < ownerOf.Length; j++)
         {
             var u = unknowns[j];
-            ownerOf[j] = u.Parameter is Parameter.E or Parameter.N or Parameter.H
-                ? (pointIndex.TryGetValue(u.Owner, out int ix) ? ix : pointIndex[u.Owner] = pointIndex.Count) : -1;
+            ownerOf[j] = u.Parameter is Parameter.E or Parameter.N or Parameter.H && network.Contains(u.Owner)
+                ? network.IndexOf(u.Owner) : -1;
         }
-        var onPattern = new HashSet<(int, int)>();
+        var onPattern = new bool[pairs.Count];
         var owners = new List<int>();
-        foreach (var blk in result.Weights.Blocks)
+        ForEachWeightedBlock(result.Weights, rows =>
         {
             owners.Clear();
-            for (int a = 0; a < blk.Size; a++)
-            {
-                bool any = false;
-                for (int b = 0; b < blk.Size && !any; b++) any = blk[a, b] != 0;
-                if (!any) continue;
-                foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
+            foreach (int r in rows)
+                foreach (int c in result.DesignRows[r].Columns)
                     if (ownerOf[c] >= 0 && !owners.Contains(ownerOf[c])) owners.Add(ownerOf[c]);
-            }
-            foreach (var x in owners) foreach (var y in owners) onPattern.Add((x, y));
-        }
-        bool OnPattern(string a, string b) => pointIndex.TryGetValue(a, out int x) && pointIndex.TryGetValue(b,
-            out int y) && onPattern.Contains((x, y));
+            MarkPairs(network, owners, pairOf, onPattern);
+        });
 
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
         var list = new List<RelativePrecision>();
-        foreach (var (from, to, observed) in pairs)
+        for (int pair = 0; pair < pairs.Count; pair++)
         {
+            var (from, to, observed) = pairs[pair];
             var pa = byId[from]; var pb = byId[to];
             if (pa.E is null || pa.N is null || pb.E is null || pb.N is null || pa.SdE is null || pb.SdE is null)
                 continue;
@@ -374,7 +412,7 @@ public static class ResultAnalysis
             if (aHeld && ib0 < 0 && ib1 < 0) continue; // both held: nothing to report
             double Own(int i, int j) => i >= 0 && j >= 0 ? q(i, j) : 0.0;
             double c00 = 0, c01 = 0, c10 = 0, c11 = 0; // Qxx(from-component, to-component)
-            if (OnPattern(from, to))
+            if (onPattern[pair])
             {
                 c00 = Own(ia0, ib0); c01 = Own(ia0, ib1); c10 = Own(ia1, ib0); c11 = Own(ia1, ib1);
             }
@@ -418,12 +456,13 @@ public static class ResultAnalysis
         double vf, double k,
         Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
     {
+        var network = result.Network;
         var pairs = new List<(string From, string To, bool Observed)>();
-        var seen = new HashSet<(string, string)>();
+        var pairOf = new Dictionary<long, int>();
         void Add(string a, string b, bool observed)
         {
-            var key = string.CompareOrdinal(a, b) < 0 ? (a, b) : (b, a);
-            if (a != b && seen.Add(key)) pairs.Add((a, b, observed));
+            if (a != b && pairOf.TryAdd(PairKey(network, network.IndexOf(a), network.IndexOf(b)), pairs.Count))
+                pairs.Add((a, b, observed));
         }
         if (options.RelativeForObservedPairs)
             foreach (var o in result.Network.Observations)
@@ -434,32 +473,33 @@ public static class ResultAnalysis
         if (pairs.Count == 0) return list;
 
         // Pairs joined by a weighted height-difference row have their Qxx entry on the pattern of N.
-        var onPattern = new HashSet<(int, int)>();
+        // (the owner of each height unknown as its position in the network, -1 for other unknowns)
         var unknowns = result.Unknowns.Unknowns;
+        var heightOf = new int[unknowns.Count];
+        for (int j = 0; j < heightOf.Length; j++)
+            heightOf[j] = unknowns[j].Parameter == Parameter.H && network.Contains(unknowns[j].Owner)
+                ? network.IndexOf(unknowns[j].Owner) : -1;
+        var onPattern = new bool[pairs.Count];
         var hs = new List<int>();
-        foreach (var blk in result.Weights.Blocks)
+        ForEachWeightedBlock(result.Weights, rows =>
         {
             hs.Clear();
-            for (int a = 0; a < blk.Size; a++)
-            {
-                bool any = false;
-                for (int b = 0; b < blk.Size && !any; b++) any = blk[a, b] != 0;
-                if (!any) continue;
-                foreach (int c in result.DesignRows[blk.Rows[a]].Columns)
-                    if (unknowns[c].Parameter == Parameter.H) hs.Add(c);
-            }
-            foreach (int x in hs) foreach (int y in hs) onPattern.Add((x, y));
-        }
+            foreach (int r in rows)
+                foreach (int c in result.DesignRows[r].Columns)
+                    if (heightOf[c] >= 0 && !hs.Contains(heightOf[c])) hs.Add(heightOf[c]);
+            MarkPairs(network, hs, pairOf, onPattern);
+        });
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
-        foreach (var (from, to, observed) in pairs)
+        for (int pair = 0; pair < pairs.Count; pair++)
         {
+            var (from, to, observed) = pairs[pair];
             var pa = byId[from]; var pb = byId[to];
             if (pa.H is null || pb.H is null || pa.SdH is null || pb.SdH is null) continue;
             int ia = cols[from].H, ib = cols[to].H;
             if (ia < 0 && ib < 0) continue;
             double cross = 0;
             if (ia >= 0 && ib >= 0)
-                cross = onPattern.Contains((ia, ib)) ? q(ia, ib) :
+                cross = onPattern[pair] ? q(ia, ib) :
                     result.Solve(UnitVector(ib, result.Unknowns.Count))[ia];
             double var = vf * ((ia >= 0 ? q(ia, ia) : 0) + (ib >= 0 ? q(ib, ib) : 0) - (2 * cross));
             double sd = Math.Sqrt(Math.Max(0, var));
