@@ -340,15 +340,31 @@ public static partial class Adjuster
         int m = network.Observations.Count;
         var rows = new SparseRow[m + control.Count];
         var l = new double[rows.Length];
-        Span<double> d = pattern.MostPartials <= 64 ? stackalloc double[pattern.MostPartials]
-            : new double[pattern.MostPartials];
-        for (int i = 0; i < m; i++)
+        void Rows(int from, int to)
         {
-            var o = network.Observations[i];
-            double value = ObservationKindRegistry.EvaluateInto(o, state, pattern.Slots(i), d, out int count);
-            l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
-            rows[i] = new SparseRow(pattern.Columns[i], pattern.Values(i, d[..count]));
+            Span<double> d = pattern.MostPartials <= 64 ? stackalloc double[pattern.MostPartials]
+                : new double[pattern.MostPartials];
+            for (int i = from; i < to; i++)
+            {
+                var o = network.Observations[i];
+                double value = ObservationKindRegistry.EvaluateInto(o, state, pattern.Slots(i), d, out int count);
+                l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
+                rows[i] = new SparseRow(pattern.Columns[i], pattern.Values(i, d[..count]));
+            }
         }
+        // On a large network the second half of the rows is evaluated on another core: each row alone, into its own
+        // slot (the same numbers whatever the schedule); a failure of the first half is the one reported, as it
+        // would be one row after the other.
+        int half = m >= SideBySideObservations && Environment.ProcessorCount > 1 ? m / 2 : m;
+        var other = half < m ? Task.Run(() => Rows(half, m)) : null;
+        try { Rows(0, half); }
+        catch
+        {
+            try { other?.Wait(); }
+            catch (AggregateException) { }
+            throw;
+        }
+        other?.GetAwaiter().GetResult();
         for (int k = 0; k < control.Count; k++)
         {
             var c = control[k];

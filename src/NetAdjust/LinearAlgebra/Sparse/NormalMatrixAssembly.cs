@@ -8,7 +8,8 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 /// <remarks>
 /// Column-oriented sparse matrix product with a dense accumulator (Gustavson 1978, "Two fast algorithms for
 /// sparse matrices", ACM TOMS 4(3):250–269; Davis 2006, §2.8 cs_multiply). Time O(Σ_s |a_s|·|block row lengths|).
-/// The plan (transpose of A's pattern) is built once per pattern; <see cref="Assemble"/> runs per numeric phase.
+/// The plan (transpose of A's pattern) is built once per pattern;
+/// <see cref="Assemble(IReadOnlyList{SparseRow}, WeightMatrix)"/> runs per numeric phase.
 /// </remarks>
 internal sealed class NormalMatrixAssembly
 {
@@ -49,19 +50,58 @@ internal sealed class NormalMatrixAssembly
     /// pattern.</exception>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    public double[] Assemble(IReadOnlyList<SparseRow> rows, WeightMatrix weights)
+    public double[] Assemble(IReadOnlyList<SparseRow> rows, WeightMatrix weights) =>
+        Assemble(rows, weights, sideBySide: true);
+
+    /// <summary>As <see cref="Assemble(IReadOnlyList{SparseRow}, WeightMatrix)"/>; with
+    /// <paramref name="sideBySide"/> false, every column on the calling thread (the tests compare the two).</summary>
+    internal double[] Assemble(IReadOnlyList<SparseRow> rows, WeightMatrix weights, bool sideBySide)
     {
         var a = rows as SparseRow[] ?? [.. rows];
         var diagonal = weights.DiagonalWeights; // P_ss by row when every block has one row, else null
         var lower = _symbolic.LowerC;
+        int n = _symbolic.Size;
+        var values = new double[lower.Index.Length];
+        // Each column k of C is summed into its own segment of the values, in the same order whoever sums it: on a
+        // large system the columns are split in two parts of about equal length, the second summed on another core
+        // (the same numbers whatever the schedule; a failure of the first part is the one reported).
+        int split = n;
+        if (sideBySide && a.Length >= SideBySideRows && Environment.ProcessorCount > 1)
+        {
+            split = Array.BinarySearch(lower.Start, 0, n + 1, lower.Start[n] / 2);
+            if (split < 0) split = ~split;
+            split = Math.Clamp(split, 1, n);
+        }
+        var other = split < n ? Task.Run(() => Columns(split, n)) : null;
+        try { Columns(0, split); }
+        catch
+        {
+            try { other?.Wait(); }
+            catch (AggregateException) { }
+            throw;
+        }
+        other?.GetAwaiter().GetResult();
+        return values;
+
+        void Columns(int from, int to) => AssembleColumns(a, weights, diagonal, values, from, to);
+    }
+
+    /// <summary>Rows of A from which the assembly is split between two cores.</summary>
+    internal const int SideBySideRows = 4096;
+
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    private void AssembleColumns(SparseRow[] a, WeightMatrix weights, double[]? diagonal, double[] values, int from,
+        int to)
+    {
+        var lower = _symbolic.LowerC;
         var perm = _symbolic.Perm;
         var iperm = _symbolic.InversePerm;
         int n = _symbolic.Size;
-        var values = new double[lower.Index.Length];
         var position = new int[n];
         var stamp = new int[n];
         Array.Fill(stamp, -1);
-        for (int k = 0; k < n; k++)
+        for (int k = from; k < to; k++)
         {
             for (int p = lower.Start[k]; p < lower.Start[k + 1]; p++)
             {
@@ -87,7 +127,6 @@ internal sealed class NormalMatrixAssembly
                 }
             }
         }
-        return values;
     }
 
     /// <summary>Adds c·a_t to the entries of column k of C on or below the diagonal.</summary>
