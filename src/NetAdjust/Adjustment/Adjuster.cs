@@ -113,20 +113,9 @@ public static partial class Adjuster
         // this thread once it is done, so the lines come in the same order as on one thread.
         int half = observations.Length >= SideBySideObservations && Environment.ProcessorCount > 1
             ? observations.Length / 2 : observations.Length;
-        var other = half < observations.Length
-            ? Task.Run(() => Observations(half, observations.Length, progress: false)) : null;
-        try { Observations(0, half, progress: true); }
-        catch
-        {
-            try { other?.Wait(); }
-            catch (AggregateException) { }
-            throw;
-        }
-        if (other is not null)
-        {
-            other.GetAwaiter().GetResult();
-            for (int i = half; i < observations.Length; i++) Progress(i);
-        }
+        SideBySide.Run(() => Observations(0, half, progress: true), half < observations.Length
+            ? () => Observations(half, observations.Length, progress: false) : null);
+        for (int i = half; i < observations.Length; i++) Progress(i);
         var orientations = AdjustedOrientations(network, index, state, finalFactor, s0);
 
         return new AdjustmentResult(network, options with { Datum = plan.Resolved }, index, finalFactor, points,
@@ -356,15 +345,7 @@ public static partial class Adjuster
         // slot (the same numbers whatever the schedule); a failure of the first half is the one reported, as it
         // would be one row after the other.
         int half = m >= SideBySideObservations && Environment.ProcessorCount > 1 ? m / 2 : m;
-        var other = half < m ? Task.Run(() => Rows(half, m)) : null;
-        try { Rows(0, half); }
-        catch
-        {
-            try { other?.Wait(); }
-            catch (AggregateException) { }
-            throw;
-        }
-        other?.GetAwaiter().GetResult();
+        SideBySide.Run(() => Rows(0, half), half < m ? () => Rows(half, m) : null);
         for (int k = 0; k < control.Count; k++)
         {
             var c = control[k];

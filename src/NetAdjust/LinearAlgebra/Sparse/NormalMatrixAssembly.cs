@@ -72,15 +72,7 @@ internal sealed class NormalMatrixAssembly
             if (split < 0) split = ~split;
             split = Math.Clamp(split, 1, n);
         }
-        var other = split < n ? Task.Run(() => Columns(split, n)) : null;
-        try { Columns(0, split); }
-        catch
-        {
-            try { other?.Wait(); }
-            catch (AggregateException) { }
-            throw;
-        }
-        other?.GetAwaiter().GetResult();
+        SideBySide.Run(() => Columns(0, split), split < n ? () => Columns(split, n) : null);
         return values;
 
         void Columns(int from, int to) => AssembleColumns(a, weights, diagonal, values, from, to);
