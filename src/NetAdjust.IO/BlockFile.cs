@@ -5,10 +5,10 @@ namespace NetAdjust.IO;
 
 /// <summary>
 /// An output file written front to back in blocks by one thread, past the system's page cache where the system
-/// allows it (Linux on x64 and arm64: the file's <c>O_DIRECT</c> flag). On the machines measured in
-/// docs/performance.md, copying a large output into the page cache cost about 2.5 s of system CPU per 900 MB, on
-/// the cores that render the outputs, and a direct write of the same bytes about 0.15 s. A direct write needs the
-/// memory, the file offset and the length aligned to the device's block: blocks from
+/// allows it (Linux on x64 and arm64, a local disk file system: the file's <c>O_DIRECT</c> flag). On the machines
+/// measured in docs/performance.md, copying a large output into the page cache cost about 2.5 s of system CPU per
+/// 900 MB, on the cores that render the outputs, and a direct write of the same bytes about 0.15 s. A direct write
+/// needs the memory, the file offset and the length aligned to the device's block: blocks from
 /// <see cref="AllocateBlock"/> are aligned to <see cref="Alignment"/>; an unaligned tail (the last block) or a
 /// direct write the system refuses (a file system without direct I/O, a device with larger blocks) falls back to
 /// ordinary writes for the rest of the file, from the start of that block. The bytes in the file are the same
@@ -97,6 +97,11 @@ internal sealed class BlockFile
                 _ => 0,
             };
 
+        // Local disk file systems (linux/magic.h): ext2/3/4, XFS, Btrfs, F2FS. On a network file system a direct
+        // write waits for each block's round trip, and a memory file system has no cache to spare: both keep the
+        // ordinary writes.
+        private static readonly long[] LocalDisk = [0xEF53, 0x58465342, 0x9123683E, 0xF2F52010];
+
         public static bool TrySet(SafeFileHandle handle, bool on)
         {
             if (Flag == 0 || handle.IsInvalid || handle.IsClosed) return false;
@@ -105,6 +110,12 @@ internal sealed class BlockFile
             {
                 handle.DangerousAddRef(ref added);
                 int fd = (int)handle.DangerousGetHandle();
+                if (on)
+                {
+                    // struct statfs begins with the file system's type as a long on every 64-bit Linux
+                    var info = new byte[256];
+                    if (Fstatfs(fd, info) != 0 || !LocalDisk.Contains(BitConverter.ToInt64(info, 0))) return false;
+                }
                 int flags = Fcntl(fd, GetStatusFlags, 0);
                 if (flags < 0) return false;
                 int wanted = on ? flags | Flag : flags & ~Flag;
@@ -122,5 +133,8 @@ internal sealed class BlockFile
 
         [DllImport("libc", EntryPoint = "fcntl", SetLastError = true)]
         private static extern int Fcntl(int fd, int command, int argument);
+
+        [DllImport("libc", EntryPoint = "fstatfs", SetLastError = true)]
+        private static extern int Fstatfs(int fd, [Out] byte[] info);
     }
 }
