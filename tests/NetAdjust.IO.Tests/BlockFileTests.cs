@@ -86,6 +86,39 @@ public sealed class BlockFileTests
         finally { Directory.Delete(dir, recursive: true); }
     }
 
+    /// <summary>A fact about a Linux memory file system at /dev/shm: skipped elsewhere.</summary>
+    public sealed class MemoryFileSystemFactAttribute : FactAttribute
+    {
+        /// <summary>Sets the skip reason where there is no /dev/shm.</summary>
+        public MemoryFileSystemFactAttribute()
+        {
+            if (!OperatingSystem.IsLinux() || !Directory.Exists("/dev/shm"))
+                Skip = "needs Linux with a memory file system at /dev/shm";
+        }
+    }
+
+    [MemoryFileSystemFact]
+    public void AFileInMemoryKeepsOrdinaryWrites()
+    {
+        // a memory file system has no page cache to spare (common practice: tmpfs pages are the cache itself)
+        string dir = Path.Combine("/dev/shm", "netadjust-blockfile-" + Guid.NewGuid().ToString("N")[..8]);
+        Directory.CreateDirectory(dir);
+        try
+        {
+            string path = Path.Combine(dir, "out.bin");
+            var (block, start) = BlockFile.AllocateBlock(BlockFile.Alignment);
+            new Random(5).NextBytes(block);
+            using (var handle = Create(path))
+            {
+                var file = new BlockFile(handle, direct: true);
+                Assert.False(file.IsDirect);
+                file.Append(block, start, BlockFile.Alignment);
+            }
+            Assert.Equal(block.AsSpan(start, BlockFile.Alignment).ToArray(), File.ReadAllBytes(path));
+        }
+        finally { Directory.Delete(dir, recursive: true); }
+    }
+
     [Fact]
     public void BlocksAreAlignedForWritesPastTheCache()
     {
