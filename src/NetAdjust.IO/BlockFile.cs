@@ -55,7 +55,7 @@ internal sealed class BlockFile
         int direct = 0;
         if (IsDirect)
         {
-            bool aligned = _offset % Alignment == 0 && array.Length > 0
+            bool aligned = _offset % Alignment == 0
                 && Marshal.UnsafeAddrOfPinnedArrayElement(array, start) % Alignment == 0;
             direct = aligned ? count & ~(Alignment - 1) : 0;
             if (direct > 0)

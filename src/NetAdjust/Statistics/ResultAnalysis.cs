@@ -301,18 +301,51 @@ public static class ResultAnalysis
         return list;
     }
 
-    /// <summary>The key of an unordered pair of points by their positions in the network.</summary>
-    private static long PairKey(SurveyNetwork network, int x, int y) =>
-        x < y ? ((long)x * network.Points.Count) + y : ((long)y * network.Points.Count) + x;
-
-    /// <summary>Marks, among the wanted pairs, those of two points in <paramref name="points"/> (positions in the
-    /// network).</summary>
-    private static void MarkPairs(SurveyNetwork network, List<int> points, Dictionary<long, int> pairOf,
-        bool[] marked)
+    /// <summary>Point pairs to report, each unordered pair once, in the order first met (keyed by the points'
+    /// positions in the network).</summary>
+    private sealed class PointPairs(SurveyNetwork network)
     {
-        for (int i = 0; i < points.Count; i++)
-            for (int j = i + 1; j < points.Count; j++)
-                if (pairOf.TryGetValue(PairKey(network, points[i], points[j]), out int p)) marked[p] = true;
+        private readonly Dictionary<long, int> _index = new();
+
+        public List<(string From, string To, bool Observed)> List { get; } = [];
+
+        public void Add(string a, string b, bool observed)
+        {
+            if (a != b && _index.TryAdd(Key(network.IndexOf(a), network.IndexOf(b)), List.Count))
+                List.Add((a, b, observed));
+        }
+
+        /// <summary>The position in <see cref="List"/> of the pair of two points given by position, or -1.</summary>
+        public int Find(int x, int y) => _index.TryGetValue(Key(x, y), out int p) ? p : -1;
+
+        private long Key(int x, int y) =>
+            x < y ? ((long)x * network.Points.Count) + y : ((long)y * network.Points.Count) + x;
+    }
+
+    /// <summary>For each pair, whether its two points have unknowns selected by <paramref name="counts"/> that meet
+    /// in one weighted design row or weight block: their Qxx entries then lie on the pattern of N.</summary>
+    private static bool[] OnPattern(AdjustmentResult result, PointPairs pairs, Func<Parameter, bool> counts)
+    {
+        var network = result.Network;
+        // the owner of each counted unknown as its position in the network, -1 for other unknowns
+        var unknowns = result.Unknowns.Unknowns;
+        var ownerOf = new int[unknowns.Count];
+        for (int j = 0; j < ownerOf.Length; j++)
+            ownerOf[j] = counts(unknowns[j].Parameter) && network.Contains(unknowns[j].Owner)
+                ? network.IndexOf(unknowns[j].Owner) : -1;
+        var onPattern = new bool[pairs.List.Count];
+        var owners = new List<int>();
+        ForEachWeightedBlock(result.Weights, rows =>
+        {
+            owners.Clear();
+            foreach (int r in rows)
+                foreach (int c in result.DesignRows[r].Columns)
+                    if (ownerOf[c] >= 0 && !owners.Contains(ownerOf[c])) owners.Add(ownerOf[c]);
+            for (int i = 0; i < owners.Count; i++)
+                for (int j = i + 1; j < owners.Count; j++)
+                    if (pairs.Find(owners[i], owners[j]) is int p and >= 0) onPattern[p] = true;
+        });
+        return onPattern;
     }
 
     /// <summary>Calls <paramref name="visit"/> once per weight block with the block's rows that carry weight (a
@@ -350,14 +383,8 @@ public static class ResultAnalysis
         Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
     {
         var network = result.Network;
-        var pairs = new List<(string From, string To, bool Observed)>();
-        // each unordered pair once, in the order first met, by the points' positions in the network
-        var pairOf = new Dictionary<long, int>();
-        void Add(string a, string b, bool observed)
-        {
-            if (a != b && pairOf.TryAdd(PairKey(network, network.IndexOf(a), network.IndexOf(b)), pairs.Count))
-                pairs.Add((a, b, observed));
-        }
+        var wanted = new PointPairs(network);
+        void Add(string a, string b, bool observed) => wanted.Add(a, b, observed);
         if (options.RelativeForObservedPairs)
             foreach (var o in network.Observations)
             {
@@ -378,25 +405,8 @@ public static class ResultAnalysis
 
         // Pairs of points whose unknowns meet in one weighted design row or weight block: their Qxx block lies on the
         // pattern of N. Other pairs are computed by solves.
-        // (the owner of each coordinate unknown as its position in the network, -1 for other unknowns)
-        var unknowns = result.Unknowns.Unknowns;
-        var ownerOf = new int[unknowns.Count];
-        for (int j = 0; j < ownerOf.Length; j++)
-        {
-            var u = unknowns[j];
-            ownerOf[j] = u.Parameter is Parameter.E or Parameter.N or Parameter.H && network.Contains(u.Owner)
-                ? network.IndexOf(u.Owner) : -1;
-        }
-        var onPattern = new bool[pairs.Count];
-        var owners = new List<int>();
-        ForEachWeightedBlock(result.Weights, rows =>
-        {
-            owners.Clear();
-            foreach (int r in rows)
-                foreach (int c in result.DesignRows[r].Columns)
-                    if (ownerOf[c] >= 0 && !owners.Contains(ownerOf[c])) owners.Add(ownerOf[c]);
-            MarkPairs(network, owners, pairOf, onPattern);
-        });
+        var onPattern = OnPattern(result, wanted, p => p is Parameter.E or Parameter.N or Parameter.H);
+        var pairs = wanted.List;
 
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
         var list = new List<RelativePrecision>();
@@ -456,39 +466,19 @@ public static class ResultAnalysis
         double vf, double k,
         Dictionary<string, (int E, int N, int H)> cols, Func<int, int, double> q)
     {
-        var network = result.Network;
-        var pairs = new List<(string From, string To, bool Observed)>();
-        var pairOf = new Dictionary<long, int>();
-        void Add(string a, string b, bool observed)
-        {
-            if (a != b && pairOf.TryAdd(PairKey(network, network.IndexOf(a), network.IndexOf(b)), pairs.Count))
-                pairs.Add((a, b, observed));
-        }
+        var wanted = new PointPairs(result.Network);
+        void Add(string a, string b, bool observed) => wanted.Add(a, b, observed);
         if (options.RelativeForObservedPairs)
             foreach (var o in result.Network.Observations)
                 if (ObservationKindRegistry.Of(o).Axes.HasFlag(CoordinateAxes.Height)) Add(o.From, o.To, true);
         foreach (var (a, b) in options.RelativePairs) Add(a, b, false);
 
+        var pairs = wanted.List;
         var list = new List<RelativeHeightPrecision>();
         if (pairs.Count == 0) return list;
 
         // Pairs joined by a weighted height-difference row have their Qxx entry on the pattern of N.
-        // (the owner of each height unknown as its position in the network, -1 for other unknowns)
-        var unknowns = result.Unknowns.Unknowns;
-        var heightOf = new int[unknowns.Count];
-        for (int j = 0; j < heightOf.Length; j++)
-            heightOf[j] = unknowns[j].Parameter == Parameter.H && network.Contains(unknowns[j].Owner)
-                ? network.IndexOf(unknowns[j].Owner) : -1;
-        var onPattern = new bool[pairs.Count];
-        var hs = new List<int>();
-        ForEachWeightedBlock(result.Weights, rows =>
-        {
-            hs.Clear();
-            foreach (int r in rows)
-                foreach (int c in result.DesignRows[r].Columns)
-                    if (heightOf[c] >= 0 && !hs.Contains(heightOf[c])) hs.Add(heightOf[c]);
-            MarkPairs(network, hs, pairOf, onPattern);
-        });
+        var onPattern = OnPattern(result, wanted, p => p == Parameter.H);
         var byId = result.Points.ToDictionary(p => p.Id, StringComparer.Ordinal);
         for (int pair = 0; pair < pairs.Count; pair++)
         {
