@@ -27,7 +27,8 @@ public class NormalMatrixAssemblyTests
         var two = assembly.Assemble(rows, w, sideBySide: true);
         Assert.Equal(one, two);
 
-        // AᵀPA summed entry by entry from the definition, block by block (row-oriented, unlike the assembly)
+        // N = AᵀPA, the normal matrix of the Gauss-Markov model (Mikhail and Ackermann 1976, Observations and Least
+        // Squares; docs/references.md), summed entry by entry block by block: row-oriented, unlike the assembly
         var c = new double[u, u];
         foreach (var block in w.Blocks)
             for (int i = 0; i < block.Size; i++)
