@@ -34,22 +34,31 @@ internal static class CliHarness
 
     /// <summary>
     /// Runs the built command (NetAdjust.Cli.dll beside the test binaries, i.e. the build of the same configuration)
-    /// in a child process with the given working folder.
+    /// in a child process with the given working folder; or, when the environment variable NETADJUST_COMMAND names an
+    /// executable, that program instead (.ci/check-packages runs these tests through the installed native tool).
     /// </summary>
     /// <param name="workingDirectory">The child's current folder (relative paths in the arguments start there).</param>
     /// <param name="args">The command line, verb first.</param>
     public static CliRun RunProcess(string workingDirectory, params string[] args)
     {
-        string dll = Path.Combine(AppContext.BaseDirectory, "NetAdjust.Cli.dll");
-        if (!File.Exists(dll)) throw new FileNotFoundException("the built command is not beside the tests", dll);
-        var psi = new ProcessStartInfo(DotnetHost())
+        string? command = Environment.GetEnvironmentVariable("NETADJUST_COMMAND");
+        ProcessStartInfo psi;
+        if (!string.IsNullOrEmpty(command))
         {
-            WorkingDirectory = workingDirectory,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            UseShellExecute = false,
-        };
-        psi.ArgumentList.Add(dll);
+            if (!File.Exists(command)) throw new FileNotFoundException("NETADJUST_COMMAND names no file", command);
+            psi = new ProcessStartInfo(Path.GetFullPath(command));
+        }
+        else
+        {
+            string dll = Path.Combine(AppContext.BaseDirectory, "NetAdjust.Cli.dll");
+            if (!File.Exists(dll)) throw new FileNotFoundException("the built command is not beside the tests", dll);
+            psi = new ProcessStartInfo(DotnetHost());
+            psi.ArgumentList.Add(dll);
+        }
+        psi.WorkingDirectory = workingDirectory;
+        psi.RedirectStandardOutput = true;
+        psi.RedirectStandardError = true;
+        psi.UseShellExecute = false;
         foreach (var a in args) psi.ArgumentList.Add(a);
         using var p = Process.Start(psi) ?? throw new InvalidOperationException("the command could not be started");
         var stdout = p.StandardOutput.ReadToEndAsync();
