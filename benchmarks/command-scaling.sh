@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # End-to-end figures of the command a user runs (docs/performance.md, "The command a user runs"): publishes netadjust
-# ReadyToRun for this machine's runtime (as `dotnet tool install` installs it on linux-x64), makes the seeded plane
+# for this machine's runtime (native on linux-x64, as `dotnet tool install` installs it there), makes the seeded plane
 # networks of `netadjust simulate --kind plane --points N --seed 1` in WORK (kept between calls: they are large), and
 # times `netadjust adjust NET --date 2026-12-01 --json OUT.json --report OUT.txt --quiet` with GNU time: wall, user
 # and system CPU seconds and peak resident memory, with the 1-minute load average before and after each run.
@@ -9,7 +9,7 @@ set -euo pipefail
 work="$1"; shift
 mkdir -p "$work"
 rid="$(dotnet --info | sed -n 's/^ *RID: *//p' | head -1)"
-dotnet publish src/NetAdjust.Cli -c Release -r "$rid" --self-contained false -o "$work/publish" >/dev/null
+dotnet publish src/NetAdjust.Cli -c Release -r "$rid" -o "$work/publish" >/dev/null
 cmd="$work/publish/NetAdjust.Cli"
 printf '| points | observations | wall (s) | CPU user + sys (s) | peak memory (GiB) | load before / after |\n'
 printf '| ---: | ---: | ---: | ---: | ---: | --- |\n'
