@@ -30,8 +30,9 @@ public static partial class Adjuster
     /// The pattern of A, resolved once per adjustment: the unknowns an observation's equation reaches do not change
     /// between iterations, so each row's columns (in order of first appearance among its partial derivatives, held
     /// parameters left out) and the place of each partial derivative in its row are found once, by the unknowns'
-    /// names; every later linearisation only computes values. Row i's <see cref="Columns"/> array is shared by all
-    /// the linearisations of the adjustment (read-only).
+    /// names; every later linearisation only computes values. The columns of all rows are one array (compressed
+    /// rows, read-only), shared by every linearisation of the adjustment; each linearisation writes its coefficients
+    /// into one array of the same layout, so no row is an object of its own.
     /// </summary>
     private sealed class DesignPattern
     {
@@ -47,10 +48,14 @@ public static partial class Adjuster
         private readonly int[] _slots;
         private readonly byte[] _slotCount;
 
-        private DesignPattern(int[][] columns, int[] partialStart, int[] target, int mostPartials, int[] slots,
-            byte[] slotCount)
+        // The columns of row i (observations, then control rows): _columns[_rowStart[i] .. _rowStart[i + 1]).
+        private readonly int[] _columns, _rowStart;
+
+        private DesignPattern(int[] columns, int[] rowStart, int[] partialStart, int[] target, int mostPartials,
+            int[] slots, byte[] slotCount)
         {
-            Columns = columns;
+            _columns = columns;
+            _rowStart = rowStart;
             _partialStart = partialStart;
             _target = target;
             MostPartials = mostPartials;
@@ -62,8 +67,16 @@ public static partial class Adjuster
         public ReadOnlySpan<int> Slots(int row) =>
             _slots.AsSpan(ObservationKindRegistry.MostSlots * row, _slotCount[row]);
 
-        /// <summary>The columns of each row: the observations', then the control rows'.</summary>
-        public int[][] Columns { get; }
+        /// <summary>The rows: the observations', then the control rows'.</summary>
+        public int RowCount => _rowStart.Length - 1;
+
+        /// <summary>The number of coefficients of all rows (the length of a linearisation's array of them).</summary>
+        public int CoefficientCount => _columns.Length;
+
+        /// <summary>Row <paramref name="row"/> over <paramref name="coefficients"/>, an array of
+        /// <see cref="CoefficientCount"/> in this pattern's layout.</summary>
+        public SparseRow Row(double[] coefficients, int row) =>
+            new(_columns, coefficients, _rowStart[row], _rowStart[row + 1] - _rowStart[row]);
 
         /// <summary>The largest number of partial derivatives of one observation's equation.</summary>
         public int MostPartials { get; }
@@ -77,11 +90,12 @@ public static partial class Adjuster
             LinearisationCount++;
             PatternCount++;
             int m = network.Observations.Count;
-            var columns = new int[m + control.Count][];
-            var rows = new SparseRow[columns.Length];
-            var l = new double[rows.Length];
+            var rowStart = new int[m + control.Count + 1];
+            var l = new double[m + control.Count];
             var partialStart = new int[m + 1];
             var target = new List<int>(m * 5);
+            var allColumns = new List<int>(m * 5);
+            var allValues = new List<double>(m * 5);
             var cols = new List<int>();
             var vals = new List<double>();
             int most = 0;
@@ -121,19 +135,25 @@ public static partial class Adjuster
                 l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
                 most = Math.Max(most, count);
                 partialStart[i + 1] = target.Count;
-                columns[i] = cols.ToArray();
-                rows[i] = new SparseRow(columns[i], vals.ToArray());
+                allColumns.AddRange(cols);
+                allValues.AddRange(vals);
+                rowStart[i + 1] = allColumns.Count;
             }
             for (int k = 0; k < control.Count; k++)
             {
                 var c = control[k];
-                columns[m + k] = [index.IndexOf(c.PointId, c.Parameter)];
+                allColumns.Add(index.IndexOf(c.PointId, c.Parameter));
+                allValues.Add(1.0);
+                rowStart[m + k + 1] = allColumns.Count;
                 state.TryGet(c.PointId, c.Parameter, out double current);
-                rows[m + k] = new SparseRow(columns[m + k], [1.0]);
                 l[m + k] = c.Given - current;
             }
-            return (new DesignPattern(columns, partialStart, target.ToArray(), most, slots, slotCount),
-                new Linearisation(rows, l));
+            var pattern = new DesignPattern(allColumns.ToArray(), rowStart, partialStart, target.ToArray(), most,
+                slots, slotCount);
+            var coefficients = allValues.ToArray();
+            var rows = new SparseRow[l.Length];
+            for (int i = 0; i < rows.Length; i++) rows[i] = pattern.Row(coefficients, i);
+            return (pattern, new Linearisation(rows, l));
 
             // One partial derivative into the row: a new column, added to a repeated one, or left out (held).
             void Place(int j, double derivative)
@@ -165,25 +185,28 @@ public static partial class Adjuster
             return (points, sets);
         }
 
-        /// <summary>The values of observation <paramref name="row"/>'s row of A from its equation's partial
-        /// derivatives (in the order of its partials), summed in the order the first linearisation summed
-        /// them.</summary>
+        /// <summary>Writes the coefficient of control row <paramref name="row"/> (one column: 1).</summary>
+        public void Unit(int row, double[] coefficients) => coefficients[_rowStart[row]] = 1.0;
+
+        /// <summary>Writes the coefficients of observation <paramref name="row"/>'s row of A into its place of
+        /// <paramref name="coefficients"/> from its equation's partial derivatives (in the order of its partials),
+        /// summed in the order the first linearisation summed them.</summary>
         /// <exception cref="InvalidOperationException">When the equation has another number of partial derivatives
         /// than when the pattern was resolved.</exception>
-        public double[] Values(int row, ReadOnlySpan<double> partials)
+        public void Values(int row, ReadOnlySpan<double> partials, double[] coefficients)
         {
             int start = _partialStart[row];
             if (partials.Length != _partialStart[row + 1] - start)
                 throw new InvalidOperationException(
                     $"The equation of observation {row + 1} changed its partial derivatives between iterations.");
-            var values = Columns[row].Length == 0 ? [] : new double[Columns[row].Length];
+            var values = coefficients.AsSpan(_rowStart[row], _rowStart[row + 1] - _rowStart[row]);
+            values.Clear();
             for (int k = 0; k < partials.Length; k++)
             {
                 int t = _target[start + k];
                 if (t >= 0) values[t] = partials[k];
                 else if (t != Held) values[-2 - t] += partials[k];
             }
-            return values;
         }
     }
 }

@@ -329,6 +329,8 @@ public static partial class Adjuster
         int m = network.Observations.Count;
         var rows = new SparseRow[m + control.Count];
         var l = new double[rows.Length];
+        // one array of coefficients for all rows, in the pattern's layout (no array per row)
+        var coefficients = new double[pattern.CoefficientCount];
         void Rows(int from, int to)
         {
             Span<double> d = pattern.MostPartials <= 64 ? stackalloc double[pattern.MostPartials]
@@ -338,7 +340,8 @@ public static partial class Adjuster
                 var o = network.Observations[i];
                 double value = ObservationKindRegistry.EvaluateInto(o, state, pattern.Slots(i), d, out int count);
                 l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
-                rows[i] = new SparseRow(pattern.Columns[i], pattern.Values(i, d[..count]));
+                pattern.Values(i, d[..count], coefficients);
+                rows[i] = pattern.Row(coefficients, i);
             }
         }
         // On a large network the second half of the rows is evaluated on another core: each row alone, into its own
@@ -350,7 +353,8 @@ public static partial class Adjuster
         {
             var c = control[k];
             state.TryGet(c.PointId, c.Parameter, out double current);
-            rows[m + k] = new SparseRow(pattern.Columns[m + k], [1.0]);
+            pattern.Unit(m + k, coefficients);
+            rows[m + k] = pattern.Row(coefficients, m + k);
             l[m + k] = c.Given - current;
         }
         return new Linearisation(rows, l);

@@ -67,8 +67,8 @@ public class IndependentSolveTests
         for (int i = 0; i < v.Length; i++)
             for (int k = 0; k < r.DesignRows[i].Columns.Length; k++)
                 atpv[r.DesignRows[i].Columns[k]] += r.DesignRows[i].Values[k] * pv[i];
-        double scale = r.DesignRows.Take(v.Length).Select((row, i) => row.Values.DefaultIfEmpty(0).Max(Math.Abs) *
-            Math.Abs(pv[i])).Max();
+        double scale = r.DesignRows.Take(v.Length)
+            .Select((row, i) => row.Values.ToArray().DefaultIfEmpty(0).Max(Math.Abs) * Math.Abs(pv[i])).Max();
         Assert.All(atpv, x => Assert.True(Math.Abs(x) < 1e-8 * scale, $"AᵀPv component {x}"));
     }
 

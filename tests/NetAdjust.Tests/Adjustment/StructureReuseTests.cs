@@ -43,6 +43,34 @@ public class StructureReuseTests
     }
 
     [Fact]
+    public void TheRowsOfALinearisationShareOneArrayOfColumnsAndOneOfCoefficients()
+    {
+        // Compact rows of A: no array per observation, the rows laid end to end in the order of the rows.
+        var result = Adjuster.Adjust(Plane(7));
+        var rows = result.DesignRows;
+        Assert.True(rows.Count > 500, "the test needs a network of some size");
+        var (columns, coefficients) = rows[0].Storage;
+        int total = 0;
+        for (int i = 0; i < rows.Count; i++)
+        {
+            Assert.Same(columns, rows[i].Storage.Columns);
+            Assert.Same(coefficients, rows[i].Storage.Values);
+            total += rows[i].Count;
+        }
+        Assert.Equal(total, columns.Length);
+        Assert.Equal(total, coefficients.Length);
+    }
+
+    [Fact]
+    public void ARowOfItsOwnArraysNeedsAsManyCoefficientsAsColumns()
+    {
+        var row = new NetAdjust.LinearAlgebra.SparseRow([3, 1], [0.5, -2.0]);
+        Assert.Equal([3, 1], row.Columns.ToArray());
+        Assert.Equal(0.5 * 7 + -2.0 * 11, row.Dot([0, 11, 0, 7]));
+        Assert.Throws<ArgumentException>(() => new NetAdjust.LinearAlgebra.SparseRow([3, 1], [0.5]));
+    }
+
+    [Fact]
     public void TheColumnsOfTheDesignMatrixAreResolvedOnceAndMatchALookupByNames()
     {
         // Directions, slope distances, zenith angles and angles, with two held points (held columns left out).
@@ -68,9 +96,9 @@ public class StructureReuseTests
                 else { cols.Add(j); vals.Add(p.Derivative); }
             }
             var row = result.DesignRows[i];
-            Assert.Equal(cols, row.Columns);
+            Assert.Equal(cols, row.Columns.ToArray());
             Assert.Equal(vals.Select(BitConverter.DoubleToInt64Bits),
-                row.Values.Select(BitConverter.DoubleToInt64Bits));
+                row.Values.ToArray().Select(BitConverter.DoubleToInt64Bits));
         }
     }
 

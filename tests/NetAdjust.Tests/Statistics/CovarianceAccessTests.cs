@@ -61,7 +61,7 @@ public class CovarianceAccessTests
             var cols = new HashSet<int>();
             for (int a = 0; a < blk.Size; a++)
                 if (Enumerable.Range(0, blk.Size).Any(b => blk[a, b] != 0))
-                    cols.UnionWith(again.DesignRows[blk.Rows[a]].Columns);
+                    cols.UnionWith(again.DesignRows[blk.Rows[a]].Columns.ToArray());
             foreach (int i in cols) foreach (int j in cols) allowed.Add((i, j));
         }
         var u = again.Unknowns.Unknowns;

@@ -110,7 +110,7 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
             _rowStart = new int[rows.Count + 1];
             for (int s = 0; s < rows.Count; s++) _rowStart[s + 1] = _rowStart[s] + rows[s].Columns.Length;
             _columns = new int[_rowStart[rows.Count]];
-            for (int s = 0; s < rows.Count; s++) rows[s].Columns.CopyTo(_columns, _rowStart[s]);
+            for (int s = 0; s < rows.Count; s++) rows[s].Columns.CopyTo(_columns.AsSpan(_rowStart[s]));
             _blockIsRow = weights.BlockIsRow;
             if (_blockIsRow) { _blockOfRowStart = []; _blockRows = []; return; }
             _blockOfRowStart = new int[weights.Blocks.Count + 1];
@@ -128,7 +128,7 @@ public sealed class SparseNormalEquationsSolver : IGeometryAwareSolver
                     weights.Blocks.Count + 1 != _blockOfRowStart.Length))
                 return false;
             for (int s = 0; s < rows.Count; s++)
-                if (!rows[s].Columns.AsSpan().SequenceEqual(_columns.AsSpan(_rowStart[s],
+                if (!rows[s].Columns.SequenceEqual(_columns.AsSpan(_rowStart[s],
                     _rowStart[s + 1] - _rowStart[s])))
                     return false;
             if (_blockIsRow) return BlocksAreRows(weights);

@@ -16,7 +16,7 @@ public class AdjacencyGraphTests
         var naive = Enumerable.Range(0, u).Select(_ => new SortedSet<int>()).ToArray();
         foreach (var block in w.Blocks)
         {
-            var vertices = block.Rows.SelectMany(r => rows[r].Columns).Distinct().ToArray();
+            var vertices = block.Rows.SelectMany(r => rows[r].Columns.ToArray()).Distinct().ToArray();
             foreach (int a in vertices) foreach (int b in vertices) if (a != b) naive[a].Add(b);
         }
         Assert.True(graph.Adjacent.Length > 200_000, $"{graph.Adjacent.Length} entries");
