@@ -15,13 +15,16 @@ public static partial class Adjuster
     {
         var (index, state) = Setup(network);
         var control = ControlRows(network, index);
-        var (_, (rows, _)) = DesignPattern.Resolve(network, index, state, control);
+        var (_, (rows, _, _)) = DesignPattern.Resolve(network, index, state, control);
         var diagonal = new double[rows.Length];
         for (int i = 0; i < network.Observations.Count; i++)
             diagonal[i] = 1 / Sq(network.Observations[i].StandardDeviation);
         for (int k = 0; k < control.Count; k++) diagonal[network.Observations.Count + k] = 1 / Sq(control[k].Sd);
         return (index.Count, rows, WeightMatrix.Diagonal(diagonal), SolverChoice.GeometryOf(network, index));
     }
+
+    /// <summary>Arrays of coefficients of A made on this thread (for the tests of their reuse).</summary>
+    [ThreadStatic] internal static int CoefficientArrayCount;
 
     /// <summary>Design patterns resolved on this thread (for the tests of their reuse).</summary>
     [ThreadStatic] internal static int PatternCount;
@@ -66,6 +69,29 @@ public static partial class Adjuster
         /// <summary>The slots of observation <paramref name="row"/>'s points (and set) in the state.</summary>
         public ReadOnlySpan<int> Slots(int row) =>
             _slots.AsSpan(ObservationKindRegistry.MostSlots * row, _slotCount[row]);
+
+        // Linearisations no longer in use (their arrays serve the next linearisation instead of new ones: a
+        // million-point network would otherwise allocate about 0.6 GB of large arrays per linearisation).
+        private readonly Stack<Linearisation> _spare = new();
+
+        /// <summary>Arrays for a linearisation: those of one handed back by <see cref="Return"/>, else new ones.
+        /// </summary>
+        public Linearisation Rent()
+        {
+            lock (_spare)
+            {
+                if (_spare.TryPop(out var spare)) return spare;
+            }
+            CoefficientArrayCount++;
+            return new Linearisation(new SparseRow[RowCount], new double[RowCount], new double[CoefficientCount]);
+        }
+
+        /// <summary>Hands back a linearisation that nothing uses any more; the next <see cref="Rent"/> overwrites
+        /// it.</summary>
+        public void Return(Linearisation linearisation)
+        {
+            lock (_spare) _spare.Push(linearisation);
+        }
 
         /// <summary>The rows: the observations', then the control rows'.</summary>
         public int RowCount => _rowStart.Length - 1;
@@ -151,9 +177,10 @@ public static partial class Adjuster
             var pattern = new DesignPattern(allColumns.ToArray(), rowStart, partialStart, target.ToArray(), most,
                 slots, slotCount);
             var coefficients = allValues.ToArray();
+            CoefficientArrayCount++;
             var rows = new SparseRow[l.Length];
             for (int i = 0; i < rows.Length; i++) rows[i] = pattern.Row(coefficients, i);
-            return (pattern, new Linearisation(rows, l));
+            return (pattern, new Linearisation(rows, l, coefficients));
 
             // One partial derivative into the row: a new column, added to a repeated one, or left out (held).
             void Place(int j, double derivative)

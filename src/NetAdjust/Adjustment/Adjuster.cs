@@ -72,7 +72,7 @@ public static partial class Adjuster
         // Final linearisation at the solution: residuals, covariance.
         options.Progress?.Report(new AdjustmentProgress("final factorisation and covariance", null));
         // (the σ the model filled in do not enter the linearisation, so the one at the last state still holds)
-        var (finalRows, finalL) = current ?? Linearise(network, pattern, state, control);
+        var (finalRows, finalL, _) = current ?? Linearise(network, pattern, state, control);
         INormalFactor? finalFactor = u > 0 ? plan.Factorize(solver, finalRows, weights) : null;
         double vtpv = weights.Quadratic(finalL); // v = −l at the solution
         int dof = n - u + plan.ConditionCount;
@@ -211,7 +211,8 @@ public static partial class Adjuster
                 throw new NoConvergenceException(NoConvergenceMessage(options, index, lastDx));
             iterations++;
             options.Progress?.Report(new AdjustmentProgress($"Gauss-Newton iteration {before + iterations}", null));
-            var (rows, l) = current ?? Linearise(network, pattern, state, control);
+            var linearisation = current ?? Linearise(network, pattern, state, control);
+            var (rows, l, _) = linearisation;
             current = null;
             var factor = plan.Factorize(solver, rows, weights);
             var pl = weights.Multiply(l);
@@ -222,8 +223,14 @@ public static partial class Adjuster
                 for (int k = 0; k < r.Columns.Length; k++) rhs[r.Columns[k]] += r.Values[k] * pl[i]; // AᵀP l
             }
             lastDx = plan.Step(factor, rhs);
-            // the iteration's factor is not used after its step: its storage serves the next factorisation
-            (factor as IRecyclableFactor)?.Recycle();
+            double vtpv = weights.Quadratic(l);
+            // the iteration's factor is not used after its step: its storage serves the next factorisation, and the
+            // linearisation it was made from (which only a factor of our own may still hold) serves the next one
+            if (factor is IRecyclableFactor recyclable)
+            {
+                recyclable.Recycle();
+                pattern.Return(linearisation);
+            }
             converged = true;
             for (int j = 0; j < u; j++)
             {
@@ -245,13 +252,15 @@ public static partial class Adjuster
             // state it keeps unless it halved once more after that trial; then the next iteration starts from it.
             Linearisation? trial = null;
             int trials = 0;
-            double lambda = StepControl.Apply(state, index, lastDx, weights.Quadratic(l), () =>
+            double lambda = StepControl.Apply(state, index, lastDx, vtpv, () =>
             {
                 trials++;
+                if (trial is { } dropped) pattern.Return(dropped); // a shorter step replaces the last trial
                 trial = Linearise(network, pattern, state, control);
                 return weights.Quadratic(trial.Value.L);
             });
             if (lambda == Math.Pow(0.5, trials - 1)) current = trial;
+            else if (trial is { } unused) pattern.Return(unused);
             // A shortened step (λ < 1) does not by itself stop convergence: when every correction is already below
             // its tolerance the state is within the tolerances of the solution whatever λ, and a step that small is
             // halved by rounding alone (an earth-centred baseline, a difference of coordinates near 6.4e6 m, moves by
@@ -314,8 +323,9 @@ public static partial class Adjuster
         return rows;
     }
 
-    /// <summary>Rows of A and misclosures l = observed − computed at one state.</summary>
-    private readonly record struct Linearisation(SparseRow[] Rows, double[] L);
+    /// <summary>Rows of A and misclosures l = observed − computed at one state; the rows are views into
+    /// <paramref name="Coefficients"/>.</summary>
+    private readonly record struct Linearisation(SparseRow[] Rows, double[] L, double[] Coefficients);
 
     /// <summary>Linearisations made on this thread (for the tests of their reuse).</summary>
     [ThreadStatic] internal static int LinearisationCount;
@@ -327,10 +337,9 @@ public static partial class Adjuster
     {
         LinearisationCount++;
         int m = network.Observations.Count;
-        var rows = new SparseRow[m + control.Count];
-        var l = new double[rows.Length];
-        // one array of coefficients for all rows, in the pattern's layout (no array per row)
-        var coefficients = new double[pattern.CoefficientCount];
+        // one array of coefficients for all rows, in the pattern's layout (no array per row); the arrays of a
+        // linearisation no longer in use when there is one (every value is written again)
+        var (rows, l, coefficients) = pattern.Rent();
         void Rows(int from, int to)
         {
             Span<double> d = pattern.MostPartials <= 64 ? stackalloc double[pattern.MostPartials]
@@ -357,7 +366,7 @@ public static partial class Adjuster
             rows[m + k] = pattern.Row(coefficients, m + k);
             l[m + k] = c.Given - current;
         }
-        return new Linearisation(rows, l);
+        return new Linearisation(rows, l, coefficients);
     }
 
     /// <summary>Unknowns and start values with the datum by the control (datum check and approximate coordinates

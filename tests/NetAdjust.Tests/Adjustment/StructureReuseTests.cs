@@ -62,6 +62,21 @@ public class StructureReuseTests
     }
 
     [Fact]
+    public void EveryLinearisationOfAnAdjustmentWritesIntoTheArraysOfTheOneBefore()
+    {
+        // The sparse engine's factor of an iteration is done with once its step is taken, and so is the linearisation
+        // it came from: the next linearisation writes over its arrays instead of allocating new ones. The result is
+        // the same as with arrays of its own (the final rows against a lookup by names in the test below; the
+        // golden outputs).
+        var network = Plane(5);
+        int linearisations = Adjuster.LinearisationCount, arrays = Adjuster.CoefficientArrayCount;
+        var result = Adjuster.Adjust(network);
+        Assert.True(Adjuster.LinearisationCount - linearisations >= 3, "the test needs several linearisations");
+        Assert.Equal(1, Adjuster.CoefficientArrayCount - arrays);
+        Assert.Same(result.DesignRows[0].Storage.Values, result.DesignRows[^1].Storage.Values);
+    }
+
+    [Fact]
     public void ARowOfItsOwnArraysNeedsAsManyCoefficientsAsColumns()
     {
         var row = new NetAdjust.LinearAlgebra.SparseRow([3, 1], [0.5, -2.0]);
