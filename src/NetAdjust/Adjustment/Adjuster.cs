@@ -226,11 +226,7 @@ public static partial class Adjuster
             double vtpv = weights.Quadratic(l);
             // the iteration's factor is not used after its step: its storage serves the next factorisation, and the
             // linearisation it was made from (which only a factor of our own may still hold) serves the next one
-            if (factor is IRecyclableFactor recyclable)
-            {
-                recyclable.Recycle();
-                pattern.Return(linearisation);
-            }
+            if ((factor as IRecyclableFactor)?.Recycle() == true) pattern.Return(linearisation);
             converged = true;
             for (int j = 0; j < u; j++)
             {

@@ -41,7 +41,9 @@ public interface INormalFactor
 internal interface IRecyclableFactor
 {
     /// <summary>Hands the storage on; any later use of the factor throws.</summary>
-    void Recycle();
+    /// <returns>True when the factor was made by the sparse engine and keeps nothing its owner may reuse (the rows
+    /// it was made from included); false when it wraps a factor of another kind, which may still hold them.</returns>
+    bool Recycle();
 }
 
 /// <summary>The normal matrix is numerically singular: some unknown is not determined by the observations and

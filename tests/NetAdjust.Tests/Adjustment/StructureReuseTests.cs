@@ -1,5 +1,6 @@
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
+using NetAdjust.LinearAlgebra;
 using NetAdjust.Network;
 using NetAdjust.Observations;
 using NetAdjust.Procedures;
@@ -74,6 +75,19 @@ public class StructureReuseTests
         Assert.True(Adjuster.LinearisationCount - linearisations >= 3, "the test needs several linearisations");
         Assert.Equal(1, Adjuster.CoefficientArrayCount - arrays);
         Assert.Same(result.DesignRows[0].Storage.Values, result.DesignRows[^1].Storage.Values);
+    }
+
+    [Fact]
+    public void AFactorOfAnotherKindKeepsItsRowsAndEachLinearisationGetsArraysOfItsOwn()
+    {
+        // The dense solver's factor is not the sparse engine's: it may keep the rows it was made from, so nothing is
+        // written over.
+        var network = Plane(5);
+        int linearisations = Adjuster.LinearisationCount, arrays = Adjuster.CoefficientArrayCount;
+        Adjuster.Adjust(network, AdjustmentOptions.Default with { Solver = new DenseNormalEquationsSolver() });
+        int made = Adjuster.LinearisationCount - linearisations;
+        Assert.True(made >= 3, "the test needs several linearisations");
+        Assert.Equal(made, Adjuster.CoefficientArrayCount - arrays);
     }
 
     [Fact]

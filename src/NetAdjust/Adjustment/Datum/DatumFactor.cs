@@ -61,7 +61,7 @@ internal sealed class DatumFactor : INormalFactor, IRecyclableFactor
 
     /// <summary>Hands the inner factor's storage to the next factorisation (see
     /// <see cref="IRecyclableFactor"/>).</summary>
-    public void Recycle() => (_inner as IRecyclableFactor)?.Recycle();
+    public bool Recycle() => _inner is IRecyclableFactor inner && inner.Recycle();
 
     private int D => _g.Length;
 

@@ -74,11 +74,12 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
     /// <summary>Hands this factor's storage to the next factorisation on the same pattern; the factor is unusable
     /// afterwards (any use throws). For the Gauss-Newton iterations, whose factors are dropped after their step.
     /// </summary>
-    public void Recycle()
+    /// <returns>True: nothing of the factor's inputs is used again.</returns>
+    public bool Recycle()
     {
         lock (_gate)
         {
-            if (_recycled) return;
+            if (_recycled) return true;
             _recycled = true;
             var storage = _l;
             _l = [];
@@ -86,6 +87,7 @@ internal sealed class SparseCholeskyFactor : INormalFactor, IRecyclableFactor
             _cachedSolution = null;
             _cachedColumn = -1;
             if (storage.Length > 0 && !_overwritten) Symbolic.OfferSpare(storage);
+            return true;
         }
     }
 
