@@ -71,27 +71,22 @@ public static partial class Adjuster
             _slots.AsSpan(ObservationKindRegistry.MostSlots * row, _slotCount[row]);
 
         // Linearisations no longer in use (their arrays serve the next linearisation instead of new ones: a
-        // million-point network would otherwise allocate about 0.6 GB of large arrays per linearisation).
+        // million-point network would otherwise allocate about 0.6 GB of large arrays per linearisation). Rented and
+        // returned by the adjusting thread only.
         private readonly Stack<Linearisation> _spare = new();
 
         /// <summary>Arrays for a linearisation: those of one handed back by <see cref="Return"/>, else new ones.
         /// </summary>
         public Linearisation Rent()
         {
-            lock (_spare)
-            {
-                if (_spare.TryPop(out var spare)) return spare;
-            }
+            if (_spare.TryPop(out var spare)) return spare;
             CoefficientArrayCount++;
             return new Linearisation(new SparseRow[RowCount], new double[RowCount], new double[CoefficientCount]);
         }
 
         /// <summary>Hands back a linearisation that nothing uses any more; the next <see cref="Rent"/> overwrites
         /// it.</summary>
-        public void Return(Linearisation linearisation)
-        {
-            lock (_spare) _spare.Push(linearisation);
-        }
+        public void Return(Linearisation linearisation) => _spare.Push(linearisation);
 
         /// <summary>The rows: the observations', then the control rows'.</summary>
         public int RowCount => _rowStart.Length - 1;

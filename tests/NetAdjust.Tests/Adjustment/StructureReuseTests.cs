@@ -71,10 +71,9 @@ public class StructureReuseTests
         // golden outputs).
         var network = Plane(5);
         int linearisations = Adjuster.LinearisationCount, arrays = Adjuster.CoefficientArrayCount;
-        var result = Adjuster.Adjust(network);
+        Adjuster.Adjust(network);
         Assert.True(Adjuster.LinearisationCount - linearisations >= 3, "the test needs several linearisations");
         Assert.Equal(1, Adjuster.CoefficientArrayCount - arrays);
-        Assert.Same(result.DesignRows[0].Storage.Values, result.DesignRows[^1].Storage.Values);
     }
 
     [Fact]
