@@ -32,8 +32,14 @@ internal static class MultifrontalCholesky
     /// estimated work reaches <paramref name="minimumWork"/> and the split shortens the critical path; the result
     /// is bit-identical to the sequential factorisation (each front computed with the same arithmetic, its
     /// children extend-added in the same order).</summary>
+    /// <param name="sym">The analysis.</param>
+    /// <param name="lowerValues">The lower triangle of C on the analysis's pattern.</param>
+    /// <param name="workers">Threads for the independent subtrees.</param>
+    /// <param name="minimumWork">Estimated work below which the subtrees go on one thread.</param>
+    /// <param name="rowsInParallel">Let the large fronts above the subtrees share their row loops among the cores
+    /// (null: when there is more than one; the factor is the same either way).</param>
     internal static (double[] L, double[] Scale) Factorize(SymbolicCholesky sym, double[] lowerValues, int workers,
-        double minimumWork)
+        double minimumWork, bool? rowsInParallel = null)
     {
         int n = sym.Size;
         var lower = sym.LowerC;
@@ -50,13 +56,13 @@ internal static class MultifrontalCholesky
         var L = sym.TakeSpare() ?? GC.AllocateUninitializedArray<double>(checked((int)sym.StoredEntries));
         int ns = sym.SupernodeCount;
         var updates = new double[]?[ns];
-        bool rowsInParallel = Environment.ProcessorCount > 1;
+        bool rowsParallel = rowsInParallel ?? Environment.ProcessorCount > 1;
 
         var schedule = workers > 1 && ns > 1 ? sym.ScheduleFor(workers) : null;
         if (schedule is null || !schedule.Worthwhile(minimumWork))
         {
             var scratch = new FrontScratch(n, sym.LargestFront);
-            for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, scratch, rowsInParallel);
+            for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, scratch, rowsParallel);
             return (L, scale);
         }
 
@@ -82,11 +88,11 @@ internal static class MultifrontalCholesky
             // (every front is cleared before its assembly; the update matrices left behind are garbage).
             Array.Clear(updates);
             var again = new FrontScratch(n, sym.LargestFront);
-            for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, again, rowsInParallel);
+            for (int s = 0; s < ns; s++) FactorFront(sym, s, lowerValues, scale, L, updates, again, rowsParallel);
             return (L, scale);
         }
         var topScratch = new FrontScratch(n, sym.LargestFront);
-        foreach (int s in schedule.Top) FactorFront(sym, s, lowerValues, scale, L, updates, topScratch, rowsInParallel);
+        foreach (int s in schedule.Top) FactorFront(sym, s, lowerValues, scale, L, updates, topScratch, rowsParallel);
         return (L, scale);
     }
 
@@ -134,7 +140,7 @@ internal static class MultifrontalCholesky
         ExtendAddChildren(sym, s, updates, relpos, L, off, k, U, mu, scratch.RowMap, pool);
 
         // Dense partial factorisation of the front.
-        FactorPivotBlock(sym, L, off, k, f);
+        FactorPivotBlock(sym, L, off, k, f, rowsInParallel);
         SolveOffDiagonal(L, off, k, m, rowsInParallel);
         if (mu > 0) DenseUpdate(L, off, k, U!, mu, rowsInParallel);
         updates[s] = U;
@@ -180,25 +186,94 @@ internal static class MultifrontalCholesky
         }
     }
 
-    /// <summary>L₁₁ L₁₁ᵀ = F₁₁ in place (rows 0..k−1 of the block, row length k): row-oriented Cholesky.</summary>
+    /// <summary>Pivot blocks of at least this many columns are factorised with their rows on all cores
+    /// (<see cref="FactorPivotBlock"/>).</summary>
+    internal const int ParallelPivotColumns = 192;
+
+    /// <summary>Rows of a pivot block computed by one thread before the rows below them go on all cores.</summary>
+    private const int PivotPanel = 48;
+
+    /// <summary>
+    /// L₁₁ L₁₁ᵀ = F₁₁ in place (rows 0..k−1 of the block, row length k): row-oriented Cholesky, each entry
+    /// L(i, c) = (F(i, c) − Σ_{t&lt;c} L(i, t) L(c, t)) / L(c, c) with one dot product over t &lt; c.
+    /// </summary>
+    /// <remarks>
+    /// A wide block (the top separators of a large network: thousands of columns, alone at the root of the tree)
+    /// goes by panels of columns when its rows may run in parallel: the rows of a panel are finished on one thread
+    /// (their entries right of the panel's start and their pivots, in order), then every row below them takes the
+    /// panel's columns on all cores; each row needs only the finished rows above it and its own entries to the left.
+    /// Every entry is the same dot product as in the one-thread order: the factor is bit for bit the same.
+    /// </remarks>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    private static void FactorPivotBlock(SymbolicCholesky sym, double[] L, long off, int k, int f)
+    private static void FactorPivotBlock(SymbolicCholesky sym, double[] L, long off, int k, int f, bool rowsInParallel)
+    {
+        if (!rowsInParallel || k < ParallelPivotColumns)
+        {
+            for (int i = 0; i < k; i++) PivotRow(sym, L, off, k, f, i, 0);
+            return;
+        }
+        int parts = Environment.ProcessorCount * 4;
+        for (int b = 0; b < k; b += PivotPanel)
+        {
+            int e = Math.Min(b + PivotPanel, k);
+            for (int i = b; i < e; i++) PivotRow(sym, L, off, k, f, i, b);
+            int below = k - e;
+            if (below == 0) break;
+            if ((double)below * (e - b) * e < ParallelWork) { PanelColumns(L, off, k, b, e, e, k); continue; }
+            int p = Math.Min(parts, below);
+            Parallel.For(0, p, q =>
+                PanelColumns(L, off, k, b, e, e + (int)((long)below * q / p), e + (int)((long)below * (q + 1) / p)));
+        }
+    }
+
+    /// <summary>Row i of the pivot block from column <paramref name="from"/> on: its entries left of the
+    /// diagonal, then its pivot.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    private static void PivotRow(SymbolicCholesky sym, double[] L, long off, int k, int f, int i, int from)
     {
         var ls = L.AsSpan();
-        for (int i = 0; i < k; i++)
+        var ri = ls.Slice((int)(off + ((long)i * k)), k);
+        for (int c = from; c < i; c++)
         {
-            var ri = ls.Slice((int)(off + ((long)i * k)), k);
-            for (int c = 0; c < i; c++)
+            var rc = ls.Slice((int)(off + ((long)c * k)), k);
+            ri[c] = (ri[c] - DenseKernels.Dot(ri, rc, c)) / rc[c];
+        }
+        double d = ri[i] - DenseKernels.Dot(ri, ri, i);
+        if (!(d > DenseNormalEquationsSolver.PivotTolerance))
+            throw new SingularNormalMatrixException(sym.Perm[f + i]);
+        ri[i] = Math.Sqrt(d);
+    }
+
+    /// <summary>Columns [c0, c1) of the pivot block's rows [i0, i1) (all below the panel's rows), two rows at
+    /// once with the arithmetic of <see cref="PivotRow"/>.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    private static void PanelColumns(double[] L, long off, int k, int c0, int c1, int i0, int i1)
+    {
+        var ls = L.AsSpan();
+        int i = i0;
+        for (; i + 1 < i1; i += 2)
+        {
+            var ri0 = ls.Slice((int)(off + ((long)i * k)), k);
+            var ri1 = ls.Slice((int)(off + ((long)(i + 1) * k)), k);
+            for (int c = c0; c < c1; c++)
             {
                 var rc = ls.Slice((int)(off + ((long)c * k)), k);
-                // L(i, c) = (F(i, c) − Σ_{t<c} L(i, t) L(c, t)) / L(c, c)
+                DenseKernels.Dot1x2Exact(rc, ri0, ri1, c, out double d0, out double d1);
+                ri0[c] = (ri0[c] - d0) / rc[c];
+                ri1[c] = (ri1[c] - d1) / rc[c];
+            }
+        }
+        for (; i < i1; i++)
+        {
+            var ri = ls.Slice((int)(off + ((long)i * k)), k);
+            for (int c = c0; c < c1; c++)
+            {
+                var rc = ls.Slice((int)(off + ((long)c * k)), k);
                 ri[c] = (ri[c] - DenseKernels.Dot(ri, rc, c)) / rc[c];
             }
-            double d = ri[i] - DenseKernels.Dot(ri, ri, i);
-            if (!(d > DenseNormalEquationsSolver.PivotTolerance))
-                throw new SingularNormalMatrixException(sym.Perm[f + i]);
-            ri[i] = Math.Sqrt(d);
         }
     }
 

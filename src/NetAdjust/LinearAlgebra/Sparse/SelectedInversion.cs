@@ -36,8 +36,10 @@ internal static class SelectedInversion
     /// <param name="inPlace">Overwrite L with Z.</param>
     /// <param name="threads">Threads for the tree level (0: the processor count; 1: one thread).</param>
     /// <param name="parallelWork">Estimated flops below which one thread does it all.</param>
+    /// <param name="innerLoops">Let the large supernodes at the top of the tree share their own loops among the
+    /// cores (false: each supernode on one thread; the entries are the same either way).</param>
     internal static double[] Compute(SymbolicCholesky sym, double[] L, bool inPlace, int threads,
-        double parallelWork = TreeParallelWork)
+        double parallelWork = TreeParallelWork, bool innerLoops = true)
     {
         // every entry is written below
         var Z = inPlace ? L : GC.AllocateUninitializedArray<double>(L.Length);
@@ -48,11 +50,11 @@ internal static class SelectedInversion
         var schedule = threads >= 2 && sym.SupernodeCount > 1 ? sym.ScheduleFor(threads) : null;
         if (schedule is null || !schedule.Worthwhile(parallelWork))
         {
-            for (int s = sym.SupernodeCount - 1; s >= 0; s--) Supernode(sym, L, Z, s, inPlace, innerParallel: true);
+            for (int s = sym.SupernodeCount - 1; s >= 0; s--) Supernode(sym, L, Z, s, inPlace, innerLoops);
             return Z;
         }
         for (int t = schedule.Top.Length - 1; t >= 0; t--)
-            Supernode(sym, L, Z, schedule.Top[t], inPlace, innerParallel: true);
+            Supernode(sym, L, Z, schedule.Top[t], inPlace, innerLoops);
         Parallel.For(0, schedule.Workers, b =>
         {
             var set = schedule.Sets[b];
@@ -84,29 +86,22 @@ internal static class SelectedInversion
             lo0 = 0;
         }
 
-        // T = L_JJ⁻ᵀ stored row-major: T(c, d) = (L_JJ⁻¹)(d, c), nonzero for d ≥ c.
+        // T = L_JJ⁻ᵀ stored row-major: T(c, d) = (L_JJ⁻¹)(d, c), nonzero for d ≥ c. Rows of T are independent, as are
+        // the rows of Z_JJ below; a wide block (the separators at the top of the tree) shares them among the cores.
         var T = pool.Rent(k * k);
-        for (int c = 0; c < k; c++)
-        {
-            for (int d = 0; d < c; d++) T[(c * k) + d] = 0;
-            // column c of L_JJ⁻¹: solve L_JJ w = e_c, w(d) for d ≥ c
-            T[(c * k) + c] = 1.0 / L[lo0 + ((long)c * k) + c];
-            for (int d = c + 1; d < k; d++)
-            {
-                double v = 0;
-                for (int e = c; e < d; e++) v -= L[lo0 + ((long)d * k) + e] * T[(c * k) + e];
-                T[(c * k) + d] = v / L[lo0 + ((long)d * k) + d];
-            }
-        }
+        bool wide = innerParallel && k >= WideColumns;
+        ForChunks((k + 3) / 4, wide, q => InverseRows(L, lo0, k, T, 4 * q, Math.Min(4 * q + 4, k)));
 
         // Z_JJ ← (L_JJ Lᵀ_JJ)⁻¹ = L_JJ⁻ᵀ L_JJ⁻¹: entry (c, d) = Σ_e T(c, e) T(d, e).
-        for (int c = 0; c < k; c++)
+        ForChunks(k, wide, c =>
+        {
             for (int d = 0; d <= c; d++)
             {
                 double v = DenseKernels.Dot(T.AsSpan((c * k) + c, k - c), T.AsSpan((d * k) + c, k - c), k - c);
                 Z[off + ((long)c * k) + d] = v;
                 Z[off + ((long)d * k) + c] = v;
             }
+        });
         if (mu == 0)
         {
             pool.Return(T);
@@ -116,12 +111,13 @@ internal static class SelectedInversion
 
         // Yᵀ (k×mu, row-major) with Y = L_RJ L_JJ⁻¹: Y(a, c) = Σ_{d ≥ c} L(k+a, d) T(c, d).
         var Yt = pool.Rent(k * mu);
-        for (int a = 0; a < mu; a++)
+        bool large = innerParallel && (double)k * k * mu >= ParallelBlockWork;
+        ForChunks(mu, large, a =>
         {
             var la = new ReadOnlySpan<double>(L, checked((int)(lo0 + ((long)(k + a) * k))), k);
             for (int c = 0; c < k; c++)
                 Yt[(c * mu) + a] = DenseKernels.Dot(la[c..], T.AsSpan((c * k) + c, k - c), k - c);
-        }
+        });
         if (copy is not null) { pool.Return(copy); copy = null; }
 
         // Z_RR gathered from the ancestors' blocks (symmetric, full).
@@ -168,15 +164,92 @@ internal static class SelectedInversion
 
         // Z_JJ −= Yᵀ Z_RJ: (c, d) −= Σ_a Y(a, c) Z_RJ(a, d), on the lower triangle (the only one read: by the
         // gathers of Z_RR and by look-ups of (row ≥ column)); the upper triangle is its mirror.
-        for (int c = 0; c < k; c++)
+        ForChunks(k, large, c =>
+        {
             for (int d = 0; d <= c; d++)
                 Z[off + ((long)c * k) + d] -= DenseKernels.Dot(Yt.AsSpan(c * mu, mu), Zt.AsSpan(d * mu, mu), mu);
+        });
         for (int c = 0; c < k; c++)
             for (int d = c + 1; d < k; d++) Z[off + ((long)c * k) + d] = Z[off + ((long)d * k) + c];
         pool.Return(T);
         pool.Return(Yt);
         pool.Return(Zt);
         pool.Return(zrr);
+    }
+
+    /// <summary>Supernodes of at least this many columns compute T and Z_JJ on all cores when their inner loops may
+    /// run in parallel.</summary>
+    internal const int WideColumns = 128;
+
+    /// <summary>Work k²·mu of a supernode above which its Yᵀ and the update of its Z_JJ go on all cores when its inner
+    /// loops may run in parallel.</summary>
+    internal const double ParallelBlockWork = 4e6;
+
+    /// <summary>body(0) .. body(count − 1), on all cores when <paramref name="parallel"/> (each index computes what
+    /// it would on one thread: the order does not change any entry).</summary>
+    private static void ForChunks(int count, bool parallel, Action<int> body)
+    {
+        if (!parallel) { for (int q = 0; q < count; q++) body(q); return; }
+        Parallel.For(0, count, body);
+    }
+
+    /// <summary>
+    /// Rows c0..c1−1 (at most four) of T = L_JJ⁻ᵀ: T(c, d) = 0 for d &lt; c, T(c, c) = 1 / L(c, c), and for d &gt; c
+    /// T(c, d) = (−Σ_{e=c}^{d−1} L(d, e) T(c, e)) / L(d, d), each sum taken in ascending e. The four rows' sums run
+    /// side by side (four independent chains of additions instead of one waiting on the last), each in its own order:
+    /// the bits of the one-row loop.
+    /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(
+        System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
+    internal static void InverseRows(double[] L, long lo0, int k, double[] T, int c0, int c1)
+    {
+        for (int c = c0; c < c1; c++)
+        {
+            Array.Clear(T, c * k, c);
+            T[(c * k) + c] = 1.0 / L[lo0 + ((long)c * k) + c];
+        }
+        if (c1 - c0 < 4)
+        {
+            for (int c = c0; c < c1; c++)
+                for (int d = c + 1; d < k; d++)
+                {
+                    double v = 0;
+                    for (int e = c; e < d; e++) v -= L[lo0 + ((long)d * k) + e] * T[(c * k) + e];
+                    T[(c * k) + d] = v / L[lo0 + ((long)d * k) + d];
+                }
+            return;
+        }
+        var t0 = T.AsSpan(c0 * k, k);
+        var t1 = T.AsSpan((c0 + 1) * k, k);
+        var t2 = T.AsSpan((c0 + 2) * k, k);
+        var t3 = T.AsSpan((c0 + 3) * k, k);
+        for (int d = c0 + 1; d < k; d++)
+        {
+            var ld = new ReadOnlySpan<double>(L, checked((int)(lo0 + ((long)d * k))), k);
+            double v0 = 0, v1 = 0, v2 = 0, v3 = 0;
+            int e = c0;
+            // row c0 + j sums from e = c0 + j
+            for (; e < d && e < c0 + 3; e++)
+            {
+                double l = ld[e];
+                v0 -= l * t0[e];
+                if (e >= c0 + 1) v1 -= l * t1[e];
+                if (e >= c0 + 2) v2 -= l * t2[e];
+            }
+            for (; e < d; e++)
+            {
+                double l = ld[e];
+                v0 -= l * t0[e];
+                v1 -= l * t1[e];
+                v2 -= l * t2[e];
+                v3 -= l * t3[e];
+            }
+            double ldd = ld[d];
+            t0[d] = v0 / ldd;
+            if (d > c0 + 1) t1[d] = v1 / ldd;
+            if (d > c0 + 2) t2[d] = v2 / ldd;
+            if (d > c0 + 3) t3[d] = v3 / ldd;
+        }
     }
 
     /// <summary>The dense symmetric Z_RR for the sorted rows R = SnRows[rStart .. rStart + mu).</summary>
