@@ -92,10 +92,7 @@ public class SubtreeParallelFactorisationTests
         {
             var (lPar, sPar) = MultifrontalCholesky.Factorize(sym, values, workers, minimumWork: 0);
             Assert.Equal(sSeq, sPar);
-            Assert.Equal(lSeq.Length, lPar.Length);
-            for (int i = 0; i < lSeq.Length; i++)
-                if (BitConverter.DoubleToInt64Bits(lSeq[i]) != BitConverter.DoubleToInt64Bits(lPar[i]))
-                    Assert.Fail($"entry {i} differs: {lSeq[i]:R} vs {lPar[i]:R} (run {run})");
+            WideFrontTests.AssertSameBits(lSeq, lPar, $"factor, run {run}");
         }
     }
 

@@ -13,19 +13,6 @@ namespace NetAdjust.Tests.LinearAlgebra.Sparse;
 /// </summary>
 public class WideFrontTests
 {
-    /// <summary>N dense of order u (every row touches every unknown): one supernode of u columns.</summary>
-    private static (int U, SparseRow[] Rows, WeightMatrix W) Dense(int u, int seed)
-    {
-        var rng = new Random(seed);
-        var columns = Enumerable.Range(0, u).ToArray();
-        var rows = new List<SparseRow>();
-        for (int j = 0; j < u; j++) rows.Add(new SparseRow([j], [1 + rng.NextDouble()]));
-        for (int i = 0; i < u / 2; i++)
-            rows.Add(new SparseRow(columns, columns.Select(_ => rng.NextDouble() - 0.5).ToArray()));
-        var p = Enumerable.Range(0, rows.Count).Select(_ => 0.5 + rng.NextDouble()).ToArray();
-        return (u, rows.ToArray(), WeightMatrix.Diagonal(p));
-    }
-
     private static SymbolicCholesky Analyse(int u, SparseRow[] rows, WeightMatrix w)
     {
         var graph = AdjacencyGraph.FromNormalEquations(u, rows, w);
@@ -37,7 +24,8 @@ public class WideFrontTests
     private static int Below(SymbolicCholesky sym, int s) =>
         sym.SnRowStart[s + 1] - sym.SnRowStart[s] - Width(sym, s);
 
-    private static void AssertSameBits(double[] expected, double[] actual, string what)
+    /// <summary>Fails on the first entry whose bits differ, naming it.</summary>
+    internal static void AssertSameBits(double[] expected, double[] actual, string what)
     {
         Assert.Equal(expected.Length, actual.Length);
         for (int i = 0; i < expected.Length; i++)
@@ -77,7 +65,7 @@ public class WideFrontTests
     [InlineData(203, 2)] // a last panel and a last group of rows of L_JJ⁻¹ shorter than the others
     public void AWideDenseBlockFactorsAndInvertsAsMathNet(int u, int seed)
     {
-        var (_, rows, w) = Dense(u, seed);
+        var (rows, w) = Dense(u, seed);
         var sym = Analyse(u, rows, w);
         Assert.Equal(1, sym.SupernodeCount);
         var values = new NormalMatrixAssembly(sym, rows).Assemble(rows, w);
@@ -118,5 +106,18 @@ public class WideFrontTests
         var inv = Matrix<double>.Build.Dense(k, k, (i, j) => l[(i * k) + j]).Inverse();
         for (int c = 0; c < k; c++)
             for (int d = 0; d < k; d++) Assert.Equal(inv[d, c], four[(c * k) + d], 1e-12 * inv.InfinityNorm());
+    }
+
+    /// <summary>Rows making N dense of order u (each unknown observed alone, then u / 2 rows on every unknown), with
+    /// their weights: one supernode of u columns.</summary>
+    private static (SparseRow[] Rows, WeightMatrix W) Dense(int u, int seed)
+    {
+        var random = new Random(seed);
+        var all = Enumerable.Range(0, u).ToArray();
+        var rows = Enumerable.Range(0, u).Select(j => new SparseRow([j], [1 + random.NextDouble()]))
+            .Concat(Enumerable.Range(0, u / 2).Select(_ =>
+                new SparseRow(all, all.Select(_ => random.NextDouble() - 0.5).ToArray())))
+            .ToArray();
+        return (rows, WeightMatrix.Diagonal(rows.Select(_ => 0.5 + random.NextDouble()).ToArray()));
     }
 }
