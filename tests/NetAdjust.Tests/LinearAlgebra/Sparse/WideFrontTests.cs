@@ -9,7 +9,7 @@ namespace NetAdjust.Tests.LinearAlgebra.Sparse;
 /// cores: the pivot block of the factorisation by panels of rows, and in the selected inverse the rows of L_JJ⁻¹, of
 /// Z_JJ, of Yᵀ and of the update of Z_JJ. The factor and the inverse are checked bit for bit against the same
 /// computation with every supernode on one thread (the hard constraint of deterministic reports), and against
-/// MathNet's dense Cholesky factor and inverse (an independent reference library) to rounding.
+/// MathNet's dense Cholesky solve and dense inverse (an independent reference library) to rounding.
 /// </summary>
 public class WideFrontTests
 {
