@@ -246,8 +246,9 @@ internal static class MultifrontalCholesky
         ri[i] = Math.Sqrt(d);
     }
 
-    /// <summary>Columns [c0, c1) of the pivot block's rows [i0, i1) (all below the panel's rows), two rows at
-    /// once with the arithmetic of <see cref="PivotRow"/>.</summary>
+    /// <summary>Columns [c0, c1) of the front's rows [i0, i1), all below the finished rows c0..c1−1 (a panel of the
+    /// pivot block, or the whole of L₁₁ for the rows of L₂₁), two rows at once with the arithmetic of
+    /// <see cref="PivotRow"/>.</summary>
     [System.Runtime.CompilerServices.MethodImpl(
         System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void PanelColumns(double[] L, long off, int k, int c0, int c1, int i0, int i1)
@@ -284,38 +285,11 @@ internal static class MultifrontalCholesky
     {
         int rows = m - k;
         if (rows == 0) return;
-        void RowRange(int lo, int hi)
-        {
-            var ls = L.AsSpan();
-            int i = lo;
-            for (; i + 1 < hi; i += 2)
-            {
-                // two rows at once, each with the arithmetic of the single-row loop below
-                var ri0 = ls.Slice((int)(off + ((long)i * k)), k);
-                var ri1 = ls.Slice((int)(off + ((long)(i + 1) * k)), k);
-                for (int c = 0; c < k; c++)
-                {
-                    var rc = ls.Slice((int)(off + ((long)c * k)), k);
-                    DenseKernels.Dot1x2Exact(rc, ri0, ri1, c, out double d0, out double d1);
-                    ri0[c] = (ri0[c] - d0) / rc[c];
-                    ri1[c] = (ri1[c] - d1) / rc[c];
-                }
-            }
-            for (; i < hi; i++)
-            {
-                var ri = ls.Slice((int)(off + ((long)i * k)), k);
-                for (int c = 0; c < k; c++)
-                {
-                    var rc = ls.Slice((int)(off + ((long)c * k)), k);
-                    ri[c] = (ri[c] - DenseKernels.Dot(ri, rc, c)) / rc[c];
-                }
-            }
-        }
         double work = (double)rows * k * k;
-        if (work < ParallelWork || !rowsInParallel) { RowRange(k, m); return; }
+        if (work < ParallelWork || !rowsInParallel) { PanelColumns(L, off, k, 0, k, k, m); return; }
         int parts = Math.Min(Environment.ProcessorCount * 4, rows);
-        Parallel.For(0, parts, p =>
-            RowRange(k + (int)((long)rows * p / parts), k + (int)((long)rows * (p + 1) / parts)));
+        Parallel.For(0, parts, p => PanelColumns(L, off, k, 0, k,
+            k + (int)((long)rows * p / parts), k + (int)((long)rows * (p + 1) / parts)));
     }
 
     /// <summary>U −= L₂₁ L₂₁ᵀ (lower triangle).</summary>
