@@ -30,18 +30,30 @@ internal static partial class CsvObservationReader
     /// weighting; throws <see cref="InvalidInputException"/>.</summary>
     internal delegate ObservationWeighting LevelBudget(string level, Length? length, int? setups, int? runs);
 
+    /// <summary>Reads the rows of a CSV text in memory (see the overload for <see cref="CsvLines"/>).</summary>
     public static List<Observation> Read(string text, string file, LengthPattern lengths, AnglePattern angles,
         ProjectUnits units,
         IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null,
         CsvSpecifications? specs = null, IReadOnlyCollection<string>? pointIds = null)
     {
-        // a row per line at most: the list is not grown row by row
-        var result = new List<Observation>(text.AsSpan().Count('\n') + 1);
+        using var lines = CsvLines.OfText(text);
+        return Read(lines, file, lengths, angles, units, defaults, levelBudget, specs, pointIds);
+    }
+
+    /// <summary>Reads the rows of a CSV file line by line (<paramref name="lines"/>: from its bytes a piece at a time,
+    /// or from a text); every error names <paramref name="file"/>, the line and the item.</summary>
+    public static List<Observation> Read(CsvLines lines, string file, LengthPattern lengths, AnglePattern angles,
+        ProjectUnits units,
+        IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null,
+        CsvSpecifications? specs = null, IReadOnlyCollection<string>? pointIds = null)
+    {
+        // a row per line at most: the list is not grown row by row (about once for a file read in pieces)
+        var result = new List<Observation>(lines.EstimateLines());
         var slopes = new List<(SlopeDistanceObservation Slope, int Line, string Item)>();
-        // The row's fields as ranges of the text; each becomes a string only when asked (CsvRow): a row of the
-        // usual kinds with no marks or instrument fields makes strings only for its point ids (shared) and its
+        // The row's fields as ranges of the line's buffer; each becomes a string only when asked (CsvRow): a row of
+        // the usual kinds with no marks or instrument fields makes strings only for its point ids (shared) and its
         // source.
-        var row = new CsvRow(text, pointIds);
+        var row = new CsvRow(pointIds);
         Dictionary<string, int>? col = null;
         int cKind = -1, cAt = -1, cFrom = -1, cTo = -1, cValue = -1, cSd = -1, cSet = -1;
         int[] optional = [];
@@ -51,18 +63,13 @@ internal static partial class CsvObservationReader
         string? lastSetAt = null, lastSet = null, lastSetId = null;
         ObservationKind lastKind = default;
         string? lastKindName = null;
-        int lineNo = 0;
-        for (int pos = 0; pos <= text.Length;)
+        int lineNo;
+        while (lines.Next()) // lines end at CR LF, CR or LF alike
         {
-            // lines end at CR LF, CR or LF alike
-            int lineStart = pos, eol = text.AsSpan(pos).IndexOfAny('\r', '\n');
-            int lineEnd = eol < 0 ? text.Length : pos + eol;
-            pos = eol < 0 ? text.Length + 1
-                : lineEnd + (text[lineEnd] == '\r' && lineEnd + 1 < text.Length && text[lineEnd + 1] == '\n' ? 2 : 1);
-            lineNo++;
-            var line = text.AsSpan(lineStart, lineEnd - lineStart);
+            lineNo = lines.LineNumber;
+            var line = lines.Buffer.AsSpan(lines.LineStart, lines.LineEnd - lines.LineStart);
             if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
-            row.Split(lineStart, lineEnd, file, lineNo);
+            row.Split(lines.Buffer, lines.LineStart, lines.LineEnd, file, lineNo);
             if (col is null)
             {
                 string[] f = row.All();

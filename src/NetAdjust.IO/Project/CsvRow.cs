@@ -6,22 +6,21 @@ namespace NetAdjust.IO.Project;
 
 /// <summary>
 /// One CSV line split into trimmed fields within the documented limits (<see cref="InputLimits"/>), as ranges of the
-/// file's text: a field becomes a string only when asked, and point ids are shared (one string per id of the file).
-/// Reused from line to line by <see cref="CsvObservationReader"/>.
+/// buffer that holds the line (<see cref="CsvLines.Buffer"/>): a field becomes a string only when asked, and point ids
+/// are shared (one string per id of the file). Reused from line to line by <see cref="CsvObservationReader"/>.
 /// </summary>
 internal sealed class CsvRow
 {
     private const NumberStyles Number =
         NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint | NumberStyles.AllowExponent;
-    private readonly string text;
+    private char[] _buffer = [];
     private readonly Dictionary<string, string> _ids;
     private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _idLookup;
 
-    /// <summary>The rows of <paramref name="text"/>; <paramref name="knownIds"/> (e.g. the project's points) are the
-    /// strings its point ids share.</summary>
-    public CsvRow(string text, IReadOnlyCollection<string>? knownIds = null)
+    /// <summary>The rows of a file; <paramref name="knownIds"/> (e.g. the project's points) are the strings its point
+    /// ids share.</summary>
+    public CsvRow(IReadOnlyCollection<string>? knownIds = null)
     {
-        this.text = text;
         _ids = new(knownIds?.Count ?? 0, StringComparer.Ordinal);
         if (knownIds is not null) foreach (string id in knownIds) _ids.TryAdd(id, id);
         _idLookup = _ids.GetAlternateLookup<ReadOnlySpan<char>>();
@@ -32,10 +31,11 @@ internal sealed class CsvRow
     /// <summary>The number of fields of the line.</summary>
     public int Count { get; private set; }
 
-    /// <summary>Splits the line <c>text[lineStart..lineEnd]</c> at its commas; throws when the line or a field is over
-    /// its limit.</summary>
-    public void Split(int lineStart, int lineEnd, string file, int lineNo)
+    /// <summary>Splits the line <c>buffer[lineStart..lineEnd]</c> at its commas; throws when the line or a field is
+    /// over its limit. The fields are read from <paramref name="buffer"/> until the next line is split.</summary>
+    public void Split(char[] buffer, int lineStart, int lineEnd, string file, int lineNo)
     {
+        _buffer = buffer;
         if (lineEnd - lineStart > InputLimits.MaxCsvLineLength)
             throw new ProjectFileException(file, lineNo, "",
                 $"the line has {lineEnd - lineStart} characters, more than the limit of " +
@@ -43,11 +43,11 @@ internal sealed class CsvRow
         Count = 0;
         for (int p = lineStart; ;)
         {
-            int comma = text.AsSpan(p, lineEnd - p).IndexOf(',');
+            int comma = _buffer.AsSpan(p, lineEnd - p).IndexOf(',');
             int end = comma < 0 ? lineEnd : p + comma;
             int a = p, b = end;
-            while (a < b && char.IsWhiteSpace(text[a])) a++;
-            while (b > a && char.IsWhiteSpace(text[b - 1])) b--;
+            while (a < b && char.IsWhiteSpace(_buffer[a])) a++;
+            while (b > a && char.IsWhiteSpace(_buffer[b - 1])) b--;
             if (Count == _start.Length)
             {
                 Array.Resize(ref _start, Count * 2);
@@ -68,7 +68,7 @@ internal sealed class CsvRow
                     $"(it starts '{InputLimits.Excerpt(Field(k))}')");
     }
 
-    private ReadOnlySpan<char> Span(int k) => text.AsSpan(_start[k], _length[k]);
+    private ReadOnlySpan<char> Span(int k) => _buffer.AsSpan(_start[k], _length[k]);
 
     /// <summary>True when the field is empty or the column is absent (<paramref name="k"/> &lt; 0).</summary>
     public bool IsEmpty(int k) => k < 0 || _length[k] == 0;

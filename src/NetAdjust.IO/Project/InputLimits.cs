@@ -12,7 +12,8 @@ public static class InputLimits
     public const long MaxFileBytes = 64L * 1024 * 1024;
 
     /// <summary>Largest CSV observation file read, in bytes (1 GiB; the 9.2 million observations of a million-point
-    /// network take about 460 MB). Its text must also fit one string of at most about a billion characters.</summary>
+    /// network take about 460 MB). The file is read a piece at a time; a text handed to <c>ProjectReader.Parse</c> by
+    /// its own reading function must fit one string (at most about a billion characters).</summary>
     public const long MaxCsvFileBytes = 1024L * 1024 * 1024;
 
     /// <summary>Deepest nesting of YAML mappings and sequences (the format needs 4).</summary>

@@ -38,10 +38,7 @@ internal static class InputText
         int n;
         while ((n = stream.Read(chunk, 0, chunk.Length)) > 0)
         {
-            if (buffer.Length + n > limit)
-                throw new ProjectFileException(file, 0, "",
-                    $"the file is larger than the limit of {limit / (1024 * 1024)} MiB " +
-                        $"(docs/input-format.md, \"Limits\")");
+            if (buffer.Length + n > limit) throw TooLarge(file, limit);
             buffer.Write(chunk, 0, n);
         }
         return buffer.ToArray();
@@ -62,10 +59,20 @@ internal static class InputText
             at = FirstInvalid(bytes, start) ?? at;
             int line = 1;
             for (int i = 0; i < at && i < bytes.Length; i++) if (bytes[i] == (byte)'\n') line++;
-            throw new ProjectFileException(file, line, "",
-                $"the file is not valid UTF-8 (byte 0x{bytes[at]:X2} at position {at + 1}): save it as UTF-8");
+            throw NotUtf8(file, line, bytes[at], at);
         }
     }
+
+    /// <summary>The refusal of a file longer than <paramref name="limit"/> bytes.</summary>
+    public static ProjectFileException TooLarge(string file, long limit) =>
+        new(file, 0, "", $"the file is larger than the limit of {limit / (1024 * 1024)} MiB " +
+            "(docs/input-format.md, \"Limits\")");
+
+    /// <summary>The refusal of a file that is not UTF-8: the invalid byte <paramref name="value"/> at 0-based
+    /// <paramref name="position"/> in the file (a byte-order mark counted), on <paramref name="line"/>.</summary>
+    public static ProjectFileException NotUtf8(string file, int line, byte value, long position) =>
+        new(file, line, "", $"the file is not valid UTF-8 (byte 0x{value:X2} at position {position + 1}): save it as " +
+            "UTF-8");
 
     private static int? FirstInvalid(byte[] b, int start)
     {

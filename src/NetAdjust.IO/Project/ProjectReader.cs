@@ -49,8 +49,7 @@ public static partial class ProjectReader
     private static SurveyProject Parse(string text, string displayName, string baseDirectory,
         InputFileResolver resolver, bool planned) =>
         Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
-            (full, rel) => ReadText(resolver, full, rel, "the observation file", InputLimits.MaxCsvFileBytes),
-            planned);
+            (full, rel) => OpenCsv(resolver, full, rel), planned);
 
     /// <summary>Parses project text; the CSV files it names are resolved and opened through <paramref
     /// name="resolver"/>.</summary>
@@ -62,25 +61,39 @@ public static partial class ProjectReader
     {
         ArgumentNullException.ThrowIfNull(resolver);
         return Parse(text, displayName, baseDirectory, rel => resolver.Resolve(baseDirectory, rel),
-            (full, rel) => ReadText(resolver, full, rel, "the observation file", InputLimits.MaxCsvFileBytes));
+            (full, rel) => OpenCsv(resolver, full, rel));
     }
 
-    private static string ReadText(InputFileResolver resolver, string full, string shown, string what,
-        long limit = InputLimits.MaxFileBytes)
+    private static string ReadText(InputFileResolver resolver, string full, string shown, string what)
     {
         byte[] bytes;
         try
         {
             using var stream = resolver.Open(full);
-            bytes = InputText.ReadBounded(stream, shown, limit);
+            bytes = InputText.ReadBounded(stream, shown, InputLimits.MaxFileBytes);
         }
-        catch (FileNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
-        catch (DirectoryNotFoundException) { throw new ProjectFileException(shown, 0, "", $"{what} does not exist"); }
-        catch (Exception e)
-            when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        { throw new ProjectFileException(shown, 0, "", $"{what} cannot be read ({FirstLine(e.Message)})"); }
+        catch (Exception e) when (Unreadable(e, shown, what) is { } refusal) { throw refusal; }
         return InputText.Decode(bytes, shown);
     }
+
+    /// <summary>Opens a CSV observation file to be read a piece at a time (its length checked against its limit).
+    /// </summary>
+    private static CsvLines OpenCsv(InputFileResolver resolver, string full, string shown)
+    {
+        try { return CsvLines.OfUtf8(resolver.Open(full), shown, InputLimits.MaxCsvFileBytes); }
+        catch (Exception e) when (Unreadable(e, shown, "the observation file") is { } refusal) { throw refusal; }
+    }
+
+    /// <summary>The refusal of a file that cannot be opened or read, naming it (line 0); null for another exception.
+    /// </summary>
+    private static ProjectFileException? Unreadable(Exception e, string shown, string what) => e switch
+    {
+        FileNotFoundException or DirectoryNotFoundException =>
+            new ProjectFileException(shown, 0, "", $"{what} does not exist"),
+        IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException =>
+            new ProjectFileException(shown, 0, "", $"{what} cannot be read ({FirstLine(e.Message)})"),
+        _ => null,
+    };
 
     /// <summary>Parses project text. CSV files it names are read through <paramref name="readFile"/>.</summary>
     /// <param name="text">The YAML text.</param>
@@ -90,11 +103,11 @@ public static partial class ProjectReader
     public static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
         string> readFile) =>
         Parse(text, displayName, baseDirectory, rel => Path.GetFullPath(Path.Combine(baseDirectory, rel)), (full, _)
-            => readFile(full));
+            => CsvLines.OfText(readFile(full)));
 
     private static SurveyProject Parse(string text, string displayName, string baseDirectory, Func<string,
         string> resolve,
-        Func<string, string, string> readFile, bool planned = false)
+        Func<string, string, CsvLines> openCsv, bool planned = false)
     {
         var ctx = new Context(displayName) { Planned = planned };
         // a points list of one plain entry per line is read from its lines, the rest by the document model
@@ -152,18 +165,31 @@ public static partial class ProjectReader
             foreach (var node in ctx.Sequence(files, "files"))
             {
                 string rel = ctx.Scalar(node, "a CSV file path");
-                string full, csv;
-                try { full = resolve(rel); csv = readFile(full, rel); }
+                string full;
+                CsvLines csv;
+                try { full = resolve(rel); csv = openCsv(full, rel); }
                 catch (Exception e)
                     when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-                { throw new ProjectFileException(displayName, Line(node), rel,
-                    $"the observation file cannot be read ({FirstLine(e.Message)})"); }
+                { throw CannotRead(e); }
                 catch (ProjectFileException e) when (e.Line == 0)
                 { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
                 if (inputs.Contains(full)) listedTwice.Add(rel);
                 inputs.Add(full);
-                observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                    specs.WeightingOfLevel, CsvSpecifications(specs), pointIds));
+                // read a piece at a time: a failure of the file on the way (or its growing past its limit) is the
+                // file's, as when it is opened; an error of a row names its line
+                using (csv)
+                {
+                    try
+                    {
+                        observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
+                            specs.WeightingOfLevel, CsvSpecifications(specs), pointIds));
+                    }
+                    catch (Exception e) when (e is IOException or UnauthorizedAccessException) { throw CannotRead(e); }
+                    catch (ProjectFileException e) when (e.Line == 0)
+                    { throw new ProjectFileException(displayName, Line(node), rel, e.Problem); }
+                }
+                ProjectFileException CannotRead(Exception e) => new(displayName, Line(node), rel,
+                    $"the observation file cannot be read ({FirstLine(e.Message)})");
             }
         }
 
