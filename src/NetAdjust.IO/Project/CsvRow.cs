@@ -1,6 +1,7 @@
 using System.Globalization;
 using NetAdjust.Network;
 using NetAdjust.Observations;
+using NetAdjust.Units;
 
 namespace NetAdjust.IO.Project;
 
@@ -126,6 +127,14 @@ internal sealed class SdCache
         error = null;
         if (angular ? row.FieldEquals(k, _angularText) : row.FieldEquals(k, _linearText))
             return angular ? _angular : _linear;
+        // a plain number of a linear kind (e.g. each distance's own σ): in the project's length unit, as
+        // LengthPattern.Parse reads it, without a string
+        if (!angular && row.TryNumber(k, out double number))
+        {
+            double metres = Length.From(number, units.Length).Metres;
+            if (!(metres > 0)) error = "a standard deviation must be positive";
+            return metres > 0 ? metres : 0;
+        }
         string text = row.Field(k);
         double v = ProjectReader.ParseSd(text, kind, units, out error);
         if (error is null)

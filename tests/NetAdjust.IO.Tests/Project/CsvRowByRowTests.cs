@@ -108,6 +108,39 @@ public class CsvRowByRowTests
         }
     }
 
+    /// <summary>A σ of a linear kind given as a plain number is read without a string: the same metres, or the same
+    /// refusal, as the general reading of a σ text (ProjectReader.ParseSd, through LengthPattern) in every length
+    /// unit.</summary>
+    [Theory]
+    [InlineData("0.0028")]
+    [InlineData("2.5e-3")]
+    [InlineData("+0.004")]
+    [InlineData("1")]
+    [InlineData("0")]
+    [InlineData("-0.002")]
+    [InlineData("3mm")]
+    [InlineData("0.01ft")]
+    public void APlainLinearSdIsReadAsTheGeneralReadingReadsIt(string sd)
+    {
+        foreach (var unit in LengthUnit.All)
+        {
+            var units = new ProjectUnits(unit, AngleFormat.Degrees, AngleSdUnit.Arcsecond);
+            double expected = ProjectReader.ParseSd(sd, ObservationKind.Distance, units, out string? error);
+            List<Observation>? all = null;
+            var refused = Record.Exception(() => all = CsvObservationReader.Read(
+                $"{Header}\ndistance,,A,B,100.0,{sd},,\nheight_difference,,A,B,1.5,{sd},,\n", "obs.csv",
+                new LengthPattern(unit, 4), new AnglePattern(AngleFormat.Degrees, 4), units,
+                new Dictionary<ObservationKind, double>(), pointIds: ["A", "B"]));
+            if (error is null)
+            {
+                Assert.Null(refused);
+                Assert.All(all!, o => Assert.Equal(expected, o.StandardDeviation));
+            }
+            else
+                Assert.Equal($"obs.csv:2: distance A→B: {error}", Assert.IsType<ProjectFileException>(refused).Message);
+        }
+    }
+
     [Fact]
     public void ACompactSourceEqualsItsText()
     {
