@@ -82,14 +82,37 @@ internal sealed class CsvRow
     {
         if (IsEmpty(k)) return "";
         // the id of the column's row before (e.g. the station of a set), else looked up
-        if (k < _lastIds.Length && _lastIds[k] is string last && Span(k).SequenceEqual(last)) return last;
-        if (!_idLookup.TryGetValue(Span(k), out var id))
+        var chars = Span(k);
+        if (k < _lastIds.Length && _lastIds[k] is string last && chars.SequenceEqual(last)) return last;
+        // else one of the ids met lately (the neighbours of a station come back row after row), else looked up
+        int slot = RecentSlot(chars);
+        string? id = _recent[slot];
+        if (id is null || !chars.SequenceEqual(id))
         {
-            id = Span(k).ToString();
-            _ids[id] = id;
+            if (!_idLookup.TryGetValue(chars, out id))
+            {
+                id = chars.ToString();
+                _ids[id] = id;
+            }
+            _recent[slot] = id;
         }
         if (k < _lastIds.Length) _lastIds[k] = id;
         return id;
+    }
+
+    /// <summary>Ids met lately, each in the slot of <see cref="RecentSlot"/> (a small table that stays in the
+    /// processor's cache, where the table of all the file's ids does not).</summary>
+    private readonly string?[] _recent = new string?[1 << RecentBits];
+
+    private const int RecentBits = 12;
+
+    /// <summary>The slot of an id among <see cref="_recent"/>: a hash of its length and its last four characters.
+    /// </summary>
+    private static int RecentSlot(ReadOnlySpan<char> id)
+    {
+        ulong h = (ulong)id.Length;
+        for (int i = Math.Max(0, id.Length - 4); i < id.Length; i++) h = (h << 16) | id[i];
+        return (int)((h * 0x9E3779B97F4A7C15UL) >> (64 - RecentBits));
     }
 
     /// <summary>Per column (the first few), the id its last row held.</summary>

@@ -142,6 +142,20 @@ public class CsvRowByRowTests
     }
 
     [Fact]
+    public void IdsThatShareASlotOfTheRecentIdsAreToldApart()
+    {
+        // ids that differ only before their last four characters fall in one slot of CsvRow's table of ids met lately
+        string[] ids = ["PA0001", "QA0001", "RA0001", "PA0001", "QA0001", "A", "PA0001"];
+        var rows = ids.Select((id, i) => $"distance,,{id},Z{i % 2},10.0,0.002,,");
+        var read = Read(Header + "\n" + string.Join("\n", rows) + "\n");
+        Assert.Equal(ids, read.Select(o => o.From));
+        Assert.Same(read[0].From, read[3].From);
+        Assert.Same(read[0].From, read[6].From);
+        Assert.Same(read[1].From, read[4].From);
+        Assert.Same(read[1].To, read[3].To);
+    }
+
+    [Fact]
     public void ACompactSourceEqualsItsText()
     {
         var read = Read(Header + "\ndistance,,A,B,100.0100,0.003,,\n")[0];
