@@ -42,45 +42,113 @@ public sealed class SurveyNetwork
             }
         }
         _use = new byte[Points.Count];
+        // A large network is checked in two halves on two cores first, each half marking the points it reaches in
+        // its own array; only when that finds a problem (or for a small network) does the one-core pass below run,
+        // which words every problem in the order of the observations.
+        if (problems.Count == 0 && Observations is { Count: >= ConcurrentCheckObservations } &&
+            Environment.ProcessorCount > 1 && ChecksInHalves()) return;
         var sets = new Dictionary<string, string>(StringComparer.Ordinal);
         // the set of the direction before (the directions of a set follow one another, often sharing one id string)
         string? lastSetId = null, lastStation = null;
         foreach (var o in Observations)
         {
-            // the observation's points (Observation.Points) without a list per observation; each point found is
-            // marked as reached by a counting or a set-aside observation
-            string? oAt = o.At;
-            string oFrom = o.From, oTo = o.To;
-            byte use = o.Excluded ? SetAsideUse : CountingUse;
-            if (oAt is not null) Reach(o, oAt, use, problems);
-            if (oFrom is not null && oFrom != oAt) Reach(o, oFrom, use, problems);
-            if (oTo is not null && oTo != oAt && oTo != oFrom) Reach(o, oTo, use, problems);
-            if (o.From == o.To ||
-                (o.At is not null && (o.At == o.To || o.At == o.From) && o.Kind != ObservationKind.Direction))
-                problems.Add($"{o.Describe()}: an observation needs distinct points");
-            bool derived = o.Weighting is not null && double.IsNaN(o.StandardDeviation);
-            if (!derived && (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation)))
-                problems.Add($"{o.Describe()}: the standard deviation must be positive");
-            if (!(o.SdFactor > 0) || !double.IsFinite(o.SdFactor))
-                problems.Add($"{o.Describe()}: the standard deviation factor must be positive");
-            if (!double.IsFinite(o.Value)) problems.Add($"{o.Describe()}: the value is not a finite number");
-            if (o.Kind == ObservationKind.Distance && !(o.Value > 0))
-                problems.Add($"{o.Describe()}: a distance must be positive");
-            // a direction of the same set id string and station as the direction before: the set is already its
-            // station's
-            if (o is DirectionObservation d && !(ReferenceEquals(d.SetId, lastSetId) && d.Station == lastStation))
-            {
-                if (sets.TryGetValue(d.SetId, out var st) && st != d.Station)
-                {
-                    problems.Add($"{o.Describe()}: direction set {d.SetId} already belongs to station {st}");
-                    lastSetId = lastStation = null;
-                }
-                else (sets[d.SetId], lastSetId, lastStation) = (d.Station, d.SetId, d.Station);
-            }
+            Check(o, _use, problems);
+            if (!SameSetAsBefore(o, sets, ref lastSetId, ref lastStation))
+                problems.Add($"{o.Describe()}: direction set {((DirectionObservation)o).SetId} already belongs to " +
+                    $"station {sets[((DirectionObservation)o).SetId]}");
         }
         if (problems.Count > 0)
             throw new InvalidInputException("The network is not valid:" + Environment.NewLine + "  " +
                 string.Join(Environment.NewLine + "  ", problems));
+    }
+
+    /// <summary>Observations from which the checks run in two halves on two cores.</summary>
+    private const int ConcurrentCheckObservations = 200_000;
+
+    /// <summary>The checks of <see cref="Check"/> and of the direction sets, the observations in two halves and the
+    /// sets on their own, concurrently; true when nothing is wrong (then <see cref="_use"/> is what the one-core pass
+    /// gives).</summary>
+    private bool ChecksInHalves()
+    {
+        var all = Observations;
+        int n = all.Count, mid = n / 2;
+        var second = new byte[_use.Length];
+        bool firstOk = true, secondOk = true, setsOk = true;
+        Parallel.Invoke(
+            () => firstOk = CheckRange(0, mid, _use),
+            () => secondOk = CheckRange(mid, n, second),
+            () =>
+            {
+                var sets = new Dictionary<string, string>(StringComparer.Ordinal);
+                string? lastSetId = null, lastStation = null;
+                foreach (var o in all)
+                    if (!SameSetAsBefore(o, sets, ref lastSetId, ref lastStation)) { setsOk = false; return; }
+            });
+        for (int i = 0; i < _use.Length; i++) _use[i] |= second[i];
+        if (firstOk && secondOk && setsOk) return true;
+        Array.Clear(_use);
+        return false;
+    }
+
+    private bool CheckRange(int from, int to, byte[] use)
+    {
+        for (int k = from; k < to; k++)
+            if (!Check(Observations[k], use, null)) return false;
+        return true;
+    }
+
+    /// <summary>One observation's own checks (its points defined, distinct; its standard deviation, factor and value
+    /// sound); each point found is marked in <paramref name="use"/> as reached by a counting or a set-aside
+    /// observation. Adds each problem to <paramref name="problems"/> (when given); false when there is one.</summary>
+    private bool Check(Observation o, byte[] use, List<string>? problems)
+    {
+        bool ok = true;
+        void Problem(string text)
+        {
+            ok = false;
+            problems?.Add(text);
+        }
+        // the observation's points (Observation.Points) without a list per observation
+        string? oAt = o.At;
+        string oFrom = o.From, oTo = o.To;
+        byte bit = o.Excluded ? SetAsideUse : CountingUse;
+        if (oAt is not null) Reach(oAt);
+        if (oFrom is not null && oFrom != oAt) Reach(oFrom);
+        if (oTo is not null && oTo != oAt && oTo != oFrom) Reach(oTo);
+        void Reach(string id)
+        {
+            if (_index.TryGetValue(id, out int i)) use[i] |= bit;
+            else Problem($"{o.Describe()}: point {id} is not defined in the points list");
+        }
+        if (oFrom == oTo || (oAt is not null && (oAt == oTo || oAt == oFrom) && o.Kind != ObservationKind.Direction))
+            Problem($"{o.Describe()}: an observation needs distinct points");
+        bool derived = o.Weighting is not null && double.IsNaN(o.StandardDeviation);
+        if (!derived && (!(o.StandardDeviation > 0) || !double.IsFinite(o.StandardDeviation)))
+            Problem($"{o.Describe()}: the standard deviation must be positive");
+        if (!(o.SdFactor > 0) || !double.IsFinite(o.SdFactor))
+            Problem($"{o.Describe()}: the standard deviation factor must be positive");
+        if (!double.IsFinite(o.Value)) Problem($"{o.Describe()}: the value is not a finite number");
+        if (o.Kind == ObservationKind.Distance && !(o.Value > 0))
+            Problem($"{o.Describe()}: a distance must be positive");
+        return ok;
+    }
+
+    /// <summary>False when <paramref name="o"/> is a direction of a set that already belongs to another station
+    /// (then the set's station stays as it was); records a new set. A direction of the same set id string and
+    /// station as the direction before (<paramref name="lastSetId"/>, <paramref name="lastStation"/>) is already
+    /// its station's.</summary>
+    private static bool SameSetAsBefore(Observation o, Dictionary<string, string> sets, ref string? lastSetId,
+        ref string? lastStation)
+    {
+        if (o is not DirectionObservation d || (ReferenceEquals(d.SetId, lastSetId) && d.Station == lastStation))
+            return true;
+        if (sets.TryGetValue(d.SetId, out var st) && st != d.Station)
+        {
+            lastSetId = lastStation = null;
+            return false;
+        }
+        (sets[d.SetId], lastSetId, lastStation) = (d.Station, d.SetId, d.Station);
+        return true;
     }
 
     private const byte CountingUse = 1, SetAsideUse = 2;
@@ -88,12 +156,6 @@ public sealed class SurveyNetwork
     /// <summary>Per point: <see cref="CountingUse"/> when an observation that is not set aside involves it,
     /// <see cref="SetAsideUse"/> when a set-aside one does (both bits when both).</summary>
     private readonly byte[] _use;
-
-    private void Reach(Observation o, string id, byte use, List<string> problems)
-    {
-        if (_index.TryGetValue(id, out int i)) _use[i] |= use;
-        else problems.Add($"{o.Describe()}: point {id} is not defined in the points list");
-    }
 
     /// <summary>True when an observation that is not set aside involves the point at <paramref name="index"/> in
     /// <see cref="Points"/> (the project's warnings: a point no observation reaches).</summary>

@@ -52,4 +52,45 @@ public class ObservationPointsTests
         Assert.Equal(3, new SurveyNetwork("n", points,
             [Dir("S", "T", set), Dir("S", "U", new string(set.AsSpan())), Dir("S", "T", set)]).Observations.Count);
     }
+
+    /// <summary>A network of 240,000 observations or more is checked in two halves on two cores: the points it marks
+    /// as reached (by a counting or a set-aside observation) are those the observations name, and its problems (in
+    /// either half, and a set that two stations share) are worded and ordered as the one-core pass of a small network
+    /// of the same problem observations words them.</summary>
+    [Fact]
+    public void ALargeNetworkGetsTheAnswersOfTheOneCorePass()
+    {
+        var points = new[] { "S", "T", "U", "V", "W", "Z" }.Select(id => new Point(id) { E = 0, N = 0 }).ToArray();
+        Observation Dir(string at, string to, string setId) =>
+            new DirectionObservation(at, to, Angle.FromDegrees(10), setId) { Sd = Angle.FromArcseconds(2) };
+        Observation Dist(string from, string to, bool excluded = false) =>
+            new DistanceObservation(from, to, Length.FromMetres(10))
+            { Sd = Length.FromMetres(0.002), Excluded = excluded };
+        var good = new List<Observation>();
+        for (int k = 0; k < 120_000; k++) good.AddRange(Dir("S", "T", "S/1"), Dist("T", "U"));
+        good.AddRange(Dist("U", "V"), Dist("U", "W", excluded: true)); // V and W named in the second half only
+        var network = new SurveyNetwork("n", points, good);
+        for (int i = 0; i < points.Length; i++)
+        {
+            string id = points[i].Id;
+            Assert.Equal(good.Any(o => !o.Excluded && o.Points.Contains(id)), network.IsReached(i));
+            Assert.Equal(good.Any(o => o.Excluded && o.Points.Contains(id)), network.IsReachedBySetAside(i));
+        }
+        Assert.Equal([true, true, true, true, false, false], points.Select((_, i) => network.IsReached(i)));
+
+        // each problem alone (in the first half, the second half, or only in the sets) and all three together
+        (int At, Observation O)[] wrong =
+            [(10, Dist("T", "X")), (200_000, Dist("U", "U")), (230_000, Dir("T", "U", "S/1"))];
+        InvalidInputException? small = null;
+        foreach (int[] chosen in new[] { [0], [1], [2], new[] { 0, 1, 2 } })
+        {
+            var bad = new List<Observation>(good);
+            foreach (int w in chosen.Reverse()) bad.Insert(wrong[w].At, wrong[w].O);
+            var e = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("n", points, bad));
+            small = Assert.Throws<InvalidInputException>(() =>
+                new SurveyNetwork("n", points, [Dir("S", "T", "S/1"), .. chosen.Select(w => wrong[w].O)]));
+            Assert.Equal(small.Message, e.Message);
+        }
+        Assert.Equal(4, small!.Message.Split('\n').Length); // the heading, X undefined, U to U, the shared set
+    }
 }
