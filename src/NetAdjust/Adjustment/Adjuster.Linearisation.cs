@@ -114,77 +114,109 @@ public static partial class Adjuster
             var rowStart = new int[m + control.Count + 1];
             var l = new double[m + control.Count];
             var partialStart = new int[m + 1];
-            var target = new List<int>(m * 5);
-            var allColumns = new List<int>(m * 5);
-            var allValues = new List<double>(m * 5);
-            var cols = new List<int>();
-            var vals = new List<double>();
-            int most = 0;
             const int stride = ObservationKindRegistry.MostSlots;
             var slots = new int[stride * m];
             var slotCount = new byte[m];
             var (pointColumn, setColumn) = ColumnsBySlot(index, state);
-            var d = new double[8];
-            for (int i = 0; i < m; i++)
-            {
-                var o = network.Observations[i];
-                var mine = slots.AsSpan(stride * i, stride);
-                int ns = ObservationKindRegistry.Slots(o, state, mine);
-                slotCount[i] = (byte)ns;
-                double value;
-                int count;
-                cols.Clear();
-                vals.Clear();
-                if (ns > 0)
+            // On a large network the second half of the observations is resolved on another core into lists of its
+            // own (its row and partial starts counted from the half's start, shifted below): each row alone, so the
+            // pattern does not depend on the schedule; a failure of the first half is the one reported, as it would
+            // be one row after the other.
+            int half = m >= SideBySideObservations && Environment.ProcessorCount > 1 ? m / 2 : m;
+            var first = new Piece(half);
+            var second = half < m ? new Piece(m - half) : null;
+            SideBySide.Run(() => Observations(0, half, first),
+                second is null ? null : () => Observations(half, m, second));
+            int firstCount = first.Columns.Count, total = firstCount + (second?.Columns.Count ?? 0);
+            if (second is not null)
+                for (int i = half; i < m; i++)
                 {
-                    value = ObservationKindRegistry.EvaluateInto(o, state, mine[..ns], d, out count);
-                    var by = ObservationKindRegistry.PartialsBySlot(o.Kind);
-                    for (int k = 0; k < count; k++)
-                    {
-                        var (slot, parameter) = by[k];
-                        int j = parameter == Parameter.Orientation ? setColumn[mine[slot]]
-                            : pointColumn[(3 * mine[slot]) + (int)parameter];
-                        Place(j, d[k]);
-                    }
+                    rowStart[i + 1] += firstCount;
+                    partialStart[i + 1] += first.Target.Count;
                 }
-                else
-                {
-                    var eq = ObservationKindRegistry.Evaluate(o, state);
-                    (value, count) = (eq.Value, eq.Partials.Length);
-                    foreach (var p in eq.Partials) Place(index.IndexOf(p.Owner, p.Parameter), p.Derivative);
-                }
-                l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
-                most = Math.Max(most, count);
-                partialStart[i + 1] = target.Count;
-                allColumns.AddRange(cols);
-                allValues.AddRange(vals);
-                rowStart[i + 1] = allColumns.Count;
-            }
+            var columns = new int[total + control.Count];
+            var coefficients = new double[total + control.Count];
+            first.Columns.CopyTo(columns);
+            first.Values.CopyTo(coefficients);
+            second?.Columns.CopyTo(columns, firstCount);
+            second?.Values.CopyTo(coefficients, firstCount);
+            int[] target = [.. first.Target, .. second?.Target ?? []];
             for (int k = 0; k < control.Count; k++)
             {
                 var c = control[k];
-                allColumns.Add(index.IndexOf(c.PointId, c.Parameter));
-                allValues.Add(1.0);
-                rowStart[m + k + 1] = allColumns.Count;
+                columns[total + k] = index.IndexOf(c.PointId, c.Parameter);
+                coefficients[total + k] = 1.0;
+                rowStart[m + k + 1] = total + k + 1;
                 state.TryGet(c.PointId, c.Parameter, out double current);
                 l[m + k] = c.Given - current;
             }
-            var pattern = new DesignPattern(allColumns.ToArray(), rowStart, partialStart, target.ToArray(), most,
-                slots, slotCount);
-            var coefficients = allValues.ToArray();
+            var pattern = new DesignPattern(columns, rowStart, partialStart, target,
+                Math.Max(first.Most, second?.Most ?? 0), slots, slotCount);
             CoefficientArrayCount++;
             var rows = new SparseRow[l.Length];
             for (int i = 0; i < rows.Length; i++) rows[i] = pattern.Row(coefficients, i);
             return (pattern, new Linearisation(rows, l, coefficients));
 
-            // One partial derivative into the row: a new column, added to a repeated one, or left out (held).
-            void Place(int j, double derivative)
+            // Observations from .. to: their slots, columns, first coefficients and l, into the piece's lists.
+            void Observations(int from, int to, Piece piece)
             {
-                if (j < 0) { target.Add(Held); return; }
-                int at = cols.IndexOf(j);
-                if (at >= 0) { vals[at] += derivative; target.Add(-2 - at); }
-                else { target.Add(cols.Count); cols.Add(j); vals.Add(derivative); }
+                var cols = new List<int>();
+                var vals = new List<double>();
+                var d = new double[8];
+                for (int i = from; i < to; i++)
+                {
+                    var o = network.Observations[i];
+                    var mine = slots.AsSpan(stride * i, stride);
+                    int ns = ObservationKindRegistry.Slots(o, state, mine);
+                    slotCount[i] = (byte)ns;
+                    double value;
+                    int count;
+                    cols.Clear();
+                    vals.Clear();
+                    if (ns > 0)
+                    {
+                        value = ObservationKindRegistry.EvaluateInto(o, state, mine[..ns], d, out count);
+                        var by = ObservationKindRegistry.PartialsBySlot(o.Kind);
+                        for (int k = 0; k < count; k++)
+                        {
+                            var (slot, parameter) = by[k];
+                            int j = parameter == Parameter.Orientation ? setColumn[mine[slot]]
+                                : pointColumn[(3 * mine[slot]) + (int)parameter];
+                            Place(j, d[k]);
+                        }
+                    }
+                    else
+                    {
+                        var eq = ObservationKindRegistry.Evaluate(o, state);
+                        (value, count) = (eq.Value, eq.Partials.Length);
+                        foreach (var p in eq.Partials) Place(index.IndexOf(p.Owner, p.Parameter), p.Derivative);
+                    }
+                    l[i] = -ObservationKindRegistry.Difference(o.Kind, value, o.Value);
+                    piece.Most = Math.Max(piece.Most, count);
+                    partialStart[i + 1] = piece.Target.Count;
+                    piece.Columns.AddRange(cols);
+                    piece.Values.AddRange(vals);
+                    rowStart[i + 1] = piece.Columns.Count;
+                }
+
+                // One partial derivative into the row: a new column, added to a repeated one, or left out (held).
+                void Place(int j, double derivative)
+                {
+                    if (j < 0) { piece.Target.Add(Held); return; }
+                    int at = cols.IndexOf(j);
+                    if (at >= 0) { vals[at] += derivative; piece.Target.Add(-2 - at); }
+                    else { piece.Target.Add(cols.Count); cols.Add(j); vals.Add(derivative); }
+                }
             }
+        }
+
+        /// <summary>The pattern of a run of observations as <see cref="Resolve"/> builds it.</summary>
+        private sealed class Piece(int observations)
+        {
+            public List<int> Target { get; } = new(observations * 5);
+            public List<int> Columns { get; } = new(observations * 5);
+            public List<double> Values { get; } = new(observations * 5);
+            public int Most { get; set; }
         }
 
         /// <summary>The unknown of each coordinate of each point slot (3 slot + E, N or H) and of each set slot's
