@@ -1,3 +1,5 @@
+using System.Runtime.InteropServices;
+
 namespace NetAdjust.LinearAlgebra.Sparse;
 
 /// <summary>
@@ -72,26 +74,48 @@ internal sealed class AdjacencyGraph
     /// <summary>Builds a graph as the union of cliques (each clique given by its vertices).</summary>
     internal static AdjacencyGraph FromCliques(int n, List<int> cliqueStartList, List<int> cliqueVerticesList)
     {
-        var cliqueStart = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(cliqueStartList);
-        var cliqueVertices = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(cliqueVerticesList);
-        var degree = new int[n + 1];
-        for (int q = 0; q + 1 < cliqueStart.Length; q++)
+        // Each clique of size s gives each of its vertices s − 1 entries (duplicates included), in the cliques'
+        // order. A large graph runs ranges of the vertices on all cores: each part reads every clique and counts and
+        // writes only its own vertices' entries, in the same order (the same lists whatever the split).
+        bool concurrent = (long)cliqueVerticesList.Count * 4 >= ConcurrentEntries && Environment.ProcessorCount > 1 &&
+            n >= 2;
+        int ranges = concurrent ? Environment.ProcessorCount : 1;
+        void InRanges(Func<int, int> bound, Action<int, int> run)
         {
-            int size = cliqueStart[q + 1] - cliqueStart[q];
-            for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++) degree[cliqueVertices[t]] += size - 1;
+            if (ranges == 1) run(0, n);
+            else Parallel.For(0, ranges, r => run(bound(r), bound(r + 1)));
         }
+        var degree = new int[n + 1];
+        InRanges(r => (int)((long)n * r / ranges), (lo, hi) =>
+        {
+            var cliqueStart = CollectionsMarshal.AsSpan(cliqueStartList);
+            var cliqueVertices = CollectionsMarshal.AsSpan(cliqueVerticesList);
+            for (int q = 0; q + 1 < cliqueStart.Length; q++)
+            {
+                int size = cliqueStart[q + 1] - cliqueStart[q];
+                for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++)
+                    if (cliqueVertices[t] >= lo && cliqueVertices[t] < hi) degree[cliqueVertices[t]] += size - 1;
+            }
+        });
         var start = new int[n + 1];
         for (int v = 0; v < n; v++) start[v + 1] = start[v] + degree[v];
         var fill = new int[n];
         Array.Copy(start, fill, n);
         var adj = new int[start[n]];
-        for (int q = 0; q + 1 < cliqueStart.Length; q++)
-            for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++)
-            {
-                int v = cliqueVertices[t];
-                for (int s = cliqueStart[q]; s < cliqueStart[q + 1]; s++)
-                    if (s != t) adj[fill[v]++] = cliqueVertices[s];
-            }
+        // the ranges split at the vertices where the entries are evenly shared
+        InRanges(r => r == 0 ? 0 : r == ranges ? n : LowerBound(start, (long)start[n] * r / ranges), (lo, hi) =>
+        {
+            var cliqueStart = CollectionsMarshal.AsSpan(cliqueStartList);
+            var cliqueVertices = CollectionsMarshal.AsSpan(cliqueVerticesList);
+            for (int q = 0; q + 1 < cliqueStart.Length; q++)
+                for (int t = cliqueStart[q]; t < cliqueStart[q + 1]; t++)
+                {
+                    int v = cliqueVertices[t];
+                    if (v < lo || v >= hi) continue;
+                    for (int s = cliqueStart[q]; s < cliqueStart[q + 1]; s++)
+                        if (s != t) adj[fill[v]++] = cliqueVertices[s];
+                }
+        });
         // Remove duplicates per vertex (a neighbour seen twice in one list) within the vertex's own segment, sort
         // the distinct neighbours, then close the gaps. The vertices are independent: large graphs run ranges of
         // them on all cores, each with its own marks (the same lists whatever the split).
@@ -130,5 +154,18 @@ internal sealed class AdjacencyGraph
         int total = newStart[n];
         Array.Resize(ref adj, total);
         return new AdjacencyGraph(n, newStart, adj);
+    }
+
+    /// <summary>The first vertex whose start is at least <paramref name="entry"/> (starts ascend).</summary>
+    private static int LowerBound(int[] start, long entry)
+    {
+        int lo = 0, hi = start.Length - 1;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (start[mid] < entry) lo = mid + 1;
+            else hi = mid;
+        }
+        return lo;
     }
 }
