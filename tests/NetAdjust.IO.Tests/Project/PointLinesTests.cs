@@ -52,6 +52,28 @@ public class PointLinesTests
     }
 
     [Fact]
+    public void ALongListReadInTwoHalvesGivesTheDocumentModelsPointsAndErrors()
+    {
+        // over 50,000 entries: the second half is read on another core; an entry the lines refuse there (a held
+        // component that is none) sends the whole list to the document model, which names it
+        string Entries(string badFix) => string.Join("\n", Enumerable.Range(0, 60_000).Select(i =>
+            string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"  - {{id: {(i < 2 ? (char)('A' + i) : "P" + i)}, e: {1000 + (0.5 * i)}, n: {2000 - (0.25 * i)}" +
+                $"{(i == 45_000 ? ", fix: " + badFix : i % 7 == 0 ? ", fix: en" : "")}}}")));
+        string fast = Project(Entries("n")), model = Project(Entries("n") + "  # end of the points");
+        Assert.Equal(60_000, PointLines.Find(fast)!.Count);
+        Assert.Null(PointLines.Find(model));
+        var a = Parse(fast).Network.Points;
+        Assert.Equal(60_000, a.Count);
+        Assert.Equal(Parse(model).Network.Points, a);
+        string bad = Project(Entries("nq")), badModel = Project(Entries("nq") + "  # end of the points");
+        var e1 = Assert.Throws<ProjectFileException>(() => Parse(bad));
+        var e2 = Assert.Throws<ProjectFileException>(() => Parse(badModel));
+        Assert.Equal(e2.Message, e1.Message);
+        Assert.StartsWith($"p.yaml:{45_000 + 4}: ", e1.Message);
+    }
+
+    [Fact]
     public void LinesAfterThePointsKeepTheirNumbers()
     {
         // an error in the setups (line 13) is named at its line whether the points were read from their lines or not
