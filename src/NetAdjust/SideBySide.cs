@@ -22,4 +22,10 @@ internal static class SideBySide
         }
         other?.GetAwaiter().GetResult();
     }
+
+    /// <summary>Where a run of <paramref name="count"/> items splits: at its middle when it has at least
+    /// <paramref name="atLeast"/> items and the machine more than one core, else at its end (all on one thread).
+    /// </summary>
+    public static int Half(int count, int atLeast) =>
+        count >= atLeast && Environment.ProcessorCount > 1 ? count / 2 : count;
 }

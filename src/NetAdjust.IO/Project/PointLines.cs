@@ -140,7 +140,7 @@ internal sealed class PointLines
         // same points whatever the schedule; an entry the lines do not take gives null whichever half it is in, as
         // one pass would.
         var points = new Point[Count];
-        int half = Count >= ConcurrentEntries && Environment.ProcessorCount > 1 ? Count / 2 : Count;
+        int half = SideBySide.Half(Count, ConcurrentEntries);
         bool first = true, second = true;
         SideBySide.Run(() => first = ReadEntries(0, half, points, file, lengths),
             half < Count ? () => second = ReadEntries(half, Count, points, file, lengths) : null);

@@ -122,7 +122,7 @@ public static partial class Adjuster
             // own (its row and partial starts counted from the half's start, shifted below): each row alone, so the
             // pattern does not depend on the schedule; a failure of the first half is the one reported, as it would
             // be one row after the other.
-            int half = m >= SideBySideObservations && Environment.ProcessorCount > 1 ? m / 2 : m;
+            int half = SideBySide.Half(m, SideBySideObservations);
             var first = new Piece(half);
             var second = half < m ? new Piece(m - half) : null;
             SideBySide.Run(() => Observations(0, half, first),

@@ -111,8 +111,7 @@ public static partial class Adjuster
         // On a large network the second half of the observations is done on another core (each observation is
         // computed alone, into its own slot: the same numbers whatever the schedule); its progress is reported from
         // this thread once it is done, so the lines come in the same order as on one thread.
-        int half = observations.Length >= SideBySideObservations && Environment.ProcessorCount > 1
-            ? observations.Length / 2 : observations.Length;
+        int half = SideBySide.Half(observations.Length, SideBySideObservations);
         SideBySide.Run(() => Observations(0, half, progress: true), half < observations.Length
             ? () => Observations(half, observations.Length, progress: false) : null);
         for (int i = half; i < observations.Length; i++) Progress(i);
@@ -352,7 +351,7 @@ public static partial class Adjuster
         // On a large network the second half of the rows is evaluated on another core: each row alone, into its own
         // slot (the same numbers whatever the schedule); a failure of the first half is the one reported, as it
         // would be one row after the other.
-        int half = m >= SideBySideObservations && Environment.ProcessorCount > 1 ? m / 2 : m;
+        int half = SideBySide.Half(m, SideBySideObservations);
         SideBySide.Run(() => Rows(0, half), half < m ? () => Rows(half, m) : null);
         for (int k = 0; k < control.Count; k++)
         {
