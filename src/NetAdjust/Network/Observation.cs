@@ -146,13 +146,21 @@ public abstract record Observation
     /// True when the observation is set aside (e.g. after a blunder hunt): it gets no weight in the adjustment but
     /// is still reported, with its misclosure against the adjusted coordinates. Nothing is deleted from the data.
     /// </summary>
-    public bool Excluded { get; init; }
+    public bool Excluded
+    {
+        get => _marks?.Excluded ?? false;
+        init => _marks = Marks.Keep((_marks ?? Marks.None) with { Excluded = value });
+    }
 
     /// <summary>
     /// The factor (≥ 1 normally; any positive value) by which the user re-weighted this observation's standard
     /// deviation; <see cref="Sd"/> already includes it. 1 when not re-weighted. For reports only.
     /// </summary>
-    public double SdFactor { get; init; } = 1.0;
+    public double SdFactor
+    {
+        get => _marks?.SdFactor ?? 1.0;
+        init => _marks = Marks.Keep((_marks ?? Marks.None) with { SdFactor = value });
+    }
 
     /// <summary>
     /// The specifications the standard deviation is derived from (instrument, target, procedure, or level), or null
@@ -161,13 +169,38 @@ public abstract record Observation
     /// standard deviation (e.g. set by a re-weighting procedure) is used as it is, the weighting then giving the
     /// shape of its error budget.
     /// </summary>
-    public ObservationWeighting? Weighting { get; init; }
+    public ObservationWeighting? Weighting
+    {
+        get => _marks?.Weighting;
+        init => _marks = Marks.Keep((_marks ?? Marks.None) with { Weighting = value });
+    }
 
     /// <summary>
     /// The instrument setup the observation was made at (unique in the network), or null. Observations of one
     /// setup share the instrument's centering error, which the correlated weight model uses.
     /// </summary>
-    public string? SetupId { get; init; }
+    public string? SetupId
+    {
+        get => _marks?.SetupId;
+        init => _marks = Marks.Keep((_marks ?? Marks.None) with { SetupId = value });
+    }
+
+    /// <summary>
+    /// <see cref="Excluded"/>, <see cref="SdFactor"/>, <see cref="Weighting"/> and <see cref="SetupId"/>, kept in one
+    /// small record that most observations of a large file do not need (null when all four have their defaults): an
+    /// observation takes one reference for them instead of 32 bytes, and a million-point network 300 MB less. The
+    /// record has value equality, so an observation's equality and hash code are as with four fields of its own.
+    /// </summary>
+    private readonly Marks? _marks;
+
+    /// <summary>The four members held by <see cref="_marks"/>; <see cref="None"/> holds their defaults.</summary>
+    private sealed record Marks(bool Excluded, double SdFactor, ObservationWeighting? Weighting, string? SetupId)
+    {
+        public static readonly Marks None = new(false, 1.0, null, null);
+
+        /// <summary>The marks to keep: null for the defaults.</summary>
+        public static Marks? Keep(Marks marks) => marks == None ? null : marks;
+    }
 
     /// <summary>All points the observation involves, without repeats.</summary>
     public IEnumerable<string> Points => Distinct(At, From, To);

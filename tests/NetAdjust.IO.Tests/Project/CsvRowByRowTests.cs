@@ -193,7 +193,12 @@ public class BookedValueTextTests
     [InlineData("0")]
     [InlineData("007")]
     [InlineData("007.000")]
-    [InlineData("1234567890123456789")] // 19 digits: the most kept as a number
+    [InlineData("123456789012345")] // 15 digits: the most kept as a number
+    [InlineData("9999999999999999")] // 16 digits: kept as a string (beyond the 52 bits)
+    [InlineData("-99999.9999999999")] // 15 digits, 10 places
+    [InlineData("0.00000000000000")] // 15 digits, 14 places
+    [InlineData("999999999999999")]
+    [InlineData("1234567890123456789")]
     [InlineData("9999999999.999999999")]
     [InlineData("12345678901234567890")] // 20 digits: kept as a string
     [InlineData("1.")]
