@@ -36,15 +36,18 @@ internal static class ReadingProbe
             var cpu = new List<double>();
             var pause = new List<double>();
             string gcs = "";
+            long projectBytes = 0, csvBytes = 0;
             for (int r = 0; r < runs; r++)
             {
                 GC.Collect();
                 var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
                 var pause0 = GC.GetTotalPauseDuration();
                 int g0 = GC.CollectionCount(0), g1 = GC.CollectionCount(1), g2 = GC.CollectionCount(2);
+                long bytes0 = GC.GetTotalAllocatedBytes(precise: true);
                 var clock = Stopwatch.StartNew();
                 var project = ProjectReader.Read(path);
                 times.Add(clock.Elapsed.TotalSeconds);
+                projectBytes = GC.GetTotalAllocatedBytes(precise: true) - bytes0;
                 cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalSeconds);
                 pause.Add((GC.GetTotalPauseDuration() - pause0).TotalSeconds);
                 gcs = $"{GC.CollectionCount(0) - g0}/{GC.CollectionCount(1) - g1}/{GC.CollectionCount(2) - g2}";
@@ -54,7 +57,8 @@ internal static class ReadingProbe
             pause.Sort();
             Console.WriteLine(string.Create(inv,
                 $"  of which collector pauses: median {pause[pause.Count / 2]:F3} s; " +
-                $"collections (gen 0/1/2) in the last run: {gcs}"));
+                $"collections (gen 0/1/2) in the last run: {gcs}; " +
+                $"allocated {(double)projectBytes / rows:F0} bytes a row"));
 
             // The CSV observation reader alone, on the text of the file (the part that grows with the rows).
             string csvPath = Directory.GetFiles(dir, "*.csv").Single();
@@ -72,19 +76,24 @@ internal static class ReadingProbe
             {
                 GC.Collect();
                 var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
+                long bytes0 = GC.GetTotalAllocatedBytes(precise: true);
                 var clock = Stopwatch.StartNew();
                 if (ReadCsv().Count != rows) throw new InvalidOperationException("rows lost");
                 times.Add(clock.Elapsed.TotalSeconds);
                 cpu.Add((Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalSeconds);
+                csvBytes = GC.GetTotalAllocatedBytes(precise: true) - bytes0;
             }
             Report("CSV observation reader alone", times, cpu, rows);
+            Console.WriteLine(string.Create(inv,
+                $"  allocated in the last run: {(double)csvBytes / rows:F0} bytes a row"));
         }
         finally { Directory.Delete(dir, recursive: true); }
     }
 
     /// <summary><c>-- reading FILE.yaml [RUNS]</c>: reads a project file RUNS times (default 1, no warm-up, so
     /// that a single read of a large project shows its cold cost and its peak memory) and prints each read's time,
-    /// its process CPU time and the process's peak working set so far.</summary>
+    /// its process CPU time, the collector's pauses and the bytes allocated, and the process's peak working set so
+    /// far.</summary>
     private static void ReadFile(string[] args)
     {
         var inv = CultureInfo.InvariantCulture;
@@ -93,16 +102,24 @@ internal static class ReadingProbe
         {
             GC.Collect();
             var cpu0 = Process.GetCurrentProcess().TotalProcessorTime;
+            var pause0 = GC.GetTotalPauseDuration();
+            long bytes0 = GC.GetTotalAllocatedBytes();
+            int[] gcs0 = [GC.CollectionCount(0), GC.CollectionCount(1), GC.CollectionCount(2)];
             var clock = Stopwatch.StartNew();
             var project = ProjectReader.Read(args[1]);
             double wall = clock.Elapsed.TotalSeconds;
+            double pause = (GC.GetTotalPauseDuration() - pause0).TotalSeconds;
+            double allocated = (GC.GetTotalAllocatedBytes() - bytes0) / 1e9;
+            int[] gcs = [GC.CollectionCount(0) - gcs0[0], GC.CollectionCount(1) - gcs0[1],
+                GC.CollectionCount(2) - gcs0[2]];
             double cpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu0).TotalSeconds;
             int rows = project.Network.Observations.Count;
             using var self = Process.GetCurrentProcess();
             Console.WriteLine(string.Create(inv,
                 $"{Path.GetFileName(args[1])}: {rows} observations read in {wall:F3} s ({rows / wall:N0} rows/s), " +
                 $"CPU {cpu:F3} s; peak working set {self.PeakWorkingSet64 / 1e9:F2} GB; " +
-                $"load average {LoadAverage()}"));
+                $"collector paused {pause:F3} s ({gcs[0]}/{gcs[1]}/{gcs[2]} collections of generations 0/1/2), " +
+                $"{allocated:F2} GB allocated; load average {LoadAverage()}"));
             GC.KeepAlive(project);
         }
     }
