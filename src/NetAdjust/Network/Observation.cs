@@ -149,7 +149,11 @@ public abstract record Observation
     public bool Excluded
     {
         get => _marks?.Excluded ?? false;
-        init => _marks = Marks.Keep((_marks ?? Marks.None) with { Excluded = value });
+        init
+        {
+            if (value != Excluded)
+                _marks = Marks.Keep((_marks ?? Marks.None) with { Excluded = value });
+        }
     }
 
     /// <summary>
@@ -159,7 +163,11 @@ public abstract record Observation
     public double SdFactor
     {
         get => _marks?.SdFactor ?? 1.0;
-        init => _marks = Marks.Keep((_marks ?? Marks.None) with { SdFactor = value });
+        init
+        {
+            if (BitConverter.DoubleToInt64Bits(value) != BitConverter.DoubleToInt64Bits(SdFactor))
+                _marks = Marks.Keep((_marks ?? Marks.None) with { SdFactor = value });
+        }
     }
 
     /// <summary>
@@ -172,7 +180,11 @@ public abstract record Observation
     public ObservationWeighting? Weighting
     {
         get => _marks?.Weighting;
-        init => _marks = Marks.Keep((_marks ?? Marks.None) with { Weighting = value });
+        init
+        {
+            if (!ReferenceEquals(value, Weighting))
+                _marks = Marks.Keep((_marks ?? Marks.None) with { Weighting = value });
+        }
     }
 
     /// <summary>
@@ -182,7 +194,11 @@ public abstract record Observation
     public string? SetupId
     {
         get => _marks?.SetupId;
-        init => _marks = Marks.Keep((_marks ?? Marks.None) with { SetupId = value });
+        init
+        {
+            if (!ReferenceEquals(value, SetupId))
+                _marks = Marks.Keep((_marks ?? Marks.None) with { SetupId = value });
+        }
     }
 
     /// <summary>
@@ -190,6 +206,7 @@ public abstract record Observation
     /// small record that most observations of a large file do not need (null when all four have their defaults): an
     /// observation takes one reference for them instead of 32 bytes, and a million-point network 300 MB less. The
     /// record has value equality, so an observation's equality and hash code are as with four fields of its own.
+    /// A member set to the value it has changes nothing (a reader writes the defaults into every row).
     /// </summary>
     private readonly Marks? _marks;
 

@@ -69,4 +69,26 @@ public class ObservationMarksTests
         Assert.NotEqual(marked, marked with { Weighting = null });
         Assert.NotEqual(Plain(), Plain() with { Excluded = true });
     }
+
+    [Fact]
+    public void DefaultMarksCostNoMemory()
+    {
+        // a reader of many rows writes the defaults into every observation: they must not make a record each time
+        static long Allocated(Func<Observation> make)
+        {
+            make();
+            long before = GC.GetAllocatedBytesForCurrentThread();
+            var o = make();
+            long after = GC.GetAllocatedBytesForCurrentThread();
+            GC.KeepAlive(o);
+            return after - before;
+        }
+        long plain = Allocated(Plain);
+        long defaults = Allocated(() => new DistanceObservation("A", "B", Length.FromMetres(123.456))
+            { Excluded = false, SdFactor = 1.0, Weighting = null, SetupId = null });
+        Assert.Equal(plain, defaults);
+        // a mark does take its record
+        Assert.True(Allocated(() => new DistanceObservation("A", "B", Length.FromMetres(123.456)) { SetupId = "A#1" })
+            > plain);
+    }
 }
