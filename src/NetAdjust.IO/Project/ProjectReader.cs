@@ -181,8 +181,11 @@ public static partial class ProjectReader
                 {
                     try
                     {
-                        observations.AddRange(CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                            specs.WeightingOfLevel, CsvSpecifications(specs), pointIds));
+                        var rows = CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
+                            specs.WeightingOfLevel, CsvSpecifications(specs), pointIds);
+                        // the first file's list as it is (no copy of its millions of references), later ones added
+                        if (observations.Count == 0) observations = rows;
+                        else observations.AddRange(rows);
                     }
                     catch (Exception e) when (e is IOException or UnauthorizedAccessException) { throw CannotRead(e); }
                     catch (ProjectFileException e) when (e.Line == 0)
