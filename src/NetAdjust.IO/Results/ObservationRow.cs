@@ -27,14 +27,20 @@ internal sealed record ObservationRow(AdjustedObservation Source, ObservationTes
     /// <summary>The "from" point as the tables show it: empty when it is the station (<c>at</c>).</summary>
     public string FromShown => ObservationLabels.FromShown(Input);
 
-    /// <summary>The rows of a result, in input order.</summary>
-    public static IReadOnlyList<ObservationRow> Of(AdjustmentResult r, IReadOnlyList<double?>? w) =>
-        r.Observations.Select(o =>
+    /// <summary>The rows of a result, in input order, each made when a writer reads it (a million-point network has
+    /// nine million).</summary>
+    public static IReadOnlyList<ObservationRow> Of(AdjustmentResult r, IReadOnlyList<double?>? w)
+    {
+        var observations = r.Observations;
+        var tests = r.Analysis.Observations;
+        double critical = r.Analysis.WCritical;
+        return new RowsOnDemand<ObservationRow>(observations.Count, i =>
         {
+            var o = observations[i];
             double? wi = w is not null && o.Index < w.Count ? w[o.Index] : null;
-            return new ObservationRow(o, r.Analysis.Observations[o.Index], wi,
-                wi is double x && Math.Abs(x) > r.Analysis.WCritical);
-        }).ToList();
+            return new ObservationRow(o, tests[o.Index], wi, wi is double x && Math.Abs(x) > critical);
+        });
+    }
 
     /// <summary>The columns of a full listing; values and precisions take their unit from each row's kind.</summary>
     public static readonly IReadOnlyList<ReportColumn<ObservationRow>> Columns =

@@ -126,22 +126,23 @@ internal sealed record ReportSection(string Id, string Title, string Heading, IR
 }
 
 /// <summary>
-/// The rows of a long section, made from their index each time they are read (by the text or HTML report), so that
-/// the report model never holds a long table whole as text.
+/// The rows of a long table or section, made from their index each time they are read (by a writer), so that the
+/// report model never holds a long table whole: neither as text nor as one row record per observation.
 /// </summary>
+/// <typeparam name="TRow">The row type.</typeparam>
 /// <param name="count">The number of rows.</param>
 /// <param name="row">Makes the row of an index.</param>
-internal sealed class RowsOnDemand(int count, Func<int, SectionRow> row) : IReadOnlyList<SectionRow>
+internal sealed class RowsOnDemand<TRow>(int count, Func<int, TRow> row) : IReadOnlyList<TRow>
 {
     /// <inheritdoc />
     public int Count => count;
 
     /// <inheritdoc />
-    public SectionRow this[int index] =>
+    public TRow this[int index] =>
         (uint)index < (uint)count ? row(index) : throw new ArgumentOutOfRangeException(nameof(index));
 
     /// <inheritdoc />
-    public IEnumerator<SectionRow> GetEnumerator()
+    public IEnumerator<TRow> GetEnumerator()
     {
         for (int i = 0; i < count; i++) yield return row(i);
     }

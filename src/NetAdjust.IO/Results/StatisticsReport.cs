@@ -95,7 +95,7 @@ internal static class StatisticsReport
                 Num(t.Flag == ObservationFlag.Excluded ? null : t.Redundancy, 2), Num(t.W, 2), Num(t.Tau, 2),
                 Small(i, t.Mdb), Len(t.ExternalReliability), flag], state);
         }
-        var rows = new RowsOnDemand(observations.Count, TestRow);
+        var rows = new RowsOnDemand<SectionRow>(observations.Count, TestRow);
         var after = new List<string>
         {
             $"  Rejected: {rejected}; uncontrolled (r < {F(a.Options.UncontrolledRedundancy, 2)}): {uncontrolled}; " +
@@ -165,7 +165,7 @@ internal static class StatisticsReport
                     Len(p.SdHeight), Len(p.HeightConfidence),
                 ]);
             }
-            var ellipses = new RowsOnDemand(shown.Count, EllipseRow);
+            var ellipses = new RowsOnDemand<SectionRow>(shown.Count, EllipseRow);
             sections.Add(new ReportSection("ellipses",
                 $"ERROR ELLIPSES ({lu}; azimuth of the semi-major axis in {azUnit} from north)", "Error ellipses",
                 [
@@ -193,7 +193,7 @@ internal static class StatisticsReport
                     Nr("a " + level, lu, 8), Nr("Distance", lu, 11), Nr("sd dist", lu, 8), Nr("1:k", null, 9),
                     Nr("sd az", au, 7), Txt("", 0, gap: ""),
                 ],
-                new RowsOnDemand(relative.Count, x =>
+                new RowsOnDemand<SectionRow>(relative.Count, x =>
                 {
                     var rel = relative[x];
                     return new SectionRow([
@@ -219,7 +219,7 @@ internal static class StatisticsReport
                     Id("From", 10), Id("To", 10), Nr("dH", lu, 11), Nr("sd dH", lu, 9), Nr("dH " + level, lu, 9),
                     Txt("", 0, gap: ""),
                 ],
-                new RowsOnDemand(relativeHeights.Count, x =>
+                new RowsOnDemand<SectionRow>(relativeHeights.Count, x =>
                 {
                     var rh = relativeHeights[x];
                     return new SectionRow([
