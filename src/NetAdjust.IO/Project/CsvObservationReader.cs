@@ -41,57 +41,157 @@ internal static partial class CsvObservationReader
     }
 
     /// <summary>Reads the rows of a CSV file line by line (<paramref name="lines"/>: from its bytes a piece at a time,
-    /// or from a text); every error names <paramref name="file"/>, the line and the item.</summary>
+    /// or from a text); every error names <paramref name="file"/>, the line and the item. A large file whose lines can
+    /// be split (<see cref="CsvLines.SplitOff"/>) is read in two halves on two cores, with the same rows in the same
+    /// order and the same first problem of the file as read in one.</summary>
     public static List<Observation> Read(CsvLines lines, string file, LengthPattern lengths, AnglePattern angles,
         ProjectUnits units,
         IReadOnlyDictionary<ObservationKind, double> defaults, LevelBudget? levelBudget = null,
         CsvSpecifications? specs = null, IReadOnlyCollection<string>? pointIds = null)
     {
-        // a row per line at most: the list is not grown row by row (about once for a file read in pieces)
-        var result = new List<Observation>(lines.EstimateLines());
-        var slopes = new List<(SlopeDistanceObservation Slope, int Line, string Item)>();
-        // The row's fields as ranges of the line's buffer; each becomes a string only when asked (CsvRow): a row of
-        // the usual kinds with no marks or instrument fields makes strings only for its point ids (shared) and its
-        // source.
-        var row = new CsvRow(pointIds);
-        Dictionary<string, int>? col = null;
-        int cKind = -1, cAt = -1, cFrom = -1, cTo = -1, cValue = -1, cSd = -1, cSet = -1;
-        int[] optional = [];
-        string Get(string name) => col!.TryGetValue(name, out int k) ? row.Field(k) : "";
-        Func<string, string> get = Get;
-        var sdCache = new SdCache();
-        string? lastSetAt = null, lastSet = null, lastSetId = null;
-        ObservationKind lastKind = default;
-        string? lastKindName = null;
-        int lineNo;
-        while (lines.Next()) // lines end at CR LF, CR or LF alike
+        // a row per line at most (the lines of the whole file, before a split): the list is not grown row by row
+        var reader = new RowReader(new Settings(file, lengths, angles, units, defaults, levelBudget, specs),
+            new CsvRow(pointIds), lines.EstimateLines());
+        using var second = lines.SplitOff();
+        if (second is null) reader.Read(lines);
+        else if (!reader.ReadHeader(lines)) reader.Read(second); // no header in the first half: the rest after it
+        else
         {
-            lineNo = lines.LineNumber;
-            var line = lines.Buffer.AsSpan(lines.LineStart, lines.LineEnd - lines.LineStart);
-            if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
-            row.Split(lines.Buffer, lines.LineStart, lines.LineEnd, file, lineNo);
-            if (col is null)
+            // the second half on another core, with the header of the first and its own row, caches and lists
+            var other = reader.Twin();
+            var task = Task.Factory.StartNew(() => other.Read(second), CancellationToken.None,
+                TaskCreationOptions.LongRunning, TaskScheduler.Default);
+            try { reader.Read(lines); }
+            catch
             {
-                string[] f = row.All();
-                col = new Dictionary<string, int>(StringComparer.Ordinal);
-                for (int k = 0; k < f.Length; k++)
-                {
-                    if (!Columns.Contains(f[k]))
-                        throw new ProjectFileException(file, lineNo, "header",
-                            $"unknown column '{f[k]}' (expected some of: {string.Join(", ", Columns)})");
-                    if (!col.TryAdd(f[k], k))
-                        throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
-                }
-                foreach (var need in new[] { "kind", "value" })
-                    if (!col.ContainsKey(need) && !(need == "value" && col.ContainsKey("dx")))
-                        throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
-                int C(string name) => col.GetValueOrDefault(name, -1);
-                (cKind, cAt, cFrom, cTo, cValue, cSd, cSet) =
-                    (C("kind"), C("at"), C("from"), C("to"), C("value"), C("sd"), C("set"));
-                optional = col.Where(c => !BasicColumns.Contains(c.Key)).Select(c => c.Value).ToArray();
-                continue;
+                // the first half's problem comes first in the file: the second half stops and its own is dropped
+                other.Stop();
+                try { task.Wait(); }
+                catch (AggregateException) { }
+                throw;
             }
-            if (row.Count != col.Count)
+            task.GetAwaiter().GetResult();
+            reader.Append(other);
+        }
+        return reader.Finish();
+    }
+
+    /// <summary>What every row of a file is read with.</summary>
+    private sealed record Settings(string File, LengthPattern Lengths, AnglePattern Angles, ProjectUnits Units,
+        IReadOnlyDictionary<ObservationKind, double> Defaults, LevelBudget? LevelBudget, CsvSpecifications? Specs);
+
+    /// <summary>Reads the rows of one file, or of one half of it: the header's columns, the rows read so far and the
+    /// caches of the rows before (kind, set id, standard deviation, point ids).</summary>
+    private sealed class RowReader
+    {
+        private readonly Settings _s;
+        private readonly CsvRow row;
+        private List<Observation>? _rows;
+        private readonly int _capacity;
+        private readonly List<(SlopeDistanceObservation Slope, int Line, string Item)> _slopes = [];
+        private Dictionary<string, int>? col;
+        private int cKind = -1, cAt = -1, cFrom = -1, cTo = -1, cValue = -1, cSd = -1, cSet = -1;
+        private int[] optional = [];
+        private readonly Func<string, string> get;
+        private readonly SdCache sdCache = new();
+        private string? lastSetAt, lastSet, lastSetId;
+        private ObservationKind lastKind;
+        private string? lastKindName;
+        private volatile bool _stopped;
+
+        /// <param name="settings">What the rows are read with.</param>
+        /// <param name="csvRow">The row split from line to line (its shared point ids).</param>
+        /// <param name="capacity">The rows expected (0: as the lines read estimate).</param>
+        public RowReader(Settings settings, CsvRow csvRow, int capacity)
+        {
+            (_s, row, _capacity) = (settings, csvRow, capacity);
+            if (capacity > 0) _rows = new List<Observation>(capacity);
+            get = Get;
+        }
+
+        /// <summary>A reader of the same file's other half: the header's columns, its own row and caches.</summary>
+        public RowReader Twin() => new(_s, row.Twin(), 0)
+            { col = col, cKind = cKind, cAt = cAt, cFrom = cFrom, cTo = cTo, cValue = cValue, cSd = cSd, cSet = cSet,
+                optional = optional };
+
+        /// <summary>Stops <see cref="Read"/> at its next line (its rows are then not used).</summary>
+        public void Stop() => _stopped = true;
+
+        private string Get(string name) => col!.TryGetValue(name, out int k) ? row.Field(k) : "";
+
+        /// <summary>Reads lines up to the header; false when they end before it.</summary>
+        public bool ReadHeader(CsvLines lines)
+        {
+            while (col is null)
+            {
+                if (!lines.Next()) return false;
+                Line(lines);
+            }
+            return true;
+        }
+
+        /// <summary>Reads the rest of the lines (the header first when it has not been read).</summary>
+        public void Read(CsvLines lines)
+        {
+            _rows ??= new List<Observation>(lines.EstimateLines());
+            while (!_stopped && lines.Next()) Line(lines); // lines end at CR LF, CR or LF alike
+        }
+
+        /// <summary>Adds the rows of the half after this one.</summary>
+        public void Append(RowReader after)
+        {
+            _rows!.AddRange(after._rows!);
+            _slopes.AddRange(after._slopes);
+        }
+
+        /// <summary>The rows, once the slope distances are checked against the zenith angles of the whole file.
+        /// </summary>
+        public List<Observation> Finish()
+        {
+            _rows ??= [];
+            CheckSlopesHaveZeniths(_rows, _slopes, _s.Specs, _s.File);
+            return _rows;
+        }
+
+        private void Line(CsvLines lines)
+        {
+            int lineNo = lines.LineNumber;
+            var line = lines.Buffer.AsSpan(lines.LineStart, lines.LineEnd - lines.LineStart);
+            if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) return;
+            string file = _s.File;
+            row.Split(lines.Buffer, lines.LineStart, lines.LineEnd, file, lineNo);
+            if (col is null) Header(lineNo);
+            else Row(lineNo);
+        }
+
+        private void Header(int lineNo)
+        {
+            string file = _s.File;
+            string[] f = row.All();
+            var columns = new Dictionary<string, int>(StringComparer.Ordinal);
+            for (int k = 0; k < f.Length; k++)
+            {
+                if (!Columns.Contains(f[k]))
+                    throw new ProjectFileException(file, lineNo, "header",
+                        $"unknown column '{f[k]}' (expected some of: {string.Join(", ", Columns)})");
+                if (!columns.TryAdd(f[k], k))
+                    throw new ProjectFileException(file, lineNo, "header", $"column '{f[k]}' appears twice");
+            }
+            foreach (var need in new[] { "kind", "value" })
+                if (!columns.ContainsKey(need) && !(need == "value" && columns.ContainsKey("dx")))
+                    throw new ProjectFileException(file, lineNo, "header", $"the header has no '{need}' column");
+            int C(string name) => columns.GetValueOrDefault(name, -1);
+            (cKind, cAt, cFrom, cTo, cValue, cSd, cSet) =
+                (C("kind"), C("at"), C("from"), C("to"), C("value"), C("sd"), C("set"));
+            optional = columns.Where(c => !BasicColumns.Contains(c.Key)).Select(c => c.Value).ToArray();
+            col = columns;
+        }
+
+        private void Row(int lineNo)
+        {
+            var (file, lengths, angles, units, defaults, levelBudget, specs) = _s;
+            var rows = _rows!;
+            if (row.Count != col!.Count)
                 throw new ProjectFileException(file, lineNo, "",
                     $"expected {col.Count} fields as in the header, found {row.Count}");
             // the kind of the row before, or looked up by name
@@ -115,8 +215,8 @@ internal static partial class CsvObservationReader
             };
             if (kind == ObservationKind.Baseline)
             {
-                result.AddRange(BaselineRow(Need("from", from), Need("to", to), get, file, lineNo, Item()));
-                continue;
+                rows.AddRange(BaselineRow(Need("from", from), Need("to", to), get, file, lineNo, Item()));
+                return;
             }
             // the columns beyond kind, points, value, sd, length and set: all empty in a plain row
             bool plain = true;
@@ -241,13 +341,11 @@ internal static partial class CsvObservationReader
             {
                 throw new ProjectFileException(file, lineNo, Item(), ProjectReader.GuardProblem(e));
             }
-            if (o is SlopeDistanceObservation sdo) slopes.Add((sdo, lineNo, Item()));
+            if (o is SlopeDistanceObservation sdo) _slopes.Add((sdo, lineNo, Item()));
             // marks: none in a plain row (ObservationMarks.Apply returns the row as it is for empty marks)
             if (!plain) o = ObservationMarks.Apply(o, Get("exclude"), Get("sd_factor"), file, lineNo, Item());
-            result.Add(o);
+            rows.Add(o);
         }
-        CheckSlopesHaveZeniths(result, slopes, specs, file);
-        return result;
     }
 
     /// <summary>Reads a length of a row's field (slope distances, heights); the error names the row.</summary>

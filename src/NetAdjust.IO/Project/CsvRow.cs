@@ -15,17 +15,30 @@ internal sealed class CsvRow
     private const NumberStyles Number =
         NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint | NumberStyles.AllowExponent;
     private char[] _buffer = [];
-    private readonly Dictionary<string, string> _ids;
+    // the known ids (only read once made, so shared by the rows of both halves of a file) and the others met
+    private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _knownLookup;
+    private readonly Dictionary<string, string> _ids = new(StringComparer.Ordinal);
     private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _idLookup;
 
     /// <summary>The rows of a file; <paramref name="knownIds"/> (e.g. the project's points) are the strings its point
     /// ids share.</summary>
     public CsvRow(IReadOnlyCollection<string>? knownIds = null)
     {
-        _ids = new(knownIds?.Count ?? 0, StringComparer.Ordinal);
-        if (knownIds is not null) foreach (string id in knownIds) _ids.TryAdd(id, id);
+        var known = new Dictionary<string, string>(knownIds?.Count ?? 0, StringComparer.Ordinal);
+        if (knownIds is not null) foreach (string id in knownIds) known.TryAdd(id, id);
+        _knownLookup = known.GetAlternateLookup<ReadOnlySpan<char>>();
         _idLookup = _ids.GetAlternateLookup<ReadOnlySpan<char>>();
     }
+
+    private CsvRow(Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> known)
+    {
+        _knownLookup = known;
+        _idLookup = _ids.GetAlternateLookup<ReadOnlySpan<char>>();
+    }
+
+    /// <summary>A row for another half of the same file (on another core): the same known ids, its own others.
+    /// </summary>
+    public CsvRow Twin() => new(_knownLookup);
     private int[] _start = new int[16], _length = new int[16];
     private string?[] _strings = new string?[16];
 
@@ -77,7 +90,8 @@ internal sealed class CsvRow
     /// <summary>The field as a string ("" when empty or absent).</summary>
     public string Field(int k) => IsEmpty(k) ? "" : _strings[k] ??= Span(k).ToString();
 
-    /// <summary>The field as a point id: the same string for the same id throughout the file.</summary>
+    /// <summary>The field as a point id: the same string for the same id throughout the file (a known id), or
+    /// throughout the file or half of it read by this row (another).</summary>
     public string Id(int k)
     {
         if (IsEmpty(k)) return "";
@@ -89,7 +103,7 @@ internal sealed class CsvRow
         string? id = _recent[slot];
         if (id is null || !chars.SequenceEqual(id))
         {
-            if (!_idLookup.TryGetValue(chars, out id))
+            if (!_knownLookup.TryGetValue(chars, out id) && !_idLookup.TryGetValue(chars, out id))
             {
                 id = chars.ToString();
                 _ids[id] = id;

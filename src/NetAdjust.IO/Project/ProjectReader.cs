@@ -80,7 +80,11 @@ public static partial class ProjectReader
     /// </summary>
     private static CsvLines OpenCsv(InputFileResolver resolver, string full, string shown)
     {
-        try { return CsvLines.OfUtf8(resolver.Open(full), shown, InputLimits.MaxCsvFileBytes); }
+        try
+        {
+            return CsvLines.OfUtf8(resolver.Open(full), shown, InputLimits.MaxCsvFileBytes,
+                reopen: () => resolver.Open(full));
+        }
         catch (Exception e) when (Unreadable(e, shown, "the observation file") is { } refusal) { throw refusal; }
     }
 
