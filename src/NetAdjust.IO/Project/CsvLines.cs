@@ -79,8 +79,8 @@ internal sealed class CsvLines : IDisposable
     /// stops there, and the reader returned (over a second opening of the file) gives the lines after it, numbered
     /// as in the whole file (it counts the lines of the first half when it first reads, so on the core that reads
     /// it). Null, and this reader unchanged, when the file cannot be split: a text in memory, a stream that cannot
-    /// seek or has no second opening, a file shorter than its split length, a reader that has read past the middle,
-    /// or no line end after it.
+    /// seek or has no second opening (or the second opening fails), a file shorter than its split length, a reader
+    /// that has read past the middle, or no line end after it.
     /// </summary>
     public CsvLines? SplitOff()
     {
@@ -89,7 +89,12 @@ internal sealed class CsvLines : IDisposable
             return null;
         long length = _stream.Length;
         if (length < _splitBytes || length < 2 * _piece) return null;
-        var other = _reopen();
+        Stream? other;
+        try { other = _reopen(); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return null; // (e.g. the file moved since it was opened: the open stream reads it all in one pass)
+        }
         try
         {
             long middle = length / 2, at = middle;

@@ -113,6 +113,27 @@ public class CsvHalvesTests
         Assert.Null(second.SplitOff());
     }
 
+    /// <summary>The second opening fails (the file moved or lost its permission since the first): no split, and the
+    /// stream already open reads the whole file; a problem other than the file's reach is not hidden.</summary>
+    [Fact]
+    public void AFileThatCannotBeOpenedAgainIsReadInOnePass()
+    {
+        byte[] bytes = Encoding.UTF8.GetBytes(string.Concat(Enumerable.Repeat("kind,value\n", 100)));
+        foreach (var failure in new Exception[] { new FileNotFoundException("gone"),
+                     new UnauthorizedAccessException("denied") })
+        {
+            using var lines = CsvLines.OfUtf8(new MemoryStream(bytes), "obs.csv", long.MaxValue, 16,
+                () => throw failure, splitBytes: 0);
+            Assert.Null(lines.SplitOff());
+            var read = Numbered(lines);
+            Assert.Equal(101, read.Count); // the 100 rows and the empty line after the last line end
+            Assert.Equal((100, "kind,value"), read[99]);
+        }
+        using var broken = CsvLines.OfUtf8(new MemoryStream(bytes), "obs.csv", long.MaxValue, 16,
+            () => throw new InvalidOperationException("a defect"), splitBytes: 0);
+        Assert.Throws<InvalidOperationException>(() => broken.SplitOff());
+    }
+
     [Property(MaxTest = 1000)]
     public Property AnInvalidByteInEitherHalfIsRefusedAsTheWholeFileDecoderRefusesIt() =>
         Prop.ForAll((from before in Texts
