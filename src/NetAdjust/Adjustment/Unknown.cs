@@ -51,8 +51,19 @@ public sealed class UnknownIndex
 
     internal void Add(Unknown u)
     {
-        if (_map.ContainsKey(u)) return;
-        _map[u] = _list.Count;
+        // one look-up: the slot of a new unknown is filled, that of one already numbered left as it is
+        ref int slot = ref System.Runtime.InteropServices.CollectionsMarshal.GetValueRefOrAddDefault(_map, u,
+            out bool exists);
+        if (exists) return;
+        slot = _list.Count;
         _list.Add(u);
+    }
+
+    /// <summary>Makes room for <paramref name="count"/> unknowns in all (no rehashing while a large network's are
+    /// added).</summary>
+    internal void EnsureCapacity(int count)
+    {
+        _map.EnsureCapacity(count);
+        _list.EnsureCapacity(count);
     }
 }

@@ -314,6 +314,11 @@ internal static class TraverseClosures
         var data = new Data(network, sd, points);
         // Distances: a weighted mean per pair, summed in the order of the observations.
         var distances = data.DistanceSums;
+        // room for a pair per distance observation (a large network's table is then never rehashed as it fills)
+        int distanceCount = 0;
+        foreach (var ob in network.Observations) if (ob is DistanceObservation) distanceCount++;
+        data.Distances.EnsureCapacity(distanceCount);
+        distances.Capacity = distanceCount;
         var sets = new Dictionary<string, List<int>>(StringComparer.Ordinal);
         (string? Id, List<int>? Directions) last = (null, null); // a set's directions mostly follow each other
         long angles = 0; // at most this many angles (two per angle observation or pair of directions of a set)

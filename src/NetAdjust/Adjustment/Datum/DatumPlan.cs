@@ -142,6 +142,7 @@ internal sealed partial class DatumPlan
         }
         var sel = Select(network, definition, planePoints, heightPoints, e, nn);
         var index = new UnknownIndex();
+        index.EnsureCapacity((2 * planePoints.Count) + heightPoints.Count);
         for (int i = 0; i < points.Count; i++)
         {
             var p = points[i];
@@ -181,6 +182,7 @@ internal sealed partial class DatumPlan
                 last.Directions!.Add(i);
             }
         var values = new List<double>();
+        index.EnsureCapacity(index.Count + setOrder.Count);
         foreach (var set in setOrder)
         {
             values.Clear();
