@@ -19,12 +19,7 @@ namespace NetAdjust.IO.Tests.Project;
 /// </summary>
 public class CsvHalvesTests
 {
-    private static readonly string[] Atoms = ["a", "7", ",", " ", "#", "é", "€", "\U0001D11E", "\r", "\n", "\r\n"];
-
-    private static readonly Gen<string> Texts =
-        from n in Gen.Choose(0, 120)
-        from atoms in Gen.ArrayOf(Gen.Elements(Atoms), n)
-        select string.Concat(atoms);
+    private static readonly Gen<string> Texts = CsvReading.Texts(120);
 
     private static List<(int Number, string Text)> ReferenceLines(string text) =>
         [.. Regex.Split(text, "\r\n|\r|\n").Select((line, i) => (i + 1, line))];
@@ -163,33 +158,23 @@ public class CsvHalvesTests
     public void ObservationsReadInHalvesAreThoseReadInOnePass()
     {
         var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, 300));
-        string simulated = SimulatedCsv(network);
+        string simulated = CsvReading.SimulatedCsv(network);
         string mixed = string.Join("\r\n", [
-            "# every kind read from CSV", "kind,at,from,to,value,sd,length,set,level,setups,runs,exclude,sd_factor",
-            .. Enumerable.Repeat(MixedRows, 40).SelectMany(r => r)]) + "\r\n";
+            "# every kind read from CSV", CsvReading.MixedHeader,
+            .. Enumerable.Repeat(CsvReading.MixedRows, 40).SelectMany(r => r)]) + "\r\n";
         foreach (var (text, ids) in new[] { (simulated, network.Points.Select(p => p.Id).ToArray()),
                      (mixed, ["A", "B", "C", "D"]) })
             foreach (int piece in new[] { 64, 1024 })
             {
-                var oneCore = CsvObservationReader.Read(text, "obs.csv", Lengths, Angles, Units, Defaults, Level,
-                    pointIds: ids);
+                var oneCore = CsvReading.Read(text, pointIds: ids);
                 byte[] bytes = Encoding.UTF8.GetBytes(text);
                 using (var probe = Splittable(bytes, piece)) Assert.NotNull(probe.SplitOff()); // it is split
                 using var lines = Splittable(bytes, piece);
-                var halves = CsvObservationReader.Read(lines, "obs.csv", Lengths, Angles, Units, Defaults, Level,
-                    pointIds: ids);
+                var halves = CsvReading.Read(lines, pointIds: ids);
                 Assert.Equal(oneCore, halves);
                 Assert.Equal(oneCore.Select(o => o.Source), halves.Select(o => o.Source));
             }
     }
-
-    private static readonly string[] MixedRows =
-    [
-        "direction,A,,B,10.5,1.0,,1,,,,,", "direction,A,,C,20.25,1.0,,1,,,,yes,",
-        "distance,,A,B,100.0100,0.003,,,,,,,2", "angle,A,B,C,45.0000,2,,,,,,,", "azimuth,,C,D,359.99999,5,,,,,,,",
-        "height_difference,,A,B,1.2340,,250,,L1,4,2,,", "height_difference,,B,C,-0.5,0.001,120,,,,,,",
-        "distance,,C,Dé€,12.5,2mm,,,,,,,",
-    ];
 
     /// <summary>A problem in each half: the first half's is the one given (the first of the file); one in the second
     /// half alone: the one-core pass's, its line that of the whole file.</summary>
@@ -197,17 +182,15 @@ public class CsvHalvesTests
     public void AProblemIsTheFirstOfTheFileWhicheverHalfItIsIn()
     {
         var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, 300));
-        string[] lines = SimulatedCsv(network).Split('\n');
+        string[] lines = CsvReading.SimulatedCsv(network).Split('\n');
         int early = lines.Length / 5, late = 4 * lines.Length / 5;
         string Spoilt(params int[] at) => string.Join('\n', lines.Select((l, i) => at.Contains(i)
             ? Regex.Replace(l, "^(distance|direction),([^,]*),([^,]*),([^,]*),([^,]*)", "$1,$2,$3,$4,abc") : l));
         foreach (var (text, line) in new[] { (Spoilt(early, late), early + 1), (Spoilt(late), late + 1) })
         {
-            var oneCore = Assert.Throws<ProjectFileException>(() => CsvObservationReader.Read(text, "obs.csv",
-                Lengths, Angles, Units, Defaults));
+            var oneCore = Assert.Throws<ProjectFileException>(() => CsvReading.Read(text));
             using var halves = Splittable(Encoding.UTF8.GetBytes(text), 256);
-            var split = Assert.Throws<ProjectFileException>(() => CsvObservationReader.Read(halves, "obs.csv",
-                Lengths, Angles, Units, Defaults));
+            var split = Assert.Throws<ProjectFileException>(() => CsvReading.Read(halves));
             Assert.Equal(line, oneCore.Line);
             Assert.Equal((oneCore.Line, oneCore.Message), (split.Line, split.Message));
         }
@@ -231,23 +214,21 @@ public class CsvHalvesTests
             _ => new CsvObservationReader.RefractionChoice(0.13, 0.04, null, false), _ => false);
         foreach (string text in new[] { late, trig })
         {
-            var oneCore = CsvObservationReader.Read(text, "obs.csv", Lengths, Angles, Units, Defaults, specs: specs);
+            var oneCore = CsvReading.Read(text, specs: specs);
             using var halves = Splittable(Encoding.UTF8.GetBytes(text), 16);
-            var split = CsvObservationReader.Read(halves, "obs.csv", Lengths, Angles, Units, Defaults, specs: specs);
+            var split = CsvReading.Read(halves, specs: specs);
             Assert.Equal(oneCore, split);
         }
         // without its zenith angle the slope distance is refused either way, on its own line
         string alone = trig.Replace("zenith,A,B,88.85,2,1.550,1.700,,,,,\n", "");
         using var aloneHalves = Splittable(Encoding.UTF8.GetBytes(alone), 16);
-        var refused = Assert.Throws<ProjectFileException>(() => CsvObservationReader.Read(aloneHalves, "obs.csv",
-            Lengths, Angles, Units, Defaults, specs: specs));
+        var refused = Assert.Throws<ProjectFileException>(() => CsvReading.Read(aloneHalves, specs: specs));
         Assert.Equal(2, refused.Line);
         Assert.Contains("needs a zenith angle", refused.Message);
         // and one in the second half, on its line of the whole file
         string lateAlone = trig + "slope_distance,A,D,200.0,0.003,1.550,1.700,,,,,\n";
         using var lateHalves = Splittable(Encoding.UTF8.GetBytes(lateAlone), 16);
-        var lateRefused = Assert.Throws<ProjectFileException>(() => CsvObservationReader.Read(lateHalves, "obs.csv",
-            Lengths, Angles, Units, Defaults, specs: specs));
+        var lateRefused = Assert.Throws<ProjectFileException>(() => CsvReading.Read(lateHalves, specs: specs));
         Assert.Equal(lateAlone.Count(c => c == '\n'), lateRefused.Line);
         Assert.Contains("needs a zenith angle", lateRefused.Message);
     }
@@ -271,23 +252,4 @@ public class CsvHalvesTests
         }
         finally { Directory.Delete(dir, recursive: true); }
     }
-
-    private static string SimulatedCsv(SurveyNetwork network)
-    {
-        string dir = Directory.CreateTempSubdirectory("netadjust-halves-").FullName;
-        try
-        {
-            ProjectFileWriter.Write(network, Path.Combine(dir, "net.yaml"), "halves");
-            return File.ReadAllText(Directory.GetFiles(dir, "*.csv").Single());
-        }
-        finally { Directory.Delete(dir, recursive: true); }
-    }
-
-    private static readonly ProjectUnits Units = new(LengthUnit.Metre, AngleFormat.Degrees, AngleSdUnit.Arcsecond);
-    private static readonly LengthPattern Lengths = new(LengthUnit.Metre, 4);
-    private static readonly AnglePattern Angles = new(AngleFormat.Degrees, 4);
-    private static readonly Dictionary<ObservationKind, double> Defaults = [];
-    private static readonly ObservationWeighting Levelled = new() { Levelling = new LevellingProcedure(4, 2) };
-
-    private static ObservationWeighting Level(string level, Length? length, int? setups, int? runs) => Levelled;
 }

@@ -20,14 +20,7 @@ namespace NetAdjust.IO.Tests.Project;
 /// </summary>
 public class CsvLinesTests
 {
-    /// <summary>Characters of 1 to 4 UTF-8 bytes (é 2, € 3, the G clef a surrogate pair of 4), commas, comment marks
-    /// and the three line ends.</summary>
-    private static readonly string[] Atoms = ["a", "7", ",", " ", "#", "é", "€", "\U0001D11E", "\r", "\n", "\r\n"];
-
-    private static readonly Gen<string> Texts =
-        from n in Gen.Choose(0, 60)
-        from atoms in Gen.ArrayOf(Gen.Elements(Atoms), n)
-        select string.Concat(atoms);
+    private static readonly Gen<string> Texts = CsvReading.Texts(60);
 
     private static List<string> ReferenceLines(string text) => [.. Regex.Split(text, "\r\n|\r|\n")];
 
@@ -106,51 +99,29 @@ public class CsvLinesTests
     public void ObservationsReadInPiecesAreThoseReadFromTheText()
     {
         var network = SyntheticNetworks.Create(new SyntheticNetworkSpec(SyntheticNetworkKind.Plane, 60));
-        string dir = Directory.CreateTempSubdirectory("netadjust-csvlines-").FullName;
-        try
+        string simulated = CsvReading.SimulatedCsv(network);
         {
-            ProjectFileWriter.Write(network, Path.Combine(dir, "net.yaml"), "pieces");
-            string simulated = File.ReadAllText(Directory.GetFiles(dir, "*.csv").Single());
             Assert.True(simulated.Length > 4 * 1024, "several pieces of 1 KiB");
             string mixed = string.Join("\r\n",
-                "# every kind read from CSV", "kind,at,from,to,value,sd,length,set,level,setups,runs,exclude,sd_factor",
-                "direction,A,,B,10.5,1.0,,1,,,,,", "direction,A,,C,20.25,1.0,,1,,,,yes,",
-                "distance,,A,B,100.0100,0.003,,,,,,,2", "angle,A,B,C,45.0000,2,,,,,,,",
-                "azimuth,,C,D,359.99999,5,,,,,,,", "height_difference,,A,B,1.2340,,250,,L1,4,2,,",
-                "height_difference,,B,C,-0.5,0.001,120,,,,,,", "distance,,C,Dé€,12.5,2mm,,,,,,,") + "\r\n";
+                ["# every kind read from CSV", CsvReading.MixedHeader, .. CsvReading.MixedRows]) + "\r\n";
             foreach (var (text, ids) in new[] { (simulated, network.Points.Select(p => p.Id).ToArray()),
                 (mixed, ["A", "B", "C", "D"]) })
                 foreach (int piece in new[] { 7, 64, 1024 })
                 {
-                    var fromText = CsvObservationReader.Read(text, "obs.csv", Lengths, Angles, Units, Defaults,
-                        Level, pointIds: ids);
+                    var fromText = CsvReading.Read(text, pointIds: ids);
                     using var lines = OfBytes(Encoding.UTF8.GetBytes(text), piece);
-                    var fromBytes = CsvObservationReader.Read(lines, "obs.csv", Lengths, Angles, Units, Defaults,
-                        Level, pointIds: ids);
+                    var fromBytes = CsvReading.Read(lines, pointIds: ids);
                     Assert.Equal(fromText, fromBytes);
                 }
             // a bad row far into the file: the same error (file, line, item) either way
             string bad = simulated.Replace(",1.0000,", ",-1,") + "distance,,Q000001,Q000002,abc,0.002,,\n";
-            var textError = Assert.ThrowsAny<Exception>(() => CsvObservationReader.Read(bad, "obs.csv", Lengths,
-                Angles, Units, Defaults));
+            var textError = Assert.ThrowsAny<Exception>(() => CsvReading.Read(bad));
             using var badLines = OfBytes(Encoding.UTF8.GetBytes(bad), 64);
-            var bytesError = Assert.ThrowsAny<Exception>(() => CsvObservationReader.Read(badLines, "obs.csv", Lengths,
-                Angles, Units, Defaults));
+            var bytesError = Assert.ThrowsAny<Exception>(() => CsvReading.Read(badLines));
             Assert.Equal(textError.GetType(), bytesError.GetType());
             Assert.Equal(textError.Message, bytesError.Message);
         }
-        finally { Directory.Delete(dir, recursive: true); }
     }
-
-    private static readonly ProjectUnits Units = new(LengthUnit.Metre, AngleFormat.Degrees, AngleSdUnit.Arcsecond);
-    private static readonly LengthPattern Lengths = new(LengthUnit.Metre, 4);
-    private static readonly AnglePattern Angles = new(AngleFormat.Degrees, 4);
-    private static readonly Dictionary<ObservationKind, double> Defaults = [];
-
-    /// <summary>One weighting for every levelled row (the same instance, so that two reads compare equal).</summary>
-    private static readonly ObservationWeighting Levelled = new() { Levelling = new LevellingProcedure(4, 2) };
-
-    private static ObservationWeighting Level(string level, Length? length, int? setups, int? runs) => Levelled;
 
     /// <summary>A stream that cannot seek (its length unknown, as a pipe's).</summary>
     private sealed class ForwardOnly(byte[] bytes) : MemoryStream(bytes)
