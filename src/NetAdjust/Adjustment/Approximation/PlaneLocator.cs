@@ -242,18 +242,23 @@ internal sealed class PlaneLocator(ObservationIndex index)
             if (strength == ConstructionStrength.SeenBack && seen.Count > 0)
                 rays = rays.Where(r => seen.Contains(r.Origin)).ToList();
         }
+        // (the first distance from each station, looked up once: a point observed many times from few stations
+        // would otherwise cost rays × distances)
+        var firstCircle = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (int k = 0; k < circles.Count; k++) firstCircle.TryAdd(circles[k].Origin, k);
         foreach (var r in rays)
-            foreach (var d in circles.Where(d => d.Origin == r.Origin))
+            if (firstCircle.TryGetValue(r.Origin, out int k))
             {
                 parent = r.Origin;
-                return Constructions.Polar(r.At, r.Azimuth, d.Distance);
+                return Constructions.Polar(r.At, r.Azimuth, circles[k].Distance);
             }
 
         // Intersection: the best-conditioned pair of rays from different stations.
         PlanePoint? best = null;
         double bestSin = Math.Sin(Constructions.MinCut);
+        var rayRunEnd = RunEnds(rays, r => r.Origin);
         for (int a = 0; a < rays.Count; a++)
-            for (int b = a + 1; b < rays.Count; b++)
+            for (int b = rayRunEnd[a]; b < rays.Count; b++) // (the rays right after a from its station skipped)
             {
                 if (rays[a].Origin == rays[b].Origin) continue;
                 if (Constructions.Intersect(rays[a], rays[b]) is (PlanePoint p, double sin) && sin > bestSin)
@@ -269,17 +274,9 @@ internal sealed class PlaneLocator(ObservationIndex index)
 
         if (strength == ConstructionStrength.Resection) return null;
 
-        // Two-solution constructions: ray–distance, distance–distance.
-        var candidates = new List<(PlanePoint, PlanePoint?)>();
-        foreach (var r in rays)
-            foreach (var d in circles.Where(d => d.Origin != r.Origin))
-                if (Constructions.RayCircle(r, d) is var (p1, p2)) candidates.Add((p1, p2));
-        for (int a = 0; a < circles.Count; a++)
-            for (int b = a + 1; b < circles.Count; b++)
-                if (circles[a].Origin != circles[b].Origin
-                    && Constructions.CircleCircle(circles[a], circles[b]) is var (p1, p2))
-                    candidates.Add((p1, p2));
-        foreach (var (p1, p2) in candidates)
+        // Two-solution constructions: ray–distance, distance–distance, made one at a time in this order and only
+        // until one decides (a point measured many times from few stations has many pairs of the same kind).
+        foreach (var (p1, p2) in TwoSolutionCandidates(rays, circles))
         {
             if (p2 is null) return p1; // a unique solution (the ray starts inside the circle) needs no deciding
             double m1 = Constructions.Misfit(p1, rays, circles, cuts);
@@ -289,6 +286,32 @@ internal sealed class PlaneLocator(ObservationIndex index)
             if (strength == ConstructionStrength.UndecidedIntersection) return p1;
         }
         return null;
+    }
+
+    /// <summary>The ray–distance candidates (each ray with each distance from another station), then the
+    /// distance–distance ones (each pair of distances from two stations), in that order, made as they are asked.
+    /// </summary>
+    private static IEnumerable<(PlanePoint, PlanePoint?)> TwoSolutionCandidates(List<Ray> rays, List<Circle> circles)
+    {
+        foreach (var r in rays)
+            foreach (var d in circles)
+                if (d.Origin != r.Origin && Constructions.RayCircle(r, d) is var (p1, p2)) yield return (p1, p2);
+        var runEnd = RunEnds(circles, c => c.Origin);
+        for (int a = 0; a < circles.Count; a++)
+            for (int b = runEnd[a]; b < circles.Count; b++) // (the distances right after a from its station skipped)
+                if (circles[a].Origin != circles[b].Origin
+                    && Constructions.CircleCircle(circles[a], circles[b]) is var (p1, p2))
+                    yield return (p1, p2);
+    }
+
+    /// <summary>For each item, the index after the run of items from the same station that it starts (the first
+    /// later index whose station may differ).</summary>
+    private static int[] RunEnds<T>(List<T> items, Func<T, string> origin)
+    {
+        var end = new int[items.Count];
+        for (int k = items.Count - 1; k >= 0; k--)
+            end[k] = k + 1 < items.Count && origin(items[k + 1]) == origin(items[k]) ? end[k + 1] : k + 1;
+        return end;
     }
 
     /// <summary>What ties an unreached point to located points, for the error message.</summary>

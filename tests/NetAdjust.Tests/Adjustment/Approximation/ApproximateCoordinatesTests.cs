@@ -217,4 +217,48 @@ public class ApproximateCoordinatesTests
             Assert.Equal(near.Points[i].N!.Value, far.Points[i].N!.Value, 7);
         }
     }
+    /// <summary>
+    /// A point measured many times from few stations (repeated distances, azimuths) is located as from the first
+    /// measurement of each, bit for bit (the constructions take the same first pair, ray or candidate), and at the
+    /// chosen truth; the repeated measurements come in runs and interleaved. The pairs of repeated measurements of
+    /// one station are skipped, and the two-solution candidates made only until one decides.
+    /// </summary>
+    [Theory]
+    [InlineData("distances", false)]
+    [InlineData("distances", true)]
+    [InlineData("azimuths", false)]
+    [InlineData("azimuths", true)]
+    [InlineData("polar", false)]
+    [InlineData("azimuth and distance", true)]
+    public void APointMeasuredManyTimesIsLocatedAsFromOneMeasurementEach(string kind, bool interleaved)
+    {
+        var p = (E: 1180.0, N: 1910.0);
+        DistanceObservation D(string from) { var k = Known.Single(x => x.Id == from);
+            return new(from, "P", Length.FromMetres(Dist(k.E, k.N, p.E, p.N))) { StandardDeviation = 0.002 }; }
+        AzimuthObservation Z(string from) { var k = Known.Single(x => x.Id == from);
+            return new(from, "P", Angle.FromRadians(Az(k.E, k.N, p.E, p.N))) { StandardDeviation = 1e-5 }; }
+        Observation[] once = kind switch
+        {
+            "distances" => [D("A"), D("B"), D("C")], // C decides between the two points where A's and B's meet
+            "azimuths" => [Z("A"), Z("D")],
+            "polar" => [Z("A"), D("A")],
+            _ => [Z("A"), D("B"), D("C")],
+        };
+        const int Times = 3000;
+        // each repeat of a distance 0.1 µm longer than the one before (the first of each station decides the
+        // construction, so the result is that of the first measurements bit for bit); azimuths repeated exactly (the
+        // best-conditioned pair of rays is taken over all pairs)
+        Observation Repeat(Observation o, int i) => o is DistanceObservation d
+            ? d with { Distance = Length.FromMetres(d.Distance.Metres + (i * 1e-7)) } : o;
+        var many = interleaved
+            ? Enumerable.Range(0, Times).SelectMany(i => once.Select(o => Repeat(o, i))).ToArray()
+            : once.SelectMany(o => Enumerable.Range(0, Times).Select(i => Repeat(o, i))).ToArray();
+        var pts = new[] { Held("A"), Held("B"), Held("C"), Held("D"), new Point("P") };
+        var (e1, n1) = Run(new SurveyNetwork("once", pts, once));
+        var (e2, n2) = Run(new SurveyNetwork("many", pts, many));
+        Assert.Equal(e1["P"], e2["P"]);
+        Assert.Equal(n1["P"], n2["P"]);
+        Assert.Equal(p.E, e2["P"], 6);
+        Assert.Equal(p.N, n2["P"], 6);
+    }
 }
