@@ -92,5 +92,19 @@ public class ObservationPointsTests
             Assert.Equal(small.Message, e.Message);
         }
         Assert.Equal(4, small!.Message.Split('\n').Length); // the heading, X undefined, U to U, the shared set
+
+        // a set that two stations share within one half (the first, then the second), and across the halves (one
+        // station's direction in each): the checks of a large network find each as the one-core pass words it
+        foreach (var (first, second) in new[] { (10, 100_000), (200_000, 235_000), (10, 235_000) })
+        {
+            var bad = new List<Observation>(good);
+            bad.Insert(second, Dir("W", "V", "W/1"));
+            bad.Insert(first, Dir("V", "W", "W/1"));
+            var e = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("n", points, bad));
+            var one = Assert.Throws<InvalidInputException>(() => new SurveyNetwork("n", points,
+                [Dir("S", "T", "S/1"), Dir("V", "W", "W/1"), Dir("W", "V", "W/1")]));
+            Assert.Equal(one.Message, e.Message);
+            Assert.Contains("direction set W/1 already belongs to station V", e.Message);
+        }
     }
 }
