@@ -217,6 +217,7 @@ public class ApproximateCoordinatesTests
             Assert.Equal(near.Points[i].N!.Value, far.Points[i].N!.Value, 7);
         }
     }
+
     /// <summary>
     /// A point measured many times from few stations (repeated distances, azimuths) is located as from the first
     /// measurement of each, bit for bit (the constructions take the same first pair, ray or candidate), and at the
