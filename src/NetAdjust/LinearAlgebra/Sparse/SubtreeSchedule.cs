@@ -2,31 +2,44 @@ namespace NetAdjust.LinearAlgebra.Sparse;
 
 /// <summary>
 /// A deterministic split of the supernodal elimination tree for a tree-level parallel factorisation: disjoint
-/// subtrees, packed into one set per worker with balanced work, and the top part (the ancestors of those subtrees),
-/// factorised after them. Subtrees in different sets share no front, so the sets run concurrently; each front's
-/// arithmetic and the order of its children's extend-add are those of the sequential factorisation.
+/// subtrees, and the top part (the ancestors of those subtrees), factorised after them. Subtrees share no front, so
+/// they run concurrently, each on one thread (<see cref="ForEachSubtree"/>: the workers take them heaviest first as
+/// they come free); each front's arithmetic and the order of its children's extend-add are those of the sequential
+/// factorisation, so the factor is the same bits whichever worker takes which subtree.
 /// </summary>
 /// <remarks>
 /// Subtree-to-processor mapping after Geist &amp; Ng 1989, "Task scheduling for parallel sparse Cholesky
 /// factorization", Int. J. Parallel Programming 18(4):291–314: the heaviest subtree is split (its root moves to the
 /// top part, its children become subtrees) while that shortens the estimated critical path, the largest set's work
-/// plus the top part's. A subtree is a contiguous range of supernodes in postorder. Work of a front with k columns
-/// and m rows is estimated as k·m² (its dense factorisation and update; Liu 1992, §5). O(ns + splits·ns_c log ns_c)
-/// with ns_c the subtrees considered.
+/// plus the top part's; the sets are the subtrees packed by the longest-first rule (Graham 1969, "Bounds on
+/// multiprocessing timing anomalies", SIAM J. Appl. Math. 17(2):416–429), and the workers follow the same rule with
+/// the real durations: each takes the heaviest subtree left when it comes free, so a subtree that runs longer than
+/// its estimate, or a core slowed by the rest of the machine, holds up only the subtrees it is working on. A subtree
+/// is a contiguous range of supernodes in postorder. Work of a front with k columns and m rows is estimated as k·m²
+/// (its dense factorisation and update; Liu 1992, §5). O(ns + splits·ns_c log ns_c) with ns_c the subtrees
+/// considered.
 /// </remarks>
 internal sealed class SubtreeSchedule
 {
     private const int MaxSplits = 256;
 
-    private SubtreeSchedule(int workers, int[][] sets, int[] top, double[] setWork, double topWork, double total)
+    private SubtreeSchedule(int workers, int[] subtrees, int[][] sets, int[] top, double[] setWork, double topWork,
+        double total)
     {
-        Workers = workers; Sets = sets; Top = top; SetWork = setWork; TopWork = topWork; TotalWork = total;
+        Workers = workers; Subtrees = subtrees; Sets = sets; Top = top; SetWork = setWork; TopWork = topWork;
+        TotalWork = total;
     }
 
-    /// <summary>The number of sets the subtrees were packed into.</summary>
+    /// <summary>The number of workers (and of sets the subtrees were packed into).</summary>
     public int Workers { get; }
 
-    /// <summary>Per set, its subtrees as pairs (first supernode, root supernode), in ascending postorder.</summary>
+    /// <summary>Every subtree as a pair (first supernode, root supernode), heaviest first (ties: the lower root):
+    /// the order in which the workers of <see cref="ForEachSubtree"/> take them.</summary>
+    public int[] Subtrees { get; }
+
+    /// <summary>Per set, its subtrees as pairs (first supernode, root supernode), in ascending postorder: the packing
+    /// of the estimates by the rule the workers follow, which gives <see cref="SetWork"/> and
+    /// <see cref="CriticalPath"/>.</summary>
     public int[][] Sets { get; }
 
     /// <summary>The supernodes of the top part, ascending (a postorder: children before parents).</summary>
@@ -48,6 +61,36 @@ internal sealed class SubtreeSchedule
     /// (below it the hand-over costs more than it saves) and the critical path is under 90 % of the work.</summary>
     /// <param name="minimumWork">The least estimated work for a split.</param>
     public bool Worthwhile(double minimumWork) => TotalWork >= minimumWork && CriticalPath < 0.9 * TotalWork;
+
+    /// <summary>
+    /// Runs the subtrees on <see cref="Workers"/> threads (the calling thread one of them): each worker takes the
+    /// heaviest subtree left, runs on it what <paramref name="worker"/> gave it, and takes the next when done, until
+    /// none is left.
+    /// Every subtree is run exactly once. When a call throws, no worker takes another subtree, and the exceptions
+    /// come back in an <see cref="AggregateException"/>.
+    /// </summary>
+    /// <param name="worker">Called once on each worker's thread; returns what that worker does with a subtree
+    /// (first supernode, root supernode), e.g. with scratch memory of its own.</param>
+    public void ForEachSubtree(Func<Action<int, int>> worker)
+    {
+        int next = -1, count = Subtrees.Length / 2;
+        Parallel.For(0, Workers, _ =>
+        {
+            var subtree = worker();
+            for (int i; (i = Interlocked.Increment(ref next)) < count;)
+            {
+                try
+                {
+                    subtree(Subtrees[2 * i], Subtrees[(2 * i) + 1]);
+                }
+                catch
+                {
+                    Volatile.Write(ref next, count); // the others stop at their next subtree
+                    throw;
+                }
+            }
+        });
+    }
 
     /// <summary>Splits the tree of an analysis for the given number of workers (at least 2).</summary>
     /// <param name="sym">The symbolic analysis.</param>
@@ -111,7 +154,10 @@ internal sealed class SubtreeSchedule
             sets[b] = new int[roots.Count * 2];
             for (int i = 0; i < roots.Count; i++) { sets[b][2 * i] = first[roots[i]]; sets[b][(2 * i) + 1] = roots[i]; }
         }
-        return new SubtreeSchedule(workers, sets, topNodes, best.Loads, bestTop, total);
+        var heaviestFirst = new int[best.Order.Length * 2];
+        for (int i = 0; i < best.Order.Length; i++)
+            (heaviestFirst[2 * i], heaviestFirst[(2 * i) + 1]) = (first[best.Order[i]], best.Order[i]);
+        return new SubtreeSchedule(workers, heaviestFirst, sets, topNodes, best.Loads, bestTop, total);
     }
 
     private static double ChildrenWork(SymbolicCholesky sym, double[] sub, int s)
@@ -121,8 +167,10 @@ internal sealed class SubtreeSchedule
         return w;
     }
 
-    /// <summary>Greedy packing, heaviest subtree first into the least loaded set (ties: lower index).</summary>
-    private static (List<int>[] Bins, double[] Loads) Pack(List<int> candidates, double[] sub, int workers)
+    /// <summary>Greedy packing, heaviest subtree first into the least loaded set (ties: lower index); with the
+    /// subtrees' roots in that order.</summary>
+    private static (List<int>[] Bins, double[] Loads, int[] Order) Pack(List<int> candidates, double[] sub,
+        int workers)
     {
         var order = candidates.ToArray();
         Array.Sort(order, (a, b) => sub[a] != sub[b] ? sub[b].CompareTo(sub[a]) : a.CompareTo(b));
@@ -136,6 +184,6 @@ internal sealed class SubtreeSchedule
             bins[least].Add(c);
             loads[least] += sub[c];
         }
-        return (bins, loads);
+        return (bins, loads, order);
     }
 }

@@ -81,6 +81,66 @@ public class SubtreeParallelFactorisationTests
     [Theory]
     [InlineData(2)]
     [InlineData(3)]
+    public void TheWorkersTakeTheSetsSubtreesHeaviestFirst(int workers)
+    {
+        var (sym, _, _, _, _) = GridProblem(40, 1);
+        var schedule = SubtreeSchedule.Compute(sym, workers);
+        var pairs = Pairs(schedule.Subtrees);
+        Assert.True(pairs.Count >= workers, $"{pairs.Count} subtrees");
+        // the same subtrees as the sets' packing
+        Assert.Equal(schedule.Sets.SelectMany(Pairs).Order(), pairs.Order());
+        // heaviest first (ties: the lower root), the work of a subtree summed here front by front as k·m²
+        double Work((int First, int Root) t) => Enumerable.Range(t.First, t.Root - t.First + 1).Sum(s =>
+            (double)(sym.SnStart[s + 1] - sym.SnStart[s]) * Math.Pow(sym.SnRowStart[s + 1] - sym.SnRowStart[s], 2));
+        for (int i = 1; i < pairs.Count; i++)
+        {
+            double before = Work(pairs[i - 1]), after = Work(pairs[i]);
+            Assert.True(before > after || (before == after && pairs[i - 1].Root < pairs[i].Root),
+                $"subtree {i - 1} ({before:E3}) before subtree {i} ({after:E3})");
+        }
+    }
+
+    [Fact]
+    public void EverySubtreeRunsOnceWhateverTheWorkerThatTakesIt()
+    {
+        var (sym, _, _, _, _) = GridProblem(40, 1);
+        var schedule = SubtreeSchedule.Compute(sym, 3);
+        var runs = new int[sym.SupernodeCount];
+        int workers = 0;
+        for (int round = 0; round < 20; round++)
+            schedule.ForEachSubtree(() =>
+            {
+                Interlocked.Increment(ref workers);
+                return (first, root) =>
+                {
+                    Interlocked.Increment(ref runs[root]);
+                    Thread.SpinWait(1000 * (root % 7)); // subtrees of unequal length
+                };
+            });
+        foreach (var (_, root) in Pairs(schedule.Subtrees)) Assert.Equal(20, runs[root]);
+        Assert.Equal(Pairs(schedule.Subtrees).Count * 20, runs.Sum());
+        Assert.Equal(3 * 20, workers); // worker() called once for each of the three workers of each round
+    }
+
+    [Fact]
+    public void ASubtreeThatThrowsComesBackAsTheException()
+    {
+        var (sym, _, _, _, _) = GridProblem(40, 1);
+        var schedule = SubtreeSchedule.Compute(sym, 2);
+        int thrower = Pairs(schedule.Subtrees)[^1].Root;
+        var e = Assert.Throws<AggregateException>(() => schedule.ForEachSubtree(() => (first, root) =>
+        {
+            if (root == thrower) throw new InvalidOperationException($"subtree {root}");
+        }));
+        Assert.Equal($"subtree {thrower}", Assert.Single(e.InnerExceptions).Message);
+    }
+
+    private static List<(int First, int Root)> Pairs(int[] flat) =>
+        Enumerable.Range(0, flat.Length / 2).Select(i => (flat[2 * i], flat[(2 * i) + 1])).ToList();
+
+    [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
     [InlineData(4)]
     public void ParallelFactorIsBitIdenticalToTheSequentialFactor(int workers)
     {
