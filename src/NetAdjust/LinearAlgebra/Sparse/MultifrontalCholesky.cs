@@ -68,15 +68,15 @@ internal static class MultifrontalCholesky
 
         try
         {
-            // the subtree sets concurrently, each front's own loops sequential
-            Parallel.For(0, schedule.Workers, b =>
+            // the subtrees concurrently, each worker taking the heaviest left, each front's own loops sequential
+            schedule.ForEachSubtree(() =>
             {
-                var set = schedule.Sets[b];
-                if (set.Length == 0) return;
                 var scratch = new FrontScratch(n, sym.LargestFront);
-                for (int i = 0; i < set.Length; i += 2)
-                    for (int s = set[i]; s <= set[i + 1]; s++)
+                return (first, root) =>
+                {
+                    for (int s = first; s <= root; s++)
                         FactorFront(sym, s, lowerValues, scale, L, updates, scratch, rowsInParallel: false);
+                };
             });
         }
         catch (AggregateException e)

@@ -44,9 +44,10 @@ internal static class SelectedInversion
         // every entry is written below
         var Z = inPlace ? L : GC.AllocateUninitializedArray<double>(L.Length);
         if (threads <= 0) threads = Environment.ProcessorCount;
-        // the split of the factorisation (SubtreeSchedule): the top part first, parents before children, then
-        // each set's subtrees, from each root down (in postorder a subtree is first..root, so descending order
-        // visits parents before children; any such order gives the same entries)
+        // the split of the factorisation (SubtreeSchedule): the top part first, parents before children, then the
+        // subtrees, taken heaviest first by the workers as they come free, each from its root down (in postorder a
+        // subtree is first..root, so descending order visits parents before children; any such order gives the
+        // same entries)
         var schedule = threads >= 2 && sym.SupernodeCount > 1 ? sym.ScheduleFor(threads) : null;
         if (schedule is null || !schedule.Worthwhile(parallelWork))
         {
@@ -55,11 +56,9 @@ internal static class SelectedInversion
         }
         for (int t = schedule.Top.Length - 1; t >= 0; t--)
             Supernode(sym, L, Z, schedule.Top[t], inPlace, innerLoops);
-        Parallel.For(0, schedule.Workers, b =>
+        schedule.ForEachSubtree(() => (first, root) =>
         {
-            var set = schedule.Sets[b];
-            for (int i = set.Length - 2; i >= 0; i -= 2)
-                for (int s = set[i + 1]; s >= set[i]; s--) Supernode(sym, L, Z, s, inPlace, innerParallel: false);
+            for (int s = root; s >= first; s--) Supernode(sym, L, Z, s, inPlace, innerParallel: false);
         });
         return Z;
     }
