@@ -59,7 +59,8 @@ internal static class CovarianceProbe
             }
             var schedule = sym.ScheduleFor(Environment.ProcessorCount);
             Console.WriteLine(string.Create(inv, $"subtree schedule for {schedule.Workers} cores (k m^2 per front): " +
-                $"sets {string.Join(" + ", schedule.SetWork.Select(w => w.ToString("E3", inv)))}, top " +
+                $"{schedule.Subtrees.Length / 2} subtrees, sets " +
+                $"{string.Join(" + ", schedule.SetWork.Select(w => w.ToString("E3", inv)))}, top " +
                 $"{schedule.TopWork:E3} ({schedule.Top.Length} fronts) of {schedule.TotalWork:E3}; critical path " +
                 $"{schedule.CriticalPath / schedule.TotalWork:P1} of the work"));
             var factor = new SparseCholeskyFactor(sym, l, scale);
