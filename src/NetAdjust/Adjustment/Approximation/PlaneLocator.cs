@@ -14,6 +14,10 @@ internal sealed class PlaneLocator(ObservationIndex index)
 {
     private IReadOnlyDictionary<string, List<DirectionObservation>> Sets => index.Sets;
 
+    /// <summary>Two-solution candidates weighed against a point's measurements on this thread (for the tests of the
+    /// constructions' cost).</summary>
+    [ThreadStatic] internal static int CandidatesWeighed;
+
     /// <summary>
     /// Fills in plane coordinates of every point in <paramref name="plane"/> that lacks them.
     /// </summary>
@@ -242,31 +246,32 @@ internal sealed class PlaneLocator(ObservationIndex index)
             if (strength == ConstructionStrength.SeenBack && seen.Count > 0)
                 rays = rays.Where(r => seen.Contains(r.Origin)).ToList();
         }
-        // (the first distance from each station, looked up once: a point observed many times from few stations
-        // would otherwise cost rays × distances)
-        var firstCircle = new Dictionary<string, int>(StringComparer.Ordinal);
-        for (int k = 0; k < circles.Count; k++) firstCircle.TryAdd(circles[k].Origin, k);
-        foreach (var r in rays)
-            if (firstCircle.TryGetValue(r.Origin, out int k))
+        // The constructions take each station's first ray and first distance: the rays (distances) from one station
+        // to the point are repeats of one quantity (rounds, faces, monitoring epochs), so a point measured n times
+        // from k stations costs O(n + k²) here instead of O(n²); all of its measurements decide between two
+        // solutions below.
+        var stationRays = FirstOfEachStation(rays, r => r.Origin);
+        var stationCircles = FirstOfEachStation(circles, c => c.Origin);
+        var firstCircle = new Dictionary<string, Circle>(StringComparer.Ordinal);
+        foreach (var c in stationCircles) firstCircle.Add(c.Origin, c);
+        foreach (var r in stationRays)
+            if (firstCircle.TryGetValue(r.Origin, out var c))
             {
                 parent = r.Origin;
-                return Constructions.Polar(r.At, r.Azimuth, circles[k].Distance);
+                return Constructions.Polar(r.At, r.Azimuth, c.Distance);
             }
 
         // Intersection: the best-conditioned pair of rays from different stations.
         PlanePoint? best = null;
         double bestSin = Math.Sin(Constructions.MinCut);
-        var rayRunEnd = RunEnds(rays, r => r.Origin);
-        for (int a = 0; a < rays.Count; a++)
-            for (int b = rayRunEnd[a]; b < rays.Count; b++) // (the rays right after a from its station skipped)
-            {
-                if (rays[a].Origin == rays[b].Origin) continue;
-                if (Constructions.Intersect(rays[a], rays[b]) is (PlanePoint p, double sin) && sin > bestSin)
+        for (int a = 0; a < stationRays.Count; a++)
+            for (int b = a + 1; b < stationRays.Count; b++)
+                if (Constructions.Intersect(stationRays[a], stationRays[b]) is (PlanePoint p, double sin)
+                    && sin > bestSin)
                 {
                     best = p;
                     bestSin = sin;
                 }
-            }
         if (best is not null || strength <= ConstructionStrength.PolarOrIntersection) return best;
 
         // Resection from angles at the point, unless its angles misfit (a redundant resection shows a blunder).
@@ -276,9 +281,10 @@ internal sealed class PlaneLocator(ObservationIndex index)
 
         // Two-solution constructions: ray–distance, distance–distance, made one at a time in this order and only
         // until one decides (a point measured many times from few stations has many pairs of the same kind).
-        foreach (var (p1, p2) in TwoSolutionCandidates(rays, circles))
+        foreach (var (p1, p2) in TwoSolutionCandidates(stationRays, stationCircles))
         {
             if (p2 is null) return p1; // a unique solution (the ray starts inside the circle) needs no deciding
+            CandidatesWeighed++;
             double m1 = Constructions.Misfit(p1, rays, circles, cuts);
             double m2 = Constructions.Misfit(p2.Value, rays, circles, cuts);
             // The two solutions fit the observations that made them equally; the others decide (3σ margin).
@@ -288,30 +294,28 @@ internal sealed class PlaneLocator(ObservationIndex index)
         return null;
     }
 
-    /// <summary>The ray–distance candidates (each ray with each distance from another station), then the
-    /// distance–distance ones (each pair of distances from two stations), in that order, made as they are asked.
-    /// </summary>
-    private static IEnumerable<(PlanePoint, PlanePoint?)> TwoSolutionCandidates(List<Ray> rays, List<Circle> circles)
+    /// <summary>The ray–distance candidates (each station's ray with each other station's distance), then the
+    /// distance–distance ones (each pair of stations' distances), in that order, made as they are asked.</summary>
+    private static IEnumerable<(PlanePoint, PlanePoint?)> TwoSolutionCandidates(List<Ray> stationRays,
+        List<Circle> stationCircles)
     {
-        foreach (var r in rays)
-            foreach (var d in circles)
+        foreach (var r in stationRays)
+            foreach (var d in stationCircles)
                 if (d.Origin != r.Origin && Constructions.RayCircle(r, d) is var (p1, p2)) yield return (p1, p2);
-        var runEnd = RunEnds(circles, c => c.Origin);
-        for (int a = 0; a < circles.Count; a++)
-            for (int b = runEnd[a]; b < circles.Count; b++) // (the distances right after a from its station skipped)
-                if (circles[a].Origin != circles[b].Origin
-                    && Constructions.CircleCircle(circles[a], circles[b]) is var (p1, p2))
+        for (int a = 0; a < stationCircles.Count; a++)
+            for (int b = a + 1; b < stationCircles.Count; b++)
+                if (Constructions.CircleCircle(stationCircles[a], stationCircles[b]) is var (p1, p2))
                     yield return (p1, p2);
     }
 
-    /// <summary>For each item, the index after the run of items from the same station that it starts (the first
-    /// later index whose station may differ).</summary>
-    private static int[] RunEnds<T>(List<T> items, Func<T, string> origin)
+    /// <summary>The first item of each station, in the order of the items.</summary>
+    private static List<T> FirstOfEachStation<T>(List<T> items, Func<T, string> origin)
     {
-        var end = new int[items.Count];
-        for (int k = items.Count - 1; k >= 0; k--)
-            end[k] = k + 1 < items.Count && origin(items[k + 1]) == origin(items[k]) ? end[k + 1] : k + 1;
-        return end;
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var first = new List<T>();
+        foreach (var item in items)
+            if (seen.Add(origin(item))) first.Add(item);
+        return first;
     }
 
     /// <summary>What ties an unreached point to located points, for the error message.</summary>

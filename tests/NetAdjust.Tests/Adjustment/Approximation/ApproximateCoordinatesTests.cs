@@ -220,9 +220,9 @@ public class ApproximateCoordinatesTests
 
     /// <summary>
     /// A point measured many times from few stations (repeated distances, azimuths) is located as from the first
-    /// measurement of each, bit for bit (the constructions take the same first pair, ray or candidate), and at the
-    /// chosen truth; the repeated measurements come in runs and interleaved. The pairs of repeated measurements of
-    /// one station are skipped, and the two-solution candidates made only until one decides.
+    /// measurement of each station, bit for bit (the constructions take each station's first ray and first
+    /// distance), and at the chosen truth; the repeated measurements come in runs and interleaved (as rounds or
+    /// monitoring epochs come).
     /// </summary>
     [Theory]
     [InlineData("distances", false)]
@@ -246,11 +246,15 @@ public class ApproximateCoordinatesTests
             _ => [Z("A"), D("B"), D("C")],
         };
         const int Times = 3000;
-        // each repeat of a distance 0.1 µm longer than the one before (the first of each station decides the
-        // construction, so the result is that of the first measurements bit for bit); azimuths repeated exactly (the
-        // best-conditioned pair of rays is taken over all pairs)
-        Observation Repeat(Observation o, int i) => o is DistanceObservation d
-            ? d with { Distance = Length.FromMetres(d.Distance.Metres + (i * 1e-7)) } : o;
+        // each repeat of a distance 0.1 µm longer than the one before, of an azimuth 1 nrad larger (the first of
+        // each station makes the construction, so the result is that of the first measurements bit for bit; a
+        // later pair of rays cuts at a larger angle, so taking the best-conditioned pair over all rays would not)
+        Observation Repeat(Observation o, int i) => o switch
+        {
+            DistanceObservation d => d with { Distance = Length.FromMetres(d.Distance.Metres + (i * 1e-7)) },
+            AzimuthObservation z => z with { Azimuth = Angle.FromRadians(z.Azimuth.Radians + (i * 1e-9)) },
+            _ => o,
+        };
         var many = interleaved
             ? Enumerable.Range(0, Times).SelectMany(i => once.Select(o => Repeat(o, i))).ToArray()
             : once.SelectMany(o => Enumerable.Range(0, Times).Select(i => Repeat(o, i))).ToArray();
@@ -261,5 +265,29 @@ public class ApproximateCoordinatesTests
         Assert.Equal(n1["P"], n2["P"]);
         Assert.Equal(p.E, e2["P"], 6);
         Assert.Equal(p.N, n2["P"], 6);
+    }
+
+    /// <summary>
+    /// A point fixed by distances from two stations only (nothing tells its two solutions apart) and measured many
+    /// times from both, interleaved: it is located as from the first distance of each, and the two-solution
+    /// candidates weighed against its measurements are one per pair of stations and strength tried, not one per
+    /// pair of repeats (with 300 repeats interleaved, pairing every repeat weighed 180,001 candidates, each against
+    /// 600 distances).
+    /// </summary>
+    [Fact]
+    public void ATwoStationPointMeasuredManyTimesWeighsOneCandidatePerPairOfStations()
+    {
+        var p = (E: 1180.0, N: 1910.0);
+        DistanceObservation D(string from, int i) { var k = Known.Single(x => x.Id == from);
+            return new(from, "P", Length.FromMetres(Dist(k.E, k.N, p.E, p.N) + (i * 1e-7)))
+                { StandardDeviation = 0.002 }; }
+        var pts = new[] { Held("A"), Held("B"), new Point("P") };
+        var (e1, n1) = Run(new SurveyNetwork("once", pts, [D("A", 0), D("B", 0)]));
+        PlaneLocator.CandidatesWeighed = 0;
+        var many = Enumerable.Range(0, 300).SelectMany(i => new Observation[] { D("A", i), D("B", i) }).ToArray();
+        var (e2, n2) = Run(new SurveyNetwork("many", pts, many));
+        Assert.Equal(e1["P"], e2["P"]);
+        Assert.Equal(n1["P"], n2["P"]);
+        Assert.InRange(PlaneLocator.CandidatesWeighed, 1, 4);
     }
 }
