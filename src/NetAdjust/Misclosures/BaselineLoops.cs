@@ -24,6 +24,9 @@ internal static class BaselineLoops
 
     private sealed record Candidate(int[] Edges, bool Trivial, double Length, int Order);
 
+    /// <summary>Baselines read by the shortest-path searches on this thread (for the tests of their cost).</summary>
+    [ThreadStatic] internal static long BaselinesRead;
+
     /// <summary>
     /// The loops of a network's GNSS baselines: every baseline whose three components are present, none set aside,
     /// with a 3×3 covariance (the group scale applied). The mean position of a loop comes from its points' given or
@@ -113,12 +116,20 @@ internal static class BaselineLoops
             candidates.Add(new Candidate([.. cycle], trivial, cycle.Sum(e => lengths[e]), candidates.Count));
         }
 
-        // For every baseline, the shortest way back through baselines of other groups (mixes groups by design).
+        // For every baseline, the shortest way back through baselines of other groups (mixes groups by design). For
+        // a baseline of a group the way depends only on its ends and its group, so the repeats of a baseline share
+        // one search (a search that finds no way reads every baseline of the points it reaches).
+        var wayBack = new Dictionary<(int From, int To, string Group), List<int>?>();
         for (int e = 0; e < m; e++)
         {
             string? g = vectors[edges[e].Vector].Group;
-            var path = ShortestPath(edges[e].B, edges[e].A, adjacency, edges,
-                f => f != e && (g is null || vectors[edges[f].Vector].Group != g));
+            var (from, to) = (edges[e].B, edges[e].A);
+            List<int>? path;
+            if (g is null)
+                path = ShortestPath(from, to, adjacency, edges, f => f != e);
+            else if (!wayBack.TryGetValue((from, to, g), out path))
+                wayBack[(from, to, g)] = path = ShortestPath(from, to, adjacency, edges,
+                    f => vectors[edges[f].Vector].Group != g);
             if (path is not null) Add([e, .. path]);
         }
         // Horton's candidates; for a large network the shortest loop through each baseline and the fundamental
@@ -257,10 +268,12 @@ internal static class BaselineLoops
             int u = queue.Dequeue();
             foreach (int e in adjacency[u])
             {
+                BaselinesRead++;
                 if (!allowed(e)) continue;
                 int w = Other(edges[e], u);
                 if (via.ContainsKey(w)) continue;
                 via[w] = e;
+                if (w == to) break; // found: the rest of a point's baselines (one measured many times) unread
                 queue.Enqueue(w);
             }
         }

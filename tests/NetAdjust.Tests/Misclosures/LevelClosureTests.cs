@@ -60,6 +60,43 @@ public class LevelClosureTests
         Assert.Equal(0.003, s.Allowance!.Value, 12); // 3 mm √1 km
     }
 
+    [Fact]
+    public void SectionsLevelledManyTimesCloseOnTheirFirstRunAndEachSearchStopsAtItsTarget()
+    {
+        // A triangle A→B→C→A levelled 400 times, the runs interleaved (as repeated rounds come): the closures are
+        // the cycle rank m − n + c of sections and the datum node (common practice), one loop and a section for
+        // every later run of a section, closed on the section's first run (the shortest path, ties by input
+        // order); each section misclosure is the sum of the two runs' Δh (one of them booked backwards). Each
+        // shortest-path search stops when it reaches its target: reading every section of every node it passes
+        // would be 959,600 sections here, not a few thousand.
+        const int Runs = 400;
+        var dh = new[] { 1.000, 2.000, -3.000 };
+        var ends = new[] { ("A", "B"), ("B", "C"), ("C", "A") };
+        var obs = Enumerable.Range(0, 3 * Runs).Select(i =>
+        {
+            var (a, b) = ends[i % 3];
+            bool back = i / 3 % 2 == 1; // every other run booked from the far end
+            double value = dh[i % 3] + ((i % 7) - 3) * 1e-4;
+            return back ? Dh(b, a, -value, 1, i + 1) : Dh(a, b, value, 1, i + 1);
+        }).ToArray();
+        var net = new SurveyNetwork("t", [new Point("A") { H = 10, Fixed = Fixity.H }, new Point("B"), new Point("C")],
+            obs);
+        LevelClosures.SectionsRead = 0;
+        var closures = MisclosureCheck.Run(net).Levels;
+        Assert.Equal((3 * Runs) + 1 - 4 + 1, closures.Count); // edges (with the datum edge) − nodes + 1
+        Assert.Single(closures, c => c.Kind == LevelClosureKind.Loop);
+        foreach (var c in closures.Where(c => c.Kind == LevelClosureKind.Section))
+        {
+            Assert.Equal(2, c.Observations.Count);
+            int later = c.Observations.Max(), first = later % 3;
+            Assert.Contains(first, c.Observations);
+            double Forward(int i) =>
+                obs[i].From == ends[i % 3].Item1 ? obs[i].Difference.Metres : -obs[i].Difference.Metres;
+            Assert.Equal(Math.Abs(Forward(later) - Forward(first)), Math.Abs(c.Misclosure), 12);
+        }
+        Assert.InRange(LevelClosures.SectionsRead, 1, 10 * obs.Length);
+    }
+
     [Theory]
     [InlineData(3, 8, 10)]
     [InlineData(17, 12, 20)]
