@@ -280,7 +280,7 @@ internal sealed class PlaneLocator(ObservationIndex index)
         if (strength == ConstructionStrength.Resection) return null;
 
         // Two-solution constructions: ray–distance, distance–distance, made one at a time in this order and only
-        // until one decides (a point measured many times from few stations has many pairs of the same kind).
+        // until one decides (each is weighed against every measurement at the point).
         foreach (var (p1, p2) in TwoSolutionCandidates(stationRays, stationCircles))
         {
             if (p2 is null) return p1; // a unique solution (the ray starts inside the circle) needs no deciding
