@@ -150,17 +150,14 @@ internal static class BaselineLoops
         // Shortest basis: mixed loops before trivial ones, then fewest baselines, then shortest, then order found.
         var ordered = candidates.OrderBy(c => c.Trivial).ThenBy(c => c.Edges.Length).ThenBy(c => c.Length)
             .ThenBy(c => c.Order);
-        int words = (m + 63) / 64;
-        var basis = new Dictionary<int, ulong[]>();
+        var basis = new CycleBasis(n, adjacency, edges);
         var loops = new List<BaselineLoop>();
         double z = Normal.InvCDF(0, 1, 1 - ((1 - confidence) / 2));
         double chi2 = ChiSquared.InvCDF(3, confidence);
         foreach (var c in ordered)
         {
             if (loops.Count == rank) break;
-            var bits = new ulong[words];
-            foreach (int e in c.Edges) bits[e >> 6] ^= 1UL << (e & 63);
-            if (!Independent(bits, basis)) continue;
+            if (!basis.TryAdd(c.Edges)) continue;
             loops.Add(Loop(c, vectors, edges, names, ellipsoid, position, z, chi2));
         }
         return loops;
@@ -174,28 +171,101 @@ internal static class BaselineLoops
         }
     }
 
-    /// <summary>Reduces a cycle against the basis (rows keyed by their lowest bit); adds it and returns true when
-    /// independent.</summary>
-    private static bool Independent(ulong[] bits, Dictionary<int, ulong[]> basis)
-    {
-        while (true)
-        {
-            int low = LowestBit(bits);
-            if (low < 0) return false;
-            if (!basis.TryGetValue(low, out var row))
-            {
-                basis[low] = bits;
-                return true;
-            }
-            for (int w = 0; w < bits.Length; w++) bits[w] ^= row[w];
-        }
-    }
+    /// <summary>Reductions of a loop by a row of the independence test on this thread, and the coordinates they
+    /// read (for the tests of its cost).</summary>
+    [ThreadStatic] internal static long Reductions, CoordinatesRead;
 
-    private static int LowestBit(ulong[] bits)
+    /// <summary>
+    /// The loops taken so far, for the test of a candidate's independence (Gaussian elimination over GF(2)). A loop is
+    /// an element of the graph's cycle space, and a spanning forest gives that space a basis, its fundamental
+    /// cycles, one for each baseline outside the forest: the coordinates of a loop in it are the baselines of the loop
+    /// that are outside the forest (the sum of their fundamental cycles is the loop, since the forest has no cycle).
+    /// So a loop is reduced as the sorted list of its outside baselines' numbers (m − n + c of them in all, however
+    /// long the loop), against rows kept by their lowest number; a short loop has a short list, and so does a row,
+    /// where the dense bit rows of all m baselines cost m/64 words a reduction and a candidate (quadratic time and
+    /// memory in a network of tens of thousands of baselines). The test is the same: a candidate is independent of
+    /// the loops taken exactly when its coordinates are.
+    /// </summary>
+    private sealed class CycleBasis
     {
-        for (int w = 0; w < bits.Length; w++)
-            if (bits[w] != 0) return (w << 6) + System.Numerics.BitOperations.TrailingZeroCount(bits[w]);
-        return -1;
+        // Per baseline: its number among the baselines outside the spanning forest, or −1 for a forest baseline.
+        private readonly int[] _coordinate;
+
+        // The rows by their lowest coordinate (null where none), each sorted ascending.
+        private readonly int[]?[] _rows;
+
+        public CycleBasis(int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges)
+        {
+            // a breadth-first spanning forest, from the first point of each connected part
+            var inForest = new bool[edges.Count];
+            var seen = new bool[n];
+            var queue = new Queue<int>();
+            for (int s = 0; s < n; s++)
+            {
+                if (seen[s]) continue;
+                seen[s] = true;
+                queue.Enqueue(s);
+                while (queue.Count > 0)
+                {
+                    int u = queue.Dequeue();
+                    foreach (int e in adjacency[u])
+                    {
+                        int w = Other(edges[e], u);
+                        if (seen[w]) continue;
+                        seen[w] = true;
+                        inForest[e] = true;
+                        queue.Enqueue(w);
+                    }
+                }
+            }
+            _coordinate = new int[edges.Count];
+            int outside = 0;
+            for (int e = 0; e < edges.Count; e++) _coordinate[e] = inForest[e] ? -1 : outside++;
+            _rows = new int[]?[outside];
+        }
+
+        /// <summary>True, and the loop kept, when the loop of baselines <paramref name="loop"/> (a baseline named
+        /// twice counts twice, so not at all) is independent of the loops kept.</summary>
+        public bool TryAdd(int[] loop)
+        {
+            var coordinates = new List<int>(loop.Length);
+            foreach (int e in loop)
+                if (_coordinate[e] >= 0) coordinates.Add(_coordinate[e]);
+            coordinates.Sort();
+            // a coordinate named twice cancels (sum over GF(2))
+            var x = new List<int>(coordinates.Count);
+            for (int i = 0; i < coordinates.Count; i++)
+                if (i + 1 < coordinates.Count && coordinates[i] == coordinates[i + 1]) i++;
+                else x.Add(coordinates[i]);
+            int[] row = [.. x];
+            while (true)
+            {
+                if (row.Length == 0) return false;
+                if (_rows[row[0]] is not int[] pivot)
+                {
+                    _rows[row[0]] = row;
+                    return true;
+                }
+                row = SymmetricDifference(row, pivot);
+            }
+        }
+
+        /// <summary>The sorted symmetric difference of two sorted lists (their sum over GF(2)).</summary>
+        private static int[] SymmetricDifference(int[] a, int[] b)
+        {
+            Reductions++;
+            CoordinatesRead += a.Length + b.Length;
+            var sum = new int[a.Length + b.Length];
+            int i = 0, j = 0, k = 0;
+            while (i < a.Length && j < b.Length)
+            {
+                if (a[i] == b[j]) { i++; j++; }
+                else sum[k++] = a[i] < b[j] ? a[i++] : b[j++];
+            }
+            while (i < a.Length) sum[k++] = a[i++];
+            while (j < b.Length) sum[k++] = b[j++];
+            return sum[..k];
+        }
     }
 
     /// <summary>Horton's candidates of one root: the breadth-first tree of shortest paths from v (fewest baselines,
