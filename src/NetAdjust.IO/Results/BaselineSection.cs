@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Net;
+using System.Runtime.CompilerServices;
 using System.Text;
 using NetAdjust.Adjustment;
 using NetAdjust.Geometry;
@@ -44,9 +45,14 @@ internal static class BaselineSection
     private static double FrameValue(Parameter p, double v) =>
         p == Parameter.FrameScale ? v * 1e6 : v * Units.Angle.ArcsecondsPerRadian;
 
-    private static IReadOnlyList<BaselineTest> Tests(AdjustmentResult r) =>
-        r.Network.Observations.Any(o => o.Kind == ObservationKind.Baseline)
-            ? BaselineAnalysis.Analyse(r, r.Analysis) : [];
+    // The tests of a result, made once for all its writers (the JSON and the reports are written side by side and
+    // each needs them; the second waits for the first's instead of testing every baseline again).
+    private static readonly ConditionalWeakTable<AdjustmentResult, Lazy<IReadOnlyList<BaselineTest>>> TestsOf = new();
+
+    internal static IReadOnlyList<BaselineTest> Tests(AdjustmentResult r) =>
+        TestsOf.GetValue(r, key => new Lazy<IReadOnlyList<BaselineTest>>(() =>
+            key.Network.Observations.Any(o => o.Kind == ObservationKind.Baseline)
+                ? BaselineAnalysis.Analyse(key, key.Analysis) : [])).Value;
 
     private static BaselineObservation First(AdjustmentResult r, BaselineTest t) =>
         (BaselineObservation)r.Network.Observations[t.Rows[0]];

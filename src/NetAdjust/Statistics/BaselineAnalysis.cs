@@ -58,42 +58,56 @@ public static class BaselineAnalysis
         double alpha = (analysis?.Options ?? AnalysisOptions.Default).WTestAlpha;
         double s0sq = result.Statistics.AprioriVarianceFactor;
         var groups = Stochastic.BaselineBlocks.Groups(result.Network);
-        var list = new List<BaselineTest>(groups.Count);
         double delta0 = analysis?.Delta0 ?? CriticalValues.NonCentrality(alpha, AnalysisOptions.Default.TypeIIError);
-        foreach (var rows in groups)
+        // Each baseline is tested alone, into its own slot; on a large network the second half on another core (the
+        // same numbers whatever the schedule).
+        var tests = new BaselineTest[groups.Count];
+        void Range(int from, int to)
         {
-            var first = (BaselineObservation)result.Network.Observations[rows[0]];
-            var v = new double[3];
-            foreach (int r in rows)
-                v[(int)((BaselineObservation)result.Network.Observations[r]).Component] =
-                    result.Observations[r].Residual;
-            var rotation = Rotation(result, first);
-            double Row(int i) => rotation is null ? double.NaN
-                : (rotation[i * 3] * v[0]) + (rotation[(i * 3) + 1] * v[1]) + (rotation[(i * 3) + 2] * v[2]);
-            var block = Block(result, rows);
-            double? t = null, crit = null;
-            (double, double, double)? localW = null, localMdb = null;
-            int dim = block?.Kept.Length ?? 0;
-            if (block is { } bk && Statistic(bk) is double tv)
+            for (int g = from; g < to; g++) tests[g] = Test(result, groups[g], alpha, s0sq, delta0);
+        }
+        int half = SideBySide.Half(groups.Count, SideBySideBaselines);
+        SideBySide.Run(() => Range(0, half), half < groups.Count ? () => Range(half, groups.Count) : null);
+        return tests;
+    }
+
+    /// <summary>Baselines from which the tests run on two cores.</summary>
+    private const int SideBySideBaselines = 2048;
+
+    /// <summary>The test of the baseline whose component observations are <paramref name="rows"/>.</summary>
+    private static BaselineTest Test(AdjustmentResult result, IReadOnlyList<int> rows, double alpha, double s0sq,
+        double delta0)
+    {
+        var first = (BaselineObservation)result.Network.Observations[rows[0]];
+        var v = new double[3];
+        foreach (int r in rows)
+            v[(int)((BaselineObservation)result.Network.Observations[r]).Component] =
+                result.Observations[r].Residual;
+        var rotation = Rotation(result, first);
+        double Row(int i) => rotation is null ? double.NaN
+            : (rotation[i * 3] * v[0]) + (rotation[(i * 3) + 1] * v[1]) + (rotation[(i * 3) + 2] * v[2]);
+        var block = Block(result, rows);
+        double? t = null, crit = null;
+        (double, double, double)? localW = null, localMdb = null;
+        int dim = block?.Kept.Length ?? 0;
+        if (block is { } bk && Statistic(bk) is double tv)
+        {
+            t = tv / s0sq;
+            crit = ChiSquared.InvCDF(dim, 1 - alpha);
+            if (rotation is not null)
             {
-                t = tv / s0sq;
-                crit = ChiSquared.InvCDF(dim, 1 - alpha);
-                if (rotation is not null)
+                var n = Directional(bk, rotation[3..6], s0sq, delta0);
+                var e = Directional(bk, rotation[0..3], s0sq, delta0);
+                var u = Directional(bk, rotation[6..9], s0sq, delta0);
+                if (n is not null && e is not null && u is not null)
                 {
-                    var n = Directional(bk, rotation[3..6], s0sq, delta0);
-                    var e = Directional(bk, rotation[0..3], s0sq, delta0);
-                    var u = Directional(bk, rotation[6..9], s0sq, delta0);
-                    if (n is not null && e is not null && u is not null)
-                    {
-                        localW = (n.Value.W, e.Value.W, u.Value.W);
-                        localMdb = (n.Value.Mdb, e.Value.Mdb, u.Value.Mdb);
-                    }
+                    localW = (n.Value.W, e.Value.W, u.Value.W);
+                    localMdb = (n.Value.Mdb, e.Value.Mdb, u.Value.Mdb);
                 }
             }
-            list.Add(new BaselineTest(first.BaselineId!, first.From, first.To, rows, (v[0], v[1], v[2]),
-                (Row(1), Row(0), Row(2)), t, dim, crit, t is double tt ? tt <= crit!.Value : null, localW, localMdb));
         }
-        return list;
+        return new BaselineTest(first.BaselineId!, first.From, first.To, rows, (v[0], v[1], v[2]),
+            (Row(1), Row(0), Row(2)), t, dim, crit, t is double tt ? tt <= crit!.Value : null, localW, localMdb);
     }
 
     /// <summary>The weighted rows of a baseline's block: P, Qvv = P⁻¹ − A Qxx Aᵀ on them, v, and the component
@@ -164,8 +178,9 @@ public static class BaselineAnalysis
     private static double[]? Rotation(AdjustmentResult result, BaselineObservation b)
     {
         if (b.Grid?.Projection is not { } projection) return null;
-        var pa = result.Points.First(q => q.Id == b.From);
-        var pb = result.Points.First(q => q.Id == b.To);
+        // the result's points are the network's, in its order: found by the network's index, not by a search
+        var pa = result.Points[result.Network.IndexOf(b.From)];
+        var pb = result.Points[result.Network.IndexOf(b.To)];
         if (pa.E is null || pa.N is null || pb.E is null || pb.N is null) return null;
         double ha = b.Grid.EllipsoidalHeight(b.From, pa.H) ?? 0, hb = b.Grid.EllipsoidalHeight(b.To, pb.H) ?? 0;
         var (lat1, lon1) = projection.Inverse(pa.E.Value, pa.N.Value);

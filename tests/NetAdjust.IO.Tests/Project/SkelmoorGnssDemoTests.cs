@@ -69,4 +69,16 @@ public class SkelmoorGnssDemoTests
         Assert.All(loops, l => Assert.Equal(["S1", "S2"], l.Groups.Order()));
         Assert.All(loops, l => Assert.False(l.Trivial));
     }
+
+    [Fact]
+    public void TheBaselineTestsOfAResultAreMadeOnceForAllItsWriters()
+    {
+        // the JSON result and the reports each show the baselines' tests: the second writer takes the first's
+        var result = Adjust(Parse(Committed));
+        var tests = NetAdjust.IO.Results.BaselineSection.Tests(result);
+        Assert.NotEmpty(tests);
+        Assert.Same(tests, NetAdjust.IO.Results.BaselineSection.Tests(result));
+        // another result of the same network has tests of its own
+        Assert.NotSame(tests, NetAdjust.IO.Results.BaselineSection.Tests(Adjust(Parse(Committed))));
+    }
 }

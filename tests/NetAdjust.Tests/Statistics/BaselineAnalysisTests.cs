@@ -73,4 +73,26 @@ public sealed class BaselineAnalysisTests
         Assert.Equal((x * up[0]) + (y * up[1]) + (z * up[2]), u, 1e-6);
         Assert.Equal(result.Observations[6].Residual, x, 15);
     }
+
+    [Fact]
+    public void ManyBaselinesAreTestedInInputOrderAndRepeatsAlike()
+    {
+        // The six baselines observed 400 times over with the same values (2,400 baselines: the second half is tested
+        // on another core). Repeats of one baseline have the same residuals, so the same test (common practice: equal
+        // observations of equal weight share their residuals); the tests come in input order, each with its rows.
+        var net = BaselineTestNetworks.Network(seed: 5);
+        var obs = Enumerable.Range(0, 400).SelectMany(r => net.Observations.Select(o =>
+            o is NetAdjust.Network.BaselineObservation b ? b with { BaselineId = $"{b.BaselineId}#{r}" } : o));
+        var result = Adjuster.Adjust(new NetAdjust.Network.SurveyNetwork(net.Name, net.Points, obs));
+        var tests = BaselineAnalysis.Analyse(result);
+        Assert.Equal(2400, tests.Count);
+        for (int i = 0; i < tests.Count; i++)
+        {
+            Assert.Equal([3 * i, (3 * i) + 1, (3 * i) + 2], tests[i].Rows);
+            var first = tests[i % 6];
+            Assert.Equal(first.Statistic!.Value, tests[i].Statistic!.Value, 1e-9 * first.Statistic.Value);
+            Assert.Equal(first.LocalResidual.Up, tests[i].LocalResidual.Up, 1e-12);
+            Assert.Equal(first.LocalMdb!.Value.Up, tests[i].LocalMdb!.Value.Up, 1e-12);
+        }
+    }
 }
