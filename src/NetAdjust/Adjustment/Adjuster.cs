@@ -32,41 +32,8 @@ public static partial class Adjuster
     {
         options ??= AdjustmentOptions.Default;
         options.Validate();
-
-        var plan = DatumPlan.Create(network, options.Datum);
-        var (index, state) = (plan.Index, plan.State);
-        CoordinateCheck.CheckTolerance(state, network, options.LengthTolerance);
-        var control = plan.UsesControl ? ControlRows(network, index) : [];
-        int n = network.Observations.Count + control.Count;
-        int u = index.Count;
-        var solver = SolverChoice.For(options, network, index);
-        // The columns of every row are resolved once, with the first linearisation.
-        var (pattern, first) = DesignPattern.Resolve(network, index, state, control);
-
-        // The weights come from the stochastic model at the current coordinates (sight lengths and centering
-        // sensitivities); once converged it is evaluated again at the adjusted coordinates, and while it changes the
-        // iterations continue with the new weights.
-        var model = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
-        var weights = Weights(network, model, control, options.AprioriVarianceFactor);
-        n -= network.Observations.Count(o => o.Excluded); // set aside: no weight, no redundancy
-
-        int iterations = 0;
-        // The linearisation at the current state, when the step control has made it (reused, not repeated).
-        Linearisation? current = first;
-        for (int round = 1; ; round++)
-        {
-            if (u > 0)
-                iterations += Iterate(network, options, plan, solver, pattern, control, weights, iterations,
-                    ref current);
-            var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
-            if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
-            if (round == MaxStochasticRounds)
-                throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
-                    "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and " +
-                    "the observations.");
-            model = next;
-            weights = Weights(network, model, control, options.AprioriVarianceFactor);
-        }
+        var (plan, index, state, control, n, u, solver, pattern, current, model, weights, iterations) =
+            Iterations(network, options);
         network = model.Apply(network);
 
         // Final linearisation at the solution: residuals, covariance.
@@ -125,6 +92,79 @@ public static partial class Adjuster
             Refractions = AdjustedRefractions(index, state, finalFactor, s0),
             FrameParameters = FrameParameters.Adjusted(index, state, finalFactor, s0),
         };
+    }
+
+    /// <summary>The adjustment up to the solution: the datum plan, the Gauss-Newton iterations and the rounds of the
+    /// stochastic model, as <see cref="Adjust"/> runs them (no covariance, no statistics).</summary>
+    private static Solution Iterations(SurveyNetwork network, AdjustmentOptions options)
+    {
+        var plan = DatumPlan.Create(network, options.Datum);
+        var (index, state) = (plan.Index, plan.State);
+        CoordinateCheck.CheckTolerance(state, network, options.LengthTolerance);
+        var control = plan.UsesControl ? ControlRows(network, index) : [];
+        int n = network.Observations.Count + control.Count;
+        int u = index.Count;
+        var solver = SolverChoice.For(options, network, index);
+        // The columns of every row are resolved once, with the first linearisation.
+        var (pattern, first) = DesignPattern.Resolve(network, index, state, control);
+
+        // The weights come from the stochastic model at the current coordinates (sight lengths and centering
+        // sensitivities); once converged it is evaluated again at the adjusted coordinates, and while it changes the
+        // iterations continue with the new weights.
+        var model = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
+        var weights = Weights(network, model, control, options.AprioriVarianceFactor);
+        n -= network.Observations.Count(o => o.Excluded); // set aside: no weight, no redundancy
+
+        int iterations = 0;
+        // The linearisation at the current state, when the step control has made it (reused, not repeated).
+        Linearisation? current = first;
+        for (int round = 1; ; round++)
+        {
+            if (u > 0)
+                iterations += Iterate(network, options, plan, solver, pattern, control, weights, iterations,
+                    ref current);
+            var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
+            if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
+            if (round == MaxStochasticRounds)
+                throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
+                    "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and " +
+                    "the observations.");
+            model = next;
+            weights = Weights(network, model, control, options.AprioriVarianceFactor);
+        }
+        return new Solution(plan, index, state, control, n, u, solver, pattern, current, model, weights, iterations);
+    }
+
+    /// <summary>What <see cref="Iterations"/> leaves for the rest of <see cref="Adjust"/>.</summary>
+    private sealed record Solution(DatumPlan Plan, UnknownIndex Index, ParameterState State, List<ControlRow> Control,
+        int N, int U, INormalEquationsSolver Solver, DesignPattern Pattern, Linearisation? Current,
+        StochasticModel Model, WeightMatrix Weights, int Iterations);
+
+    /// <summary>
+    /// The adjusted easting, northing and height of every point with plane coordinates (the height the given one where
+    /// the adjustment has none), as <see cref="Adjust"/> would give them, from the iterations alone: no covariance, no
+    /// statistics (the preliminary adjustments of the grid reduction need only the positions).
+    /// </summary>
+    /// <exception cref="InvalidInputException">As <see cref="Adjust"/>.</exception>
+    /// <exception cref="DatumDefectException">As <see cref="Adjust"/>.</exception>
+    /// <exception cref="NoConvergenceException">As <see cref="Adjust"/>.</exception>
+    internal static Dictionary<string, (double E, double N, double? H)> AdjustedPositions(SurveyNetwork network,
+        AdjustmentOptions options)
+    {
+        options.Validate();
+        var solution = Iterations(network, options);
+        var (plan, state) = (solution.Plan, solution.State);
+        var positions = new Dictionary<string, (double E, double N, double? H)>(StringComparer.Ordinal);
+        foreach (var given in network.Points)
+        {
+            // the values AdjustedPointOf gives: the state's, else the point's as the datum plan uses it
+            var p = plan.AsUsed(given);
+            double? e = state.TryGet(p.Id, Parameter.E, out double ve) ? ve : p.E;
+            double? no = state.TryGet(p.Id, Parameter.N, out double vn) ? vn : p.N;
+            double? h = state.TryGet(p.Id, Parameter.H, out double vh) ? vh : p.H;
+            if (e is double x && no is double y) positions[p.Id] = (x, y, h ?? p.H);
+        }
+        return positions;
     }
 
     private static double Sq(double x) => x * x;

@@ -125,8 +125,21 @@ public static class GridReduction
         ArgumentNullException.ThrowIfNull(system);
         if (!system.Reduces && system.Projection is null) return ReduceAt(network, system, Given(network));
         var o = (options ?? AdjustmentOptions.Default) with { Progress = null };
-        var first = ReduceAt(network, system, Adjusted(Adjuster.Adjust(network, o)));
-        return ReduceAt(network, system, Adjusted(Adjuster.Adjust(first.Network, o)));
+        // The preliminary adjustments need only the adjusted positions: their iterations, not their covariance or
+        // statistics (the same positions as a whole adjustment).
+        var first = ReduceAt(network, system, Adjuster.AdjustedPositions(network, o));
+        // When no observation was changed (a network of baselines and height differences only), the second
+        // adjustment would be the first again: the same network, the same positions.
+        if (Unchanged(network, first.Network)) return first;
+        return ReduceAt(network, system, Adjuster.AdjustedPositions(first.Network, o));
+    }
+
+    /// <summary>True when the reduced network holds the very observations of the one measured.</summary>
+    private static bool Unchanged(SurveyNetwork measured, SurveyNetwork reduced)
+    {
+        for (int i = 0; i < measured.Observations.Count; i++)
+            if (!ReferenceEquals(measured.Observations[i], reduced.Observations[i])) return false;
+        return true;
     }
 
     /// <summary>Reduces the network with the factors evaluated at the given positions.</summary>
@@ -283,11 +296,4 @@ public static class GridReduction
         network.Points.Where(p => p.E is not null && p.N is not null)
             .ToDictionary(p => p.Id, p => (p.E!.Value, p.N!.Value, p.H), StringComparer.Ordinal);
 
-    private static Dictionary<string, (double E, double N, double? H)> Adjusted(AdjustmentResult result)
-    {
-        var d = new Dictionary<string, (double E, double N, double? H)>(StringComparer.Ordinal);
-        foreach (var p in result.Points)
-            if (p.E is double e && p.N is double n) d[p.Id] = (e, n, p.H ?? p.Input.H);
-        return d;
-    }
 }

@@ -82,6 +82,48 @@ public class GridReductionTests(ITestOutputHelper output)
         }
     }
 
+    /// <summary>The adjusted positions of a whole adjustment, as the reduction takes them (the given height where
+    /// the adjustment has none).</summary>
+    private static Dictionary<string, (double E, double N, double? H)> Positions(AdjustmentResult r) =>
+        r.Points.Where(p => p.E is not null && p.N is not null)
+            .ToDictionary(p => p.Id, p => (p.E!.Value, p.N!.Value, p.H ?? p.Input.H));
+
+    [Fact]
+    public void TheFactorsAreThoseAtThePositionsOfTwoWholePreliminaryAdjustments()
+    {
+        // The definition (docs/methods.md, "Grid and ground"): the factors at the positions adjusted from the
+        // observations as measured, then once more at those adjusted from the reduced ones. The reduction takes the
+        // positions from the iterations alone; they are the whole adjustments' to the last bit.
+        var network = Measured(5);
+        var first = GridReduction.ReduceAt(network, Ground, Positions(Adjuster.Adjust(network)));
+        var expected = GridReduction.ReduceAt(network, Ground, Positions(Adjuster.Adjust(first.Network)));
+        Adjuster.PatternCount = 0;
+        var actual = GridReduction.Reduce(network, Ground);
+        Assert.Equal(2, Adjuster.PatternCount); // two preliminary adjustments: directions and distances change
+        Assert.Equal(expected.Network.Observations.Select(o => o.Value), actual.Network.Observations.Select(o => o.Value));
+        Assert.Equal(expected.Observations.Select(o => o.CombinedFactor), actual.Observations.Select(o => o.CombinedFactor));
+        Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
+            actual.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
+    }
+
+    [Fact]
+    public void ANetworkWithNothingToReduceIsAdjustedOnceBeforehand()
+    {
+        // GNSS baselines pass to the grid as they are (docs/methods.md, "GNSS baselines"): the second preliminary
+        // adjustment would repeat the first (the same observations), so it is left out; the point factors are still
+        // those at the adjusted positions.
+        var network = NetAdjust.Tests.Network.BaselineTestNetworks.Network(seed: 9);
+        var grid = NetAdjust.Tests.Network.BaselineTestNetworks.Grid;
+        Adjuster.PatternCount = 0;
+        var actual = GridReduction.Reduce(network, grid);
+        Assert.Equal(1, Adjuster.PatternCount);
+        Assert.Empty(actual.Observations);
+        Assert.All(network.Observations.Zip(actual.Network.Observations), t => Assert.Same(t.First, t.Second));
+        var expected = GridReduction.ReduceAt(network, grid, Positions(Adjuster.Adjust(network)));
+        Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
+            actual.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
+    }
+
     [Fact]
     public void EveryGroundDistanceIsMultipliedByItsCombinedFactor()
     {
