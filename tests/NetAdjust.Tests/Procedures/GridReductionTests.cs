@@ -100,8 +100,10 @@ public class GridReductionTests(ITestOutputHelper output)
         Adjuster.PatternCount = 0;
         var actual = GridReduction.Reduce(network, Ground);
         Assert.Equal(2, Adjuster.PatternCount); // two preliminary adjustments: directions and distances change
-        Assert.Equal(expected.Network.Observations.Select(o => o.Value), actual.Network.Observations.Select(o => o.Value));
-        Assert.Equal(expected.Observations.Select(o => o.CombinedFactor), actual.Observations.Select(o => o.CombinedFactor));
+        Assert.Equal(expected.Network.Observations.Select(o => o.Value),
+            actual.Network.Observations.Select(o => o.Value));
+        Assert.Equal(expected.Observations.Select(o => o.CombinedFactor),
+            actual.Observations.Select(o => o.CombinedFactor));
         Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
             actual.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
     }
