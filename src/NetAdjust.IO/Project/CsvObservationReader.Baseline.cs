@@ -17,62 +17,121 @@ internal static partial class CsvObservationReader
     private static readonly string[] CorrelationColumns = ["r_xy", "r_xz", "r_yz"];
     private static readonly string[] CovarianceColumns = ["q_xx", "q_yx", "q_yy", "q_zx", "q_zy", "q_zz"];
 
+    /// <summary>The columns of the other kinds that a baseline row leaves empty, in the order they are checked.
+    /// </summary>
+    private static readonly string[] NotForBaselines = ["value", "sd", "at", "length", "set", "level", "setups",
+        "runs", "instrument", "target", "sets", "faces", "instrument_height", "target_height", "refraction_group"];
+
     /// <summary>The columns of this part.</summary>
     private static string[] BaselineColumns =>
         ["dx", "dy", "dz", .. SdColumns, .. CorrelationColumns, .. CovarianceColumns, "group"];
 
-    private static IEnumerable<Observation> BaselineRow(string from, string to, Func<string, string> get, string file,
-        int line, string item)
+    /// <summary>Where the header put the columns a baseline row reads (−1: not in the header), found once per file.
+    /// </summary>
+    private sealed class BaselinePlaces
     {
-        ProjectFileException Bad(string problem) => new(file, line, item, problem);
-        foreach (var name in new[] { "value", "sd", "at", "length", "set", "level", "setups", "runs", "instrument",
-                     "target", "sets", "faces", "instrument_height", "target_height", "refraction_group" })
-            if (get(name).Length > 0) throw Bad($"the '{name}' field is not used by a baseline");
-        double Number(string name, bool required, double empty = 0)
+        public BaselinePlaces(IReadOnlyDictionary<string, int> columns)
         {
-            string t = get(name);
-            if (t.Length == 0) return required ? throw Bad($"the '{name}' field is empty") : empty;
-            return double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) &&
-                double.IsFinite(v) ? v : throw Bad($"{name}: '{t}' is not a number");
+            int C(string name) => columns.GetValueOrDefault(name, -1);
+            (Dx, Dy, Dz, Group, Exclude, SdFactor) =
+                (C("dx"), C("dy"), C("dz"), C("group"), C("exclude"), C("sd_factor"));
+            Sd = [.. SdColumns.Select(C)];
+            Correlation = [.. CorrelationColumns.Select(C)];
+            Covariance = [.. CovarianceColumns.Select(C)];
+            NotUsed = [.. NotForBaselines.Where(columns.ContainsKey).Select(n => (n, columns[n]))];
         }
-        Length Component(string name)
+
+        public int Dx { get; }
+        public int Dy { get; }
+        public int Dz { get; }
+        public int Group { get; }
+        public int Exclude { get; }
+        public int SdFactor { get; }
+        public int[] Sd { get; }
+        public int[] Correlation { get; }
+        public int[] Covariance { get; }
+
+        /// <summary>The columns of <see cref="NotForBaselines"/> in the header, in that order.</summary>
+        public (string Name, int Column)[] NotUsed { get; }
+    }
+
+    private sealed partial class RowReader
+    {
+        private BaselinePlaces? _baselinePlaces;
+        private string? _lastGroup;
+
+        /// <summary>Reads a baseline row (split in <see cref="row"/>) into its three component observations, the
+        /// fields read where they lie in the line (no string made for a plain number).</summary>
+        private void BaselineRow(string from, string to, string file, int line, List<Observation> rows)
         {
-            var r = LengthPattern.Metres.Parse(get(name).Length == 0 ? throw Bad($"the '{name}' field is empty")
-                : get(name));
-            return r.Success ? r.Value : throw Bad($"{name}: {r.Error}");
+            var c = _baselinePlaces ??= new BaselinePlaces(col!);
+            var r = row;
+            // the item named in messages, made only for a message
+            string Item() => $"baseline {from}→{to}";
+            ProjectFileException Bad(string problem) => new(file, line, Item(), problem);
+            foreach (var (name, k) in c.NotUsed)
+                if (!r.IsEmpty(k)) throw Bad($"the '{name}' field is not used by a baseline");
+            double Number(string name, int k, bool required)
+            {
+                if (r.IsEmpty(k)) return required ? throw Bad($"the '{name}' field is empty") : 0;
+                return r.TryNumber(k, out double v) ? v : throw Bad($"{name}: '{r.Field(k)}' is not a number");
+            }
+            Length Component(string name, int k)
+            {
+                if (r.IsEmpty(k)) throw Bad($"the '{name}' field is empty");
+                // a plain number is read as LengthPattern.Parse reads it; a unit or a problem goes through it
+                if (r.TryNumber(k, out double v)) return Length.From(v, LengthUnit.Metre);
+                string text = r.Field(k);
+                var parsed = LengthPattern.Metres.Parse(text);
+                if (!parsed.Success) throw Bad($"{name}: {parsed.Error}");
+                return double.IsFinite(parsed.Value.Metres) ? parsed.Value
+                    : throw Bad($"{name}: '{text}' is too large to be a length");
+            }
+            var vector = (Component("dx", c.Dx), Component("dy", c.Dy), Component("dz", c.Dz));
+            bool bySd = false, byCov = false;
+            for (int i = 0; i < 3; i++) bySd |= !r.IsEmpty(c.Sd[i]) || !r.IsEmpty(c.Correlation[i]);
+            foreach (int k in c.Covariance) byCov |= !r.IsEmpty(k);
+            if (bySd && byCov)
+                throw Bad("give either sd_x, sd_y, sd_z (with r_xy, r_xz, r_yz) or q_xx ... q_zz, not both");
+            if (!bySd && !byCov)
+                throw Bad("no covariance: fill sd_x, sd_y, sd_z (and r_xy, r_xz, r_yz) or q_xx ... q_zz");
+            double[] cov;
+            if (byCov)
+            {
+                var q = new double[6];
+                for (int i = 0; i < 6; i++) q[i] = Number(CovarianceColumns[i], c.Covariance[i], true);
+                cov = [q[0], q[1], q[3], q[1], q[2], q[4], q[3], q[4], q[5]];
+            }
+            else
+            {
+                var sd = new double[3];
+                for (int i = 0; i < 3; i++) sd[i] = Number(SdColumns[i], c.Sd[i], true);
+                for (int i = 0; i < 3; i++)
+                    if (!(sd[i] > 0)) throw Bad($"{SdColumns[i]}: a standard deviation must be positive");
+                var rho = new double[3];
+                for (int i = 0; i < 3; i++) rho[i] = Number(CorrelationColumns[i], c.Correlation[i], false);
+                for (int i = 0; i < 3; i++)
+                    if (!(rho[i] > -1 && rho[i] < 1))
+                        throw Bad($"{CorrelationColumns[i]}: a correlation must lie between −1 and 1, not " +
+                            rho[i].ToString("R", CultureInfo.InvariantCulture));
+                cov = BaselineObservation.CovarianceOf((Length.FromMetres(sd[0]), Length.FromMetres(sd[1]),
+                    Length.FromMetres(sd[2])), rho[0], rho[1], rho[2]);
+            }
+            if (BaselineObservation.CovarianceProblem(cov) is string problem) throw Bad(problem);
+            // the group of the row before is the same string (the rows of a session follow one another)
+            string? group = r.IsEmpty(c.Group) ? null
+                : r.FieldEquals(c.Group, _lastGroup) ? _lastGroup : _lastGroup = r.Field(c.Group);
+            BaselineObservation[] parts;
+            try { parts = ProjectReader.Baseline($"{file}:{line}", from, to, vector, cov, group); }
+            catch (ArgumentException e) { throw Bad(ProjectReader.GuardProblem(e)); }
+            if (r.IsEmpty(c.Exclude) && r.IsEmpty(c.SdFactor))
+            {
+                rows.AddRange(parts); // no marks: the components as they are
+                return;
+            }
+            foreach (var p in parts)
+                rows.Add(ObservationMarks.Apply(p, r.Field(c.Exclude), r.Field(c.SdFactor), file, line, Item()));
         }
-        var vector = (Component("dx"), Component("dy"), Component("dz"));
-        bool bySd = SdColumns.Concat(CorrelationColumns).Any(c => get(c).Length > 0);
-        bool byCov = CovarianceColumns.Any(c => get(c).Length > 0);
-        if (bySd && byCov) throw Bad("give either sd_x, sd_y, sd_z (with r_xy, r_xz, r_yz) or q_xx ... q_zz, not both");
-        if (!bySd && !byCov) throw Bad("no covariance: fill sd_x, sd_y, sd_z (and r_xy, r_xz, r_yz) or q_xx ... q_zz");
-        double[] cov;
-        if (byCov)
-        {
-            var q = CovarianceColumns.Select(c => Number(c, true)).ToArray();
-            cov = [q[0], q[1], q[3], q[1], q[2], q[4], q[3], q[4], q[5]];
-        }
-        else
-        {
-            var sd = SdColumns.Select(c => Number(c, true)).ToArray();
-            for (int i = 0; i < 3; i++)
-                if (!(sd[i] > 0)) throw Bad($"{SdColumns[i]}: a standard deviation must be positive");
-            var r = CorrelationColumns.Select(c => Number(c, false)).ToArray();
-            for (int i = 0; i < 3; i++)
-                if (!(r[i] > -1 && r[i] < 1))
-                    throw Bad($"{CorrelationColumns[i]}: a correlation must lie between −1 and 1, not " +
-                        r[i].ToString("R", CultureInfo.InvariantCulture));
-            cov = BaselineObservation.CovarianceOf((Length.FromMetres(sd[0]), Length.FromMetres(sd[1]),
-                Length.FromMetres(sd[2])), r[0], r[1], r[2]);
-        }
-        if (BaselineObservation.CovarianceProblem(cov) is string problem) throw Bad(problem);
-        string? group = get("group").Length > 0 ? get("group") : null;
-        string source = $"{file}:{line}";
-        var list = new List<Observation>(3);
-        foreach (var c in ProjectReader.Baseline(source, from, to, vector, cov, group))
-            list.Add(ObservationMarks.Apply(ProjectReader.GuardedRow(file, line, item, () => c), get("exclude"),
-                get("sd_factor"), file, line, item));
-        return list;
     }
 
     /// <summary>The baseline columns are refused on rows of other kinds.</summary>

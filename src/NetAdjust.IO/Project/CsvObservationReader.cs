@@ -82,7 +82,7 @@ internal static partial class CsvObservationReader
 
     /// <summary>Reads the rows of one file, or of one half of it: the header's columns, the rows read so far and the
     /// caches of the rows before (kind, set id, standard deviation, point ids).</summary>
-    private sealed class RowReader
+    private sealed partial class RowReader
     {
         private readonly Settings _s;
         private readonly CsvRow row;
@@ -112,7 +112,7 @@ internal static partial class CsvObservationReader
         /// <summary>A reader of the same file's other half: the header's columns, its own row and caches.</summary>
         public RowReader Twin() => new(_s, row.Twin(), 0)
             { col = col, cKind = cKind, cAt = cAt, cFrom = cFrom, cTo = cTo, cValue = cValue, cSd = cSd, cSet = cSet,
-                optional = optional };
+                optional = optional, _baselinePlaces = _baselinePlaces };
 
         /// <summary>Stops <see cref="Read"/> at its next line (its rows are then not used).</summary>
         public void Stop() => _stopped = true;
@@ -215,7 +215,7 @@ internal static partial class CsvObservationReader
             };
             if (kind == ObservationKind.Baseline)
             {
-                rows.AddRange(BaselineRow(Need("from", from), Need("to", to), get, file, lineNo, Item()));
+                BaselineRow(Need("from", from), Need("to", to), file, lineNo, rows);
                 return;
             }
             // the columns beyond kind, points, value, sd, length and set: all empty in a plain row

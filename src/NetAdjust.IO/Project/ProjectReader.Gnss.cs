@@ -139,12 +139,25 @@ public static partial class ProjectReader
             ctx.File))];
     }
 
-    /// <summary>The three components of one baseline as read (the group's scale, the frame and the grid system are
-    /// applied when the project's grid is read, <see cref="FinishBaselines"/>).</summary>
-    internal static IEnumerable<BaselineObservation> Baseline(string source, string from, string to,
-        (Length, Length, Length) vector, double[] cov, string? group) =>
-        BaselineObservation.Components(source, from, to, vector, cov, GridSystem.Local)
-            .Select(c => c with { Source = source, Group = group, Grid = null });
+    /// <summary>The three components of one baseline as read, as <see cref="BaselineObservation.Components"/> makes
+    /// them (the covariance checked once, shared by the three) with no grid system yet: the group's scale, the frame
+    /// and the grid system are applied when the project's grid is read, <see cref="FinishBaselines"/>.</summary>
+    /// <exception cref="ArgumentException">When a point id, a component or the covariance is refused.</exception>
+    internal static BaselineObservation[] Baseline(string source, string from, string to,
+        (Length X, Length Y, Length Z) vector, double[] cov, string? group)
+    {
+        var x = new BaselineObservation(from, to, vector.X, vector.Y, vector.Z)
+        {
+            BaselineId = source, Covariance = cov, Source = source, Group = group,
+            Component = BaselineComponent.X, StandardDeviation = Math.Sqrt(cov[0]),
+        };
+        return
+        [
+            x,
+            x with { Component = BaselineComponent.Y, StandardDeviation = Math.Sqrt(cov[4]) },
+            x with { Component = BaselineComponent.Z, StandardDeviation = Math.Sqrt(cov[8]) },
+        ];
+    }
 
     private static double[] Numbers(Context ctx, YamlNode node, string item, int count)
     {
@@ -187,10 +200,11 @@ public static partial class ProjectReader
                 throw new ProjectFileException(file, line, $"baseline {b.From}→{b.To}",
                     $"group '{group}' is not defined under gnss.groups in the project file");
             }
-            result.Add(b with
+            // a scale of 1 leaves the covariance and the standard deviation as they are (not checked again)
+            result.Add(scale == 1.0 ? b with { Grid = grid, Frame = g.Frame, GroupScale = scale } : b with
             {
                 Grid = grid, Frame = g.Frame, GroupScale = scale,
-                Covariance = scale == 1.0 ? b.Covariance : [.. b.Covariance!.Select(c => c * scale)],
+                Covariance = [.. b.Covariance!.Select(c => c * scale)],
                 StandardDeviation = b.StandardDeviation * Math.Sqrt(scale),
             });
         }

@@ -45,11 +45,4 @@ public static partial class ProjectReader
         if (cut >= 0) m = m[..cut];
         return m.TrimEnd('.');
     }
-
-    /// <summary>One row of a CSV file: a guard's refusal names the file, the line and the row's item.</summary>
-    internal static Observation GuardedRow(string file, int line, string item, Func<Observation> build)
-    {
-        try { return build(); }
-        catch (ArgumentException e) { throw new ProjectFileException(file, line, item, GuardProblem(e)); }
-    }
 }
