@@ -6,12 +6,14 @@ namespace NetAdjust.IO.Project;
 
 /// <summary>
 /// The project's top-level <c>points</c> list read straight from the text, without the YAML document model, when every
-/// entry is one line of the form <c>  - {id: A1, e: 1.0, n: 2.0, fix: en}</c>: a flow mapping of the point keys, each
-/// once, with plain values of letters, digits and <c>. _ + -</c> (as <c>netadjust simulate</c> and the project writer
-/// write them). The document model then reads the text with those lines emptied (<see cref="Blanked"/>: line numbers
-/// kept) and <see cref="Read"/> makes the points from the lines. Anything else (quotes, comments after an entry, a
-/// mapping over several lines, an unknown or repeated key, a value the point refuses) is left to the document model
-/// reading the whole text, which gives the error it always gave: the lines are only a faster way to the same points.
+/// entry is one line of the form <c>  - {id: A1, e: 1.0, n: 2.0, fix: en}</c> (a flow mapping, as <c>netadjust
+/// simulate</c> and the project writer write them) or a block mapping of one key a line, <c>- id: A1</c> then
+/// <c>e: 1.0</c>, <c>n: 2.0</c> ... two spaces further in (as many other programs write YAML): the point keys, each
+/// once, with plain values of letters, digits and <c>. _ + -</c>. The document model then reads the text with those
+/// lines emptied (<see cref="Blanked"/>: line numbers kept) and <see cref="Read"/> makes the points from the lines.
+/// Anything else (quotes, comments after a value, a flow mapping over several lines, other indentations, an unknown
+/// or repeated key, a value the point refuses) is left to the document model reading the whole text, which gives the
+/// error it always gave: the lines are only a faster way to the same points.
 /// </summary>
 internal sealed class PointLines
 {
@@ -54,6 +56,7 @@ internal sealed class PointLines
         int keyLine = 1;
         foreach (char c in text.AsSpan(0, key)) if (c == '\n') keyLine++;
         int blockStart = p + 1, line = keyLine, indent = -1, count = 0, breaks = 0;
+        bool open = false; // the entry before is a block mapping that further lines may add keys to
         var entries = new int[Stride * 64];
         int end = blockStart;
         while (end < text.Length)
@@ -76,18 +79,27 @@ internal sealed class PointLines
                 if (!(char.IsAsciiLetter(span[0]) || span[0] == '_')) return null;
                 break; // the next top-level key
             }
+            else if (open && lead == indent + 2)
+            {
+                // the next key of a block mapping entry
+                if (!KeyValueLine(span, lead, end, entries.AsSpan((count - 1) * Stride, Stride))) return null;
+            }
             else
             {
                 if (indent < 0) indent = lead;
                 if (lead != indent) return null;
+                if (open && entries[((count - 1) * Stride) + 1] < 0) return null; // a block entry with no id
                 if (count * Stride == entries.Length) Array.Resize(ref entries, entries.Length * 2);
-                if (!Entry(span[lead..], end + lead, line, entries.AsSpan(count * Stride, Stride))) return null;
+                var slots = entries.AsSpan(count * Stride, Stride);
+                open = !span[lead..].StartsWith("- {");
+                if (open ? !BlockEntry(span, lead, end, line, slots)
+                    : !Entry(span[lead..], end + lead, line, slots)) return null;
                 count++;
             }
             if (eol >= 0) breaks++;
             end = next;
         }
-        if (count == 0) return null;
+        if (count == 0 || (open && entries[((count - 1) * Stride) + 1] < 0)) return null;
         string blanked = string.Concat(text.AsSpan(0, blockStart), new string('\n', breaks),
             text.AsSpan(end));
         return new PointLines(text, keyLine, entries, count, blanked);
@@ -103,19 +115,7 @@ internal sealed class PointLines
         while (true)
         {
             while (i < s.Length && s[i] == ' ') i++;
-            int k = i;
-            while (i < s.Length && (char.IsAsciiLetterLower(s[i]) || s[i] == '_')) i++;
-            int slot = Slot(s[k..i]);
-            if (slot < 0 || slots[1 + (2 * slot)] >= 0) return false; // unknown or repeated key
-            if (i + 1 >= s.Length || s[i] != ':' || s[i + 1] != ' ') return false;
-            i += 2;
-            while (i < s.Length && s[i] == ' ') i++;
-            int v = i;
-            while (i < s.Length && (char.IsAsciiLetterOrDigit(s[i]) || s[i] is '.' or '_' or '+' or '-')) i++;
-            // a plain value: not empty, within the limit, and not starting with an indicator ('-' alone)
-            if (i == v || i - v > InputLimits.MaxValueLength || (s[v] == '-' && i - v == 1)) return false;
-            slots[1 + (2 * slot)] = offset + v;
-            slots[2 + (2 * slot)] = i - v;
+            if (!Pair(s, ref i, offset, slots)) return false;
             while (i < s.Length && s[i] == ' ') i++;
             if (i >= s.Length) return false;
             if (s[i] == '}') break;
@@ -124,6 +124,47 @@ internal sealed class PointLines
         }
         for (i++; i < s.Length; i++) if (s[i] != ' ') return false;
         return slots[1] >= 0; // an id
+    }
+
+    /// <summary>Reads <c>- key: value</c>, the first line of a block mapping entry (the line <paramref name="s"/>,
+    /// the dash at <paramref name="lead"/>, the line at <paramref name="start"/> of the text).</summary>
+    private static bool BlockEntry(ReadOnlySpan<char> s, int lead, int start, int line, Span<int> slots)
+    {
+        if (!s[lead..].StartsWith("- ")) return false;
+        slots.Fill(-1);
+        slots[0] = line;
+        return KeyValueLine(s, lead + 2, start, slots);
+    }
+
+    /// <summary>Reads <c>key: value</c> at <paramref name="at"/> of the line <paramref name="s"/> (at
+    /// <paramref name="start"/> of the text), nothing but spaces after it.</summary>
+    private static bool KeyValueLine(ReadOnlySpan<char> s, int at, int start, Span<int> slots)
+    {
+        int i = at;
+        if (!Pair(s, ref i, start, slots)) return false;
+        for (; i < s.Length; i++) if (s[i] != ' ') return false;
+        return true;
+    }
+
+    /// <summary>Reads <c>key: value</c> from <paramref name="i"/> into the key's slot (its value's place in the text
+    /// is <paramref name="offset"/> + its place in <paramref name="s"/>); <paramref name="i"/> ends after the value.
+    /// False for an unknown or repeated key, or a value that is not plain.</summary>
+    private static bool Pair(ReadOnlySpan<char> s, ref int i, int offset, Span<int> slots)
+    {
+        int k = i;
+        while (i < s.Length && (char.IsAsciiLetterLower(s[i]) || s[i] == '_')) i++;
+        int slot = Slot(s[k..i]);
+        if (slot < 0 || slots[1 + (2 * slot)] >= 0) return false; // unknown or repeated key
+        if (i + 1 >= s.Length || s[i] != ':' || s[i + 1] != ' ') return false;
+        i += 2;
+        while (i < s.Length && s[i] == ' ') i++;
+        int v = i;
+        while (i < s.Length && (char.IsAsciiLetterOrDigit(s[i]) || s[i] is '.' or '_' or '+' or '-')) i++;
+        // a plain value: not empty, within the limit, and not starting with an indicator ('-' alone)
+        if (i == v || i - v > InputLimits.MaxValueLength || (s[v] == '-' && i - v == 1)) return false;
+        slots[1 + (2 * slot)] = offset + v;
+        slots[2 + (2 * slot)] = i - v;
+        return true;
     }
 
     /// <summary>The slot of a point key (the keys ReadPoint allows); -1 for another key.</summary>
