@@ -68,9 +68,13 @@ internal static class AdjustCommand
                 project = project with { Options = project.Options with { Progress =
                     new ProgressPrinter(console.Error) } };
             foreach (var w in project.Warnings) console.Error.WriteLine($"warning: {w}");
-            // Grid and ground (docs/methods.md): the observations are reduced to the grid before the adjustment.
-            var reduction = project.Grid is { } grid ? GridReduction.Reduce(project.Network, grid, project.Options)
-                : null;
+            // Grid and ground (docs/methods.md): the observations are reduced to the grid before the adjustment. A
+            // network the grid leaves as it is (GNSS baselines, height differences) takes its factors at the positions
+            // of its ordinary adjustment once it is made: the preliminary adjustment would be that adjustment again.
+            var factorsAfter = project.Grid is { } system && !parse.GetValue(sequence) && stats.AdjustsOnce(parse) &&
+                GridReduction.LeavesAsIs(project.Network, system) ? system : null;
+            var reduction = project.Grid is { } grid && factorsAfter is null
+                ? GridReduction.Reduce(project.Network, grid, project.Options) : null;
             if (reduction is not null) project = project with { Network = reduction.Network };
             // The misclosure check needs only the network: it runs beside the adjustment (on another core) and is
             // joined before anything reads it; its result does not depend on the order.
@@ -112,6 +116,8 @@ internal static class AdjustCommand
             else
             {
                 (result, context) = stats.Run(parse, project, context0);
+                if (factorsAfter is not null)
+                    context = context with { Grid = GridReduction.ReduceAt(project.Network, factorsAfter, result) };
                 context = context with { Misclosures = Misclosures() };
                 context = diagnosis.Run(parse, project, result, context);
                 if (project.Standards.Count > 0)

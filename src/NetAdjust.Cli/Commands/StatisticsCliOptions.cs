@@ -70,6 +70,10 @@ internal sealed class StatisticsCliOptions
         cmd.Options.Add(_basis);
     }
 
+    /// <summary>True when the result <see cref="Run"/> returns is the ordinary adjustment of the project's network
+    /// (no blunder hunt, whose result is that of its last round).</summary>
+    public bool AdjustsOnce(ParseResult parse) => !parse.GetValue(_snoop);
+
     /// <summary>Adjusts the project with the chosen statistics and returns the result to report and the context
     /// carrying the extra sections.</summary>
     public (AdjustmentResult, ReportContext) Run(ParseResult parse, SurveyProject project, ReportContext context)

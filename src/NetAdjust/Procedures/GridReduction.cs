@@ -134,6 +134,51 @@ public static class GridReduction
         return ReduceAt(network, system, Adjuster.AdjustedPositions(first.Network, o));
     }
 
+    /// <summary>
+    /// True when the system leaves every observation of the network as it is: no ground distance it scales, and no
+    /// slope distance, zenith angle, direction, angle or geodetic azimuth it corrects (a network of GNSS baselines and
+    /// height differences, say). Its reduction is then only the factors at the adjusted positions, the preliminary
+    /// adjustment of <see cref="Reduce"/> is the adjustment itself, and <see cref="ReduceAt(SurveyNetwork, GridSystem,
+    /// AdjustmentResult)"/> with that adjustment gives what <see cref="Reduce"/> gives, without adjusting twice.
+    /// </summary>
+    /// <param name="network">The network as measured.</param>
+    /// <param name="system">The grid system.</param>
+    public static bool LeavesAsIs(SurveyNetwork network, GridSystem system)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        ArgumentNullException.ThrowIfNull(system);
+        bool projected = system.Projection is not null, scaled = projected || system.ProjectScale is not null;
+        foreach (var obs in network.Observations)
+        {
+            bool changed = obs switch
+            {
+                DistanceObservation => scaled && system.Distances == DistanceBasis.Ground,
+                SlopeDistanceObservation or ZenithObservation => scaled,
+                DirectionObservation or AngleObservation => projected,
+                AzimuthObservation => projected && system.Azimuths == AzimuthBasis.Geodetic,
+                _ => false,
+            };
+            if (changed) return false;
+        }
+        return true;
+    }
+
+    /// <summary>Reduces the network with the factors evaluated at the positions of an adjustment (its adjusted
+    /// points; a height it does not adjust, the point's given one): for a network the system leaves as it is
+    /// (<see cref="LeavesAsIs"/>), with the adjustment of that network, the same as <see cref="Reduce"/>.</summary>
+    /// <param name="network">The network as measured.</param>
+    /// <param name="system">The grid system.</param>
+    /// <param name="adjusted">The adjustment whose positions the factors are evaluated at.</param>
+    /// <exception cref="InvalidInputException">When a line needs a height or position that is not known.</exception>
+    public static GridReductionResult ReduceAt(SurveyNetwork network, GridSystem system, AdjustmentResult adjusted)
+    {
+        ArgumentNullException.ThrowIfNull(adjusted);
+        var positions = new Dictionary<string, (double E, double N, double? H)>(StringComparer.Ordinal);
+        foreach (var p in adjusted.Points)
+            if (p.E is double e && p.N is double n) positions[p.Id] = (e, n, p.H ?? p.Input.H);
+        return ReduceAt(network, system, positions);
+    }
+
     /// <summary>True when the reduced network holds the very observations of the one measured.</summary>
     private static bool Unchanged(SurveyNetwork measured, SurveyNetwork reduced)
     {

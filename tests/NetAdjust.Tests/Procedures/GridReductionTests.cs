@@ -127,6 +127,61 @@ public class GridReductionTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void ANetworkLeftAsItIsTakesTheReductionOfItsOwnAdjustment()
+    {
+        // What the command does for a network of baselines: the factors at the positions of the ordinary adjustment
+        // itself, once it is made, are those of the reduction with its preliminary adjustment, to the last bit.
+        var network = NetAdjust.Tests.Network.BaselineTestNetworks.Network(seed: 4);
+        var grid = NetAdjust.Tests.Network.BaselineTestNetworks.Grid;
+        Assert.True(GridReduction.LeavesAsIs(network, grid));
+        var expected = GridReduction.Reduce(network, grid);
+        var actual = GridReduction.ReduceAt(network, grid, Adjuster.Adjust(network));
+        Assert.NotEmpty(actual.Points);
+        Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
+            actual.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
+        Assert.Empty(actual.Observations);
+        Assert.Equal(expected.Network.Observations, actual.Network.Observations);
+    }
+
+    private static readonly GridSystem[] Systems =
+    [
+        Ground, Ground with { Distances = DistanceBasis.Grid },
+        Ground with { Azimuths = AzimuthBasis.Geodetic, Distances = DistanceBasis.Grid },
+        new() { ProjectScale = 0.9996, Distances = DistanceBasis.Ground },
+        new() { ProjectScale = 0.9996, Distances = DistanceBasis.Grid }, new(),
+    ];
+
+    [Theory]
+    [InlineData("directions and distances")]
+    [InlineData("distances")]
+    [InlineData("directions")]
+    [InlineData("azimuths")]
+    [InlineData("baselines")]
+    public void ANetworkIsSaidToBeLeftAsItIsJustWhenTheReductionLeavesEveryObservation(string kinds)
+    {
+        var measured = Measured(5);
+        var truth = Truth.ToDictionary(t => t.Id, t => (t.E, t.N, (double?)t.H));
+        SurveyNetwork Only(Func<Observation, bool> keep) =>
+            new(kinds, measured.Points, measured.Observations.Where(keep).ToList());
+        var network = kinds switch
+        {
+            "distances" => Only(o => o is DistanceObservation),
+            "directions" => Only(o => o is DirectionObservation),
+            "azimuths" => new SurveyNetwork(kinds, measured.Points,
+                [new AzimuthObservation("A", "B", Angle.FromDegrees(50)) { StandardDeviation = SdDirection }]),
+            "baselines" => NetAdjust.Tests.Network.BaselineTestNetworks.Network(seed: 4),
+            _ => measured,
+        };
+        var positions = kinds == "baselines" ? Positions(Adjuster.Adjust(network)) : truth;
+        foreach (var system in Systems)
+        {
+            var reduced = GridReduction.ReduceAt(network, system, positions).Network.Observations;
+            bool same = network.Observations.Zip(reduced).All(t => ReferenceEquals(t.First, t.Second));
+            Assert.True(same == GridReduction.LeavesAsIs(network, system), $"{kinds}, {system}");
+        }
+    }
+
+    [Fact]
     public void EveryGroundDistanceIsMultipliedByItsCombinedFactor()
     {
         var network = Measured(3);
