@@ -109,38 +109,29 @@ public class GridReductionTests(ITestOutputHelper output)
     }
 
     [Fact]
-    public void ANetworkWithNothingToReduceIsAdjustedOnceBeforehand()
+    public void ANetworkWithNothingToReduceIsAdjustedOnceBeforehandOrTakesTheFactorsOfItsOwnAdjustment()
     {
         // GNSS baselines pass to the grid as they are (docs/methods.md, "GNSS baselines"): the second preliminary
         // adjustment would repeat the first (the same observations), so it is left out; the point factors are still
-        // those at the adjusted positions.
+        // those at the adjusted positions. The command takes them at the ordinary adjustment itself, once it is made
+        // (ReduceAt with the adjustment): the same factors to the last bit.
         var network = NetAdjust.Tests.Network.BaselineTestNetworks.Network(seed: 9);
         var grid = NetAdjust.Tests.Network.BaselineTestNetworks.Grid;
+        Assert.True(GridReduction.LeavesAsIs(network, grid));
         Adjuster.PatternCount = 0;
         var actual = GridReduction.Reduce(network, grid);
         Assert.Equal(1, Adjuster.PatternCount);
         Assert.Empty(actual.Observations);
         Assert.All(network.Observations.Zip(actual.Network.Observations), t => Assert.Same(t.First, t.Second));
-        var expected = GridReduction.ReduceAt(network, grid, Positions(Adjuster.Adjust(network)));
-        Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
-            actual.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
-    }
-
-    [Fact]
-    public void ANetworkLeftAsItIsTakesTheReductionOfItsOwnAdjustment()
-    {
-        // What the command does for a network of baselines: the factors at the positions of the ordinary adjustment
-        // itself, once it is made, are those of the reduction with its preliminary adjustment, to the last bit.
-        var network = NetAdjust.Tests.Network.BaselineTestNetworks.Network(seed: 4);
-        var grid = NetAdjust.Tests.Network.BaselineTestNetworks.Grid;
-        Assert.True(GridReduction.LeavesAsIs(network, grid));
-        var expected = GridReduction.Reduce(network, grid);
-        var actual = GridReduction.ReduceAt(network, grid, Adjuster.Adjust(network));
-        Assert.NotEmpty(actual.Points);
-        Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
-            actual.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
-        Assert.Empty(actual.Observations);
-        Assert.Equal(expected.Network.Observations, actual.Network.Observations);
+        var adjusted = Adjuster.Adjust(network);
+        var expected = GridReduction.ReduceAt(network, grid, Positions(adjusted));
+        var afterwards = GridReduction.ReduceAt(network, grid, adjusted);
+        Assert.NotEmpty(expected.Points);
+        foreach (var r in new[] { actual, afterwards })
+            Assert.Equal(expected.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)),
+                r.Points.Select(p => (p.Point, p.ScaleFactor, p.Convergence)));
+        Assert.Empty(afterwards.Observations);
+        Assert.Equal(actual.Network.Observations, afterwards.Network.Observations);
     }
 
     private static readonly GridSystem[] Systems =
