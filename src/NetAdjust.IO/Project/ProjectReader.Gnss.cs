@@ -139,25 +139,12 @@ public static partial class ProjectReader
             ctx.File))];
     }
 
-    /// <summary>The three components of one baseline as read, as <see cref="BaselineObservation.Components"/> makes
-    /// them (the covariance checked once, shared by the three) with no grid system yet: the group's scale, the frame
+    /// <summary>The three components of one baseline as read, with no grid system yet: the group's scale, the frame
     /// and the grid system are applied when the project's grid is read, <see cref="FinishBaselines"/>.</summary>
     /// <exception cref="ArgumentException">When a point id, a component or the covariance is refused.</exception>
     internal static BaselineObservation[] Baseline(string source, string from, string to,
-        (Length X, Length Y, Length Z) vector, double[] cov, string? group)
-    {
-        var x = new BaselineObservation(from, to, vector.X, vector.Y, vector.Z)
-        {
-            BaselineId = source, Covariance = cov, Source = source, Group = group,
-            Component = BaselineComponent.X, StandardDeviation = Math.Sqrt(cov[0]),
-        };
-        return
-        [
-            x,
-            x with { Component = BaselineComponent.Y, StandardDeviation = Math.Sqrt(cov[4]) },
-            x with { Component = BaselineComponent.Z, StandardDeviation = Math.Sqrt(cov[8]) },
-        ];
-    }
+        (Length X, Length Y, Length Z) vector, double[] cov, string? group) =>
+        BaselineObservation.Made(source, from, to, vector, cov, null, source, group);
 
     private static double[] Numbers(Context ctx, YamlNode node, string item, int count)
     {

@@ -122,16 +122,28 @@ public sealed record BaselineObservation(string From, string To, Length Dx, Leng
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(baselineId);
         ArgumentNullException.ThrowIfNull(grid);
-        var cov = CheckedCovariance(covariance, nameof(covariance));
-        var first = new BaselineObservation(from, to, vector.X, vector.Y, vector.Z)
+        return Made(baselineId, from, to, vector, CheckedCovariance(covariance, nameof(covariance)), grid, null, null);
+    }
+
+    /// <summary>The three components as <see cref="Components"/> makes them, with a grid system that may be missing
+    /// yet (a reader sets it once the project's grid is read), a source and a group: each made once, the covariance
+    /// checked once and shared by the three.</summary>
+    internal static BaselineObservation[] Made(string baselineId, string from, string to,
+        (Length X, Length Y, Length Z) vector, IReadOnlyList<double> covariance, GridSystem? grid, string? source,
+        string? group)
+    {
+        var x = new BaselineObservation(from, to, vector.X, vector.Y, vector.Z)
         {
-            BaselineId = baselineId, Covariance = cov, Grid = grid,
+            // the covariance checked before its first entry is read
+            BaselineId = baselineId, Covariance = covariance, Grid = grid, Source = source, Group = group,
+            Component = BaselineComponent.X, StandardDeviation = Math.Sqrt(covariance[0]),
         };
+        var cov = x.Covariance!;
         return
         [
-            first with { Component = BaselineComponent.X, StandardDeviation = Math.Sqrt(cov[0]) },
-            first with { Component = BaselineComponent.Y, StandardDeviation = Math.Sqrt(cov[4]) },
-            first with { Component = BaselineComponent.Z, StandardDeviation = Math.Sqrt(cov[8]) },
+            x,
+            x with { Component = BaselineComponent.Y, StandardDeviation = Math.Sqrt(cov[4]) },
+            x with { Component = BaselineComponent.Z, StandardDeviation = Math.Sqrt(cov[8]) },
         ];
     }
 
