@@ -27,6 +27,10 @@ internal static class BaselineLoops
     /// <summary>Baselines read by the shortest-path searches on this thread (for the tests of their cost).</summary>
     [ThreadStatic] internal static long BaselinesRead;
 
+    /// <summary>Positions of points found for the loops' local frames on this thread (for the tests of their cost).
+    /// </summary>
+    [ThreadStatic] internal static long PositionsFound;
+
     /// <summary>
     /// The loops of a network's GNSS baselines: every baseline whose three components are present, none set aside,
     /// with a 3×3 covariance (the group scale applied). The mean position of a loop comes from its points' given or
@@ -106,15 +110,26 @@ internal static class BaselineLoops
 
         var lengths = edges.Select(e => Norm(vectors[e.Vector])).ToArray();
         var candidates = new List<Candidate>();
-        var seen = new HashSet<string>(StringComparer.Ordinal);
+        // a loop found twice (as its sorted baselines) is a candidate once
+        var seen = new HashSet<int[]>(SameBaselines.Instance);
         void Add(List<int> cycle)
         {
+            if (cycle.Count < 2) return;
             cycle.Sort();
-            if (cycle.Count < 2 || !seen.Add(string.Join(',', cycle))) return;
-            var groups = cycle.Select(e => vectors[edges[e].Vector].Group).Distinct().ToList();
-            bool trivial = groups.Count == 1 && groups[0] is not null;
-            candidates.Add(new Candidate([.. cycle], trivial, cycle.Sum(e => lengths[e]), candidates.Count));
+            int[] sorted = [.. cycle];
+            if (!seen.Add(sorted)) return;
+            // trivial: every baseline of one and the same group (one session)
+            string? group = vectors[edges[sorted[0]].Vector].Group;
+            bool trivial = group is not null;
+            double length = 0;
+            foreach (int e in sorted)
+            {
+                trivial &= vectors[edges[e].Vector].Group == group;
+                length += lengths[e];
+            }
+            candidates.Add(new Candidate(sorted, trivial, length, candidates.Count));
         }
+        var search = new Search(n);
 
         // For every baseline, the shortest way back through baselines of other groups (mixes groups by design). For
         // a baseline of a group the way depends only on its ends and its group, so the repeats of a baseline share
@@ -126,10 +141,10 @@ internal static class BaselineLoops
             var (from, to) = (edges[e].B, edges[e].A);
             List<int>? path;
             if (g is null)
-                path = ShortestPath(from, to, adjacency, edges, f => f != e);
+                path = ShortestPath(from, to, adjacency, edges, f => f != e, search);
             else if (!wayBack.TryGetValue((from, to, g), out path))
                 wayBack[(from, to, g)] = path = ShortestPath(from, to, adjacency, edges,
-                    f => vectors[edges[f].Vector].Group != g);
+                    f => vectors[edges[f].Vector].Group != g, search);
             if (path is not null) Add([e, .. path]);
         }
         // Horton's candidates; for a large network the shortest loop through each baseline and the fundamental
@@ -140,25 +155,46 @@ internal static class BaselineLoops
         {
             for (int e = 0; e < m; e++)
             {
-                var path = ShortestPath(edges[e].B, edges[e].A, adjacency, edges, f => f != e);
+                var path = ShortestPath(edges[e].B, edges[e].A, adjacency, edges, f => f != e, search);
                 if (path is not null) Add([e, .. path]);
             }
             foreach (int v in ComponentRoots(n, adjacency, edges))
                 AddHorton(v, n, adjacency, edges, Add, fundamental: true);
         }
 
-        // Shortest basis: mixed loops before trivial ones, then fewest baselines, then shortest, then order found.
-        var ordered = candidates.OrderBy(c => c.Trivial).ThenBy(c => c.Edges.Length).ThenBy(c => c.Length)
-            .ThenBy(c => c.Order);
+        // Shortest basis: mixed loops before trivial ones, then fewest baselines, then shortest, then order found
+        // (the order found is unique, so the order is total)
+        candidates.Sort(static (a, b) =>
+        {
+            int c = a.Trivial.CompareTo(b.Trivial);
+            if (c == 0) c = a.Edges.Length.CompareTo(b.Edges.Length);
+            if (c == 0) c = a.Length.CompareTo(b.Length);
+            return c != 0 ? c : a.Order.CompareTo(b.Order);
+        });
         var basis = new CycleBasis(n, adjacency, edges);
         var loops = new List<BaselineLoop>();
         double z = Normal.InvCDF(0, 1, 1 - ((1 - confidence) / 2));
         double chi2 = ChiSquared.InvCDF(3, confidence);
-        foreach (var c in ordered)
+        // each point's earth-centred position on the ellipsoid found once, when a loop first needs it (a point is in
+        // many loops)
+        var positions = new (double X, double Y, double Z)?[n];
+        var found = new bool[n];
+        (double X, double Y, double Z)? PositionOf(int node)
+        {
+            if (!found[node])
+            {
+                PositionsFound++;
+                positions[node] = position(names[node]) is var (lat, lon)
+                    ? Geocentric.ToGeocentric(ellipsoid, lat, lon, 0) : null;
+                found[node] = true;
+            }
+            return positions[node];
+        }
+        foreach (var c in candidates)
         {
             if (loops.Count == rank) break;
             if (!basis.TryAdd(c.Edges)) continue;
-            loops.Add(Loop(c, vectors, edges, names, ellipsoid, position, z, chi2));
+            loops.Add(Loop(c, vectors, edges, names, ellipsoid, PositionOf, z, chi2));
         }
         return loops;
 
@@ -296,7 +332,7 @@ internal static class BaselineLoops
         {
             var (a, b, _) = edges[e];
             if (parent[a] == -2 || parent[b] == -2 || parent[a] == e || parent[b] == e) continue;
-            int meet = Meet(a, b, parent, edges);
+            int meet = Meet(a, b, parent, depth, edges);
             if (meet != v && !fundamental) continue;
             add([e, .. PathTo(a, meet, parent, edges), .. PathTo(b, meet, parent, edges)]);
         }
@@ -310,30 +346,28 @@ internal static class BaselineLoops
         return path;
     }
 
-    /// <summary>The first common node of the two tree paths to the root.</summary>
-    private static int Meet(int a, int b, int[] parent, List<(int A, int B, int Vector)> edges)
+    /// <summary>The first common node of the two tree paths to the root (both nodes in the tree): the deeper one
+    /// climbs to the other's depth, then both climb together until they meet.</summary>
+    private static int Meet(int a, int b, int[] parent, int[] depth, List<(int A, int B, int Vector)> edges)
     {
-        var onA = new HashSet<int>();
-        for (int u = a; ; u = Other(edges[parent[u]], u))
+        while (depth[a] > depth[b]) a = Other(edges[parent[a]], a);
+        while (depth[b] > depth[a]) b = Other(edges[parent[b]], b);
+        while (a != b)
         {
-            onA.Add(u);
-            if (parent[u] < 0) break;
+            a = Other(edges[parent[a]], a);
+            b = Other(edges[parent[b]], b);
         }
-        for (int u = b; ; u = Other(edges[parent[u]], u))
-        {
-            if (onA.Contains(u)) return u;
-            if (parent[u] < 0) return -1;
-        }
+        return a;
     }
 
     /// <summary>Breadth-first shortest path (fewest baselines, ties by input order) over the allowed edges; the
     /// edge indices, or null when there is none.</summary>
     private static List<int>? ShortestPath(int from, int to, List<int>[] adjacency,
-        List<(int A, int B, int Vector)> edges, Func<int, bool> allowed)
+        List<(int A, int B, int Vector)> edges, Func<int, bool> allowed, Search search)
     {
-        var via = new Dictionary<int, int> { [from] = -1 };
-        var queue = new Queue<int>([from]);
-        while (queue.Count > 0 && !via.ContainsKey(to))
+        search.Start(from);
+        var queue = search.Queue;
+        while (queue.Count > 0 && !search.Reached(to))
         {
             int u = queue.Dequeue();
             foreach (int e in adjacency[u])
@@ -341,16 +375,59 @@ internal static class BaselineLoops
                 BaselinesRead++;
                 if (!allowed(e)) continue;
                 int w = Other(edges[e], u);
-                if (via.ContainsKey(w)) continue;
-                via[w] = e;
+                if (search.Reached(w)) continue;
+                search.Reach(w, e);
                 if (w == to) break; // found: the rest of a point's baselines (one measured many times) unread
                 queue.Enqueue(w);
             }
         }
-        if (!via.ContainsKey(to)) return null;
+        if (!search.Reached(to)) return null;
         var path = new List<int>();
-        for (int u = to; u != from; u = Other(edges[via[u]], u)) path.Add(via[u]);
+        for (int u = to; u != from; u = Other(edges[search.Via(u)], u)) path.Add(search.Via(u));
         return path;
+    }
+
+    /// <summary>The marks of one breadth-first search, kept for the next: a point counts as reached when its stamp
+    /// is the current search's (no clearing of arrays over all points, and no table made, per search).</summary>
+    private sealed class Search(int n)
+    {
+        private readonly int[] _via = new int[n], _stamp = new int[n];
+        private int _current;
+
+        public Queue<int> Queue { get; } = new();
+
+        public void Start(int from)
+        {
+            _current++;
+            Queue.Clear();
+            Queue.Enqueue(from);
+            Reach(from, -1);
+        }
+
+        public bool Reached(int node) => _stamp[node] == _current;
+
+        public void Reach(int node, int edge)
+        {
+            _stamp[node] = _current;
+            _via[node] = edge;
+        }
+
+        public int Via(int node) => _via[node];
+    }
+
+    /// <summary>Two loops as their sorted baselines: equal when they hold the same baselines.</summary>
+    private sealed class SameBaselines : IEqualityComparer<int[]>
+    {
+        public static readonly SameBaselines Instance = new();
+
+        public bool Equals(int[]? x, int[]? y) => x.AsSpan().SequenceEqual(y);
+
+        public int GetHashCode(int[] loop)
+        {
+            var hash = new HashCode();
+            hash.AddBytes(System.Runtime.InteropServices.MemoryMarshal.AsBytes(loop.AsSpan()));
+            return hash.ToHashCode();
+        }
     }
 
     private static int Components(int n, List<int>[] adjacency, List<(int A, int B, int Vector)> edges) =>
@@ -384,21 +461,32 @@ internal static class BaselineLoops
     /// with the sign of the direction of travel and their covariances, and tests the misclosure.</summary>
     private static BaselineLoop Loop(Candidate c, IReadOnlyList<BaselineVector> vectors,
         List<(int A, int B, int Vector)> edges, List<string> names, Ellipsoid ellipsoid,
-        Func<string, (double Lat, double Lon)?> position, double z, double chi2)
+        Func<int, (double X, double Y, double Z)?> position, double z, double chi2)
     {
-        var left = new List<int>(c.Edges);
-        int first = left[0];
-        int start = edges[first].A, at = start;
+        // From the first point of the first baseline, each step takes the first baseline of the loop (in its order)
+        // not walked yet that touches the point reached. The loop's baseline ends sorted by point, then by place in
+        // the loop, give each point's baselines at once (a long loop is not searched from its start at each step).
+        int count = c.Edges.Length;
+        var ends = new (int Point, int Place)[2 * count];
+        for (int i = 0; i < count; i++)
+        {
+            ends[2 * i] = (edges[c.Edges[i]].A, i);
+            ends[2 * i + 1] = (edges[c.Edges[i]].B, i);
+        }
+        Array.Sort(ends);
+        var walked = new bool[count];
+        int start = edges[c.Edges[0]].A, at = start;
         var points = new List<string> { names[start] };
+        var nodes = new List<int> { start };
         var used = new List<int>();
         var reversed = new List<bool>();
         double wx = 0, wy = 0, wz = 0;
         var cov = new double[9];
-        while (left.Count > 0)
+        for (int step = 0; step < count; step++)
         {
-            int k = used.Count == 0 ? 0 : left.FindIndex(e => edges[e].A == at || edges[e].B == at);
-            int e = left[k];
-            left.RemoveAt(k);
+            int place = step == 0 ? 0 : NextAt(at);
+            walked[place] = true;
+            int e = c.Edges[place];
             bool forward = edges[e].A == at;
             var v = vectors[edges[e].Vector];
             double s = forward ? 1 : -1;
@@ -410,6 +498,7 @@ internal static class BaselineLoops
             reversed.Add(!forward);
             at = forward ? edges[e].B : edges[e].A;
             points.Add(names[at]);
+            nodes.Add(at);
         }
         var groups = used.Select(i => vectors[i].Group).Distinct().ToList();
 
@@ -417,17 +506,17 @@ internal static class BaselineLoops
         // Local frame at the mean position of the loop's known points (mean of their earth-centred unit positions).
         double east = double.NaN, north = double.NaN, up = double.NaN;
         double sdE = double.NaN, sdN = double.NaN, sdU = double.NaN;
-        var known = points.Skip(1).Select(position).Where(p => p is not null).Select(p => p!.Value).ToList();
-        if (known.Count > 0)
-        {
-            double sx = 0, sy = 0, sz = 0;
-            foreach (var (lat, lon) in known)
+        int known = 0;
+        double sx = 0, sy = 0, sz = 0;
+        for (int i = 1; i < nodes.Count; i++)
+            if (position(nodes[i]) is var (x, y, zz))
             {
-                var (x, y, zz) = Geocentric.ToGeocentric(ellipsoid, lat, lon, 0);
+                known++;
                 sx += x; sy += y; sz += zz;
             }
-            var (mLat, mLon, _) = Geocentric.ToGeodetic(ellipsoid, sx / known.Count, sy / known.Count,
-                sz / known.Count);
+        if (known > 0)
+        {
+            var (mLat, mLon, _) = Geocentric.ToGeodetic(ellipsoid, sx / known, sy / known, sz / known);
             double[] r = Geocentric.LocalRotation(mLat, mLon);
             east = r[0] * wx + r[1] * wy + r[2] * wz;
             north = r[3] * wx + r[4] * wy + r[5] * wz;
@@ -438,6 +527,21 @@ internal static class BaselineLoops
         }
         return new BaselineLoop(points, used, reversed, groups, c.Trivial, wx, wy, wz, c.Length, east, north, up,
             sdE, sdN, sdU, statistic, chi2, z);
+
+        // the first baseline not walked at the point (its ends are a run of the sorted ends, found by bisection)
+        int NextAt(int point)
+        {
+            int lo = 0, hi = ends.Length;
+            while (lo < hi)
+            {
+                int mid = (lo + hi) >>> 1;
+                if (ends[mid].Point < point) lo = mid + 1;
+                else hi = mid;
+            }
+            for (int i = lo; i < ends.Length && ends[i].Point == point; i++)
+                if (!walked[ends[i].Place]) return ends[i].Place;
+            throw new InvalidOperationException("the baselines of a loop do not close");
+        }
     }
 
     /// <summary>rᵢ C rᵢᵀ for row i of R.</summary>

@@ -293,6 +293,59 @@ public class BaselineLoopsTests
         Assert.All(loops, l => Assert.Equal(0, l.Misclosure, 9)); // exact vectors close exactly
     }
 
+    [Fact]
+    public void LongLoopIsWalkedPointToPointWhateverTheOrderOfItsBaselines()
+    {
+        // A ring of 240 points 1 km apart around a circle near 47°N 8°E, its baselines given in a shuffled order and
+        // half of them measured backwards. The ring is one loop (cycle rank 240 − 240 + 1, graph theory, common
+        // practice), walked point to point: each point once, each step to a neighbour on the ring, a baseline
+        // reversed exactly when the loop runs it from its end to its start, and exact vectors close to zero.
+        const int count = 240;
+        double radius = count * 1000 / (2 * Math.PI);
+        string Id(int k) => $"R{k}";
+        (double Lat, double Lon) Mark(int k) =>
+            (47 * Deg + radius * Math.Sin(2 * Math.PI * k / count) / 6_371_000,
+             8 * Deg + radius * Math.Cos(2 * Math.PI * k / count) / (6_371_000 * Math.Cos(47 * Deg)));
+        (double X, double Y, double Z) At(int k) => Geocentric.ToGeocentric(Grs80, Mark(k).Lat, Mark(k).Lon, 500);
+        double[] cov = [1e-5, 0, 0, 0, 1e-5, 0, 0, 0, 1e-5];
+        var rnd = new Random(17);
+        var v = Enumerable.Range(0, count).OrderBy(_ => rnd.Next()).Select(k =>
+        {
+            var (a, b) = k % 2 == 0 ? (k, (k + 1) % count) : ((k + 1) % count, k);
+            var (x1, y1, z1) = At(a);
+            var (x2, y2, z2) = At(b);
+            return new BaselineVector(Id(a), Id(b), x2 - x1, y2 - y1, z2 - z1, cov, null, null);
+        }).ToList();
+        var ids = Enumerable.Range(0, count).ToDictionary(Id);
+        var loop = Assert.Single(BaselineLoops.Find(v, Grs80, p => Mark(ids[p]), 0.95));
+        Assert.Equal(count + 1, loop.Points.Count);
+        Assert.Equal(loop.Points[0], loop.Points[^1]);
+        Assert.Equal(count, loop.Points.Distinct().Count());
+        for (int i = 0; i < count; i++)
+        {
+            int step = (ids[loop.Points[i + 1]] - ids[loop.Points[i]] + count) % count;
+            Assert.True(step is 1 or count - 1, $"{loop.Points[i]} to {loop.Points[i + 1]}");
+            var baseline = v[loop.Baselines[i]];
+            Assert.Equal(loop.Reversed[i] ? (loop.Points[i + 1], loop.Points[i]) : (loop.Points[i], loop.Points[i + 1]),
+                (baseline.From, baseline.To));
+        }
+        Assert.Equal(0, loop.Misclosure, 6);
+        Assert.Equal(0, loop.East, 6);
+    }
+
+    [Fact]
+    public void EachPointsPositionIsFoundOnceHoweverManyLoopsHoldIt()
+    {
+        // A lattice of 12 × 12 points with known positions: 121 loops of four (graph theory, common practice), so
+        // the loops visit 484 points, yet each point's position is found once, at most 144 in all.
+        var v = Lattice("Q", 12, 12);
+        BaselineLoops.PositionsFound = 0;
+        var loops = BaselineLoops.Find(v, Grs80, _ => (47 * Deg, 8 * Deg), 0.95);
+        Assert.Equal(121, loops.Count);
+        Assert.Equal(484, loops.Sum(l => l.Points.Count - 1));
+        Assert.InRange(BaselineLoops.PositionsFound, 1, 144);
+    }
+
     [Property(MaxTest = 60)]
     public Property LoopsOfAnyNetworkAreABasisOfItsCycleSpace() =>
         Prop.ForAll(Gen.Choose(1, int.MaxValue).ToArbitrary(), seed =>
