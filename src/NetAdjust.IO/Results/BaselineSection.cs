@@ -42,7 +42,7 @@ internal static class BaselineSection
     };
 
     /// <summary>A frame parameter in report units: arcseconds for rotations, ppm for the scale.</summary>
-    private static double FrameValue(Parameter p, double v) =>
+    internal static double FrameValue(Parameter p, double v) =>
         p == Parameter.FrameScale ? v * 1e6 : v * Units.Angle.ArcsecondsPerRadian;
 
     // The tests of a result, made once for all its writers (the JSON and the reports are written side by side and
@@ -154,34 +154,5 @@ internal static class BaselineSection
             sb.Append("</tbody>\n</table>\n");
         }
         sb.Append("</section>\n");
-    }
-
-    /// <summary>The JSON result's <c>gnss</c> object, or null (key left out) when there are no baselines.</summary>
-    public static ResultJson.Gnss? Json(AdjustmentResult r, ReportContext c)
-    {
-        var tests = Tests(r);
-        if (tests.Count == 0) return null;
-        var a = r.Analysis;
-        return new ResultJson.Gnss(c.GnssFrame, tests.Select(t =>
-        {
-            var b = First(r, t);
-            return new ResultJson.Baseline(t.BaselineId, t.From, t.To, b.Group, b.GroupScale, b.Dx.Metres,
-                b.Dy.Metres, b.Dz.Metres, new(t.Residual.X, t.Residual.Y, t.Residual.Z),
-                new(JsonResultWriter.Finite(t.LocalResidual.North), JsonResultWriter.Finite(t.LocalResidual.East),
-                    JsonResultWriter.Finite(t.LocalResidual.Up)),
-                new(JsonResultWriter.Finite(t.Statistic), t.Dimension, JsonResultWriter.Finite(t.CriticalValue),
-                    t.Passed),
-                t.Rows.Select(i =>
-                {
-                    var o = (BaselineObservation)r.Network.Observations[i];
-                    var x = a.Observations[i];
-                    return new ResultJson.BaselineComponentTest(o.Component.ToString().ToLowerInvariant(), i,
-                        x.Redundancy, JsonResultWriter.Finite(x.W), JsonResultWriter.Finite(x.Mdb),
-                        JsonResultWriter.Finite(x.ExternalReliability), x.Flag.Name());
-                }),
-                t.LocalW is { } w ? new(w.North, w.East, w.Up) : null,
-                t.LocalMdb is { } m ? new(m.North, m.East, m.Up) : null);
-        }), r.FrameParameters.Count == 0 ? null : r.FrameParameters.Select(p => new ResultJson.FrameParameter(p.Frame,
-            FrameKey(p.Parameter), FrameValue(p.Parameter, p.Value), FrameValue(p.Parameter, p.Sd))).ToArray());
     }
 }

@@ -151,7 +151,7 @@ public static partial class JsonResultWriter
         j.WriteEndArray();
 
         Section(j, Keys.Refraction, RefractionOutput.Json(r));
-        Section(j, Keys.Gnss, BaselineSection.Json(r, c));
+        Gnss(sink, element, r, c);
         Testing(j, r.Analysis);
 
         List(sink, element, Keys.Relative, r.Analysis.Relative, (e, x) =>
@@ -192,7 +192,7 @@ public static partial class JsonResultWriter
         Section(j, Keys.VarianceComponents, c.Components is VarianceComponentEstimate vc ? Components(vc) : null);
         Section(j, Keys.Rounds, RoundsReport.Json(c));
         Section(j, Keys.Grid, GridReport.Json(r, c));
-        Section(j, Keys.Misclosures, ResultJson.Misclosures.Of(c.Misclosures));
+        Misclosures(sink, element, c.Misclosures);
         Section(j, Keys.Standards, ResultJson.Standards.Of(c.Standards));
         j.WriteEndObject();
         sink.Pass();

@@ -23,8 +23,8 @@ internal sealed class JsonRow
 
     private byte[] _bytes = new byte[4096];
     private int _length;
-    private int _indent; // of the innermost open object's braces; its members are two spaces further in
-    private bool _empty; // the innermost open object has no member yet
+    private int _indent; // of the innermost open object's braces or array's brackets; its members two spaces further
+    private bool _empty; // the innermost open object (or array) has no member yet
 
     private static bool[] PlainCharacters()
     {
@@ -61,6 +61,18 @@ internal sealed class JsonRow
     public void WriteString(JsonEncodedText name, string? value)
     {
         Member(name);
+        Text(value);
+    }
+
+    /// <summary>A string element of the innermost array; null writes <c>null</c>.</summary>
+    public void WriteStringValue(string? value)
+    {
+        Element();
+        Text(value);
+    }
+
+    private void Text(string? value)
+    {
         if (value is null)
         {
             Put("null"u8);
@@ -88,6 +100,18 @@ internal sealed class JsonRow
     public void WriteNumber(JsonEncodedText name, long value)
     {
         Member(name);
+        Integer(value);
+    }
+
+    /// <summary>An integer element of the innermost array.</summary>
+    public void WriteNumberValue(long value)
+    {
+        Element();
+        Integer(value);
+    }
+
+    private void Integer(long value)
+    {
         Reserve(24);
         value.TryFormat(_bytes.AsSpan(_length), out int n, default, Inv);
         _length += n;
@@ -124,6 +148,13 @@ internal sealed class JsonRow
         Put(value ? "true"u8 : "false"u8);
     }
 
+    /// <summary>A Boolean member when known, else <c>null</c>.</summary>
+    public void WriteBoolean(JsonEncodedText name, bool? value)
+    {
+        if (value is bool b) WriteBoolean(name, b);
+        else WriteNull(name);
+    }
+
     /// <summary>A <c>null</c> member.</summary>
     public void WriteNull(JsonEncodedText name)
     {
@@ -149,13 +180,38 @@ internal sealed class JsonRow
         _empty = false;
     }
 
+    /// <summary>Starts an object element of the innermost array.</summary>
+    public void WriteStartObject()
+    {
+        Element();
+        Put((byte)'{');
+        _indent += 2;
+        _empty = true;
+    }
+
+    /// <summary>Starts an array member.</summary>
+    public void WriteStartArray(JsonEncodedText name)
+    {
+        Member(name);
+        Put((byte)'[');
+        _indent += 2;
+        _empty = true;
+    }
+
+    /// <summary>Ends the innermost array (<c>[]</c> when it has no element).</summary>
+    public void WriteEndArray()
+    {
+        if (!_empty) NewLine(_indent);
+        Put((byte)']');
+        _indent -= 2;
+        _empty = false;
+    }
+
     private void Member(JsonEncodedText name) => Member(name.EncodedUtf8Bytes);
 
     private void Member(ReadOnlySpan<byte> name)
     {
-        if (!_empty) Put((byte)',');
-        _empty = false;
-        NewLine(_indent + 2);
+        Element();
         Reserve(name.Length + 4);
         _bytes[_length++] = (byte)'"';
         name.CopyTo(_bytes.AsSpan(_length));
@@ -163,6 +219,14 @@ internal sealed class JsonRow
         _bytes[_length++] = (byte)'"';
         _bytes[_length++] = (byte)':';
         _bytes[_length++] = (byte)' ';
+    }
+
+    /// <summary>The separator and line of the next member or element of the innermost object or array.</summary>
+    private void Element()
+    {
+        if (!_empty) Put((byte)',');
+        _empty = false;
+        NewLine(_indent + 2);
     }
 
     private void NewLine(int indent)

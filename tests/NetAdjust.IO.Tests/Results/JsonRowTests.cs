@@ -18,6 +18,10 @@ public class JsonRowTests
     private static readonly JsonEncodedText Missing = JsonEncodedText.Encode("missing");
     private static readonly JsonEncodedText Flag = JsonEncodedText.Encode("flag");
     private static readonly JsonEncodedText Count = JsonEncodedText.Encode("count");
+    private static readonly JsonEncodedText Names = JsonEncodedText.Encode("names");
+    private static readonly JsonEncodedText Numbers = JsonEncodedText.Encode("numbers");
+    private static readonly JsonEncodedText Parts = JsonEncodedText.Encode("parts");
+    private static readonly JsonEncodedText Passed = JsonEncodedText.Encode("passed");
 
     private static readonly string[] Ids =
     [
@@ -45,6 +49,30 @@ public class JsonRowTests
                 if (i % 3 == 0) j.WriteString(Missing, (string?)null);
                 else j.WriteNull(Missing);
                 j.WriteBoolean(Flag, i % 2 == 1);
+                // lists inside a row: of strings (some null, escaped), of integers, of objects; empty ones too
+                j.WriteStartArray(Names);
+                for (int k = 0; k < i % 4; k++)
+                    if (k == 2) j.WriteNullValue();
+                    else j.WriteStringValue(Ids[(i + k) % Ids.Length]);
+                j.WriteEndArray();
+                j.WriteStartArray(Numbers);
+                for (int k = 0; k < i % 3; k++) j.WriteNumberValue(1000L * k - i);
+                j.WriteEndArray();
+                j.WriteStartArray(Parts);
+                for (int k = 0; k < i % 3; k++)
+                {
+                    j.WriteStartObject();
+                    if (k == 1)
+                    {
+                        j.WriteNumber(Count, k);
+                        j.WriteStartArray(Numbers);
+                        j.WriteEndArray();
+                    }
+                    j.WriteEndObject();
+                }
+                j.WriteEndArray();
+                if (i % 3 == 2) j.WriteNull(Passed);
+                else j.WriteBoolean(Passed, i % 3 == 1);
                 j.WriteEndObject();
             }
             j.WriteEndArray();
@@ -75,6 +103,26 @@ public class JsonRowTests
                 if (i % 3 == 0) e.WriteString(Missing, null);
                 else e.Num(Missing, double.NaN);
                 e.WriteBoolean(Flag, i % 2 == 1);
+                e.WriteStartArray(Names);
+                for (int k = 0; k < i % 4; k++) e.WriteStringValue(k == 2 ? null : Ids[(i + k) % Ids.Length]);
+                e.WriteEndArray();
+                e.WriteStartArray(Numbers);
+                for (int k = 0; k < i % 3; k++) e.WriteNumberValue(1000L * k - i);
+                e.WriteEndArray();
+                e.WriteStartArray(Parts);
+                for (int k = 0; k < i % 3; k++)
+                {
+                    e.WriteStartObject();
+                    if (k == 1)
+                    {
+                        e.WriteNumber(Count, k);
+                        e.WriteStartArray(Numbers);
+                        e.WriteEndArray();
+                    }
+                    e.WriteEndObject();
+                }
+                e.WriteEndArray();
+                e.WriteBoolean(Passed, i % 3 == 2 ? null : i % 3 == 1);
                 e.WriteTo(j);
             }
             j.WriteEndArray();
@@ -91,6 +139,8 @@ public class JsonRowTests
     {
         string expected = Reference(nested);
         Assert.Contains("a \\\"quoted\\\" id", expected); // the data does take the encoder's escapes
+        Assert.Contains("\"parts\": [\n", expected); // and lists of every kind, with members and without
+        Assert.Contains("\"numbers\": []", expected);
         Assert.Equal(expected, Rendered(nested));
     }
 
