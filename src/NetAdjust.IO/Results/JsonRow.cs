@@ -166,43 +166,40 @@ internal sealed class JsonRow
     public void WriteStartObject(JsonEncodedText name)
     {
         Member(name);
-        Put((byte)'{');
-        _indent += 2;
-        _empty = true;
+        Open((byte)'{');
     }
 
     /// <summary>Ends the innermost object (<c>{}</c> when it has no member).</summary>
-    public void WriteEndObject()
-    {
-        if (!_empty) NewLine(_indent);
-        Put((byte)'}');
-        _indent -= 2;
-        _empty = false;
-    }
+    public void WriteEndObject() => Close((byte)'}');
 
     /// <summary>Starts an object element of the innermost array.</summary>
     public void WriteStartObject()
     {
         Element();
-        Put((byte)'{');
-        _indent += 2;
-        _empty = true;
+        Open((byte)'{');
     }
 
     /// <summary>Starts an array member.</summary>
     public void WriteStartArray(JsonEncodedText name)
     {
         Member(name);
-        Put((byte)'[');
+        Open((byte)'[');
+    }
+
+    /// <summary>Ends the innermost array (<c>[]</c> when it has no element).</summary>
+    public void WriteEndArray() => Close((byte)']');
+
+    private void Open(byte bracket)
+    {
+        Put(bracket);
         _indent += 2;
         _empty = true;
     }
 
-    /// <summary>Ends the innermost array (<c>[]</c> when it has no element).</summary>
-    public void WriteEndArray()
+    private void Close(byte bracket)
     {
         if (!_empty) NewLine(_indent);
-        Put((byte)']');
+        Put(bracket);
         _indent -= 2;
         _empty = false;
     }
