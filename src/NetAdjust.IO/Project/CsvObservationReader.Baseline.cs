@@ -98,17 +98,17 @@ internal static partial class CsvObservationReader
             double[] cov;
             if (byCov)
             {
-                var q = new double[6];
+                Span<double> q = stackalloc double[6];
                 for (int i = 0; i < 6; i++) q[i] = Number(CovarianceColumns[i], c.Covariance[i], true);
                 cov = [q[0], q[1], q[3], q[1], q[2], q[4], q[3], q[4], q[5]];
             }
             else
             {
-                var sd = new double[3];
+                Span<double> sd = stackalloc double[3];
                 for (int i = 0; i < 3; i++) sd[i] = Number(SdColumns[i], c.Sd[i], true);
                 for (int i = 0; i < 3; i++)
                     if (!(sd[i] > 0)) throw Bad($"{SdColumns[i]}: a standard deviation must be positive");
-                var rho = new double[3];
+                Span<double> rho = stackalloc double[3];
                 for (int i = 0; i < 3; i++) rho[i] = Number(CorrelationColumns[i], c.Correlation[i], false);
                 for (int i = 0; i < 3; i++)
                     if (!(rho[i] > -1 && rho[i] < 1))
@@ -122,7 +122,11 @@ internal static partial class CsvObservationReader
             string? group = r.IsEmpty(c.Group) ? null
                 : r.FieldEquals(c.Group, _lastGroup) ? _lastGroup : _lastGroup = r.Field(c.Group);
             BaselineObservation[] parts;
-            try { parts = ProjectReader.Baseline($"{file}:{line}", from, to, vector, cov, group); }
+            try
+            {
+                parts = ProjectReader.Baseline($"{file}:{line}", from, to, vector, cov, group, _s.Specs?.BaselineGrid,
+                    _s.Specs?.BaselineFrame);
+            }
             catch (ArgumentException e) { throw Bad(ProjectReader.GuardProblem(e)); }
             if (r.IsEmpty(c.Exclude) && r.IsEmpty(c.SdFactor))
             {

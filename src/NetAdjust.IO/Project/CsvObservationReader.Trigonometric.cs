@@ -1,3 +1,4 @@
+using NetAdjust.Geodesy;
 using NetAdjust.IO.Text;
 using NetAdjust.Network;
 using NetAdjust.Units;
@@ -29,7 +30,14 @@ internal static partial class CsvObservationReader
     /// <param name="HeightHeld">True when the point's height is held.</param>
     internal sealed record CsvSpecifications(
         Func<string, TotalStationSpecification?> Instrument, Func<string, TargetSpecification?> Target,
-        Func<string?, RefractionChoice?> Refraction, Func<string, bool> HeightHeld);
+        Func<string?, RefractionChoice?> Refraction, Func<string, bool> HeightHeld)
+    {
+        /// <summary>The project's grid system, which baselines are made with (null: none).</summary>
+        public GridSystem? BaselineGrid { get; init; }
+
+        /// <summary>The frame parameters of the project's baselines (null: none).</summary>
+        public BaselineFrame? BaselineFrame { get; init; }
+    }
 
     private static bool IsTrigonometric(ObservationKind kind) =>
         kind is ObservationKind.SlopeDistance or ObservationKind.Zenith;

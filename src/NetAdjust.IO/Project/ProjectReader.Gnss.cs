@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.InteropServices;
 using NetAdjust.Geodesy;
 using NetAdjust.IO.Text;
 using NetAdjust.Network;
@@ -26,13 +27,17 @@ public static partial class ProjectReader
         public BaselineFrame? Frame { get; set; }
         public Dictionary<string, double> Groups { get; } = new(StringComparer.Ordinal);
         public YamlNode? Node { get; set; }
+
+        /// <summary>The project's grid system (null: none), which the baselines are made with.</summary>
+        public GridSystem? Grid { get; init; }
     }
 
     /// <summary>Reads the <c>gnss</c> section: its groups and frame parameters, and its baselines into
     /// <paramref name="observations"/> (three component observations each).</summary>
-    private static GnssInputs ReadGnss(Context ctx, YamlMappingNode root, List<Observation> observations)
+    private static GnssInputs ReadGnss(Context ctx, YamlMappingNode root, List<Observation> observations,
+        GridSystem? grid)
     {
-        var g = new GnssInputs();
+        var g = new GnssInputs { Grid = grid };
         if (ctx.Child(root, "gnss") is not YamlNode node) return g;
         g.Node = node;
         var m = ctx.Mapping(node, "gnss");
@@ -135,16 +140,18 @@ public static partial class ProjectReader
                     (g.Groups.Count == 0 ? "" : $" (defined: {string.Join(", ", g.Groups.Keys)})"));
         }
         string source = $"{ctx.File}:{Line(node)}";
-        return [.. Baseline(source, from, to, vector, cov, group).Select(o => ObservationMarks.Apply(o, node,
-            ctx.File))];
+        return [.. Baseline(source, from, to, vector, cov, group, g.Grid, g.Frame).Select(o =>
+            ObservationMarks.Apply(o, node, ctx.File))];
     }
 
-    /// <summary>The three components of one baseline as read, with no grid system yet: the group's scale, the frame
-    /// and the grid system are applied when the project's grid is read, <see cref="FinishBaselines"/>.</summary>
-    /// <exception cref="ArgumentException">When a point id, a component or the covariance is refused.</exception>
+    /// <summary>The three components of one baseline as read, with the project's grid system and frame parameters
+    /// (the group's scale is applied once all are read, <see cref="FinishBaselines"/>). The covariance is checked
+    /// (<see cref="BaselineObservation.CovarianceProblem"/> null) and kept as it is.</summary>
+    /// <exception cref="ArgumentException">When a point id or a component is refused.</exception>
     internal static BaselineObservation[] Baseline(string source, string from, string to,
-        (Length X, Length Y, Length Z) vector, double[] cov, string? group) =>
-        BaselineObservation.Made(source, from, to, vector, cov, null, source, group);
+        (Length X, Length Y, Length Z) vector, double[] cov, string? group, GridSystem? grid, BaselineFrame? frame) =>
+        BaselineObservation.Made(source, from, to, vector, ImmutableCollectionsMarshal.AsImmutableArray(cov), grid,
+            frame, source, group);
 
     private static double[] Numbers(Context ctx, YamlNode node, string item, int count)
     {
@@ -155,11 +162,13 @@ public static partial class ProjectReader
     }
 
     /// <summary>
-    /// Baselines need the project's projection: sets the grid system of every baseline component (from the project
-    /// file or CSV), checks the groups CSV rows name, and applies their scales and the frame parameters to CSV rows.
+    /// Baselines need the project's projection (their components are made with the grid system and the frame
+    /// parameters as they are read): refuses baselines without one, and frame parameters without baselines; checks
+    /// the groups CSV rows name and applies the scales of the groups that have one (≠ 1) to their components (a
+    /// component of such a group is made anew; the others are left as they are).
     /// </summary>
-    private static List<Observation> FinishBaselines(Context ctx, GnssInputs g, GridSystem? grid,
-        List<Observation> observations, bool holdsBaselines)
+    private static void FinishBaselines(Context ctx, GnssInputs g, GridSystem? grid, List<Observation> observations,
+        bool holdsBaselines)
     {
         // the list is searched only when the reader's checks saw a baseline among the observations
         var first = holdsBaselines ? observations.OfType<BaselineObservation>().FirstOrDefault() : null;
@@ -167,7 +176,7 @@ public static partial class ProjectReader
         {
             if (g.Frame is not null && g.Node is not null)
                 throw ctx.Error(g.Node, "gnss.frame_parameters", "frame parameters need baselines");
-            return observations;
+            return;
         }
         if (grid?.Projection is null)
         {
@@ -176,26 +185,23 @@ public static partial class ProjectReader
                 "a GNSS baseline needs the project's map projection: give 'crs' and a 'grid' section " +
                 "(docs/input-format.md, \"Grid and ground\"), with heights and the geoid separation (h = H + N)");
         }
-        var result = new List<Observation>(observations.Count);
-        foreach (var o in observations)
+        for (int i = 0; i < observations.Count; i++)
         {
-            if (o is not BaselineObservation b) { result.Add(o); continue; }
-            double scale = 1.0;
-            if (b.Group is string group && !g.Groups.TryGetValue(group, out scale))
+            if (observations[i] is not BaselineObservation { Group: string group } b) continue;
+            if (!g.Groups.TryGetValue(group, out double scale))
             {
                 var (file, line) = SourceOf(b);
                 throw new ProjectFileException(file, line, $"baseline {b.From}→{b.To}",
                     $"group '{group}' is not defined under gnss.groups in the project file");
             }
             // a scale of 1 leaves the covariance and the standard deviation as they are (not checked again)
-            result.Add(scale == 1.0 ? b with { Grid = grid, Frame = g.Frame, GroupScale = scale } : b with
-            {
-                Grid = grid, Frame = g.Frame, GroupScale = scale,
-                Covariance = [.. b.Covariance!.Select(c => c * scale)],
-                StandardDeviation = b.StandardDeviation * Math.Sqrt(scale),
-            });
+            if (scale != 1.0)
+                observations[i] = b with
+                {
+                    GroupScale = scale, Covariance = [.. b.Covariance!.Select(c => c * scale)],
+                    StandardDeviation = b.StandardDeviation * Math.Sqrt(scale),
+                };
         }
-        return result;
     }
 
     private static (string File, int Line) SourceOf(Observation o)

@@ -15,10 +15,11 @@ public static partial class ProjectReader
         ["distances", "azimuths", "scale", "geoid_separation", "geoid_separations", "mean_height", "mean_height_sd"];
 
     /// <summary>Reads <c>crs</c> (an EPSG code NetAdjust resolves, or WKT) and the <c>grid</c> section; checks that
-    /// they agree with each other and with the points. The grid system is null when the project has no
-    /// <c>grid</c> section (the <c>crs</c> then only labels the outputs, as before).</summary>
+    /// they agree with each other and with the points (the heights the observations need are checked once they are
+    /// read, <see cref="CheckGridHeights"/>). The grid system is null when the project has no <c>grid</c> section
+    /// (the <c>crs</c> then only labels the outputs, as before).</summary>
     private static (string? Crs, GridSystem? Grid) ReadGrid(Context ctx, YamlMappingNode root, LengthPattern lengths,
-        IReadOnlyList<Point> points, IReadOnlyList<Observation> observations)
+        IReadOnlyList<Point> points)
     {
         var (crs, projection, crsNode) = ReadCrs(ctx, root);
         if (ctx.Child(root, "grid") is not YamlNode node) return (crs, null);
@@ -78,16 +79,15 @@ public static partial class ProjectReader
             if (!(sd >= 0)) throw ctx.Error(mhs, "grid.mean_height_sd", "must not be negative");
             system = system with { MeanHeightSd = sd };
         }
-        if (projection is not null && system.Distances == DistanceBasis.Ground && system.MeanHeight is null)
-            CheckHeights(ctx, root, points, observations);
         return (crs, system);
     }
 
     /// <summary>With a projection and ground distances, every end of a horizontal distance needs a height (the
     /// project has no mean height).</summary>
-    private static void CheckHeights(Context ctx, YamlMappingNode root, IReadOnlyList<Point> points,
-        IReadOnlyList<Observation> observations)
+    private static void CheckGridHeights(Context ctx, YamlMappingNode root, GridSystem? grid,
+        IReadOnlyList<Point> points, IReadOnlyList<Observation> observations)
     {
+        if (grid is not { Projection: not null, Distances: DistanceBasis.Ground, MeanHeight: null }) return;
         var needed = observations.OfType<DistanceObservation>().SelectMany(d => new[] { d.From, d.To })
             .ToHashSet(StringComparer.Ordinal);
         foreach (var p in points)

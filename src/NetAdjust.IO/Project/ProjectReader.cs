@@ -159,7 +159,9 @@ public static partial class ProjectReader
             foreach (var node in ctx.Sequence(lev, "levelling"))
                 observations.Add(Guarded(ctx, node, "a levelling section",
                     () => ReadLevelling(ctx, node, lengths, units, defaults, specs)));
-        var gnss = ReadGnss(ctx, root, observations);
+        // the grid before the baselines: their components are made with it (and the frame), once
+        var (crs, grid) = ReadGrid(ctx, root, lengths, points);
+        var gnss = ReadGnss(ctx, root, observations, grid);
 
         var inputs = new List<string> { Path.GetFullPath(Path.Combine(baseDirectory, Path.GetFileName(displayName))) };
         var listedTwice = new List<string>();
@@ -186,7 +188,9 @@ public static partial class ProjectReader
                     try
                     {
                         var rows = CsvObservationReader.Read(csv, rel, lengths, angles, units, defaults,
-                            specs.WeightingOfLevel, CsvSpecifications(specs), pointIds);
+                            specs.WeightingOfLevel,
+                            CsvSpecifications(specs) with { BaselineGrid = grid, BaselineFrame = gnss.Frame },
+                            pointIds);
                         // the first file's list as it is (no copy of its millions of references), later ones added
                         if (observations.Count == 0) observations = rows;
                         else observations.AddRange(rows);
@@ -204,9 +208,8 @@ public static partial class ProjectReader
         int kinds = InputChecks.Observations(observations, displayName);
         if (ctx.Child(root, "adjustment") is YamlMappingNode adj && ctx.Child(adj, "tolerance") is YamlNode tol)
             InputChecks.Tolerance(options.LengthTolerance, points, displayName, Line(tol));
-        var (crs, grid) = ReadGrid(ctx, root, lengths, points, observations);
-        observations = FinishBaselines(ctx, gnss, grid, observations,
-            InputChecks.Holds(kinds, ObservationKind.Baseline));
+        CheckGridHeights(ctx, root, grid, points, observations);
+        FinishBaselines(ctx, gnss, grid, observations, InputChecks.Holds(kinds, ObservationKind.Baseline));
         var (planeHeight, planeBasis) = ReadPlaneHeight(ctx, root, units, points, grid);
         if (InputChecks.Holds(kinds, ObservationKind.SlopeDistance) || InputChecks.Holds(kinds, ObservationKind.Zenith))
             ApplyPlaneHeight(observations, planeHeight);

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+using System.Diagnostics;
 using NetAdjust.Geodesy;
 using NetAdjust.Units;
 
@@ -25,33 +27,79 @@ public enum BaselineComponent
 /// with the geoid separation N of <see cref="Grid"/>) → geocentric. Build the three with
 /// <see cref="Components"/>.
 /// </summary>
-/// <param name="From">The point the vector starts at.</param>
-/// <param name="To">The point the vector ends at.</param>
-/// <param name="Dx">ΔX = X(to) − X(from).</param>
-/// <param name="Dy">ΔY = Y(to) − Y(from).</param>
-/// <param name="Dz">ΔZ = Z(to) − Z(from).</param>
-public sealed record BaselineObservation(string From, string To, Length Dx, Length Dy, Length Dz) : Observation
+public sealed record BaselineObservation : Observation
 {
+    /// <summary>A component of the baseline (ΔX unless <see cref="Component"/> says otherwise).</summary>
+    /// <param name="From">The point the vector starts at.</param>
+    /// <param name="To">The point the vector ends at.</param>
+    /// <param name="Dx">ΔX = X(to) − X(from).</param>
+    /// <param name="Dy">ΔY = Y(to) − Y(from).</param>
+    /// <param name="Dz">ΔZ = Z(to) − Z(from).</param>
+    /// <exception cref="ArgumentException">When an id is empty or a component not finite.</exception>
+    public BaselineObservation(string From, string To, Length Dx, Length Dy, Length Dz)
+        : this(Guards.Id(From, nameof(From)), Guards.Id(To, nameof(To)), WholeOf(Dx, Dy, Dz))
+    {
+    }
+
+    /// <summary>A component of checked ids and whole.</summary>
+    private BaselineObservation(string from, string to, Whole whole)
+    {
+        this.From = from;
+        this.To = to;
+        _whole = whole;
+    }
+
+    /// <summary>The start and end points and the vector.</summary>
+    /// <param name="From">The point the vector starts at.</param>
+    /// <param name="To">The point the vector ends at.</param>
+    /// <param name="Dx">ΔX.</param>
+    /// <param name="Dy">ΔY.</param>
+    /// <param name="Dz">ΔZ.</param>
+    public void Deconstruct(out string From, out string To, out Length Dx, out Length Dy, out Length Dz) =>
+        (From, To, Dx, Dy, Dz) = (this.From, this.To, this.Dx, this.Dy, this.Dz);
+
+    /// <summary>
+    /// What the three components of a baseline have in common, held once for the three (a baseline row of a large
+    /// file makes one of these and three small component records instead of three records of all of it). A record:
+    /// an observation's equality and hash code are as with these members as fields of its own; setting one member
+    /// of a component makes that component a whole of its own, as a field of its own would.
+    /// </summary>
+    private sealed record Whole(Length Dx, Length Dy, Length Dz)
+    {
+        public string? Id { get; init; }
+        public IReadOnlyList<double>? Covariance { get; init; }
+        public GridSystem? Grid { get; init; }
+        public string? Group { get; init; }
+        public double GroupScale { get; init; } = 1.0;
+        public BaselineFrame? Frame { get; init; }
+    }
+
+    private readonly Whole _whole;
+
+    private static Length Checked(Length value, string parameter) =>
+        Guards.FiniteLength(value, parameter, "a baseline component");
+
+    /// <summary>A whole of the vector alone, its components checked.</summary>
+    private static Whole WholeOf(Length dx, Length dy, Length dz) =>
+        new(Checked(dx, nameof(Dx)), Checked(dy, nameof(Dy)), Checked(dz, nameof(Dz)));
+
     /// <inheritdoc />
     public override ObservationKind Kind => ObservationKind.Baseline;
 
     /// <inheritdoc />
-    public override string From { get; } = Guards.Id(From, nameof(From));
+    public override string From { get; }
 
     /// <inheritdoc />
-    public override string To { get; } = Guards.Id(To, nameof(To));
+    public override string To { get; }
 
     /// <summary>ΔX = X(to) − X(from).</summary>
-    public Length Dx { get; init => field = Guards.FiniteLength(value, nameof(Dx), "a baseline component"); } =
-        Guards.FiniteLength(Dx, nameof(Dx), "a baseline component");
+    public Length Dx { get => _whole.Dx; init => _whole = _whole with { Dx = Checked(value, nameof(Dx)) }; }
 
     /// <summary>ΔY = Y(to) − Y(from).</summary>
-    public Length Dy { get; init => field = Guards.FiniteLength(value, nameof(Dy), "a baseline component"); } =
-        Guards.FiniteLength(Dy, nameof(Dy), "a baseline component");
+    public Length Dy { get => _whole.Dy; init => _whole = _whole with { Dy = Checked(value, nameof(Dy)) }; }
 
     /// <summary>ΔZ = Z(to) − Z(from).</summary>
-    public Length Dz { get; init => field = Guards.FiniteLength(value, nameof(Dz), "a baseline component"); } =
-        Guards.FiniteLength(Dz, nameof(Dz), "a baseline component");
+    public Length Dz { get => _whole.Dz; init => _whole = _whole with { Dz = Checked(value, nameof(Dz)) }; }
 
     /// <summary>The component this observation is (ΔX by default).</summary>
     public BaselineComponent Component { get; init; }
@@ -66,7 +114,7 @@ public sealed record BaselineObservation(string From, string To, Length Dx, Leng
 
     /// <summary>The id that joins the three components of one baseline (unique in the network); null for a
     /// component that stands alone (weighted by its own standard deviation, uncorrelated).</summary>
-    public string? BaselineId { get; init; }
+    public string? BaselineId { get => _whole.Id; init => _whole = _whole with { Id = value }; }
 
     /// <summary>
     /// The covariance of (ΔX, ΔY, ΔZ) as adjusted, m², 3×3 row-major (the group scale factor applied), symmetric
@@ -77,31 +125,37 @@ public sealed record BaselineObservation(string From, string To, Length Dx, Leng
     /// not positive definite.</exception>
     public IReadOnlyList<double>? Covariance
     {
-        get;
-        init => field = value is null ? null : CheckedCovariance(value, nameof(Covariance));
+        get => _whole.Covariance;
+        init => _whole = _whole with
+        {
+            Covariance = value is null ? null : CheckedCovariance(value, nameof(Covariance)),
+        };
     }
 
     /// <summary>The grid system the baseline is modelled through: its projection (required to evaluate the
     /// equation) and the geoid separations that make ellipsoidal heights h = H + N.</summary>
-    public GridSystem? Grid { get; init; }
+    public GridSystem? Grid { get => _whole.Grid; init => _whole = _whole with { Grid = value }; }
 
     /// <summary>The group of baselines (e.g. a session or a receiver pair) that shares a scale factor of the
     /// covariance and a variance component; null for none.</summary>
-    public string? Group { get; init; }
+    public string? Group { get => _whole.Group; init => _whole = _whole with { Group = value }; }
 
     /// <summary>The variance factor the covariance was scaled by for the group (positive, 1 by default; for
     /// reports: <see cref="Covariance"/> already includes it).</summary>
     /// <exception cref="ArgumentOutOfRangeException">On init, when not positive and finite.</exception>
     public double GroupScale
     {
-        get;
-        init => field = value > 0 && double.IsFinite(value) ? value
-            : throw new ArgumentOutOfRangeException(nameof(GroupScale), value, "a scale factor must be positive.");
-    } = 1.0;
+        get => _whole.GroupScale;
+        init => _whole = _whole with
+        {
+            GroupScale = value > 0 && double.IsFinite(value) ? value
+                : throw new ArgumentOutOfRangeException(nameof(GroupScale), value, "a scale factor must be positive."),
+        };
+    }
 
     /// <summary>The frame parameters (rotations, scale) between the GNSS frame and the local control that the
     /// baseline's equation includes; null for none (the default).</summary>
-    public BaselineFrame? Frame { get; init; }
+    public BaselineFrame? Frame { get => _whole.Frame; init => _whole = _whole with { Frame = value }; }
 
     /// <summary>The vector (ΔX, ΔY, ΔZ) in metres.</summary>
     public (double X, double Y, double Z) Vector => (Dx.Metres, Dy.Metres, Dz.Metres);
@@ -122,28 +176,35 @@ public sealed record BaselineObservation(string From, string To, Length Dx, Leng
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(baselineId);
         ArgumentNullException.ThrowIfNull(grid);
-        return Made(baselineId, from, to, vector, CheckedCovariance(covariance, nameof(covariance)), grid, null, null);
+        return Made(baselineId, from, to, vector, CheckedCovariance(covariance, nameof(covariance)), grid, null, null,
+            null);
     }
 
-    /// <summary>The three components as <see cref="Components"/> makes them, with a grid system that may be missing
-    /// yet (a reader sets it once the project's grid is read), a source and a group: each made once, the covariance
-    /// checked once and shared by the three.</summary>
+    /// <summary>The three components as <see cref="Components"/> makes them, with a grid system and frame that may
+    /// be missing (a reader refuses a baseline without a projection once all are read), a source and a group: the
+    /// three share one whole (vector, id, covariance, grid, group, frame), made once. The covariance must be
+    /// checked already (<see cref="CovarianceProblem"/> null): it is kept as it is.</summary>
     internal static BaselineObservation[] Made(string baselineId, string from, string to,
-        (Length X, Length Y, Length Z) vector, IReadOnlyList<double> covariance, GridSystem? grid, string? source,
-        string? group)
+        (Length X, Length Y, Length Z) vector, ImmutableArray<double> covariance, GridSystem? grid,
+        BaselineFrame? frame, string? source, string? group)
     {
-        var x = new BaselineObservation(from, to, vector.X, vector.Y, vector.Z)
+        Debug.Assert(CovarianceProblem(covariance) is null, "the covariance is checked by the caller");
+        from = Guards.Id(from, nameof(From));
+        to = Guards.Id(to, nameof(To));
+        var whole = new Whole(Checked(vector.X, nameof(Dx)), Checked(vector.Y, nameof(Dy)),
+            Checked(vector.Z, nameof(Dz)))
         {
-            // the covariance checked before its first entry is read
-            BaselineId = baselineId, Covariance = covariance, Grid = grid, Source = source, Group = group,
-            Component = BaselineComponent.X, StandardDeviation = Math.Sqrt(covariance[0]),
+            Id = baselineId, Covariance = covariance, Grid = grid, Group = group, Frame = frame,
         };
-        var cov = x.Covariance!;
+        var x = new BaselineObservation(from, to, whole)
+        {
+            Source = source, Component = BaselineComponent.X, StandardDeviation = Math.Sqrt(covariance[0]),
+        };
         return
         [
             x,
-            x with { Component = BaselineComponent.Y, StandardDeviation = Math.Sqrt(cov[4]) },
-            x with { Component = BaselineComponent.Z, StandardDeviation = Math.Sqrt(cov[8]) },
+            x with { Component = BaselineComponent.Y, StandardDeviation = Math.Sqrt(covariance[4]) },
+            x with { Component = BaselineComponent.Z, StandardDeviation = Math.Sqrt(covariance[8]) },
         ];
     }
 
@@ -191,10 +252,10 @@ public sealed record BaselineObservation(string From, string To, Length Dx, Leng
               "each other)";
     }
 
-    private static IReadOnlyList<double> CheckedCovariance(IReadOnlyList<double> covariance, string name)
+    private static ImmutableArray<double> CheckedCovariance(IReadOnlyList<double> covariance, string name)
     {
         ArgumentNullException.ThrowIfNull(covariance, name);
         return CovarianceProblem(covariance) is string problem ? throw new ArgumentException(problem, name)
-            : ReadOnlyCopies.List(covariance);
+            : covariance is ImmutableArray<double> a ? a : [.. covariance];
     }
 }

@@ -84,6 +84,26 @@ public class GnssInputTests
         Assert.Equal(2, f.ScalePpmSd);
     }
 
+    [Fact]
+    public void BaselinesOfEveryInputShareTheProjectsGridAndFrame()
+    {
+        // the gnss section's frame parameters and the grid section apply to the baselines of the project file and
+        // of its CSV files alike, whichever comes first in the file
+        var p = Parse("gnss:\n  frame_parameters: rotations\n  groups: [{id: S2, scale: 2}, {id: S1}]\n" +
+            "  baselines:\n" + Baseline, "kind,from,to,dx,dy,dz,sd_x,sd_y,sd_z,group,sd_factor\n" +
+            "baseline,GA2,GA3,-1645.1,-1240.2,-3890.3,0.002,0.002,0.004,S2,\n" +
+            "baseline,GA3,GA1,3100.2,2700.9,4001.5,0.002,0.002,0.004,S1,3\n");
+        var b = p.Network.Observations.OfType<BaselineObservation>().ToList();
+        Assert.Equal(9, b.Count);
+        var frame = b[0].Frame;
+        Assert.Equal(FrameParameterSet.Rotations, frame!.Parameters);
+        Assert.All(b, o => Assert.Same(frame, o.Frame));
+        Assert.All(b, o => Assert.Same(p.Grid, o.Grid));
+        Assert.Equal([1, 1, 1, 2, 2, 2, 1, 1, 1], b.Select(o => o.GroupScale));
+        Assert.Equal(0.004 * 0.004 * 2, b[5].Covariance![8], 1e-20);
+        Assert.Equal(0.004 * 3, b[8].StandardDeviation, 15);
+    }
+
     [Theory]
     [InlineData("    - {from: GA1, to: GA2, dx: 1, dz: 3, sd: [0.002, 0.002, 0.004]}\n", 10, "'dy' is missing")]
     [InlineData("    - {from: GA1, to: GA2, dx: 1, dy: 2, dz: 3, sd: [0.002, 0.002, 0.004], corr: [0.3, 1.2, 0]}\n",
