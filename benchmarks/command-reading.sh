@@ -9,14 +9,16 @@
 # Usage: benchmarks/command-reading.sh NET.yaml [RUNS] PROGRAM [PROGRAM ...]
 #   PROGRAM: a published netadjust (e.g. the NetAdjust.Cli of `dotnet publish src/NetAdjust.Cli -c Release -r
 #   linux-x64 -o DIR`); NET: a network of `netadjust simulate --kind plane --points N --seed 1 --out NET.yaml` (its
-#   rows are counted in NET-observations.csv). A network read and set up within a second prints no progress line:
-#   use one of 100,000 points or more.
+#   rows are counted in NET-observations.csv) or of `benchmarks/gnss-network.py SIDE 5 NET.yaml` (rows in
+#   NET-baselines.csv, one row a baseline). A network read and set up within a second prints no progress line:
+#   use one of 100,000 points (or 40,000 GNSS points) or more.
 set -euo pipefail
 net="$1"; shift
 runs=3
 if [[ "${1:-}" =~ ^[0-9]+$ ]]; then runs="$1"; shift; fi
 [ "$#" -gt 0 ] || { echo "usage: $0 NET.yaml [RUNS] PROGRAM [PROGRAM ...]" >&2; exit 2; }
 csv="${net%.yaml}-observations.csv"
+[ -f "$csv" ] || csv="${net%.yaml}-baselines.csv"
 rows=$(($(grep -vc "^#" "$csv") - 1))
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
