@@ -49,6 +49,10 @@ internal static class ApproximateCoordinates
             .Locate(plane, e, n, seedWhenNothingKnown, throwWhenMissing: true);
     }
 
+    /// <summary>Trees of height differences built on this thread by <see cref="Heights"/> (for the tests of its
+    /// shortcut).</summary>
+    [ThreadStatic] internal static int HeightTreesBuilt;
+
     /// <summary>
     /// Fills in heights of points in <paramref name="height"/> that lack them by a breadth-first spanning tree of
     /// height differences from the points with heights (<see cref="Constructions.LevellingTree"/>): levelled ones
@@ -65,6 +69,10 @@ internal static class ApproximateCoordinates
         Dictionary<string, double> h, IReadOnlyDictionary<string, double>? e = null,
         IReadOnlyDictionary<string, double>? n = null)
     {
+        // every point has its height already: the tree fills in only points without one, so no edge is made (the
+        // height differences of a large GNSS network's baselines, each through the projection, would be for nothing)
+        if (network.Points.All(p => h.ContainsKey(p.Id))) return;
+        HeightTreesBuilt++;
         PlanePoint? At(string id) => e is not null && n is not null && e.TryGetValue(id, out double pe)
             && n.TryGetValue(id, out double pn) ? new PlanePoint(pe, pn) : null;
         Constructions.LevellingTree(network.Points.Select(p => p.Id).Where(height.Contains).ToList(),

@@ -169,6 +169,31 @@ public class ApproximateCoordinatesTests
         Assert.Equal(43.75, h["L3"], 12);
     }
 
+    [Fact]
+    public void HeightsKnownForEveryPointAreLeftAsTheyAreWithoutATree()
+    {
+        // every height given (as in a GNSS network whose points all carry h): nothing to fill in, so no tree of
+        // height differences is built; with one height missing the tree is built and fills in that one only
+        var pts = new[] { new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"),
+            new Point("L3") };
+        var obs = new Observation[]
+        {
+            new HeightDifferenceObservation("BM", "L1", Length.FromMetres(1.25)) { StandardDeviation = 0.001 },
+            new HeightDifferenceObservation("L2", "L3", Length.FromMetres(2.0)) { StandardDeviation = 0.001 },
+        };
+        var net = new SurveyNetwork("lev", pts, obs);
+        var ids = net.Points.Select(p => p.Id).ToHashSet();
+        var h = new Dictionary<string, double> { ["BM"] = 40.0, ["L1"] = 50.0, ["L2"] = 60.0, ["L3"] = 70.0 };
+        int trees = ApproximateCoordinates.HeightTreesBuilt;
+        ApproximateCoordinates.Heights(net, ids, h);
+        Assert.Equal(trees, ApproximateCoordinates.HeightTreesBuilt);
+        Assert.Equal([40.0, 50.0, 60.0, 70.0], new[] { "BM", "L1", "L2", "L3" }.Select(id => h[id]));
+        h.Remove("L3");
+        ApproximateCoordinates.Heights(net, ids, h);
+        Assert.Equal(trees + 1, ApproximateCoordinates.HeightTreesBuilt);
+        Assert.Equal([40.0, 50.0, 60.0, 62.0], new[] { "BM", "L1", "L2", "L3" }.Select(id => h[id]));
+    }
+
     [Theory]
     [InlineData(30, 1)]     // control side by side in a corner
     [InlineData(30, 899)]   // control in opposite corners: the network is built in a local frame and fitted on both
