@@ -165,6 +165,11 @@ public sealed class ParameterState : ICoordinates, IIndexedCoordinates
 
     double IIndexedCoordinates.Orientation(int set) => _orientation[set];
 
+    int IIndexedCoordinates.SpatialSlotOrNone(string id) =>
+        _pointSlot.TryGetValue(id, out int slot) && _hasE[slot] && _hasN[slot] && _hasH[slot] ? slot : -1;
+
+    double IIndexedCoordinates.Height(int point) => _h[point];
+
     private int PointSlot(string id) => _pointSlot.TryGetValue(id, out int slot) ? slot : throw Missing(id);
 
     private (double[] Values, bool[] Has) Component(Parameter p) => p switch

@@ -81,20 +81,58 @@ internal static class BaselineGeometry
     internal static EquationValue Component(IMapProjection projection, BaselineEnd from, BaselineEnd to, int component,
         FrameState? frame = null)
     {
+        Span<double> d = stackalloc double[MostPartials];
+        double value = ComponentInto(projection, from, to, component, frame, d, out int count);
+        var partials = new Partial[count];
+        Parameter[] axes = [Parameter.E, Parameter.N, Parameter.H];
+        for (int q = 0; q < 3; q++)
+        {
+            partials[2 * q] = new Partial(from.Id, axes[q], d[2 * q]);
+            partials[(2 * q) + 1] = new Partial(to.Id, axes[q], d[(2 * q) + 1]);
+        }
+        int k = 6;
+        if (frame is { HasRotations: true } f)
+        {
+            partials[k] = new Partial(f.Id, Parameter.FrameRotationX, d[k]);
+            partials[k + 1] = new Partial(f.Id, Parameter.FrameRotationY, d[k + 1]);
+            partials[k + 2] = new Partial(f.Id, Parameter.FrameRotationZ, d[k + 2]);
+            k += 3;
+        }
+        if (frame is { HasScale: true } s) partials[k] = new Partial(s.Id, Parameter.FrameScale, d[k]);
+        return new EquationValue(value, partials);
+    }
+
+    /// <summary>The most partial derivatives of a component: six coordinates, three rotations and a scale.</summary>
+    internal const int MostPartials = 10;
+
+    /// <summary>
+    /// <see cref="Component"/> without allocating: the value, and the derivatives in its order (E of the start and
+    /// of the end, then N, then H; then the frame's rotations and scale) written to <paramref name="partials"/>. The
+    /// one computation of both.
+    /// </summary>
+    /// <param name="projection">The projection of the grid.</param>
+    /// <param name="from">The start point.</param>
+    /// <param name="to">The end point.</param>
+    /// <param name="component">0 for ΔX, 1 for ΔY, 2 for ΔZ.</param>
+    /// <param name="frame">The frame parameters, or null for none.</param>
+    /// <param name="partials">Room for the derivatives (<see cref="MostPartials"/> at most).</param>
+    /// <param name="count">The number of derivatives written.</param>
+    internal static double ComponentInto(IMapProjection projection, BaselineEnd from, BaselineEnd to, int component,
+        FrameState? frame, Span<double> partials, out int count)
+    {
         ArgumentOutOfRangeException.ThrowIfNegative(component);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(component, 2);
         var a = Position(projection, from);
         var b = Position(projection, to);
-        double[] d = [b.X - a.X, b.Y - a.Y, b.Z - a.Z];
+        Span<double> d = [b.X - a.X, b.Y - a.Y, b.Z - a.Z];
         // Row c of M = (1 + μ)(I + Ω), Ω = [[0, −rz, ry], [rz, 0, −rx], [−ry, rx, 0]].
         var f = frame ?? new FrameState("", 0, 0, 0, 0, false, false);
-        double[] omega = [0, -f.Rz, f.Ry, f.Rz, 0, -f.Rx, -f.Ry, f.Rx, 0];
-        var row = new double[3];
+        Span<double> omega = [0, -f.Rz, f.Ry, f.Rz, 0, -f.Rx, -f.Ry, f.Rx, 0];
+        Span<double> row = stackalloc double[3];
         for (int c = 0; c < 3; c++)
             row[c] = (1 + f.Scale) * ((component == c ? 1 : 0) + omega[(component * 3) + c]);
         double value = (row[0] * d[0]) + (row[1] * d[1]) + (row[2] * d[2]);
-        var partials = new List<Partial>(10);
-        Parameter[] axes = [Parameter.E, Parameter.N, Parameter.H];
+        int k = 0;
         for (int q = 0; q < 3; q++)
         {
             double sa = 0, sb = 0;
@@ -103,19 +141,20 @@ internal static class BaselineGeometry
                 sa += row[c] * a.Jacobian[(c * 3) + q];
                 sb += row[c] * b.Jacobian[(c * 3) + q];
             }
-            partials.Add(new Partial(from.Id, axes[q], -sa));
-            partials.Add(new Partial(to.Id, axes[q], sb));
+            partials[k++] = -sa;
+            partials[k++] = sb;
         }
         if (f.HasRotations)
         {
             // ∂(ΩΔ)/∂rx = (0, −Δz, Δy), ∂/∂ry = (Δz, 0, −Δx), ∂/∂rz = (−Δy, Δx, 0)
-            double[] byRx = [0, -d[2], d[1]], byRy = [d[2], 0, -d[0]], byRz = [-d[1], d[0], 0];
-            partials.Add(new Partial(f.Id, Parameter.FrameRotationX, (1 + f.Scale) * byRx[component]));
-            partials.Add(new Partial(f.Id, Parameter.FrameRotationY, (1 + f.Scale) * byRy[component]));
-            partials.Add(new Partial(f.Id, Parameter.FrameRotationZ, (1 + f.Scale) * byRz[component]));
+            Span<double> byRx = [0, -d[2], d[1]], byRy = [d[2], 0, -d[0]], byRz = [-d[1], d[0], 0];
+            partials[k++] = (1 + f.Scale) * byRx[component];
+            partials[k++] = (1 + f.Scale) * byRy[component];
+            partials[k++] = (1 + f.Scale) * byRz[component];
         }
-        if (f.HasScale) partials.Add(new Partial(f.Id, Parameter.FrameScale, value / (1 + f.Scale)));
-        return new EquationValue(value, [.. partials]);
+        if (f.HasScale) partials[k++] = value / (1 + f.Scale);
+        count = k;
+        return value;
     }
 
     [ThreadStatic] private static PositionCache? _cache;

@@ -61,6 +61,29 @@ public sealed class BaselineKind : IObservationKind
         return BaselineGeometry.Component(projection, End(b.From), End(b.To), (int)b.Component, frame);
     }
 
+    /// <summary>True when the component can be evaluated by its ends' slots
+    /// (<see cref="ObservationKindRegistry.Slots"/>): it is modelled on a projection and has no frame rotations
+    /// (which would add unknowns that are not points').</summary>
+    internal static bool BySlots(BaselineObservation b) =>
+        b.Grid?.Projection is not null && b.Frame is not { HasRotations: true };
+
+    /// <summary><see cref="Evaluate"/> of a component for which <see cref="BySlots"/> holds, at its ends' slots
+    /// (start, end), without allocating: the same arithmetic (<see cref="BaselineGeometry.ComponentInto"/>), the
+    /// derivatives in the order of <see cref="Evaluate"/>'s partials.</summary>
+    internal static double EvaluateInto(BaselineObservation b, IIndexedCoordinates at, ReadOnlySpan<int> slots,
+        Span<double> partials, out int count)
+    {
+        var grid = b.Grid!;
+        BaselineEnd End(string id, int slot)
+        {
+            var p = at.Plane(slot);
+            double h = at.Height(slot);
+            return new BaselineEnd(id, p.E, p.N, h, grid.EllipsoidalHeight(id, h)!.Value - h);
+        }
+        return BaselineGeometry.ComponentInto(grid.Projection!, End(b.From, slots[0]), End(b.To, slots[1]),
+            (int)b.Component, null, partials, out count);
+    }
+
     /// <inheritdoc />
     public string? Instrument(Observation observation) => null;
 

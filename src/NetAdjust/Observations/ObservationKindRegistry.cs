@@ -53,8 +53,9 @@ public static class ObservationKindRegistry
 
     /// <summary>
     /// The slots of the points (and direction set) whose coordinates an observation's equation reads, for
-    /// <see cref="EvaluateInto"/>: station or from point, then target, then the direction set or the foresight. Only
-    /// the plane kinds are evaluated by slots; for the others no slot is written.
+    /// <see cref="EvaluateInto"/>: station or from point, then target, then the direction set or the foresight. The
+    /// plane kinds are evaluated by slots, and GNSS baselines without frame rotations whose ends have plane
+    /// coordinates and heights; for the others no slot is written.
     /// </summary>
     /// <param name="observation">The observation.</param>
     /// <param name="at">The coordinates.</param>
@@ -78,6 +79,10 @@ public static class ObservationKindRegistry
                 slots[1] = at.PlaneSlot(a.Backsight);
                 slots[2] = at.PlaneSlot(a.Foresight);
                 return 3;
+            case BaselineObservation b when BaselineKind.BySlots(b):
+                slots[0] = at.SpatialSlotOrNone(b.From);
+                slots[1] = at.SpatialSlotOrNone(b.To);
+                return slots[0] >= 0 && slots[1] >= 0 ? 2 : 0;
             default:
                 return 0;
         }
@@ -92,6 +97,9 @@ public static class ObservationKindRegistry
     private static readonly (int Slot, Parameter Parameter)[] ThreePoints =
         [.. TwoPoints, (2, Parameter.E), (2, Parameter.N)];
 
+    private static readonly (int Slot, Parameter Parameter)[] BaselineEnds =
+        [(0, Parameter.E), (1, Parameter.E), (0, Parameter.N), (1, Parameter.N), (0, Parameter.H), (1, Parameter.H)];
+
     /// <summary>
     /// What each derivative <see cref="EvaluateInto"/> writes for a kind evaluated by slots is taken by: the
     /// position in <see cref="Slots"/> of its point (or set) and the parameter, in the order of the derivatives
@@ -103,6 +111,7 @@ public static class ObservationKindRegistry
         ObservationKind.Distance or ObservationKind.Azimuth => TwoPoints,
         ObservationKind.Direction => DirectionPartials,
         ObservationKind.Angle => ThreePoints,
+        ObservationKind.Baseline => BaselineEnds,
         _ => [],
     };
 
@@ -137,6 +146,8 @@ public static class ObservationKindRegistry
                 case ObservationKind.Angle:
                     count = 6;
                     return PlaneGeometry.Angle(at.Plane(slots[0]), at.Plane(slots[1]), at.Plane(slots[2]), partials);
+                case ObservationKind.Baseline:
+                    return BaselineKind.EvaluateInto((BaselineObservation)observation, at, slots, partials, out count);
             }
         var eq = Evaluate(observation, at);
         count = eq.Partials.Length;

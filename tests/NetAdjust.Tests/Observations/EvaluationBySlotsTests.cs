@@ -55,6 +55,55 @@ public class EvaluationBySlotsTests
         }
     }
 
+    // Invented marks in UTM zone 33 (demo data), with heights; B3 has plane coordinates only.
+    private static ParameterState SpatialState() => new(
+        new Dictionary<string, double>(StringComparer.Ordinal) { ["B1"] = 512_300.0, ["B2"] = 516_850.4, ["B3"] = 1 },
+        new Dictionary<string, double>(StringComparer.Ordinal)
+            { ["B1"] = 5_262_100.0, ["B2"] = 5_263_402.2, ["B3"] = 1 },
+        new Dictionary<string, double>(StringComparer.Ordinal) { ["B1"] = 412.3, ["B2"] = 455.8 },
+        new Dictionary<string, double>(StringComparer.Ordinal));
+
+    public static TheoryData<int, bool> BaselineComponents() =>
+        new() { { 0, false }, { 1, false }, { 2, true }, { 0, true } };
+
+    [Theory]
+    [MemberData(nameof(BaselineComponents))]
+    public void ABaselineComponentEvaluatedBySlotsMatchesItsEquationByNames(int component, bool ownSeparation)
+    {
+        var state = SpatialState();
+        IIndexedCoordinates at = state;
+        var grid = Network.BaselineTestNetworks.Grid;
+        if (ownSeparation)
+            grid = grid with { PointGeoidSeparations = new Dictionary<string, double> { ["B2"] = 44.9 } };
+        var (frameWithout, rotated) = (new BaselineFrame("gnss", FrameParameterSet.None),
+            new BaselineFrame("gnss", FrameParameterSet.Rotations));
+        var o = new BaselineObservation("B1", "B2", Length.FromMetres(-4550.1), Length.FromMetres(1302.2),
+            Length.FromMetres(43.5)) { Component = (BaselineComponent)component, Grid = grid, Frame = frameWithout };
+        var byNames = ObservationKindRegistry.Evaluate(o, state);
+        Span<int> slots = stackalloc int[ObservationKindRegistry.MostSlots];
+        int ns = ObservationKindRegistry.Slots(o, at, slots);
+        Assert.Equal(2, ns);
+        var d = new double[8];
+        double value = ObservationKindRegistry.EvaluateInto(o, at, slots[..ns], d, out int count);
+        Assert.Equal(BitConverter.DoubleToInt64Bits(byNames.Value), BitConverter.DoubleToInt64Bits(value));
+        Assert.Equal(6, count);
+        Assert.Equal(byNames.Partials.Length, count);
+        var by = ObservationKindRegistry.PartialsBySlot(o.Kind);
+        for (int k = 0; k < count; k++)
+        {
+            var p = byNames.Partials[k];
+            Assert.Equal(BitConverter.DoubleToInt64Bits(p.Derivative), BitConverter.DoubleToInt64Bits(d[k]));
+            Assert.Equal(p.Parameter, by[k].Parameter);
+            Assert.Equal(at.SpatialSlotOrNone(p.Owner), slots[by[k].Slot]);
+        }
+        // frame rotations (unknowns that are not points'), an end without a height, no projection: by names
+        Assert.Equal(0, ObservationKindRegistry.Slots(o with { Frame = rotated }, at, slots));
+        Assert.Equal(0, ObservationKindRegistry.Slots(o with { Grid = grid with { Projection = null } }, at, slots));
+        Assert.Equal(0, ObservationKindRegistry.Slots(
+            new BaselineObservation("B1", "B3", Length.FromMetres(1), Length.FromMetres(1), Length.FromMetres(1))
+                { Grid = grid }, at, slots));
+    }
+
     [Fact]
     public void AKindWithoutSlotsIsEvaluatedByNames()
     {
