@@ -150,18 +150,16 @@ public class ApproximateCoordinatesTests
         Assert.Equal(p.N, n["P"], 6);
     }
 
+    /// <summary>Benchmark BM (40 m, held) and points L1 to L3 joined by the given height differences.</summary>
+    private static SurveyNetwork LevelLine(params (string From, string To, double Dh)[] differences) =>
+        new("lev", [new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"), new Point("L3")],
+            [.. differences.Select(d => new HeightDifferenceObservation(d.From, d.To, Length.FromMetres(d.Dh))
+                { StandardDeviation = 0.001 })]);
+
     [Fact]
     public void HeightsFollowTheLevellingFromTheBenchmark()
     {
-        var pts = new[] { new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"),
-            new Point("L3") };
-        var obs = new Observation[]
-        {
-            new HeightDifferenceObservation("BM", "L1", Length.FromMetres(1.25)) { StandardDeviation = 0.001 },
-            new HeightDifferenceObservation("L2", "L1", Length.FromMetres(-0.5)) { StandardDeviation = 0.001 },
-            new HeightDifferenceObservation("L2", "L3", Length.FromMetres(2.0)) { StandardDeviation = 0.001 },
-        };
-        var net = new SurveyNetwork("lev", pts, obs);
+        var net = LevelLine(("BM", "L1", 1.25), ("L2", "L1", -0.5), ("L2", "L3", 2.0));
         var h = new Dictionary<string, double> { ["BM"] = 40.0 };
         ApproximateCoordinates.Heights(net, net.Points.Select(p => p.Id).ToHashSet(), h);
         Assert.Equal(41.25, h["L1"], 12);
@@ -174,14 +172,7 @@ public class ApproximateCoordinatesTests
     {
         // every height given (as in a GNSS network whose points all carry h): nothing to fill in, so no tree of
         // height differences is built; with one height missing the tree is built and fills in that one only
-        var pts = new[] { new Point("BM") { H = 40.0, Fixed = Fixity.H }, new Point("L1"), new Point("L2"),
-            new Point("L3") };
-        var obs = new Observation[]
-        {
-            new HeightDifferenceObservation("BM", "L1", Length.FromMetres(1.25)) { StandardDeviation = 0.001 },
-            new HeightDifferenceObservation("L2", "L3", Length.FromMetres(2.0)) { StandardDeviation = 0.001 },
-        };
-        var net = new SurveyNetwork("lev", pts, obs);
+        var net = LevelLine(("BM", "L1", 1.25), ("L2", "L3", 2.0));
         var ids = net.Points.Select(p => p.Id).ToHashSet();
         var h = new Dictionary<string, double> { ["BM"] = 40.0, ["L1"] = 50.0, ["L2"] = 60.0, ["L3"] = 70.0 };
         int trees = ApproximateCoordinates.HeightTreesBuilt;
