@@ -103,7 +103,8 @@ public static class ObservationKindRegistry
     /// <summary>
     /// What each derivative <see cref="EvaluateInto"/> writes for a kind evaluated by slots is taken by: the
     /// position in <see cref="Slots"/> of its point (or set) and the parameter, in the order of the derivatives
-    /// (the order of <see cref="Evaluate"/>'s partials); empty for a kind evaluated by names.
+    /// (the order of <see cref="Evaluate"/>'s partials); empty for a kind evaluated by names. Read only for an
+    /// observation that <see cref="Slots"/> gave slots (a baseline with frame rotations has none).
     /// </summary>
     /// <param name="kind">The kind.</param>
     internal static ReadOnlySpan<(int Slot, Parameter Parameter)> PartialsBySlot(ObservationKind kind) => kind switch
