@@ -1,3 +1,4 @@
+using NetAdjust.Geodesy;
 using NetAdjust.Geometry;
 using NetAdjust.Network;
 
@@ -47,12 +48,7 @@ public sealed class BaselineKind : IObservationKind
         if (b.Grid?.Projection is not { } projection)
             throw new InvalidInputException($"{b.Describe()}: a GNSS baseline needs the project's map projection " +
                 "(crs and grid) to be modelled on the grid");
-        BaselineEnd End(string id)
-        {
-            var p = at.Plane(id);
-            double h = at.Height(id);
-            return new BaselineEnd(id, p.E, p.N, h, b.Grid.EllipsoidalHeight(id, h)!.Value - h);
-        }
+        BaselineEnd End(string id) => EndAt(b.Grid, id, at.Plane(id), at.Height(id));
         FrameState? frame = b.Frame is { HasRotations: true } f
             ? new FrameState(f.Id, at.Frame(f.Id, Parameter.FrameRotationX), at.Frame(f.Id, Parameter.FrameRotationY),
                 at.Frame(f.Id, Parameter.FrameRotationZ), f.HasScale ? at.Frame(f.Id, Parameter.FrameScale) : 0,
@@ -74,15 +70,15 @@ public sealed class BaselineKind : IObservationKind
         Span<double> partials, out int count)
     {
         var grid = b.Grid!;
-        BaselineEnd End(string id, int slot)
-        {
-            var p = at.Plane(slot);
-            double h = at.Height(slot);
-            return new BaselineEnd(id, p.E, p.N, h, grid.EllipsoidalHeight(id, h)!.Value - h);
-        }
+        BaselineEnd End(string id, int slot) => EndAt(grid, id, at.Plane(slot), at.Height(slot));
         return BaselineGeometry.ComponentInto(grid.Projection!, End(b.From, slots[0]), End(b.To, slots[1]),
             (int)b.Component, null, partials, out count);
     }
+
+    /// <summary>An end of a baseline at plane coordinates <paramref name="p"/> and height <paramref name="h"/>, with
+    /// its geoid separation (h = H + N) from the grid system.</summary>
+    private static BaselineEnd EndAt(GridSystem grid, string id, PlanePoint p, double h) =>
+        new(id, p.E, p.N, h, grid.EllipsoidalHeight(id, h)!.Value - h);
 
     /// <inheritdoc />
     public string? Instrument(Observation observation) => null;
