@@ -100,6 +100,7 @@ public class GnssInputTests
         Assert.All(b, o => Assert.Same(frame, o.Frame));
         Assert.All(b, o => Assert.Same(p.Grid, o.Grid));
         Assert.Equal([1, 1, 1, 2, 2, 2, 1, 1, 1], b.Select(o => o.GroupScale));
+        // a group's variance factor multiplies the covariance; sd_factor multiplies σ (common practice)
         Assert.Equal(0.004 * 0.004 * 2, b[5].Covariance![8], 1e-20);
         Assert.Equal(0.004 * 3, b[8].StandardDeviation, 15);
     }
