@@ -123,8 +123,14 @@ public static partial class Adjuster
             if (u > 0)
                 iterations += Iterate(network, options, plan, solver, pattern, control, weights, iterations,
                     ref current);
-            var next = StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor);
-            if (u == 0 || next.LargestChange(model) <= StochasticTolerance) { model = next; break; }
+            // (a model that no coordinate enters is the same at the new coordinates)
+            var next = model.DependsOnCoordinates
+                ? StochasticModel.Build(network, state, options.Centering, options.AprioriVarianceFactor) : model;
+            if (u == 0 || ReferenceEquals(next, model) || next.LargestChange(model) <= StochasticTolerance)
+            {
+                model = next;
+                break;
+            }
             if (round == MaxStochasticRounds)
                 throw new NoConvergenceException($"The weights did not settle in {MaxStochasticRounds} rounds: the " +
                     "sight lengths taken from the coordinates keep changing. Check the approximate coordinates and " +

@@ -28,7 +28,13 @@ public sealed class StochasticModel
     {
         _sd = sd; _blocks = blocks; HasDerivedWeights = derived;
         StandardDeviations = sd.AsReadOnly(); Budgets = budgets.AsReadOnly(); Blocks = blocks.AsReadOnly();
+        DependsOnCoordinates = Array.Exists(budgets, b => b is not null);
     }
+
+    /// <summary>False when no observation has specifications to weigh it by (every σ given, no budget): then the
+    /// model is the same at any coordinates (the baseline blocks take only the given σ and covariances) and need not
+    /// be built again after the coordinates change.</summary>
+    internal bool DependsOnCoordinates { get; }
 
     /// <summary>Each observation's a-priori standard deviation (SI), in network order.</summary>
     public IReadOnlyList<double> StandardDeviations { get; }
