@@ -10,6 +10,7 @@ namespace NetAdjust.Benchmarks;
 /// or the phases of the adjust command in process: <c>... -- command FILE [RUNS]</c>;
 /// or its writers one at a time: <c>... -- writers FILE [RUNS]</c>;
 /// or the work before the first iteration: <c>... -- setup FILE [RUNS] [DUMP]</c>;
+/// or the GNSS baseline loops found and their sizes: <c>... -- loops FILE [RUNS]</c>;
 /// or where the adjustment's CPU time goes: <c>... -- iteration FILE [RUNS]</c>;
 /// or the sparse engine's share of it (factorisation, selected inverse, statistics): <c>... -- covariance FILE
 /// [RUNS]</c>.
@@ -26,6 +27,7 @@ public static class Program
         if (args.Length > 0 && args[0] == "command") { CommandPhases.Run(args); return; }
         if (args.Length > 0 && args[0] == "writers") { CommandPhases.Writers(args); return; }
         if (args.Length > 0 && args[0] == "setup") { SetupPhases.Run(args); return; }
+        if (args.Length > 0 && args[0] == "loops") { LoopsProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "iteration") { IterationProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "covariance") { CovarianceProbe.Run(args); return; }
         if (args.Length > 0 && args[0] == "provider") { ProviderProbe.Run(); return; }
