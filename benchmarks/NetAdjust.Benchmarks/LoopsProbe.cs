@@ -31,8 +31,8 @@ internal static class LoopsProbe
             var counts = upTo.Select((u, k) => sizes.Count(s => s <= u && (k == 0 || s > upTo[k - 1]))).ToList();
             string Label(int k) => k == 0 ? "2" : upTo[k] == int.MaxValue ? $">{upTo[k - 1]}"
                 : upTo[k] == upTo[k - 1] + 1 ? upTo[k].ToString(inv) : $"{upTo[k - 1] + 1}-{upTo[k]}";
-            Console.WriteLine(string.Create(inv, $"run {run + 1}: load average {ReadingProbe.LoadAverage()}; loops wall " +
-                $"{wall.Elapsed.TotalSeconds:F3} s CPU {cpu.TotalSeconds:F3} s; {loops.Count} loops, " +
+            Console.WriteLine(string.Create(inv, $"run {run + 1}: load average {ReadingProbe.LoadAverage()}; " +
+                $"loops wall {wall.Elapsed.TotalSeconds:F3} s CPU {cpu.TotalSeconds:F3} s; {loops.Count} loops, " +
                 $"{sizes.Sum()} baselines in all, longest {(sizes.Count > 0 ? sizes.Max() : 0)}; independence test: " +
                 $"{BaselineLoops.Reductions} reductions reading {BaselineLoops.CoordinatesRead} coordinates"));
             Console.WriteLine("  baselines per loop: " + string.Join(", ",

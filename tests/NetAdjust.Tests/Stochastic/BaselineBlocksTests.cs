@@ -61,7 +61,8 @@ public class BaselineBlocksTests
         AssertBlock(Expected(cov, sd, [0, 1, 2], 2.5), block);
         // the stated σ give the stated covariance back: W = Σ⁻¹ (σ0² = 1)
         double[] stated = [Math.Sqrt(cov[0]), Math.Sqrt(cov[4]), Math.Sqrt(cov[8])];
-        var w = Matrix<double>.Build.Dense(3, 3, (a, b) => BaselineBlocks.Build(net, stated, 1)[0].Weights[(a * 3) + b]);
+        var weights = BaselineBlocks.Build(net, stated, 1)[0].Weights;
+        var w = Matrix<double>.Build.Dense(3, 3, (a, b) => weights[(a * 3) + b]);
         var back = w.Inverse();
         for (int a = 0; a < 3; a++)
             for (int b = 0; b < 3; b++) Assert.Equal(cov[(a * 3) + b], back[a, b], 1e-9 * cov[(a * 3) + a]);
